@@ -1,0 +1,42 @@
+/**
+ * Epsigma command line: `npm run -s cli -- <command> [flags] --json`.
+ * Each command lives in scripts/cli/<command>.ts and exports `run(argv)`, which returns a JSON-able object.
+ * JSON goes to stdout; errors go to stderr with exit code 1 (2 for an unknown command).
+ */
+import { readdirSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+
+const commandsDir = fileURLToPath(new URL('./cli/', import.meta.url));
+
+function availableCommands(): string[] {
+  return readdirSync(commandsDir)
+    .filter((f) => f.endsWith('.ts') && !f.endsWith('.test.ts') && !f.startsWith('_'))
+    .map((f) => f.replace(/\.ts$/, ''))
+    .sort();
+}
+
+async function main(): Promise<number> {
+  const [command, ...rest] = process.argv.slice(2);
+  const commands = availableCommands();
+  if (!command || command === '--help' || command === 'help') {
+    process.stderr.write(`usage: npm run -s cli -- <command> [flags] --json\ncommands: ${commands.join(', ')}\n`);
+    return command ? 0 : 2;
+  }
+  if (!commands.includes(command)) {
+    process.stderr.write(`epsigma: unknown command "${command}"; expected one of: ${commands.join(', ')}\n`);
+    return 2;
+  }
+  const mod = (await import(`./cli/${command}.ts`)) as { run: (argv: string[]) => Promise<unknown> | unknown };
+  const json = rest.includes('--json');
+  const output = await mod.run(rest.filter((a) => a !== '--json'));
+  process.stdout.write(json ? `${JSON.stringify(output, null, 2)}\n` : `${JSON.stringify(output, null, 2)}\n`);
+  return 0;
+}
+
+main().then(
+  (code) => process.exit(code),
+  (err: unknown) => {
+    process.stderr.write(`epsigma: ${err instanceof Error ? err.message : String(err)}\n`);
+    process.exit(1);
+  },
+);
