@@ -27,9 +27,9 @@ async function main(): Promise<number> {
     return 2;
   }
   const mod = (await import(`./cli/${command}.ts`)) as { run: (argv: string[]) => Promise<unknown> | unknown };
-  const json = rest.includes('--json');
+  // Output is always JSON; `--json` is accepted so scripts can state what they expect.
   const output = await mod.run(rest.filter((a) => a !== '--json'));
-  process.stdout.write(json ? `${JSON.stringify(output, null, 2)}\n` : `${JSON.stringify(output, null, 2)}\n`);
+  process.stdout.write(`${JSON.stringify(output, null, 2)}\n`);
   return 0;
 }
 
