@@ -1,0 +1,12 @@
+import type { Env } from './config/env';
+import type { Db, DatabaseHandle } from './db/database';
+import type { Auth } from './features/auth/auth';
+
+/** What every feature's routes are built from: configuration, the database and the session manager. */
+export interface AppContext {
+  env: Env;
+  db: Db;
+  sqlite: DatabaseHandle['sqlite'];
+  auth: Auth;
+  log: (message: string) => void;
+}

@@ -1,0 +1,65 @@
+import { existsSync } from 'node:fs';
+import path from 'node:path';
+import express from 'express';
+import helmet from 'helmet';
+import type { AppContext } from './app-context';
+import { originCheck, sessionMiddleware } from './common/auth-middleware';
+import { apiNotFound, createErrorHandler } from './common/error-handler';
+import { authRoutes } from './features/auth/auth.routes';
+import { healthRoutes } from './features/health/health.routes';
+import { userRoutes } from './features/users/users.routes';
+
+export interface CreateAppOptions {
+  /** Folder of the built client (vite build); when set, the server serves it with an SPA fallback. */
+  clientDir?: string;
+}
+
+/** Builds the Express app without listening, so tests can drive it with supertest. */
+export function createApp(ctx: AppContext, options: CreateAppOptions = {}) {
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          defaultSrc: ["'self'"],
+          scriptSrc: ["'self'"],
+          styleSrc: ["'self'", "'unsafe-inline'"],
+          imgSrc: ["'self'", 'data:', 'blob:'],
+          fontSrc: ["'self'", 'data:'],
+          connectSrc: ["'self'"],
+          upgradeInsecureRequests: null,
+        },
+      },
+    }),
+  );
+
+  if (ctx.env.LOG_REQUESTS === '1') {
+    // Method, path, status and time only: never bodies, cookies or query strings (they may carry secrets).
+    app.use((req, res, next) => {
+      const started = performance.now();
+      res.on('finish', () => ctx.log(`${req.method} ${req.path} ${res.statusCode} ${(performance.now() - started).toFixed(0)}ms`));
+      next();
+    });
+  }
+
+  const api = express.Router();
+  api.use(express.json({ limit: '1mb' }));
+  api.use(originCheck);
+  api.use(sessionMiddleware(ctx.auth, ctx.db));
+  api.use(healthRoutes(ctx));
+  api.use(authRoutes(ctx));
+  api.use(userRoutes(ctx));
+  api.use(apiNotFound);
+  app.use('/api', api);
+
+  if (options.clientDir && existsSync(path.join(options.clientDir, 'index.html'))) {
+    const clientDir = options.clientDir;
+    app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
+    app.get('/{*splat}', (_req, res) => res.sendFile(path.join(clientDir, 'index.html')));
+  }
+
+  app.use(createErrorHandler(ctx.log));
+  return app;
+}

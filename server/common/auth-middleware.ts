@@ -1,0 +1,84 @@
+import type { RequestHandler } from 'express';
+import type { Session } from 'lucia';
+import { verifyRequestOrigin } from 'lucia';
+import { hasPolicy, type Policy, type Role } from '../../shared/auth/roles';
+import type { Db } from '../db/database';
+import type { Auth } from '../features/auth/auth';
+import { rolesOf } from '../features/users/users.repository';
+import { AppError, forbidden, unauthorized } from './errors';
+
+export interface CurrentUser {
+  id: string;
+  email: string;
+  name: string;
+  roles: Role[];
+}
+
+declare global {
+  // eslint-disable-next-line @typescript-eslint/no-namespace
+  namespace Express {
+    interface Locals {
+      user?: CurrentUser;
+      session?: Session;
+    }
+  }
+}
+
+const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
+
+/**
+ * Cross-site request forgery guard: a state-changing request must carry an Origin header naming this host.
+ * Browsers always send it on POST/PATCH/DELETE; scripts add it themselves.
+ */
+export const originCheck: RequestHandler = (req, _res, next) => {
+  if (SAFE_METHODS.has(req.method)) return next();
+  const origin = req.get('origin');
+  const host = req.get('x-forwarded-host') ?? req.get('host');
+  if (!origin || !host || !verifyRequestOrigin(origin, [host])) {
+    return next(new AppError(403, 'origin_rejected', 'State-changing requests must come from this site (Origin header missing or foreign).'));
+  }
+  next();
+};
+
+/** Reads the session cookie, refreshes or clears it, and loads the user with their roles. */
+export function sessionMiddleware(auth: Auth, db: Db): RequestHandler {
+  return async (req, res, next) => {
+    const sessionId = auth.readSessionCookie(req.headers.cookie ?? '');
+    if (!sessionId) return next();
+    const { session, user } = await auth.validateSession(sessionId);
+    if (!session) {
+      res.append('Set-Cookie', auth.createBlankSessionCookie().serialize());
+      return next();
+    }
+    if (session.fresh) res.append('Set-Cookie', auth.createSessionCookie(session.id).serialize());
+    const row = await db.selectFrom('user').select(['id', 'email', 'name', 'active']).where('id', '=', user.id).executeTakeFirst();
+    if (!row || row.active !== 1) {
+      await auth.invalidateSession(session.id);
+      res.append('Set-Cookie', auth.createBlankSessionCookie().serialize());
+      return next();
+    }
+    res.locals.session = session;
+    res.locals.user = { id: row.id, email: row.email, name: row.name, roles: await rolesOf(db, row.id) };
+    next();
+  };
+}
+
+export const requireUser: RequestHandler = (_req, res, next) => {
+  next(res.locals.user ? undefined : unauthorized());
+};
+
+/** 401 without a session, 403 when none of the user's roles grants the policy. */
+export function requirePolicy(policy: Policy): RequestHandler {
+  return (_req, res, next) => {
+    const user = res.locals.user;
+    if (!user) return next(unauthorized());
+    if (!hasPolicy(user.roles, policy)) return next(forbidden(`Your roles (${user.roles.join(', ')}) do not allow ${policy}.`));
+    next();
+  };
+}
+
+/** The signed-in user; only call behind requireUser / requirePolicy. */
+export function currentUser(res: { locals: { user?: CurrentUser } }): CurrentUser {
+  if (!res.locals.user) throw unauthorized();
+  return res.locals.user;
+}

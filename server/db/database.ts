@@ -1,0 +1,43 @@
+import { promises as fs, mkdirSync } from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import SQLite from 'better-sqlite3';
+import { CamelCasePlugin, FileMigrationProvider, Kysely, Migrator, SqliteDialect, type Transaction } from 'kysely';
+import type { Database } from './schema';
+
+export type Db = Kysely<Database>;
+export type Tx = Transaction<Database>;
+
+export interface DatabaseHandle {
+  db: Db;
+  sqlite: SQLite.Database;
+  close: () => Promise<void>;
+}
+
+const MIGRATIONS_DIR = fileURLToPath(new URL('../../migrations/', import.meta.url));
+
+/** Opens the SQLite file with WAL and foreign keys on; snake_case columns appear as camelCase in TypeScript. */
+export function openDatabase(databasePath: string): DatabaseHandle {
+  if (databasePath !== ':memory:') mkdirSync(path.dirname(path.resolve(databasePath)), { recursive: true });
+  const sqlite = new SQLite(databasePath);
+  sqlite.pragma('journal_mode = WAL');
+  sqlite.pragma('foreign_keys = ON');
+  sqlite.pragma('busy_timeout = 5000');
+  const db = new Kysely<Database>({ dialect: new SqliteDialect({ database: sqlite }), plugins: [new CamelCasePlugin()] });
+  return { db, sqlite, close: () => db.destroy() };
+}
+
+/** Runs every pending migration in migrations/; throws with the failing migration's name. */
+export async function migrateToLatest(db: Kysely<any>): Promise<string[]> {
+  const migrator = new Migrator({
+    db,
+    provider: new FileMigrationProvider({ fs, path, migrationFolder: MIGRATIONS_DIR }),
+  });
+  const { error, results } = await migrator.migrateToLatest();
+  const failed = results?.find((r) => r.status === 'Error');
+  if (error || failed) {
+    const reason = error instanceof Error ? error.message : String(error ?? 'unknown error');
+    throw new Error(`Migration ${failed?.migrationName ?? ''} failed: ${reason}`);
+  }
+  return (results ?? []).filter((r) => r.status === 'Success').map((r) => r.migrationName);
+}

@@ -1,0 +1,82 @@
+import { Router } from 'express';
+import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
+import { changePasswordBody, signInBody } from '../../../shared/schemas/users';
+import { currentUser, requireUser } from '../../common/auth-middleware';
+import { AppError } from '../../common/errors';
+import { validBody } from '../../common/validate';
+import type { AppContext } from '../../app-context';
+import { recordAudit } from '../audit/audit.service';
+import { findUserByEmail, findUserById } from '../users/users.repository';
+import { hashPassword, verifyPassword } from './auth';
+
+// A hash of a random string, verified when the e-mail is unknown so the answer takes as long as for a known one.
+let decoyHash: Promise<string> | undefined;
+
+export function authRoutes(ctx: AppContext): Router {
+  const router = Router();
+  const { db, auth } = ctx;
+
+  const signInLimiter = rateLimit({
+    windowMs: 15 * 60 * 1000,
+    limit: ctx.env.SIGN_IN_LIMIT,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}|${String(req.body?.email ?? '').toLowerCase()}`,
+    handler: (_req, _res, next) =>
+      next(new AppError(429, 'too_many_attempts', 'Too many sign-in attempts. Wait 15 minutes and try again.')),
+  });
+
+  router.post('/auth/login', signInLimiter, async (req, res) => {
+    const body = validBody(signInBody, req);
+    const user = await findUserByEmail(db, body.email);
+    let ok = false;
+    if (user) ok = await verifyPassword(user.passwordHash, body.password);
+    else await verifyPassword(await (decoyHash ??= hashPassword(`decoy-${Math.random()}`)), body.password);
+    if (!user || !ok || user.active !== 1) {
+      await recordAudit(db, {
+        actor: null,
+        action: 'auth.sign_in_failed',
+        targetType: 'user',
+        targetId: user?.id ?? null,
+        summary: `Failed sign-in for ${body.email}${user && user.active !== 1 ? ' (account deactivated)' : ''}`,
+      });
+      throw new AppError(401, 'invalid_credentials', 'E-mail or password is not right.');
+    }
+    const session = await auth.createSession(user.id, {});
+    res.append('Set-Cookie', auth.createSessionCookie(session.id).serialize());
+    const roles = await db.selectFrom('userRole').select('role').where('userId', '=', user.id).execute();
+    res.json({ id: user.id, email: user.email, name: user.name, roles: roles.map((r) => r.role).sort() });
+  });
+
+  router.post('/auth/logout', async (_req, res) => {
+    if (res.locals.session) await auth.invalidateSession(res.locals.session.id);
+    res.append('Set-Cookie', auth.createBlankSessionCookie().serialize());
+    res.status(204).end();
+  });
+
+  router.get('/me', requireUser, (_req, res) => {
+    const { id, email, name, roles } = currentUser(res);
+    res.json({ id, email, name, roles });
+  });
+
+  router.post('/me/password', requireUser, async (req, res) => {
+    const body = validBody(changePasswordBody, req);
+    const me = currentUser(res);
+    const row = await findUserById(db, me.id);
+    if (!row || !(await verifyPassword(row.passwordHash, body.currentPassword))) {
+      throw new AppError(422, 'wrong_password', 'The current password is not right.', [
+        { field: 'currentPassword', message: 'does not match' },
+      ]);
+    }
+    const passwordHash = await hashPassword(body.newPassword);
+    await db.transaction().execute(async (tx) => {
+      await tx.updateTable('user').set({ passwordHash }).where('id', '=', me.id).execute();
+      await recordAudit(tx, { actor: me, action: 'user.password_changed', targetType: 'user', targetId: me.id, summary: `${me.email} changed their password` });
+    });
+    // Other sessions of this user end; this one stays.
+    await db.deleteFrom('session').where('userId', '=', me.id).where('id', '!=', res.locals.session!.id).execute();
+    res.status(204).end();
+  });
+
+  return router;
+}

@@ -1,0 +1,57 @@
+import type { Role } from '../../../shared/auth/roles';
+import type { Db, Tx } from '../../db/database';
+
+export async function findUserByEmail(db: Db | Tx, email: string) {
+  return db.selectFrom('user').selectAll().where('email', '=', email.trim().toLowerCase()).executeTakeFirst();
+}
+
+export async function findUserById(db: Db | Tx, id: string) {
+  return db.selectFrom('user').selectAll().where('id', '=', id).executeTakeFirst();
+}
+
+export async function rolesOf(db: Db | Tx, userId: string): Promise<Role[]> {
+  const rows = await db.selectFrom('userRole').select('role').where('userId', '=', userId).orderBy('role').execute();
+  return rows.map((r) => r.role);
+}
+
+export async function listUsersWithRoles(db: Db | Tx) {
+  const users = await db
+    .selectFrom('user')
+    .select(['id', 'email', 'name', 'active', 'createdAt'])
+    .orderBy('name')
+    .execute();
+  const roles = await db.selectFrom('userRole').select(['userId', 'role']).execute();
+  return users.map((u) => ({ ...u, roles: roles.filter((r) => r.userId === u.id).map((r) => r.role).sort() }));
+}
+
+export async function insertUser(
+  db: Db | Tx,
+  user: { id: string; email: string; name: string; passwordHash: string; roles: Role[] },
+) {
+  await db
+    .insertInto('user')
+    .values({ id: user.id, email: user.email, name: user.name, passwordHash: user.passwordHash, createdAt: new Date().toISOString() })
+    .execute();
+  await replaceRoles(db, user.id, user.roles);
+}
+
+export async function replaceRoles(db: Db | Tx, userId: string, roles: Role[]) {
+  await db.deleteFrom('userRole').where('userId', '=', userId).execute();
+  if (roles.length) await db.insertInto('userRole').values(roles.map((role) => ({ userId, role }))).execute();
+}
+
+export async function countUsers(db: Db | Tx): Promise<number> {
+  const row = await db.selectFrom('user').select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow();
+  return Number(row.n);
+}
+
+export async function countActiveAdmins(db: Db | Tx): Promise<number> {
+  const row = await db
+    .selectFrom('user')
+    .innerJoin('userRole', 'userRole.userId', 'user.id')
+    .where('userRole.role', '=', 'admin')
+    .where('user.active', '=', 1)
+    .select((eb) => eb.fn.countAll<number>().as('n'))
+    .executeTakeFirstOrThrow();
+  return Number(row.n);
+}

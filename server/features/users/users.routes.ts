@@ -1,0 +1,101 @@
+import { randomUUID } from 'node:crypto';
+import { Router } from 'express';
+import { createUserBody, updateUserBody } from '../../../shared/schemas/users';
+import { currentUser, requirePolicy } from '../../common/auth-middleware';
+import { conflict, notFound } from '../../common/errors';
+import { validBody, validParams } from '../../common/validate';
+import { z } from 'zod';
+import type { AppContext } from '../../app-context';
+import { recordAudit } from '../audit/audit.service';
+import { hashPassword } from '../auth/auth';
+import { countActiveAdmins, findUserByEmail, findUserById, insertUser, listUsersWithRoles, replaceRoles, rolesOf } from './users.repository';
+
+const userIdParams = z.object({ id: z.string().min(1).max(64) });
+
+const toPerson = (u: { id: string; email: string; name: string; active: number; createdAt: string; roles: string[] }) => ({
+  id: u.id,
+  email: u.email,
+  name: u.name,
+  active: u.active === 1,
+  createdAt: u.createdAt,
+  roles: u.roles,
+});
+
+/** People administration (admin only). */
+export function userRoutes(ctx: AppContext): Router {
+  const router = Router();
+  const { db } = ctx;
+  router.use('/users', requirePolicy('people:manage'));
+
+  router.get('/users', async (_req, res) => {
+    res.json({ users: (await listUsersWithRoles(db)).map(toPerson) });
+  });
+
+  router.post('/users', async (req, res) => {
+    const body = validBody(createUserBody, req);
+    const actor = currentUser(res);
+    if (await findUserByEmail(db, body.email)) {
+      throw conflict(`A person with the e-mail ${body.email} already exists.`, [{ field: 'email', message: 'already in use' }]);
+    }
+    const id = randomUUID();
+    const passwordHash = await hashPassword(body.password);
+    const roles = [...new Set(body.roles)].sort();
+    await db.transaction().execute(async (tx) => {
+      await insertUser(tx, { id, email: body.email, name: body.name, passwordHash, roles });
+      await recordAudit(tx, {
+        actor,
+        action: 'user.created',
+        targetType: 'user',
+        targetId: id,
+        summary: `${actor.email} added ${body.email} with roles ${roles.join(', ')}`,
+        after: { email: body.email, name: body.name, roles },
+      });
+    });
+    const created = (await listUsersWithRoles(db)).find((u) => u.id === id)!;
+    res.status(201).json(toPerson(created));
+  });
+
+  router.patch('/users/:id', async (req, res) => {
+    const { id } = validParams(userIdParams, req);
+    const body = validBody(updateUserBody, req);
+    const actor = currentUser(res);
+    const target = await findUserById(db, id);
+    if (!target) throw notFound('Person');
+    const beforeRoles = await rolesOf(db, id);
+    const losesAdmin =
+      (body.roles && beforeRoles.includes('admin') && !body.roles.includes('admin')) ||
+      (body.active === false && beforeRoles.includes('admin'));
+    await db.transaction().execute(async (tx) => {
+      if (losesAdmin && target.active === 1 && (await countActiveAdmins(tx)) <= 1) {
+        throw conflict('This is the last active admin; give another person the admin role first.');
+      }
+      if (id === actor.id && body.active === false) throw conflict('You cannot deactivate yourself.');
+      const set: { name?: string; active?: number } = {};
+      if (body.name !== undefined) set.name = body.name;
+      if (body.active !== undefined) set.active = body.active ? 1 : 0;
+      if (Object.keys(set).length) await tx.updateTable('user').set(set).where('id', '=', id).execute();
+      if (body.roles) await replaceRoles(tx, id, [...new Set(body.roles)].sort());
+      if (body.active === false) await tx.deleteFrom('session').where('userId', '=', id).execute();
+      const before = { name: target.name, active: target.active === 1, roles: beforeRoles };
+      const after = { name: body.name ?? target.name, active: body.active ?? target.active === 1, roles: body.roles ? [...new Set(body.roles)].sort() : beforeRoles };
+      const changes = [
+        body.roles && `roles ${beforeRoles.join(', ')} → ${after.roles.join(', ')}`,
+        body.active !== undefined && before.active !== after.active && (after.active ? 'reactivated' : 'deactivated'),
+        body.name !== undefined && before.name !== after.name && `renamed to ${after.name}`,
+      ].filter(Boolean);
+      await recordAudit(tx, {
+        actor,
+        action: body.roles ? 'user.roles_changed' : 'user.updated',
+        targetType: 'user',
+        targetId: id,
+        summary: `${actor.email} updated ${target.email}: ${changes.join('; ') || 'no change'}`,
+        before,
+        after,
+      });
+    });
+    const updated = (await listUsersWithRoles(db)).find((u) => u.id === id)!;
+    res.json(toPerson(updated));
+  });
+
+  return router;
+}
