@@ -1,0 +1,58 @@
+/**
+ * MD speed benchmark: the LJ-melt state (fcc, ρ* = 0.8442, T* = 1.44 uniform initial velocities,
+ * rc = 2.5σ, skin 0.3σ, dt = 0.005, NVE), the same state and list semantics as
+ * /work/shared/bench/ljmd-reference.c so that ../shared/bench/compare.sh compares like with like.
+ * Usage: npm run -s bench:md -- [--atoms N] [--steps S] [--json]
+ */
+import { parseArgs } from 'node:util';
+import { runNve } from '../shared/physics/md/nve';
+
+const { values } = parseArgs({
+  options: {
+    atoms: { type: 'string', default: '4000' },
+    steps: { type: 'string', default: '1000' },
+    seed: { type: 'string', default: '12345' },
+    json: { type: 'boolean', default: false },
+  },
+  strict: true,
+});
+
+function positiveInteger(flag: string, text: string): number {
+  const v = Number(text);
+  if (!Number.isInteger(v) || v <= 0) throw new Error(`--${flag} must be a positive integer, got "${text}"`);
+  return v;
+}
+
+const atoms = positiveInteger('atoms', values.atoms);
+const steps = positiveInteger('steps', values.steps);
+const r = runNve({
+  atoms,
+  steps,
+  reducedDensity: 0.8442,
+  reducedTemperature: 1.44,
+  cutoff: 2.5,
+  skin: 0.3,
+  timestep: 0.005,
+  seed: positiveInteger('seed', values.seed),
+  velocityDistribution: 'uniform',
+});
+const out = {
+  atoms: r.atoms,
+  steps: r.steps,
+  atomStepsPerSecond: r.atomStepsPerSecond,
+  energyDriftPerAtom: r.energyDriftPerAtom,
+  wallSeconds: r.wallSeconds,
+  listBuilds: r.listBuilds,
+  initialPotentialTruncatedPerAtom: r.initial.potentialTruncatedPerAtom,
+  initialPressureTruncated: r.initial.pressureTruncated,
+  finalTemperature: r.final.temperature,
+};
+if (values.json) {
+  process.stdout.write(`${JSON.stringify(out)}\n`);
+} else {
+  process.stdout.write(
+    `LJ melt NVE: N=${r.atoms} steps=${r.steps} ${(r.atomStepsPerSecond / 1e6).toFixed(3)} M atom-steps/s ` +
+      `(${r.wallSeconds.toFixed(3)} s, ${r.listBuilds} list builds), energy drift ${r.energyDriftPerAtom.toExponential(3)} per atom, ` +
+      `step-0 PE ${r.initial.potentialTruncatedPerAtom.toFixed(7)} P ${r.initial.pressureTruncated.toFixed(7)}\n`,
+  );
+}
