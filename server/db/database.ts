@@ -1,8 +1,8 @@
-import { promises as fs, mkdirSync } from 'node:fs';
+import { mkdirSync } from 'node:fs';
 import path from 'node:path';
-import { fileURLToPath } from 'node:url';
 import SQLite from 'better-sqlite3';
-import { CamelCasePlugin, FileMigrationProvider, Kysely, Migrator, SqliteDialect, type Transaction } from 'kysely';
+import { CamelCasePlugin, Kysely, Migrator, SqliteDialect, type Transaction } from 'kysely';
+import { MIGRATIONS } from '../../migrations/index';
 import type { Database } from './schema';
 
 export type Db = Kysely<Database>;
@@ -13,8 +13,6 @@ export interface DatabaseHandle {
   sqlite: SQLite.Database;
   close: () => Promise<void>;
 }
-
-const MIGRATIONS_DIR = fileURLToPath(new URL('../../migrations/', import.meta.url));
 
 /** Opens the SQLite file with WAL and foreign keys on; snake_case columns appear as camelCase in TypeScript. */
 export function openDatabase(databasePath: string): DatabaseHandle {
@@ -31,7 +29,7 @@ export function openDatabase(databasePath: string): DatabaseHandle {
 export async function migrateToLatest(db: Kysely<any>): Promise<string[]> {
   const migrator = new Migrator({
     db,
-    provider: new FileMigrationProvider({ fs, path, migrationFolder: MIGRATIONS_DIR }),
+    provider: { getMigrations: async () => MIGRATIONS },
   });
   const { error, results } = await migrator.migrateToLatest();
   const failed = results?.find((r) => r.status === 'Error');

@@ -1,0 +1,10 @@
+import type { Migration } from 'kysely';
+import * as m20261201_0001 from './20261201_0001_people_sessions_audit';
+
+/**
+ * Every migration, by name, in the order they run. Listed statically so the same code runs under
+ * tsx, vitest and a bundler; tests/unit/migrations.test.ts checks that no file is missing here.
+ */
+export const MIGRATIONS: Record<string, Migration> = {
+  '20261201_0001_people_sessions_audit': m20261201_0001,
+};

@@ -1,0 +1,13 @@
+import type { Policy } from '@shared/auth/roles';
+
+export interface NavItem {
+  to: string;
+  label: string;
+  policy?: Policy;
+}
+
+/** The main navigation; each role sees the items its policies allow. */
+export const NAV_ITEMS: NavItem[] = [
+  { to: '/', label: 'Workbench' },
+  { to: '/people', label: 'People', policy: 'people:manage' },
+];

@@ -1,0 +1,39 @@
+import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import type { Role } from '@shared/auth/roles';
+import type { CreateUserBody, UpdateUserBody } from '@shared/schemas/users';
+import { api } from '@/lib/api-client';
+
+export interface Person {
+  id: string;
+  email: string;
+  name: string;
+  active: boolean;
+  createdAt: string;
+  roles: Role[];
+}
+
+export const peopleKeys = {
+  all: ['people'] as const,
+  list: () => [...peopleKeys.all, 'list'] as const,
+};
+
+export const peopleQueryOptions = () =>
+  queryOptions({ queryKey: peopleKeys.list(), queryFn: () => api<{ users: Person[] }>('/users').then((r) => r.users) });
+
+export const usePeople = () => useQuery(peopleQueryOptions());
+
+export const useCreatePerson = () => {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (body: CreateUserBody) => api<Person>('/users', { body }),
+    onSuccess: () => qc.invalidateQueries({ queryKey: peopleKeys.all }),
+  });
+};
+
+export const useUpdatePerson = () => {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: ({ id, ...body }: UpdateUserBody & { id: string }) => api<Person>(`/users/${id}`, { method: 'PATCH', body }),
+    onSuccess: () => qc.invalidateQueries({ queryKey: peopleKeys.all }),
+  });
+};
