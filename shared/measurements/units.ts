@@ -53,7 +53,7 @@ export class UnitConversionError extends Error {
 export function normaliseUnitText(unitText: string): string {
   let s = unitText.replace(/º/g, '°'); // ordinal indicator typed for a degree sign
   s = s.normalize('NFKC'); // ³ → 3, ⁻ → -, ℃ → °C, full-width letters → ASCII
-  s = s.replace(/[µμ]/g, 'u');
+  s = s.replace(/[µμ]/g, 'u').replace(/[\u2212\u2013]/g, '-'); // minus sign, en dash (from ⁻ after NFKC)
   s = s.replace(/°\s*C\b/g, 'degC').replace(/°\s*F\b/g, 'degF').replace(/°\s*K\b/g, 'K');
   s = s.replace(/\bdeg\.?\s*C\b/gi, 'degC').replace(/\bdeg\.?\s*F\b/gi, 'degF');
   s = s.replace(/\bcelsius\b/gi, 'degC').replace(/\bkelvin\b/gi, 'K');
