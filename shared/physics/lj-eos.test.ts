@@ -8,7 +8,10 @@ import {
   ljEosPressure,
   ljEosResidualHelmholtz,
   ljEosThermalPressureCoefficient,
+  ljTailCorrections,
+  ljTruncatedShiftedToFull,
 } from './lj-eos';
+import { integrateToInfinity } from './quadrature';
 import { reducedB2 } from './virial';
 
 /** Relative difference, for checks stated as a fraction. */
@@ -248,5 +251,76 @@ describe('input validation of the property functions', () => {
     expect(() => fn(2, 1)).toThrow(/reducedDensity/);
     expect(() => fn(0.5, 0)).toThrow(/reducedTemperature/);
     expect(() => fn(0.5, Number.POSITIVE_INFINITY)).toThrow(RangeError);
+  });
+});
+
+describe('tail corrections for a cut-off potential', () => {
+  it('matches hand values at rho* = 0.8, r*c = 2.5', () => {
+    // Allen & Tildesley 2017, §2.8 (common formulas), evaluated by hand:
+    // rc^-3 = 0.064, rc^-9 = 2.62144e-4;
+    // u_tail = (8/3) pi 0.8 (8.73813e-5 - 0.064) = -0.428346;
+    // p_tail = (16/3) pi 0.64 (1.74763e-4 - 0.064) = -0.684417;
+    // u(rc) = 4 (1.67772e-5 - 4.096e-3) = -0.0163169.
+    const tail = ljTailCorrections(0.8, 2.5);
+    expect(tail.energyPerParticle).toBeCloseTo(-0.428346, 6);
+    expect(tail.pressure).toBeCloseTo(-0.684417, 5);
+    expect(tail.potentialAtCutoff).toBeCloseTo(-0.0163169, 7);
+  });
+
+  it('matches hand values at rho* = 0.5, r*c = 3', () => {
+    // rc^-3 = 1/27, rc^-9 = 1/19683: u_tail = (8/3) pi 0.5 (1/59049 - 1/27) = -0.155069,
+    // p_tail = (16/3) pi 0.25 (2/59049 - 1/27) = -0.154999 (hand values, same formulas).
+    const tail = ljTailCorrections(0.5, 3);
+    expect(tail.energyPerParticle).toBeCloseTo(-0.155069, 5);
+    expect(tail.pressure).toBeCloseTo(-0.154999, 5);
+  });
+
+  it.each([
+    [0.3, 2.5],
+    [0.8, 3.0],
+    [0.9, 4.0],
+  ])('equals the tail integrals done by quadrature: rho* = %f, r*c = %f', (rho, rc) => {
+    // u_tail = 2 pi rho int_rc^inf u r^2 dr, p_tail = -(2 pi / 3) rho^2 int_rc^inf r u'(r) r^2 dr
+    // (Allen & Tildesley 2017, §2.8, with g(r) = 1 beyond rc); integrated numerically as an independent check.
+    const u = (r: number) => 4 * (r ** -12 - r ** -6);
+    const rDuDr = (r: number) => -48 * r ** -12 + 24 * r ** -6;
+    const energy = 2 * Math.PI * rho * integrateToInfinity((r) => u(r) * r * r, rc, { relativeTolerance: 1e-12 }).value;
+    const pressure =
+      (-2 * Math.PI * rho * rho * integrateToInfinity((r) => rDuDr(r) * r * r, rc, { relativeTolerance: 1e-12 }).value) / 3;
+    const tail = ljTailCorrections(rho, rc);
+    expect(rel(tail.energyPerParticle, energy)).toBeLessThan(1e-9);
+    expect(rel(tail.pressure, pressure)).toBeLessThan(1e-9);
+  });
+
+  it('vanishes as the cut-off grows', () => {
+    // Both fall off as rc^-3 (common practice, no source): at rc = 1e4 they are ~1e-11.
+    const far = ljTailCorrections(0.8, 1e4);
+    expect(Math.abs(far.energyPerParticle)).toBeLessThan(1e-10);
+    expect(Math.abs(far.pressure)).toBeLessThan(1e-10);
+    expect(Math.abs(far.potentialAtCutoff)).toBeLessThan(1e-20);
+  });
+
+  it('turns truncated-and-shifted measurements into full-potential estimates', () => {
+    // U_full/N = U_ts/N + u(rc) n_pairs/N + u_tail; P_full = P_ts + p_tail (Allen & Tildesley 2017, §2.8).
+    const tail = ljTailCorrections(0.8, 2.5);
+    const full = ljTruncatedShiftedToFull(
+      { energyPerParticle: -5.0, virialPressure: 1.0, pairsWithinCutoffPerParticle: 26 },
+      0.8,
+      2.5,
+    );
+    expect(full.energyPerParticle).toBeCloseTo(-5.0 + 26 * -0.0163169 - 0.428346, 5);
+    expect(full.virialPressure).toBeCloseTo(1.0 + tail.pressure, 12);
+  });
+
+  it('rejects bad inputs, naming the parameter', () => {
+    expect(() => ljTailCorrections(0.8, 0.5)).toThrow(/cutoff/);
+    expect(() => ljTailCorrections(0.8, Number.NaN)).toThrow(/cutoff/);
+    expect(() => ljTailCorrections(-1, 2.5)).toThrow(/reducedDensity/);
+    expect(() =>
+      ljTruncatedShiftedToFull({ energyPerParticle: -5, virialPressure: 1, pairsWithinCutoffPerParticle: -1 }, 0.8, 2.5),
+    ).toThrow(/pairsWithinCutoffPerParticle/);
+    expect(() =>
+      ljTruncatedShiftedToFull({ energyPerParticle: Number.NaN, virialPressure: 1, pairsWithinCutoffPerParticle: 1 }, 0.8, 2.5),
+    ).toThrow(/energyPerParticle/);
   });
 });

@@ -525,3 +525,78 @@ export function ljEosDensity(
   if (notes.length > 0) result.note = notes.join('; ');
   return result;
 }
+
+/**
+ * Long-range (tail) corrections for a Lennard-Jones potential cut at r*c, with g(r) = 1 beyond the
+ * cut-off (the standard mean-field formulas; Allen & Tildesley, Computer Simulation of Liquids,
+ * 2nd ed. 2017, §2.8):
+ *   u_tail = 2πρ ∫_rc^∞ u(r) r² dr          = (8/3)πρ [ rc⁻⁹/3 − rc⁻³ ]
+ *   p_tail = −(2π/3)ρ² ∫_rc^∞ r u'(r) r² dr = (16/3)πρ² [ 2rc⁻⁹/3 − rc⁻³ ]
+ * For the truncated-and-shifted potential u(r) − u(rc) (r < rc) the forces inside rc are unchanged and
+ * continuous at rc, so p_tail alone restores the full-potential pressure; the energy also needs the shift
+ * back, u(rc) per pair inside the cut-off (see `ljTruncatedShiftedToFull`).
+ */
+export interface LjTailCorrections {
+  /** u_tail, energy per particle in ε of the pairs beyond the cut-off. */
+  energyPerParticle: number;
+  /** p_tail in ε/σ³. */
+  pressure: number;
+  /** u(rc) = 4(rc⁻¹² − rc⁻⁶) in ε, the constant subtracted by the shifted potential. */
+  potentialAtCutoff: number;
+}
+
+function checkCutoff(cutoff: number): void {
+  if (typeof cutoff !== 'number' || !Number.isFinite(cutoff) || cutoff < 1) {
+    // Below σ the g(r) = 1 assumption behind the formulas is meaningless.
+    throw new RangeError(`cutoff must be a finite reduced distance r*c >= 1, got ${String(cutoff)}`);
+  }
+}
+
+/** Tail corrections at reduced density ρ* for a cut-off r*c ≥ 1 (formulas at `LjTailCorrections`). */
+export function ljTailCorrections(reducedDensity: number, cutoff: number): LjTailCorrections {
+  checkDensity(reducedDensity);
+  checkCutoff(cutoff);
+  const inv3 = cutoff ** -3;
+  const inv9 = inv3 * inv3 * inv3;
+  return {
+    energyPerParticle: (8 / 3) * Math.PI * reducedDensity * (inv9 / 3 - inv3),
+    pressure: (16 / 3) * Math.PI * reducedDensity * reducedDensity * ((2 / 3) * inv9 - inv3),
+    potentialAtCutoff: 4 * (inv9 * inv3 - inv3 * inv3),
+  };
+}
+
+export interface LjTruncatedShiftedEstimate {
+  /** Configurational energy per particle measured with the truncated-and-shifted potential, ε. */
+  energyPerParticle: number;
+  /** Configurational (virial) pressure measured with the truncated-and-shifted potential, ε/σ³ (no kinetic part). */
+  virialPressure: number;
+  /** Mean number of pairs closer than the cut-off, per particle (pairs/N, each pair counted once). */
+  pairsWithinCutoffPerParticle: number;
+}
+
+/**
+ * Full-potential estimates from a truncated-and-shifted simulation, for comparison with the EOS:
+ * U/N = U_ts/N + u(rc)·(pairs within rc)/N + u_tail and P_conf = P_ts,conf + p_tail
+ * (Allen & Tildesley 2017, §2.8). The pair count comes from the simulation itself, so no g(r) = 1
+ * approximation is made inside the cut-off.
+ */
+export function ljTruncatedShiftedToFull(
+  measured: LjTruncatedShiftedEstimate,
+  reducedDensity: number,
+  cutoff: number,
+): { energyPerParticle: number; virialPressure: number } {
+  const tail = ljTailCorrections(reducedDensity, cutoff);
+  for (const key of ['energyPerParticle', 'virialPressure', 'pairsWithinCutoffPerParticle'] as const) {
+    if (typeof measured[key] !== 'number' || !Number.isFinite(measured[key])) {
+      throw new RangeError(`measured.${key} must be a finite number, got ${String(measured[key])}`);
+    }
+  }
+  if (measured.pairsWithinCutoffPerParticle < 0) {
+    throw new RangeError(`measured.pairsWithinCutoffPerParticle must be >= 0, got ${measured.pairsWithinCutoffPerParticle}`);
+  }
+  return {
+    energyPerParticle:
+      measured.energyPerParticle + tail.potentialAtCutoff * measured.pairsWithinCutoffPerParticle + tail.energyPerParticle,
+    virialPressure: measured.virialPressure + tail.pressure,
+  };
+}
