@@ -426,15 +426,18 @@ function findDuplicates(rows: CanonicalRow[], used: UsedColumn[], kind: Property
       const point = fields
         .map((f) => {
           const q = Object.values(QUANTITIES).find((d) => d.field === f)!;
-          return `${q.key === 'temperature' ? 'T' : 'P'} = ${formatNumber(get(later, f))} ${q.canonicalUnitLabel}`;
+          return `${q.symbol} = ${formatNumber(get(later, f))} ${q.canonicalUnitLabel}`;
         })
+        .join(', ');
+      const written = fields
+        .map((f) => `"${used.find((u) => u.field === f)?.header ?? f}" = ${later.raw[f] ?? ''}`)
         .join(', ');
       problems.add({
         row: later.row,
         column: firstColumn?.header,
         field: fields.join(','),
         code: 'duplicate-state-point',
-        message: `Row ${later.row} repeats the state point of row ${first.row} (${point}); each state point may appear once. Remove one or average them.`,
+        message: `Row ${later.row} (${written}) repeats the state point of row ${first.row} (${point}); each state point may appear once. Remove one or average them.`,
       });
     }
   }

@@ -39,6 +39,8 @@ export interface QuantityDefinition {
   field: CanonicalField;
   /** Human label for messages and the mapping screen. */
   label: string;
+  /** Symbol as printed in tables and messages. */
+  symbol: string;
   /** Canonical unit in mathjs syntax (what the stored value is expressed in). */
   canonicalUnit: string;
   /** Canonical unit as shown to a person. */
@@ -63,6 +65,7 @@ const q = (d: QuantityDefinition) => d;
 export const QUANTITIES: Record<QuantityKey, QuantityDefinition> = {
   temperature: q({
     key: 'temperature',
+    symbol: 'T',
     field: 'temperatureK',
     label: 'temperature',
     canonicalUnit: 'K',
@@ -76,6 +79,7 @@ export const QUANTITIES: Record<QuantityKey, QuantityDefinition> = {
   }),
   pressure: q({
     key: 'pressure',
+    symbol: 'P',
     field: 'pressureMPa',
     label: 'pressure',
     canonicalUnit: 'MPa',
@@ -89,6 +93,7 @@ export const QUANTITIES: Record<QuantityKey, QuantityDefinition> = {
   }),
   b2: q({
     key: 'b2',
+    symbol: 'B2',
     field: 'b2Cm3PerMol',
     label: 'second virial coefficient B2',
     canonicalUnit: 'cm^3/mol',
@@ -101,6 +106,7 @@ export const QUANTITIES: Record<QuantityKey, QuantityDefinition> = {
   }),
   uB2: q({
     key: 'uB2',
+    symbol: 'u(B2)',
     field: 'uB2Cm3PerMol',
     label: 'uncertainty of B2',
     canonicalUnit: 'cm^3/mol',
@@ -114,6 +120,7 @@ export const QUANTITIES: Record<QuantityKey, QuantityDefinition> = {
   }),
   density: q({
     key: 'density',
+    symbol: 'ρ',
     field: 'densityKgPerM3',
     label: 'density',
     canonicalUnit: 'kg/m^3',
@@ -127,6 +134,7 @@ export const QUANTITIES: Record<QuantityKey, QuantityDefinition> = {
   }),
   uDensity: q({
     key: 'uDensity',
+    symbol: 'u(ρ)',
     field: 'uDensityKgPerM3',
     label: 'uncertainty of density',
     canonicalUnit: 'kg/m^3',
@@ -140,6 +148,7 @@ export const QUANTITIES: Record<QuantityKey, QuantityDefinition> = {
   }),
   viscosity: q({
     key: 'viscosity',
+    symbol: 'η',
     field: 'viscosityMicroPaS',
     label: 'viscosity',
     canonicalUnit: 'uPa s',
@@ -153,6 +162,7 @@ export const QUANTITIES: Record<QuantityKey, QuantityDefinition> = {
   }),
   uViscosity: q({
     key: 'uViscosity',
+    symbol: 'u(η)',
     field: 'uViscosityMicroPaS',
     label: 'uncertainty of viscosity',
     canonicalUnit: 'uPa s',

@@ -115,7 +115,10 @@ describe('spellings and errors (common practice, no source)', () => {
     expect(codeOf(() => convertToCanonical(1, '5 K', 'temperature'))?.[0]).toBe('unknown-unit');
     const wrong = codeOf(() => convertToCanonical(1, 'MPa', 'temperature'));
     expect(wrong?.[0]).toBe('wrong-dimension');
-    expect(wrong?.[1]).toMatch(/"MPa" is a pressure unit, but temperature needs temperature/);
+    expect(wrong?.[1]).toMatch(/"MPa" is a pressure unit, but temperature needs a temperature unit \(K, °C\)/);
+    expect(codeOf(() => convertToCanonical(1, 'C', 'temperature'))?.[1]).toMatch(/For degrees Celsius write °C/);
+    expect(codeOf(() => convertToCanonical(1, 'barg', 'pressure'))?.[0]).toBe('unknown-unit');
+    expect(convertToCanonical(10, 'bara', 'pressure')).toBeCloseTo(1, 12);
     expect(codeOf(() => convertToCanonical(1, 'kg/m^3', 'b2'))?.[0]).toBe('wrong-dimension');
     expect(codeOf(() => convertToCanonical(1, 'mol/L', 'b2'))?.[0]).toBe('wrong-dimension');
     expect(codeOf(() => convertToCanonical(1, '', 'pressure'))?.[0]).toBe('missing-unit');

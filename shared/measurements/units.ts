@@ -23,13 +23,13 @@ const DIMENSION_REFERENCE: Record<Dimension, string> = {
   dynamicViscosity: 'Pa s',
 };
 
-const DIMENSION_LABEL: Record<Dimension, string> = {
-  temperature: 'temperature (K, °C)',
-  pressure: 'pressure (Pa, kPa, MPa, bar, atm)',
-  molarVolume: 'molar volume (cm³/mol, m³/mol, L/mol)',
-  massDensity: 'mass density (kg/m³, g/cm³)',
-  amountDensity: 'molar density (mol/L, mol/m³)',
-  dynamicViscosity: 'dynamic viscosity (Pa·s, mPa·s, µPa·s, cP, µP)',
+const DIMENSION_LABEL: Record<Dimension, { name: string; examples: string }> = {
+  temperature: { name: 'temperature', examples: 'K, °C' },
+  pressure: { name: 'pressure', examples: 'Pa, kPa, MPa, bar, atm' },
+  molarVolume: { name: 'molar volume', examples: 'cm³/mol, m³/mol, L/mol' },
+  massDensity: { name: 'mass density', examples: 'kg/m³, g/cm³' },
+  amountDensity: { name: 'molar density', examples: 'mol/L, mol/m³' },
+  dynamicViscosity: { name: 'dynamic viscosity', examples: 'Pa·s, mPa·s, µPa·s, cP, µP' },
 };
 
 export type UnitErrorCode = 'missing-unit' | 'unknown-unit' | 'wrong-dimension' | 'missing-molar-mass' | 'invalid-molar-mass';
@@ -57,6 +57,7 @@ export function normaliseUnitText(unitText: string): string {
   s = s.replace(/°\s*C\b/g, 'degC').replace(/°\s*F\b/g, 'degF').replace(/°\s*K\b/g, 'K');
   s = s.replace(/\bdeg\.?\s*C\b/gi, 'degC').replace(/\bdeg\.?\s*F\b/gi, 'degF');
   s = s.replace(/\bcelsius\b/gi, 'degC').replace(/\bkelvin\b/gi, 'K');
+  s = s.replace(/\b(bar|psi)a\b/g, '$1'); // "bara", "psia": absolute pressure (gauge "barg" stays unknown)
   s = s.replace(/[·⋅•×∙*]/g, ' ');
   s = s.replace(/([A-Za-z])\.(?=[A-Za-z])/g, '$1 ');
   s = s.replace(/\b([a-zA-Z]?)Pas\b/g, '$1Pa s');
@@ -120,7 +121,7 @@ export interface ConvertOptions {
 
 /** Human list of accepted units for a quantity, for messages. */
 export function acceptedUnitsText(quantity: QuantityKey): string {
-  return QUANTITIES[quantity].dimensions.map((d) => DIMENSION_LABEL[d]).join(' or ');
+  return QUANTITIES[quantity].dimensions.map((d) => `a ${DIMENSION_LABEL[d].name} unit (${DIMENSION_LABEL[d].examples})`).join(' or ');
 }
 
 /**
@@ -134,17 +135,19 @@ export function makeConverter(unitText: string, quantity: QuantityKey, opts: Con
     parsed = parseUnit(unitText);
   } catch (e) {
     if (e instanceof UnitConversionError && e.code === 'missing-unit') {
-      throw new UnitConversionError('missing-unit', `No unit given for ${def.label}; expected ${acceptedUnitsText(quantity)}, e.g. "${def.exampleHeader}".`);
+      throw new UnitConversionError('missing-unit', `No unit given for ${def.label}; expected ${acceptedUnitsText(quantity)} in parentheses, e.g. "${def.exampleHeader}".`);
     }
     if (e instanceof UnitConversionError) {
-      throw new UnitConversionError(e.code, `${e.message} Expected a ${acceptedUnitsText(quantity)} unit for ${def.label}.`);
+      throw new UnitConversionError(e.code, `${e.message} Expected ${acceptedUnitsText(quantity)} for ${def.label}.`);
     }
     throw e;
   }
   const dim = parsed.dimension;
   if (!dim || !def.dimensions.includes(dim)) {
-    const got = dim ? `a ${DIMENSION_LABEL[dim].replace(/ \(.*\)$/, '')} unit` : 'a unit of another dimension';
-    throw new UnitConversionError('wrong-dimension', `Unit "${unitText}" is ${got}, but ${def.label} needs ${acceptedUnitsText(quantity)}.`);
+    const got = dim ? `a ${DIMENSION_LABEL[dim].name} unit` : 'a unit of another dimension';
+    // "C" and "F" parse as coulomb and farad; people mean degrees.
+    const hint = quantity === 'temperature' && /^[CF]$/.test(unitText.trim()) ? ` For degrees Celsius write °C or degC.` : '';
+    throw new UnitConversionError('wrong-dimension', `Unit "${unitText}" is ${got}, but ${def.label} needs ${acceptedUnitsText(quantity)}.${hint}`);
   }
   const difference = opts.difference ?? def.isUncertainty;
   const normalised = parsed.normalised;
