@@ -151,6 +151,49 @@ function gIntegrals(rho: number): number[] {
   return g;
 }
 
+/** a_i, b_i of JZG Tables 5–6 at one temperature, with their T-derivatives and energy combinations. */
+interface TemperatureCoefficients {
+  t: number;
+  a: Float64Array;
+  aDT: Float64Array;
+  aEnergy: Float64Array;
+  b: Float64Array;
+  bDT: Float64Array;
+  bEnergy: Float64Array;
+}
+
+function computeCoefficients(t: number): TemperatureCoefficients {
+  const k: TemperatureCoefficients = {
+    t,
+    a: new Float64Array(8),
+    aDT: new Float64Array(8),
+    aEnergy: new Float64Array(8),
+    b: new Float64Array(6),
+    bDT: new Float64Array(6),
+    bEnergy: new Float64Array(6),
+  };
+  A_SERIES.forEach((series, i) => {
+    k.a[i] = seriesValue(series, t);
+    k.aDT[i] = seriesDerivative(series, t);
+    k.aEnergy[i] = seriesEnergy(series, t);
+  });
+  B_SERIES.forEach((series, i) => {
+    k.b[i] = seriesValue(series, t);
+    k.bDT[i] = seriesDerivative(series, t);
+    k.bEnergy[i] = seriesEnergy(series, t);
+  });
+  return k;
+}
+
+// Root finding evaluates one isotherm thousands of times; keeping the last temperature's
+// coefficients makes each evaluation a short polynomial instead of 14 series of powers.
+let lastCoefficients: TemperatureCoefficients = computeCoefficients(1);
+
+function coefficientsAt(t: number): TemperatureCoefficients {
+  if (lastCoefficients.t !== t) lastCoefficients = computeCoefficients(t);
+  return lastCoefficients;
+}
+
 interface MbwrState {
   pressure: number;
   dPdRho: number;
@@ -159,42 +202,44 @@ interface MbwrState {
 
 /** Pressure and its first derivatives, analytic in both variables. */
 function mbwrPressure(rho: number, t: number): MbwrState {
-  const f = Math.exp(-GAMMA * rho * rho);
+  const k = coefficientsAt(t);
+  const rho2 = rho * rho;
+  const f = Math.exp(-GAMMA * rho2);
   let pressure = rho * t;
   let dPdRho = t;
   let dPdT = rho;
+  let rhoI = 1;
   for (let i = 1; i <= 8; i += 1) {
-    const series = A_SERIES[i - 1];
-    const a = seriesValue(series, t);
-    const rhoI = rho ** i;
-    pressure += a * rhoI * rho;
-    dPdRho += (i + 1) * a * rhoI;
-    dPdT += seriesDerivative(series, t) * rhoI * rho;
+    rhoI *= rho; // ρ^i
+    pressure += k.a[i - 1] * rhoI * rho;
+    dPdRho += (i + 1) * k.a[i - 1] * rhoI;
+    dPdT += k.aDT[i - 1] * rhoI * rho;
   }
+  let rho2i = 1;
   for (let i = 1; i <= 6; i += 1) {
-    const series = B_SERIES[i - 1];
-    const b = seriesValue(series, t);
-    const rho2i = rho ** (2 * i);
-    pressure += f * b * rho2i * rho;
-    dPdRho += f * b * rho2i * (2 * i + 1 - 2 * GAMMA * rho * rho);
-    dPdT += f * seriesDerivative(series, t) * rho2i * rho;
+    rho2i *= rho2; // ρ^{2i}
+    pressure += f * k.b[i - 1] * rho2i * rho;
+    dPdRho += f * k.b[i - 1] * rho2i * (2 * i + 1 - 2 * GAMMA * rho2);
+    dPdT += f * k.bDT[i - 1] * rho2i * rho;
   }
   return { pressure, dPdRho, dPdT };
 }
 
 function residualHelmholtz(rho: number, t: number): number {
+  const k = coefficientsAt(t);
   let sum = 0;
-  for (let i = 1; i <= 8; i += 1) sum += (seriesValue(A_SERIES[i - 1], t) * rho ** i) / i;
+  for (let i = 1; i <= 8; i += 1) sum += (k.a[i - 1] * rho ** i) / i;
   const g = gIntegrals(rho);
-  for (let i = 1; i <= 6; i += 1) sum += seriesValue(B_SERIES[i - 1], t) * g[i - 1];
+  for (let i = 1; i <= 6; i += 1) sum += k.b[i - 1] * g[i - 1];
   return sum;
 }
 
 function residualEnergy(rho: number, t: number): number {
+  const k = coefficientsAt(t);
   let sum = 0;
-  for (let i = 1; i <= 8; i += 1) sum += (seriesEnergy(A_SERIES[i - 1], t) * rho ** i) / i;
+  for (let i = 1; i <= 8; i += 1) sum += (k.aEnergy[i - 1] * rho ** i) / i;
   const g = gIntegrals(rho);
-  for (let i = 1; i <= 6; i += 1) sum += seriesEnergy(B_SERIES[i - 1], t) * g[i - 1];
+  for (let i = 1; i <= 6; i += 1) sum += k.bEnergy[i - 1] * g[i - 1];
   return sum;
 }
 
@@ -340,8 +385,8 @@ export interface EosDensityOptions {
 /** Density above which a maximum of P(ρ) is the polynomial's high-density artefact, not a vapour spinodal. */
 const ARTEFACT_SEARCH_FROM = 0.9;
 
-/** Grid used to bracket roots in ljEosDensity: 1300 intervals of 0.001 in ρ*. */
-const GRID_INTERVALS = 1300;
+/** Grid used to bracket roots in ljEosDensity: 650 intervals of 0.002 in ρ*. */
+const GRID_INTERVALS = 650;
 
 /** Zero of (∂P/∂ρ) between two grid nodes where it changes sign (a spinodal), by bisection. */
 function locateSlopeZero(lo: number, hi: number, t: number): number {
@@ -400,7 +445,7 @@ function relativeChemicalPotential(rho: number, t: number): number {
 
 /**
  * Density ρ* at (T*, P*) from the JZG EOS.
- * All roots are bracketed on a 0.001 grid in ρ* ∈ (0, 1.3], with the grid cut at the spinodals
+ * All roots are bracketed on a 0.002 grid in ρ* ∈ (0, 1.3], with the grid cut at the spinodals
  * (zeros of ∂P/∂ρ) so that each piece is monotonic and holds at most one root; each root is then
  * refined by safeguarded Newton. Roots with ∂P/∂ρ < 0 are mechanically unstable and dropped.
  * Below T*c with a liquid and a vapour root, the liquid root is returned unless `prefer: 'vapour'`;
@@ -424,17 +469,25 @@ export function ljEosDensity(
   const t = reducedTemperature;
   const target = reducedPressure;
 
-  // Monotonic pieces of the isotherm: [0, spinodal_1, spinodal_2, ..., ρ_max].
+  // Monotonic pieces of the isotherm: [0, spinodal_1, spinodal_2, ..., ρ_max]. Just below T*c the loop
+  // can be narrower than a grid cell, so the density of the smallest slope near ρ*c joins the grid.
+  const critical = ljEosCriticalPoint();
   const h = LJ_EOS_MAX_REDUCED_DENSITY / GRID_INTERVALS;
+  const nodes: number[] = [];
+  for (let k = 0; k <= GRID_INTERVALS; k += 1) nodes.push(k * h);
+  if (t < critical.reducedTemperature) {
+    const loopCentre = minimumSlope(t).rho;
+    nodes.splice(Math.floor(loopCentre / h) + 1, 0, loopCentre);
+  }
   const breaks: number[] = [0];
   let prevSlope = mbwrPressure(0, t).dPdRho;
-  for (let k = 1; k <= GRID_INTERVALS; k += 1) {
-    const rho = k * h;
+  for (let k = 1; k < nodes.length; k += 1) {
+    const rho = nodes[k];
     const slope = mbwrPressure(rho, t).dPdRho;
     if (slope === 0) {
       breaks.push(rho);
     } else if (prevSlope !== 0 && Math.sign(slope) !== Math.sign(prevSlope)) {
-      breaks.push(locateSlopeZero(rho - h, rho, t));
+      breaks.push(locateSlopeZero(nodes[k - 1], rho, t));
     }
     prevSlope = slope;
   }
@@ -479,7 +532,6 @@ export function ljEosDensity(
     );
   }
 
-  const critical = ljEosCriticalPoint();
   const notes: string[] = [];
   let chosen: number;
   let phase: EosPhase;
