@@ -1,0 +1,76 @@
+/** The shared zod schemas of shared/schemas/measurements.ts, as the server and the forms use them. */
+import { describe, expect, test } from 'vitest';
+import {
+  apiRowSchemas,
+  canonicalRowSchema,
+  createSubstanceBody,
+  datasetUploadFields,
+  datasetVersionFields,
+  updateSubstanceBody,
+} from '../schemas/measurements';
+import { parseMeasurementCsv } from './parse-measurement-csv';
+
+describe('substance bodies', () => {
+  test('create: name 1–120 characters, molar mass in g/mol with 0 < M < 10000', () => {
+    // Argon 39.948 g/mol (IUPAC 2009 standard atomic weight, from memory).
+    expect(createSubstanceBody.parse({ name: ' Argon ', formula: 'Ar', molarMass: 39.948 })).toEqual({ name: 'Argon', formula: 'Ar', molarMass: 39.948 });
+    expect(createSubstanceBody.safeParse({ name: '', molarMass: 39.948 }).success).toBe(false);
+    expect(createSubstanceBody.safeParse({ name: 'x'.repeat(121), molarMass: 39.948 }).success).toBe(false);
+    expect(createSubstanceBody.safeParse({ name: 'x'.repeat(120), molarMass: 39.948 }).success).toBe(true);
+    for (const bad of [0, -1, 10000, '39.948', Number.NaN]) {
+      expect(createSubstanceBody.safeParse({ name: 'Argon', molarMass: bad }).success).toBe(false);
+    }
+    const err = createSubstanceBody.safeParse({ name: 'Argon', molarMass: 0 });
+    expect(err.error?.issues[0].message).toMatch(/greater than 0 g\/mol/);
+  });
+  test('update: any subset, at least one field', () => {
+    expect(updateSubstanceBody.parse({ molarMass: 28.014 })).toEqual({ molarMass: 28.014 });
+    expect(updateSubstanceBody.parse({ formula: '' })).toEqual({ formula: '' });
+    expect(updateSubstanceBody.safeParse({}).success).toBe(false);
+    expect(updateSubstanceBody.safeParse({ name: '' }).success).toBe(false);
+  });
+});
+
+describe('dataset upload fields (multipart strings)', () => {
+  const base = { substanceId: '3', property: 'density', name: 'Isotherms 2026' };
+  test('coerces ids and the default relative uncertainty, drops blank optional fields', () => {
+    const f = datasetUploadFields.parse({ ...base, defaultRelativeUncertainty: '0.005', source: '', doi: '', mapping: '' });
+    expect(f).toEqual({ substanceId: 3, property: 'density', name: 'Isotherms 2026', defaultRelativeUncertainty: 0.005 });
+  });
+  test('defaultRelativeUncertainty must satisfy 0 < x ≤ 1', () => {
+    for (const bad of ['0', '-0.1', '1.5', 'abc']) expect(datasetVersionFields.safeParse({ defaultRelativeUncertainty: bad }).success).toBe(false);
+    expect(datasetVersionFields.parse({ defaultRelativeUncertainty: '1' }).defaultRelativeUncertainty).toBe(1);
+  });
+  test('DOI: pattern 10.<registrant>/<suffix> (DOI Handbook, sec. 2.2, from memory); resolver prefixes stripped', () => {
+    expect(datasetVersionFields.parse({ doi: '10.1063/1.555555' }).doi).toBe('10.1063/1.555555');
+    expect(datasetVersionFields.parse({ doi: 'https://doi.org/10.1021/je0000000' }).doi).toBe('10.1021/je0000000');
+    expect(datasetVersionFields.parse({ doi: 'doi:10.1016/j.fluid.2020.112345' }).doi).toBe('10.1016/j.fluid.2020.112345');
+    for (const bad of ['1063/1.555', '10.12/abc', '10.1063/', 'not a doi']) expect(datasetVersionFields.safeParse({ doi: bad }).success).toBe(false);
+  });
+  test('property enum, delimiter and decimal names', () => {
+    expect(datasetUploadFields.safeParse({ ...base, property: 'enthalpy' }).success).toBe(false);
+    expect(datasetVersionFields.parse({ delimiter: 'tab', decimal: 'comma' })).toEqual({ delimiter: '\t', decimal: ',' });
+    expect(datasetVersionFields.parse({ delimiter: ';', decimal: '.' })).toEqual({ delimiter: ';', decimal: '.' });
+    expect(datasetVersionFields.safeParse({ delimiter: '|' }).success).toBe(false);
+  });
+  test('mapping: a JSON string parsed and validated', () => {
+    const mapping = '{"0":{"quantity":"temperature","unit":"degC"},"2":{"quantity":"ignore"}}';
+    expect(datasetVersionFields.parse({ mapping }).mapping).toEqual({ 0: { quantity: 'temperature', unit: 'degC' }, 2: { quantity: 'ignore' } });
+    const bad = datasetVersionFields.safeParse({ mapping: '{not json' });
+    expect(bad.success).toBe(false);
+    expect(bad.error?.issues[0].message).toMatch(/mapping must be JSON/);
+    expect(datasetVersionFields.safeParse({ mapping: '{"0":{"quantity":"entropy"}}' }).success).toBe(false);
+    expect(datasetVersionFields.safeParse({ mapping: '{"a":{"quantity":"temperature"}}' }).success).toBe(false);
+  });
+});
+
+describe('canonical row shapes', () => {
+  test('rows from the parser satisfy the row schema; API rows omit the kind', () => {
+    const r = parseMeasurementCsv('T (K),P (MPa),rho (kg/m3)\n300,1,16\n');
+    expect(r.ok).toBe(true);
+    for (const row of r.rows) expect(canonicalRowSchema.parse(row)).toEqual(row);
+    const { kind: _kind, ...api } = r.rows[0];
+    expect(apiRowSchemas.density.parse(api)).toEqual(api);
+    expect(canonicalRowSchema.safeParse({ ...r.rows[0], densityKgPerM3: -1 }).success).toBe(false);
+  });
+});

@@ -1,0 +1,158 @@
+/**
+ * zod schemas of the measurement API, shared by the server (request validation) and the client
+ * (forms). Units live in field names except `molarMass`, which the API contract names so: it is in
+ * g/mol (stored as molarMassGPerMol).
+ */
+import { z } from 'zod';
+import { PROPERTY_KIND_IDS, QUANTITIES, type PropertyKind, type QuantityKey } from '../measurements/property-kinds';
+import type { ColumnMapping } from '../measurements/headers';
+
+/** Multipart and HTML forms send "" for an empty optional field: treat it as absent. */
+const blankToUndefined = (v: unknown) => (typeof v === 'string' && v.trim() === '' ? undefined : v);
+const optionalText = (max: number) => z.preprocess(blankToUndefined, z.string().trim().max(max, `at most ${max} characters`).optional());
+
+export const propertyKindSchema = z.enum(PROPERTY_KIND_IDS as [PropertyKind, ...PropertyKind[]]);
+
+const molarMass = z
+  .number({ error: 'molar mass must be a number (g/mol)' })
+  .gt(0, 'molar mass must be greater than 0 g/mol')
+  .lt(10000, 'molar mass must be below 10000 g/mol');
+
+/** POST /substances body. `molarMass` is in g/mol. */
+export const createSubstanceBody = z.object({
+  name: z.string().trim().min(1, 'name is required').max(120, 'at most 120 characters'),
+  formula: optionalText(60),
+  description: optionalText(2000),
+  molarMass,
+});
+export type CreateSubstanceBody = z.infer<typeof createSubstanceBody>;
+
+/** PATCH /substances/:id body: any subset of the create fields, at least one. "" clears formula/description. */
+export const updateSubstanceBody = z
+  .object({
+    name: z.string().trim().min(1, 'name must not be empty').max(120, 'at most 120 characters').optional(),
+    formula: z.string().trim().max(60, 'at most 60 characters').optional(),
+    description: z.string().trim().max(2000, 'at most 2000 characters').optional(),
+    molarMass: molarMass.optional(),
+  })
+  .refine((b) => Object.values(b).some((v) => v !== undefined), { message: 'give at least one field to change' });
+export type UpdateSubstanceBody = z.infer<typeof updateSubstanceBody>;
+
+/**
+ * DOI as registered by the DOI Foundation: prefix "10." + registrant code, "/", suffix
+ * (Crossref's recommended pattern /^10.\d{4,9}\/[-._;()/:A-Z0-9]+$/i covers most; the suffix is
+ * relaxed here to any non-space characters, as older DOIs carry <, >, [ and ]).
+ * A resolver URL or a "doi:" prefix is stripped.
+ */
+export const DOI_PATTERN = /^10\.\d{4,9}\/\S+$/;
+export const doiSchema = z.preprocess(
+  (v) => (typeof v === 'string' ? v.trim().replace(/^(?:https?:\/\/(?:dx\.)?doi\.org\/|doi:\s*)/i, '') : v),
+  z.string().max(255, 'at most 255 characters').regex(DOI_PATTERN, 'expected a DOI such as 10.1063/1.1234567'),
+);
+
+const delimiterSchema = z.preprocess(
+  (v) => {
+    if (typeof v !== 'string') return v;
+    const names: Record<string, string> = { comma: ',', semicolon: ';', tab: '\t', '\\t': '\t' };
+    return names[v.toLowerCase()] ?? v;
+  },
+  z.enum([',', ';', '\t'], { error: 'delimiter must be comma, semicolon or tab' }),
+);
+
+const decimalSchema = z.preprocess(
+  (v) => {
+    if (typeof v !== 'string') return v;
+    const names: Record<string, string> = { dot: '.', point: '.', period: '.', comma: ',' };
+    return names[v.toLowerCase()] ?? v;
+  },
+  z.enum(['.', ','], { error: 'decimal separator must be "." or ","' }),
+);
+
+const quantityKeys = Object.keys(QUANTITIES) as [QuantityKey, ...QuantityKey[]];
+
+/** One mapping entry: what a column holds and in which unit. */
+export const columnMappingEntrySchema = z.object({
+  quantity: z.enum([...quantityKeys, 'ignore'] as [QuantityKey | 'ignore', ...(QuantityKey | 'ignore')[]]),
+  unit: z.string().trim().max(40).optional(),
+});
+
+/** Column index (0-based, as a decimal string key) → entry. */
+export const columnMappingSchema = z.record(z.string().regex(/^\d{1,4}$/, 'column keys are 0-based column numbers'), columnMappingEntrySchema);
+
+/** The mapping arrives as a JSON string in a multipart field; an object is accepted too (JSON bodies). */
+export const mappingFieldSchema = z.preprocess((v, ctx) => {
+  if (typeof v !== 'string') return v;
+  try {
+    return JSON.parse(v);
+  } catch {
+    ctx.addIssue({ code: 'custom', message: 'mapping must be JSON such as {"0":{"quantity":"temperature","unit":"K"}}' });
+    return z.NEVER;
+  }
+}, columnMappingSchema) as unknown as z.ZodType<ColumnMapping, unknown>;
+
+/** Relative uncertainty 0 < x ≤ 1, from a number or a multipart string ("0.01"). */
+export const relativeUncertaintySchema = z.coerce
+  .number({ error: 'default relative uncertainty must be a number' })
+  .gt(0, 'default relative uncertainty must be greater than 0')
+  .lte(1, 'default relative uncertainty must be at most 1 (100 %)');
+
+/** Fields of a new version of an existing dataset (multipart, with the file in "file"). */
+export const datasetVersionFields = z.object({
+  source: optionalText(500),
+  doi: z.preprocess(blankToUndefined, doiSchema.optional()),
+  method: optionalText(500),
+  notes: optionalText(5000),
+  defaultRelativeUncertainty: z.preprocess(blankToUndefined, relativeUncertaintySchema.optional()),
+  delimiter: z.preprocess(blankToUndefined, delimiterSchema.optional()),
+  decimal: z.preprocess(blankToUndefined, decimalSchema.optional()),
+  mapping: z.preprocess(blankToUndefined, mappingFieldSchema.optional()),
+});
+export type DatasetVersionFields = z.infer<typeof datasetVersionFields>;
+
+/** Fields of a new dataset upload (multipart, with the file in "file"). */
+export const datasetUploadFields = datasetVersionFields.extend({
+  substanceId: z.coerce.number({ error: 'substanceId must be a number' }).int().positive(),
+  property: propertyKindSchema,
+  name: z.string().trim().min(1, 'name is required').max(200, 'at most 200 characters'),
+});
+export type DatasetUploadFields = z.infer<typeof datasetUploadFields>;
+
+/** Canonical rows as the API returns them (units in field names). */
+const rowCommon = {
+  row: z.number().int().positive(),
+  uncertaintySource: z.enum(['measured', 'default-relative']),
+  raw: z.record(z.string(), z.string()),
+};
+const positive = () => z.number().finite().gt(0);
+
+export const b2RowSchema = z.object({
+  kind: z.literal('b2'),
+  ...rowCommon,
+  temperatureK: positive(),
+  b2Cm3PerMol: z.number().finite(),
+  uB2Cm3PerMol: positive(),
+});
+export const densityRowSchema = z.object({
+  kind: z.literal('density'),
+  ...rowCommon,
+  temperatureK: positive(),
+  pressureMPa: positive(),
+  densityKgPerM3: positive(),
+  uDensityKgPerM3: positive(),
+});
+export const viscosityRowSchema = z.object({
+  kind: z.literal('viscosity'),
+  ...rowCommon,
+  temperatureK: positive(),
+  viscosityMicroPaS: positive(),
+  uViscosityMicroPaS: positive(),
+});
+export const canonicalRowSchema = z.discriminatedUnion('kind', [b2RowSchema, densityRowSchema, viscosityRowSchema]);
+export type CanonicalRowSchema = z.infer<typeof canonicalRowSchema>;
+
+/** Rows as GET /datasets/:id returns them (the kind is given once for the dataset), by kind. */
+export const apiRowSchemas = {
+  b2: b2RowSchema.omit({ kind: true }),
+  density: densityRowSchema.omit({ kind: true }),
+  viscosity: viscosityRowSchema.omit({ kind: true }),
+} as const;
