@@ -233,6 +233,37 @@ describe('ljEosDensity', () => {
     expect(() => ljEosDensity(1.0, 0.1, { prefer: 'solid' as 'liquid' })).toThrow(/prefer/);
   });
 
+  it('names the liquid as the stable phase above the saturation pressure', () => {
+    // Common practice, no source: P* = 0.01 lies above this EOS's saturation pressure at T* = 0.85
+    // (about 0.0077 by the equal-chemical-potential construction), so the vapour root still exists
+    // (metastable, below its spinodal pressure) but the liquid is the stable phase.
+    const r = ljEosDensity(0.85, 0.01);
+    expect(r.roots).toHaveLength(2);
+    expect(r.note).toMatch(/liquid root has the lower chemical potential/);
+  });
+
+  it('separates the two roots just below the critical temperature, where the loop is tiny', () => {
+    // Common practice, no source: at T*c - 1e-8 the spinodals lie ~1e-4 apart, narrower than the grid.
+    const c = ljEosCriticalPoint();
+    const t = c.reducedTemperature - 1e-8;
+    const p = ljEosPressure(c.reducedDensity, t);
+    const r = ljEosDensity(t, p);
+    expect(r.roots).toHaveLength(2);
+    expect(r.roots[0]).toBeLessThan(c.reducedDensity);
+    expect(r.roots[1]).toBeGreaterThan(c.reducedDensity);
+    for (const root of r.roots) expect(ljEosCompressibilityDerivative(root, t)).toBeGreaterThan(0);
+  });
+
+  it('ignores the unphysical high-density branch of the polynomial', () => {
+    // Below T* ~ 1.5 the MBWR pressure turns over near rho* ~ 1.1-1.2 (inside the solid) and falls to
+    // large negative values by rho* = 1.3 (common practice, no source: a property of the fitted form).
+    expect(ljEosPressure(1.3, 1.0)).toBeLessThan(0);
+    const r = ljEosDensity(1.0, 10);
+    expect(r.roots).toHaveLength(1);
+    expect(r.reducedDensity).toBeLessThan(1.2);
+    expect(ljEosCompressibilityDerivative(r.reducedDensity, 1.0)).toBeGreaterThan(0);
+  });
+
   it('says so when no fluid root exists (pressure beyond the fluid range)', () => {
     expect(() => ljEosDensity(1.0, 500)).toThrow(/no fluid root/);
   });

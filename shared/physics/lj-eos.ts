@@ -5,13 +5,15 @@
  * Implements the modified Benedict–Webb–Rubin (MBWR) equation of
  * J. K. Johnson, J. A. Zollweg and K. E. Gubbins, "The Lennard-Jones equation of state revisited",
  * Mol. Phys. 78, 591–618 (1993), doi:10.1080/00268979300100411 (JZG below):
- *   A_res/(Nε) = Σ_{i=1..8} a_i(T) ρ^i / i + Σ_{i=1..6} b_i(T) G_i(ρ)                 (JZG eq. 5)
- *   P          = ρT + Σ_{i=1..8} a_i ρ^{i+1} + F Σ_{i=1..6} b_i ρ^{2i+1},  F = exp(−γρ²) (JZG eq. 7)
- *   U_res/(Nε) = Σ c_i ρ^i / i + Σ d_i G_i, with c_i = a_i − T a_i', d_i = b_i − T b_i'  (JZG eq. 9)
- * with a_i(T), b_i(T) from JZG Tables 5–6, G_i from Table 7 and the 32 coefficients x1..x32 of
- * Table 10 with γ = 3. The coefficients below were checked digit by digit against three independent
- * transcriptions (NIST teqp `mie/lennardjones/johnson.hpp`, apsantos/ljeos_project `parameters.dat`,
- * and a Julia port `LJSinglephase`), which agree to every printed digit.
+ *   A_res/(Nε) = Σ_{i=1..8} a_i(T) ρ^i / i + Σ_{i=1..6} b_i(T) G_i(ρ)
+ *   P          = ρT + Σ_{i=1..8} a_i ρ^{i+1} + F Σ_{i=1..6} b_i ρ^{2i+1},   F = exp(−γρ²)
+ *   U_res/(Nε) = Σ c_i ρ^i / i + Σ d_i G_i,   c_i = a_i − T da_i/dT,  d_i = b_i − T db_i/dT
+ * with a_i(T) from JZG Table 5, b_i(T) from Table 6, G_i(ρ) from Table 7 and the 32 coefficients
+ * x1..x32 of Table 10 with γ = 3; U follows from U = ∂(A/T)/∂(1/T) (JZG give c_i, d_i in Tables 8–9).
+ * The paper itself was not at hand: the coefficients were taken from public transcriptions of Table 10
+ * and checked digit by digit across three independent ones (NIST teqp `mie/lennardjones/johnson.hpp`,
+ * apsantos/ljeos_project `parameters.dat`, and a Julia port `LJSinglephase`), which agree in every
+ * printed digit. The critical point the coefficients produce (tested) matches the one JZG report.
  *
  * JZG fitted simulation data for 0.7 ≤ T* ≤ 6 and densities up to ≈ 1.2; outside that range the
  * polynomial extrapolates without guarantee. The EOS's own critical point (computed here, see
@@ -23,7 +25,7 @@ export const LJ_EOS_SOURCE =
   'Mol. Phys. 78 (1993) 591-618, doi:10.1080/00268979300100411; modified Benedict-Webb-Rubin form, ' +
   'coefficients x1..x32 of Table 10, gamma = 3.';
 
-/** Range of the simulation data JZG fitted (their Section 4); results outside it are extrapolations. */
+/** Range of the simulation data JZG fitted (from memory of JZG 1993); results outside it are extrapolations. */
 export const LJ_EOS_FIT_RANGE = {
   minReducedTemperature: 0.7,
   maxReducedTemperature: 6,
@@ -374,6 +376,7 @@ export interface EosDensityResult {
   dRhoDT: number;
   /** (∂ρ/∂P)_T = 1 / (∂P/∂ρ)_T at the chosen root, reduced units. */
   dRhoDP: number;
+  /** Present when a choice was made or something is worth knowing: two roots, the stable phase, extrapolation. */
   note?: string;
 }
 
@@ -407,7 +410,8 @@ function locateSlopeZero(lo: number, hi: number, t: number): number {
 /**
  * Root of P(ρ) − target on [lo, hi], where P is monotonic and the residual changes sign:
  * Newton steps with the analytic slope, falling back to bisection whenever Newton leaves the bracket
- * or fails to halve the residual (safeguarded Newton, Press et al., Numerical Recipes, §9.4 rtsafe).
+ * or its step is not at most half the previous one (safeguarded Newton as in rtsafe, Press et al.,
+ * Numerical Recipes, 3rd ed. 2007, §9.4).
  */
 function solveMonotonic(lo: number, hi: number, t: number, target: number): number {
   let fLo = mbwrPressure(lo, t).pressure - target;
