@@ -8,6 +8,8 @@ import { apiNotFound, createErrorHandler } from './common/error-handler';
 import { authRoutes } from './features/auth/auth.routes';
 import { healthRoutes } from './features/health/health.routes';
 import { userRoutes } from './features/users/users.routes';
+import { substanceRoutes } from './features/substances/substances.routes';
+import { datasetRoutes } from './features/datasets/datasets.routes';
 
 export interface CreateAppOptions {
   /** Folder of the built client (vite build); when set, the server serves it with an SPA fallback. */
@@ -51,6 +53,8 @@ export function createApp(ctx: AppContext, options: CreateAppOptions = {}) {
   api.use(healthRoutes(ctx));
   api.use(authRoutes(ctx));
   api.use(userRoutes(ctx));
+  api.use(substanceRoutes(ctx));
+  api.use(datasetRoutes(ctx));
   api.use(apiNotFound);
   app.use('/api', api);
 

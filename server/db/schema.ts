@@ -1,4 +1,6 @@
 import type { AuditEventTable } from '../features/audit/audit.table';
+import type { DatasetTable, DatasetVersionTable, DatasetWithdrawalTable, MeasurementRowTable } from '../features/datasets/datasets.table';
+import type { SubstanceTable } from '../features/substances/substances.table';
 import type { SessionTable, UserRoleTable, UserTable } from '../features/users/users.table';
 
 /** The typed database: one entry per table, fed by each feature's *.table.ts (columns in camelCase). */
@@ -7,4 +9,9 @@ export interface Database {
   userRole: UserRoleTable;
   session: SessionTable;
   auditEvent: AuditEventTable;
+  substance: SubstanceTable;
+  dataset: DatasetTable;
+  datasetVersion: DatasetVersionTable;
+  measurementRow: MeasurementRowTable;
+  datasetWithdrawal: DatasetWithdrawalTable;
 }

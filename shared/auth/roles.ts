@@ -26,6 +26,7 @@ export const POLICIES = {
   'mailbox:read': ['admin'],
   'substance:read': ['admin', 'modeller', 'reviewer', 'consumer'],
   'substance:write': ['modeller'],
+  'measurements:browse': ['admin', 'modeller', 'reviewer'],
   'dataset:read': ['admin', 'modeller', 'reviewer', 'consumer'],
   'dataset:upload': ['modeller'],
   'fit:read': ['admin', 'modeller', 'reviewer', 'consumer'],

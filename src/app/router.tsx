@@ -15,6 +15,11 @@ export const router = createBrowserRouter([
         errorElement: <RouteError />,
         children: [
           { index: true, lazy: () => import('./routes/workbench').then((m) => ({ Component: m.WorkbenchRoute })) },
+          { path: 'substances', lazy: () => import('./routes/substances').then((m) => ({ Component: m.SubstancesRoute })) },
+          { path: 'substances/:substanceId', lazy: () => import('./routes/substance-detail').then((m) => ({ Component: m.SubstanceDetailRoute })) },
+          { path: 'substances/:substanceId/upload', lazy: () => import('./routes/dataset-upload').then((m) => ({ Component: m.DatasetUploadRoute })) },
+          { path: 'datasets/:datasetId', lazy: () => import('./routes/dataset-detail').then((m) => ({ Component: m.DatasetDetailRoute })) },
+          { path: 'datasets/:datasetId/new-version', lazy: () => import('./routes/dataset-upload').then((m) => ({ Component: m.DatasetNewVersionRoute })) },
           { path: 'people', lazy: () => import('./routes/people').then((m) => ({ Component: m.PeopleRoute })) },
           { path: 'account', lazy: () => import('./routes/account').then((m) => ({ Component: m.AccountRoute })) },
           { path: '*', element: <NotFoundRoute /> },

@@ -9,5 +9,6 @@ export interface NavItem {
 /** The main navigation; each role sees the items its policies allow. */
 export const NAV_ITEMS: NavItem[] = [
   { to: '/', label: 'Workbench' },
+  { to: '/substances', label: 'Substances', policy: 'measurements:browse' },
   { to: '/people', label: 'People', policy: 'people:manage' },
 ];

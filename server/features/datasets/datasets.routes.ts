@@ -1,0 +1,164 @@
+import { Router, type RequestHandler } from 'express';
+import multer from 'multer';
+import { z } from 'zod';
+import { datasetUploadFields, datasetVersionFields } from '../../../shared/schemas/measurements';
+import { PROPERTY_KINDS, type PropertyKind } from '../../../shared/measurements/property-kinds';
+import { currentUser, requirePolicy } from '../../common/auth-middleware';
+import { AppError, badRequest, conflict, notFound } from '../../common/errors';
+import { idParams, validBody, validParams, validQuery } from '../../common/validate';
+import type { AppContext } from '../../app-context';
+import { recordAudit } from '../audit/audit.service';
+import { findSubstance } from '../substances/substances.repository';
+import { findDataset, findVersionRow, listDatasetsOfSubstance, listVersions, rowsOfVersion } from './datasets.repository';
+import { parseUpload, storeVersion, toApiRow, type UploadedFile } from './datasets.service';
+
+/** Upload limit: 2 MiB is far above any real table of state points (5000 rows ≈ 200 kB). */
+export const UPLOAD_LIMIT_BYTES = 2 * 1024 * 1024;
+
+export const toDatasetSummary = (d: Awaited<ReturnType<typeof listDatasetsOfSubstance>>[number]) => ({
+  id: d.id,
+  substanceId: d.substanceId,
+  substanceName: d.substanceName,
+  property: d.property,
+  propertyLabel: PROPERTY_KINDS[d.property].label,
+  name: d.name,
+  version: d.version,
+  versionId: d.versionId,
+  rowCount: d.rowCount,
+  source: d.source,
+  doi: d.doi,
+  sha256: d.sha256,
+  uploadedAt: d.uploadedAt,
+  withdrawn: d.withdrawnAt !== null,
+});
+
+const upload = multer({
+  storage: multer.memoryStorage(),
+  limits: { fileSize: UPLOAD_LIMIT_BYTES, files: 1, fields: 20 },
+  fileFilter: (_req, file, cb) => {
+    const csvName = /\.(csv|txt|tsv)$/i.test(file.originalname);
+    const csvType = ['text/csv', 'text/plain', 'application/csv', 'application/vnd.ms-excel', 'text/tab-separated-values', 'application/octet-stream'].includes(file.mimetype);
+    if (csvName && csvType) return cb(null, true);
+    cb(new AppError(400, 'not_csv', `Only CSV files are accepted; "${file.originalname}" (${file.mimetype}) is not one.`, [{ field: 'file', message: 'expected a .csv file' }]));
+  },
+});
+
+/** Multipart parsing runs after the role check, so nobody without the right can make the server read a file. */
+const singleCsv: RequestHandler = upload.single('file');
+
+function requireFile(file: Express.Multer.File | undefined): UploadedFile {
+  if (!file) throw badRequest('Attach the CSV file in the multipart field "file".', [{ field: 'file', message: 'is required' }]);
+  return { originalname: file.originalname, buffer: file.buffer };
+}
+
+const listQuery = z.object({ substanceId: z.coerce.number().int().positive().optional() });
+const versionQuery = z.object({ version: z.coerce.number().int().positive().optional() });
+const versionParams = z.object({ id: z.coerce.number().int().positive(), version: z.coerce.number().int().positive() });
+const withdrawBody = z.object({ reason: z.string().trim().min(3, 'give a reason of at least 3 characters').max(2000) });
+
+export function datasetRoutes(ctx: AppContext): Router {
+  const router = Router();
+  const { db } = ctx;
+
+  router.get('/datasets', requirePolicy('dataset:read'), async (req, res) => {
+    const { substanceId } = validQuery(listQuery, req);
+    res.json({ datasets: (await listDatasetsOfSubstance(db, substanceId)).map(toDatasetSummary) });
+  });
+
+  router.post('/datasets', requirePolicy('dataset:upload'), singleCsv, async (req, res) => {
+    const fields = validBody(datasetUploadFields, req);
+    const file = requireFile(req.file);
+    const actor = currentUser(res);
+    const substance = await findSubstance(db, fields.substanceId);
+    if (!substance) throw new AppError(422, 'unknown_substance', `Substance ${fields.substanceId} does not exist.`, [{ field: 'substanceId', message: 'no such substance' }]);
+    const parsed = parseUpload(file, fields.property, fields, substance.molarMassGramsPerMol);
+    const stored = await db.transaction().execute((tx) =>
+      storeVersion(tx, { newDataset: { substanceId: substance.id, property: fields.property, name: fields.name }, file, fields, parsed, actor }),
+    );
+    res.status(201).json(stored);
+  });
+
+  router.post('/datasets/:id/versions', requirePolicy('dataset:upload'), singleCsv, async (req, res) => {
+    const { id } = validParams(idParams, req);
+    const fields = validBody(datasetVersionFields, req);
+    const file = requireFile(req.file);
+    const actor = currentUser(res);
+    const dataset = await findDataset(db, id);
+    if (!dataset) throw notFound(`Dataset ${id}`);
+    if (dataset.withdrawnAt) throw conflict(`Dataset ${id} was withdrawn; upload a new dataset instead.`);
+    const substance = await findSubstance(db, dataset.substanceId);
+    const parsed = parseUpload(file, dataset.property, fields, substance!.molarMassGramsPerMol);
+    const stored = await db.transaction().execute((tx) => storeVersion(tx, { datasetId: id, file, fields, parsed, actor }));
+    res.status(201).json(stored);
+  });
+
+  router.get('/datasets/:id', requirePolicy('dataset:read'), async (req, res) => {
+    const { id } = validParams(idParams, req);
+    const { version: wanted } = validQuery(versionQuery, req);
+    const dataset = await findDataset(db, id);
+    if (!dataset) throw notFound(`Dataset ${id}`);
+    const versions = await listVersions(db, id);
+    const chosen = wanted === undefined ? versions[0] : versions.find((v) => v.version === wanted);
+    if (!chosen) throw notFound(`Version ${wanted} of dataset ${id}`);
+    const rows = await rowsOfVersion(db, chosen.id);
+    const substance = await findSubstance(db, dataset.substanceId);
+    const kind = dataset.property as PropertyKind;
+    const def = PROPERTY_KINDS[kind];
+    res.json({
+      id: dataset.id,
+      name: dataset.name,
+      substanceId: dataset.substanceId,
+      substanceName: substance?.name,
+      property: kind,
+      propertyLabel: def.label,
+      valueField: def.valueField,
+      uncertaintyField: def.uncertaintyField,
+      version: chosen.version,
+      versionId: chosen.id,
+      latestVersion: versions[0].version,
+      sha256: chosen.sha256,
+      originalFilename: chosen.originalFilename,
+      source: chosen.source,
+      doi: chosen.doi,
+      method: chosen.method,
+      notes: chosen.notes,
+      defaultRelativeUncertainty: chosen.defaultRelativeUncertainty,
+      delimiter: chosen.delimiter,
+      decimal: chosen.decimal,
+      columns: JSON.parse(chosen.columnsJson),
+      rowCount: chosen.rowCount,
+      uploadedAt: chosen.uploadedAt,
+      uploadedByName: chosen.uploadedByName,
+      withdrawn: dataset.withdrawnAt ? { at: dataset.withdrawnAt, reason: dataset.withdrawnReason } : null,
+      versions: versions.map((v) => ({ version: v.version, sha256: v.sha256, rowCount: v.rowCount, uploadedAt: v.uploadedAt, uploadedByName: v.uploadedByName, originalFilename: v.originalFilename, source: v.source })),
+      rows: rows.map((r) => toApiRow(kind, r)),
+    });
+  });
+
+  router.get('/datasets/:id/versions/:version/original', requirePolicy('dataset:read'), async (req, res) => {
+    const { id, version } = validParams(versionParams, req);
+    const row = await findVersionRow(db, id, version);
+    if (!row) throw notFound(`Version ${version} of dataset ${id}`);
+    const safeName = row.originalFilename.replace(/[^\w.\- ]+/g, '_');
+    res.setHeader('Content-Type', 'text/csv; charset=utf-8');
+    res.setHeader('Content-Disposition', `attachment; filename="${safeName}"`);
+    res.setHeader('X-Content-SHA256', row.sha256);
+    res.send(row.originalBytes);
+  });
+
+  router.post('/datasets/:id/withdraw', requirePolicy('dataset:upload'), async (req, res) => {
+    const { id } = validParams(idParams, req);
+    const { reason } = validBody(withdrawBody, req);
+    const actor = currentUser(res);
+    await db.transaction().execute(async (tx) => {
+      const dataset = await findDataset(tx, id);
+      if (!dataset) throw notFound(`Dataset ${id}`);
+      if (dataset.withdrawnAt) throw conflict(`Dataset ${id} is already withdrawn.`);
+      await tx.insertInto('datasetWithdrawal').values({ datasetId: id, withdrawnBy: actor.id, withdrawnAt: new Date().toISOString(), reason }).execute();
+      await recordAudit(tx, { actor, action: 'dataset.withdrawn', targetType: 'dataset', targetId: id, summary: `${actor.email} withdrew dataset ${dataset.name}: ${reason}` });
+    });
+    res.json({ id, withdrawn: true });
+  });
+
+  return router;
+}

@@ -1,0 +1,94 @@
+import { Router } from 'express';
+import { createSubstanceBody, updateSubstanceBody } from '../../../shared/schemas/measurements';
+import { currentUser, requirePolicy } from '../../common/auth-middleware';
+import { conflict, notFound } from '../../common/errors';
+import { idParams, validBody, validParams } from '../../common/validate';
+import type { AppContext } from '../../app-context';
+import { recordAudit } from '../audit/audit.service';
+import { listDatasetsOfSubstance } from '../datasets/datasets.repository';
+import { toDatasetSummary } from '../datasets/datasets.routes';
+import { countDatasetsOf, findSubstance, findSubstanceByName, listSubstances } from './substances.repository';
+
+export const toSubstance = (s: { id: number; name: string; formula: string | null; description: string | null; molarMassGramsPerMol: number; createdAt: string; updatedAt: string }) => ({
+  id: s.id,
+  name: s.name,
+  formula: s.formula,
+  description: s.description,
+  molarMass: s.molarMassGramsPerMol,
+  molarMassGPerMol: s.molarMassGramsPerMol,
+  createdAt: s.createdAt,
+  updatedAt: s.updatedAt,
+});
+
+export function substanceRoutes(ctx: AppContext): Router {
+  const router = Router();
+  const { db } = ctx;
+
+  router.get('/substances', requirePolicy('substance:read'), async (_req, res) => {
+    const rows = await listSubstances(db);
+    res.json({
+      substances: rows.map((s) => ({ ...toSubstance(s), datasetCount: Number(s.datasetCount), kinds: s.kinds ? s.kinds.split(',').sort() : [] })),
+    });
+  });
+
+  router.post('/substances', requirePolicy('substance:write'), async (req, res) => {
+    const body = validBody(createSubstanceBody, req);
+    const actor = currentUser(res);
+    const now = new Date().toISOString();
+    const created = await db.transaction().execute(async (tx) => {
+      if (await findSubstanceByName(tx, body.name)) {
+        throw conflict(`A substance named "${body.name}" already exists.`, [{ field: 'name', message: 'already in use' }]);
+      }
+      const row = await tx
+        .insertInto('substance')
+        .values({ name: body.name, formula: body.formula ?? null, description: body.description ?? null, molarMassGramsPerMol: body.molarMass, createdBy: actor.id, createdAt: now, updatedAt: now })
+        .returningAll()
+        .executeTakeFirstOrThrow();
+      await recordAudit(tx, { actor, action: 'substance.created', targetType: 'substance', targetId: row.id, summary: `${actor.email} created substance ${row.name}`, after: toSubstance(row) });
+      return row;
+    });
+    res.status(201).json(toSubstance(created));
+  });
+
+  router.get('/substances/:id', requirePolicy('substance:read'), async (req, res) => {
+    const { id } = validParams(idParams, req);
+    const substance = await findSubstance(db, id);
+    if (!substance) throw notFound(`Substance ${id}`);
+    const datasets = await listDatasetsOfSubstance(db, id);
+    res.json({ ...toSubstance(substance), createdByName: substance.createdByName, datasets: datasets.map(toDatasetSummary) });
+  });
+
+  router.patch('/substances/:id', requirePolicy('substance:write'), async (req, res) => {
+    const { id } = validParams(idParams, req);
+    const body = validBody(updateSubstanceBody, req);
+    const actor = currentUser(res);
+    const updated = await db.transaction().execute(async (tx) => {
+      const before = await findSubstance(tx, id);
+      if (!before) throw notFound(`Substance ${id}`);
+      if (body.name && body.name.toLowerCase() !== before.name.toLowerCase() && (await findSubstanceByName(tx, body.name))) {
+        throw conflict(`A substance named "${body.name}" already exists.`, [{ field: 'name', message: 'already in use' }]);
+      }
+      // The molar mass converts molar densities at upload, so it is fixed once measurements exist.
+      if (body.molarMass !== undefined && body.molarMass !== before.molarMassGramsPerMol && (await countDatasetsOf(tx, id)) > 0) {
+        throw conflict('The molar mass cannot change once the substance has measurement sets: stored densities depend on it.', [{ field: 'molarMass', message: 'fixed once datasets exist' }]);
+      }
+      const row = await tx
+        .updateTable('substance')
+        .set({
+          ...(body.name !== undefined ? { name: body.name } : {}),
+          ...(body.formula !== undefined ? { formula: body.formula || null } : {}),
+          ...(body.description !== undefined ? { description: body.description || null } : {}),
+          ...(body.molarMass !== undefined ? { molarMassGramsPerMol: body.molarMass } : {}),
+          updatedAt: new Date().toISOString(),
+        })
+        .where('id', '=', id)
+        .returningAll()
+        .executeTakeFirstOrThrow();
+      await recordAudit(tx, { actor, action: 'substance.updated', targetType: 'substance', targetId: id, summary: `${actor.email} edited substance ${row.name}`, before: toSubstance(before), after: toSubstance(row) });
+      return row;
+    });
+    res.json(toSubstance(updated));
+  });
+
+  return router;
+}

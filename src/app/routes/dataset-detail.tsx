@@ -1,0 +1,143 @@
+import { useState } from 'react';
+import { Link, useParams, useSearchParams } from 'react-router-dom';
+import type { ColumnDef } from '@tanstack/react-table';
+import { QUANTITIES, PROPERTY_KINDS, type QuantityKey } from '@shared/measurements/property-kinds';
+import { formatSignificant } from '@shared/format/numbers';
+import { Badge, KindBadge } from '@/components/ui/badge';
+import { Button } from '@/components/ui/button';
+import { DataTable } from '@/components/ui/data-table';
+import { Field, Input } from '@/components/ui/field';
+import { ErrorState, LoadingState, PageHeader, Panel } from '@/components/ui/states';
+import { useCan } from '@/lib/authorization';
+import { type DatasetRow, useDataset, useWithdrawDataset } from '@/features/datasets/api/datasets';
+import { DatasetChart } from '@/features/datasets/components/dataset-chart';
+
+function rowColumns(kind: keyof typeof PROPERTY_KINDS): ColumnDef<DatasetRow, any>[] {
+  const def = PROPERTY_KINDS[kind];
+  const cols: ColumnDef<DatasetRow, any>[] = [{ accessorKey: 'row', header: 'File row', meta: { numeric: true } }];
+  for (const c of def.columns) {
+    const q = QUANTITIES[c.quantity as QuantityKey];
+    cols.push({ accessorKey: q.field, header: `${q.exampleHeader.split(' (')[0]} (${q.canonicalUnitLabel})`, meta: { numeric: true }, cell: (ctx) => formatSignificant(Number(ctx.getValue()), 6) });
+  }
+  cols.push({ accessorKey: 'uncertaintySource', header: 'u from', cell: (ctx) => (ctx.getValue() === 'measured' ? 'file' : <span className="text-review">default</span>) });
+  return cols;
+}
+
+export function DatasetDetailRoute() {
+  const id = Number(useParams().datasetId);
+  const [params, setParams] = useSearchParams();
+  const version = params.get('version') ? Number(params.get('version')) : undefined;
+  const dataset = useDataset(id, version);
+  const canUpload = useCan('dataset:upload');
+  const withdraw = useWithdrawDataset(id);
+  const [reason, setReason] = useState('');
+  if (dataset.isPending) return <LoadingState />;
+  if (dataset.isError) return <ErrorState error={dataset.error} onRetry={() => dataset.refetch()} />;
+  const d = dataset.data;
+  const def = PROPERTY_KINDS[d.property];
+  const plotRows = d.rows.map((r) => ({ temperatureK: r.temperatureK, pressureMPa: r.pressureMPa, value: Number(r[def.valueField]), uncertainty: Number(r[def.uncertaintyField]) }));
+  return (
+    <>
+      <PageHeader
+        eyebrow={<Link to={`/substances/${d.substanceId}`} className="hover:underline">{d.substanceName}</Link>}
+        title={d.name}
+        subtitle={
+          <span className="flex flex-wrap items-center gap-2">
+            <KindBadge kind={d.property} /> {d.propertyLabel} · version {d.version} of {d.latestVersion} · {d.rowCount} points
+            {d.withdrawn && <Badge tone="slate">Withdrawn</Badge>}
+          </span>
+        }
+        action={
+          canUpload && !d.withdrawn && (
+            <Link to={`/datasets/${id}/new-version`} className="rounded-md bg-copper px-3.5 py-1.5 text-sm font-semibold text-white shadow-sm hover:bg-copper-dark">
+              Upload corrected version
+            </Link>
+          )
+        }
+      />
+      {d.version !== d.latestVersion && (
+        <p role="status" className="mb-4 rounded-md bg-review-soft px-3 py-2 text-sm text-review">
+          You are looking at version {d.version}; the newest is version {d.latestVersion}.
+        </p>
+      )}
+      {d.withdrawn && (
+        <p role="status" className="mb-4 rounded-md bg-slate-soft px-3 py-2 text-sm text-slate">
+          Withdrawn on {new Date(d.withdrawn.at).toLocaleDateString()}: {d.withdrawn.reason}. It is kept for history and offered to no new fit.
+        </p>
+      )}
+      <div className="grid gap-6 lg:grid-cols-[3fr_2fr]">
+        <Panel title="Measured values">
+          <DatasetChart kind={d.property} rows={plotRows} />
+        </Panel>
+        <Panel title="Provenance">
+          <dl className="grid grid-cols-[max-content_1fr] gap-x-4 gap-y-1.5 text-sm">
+            <dt className="text-ink-faint">Source</dt>
+            <dd>{d.source ?? '—'}</dd>
+            <dt className="text-ink-faint">DOI</dt>
+            <dd>{d.doi ? <a className="text-copper underline" href={`https://doi.org/${d.doi}`} target="_blank" rel="noreferrer">{d.doi}</a> : '—'}</dd>
+            <dt className="text-ink-faint">Method</dt>
+            <dd>{d.method ?? '—'}</dd>
+            <dt className="text-ink-faint">Notes</dt>
+            <dd className="whitespace-pre-line">{d.notes ?? '—'}</dd>
+            <dt className="text-ink-faint">File</dt>
+            <dd>
+              <a className="text-copper underline" href={`/api/datasets/${id}/versions/${d.version}/original`} download>
+                {d.originalFilename}
+              </a>
+            </dd>
+            <dt className="text-ink-faint">SHA-256</dt>
+            <dd className="break-all font-mono text-xs">{d.sha256}</dd>
+            <dt className="text-ink-faint">Read as</dt>
+            <dd>
+              delimiter “{d.delimiter === '\t' ? 'tab' : d.delimiter}”, decimal “{d.decimal}”; {d.columns.filter((c) => c.quantity).map((c) => `${c.header} → ${c.canonicalUnit}`).join('; ')}
+            </dd>
+            <dt className="text-ink-faint">Default u</dt>
+            <dd className="num">{(d.defaultRelativeUncertainty * 100).toFixed(2)} % relative, for rows without an uncertainty</dd>
+            <dt className="text-ink-faint">Uploaded</dt>
+            <dd>{new Date(d.uploadedAt).toLocaleString()} by {d.uploadedByName}</dd>
+          </dl>
+        </Panel>
+        <Panel title="Rows (canonical units)" className="lg:col-span-1">
+          <DataTable data={d.rows} columns={rowColumns(d.property)} caption="Measured rows" rowKey={(r) => r.row} />
+        </Panel>
+        <div className="grid content-start gap-6">
+          <Panel title="Version history">
+            <ol className="space-y-2 text-sm">
+              {d.versions.map((v) => (
+                <li key={v.version} className={`rounded-md border px-3 py-2 ${v.version === d.version ? 'border-copper bg-copper-soft/40' : 'border-rule'}`}>
+                  <button type="button" className="font-semibold hover:underline" onClick={() => setParams(v.version === d.latestVersion ? {} : { version: String(v.version) })}>
+                    v{v.version}
+                  </button>{' '}
+                  · {v.rowCount} points · {new Date(v.uploadedAt).toLocaleDateString()} by {v.uploadedByName}
+                  <div className="font-mono text-xs text-ink-faint">sha256 {v.sha256.slice(0, 16)}…</div>
+                </li>
+              ))}
+            </ol>
+          </Panel>
+          {canUpload && !d.withdrawn && (
+            <Panel title="Withdraw">
+              <p className="mb-3 text-sm text-ink-soft">A withdrawn set stays readable with all its versions but is offered to no new fit.</p>
+              <form
+                className="grid gap-3"
+                onSubmit={(e) => {
+                  e.preventDefault();
+                  withdraw.mutate(reason);
+                }}
+              >
+                <Field label="Reason" htmlFor="withdraw-reason">
+                  <Input id="withdraw-reason" value={reason} onChange={(e) => setReason(e.target.value)} />
+                </Field>
+                {withdraw.isError && <p role="alert" className="text-sm text-changes">{withdraw.error.message}</p>}
+                <div>
+                  <Button type="submit" variant="danger" busy={withdraw.isPending} disabled={reason.trim().length < 3}>
+                    Withdraw set
+                  </Button>
+                </div>
+              </form>
+            </Panel>
+          )}
+        </div>
+      </div>
+    </>
+  );
+}

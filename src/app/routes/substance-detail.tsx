@@ -1,0 +1,70 @@
+import { useState } from 'react';
+import { Link, useParams } from 'react-router-dom';
+import { createColumnHelper } from '@tanstack/react-table';
+import { Badge, KindBadge } from '@/components/ui/badge';
+import { Button } from '@/components/ui/button';
+import { DataTable } from '@/components/ui/data-table';
+import { EmptyState, ErrorState, LoadingState, PageHeader, Panel } from '@/components/ui/states';
+import { useCan } from '@/lib/authorization';
+import type { DatasetSummary } from '@/features/datasets/api/datasets';
+import { useSubstance, useUpdateSubstance } from '@/features/substances/api/substances';
+import { SubstanceForm } from '@/features/substances/components/substance-form';
+
+const col = createColumnHelper<DatasetSummary>();
+const columns = [
+  col.accessor('name', { header: 'Measurement set', cell: (c) => <Link className="font-semibold underline decoration-rule underline-offset-4 hover:decoration-copper" to={`/datasets/${c.row.original.id}`}>{c.getValue()}</Link> }),
+  col.accessor('property', { header: 'Kind', cell: (c) => <KindBadge kind={c.getValue()} /> }),
+  col.accessor('version', { header: 'Version', meta: { numeric: true }, cell: (c) => `v${c.getValue()}` }),
+  col.accessor('rowCount', { header: 'Points', meta: { numeric: true } }),
+  col.accessor('source', { header: 'Source', cell: (c) => <span className="line-clamp-1 max-w-xs text-ink-soft">{c.getValue() ?? '—'}</span> }),
+  col.accessor('uploadedAt', { header: 'Uploaded', cell: (c) => new Date(c.getValue()).toLocaleDateString() }),
+  col.accessor('withdrawn', { header: 'State', cell: (c) => (c.getValue() ? <Badge tone="slate">Withdrawn</Badge> : <Badge tone="approved">In use</Badge>) }),
+];
+
+export function SubstanceDetailRoute() {
+  const id = Number(useParams().substanceId);
+  const substance = useSubstance(id);
+  const canUpload = useCan('dataset:upload');
+  const canEdit = useCan('substance:write');
+  const [editing, setEditing] = useState(false);
+  const update = useUpdateSubstance(id);
+  if (substance.isPending) return <LoadingState />;
+  if (substance.isError) return <ErrorState error={substance.error} onRetry={() => substance.refetch()} />;
+  const s = substance.data;
+  return (
+    <>
+      <PageHeader
+        eyebrow={<Link to="/substances" className="hover:underline">Substances</Link>}
+        title={s.name}
+        subtitle={<span className="num">{[s.formula, `M = ${s.molarMassGPerMol} g/mol`].filter(Boolean).join(' · ')}</span>}
+        action={canUpload && <Link to={`/substances/${id}/upload`} className="rounded-md bg-copper px-3.5 py-1.5 text-sm font-semibold text-white shadow-sm hover:bg-copper-dark">Upload measurements</Link>}
+      />
+      {s.description && <p className="-mt-2 mb-6 max-w-prose text-ink-soft">{s.description}</p>}
+      <div className="grid gap-6">
+        <Panel title="Measurement sets">
+          {s.datasets.length === 0 ? (
+            <EmptyState title="No measurement sets yet">{canUpload ? 'Upload a CSV table of B2, density or viscosity values.' : 'A modeller uploads measurement tables.'}</EmptyState>
+          ) : (
+            <DataTable data={s.datasets} columns={columns} caption={`Measurement sets of ${s.name}`} rowKey={(d) => d.id} />
+          )}
+        </Panel>
+        {canEdit && (
+          <Panel title="Details" actions={!editing && <Button onClick={() => setEditing(true)}>Edit</Button>}>
+            {editing ? (
+              <SubstanceForm
+                initial={{ name: s.name, formula: s.formula ?? undefined, description: s.description ?? undefined, molarMass: s.molarMassGPerMol }}
+                molarMassLocked={s.datasets.length > 0}
+                submitLabel="Save changes"
+                busy={update.isPending}
+                error={update.error}
+                onSubmit={(v) => update.mutate(s.datasets.length > 0 ? { name: v.name, formula: v.formula ?? '', description: v.description ?? '' } : { ...v, formula: v.formula ?? '', description: v.description ?? '' }, { onSuccess: () => setEditing(false) })}
+              />
+            ) : (
+              <p className="text-sm text-ink-soft">Created by {s.createdByName} on {new Date(s.createdAt).toLocaleDateString()}; last changed {new Date(s.updatedAt).toLocaleString()}. Edits are recorded in the audit trail.</p>
+            )}
+          </Panel>
+        )}
+      </div>
+    </>
+  );
+}

@@ -1,0 +1,91 @@
+import { Scatter } from 'react-chartjs-2';
+import type { ChartData, ChartOptions } from 'chart.js';
+import { CHART_COLORS, type WithErrorBars } from './chart-setup';
+
+export interface SeriesPoint {
+  x: number;
+  y: number;
+  u?: number;
+}
+
+export interface ChartSeries {
+  label: string;
+  kind: 'measured' | 'model' | 'simulated';
+  points: SeriesPoint[];
+}
+
+const STYLE = {
+  measured: { color: CHART_COLORS.ink, pointStyle: 'circle' as const, radius: 3.5 },
+  simulated: { color: CHART_COLORS.teal, pointStyle: 'rectRot' as const, radius: 4.5 },
+  model: { color: CHART_COLORS.copper, pointStyle: 'circle' as const, radius: 0 },
+};
+
+function toDataset(s: ChartSeries) {
+  const style = STYLE[s.kind];
+  const line = s.kind === 'model';
+  return {
+    label: s.label,
+    data: s.points.map((p) => ({ x: p.x, y: p.y })),
+    errorBars: s.points.some((p) => p.u) ? s.points.map((p) => p.u ?? 0) : undefined,
+    errorBarColor: style.color,
+    showLine: line,
+    borderColor: style.color,
+    backgroundColor: line ? style.color : `${style.color}cc`,
+    borderWidth: line ? 2 : 1,
+    pointRadius: style.radius,
+    pointHoverRadius: line ? 0 : style.radius + 2,
+    pointStyle: style.pointStyle,
+    tension: 0,
+  } as ChartData<'scatter'>['datasets'][number] & WithErrorBars;
+}
+
+export interface PropertyChartProps {
+  series: ChartSeries[];
+  xTitle: string;
+  yTitle: string;
+  /** Residuals (e.g. (model − measured)/u) drawn in a small panel underneath sharing the x-axis. */
+  residuals?: { title: string; series: ChartSeries[] };
+  height?: number;
+  ariaLabel: string;
+}
+
+/** Measured points with error bars, model curves and optional residual panel; axis titles carry units. */
+export function PropertyChart({ series, xTitle, yTitle, residuals, height = 320, ariaLabel }: PropertyChartProps) {
+  const xs = [...series, ...(residuals?.series ?? [])].flatMap((s) => s.points.map((p) => p.x));
+  const xMin = xs.length ? Math.min(...xs) : 0;
+  const xMax = xs.length ? Math.max(...xs) : 1;
+  const pad = (xMax - xMin || Math.abs(xMax) || 1) * 0.04;
+  const xScale = { type: 'linear' as const, min: xMin - pad, max: xMax + pad, grid: { color: 'rgba(219,208,187,0.5)' } };
+  const options: ChartOptions<'scatter'> = {
+    responsive: true,
+    maintainAspectRatio: false,
+    animation: false,
+    plugins: { legend: { position: 'top', align: 'end', labels: { usePointStyle: true, boxWidth: 8 } }, tooltip: { mode: 'nearest', intersect: true } },
+    scales: {
+      x: { ...xScale, title: { display: !residuals, text: xTitle, font: { weight: 600 } } },
+      y: { title: { display: true, text: yTitle, font: { weight: 600 } }, grid: { color: 'rgba(219,208,187,0.5)' } },
+    },
+  };
+  const residualOptions: ChartOptions<'scatter'> = {
+    responsive: true,
+    maintainAspectRatio: false,
+    animation: false,
+    plugins: { legend: { display: false } },
+    scales: {
+      x: { ...xScale, title: { display: true, text: xTitle, font: { weight: 600 } } },
+      y: { title: { display: true, text: residuals?.title ?? '', font: { weight: 600 } }, grid: { color: (c) => (c.tick.value === 0 ? CHART_COLORS.inkFaint : 'rgba(219,208,187,0.5)') } },
+    },
+  };
+  return (
+    <figure aria-label={ariaLabel} className="w-full">
+      <div style={{ height }} role="img" aria-label={`${ariaLabel}: ${yTitle} against ${xTitle}`}>
+        <Scatter data={{ datasets: series.map(toDataset) }} options={options} />
+      </div>
+      {residuals && (
+        <div style={{ height: Math.round(height * 0.38) }} className="mt-1" role="img" aria-label={`Residuals: ${residuals.title}`}>
+          <Scatter data={{ datasets: residuals.series.map(toDataset) }} options={residualOptions} />
+        </div>
+      )}
+    </figure>
+  );
+}
