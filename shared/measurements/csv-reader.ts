@@ -37,8 +37,9 @@ function isBlank(cells: string[]): boolean {
 export function readRecords(text: string, delimiter: Delimiter): { records: CsvRecord[]; errors: CsvSyntaxError[] } {
   const records: CsvRecord[] = [];
   const errors: CsvSyntaxError[] = [];
-  // Count newlines incrementally: the record ending at `cursor` starts on the line of its last
-  // character minus the newlines inside its quoted cells.
+  // A record starts where the previous one ended, after any comment lines papaparse skipped;
+  // newlines before that start give its line number (counted incrementally).
+  let previousEnd = 0;
   let scanned = 0;
   let newlines = 0;
   Papa.parse<string[]>(text, {
@@ -47,10 +48,14 @@ export function readRecords(text: string, delimiter: Delimiter): { records: CsvR
     skipEmptyLines: false,
     step: (result) => {
       const cells = result.data;
-      const end = Math.max(0, result.meta.cursor - 1);
-      for (; scanned < end; scanned++) if (text.charCodeAt(scanned) === 10) newlines++;
-      const inside = cells.reduce((n, c) => n + (c.match(/\n/g)?.length ?? 0), 0);
-      const line = newlines - inside + 1;
+      let start = previousEnd;
+      while (start < text.length && text.startsWith('#', start)) {
+        const nl = text.indexOf('\n', start);
+        start = nl < 0 ? text.length : nl + 1;
+      }
+      previousEnd = result.meta.cursor;
+      for (; scanned < start; scanned++) if (text.charCodeAt(scanned) === 10) newlines++;
+      const line = newlines + 1;
       for (const e of result.errors) {
         errors.push({ line, message: e.message });
       }

@@ -62,21 +62,21 @@ export function parseHeader(header: string): ParsedHeader {
   const field = FIELD_INDEX.get(h.toLowerCase());
   if (field) return { header, name: h, quantity: field, unitText: QUANTITIES[field].canonicalUnit, unitImplied: true };
 
-  // "name (unit)" or "name [unit]": the last bracketed group at the end.
+  // Candidate splits, in order: "name (unit)" / "name [unit]" (last bracketed group), quantity
+  // calculus "T/K" or "rho/(kg/m3)", and "T in K". The first whose name is known wins; otherwise the
+  // bracket split is kept so the mapping step can show the unit the file wrote.
+  const candidates: Array<{ name: string; unitText: string }> = [];
   const bracket = /^(.*?)\s*[([]\s*([^()[\]]*?)\s*[)\]]\s*$/.exec(h);
-  if (bracket && bracket[1] !== '') {
-    return { header, name: bracket[1], unitText: bracket[2], quantity: matchQuantityName(bracket[1]) };
-  }
-  // Quantity calculus "T/K", "rho/(kg/m3)" and "T in K": only when the left part is a known name.
+  if (bracket && bracket[1] !== '') candidates.push({ name: bracket[1].replace(/\s*[/,:]\s*$/, ''), unitText: bracket[2] });
   const slash = /^([^/]+?)\s*\/\s*(.+)$/.exec(h);
-  if (slash && matchQuantityName(slash[1])) {
-    const unit = slash[2].replace(/^\((.*)\)$/, '$1').trim();
-    return { header, name: slash[1], unitText: unit, quantity: matchQuantityName(slash[1]) };
-  }
+  if (slash) candidates.push({ name: slash[1], unitText: slash[2].trim().replace(/^\((.*)\)$/, '$1').trim() });
   const inWord = /^(.+?)\s+in\s+(.+)$/i.exec(h);
-  if (inWord && matchQuantityName(inWord[1])) {
-    return { header, name: inWord[1], unitText: inWord[2].trim(), quantity: matchQuantityName(inWord[1]) };
+  if (inWord) candidates.push({ name: inWord[1], unitText: inWord[2].trim() });
+  for (const c of candidates) {
+    const quantity = matchQuantityName(c.name);
+    if (quantity) return { header, name: c.name, unitText: c.unitText, quantity };
   }
+  if (bracket && bracket[1] !== '') return { header, name: bracket[1], unitText: bracket[2] };
   return { header, name: h };
 }
 
