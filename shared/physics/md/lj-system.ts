@@ -69,6 +69,8 @@ export class LjSystem {
   private spare: [Float64Array, Float64Array, Float64Array];
   /** Number of neighbour-list builds so far. */
   builds = 0;
+  /** Product of the uniform scalings applied since the last build (volume moves); 1 right after a build. */
+  private listScale = 1;
 
   // Neighbour list in CSR form: partners of i are nbList[nbStart[i] .. nbStart[i+1]); those before nbMid[i] need no image.
   nbStart: Int32Array;
@@ -255,9 +257,30 @@ export class LjSystem {
     return max;
   }
 
-  /** True once some atom has moved more than half the skin since the last build. */
+  /**
+   * True once the list may miss a pair inside rc. A pair left out was at least r_list apart at the build; after
+   * uniform scalings by s (volume moves, positions and build references scaled alike) it is still ≥ s·r_list apart
+   * in the reference frame, so it stays outside rc while every atom has moved less than (s·r_list − rc)/2 from its
+   * scaled reference. With s = 1 this is the usual half-skin rule.
+   */
   needsRebuild(): boolean {
-    return this.maxDisplacement2() > 0.25 * this.skin * this.skin;
+    const margin = 0.5 * (this.listScale * (this.cutoff + this.skin) - this.cutoff);
+    return margin <= 0 || this.maxDisplacement2() > margin * margin;
+  }
+
+  /**
+   * Scales positions, build references and the box by `factor` without rebuilding the list (the image
+   * relationships of listed pairs are unchanged by a uniform scaling). Call needsRebuild() afterwards.
+   */
+  scaleBox(factor: number): void {
+    const x = this.pos;
+    const r = this.ref;
+    for (let k = 0; k < x.length; k++) {
+      x[k] *= factor;
+      r[k] *= factor;
+    }
+    this.listScale *= factor;
+    this.setBox(this.box * factor);
   }
 
   /** Wraps positions into the box, re-sorts atoms by cell and rebuilds the half neighbour list. */
@@ -272,6 +295,7 @@ export class LjSystem {
       pos[k] = x;
     }
     this.builds++;
+    this.listScale = 1;
     if (this.m === 0) {
       this.ref.set(pos);
       this.buildAllPairs();
@@ -589,16 +613,40 @@ export class LjSystem {
     for (let k = 0; k < v.length; k++) v[k] += hdt * f[k];
   }
 
-  /** Copies of the mutable state, for undoing a rejected Monte Carlo move. */
-  saveState(): { pos: Float64Array; vel: Float64Array; force: Float64Array; box: number } {
-    return { pos: this.pos.slice(), vel: this.vel.slice(), force: this.force.slice(), box: this.box };
+  private saved: { pos: Float64Array; vel: Float64Array; force: Float64Array; ref: Float64Array } | null = null;
+  private savedBox = 0;
+  private savedScale = 1;
+  private savedBuilds = 0;
+
+  /** Remembers the mutable state so that a rejected Monte Carlo move can be undone with restoreState(). */
+  saveState(): void {
+    if (!this.saved) {
+      const k = 3 * this.n;
+      this.saved = { pos: new Float64Array(k), vel: new Float64Array(k), force: new Float64Array(k), ref: new Float64Array(k) };
+    }
+    this.saved.pos.set(this.pos);
+    this.saved.vel.set(this.vel);
+    this.saved.force.set(this.force);
+    this.saved.ref.set(this.ref);
+    this.savedBox = this.box;
+    this.savedScale = this.listScale;
+    this.savedBuilds = this.builds;
   }
 
-  restoreState(s: { pos: Float64Array; vel: Float64Array; force: Float64Array; box: number }): void {
+  /** Undoes everything since saveState(); rebuilds the list only if one was built in between (atoms re-sorted). */
+  restoreState(): void {
+    const s = this.saved;
+    if (!s) throw new Error('restoreState() without saveState()');
+    const rebuilt = this.builds !== this.savedBuilds;
     this.pos.set(s.pos);
     this.vel.set(s.vel);
     this.force.set(s.force);
-    this.setBox(s.box);
-    this.buildList();
+    this.setBox(this.savedBox);
+    if (rebuilt) {
+      this.buildList();
+    } else {
+      this.ref.set(s.ref);
+      this.listScale = this.savedScale;
+    }
   }
 }
