@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatSignificant, formatWithUncertainty } from './numbers';
+import { formatMeasured, formatSignificant, formatWithUncertainty } from './numbers';
 
 // Rounding of a result with its standard uncertainty: JCGM 100:2008 (GUM) §7.2.6 — the uncertainty to at
 // most two significant digits, the value to the same decimal place. Examples are our own.
@@ -14,5 +14,13 @@ describe('formatWithUncertainty', () => {
     expect(formatSignificant(0.000123456, 3)).toBe('0.000123');
     expect(formatSignificant(0.0000123456, 3)).toBe('1.23e-5');
     expect(formatSignificant(22.6149, 4)).toBe('22.61');
+  });
+});
+
+describe('formatMeasured', () => {
+  it('drops conversion round-off and trailing zeros (common practice, no source)', () => {
+    expect(formatMeasured(298.15000000000003)).toBe('298.15');
+    expect(formatMeasured(0.02)).toBe('0.02');
+    expect(formatMeasured(1)).toBe('1');
   });
 });

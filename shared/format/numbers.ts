@@ -23,3 +23,9 @@ export function formatSignificant(value: number, digits = 4): string {
   const decimals = Math.max(0, digits - 1 - Math.floor(Math.log10(abs)));
   return value.toFixed(Math.min(decimals, 12));
 }
+
+/** A stored measurement as written: up to `digits` significant digits, trailing zeros dropped. */
+export function formatMeasured(value: number, digits = 8): string {
+  if (!Number.isFinite(value)) return '—';
+  return String(Number(value.toPrecision(digits)));
+}

@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { Link, useParams, useSearchParams } from 'react-router-dom';
 import type { ColumnDef } from '@tanstack/react-table';
 import { QUANTITIES, PROPERTY_KINDS, type QuantityKey } from '@shared/measurements/property-kinds';
-import { formatSignificant } from '@shared/format/numbers';
+import { formatMeasured } from '@shared/format/numbers';
 import { Badge, KindBadge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
 import { DataTable } from '@/components/ui/data-table';
@@ -10,14 +10,14 @@ import { Field, Input } from '@/components/ui/field';
 import { ErrorState, LoadingState, PageHeader, Panel } from '@/components/ui/states';
 import { useCan } from '@/lib/authorization';
 import { type DatasetRow, useDataset, useWithdrawDataset } from '@/features/datasets/api/datasets';
-import { DatasetChart } from '@/features/datasets/components/dataset-chart';
+import { DatasetChart, quantityHeading } from '@/features/datasets/components/dataset-chart';
 
 function rowColumns(kind: keyof typeof PROPERTY_KINDS): ColumnDef<DatasetRow, any>[] {
   const def = PROPERTY_KINDS[kind];
   const cols: ColumnDef<DatasetRow, any>[] = [{ accessorKey: 'row', header: 'File row', meta: { numeric: true } }];
   for (const c of def.columns) {
     const q = QUANTITIES[c.quantity as QuantityKey];
-    cols.push({ accessorKey: q.field, header: `${q.exampleHeader.split(' (')[0]} (${q.canonicalUnitLabel})`, meta: { numeric: true }, cell: (ctx) => formatSignificant(Number(ctx.getValue()), 6) });
+    cols.push({ accessorKey: q.field, header: quantityHeading(c.quantity), meta: { numeric: true }, cell: (ctx) => formatMeasured(Number(ctx.getValue())) });
   }
   cols.push({ accessorKey: 'uncertaintySource', header: 'u from', cell: (ctx) => (ctx.getValue() === 'measured' ? 'file' : <span className="text-review">default</span>) });
   return cols;

@@ -20,8 +20,17 @@ const STYLE = {
   model: { color: CHART_COLORS.copper, pointStyle: 'circle' as const, radius: 0 },
 };
 
-function toDataset(s: ChartSeries) {
-  const style = STYLE[s.kind];
+/** Several series of one kind (isotherms, isobars) keep their colour and differ by marker shape. */
+const SHAPES = ['circle', 'triangle', 'rect', 'rectRot', 'star', 'crossRot', 'rectRounded', 'cross'] as const;
+
+function toDatasets(series: ChartSeries[]) {
+  const counts: Record<string, number> = {};
+  return series.map((s) => toDataset(s, (counts[s.kind] = (counts[s.kind] ?? -1) + 1)));
+}
+
+function toDataset(s: ChartSeries, indexOfKind: number) {
+  const base = STYLE[s.kind];
+  const style = { ...base, pointStyle: s.kind === 'model' ? base.pointStyle : SHAPES[indexOfKind % SHAPES.length] };
   const line = s.kind === 'model';
   return {
     label: s.label,
@@ -32,6 +41,7 @@ function toDataset(s: ChartSeries) {
     borderColor: style.color,
     backgroundColor: line ? style.color : `${style.color}cc`,
     borderWidth: line ? 2 : 1,
+    borderDash: line && indexOfKind > 0 ? [6, 3 + indexOfKind] : undefined,
     pointRadius: style.radius,
     pointHoverRadius: line ? 0 : style.radius + 2,
     pointStyle: style.pointStyle,
@@ -60,7 +70,7 @@ export function PropertyChart({ series, xTitle, yTitle, residuals, height = 320,
     responsive: true,
     maintainAspectRatio: false,
     animation: false,
-    plugins: { legend: { position: 'top', align: 'end', labels: { usePointStyle: true, boxWidth: 8 } }, tooltip: { mode: 'nearest', intersect: true } },
+    plugins: { legend: { position: 'top', align: 'end', labels: { usePointStyle: true, boxWidth: 7, boxHeight: 7, font: { size: 12 } } }, tooltip: { mode: 'nearest', intersect: true } },
     scales: {
       x: { ...xScale, title: { display: !residuals, text: xTitle, font: { weight: 600 } } },
       y: { title: { display: true, text: yTitle, font: { weight: 600 } }, grid: { color: 'rgba(219,208,187,0.5)' } },
@@ -79,11 +89,11 @@ export function PropertyChart({ series, xTitle, yTitle, residuals, height = 320,
   return (
     <figure aria-label={ariaLabel} className="w-full">
       <div style={{ height }} role="img" aria-label={`${ariaLabel}: ${yTitle} against ${xTitle}`}>
-        <Scatter data={{ datasets: series.map(toDataset) }} options={options} />
+        <Scatter data={{ datasets: toDatasets(series) }} options={options} />
       </div>
       {residuals && (
         <div style={{ height: Math.round(height * 0.38) }} className="mt-1" role="img" aria-label={`Residuals: ${residuals.title}`}>
-          <Scatter data={{ datasets: residuals.series.map(toDataset) }} options={residualOptions} />
+          <Scatter data={{ datasets: toDatasets(residuals.series) }} options={residualOptions} />
         </div>
       )}
     </figure>

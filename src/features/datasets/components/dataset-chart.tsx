@@ -1,4 +1,4 @@
-import { QUANTITIES, PROPERTY_KINDS, type PropertyKind } from '@shared/measurements/property-kinds';
+import { QUANTITIES, PROPERTY_KINDS, type PropertyKind, type QuantityKey } from '@shared/measurements/property-kinds';
 import { PropertyChart, type ChartSeries } from '@/components/charts/property-chart';
 
 export interface PlotRow {
@@ -6,6 +6,12 @@ export interface PlotRow {
   pressureMPa?: number;
   value: number;
   uncertainty: number;
+}
+
+/** Column heading of a quantity in canonical units, e.g. "u(B2) (cm³/mol)". */
+export function quantityHeading(quantity: QuantityKey): string {
+  const q = QUANTITIES[quantity];
+  return `${q.exampleHeader.replace(/\s*[([].*$/, '')} (${q.canonicalUnitLabel})`;
 }
 
 /** Axis title of a kind's measured value, with its canonical unit. */

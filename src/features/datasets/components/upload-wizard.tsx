@@ -3,14 +3,14 @@ import { decodeCsvBytes } from '@shared/measurements/decode-bytes';
 import type { ColumnMapping } from '@shared/measurements/headers';
 import { parseMeasurementCsv, type ParseResult } from '@shared/measurements/parse-measurement-csv';
 import { PROPERTY_KIND_IDS, PROPERTY_KINDS, QUANTITIES, type PropertyKind, type QuantityKey } from '@shared/measurements/property-kinds';
-import { formatSignificant } from '@shared/format/numbers';
+import { formatMeasured } from '@shared/format/numbers';
 import { KindBadge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
 import { Field, Input, Select, TextArea } from '@/components/ui/field';
 import { Panel } from '@/components/ui/states';
 import { ApiError } from '@/lib/api-client';
 import { useUploadDataset } from '../api/datasets';
-import { DatasetChart } from './dataset-chart';
+import { DatasetChart, quantityHeading } from './dataset-chart';
 
 type Delim = '' | ',' | ';' | '\t';
 type Dec = '' | '.' | ',';
@@ -200,8 +200,6 @@ export function UploadWizard({ substanceId, molarMassGPerMol, existing, onStored
           <ul role="alert" className="space-y-1 text-sm">
             {result.problems.map((p, i) => (
               <li key={i} className="rounded bg-changes-soft/70 px-3 py-1.5 text-changes">
-                {p.row !== undefined && <strong>Row {p.row}: </strong>}
-                {p.column && <span className="font-mono">[{p.column}] </span>}
                 {p.message}
               </li>
             ))}
@@ -220,7 +218,7 @@ export function UploadWizard({ substanceId, molarMassGPerMol, existing, onStored
                   <tr>
                     <th className="px-2 py-1 text-right">Row</th>
                     {PROPERTY_KINDS[effectiveKind].columns.map((c) => (
-                      <th key={c.quantity} className="px-2 py-1 text-right">{QUANTITIES[c.quantity].field}</th>
+                      <th key={c.quantity} className="px-2 py-1 text-right">{quantityHeading(c.quantity)}</th>
                     ))}
                   </tr>
                 </thead>
@@ -229,7 +227,7 @@ export function UploadWizard({ substanceId, molarMassGPerMol, existing, onStored
                     <tr key={r.row} className="border-b border-rule/50">
                       <td className="num px-2 py-0.5 text-right text-ink-faint">{r.row}</td>
                       {PROPERTY_KINDS[effectiveKind].columns.map((c) => (
-                        <td key={c.quantity} className="num px-2 py-0.5 text-right">{formatSignificant((r as unknown as Record<string, number>)[QUANTITIES[c.quantity].field], 6)}</td>
+                        <td key={c.quantity} className="num px-2 py-0.5 text-right">{formatMeasured((r as unknown as Record<string, number>)[QUANTITIES[c.quantity].field])}</td>
                       ))}
                     </tr>
                   ))}
@@ -243,7 +241,7 @@ export function UploadWizard({ substanceId, molarMassGPerMol, existing, onStored
               {serverProblems.length > 0 && (
                 <ul className="mt-1 list-disc pl-5">
                   {serverProblems.slice(0, 20).map((p, i) => (
-                    <li key={i}>{p.row !== undefined && `Row ${p.row}: `}{p.message}</li>
+                    <li key={i}>{p.message}</li>
                   ))}
                 </ul>
               )}
