@@ -4,6 +4,8 @@
  * b = 1/(3ρ_c), a = 27 b T_c / 8. Where the cubic has three roots the one with the lowest chemical potential
  * is taken. A rough start only: the barostat finds the real density. Clamped to [1e-4, 1.1].
  */
+import { ljEosDensity } from '../lj-eos';
+
 const RHO_C = 0.31;
 const T_C = 1.31;
 const B = 1 / (3 * RHO_C);
@@ -18,7 +20,7 @@ function chemicalPotential(rho: number, t: number): number {
   return t * (Math.log(rho / (1 - B * rho)) + (B * rho) / (1 - B * rho)) - 2 * A * rho;
 }
 
-export function guessReducedDensity(tStar: number, pStar: number): number {
+function vanDerWaalsDensity(tStar: number, pStar: number): number {
   // Bracket sign changes of p(ρ) − P on a fine grid below the close-packing limit 1/b, then bisect.
   const roots: number[] = [];
   const top = 0.999 / B;
@@ -47,4 +49,20 @@ export function guessReducedDensity(tStar: number, pStar: number): number {
   // vdW underestimates liquid densities (its close packing 1/b = 0.93); nudge dense roots up.
   if (best > RHO_C) best = Math.min(1.1, best * 1.05);
   return Math.max(1e-4, best);
+}
+
+/**
+ * Starting density: the van der Waals estimate picks the phase (liquid or vapour root with the lower chemical
+ * potential); the Johnson–Zollweg–Gubbins 1993 EOS (../lj-eos.ts) then gives that phase's density when it has
+ * a root there. Falls back to the van der Waals value outside the EOS's domain (e.g. P* = 0).
+ */
+export function guessReducedDensity(tStar: number, pStar: number): number {
+  const vdw = vanDerWaalsDensity(tStar, pStar);
+  try {
+    const eos = ljEosDensity(tStar, pStar, { prefer: vdw > RHO_C ? 'liquid' : 'vapour' });
+    const rho = eos.reducedDensity;
+    return Number.isFinite(rho) && rho > 0 ? Math.min(1.1, Math.max(1e-4, rho)) : vdw;
+  } catch {
+    return vdw;
+  }
 }

@@ -30,6 +30,16 @@ export class Xoshiro128 {
     if ((this.s0 | this.s1 | this.s2 | this.s3) === 0) this.s0 = 1;
   }
 
+  /** Generator with an explicit state (for checks against published output). */
+  static fromState(s0: number, s1: number, s2: number, s3: number): Xoshiro128 {
+    const g = new Xoshiro128(0);
+    g.s0 = s0 | 0;
+    g.s1 = s1 | 0;
+    g.s2 = s2 | 0;
+    g.s3 = s3 | 0;
+    return g;
+  }
+
   /** Next raw 32-bit output as an unsigned integer. */
   nextUint32(): number {
     const s0 = this.s0;
