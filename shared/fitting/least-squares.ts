@@ -155,17 +155,16 @@ export function weightedLeastSquares(problem: WeightedResidualProblem, options: 
   const evaluateInternal = (q: readonly number[]): ResidualEvaluation | null => {
     const key = q.join(',');
     if (cache.has(key)) return cache.get(key) ?? null;
-    let evaluation: ResidualEvaluation | null;
+    let evaluation: ResidualEvaluation | null = null;
     try {
       evaluation = problem.evaluate(toExternal(q));
-      if (evaluation.residuals.length !== n || evaluation.jacobian.length !== n) {
-        throw new Error(`the problem returned ${evaluation.residuals.length} residuals for ${n} points`);
-      }
-      if (!allFinite(evaluation)) evaluation = null;
-    } catch (err) {
-      if (err instanceof Error && err.message.startsWith('the problem returned')) throw err;
+    } catch {
       evaluation = null; // a model that cannot be evaluated there counts as an infinitely bad point
     }
+    if (evaluation && (evaluation.residuals.length !== n || evaluation.jacobian.length !== n)) {
+      throw new Error(`the problem returned ${evaluation.residuals.length} residuals and ${evaluation.jacobian.length} Jacobian rows for ${n} points`);
+    }
+    if (evaluation && !allFinite(evaluation)) evaluation = null;
     if (cache.size > 8) cache.delete(cache.keys().next().value as string);
     cache.set(key, evaluation);
     return evaluation;
