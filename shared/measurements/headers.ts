@@ -131,3 +131,11 @@ export function suggestColumnMapping(headers: string[], kind?: PropertyKind): Ma
   const missingRequired = k ? PROPERTY_KINDS[k].columns.filter((c) => c.required && !taken.has(c.quantity)).map((c) => c.quantity) : [];
   return { kind: k, mapping, unrecognisedColumns, missingUnitColumns, missingRequired };
 }
+
+/** Header line of a template file for a kind, in canonical units (for a "download template" link). */
+export function templateHeaders(kind: PropertyKind): string[] {
+  return PROPERTY_KINDS[kind].columns.map((c) => {
+    const q = QUANTITIES[c.quantity];
+    return `${q.exampleHeader.replace(/\s*\([^()]*\)$/, '')} (${q.canonicalUnitLabel})`;
+  });
+}

@@ -9,7 +9,7 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, test } from 'vitest';
 import { parseMeasurementCsv, type ParseOptions } from './parse-measurement-csv';
 import { MAX_DATA_ROWS } from './problems';
-import { suggestColumnMapping } from './headers';
+import { suggestColumnMapping, templateHeaders } from './headers';
 import { B2_DEFAULT_UNCERTAINTY_FLOOR_CM3_PER_MOL, type B2Row, type DensityRow, type ViscosityRow } from './property-kinds';
 
 const fixture = (name: string) => readFileSync(new URL(`../../tests/fixtures/csv/${name}`, import.meta.url), 'utf8');
@@ -109,6 +109,27 @@ describe('broken files: one problem each, with code, row and column', () => {
   test('an empty required cell is a missing value; an empty uncertainty takes the default', () => {
     const r = parseMeasurementCsv('T (K),B2 (cm3/mol),u(B2) (cm3/mol)\n300,,1\n');
     expect(r.problems.map((p) => [p.code, p.row, p.column])).toEqual([['missing-value', 2, 'B2 (cm3/mol)']]);
+    const mixed = parseMeasurementCsv('T (K),B2 (cm3/mol),u(B2) (cm3/mol)\n300,-15,0.4\n400,-100,\n', { defaultRelativeUncertainty: 0.02 });
+    expect(mixed.ok).toBe(true);
+    // 0.02 × max(|−100|, 10) = 2 cm³/mol.
+    expect((mixed.rows as B2Row[]).map((x) => [x.uB2Cm3PerMol, x.uncertaintySource])).toEqual([
+      [0.4, 'measured'],
+      [2, 'default-relative'],
+    ]);
+  });
+
+  test('a header without a unit is reported at the header row; a mapping can supply the unit', () => {
+    const r = parseMeasurementCsv('T,eta (uPa s)\n300,22\n');
+    expect(r.problems.map((p) => [p.code, p.row, p.column])).toEqual([['missing-unit', 1, 'T']]);
+    expect(r.problems[0].message).toMatch(/No unit given for temperature.*"T \(K\)"/);
+    const fixed = parseMeasurementCsv('T,eta (uPa s)\n300,22\n', { mapping: { 0: { quantity: 'temperature', unit: 'K' } } });
+    expect(fixed.ok).toBe(true);
+  });
+
+  test('an invalid molar mass is an option problem', () => {
+    const r = parseMeasurementCsv(fixture('good-density-molar.csv'), { molarMassGPerMol: 0 });
+    expect(r.ok).toBe(false);
+    expect(r.problems[0]).toMatchObject({ code: 'invalid-molar-mass', field: 'molarMassGPerMol' });
   });
 
   test('comment-only file counts as empty; mapping errors are reported', () => {
@@ -259,6 +280,26 @@ describe('good files', () => {
     expect(ok.ok).toBe(true);
     expect(ok.rows.map((x) => x.row)).toEqual([2, 4]);
     expect(ok.unmappedColumns).toEqual([2]);
+  });
+
+  test('a file of another property than the one chosen is named as such', () => {
+    const r = parseMeasurementCsv(fixture('good-b2-parentheses.csv'), { kind: 'viscosity' });
+    expect(r.problems.map((p) => [p.code, p.row, p.column])).toEqual([
+      ['kind-mismatch', 1, 'B2 (cm3/mol)'],
+      ['missing-required-column', 1, undefined],
+    ]);
+    expect(r.problems[0].message).toMatch(/upload is for Dilute-gas shear viscosity η\(T\), but column "B2 \(cm3\/mol\)" holds second virial coefficient/);
+  });
+
+  test('template headers parse back to their own kind in canonical units', () => {
+    for (const kind of ['b2', 'density', 'viscosity'] as const) {
+      const headers = templateHeaders(kind);
+      const r = parseMeasurementCsv(`${headers.join(',')}\n${headers.map(() => '300').join(',')}\n`);
+      expect(r.problems).toEqual([]);
+      expect(r.kind).toBe(kind);
+      expect(Object.values(r.rows[0]).filter((v) => v === 300).length).toBe(headers.length);
+    }
+    expect(templateHeaders('viscosity')).toEqual(['T (K)', 'eta (µPa·s)', 'u(eta) (µPa·s)']);
   });
 
   test('an explicit kind overrides inference; a file with two property columns needs one', () => {

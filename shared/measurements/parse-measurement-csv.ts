@@ -244,6 +244,17 @@ export function parseMeasurementCsv(text: string, options: ParseOptions = {}): P
 
   const def = PROPERTY_KINDS[kind];
   const allowed = new Set(kindQuantities(kind));
+  const looksLike = inferKindFromQuantities(present);
+  if (looksLike && looksLike !== kind && !present.has(def.valueQuantity)) {
+    const other = PROPERTY_KINDS[looksLike];
+    const column = headerRecord.cells[meaning.findIndex((m) => m.quantity === other.valueQuantity)];
+    problems.add({
+      row: headerLine,
+      column,
+      code: 'kind-mismatch',
+      message: `The upload is for ${def.label}, but column "${column}" holds ${QUANTITIES[other.valueQuantity].label} (${other.label}); choose the matching property or upload the right file.`,
+    });
+  }
   const used: UsedColumn[] = [];
   const unmappedColumns: number[] = [];
   const columns: ParseResult['columns'] = baseColumns();

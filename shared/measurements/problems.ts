@@ -25,6 +25,7 @@ export const PROBLEM_CODES = [
   'csv-syntax',
   'extra-cells',
   'unknown-kind',
+  'kind-mismatch',
   'invalid-option',
   'invalid-mapping',
   'missing-required-column',
