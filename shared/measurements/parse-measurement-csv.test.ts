@@ -124,11 +124,16 @@ describe('broken files: one problem each, with code, row and column', () => {
     expect(r.problems[0].message).toMatch(/No unit given for temperature.*"T \(K\)"/);
     const fixed = parseMeasurementCsv('T,eta (uPa s)\n300,22\n', { mapping: { 0: { quantity: 'temperature', unit: 'K' } } });
     expect(fixed.ok).toBe(true);
+    // A mapping without a unit keeps the unit the header wrote: "Temperatur [°C]" is not a known name.
+    const german = parseMeasurementCsv('Temperatur [°C],eta (uPa s)\n26.85,22\n', { mapping: { 0: { quantity: 'temperature' } } });
+    expect(german.ok).toBe(true);
+    expect(german.rows[0].temperatureK).toBeCloseTo(300, 10);
   });
 
   test('an invalid molar mass is an option problem', () => {
     const r = parseMeasurementCsv(fixture('good-density-molar.csv'), { molarMassGPerMol: 0 });
     expect(r.ok).toBe(false);
+    expect(r.problems).toHaveLength(1);
     expect(r.problems[0]).toMatchObject({ code: 'invalid-molar-mass', field: 'molarMassGPerMol' });
   });
 

@@ -121,11 +121,12 @@ function checkOptions(options: ParseOptions, problems: ProblemList) {
       problems.add({ field: 'maxRows', code: 'invalid-option', message: `maxRows must be a positive integer, got ${String(options.maxRows)}.` });
     } else maxRows = options.maxRows;
   }
+  let molarMassGPerMol: number | undefined;
   if (options.molarMassGPerMol !== undefined) {
     const m = options.molarMassGPerMol;
     if (typeof m !== 'number' || !Number.isFinite(m) || m <= 0) {
       problems.add({ field: 'molarMassGPerMol', code: 'invalid-molar-mass', message: `Molar mass must be a positive number of g/mol, got ${String(m)}.` });
-    }
+    } else molarMassGPerMol = m;
   }
   if (options.kind !== undefined && !isPropertyKind(options.kind)) {
     problems.add({ field: 'kind', code: 'invalid-option', message: `Unknown property kind "${String(options.kind)}"; expected b2, density or viscosity.` });
@@ -136,7 +137,7 @@ function checkOptions(options: ParseOptions, problems: ProblemList) {
   if (options.decimal !== undefined && options.decimal !== '.' && options.decimal !== ',') {
     problems.add({ field: 'decimal', code: 'invalid-option', message: `Decimal separator must be "." or ",", got "${String(options.decimal)}".` });
   }
-  return { rel, maxRows };
+  return { rel, maxRows, molarMassGPerMol };
 }
 
 interface UsedColumn {
@@ -155,7 +156,7 @@ interface UsedColumn {
  */
 export function parseMeasurementCsv(text: string, options: ParseOptions = {}): ParseResult {
   const problems = new ProblemList();
-  const { rel, maxRows } = checkOptions(options, problems);
+  const { rel, maxRows, molarMassGPerMol } = checkOptions(options, problems);
   const normalised = normaliseText(text ?? '');
   const delimiter: Delimiter = options.delimiter && DELIMITERS.includes(options.delimiter) ? options.delimiter : detectDelimiter(normalised);
   const result = (partial: Partial<ParseResult>): ParseResult => {
@@ -165,7 +166,7 @@ export function parseMeasurementCsv(text: string, options: ParseOptions = {}): P
       ok,
       kind: partial.kind,
       delimiter,
-      decimal: partial.decimal ?? options.decimal ?? '.',
+      decimal: partial.decimal ?? (options.decimal === ',' ? ',' : '.'),
       columns: partial.columns ?? [],
       rows: ok ? (partial.rows ?? []) : [],
       problems: list,
@@ -194,7 +195,7 @@ export function parseMeasurementCsv(text: string, options: ParseOptions = {}): P
 
   // Column meaning: header recognition, then the caller's mapping on top.
   const parsedHeaders = headerRecord.cells.map((h) => parseHeader(h));
-  const meaning: Array<{ quantity?: QuantityKey; unitText?: string; ignored?: boolean }> = parsedHeaders.map((p) => ({
+  const meaning: Array<{ quantity?: QuantityKey; unitText?: string }> = parsedHeaders.map((p) => ({
     quantity: p.quantity,
     unitText: p.unitText,
   }));
@@ -217,11 +218,16 @@ export function parseMeasurementCsv(text: string, options: ParseOptions = {}): P
       });
       continue;
     }
-    if (entry.quantity === 'ignore') meaning[index] = { ignored: true };
-    else {
-      const unit = entry.unit !== undefined && entry.unit.trim() !== '' ? entry.unit : meaning[index].quantity === entry.quantity || !parsedHeaders[index].quantity ? parsedHeaders[index].unitText : undefined;
-      meaning[index] = { quantity: entry.quantity, unitText: unit };
+    if (entry.quantity === 'ignore') {
+      meaning[index] = {};
+      continue;
     }
+    // Without a unit in the mapping, the unit written in the header applies, unless the header
+    // named another quantity (its unit would then belong to that one).
+    const header = parsedHeaders[index];
+    const headerUnitApplies = header.quantity === undefined || header.quantity === entry.quantity;
+    const unitText = entry.unit !== undefined && entry.unit.trim() !== '' ? entry.unit : headerUnitApplies ? header.unitText : undefined;
+    meaning[index] = { quantity: entry.quantity, unitText };
   }
 
   const present = new Set(meaning.map((m) => m.quantity).filter((x): x is QuantityKey => x !== undefined));
@@ -279,7 +285,9 @@ export function parseMeasurementCsv(text: string, options: ParseOptions = {}): P
     }
     const col: UsedColumn = { index, header, quantity: m.quantity, field: qdef.field, unitText: m.unitText ?? '' };
     try {
-      col.convert = makeConverter(col.unitText, m.quantity, { molarMassGPerMol: options.molarMassGPerMol });
+      // An invalid molar mass was reported with the options; skip the molar columns' second message.
+      if (options.molarMassGPerMol !== undefined && molarMassGPerMol === undefined) col.convert = undefined;
+      else col.convert = makeConverter(col.unitText, m.quantity, { molarMassGPerMol });
     } catch (e) {
       if (!(e instanceof UnitConversionError)) throw e;
       problems.add({ row: headerLine, column: header, field: qdef.field, code: e.code as ProblemCode, message: `Column "${header}": ${e.message}` });
