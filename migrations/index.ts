@@ -1,6 +1,7 @@
 import type { Migration } from 'kysely';
 import * as m20261201_0001 from './20261201_0001_people_sessions_audit';
 import * as m20261201_0002 from './20261201_0002_substances_datasets';
+import * as m20261201_0003 from './20261201_0003_jobs_fits';
 
 /**
  * Every migration, by name, in the order they run. Listed statically so the same code runs under
@@ -9,4 +10,5 @@ import * as m20261201_0002 from './20261201_0002_substances_datasets';
 export const MIGRATIONS: Record<string, Migration> = {
   '20261201_0001_people_sessions_audit': m20261201_0001,
   '20261201_0002_substances_datasets': m20261201_0002,
+  '20261201_0003_jobs_fits': m20261201_0003,
 };

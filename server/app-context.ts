@@ -1,6 +1,7 @@
 import type { Env } from './config/env';
 import type { Db, DatabaseHandle } from './db/database';
 import type { Auth } from './features/auth/auth';
+import type { JobQueue } from './jobs/job-runner';
 
 /** What every feature's routes are built from: configuration, the database and the session manager. */
 export interface AppContext {
@@ -9,4 +10,7 @@ export interface AppContext {
   sqlite: DatabaseHandle['sqlite'];
   auth: Auth;
   log: (message: string) => void;
+  jobs: JobQueue;
+  /** Package version and commit, recorded on every fit. */
+  codeVersion: string;
 }

@@ -10,6 +10,7 @@ import { healthRoutes } from './features/health/health.routes';
 import { userRoutes } from './features/users/users.routes';
 import { substanceRoutes } from './features/substances/substances.routes';
 import { datasetRoutes } from './features/datasets/datasets.routes';
+import { fitRoutes } from './features/fits/fits.routes';
 
 export interface CreateAppOptions {
   /** Folder of the built client (vite build); when set, the server serves it with an SPA fallback. */
@@ -55,6 +56,7 @@ export function createApp(ctx: AppContext, options: CreateAppOptions = {}) {
   api.use(userRoutes(ctx));
   api.use(substanceRoutes(ctx));
   api.use(datasetRoutes(ctx));
+  api.use(fitRoutes(ctx));
   api.use(apiNotFound);
   app.use('/api', api);
 

@@ -1,13 +1,44 @@
+import { execFileSync } from 'node:child_process';
 import type { AppContext } from './app-context';
 import type { Env } from './config/env';
 import { migrateToLatest, openDatabase } from './db/database';
 import { createAuth } from './features/auth/auth';
+import { JOB_KINDS } from './jobs/job-kinds';
+import { SqliteJobRunner } from './jobs/job-runner';
+import { createWorkerPool } from './jobs/worker-pool';
+import pkg from '../package.json' with { type: 'json' };
 
-/** Opens and migrates the database and builds the shared context of the app. */
+/** Package version plus the commit when the code runs from a git checkout. */
+function readCodeVersion(): string {
+  try {
+    const commit = execFileSync('git', ['rev-parse', '--short=12', 'HEAD'], { stdio: ['ignore', 'pipe', 'ignore'] }).toString().trim();
+    return `${pkg.version}+${commit}`;
+  } catch {
+    return pkg.version;
+  }
+}
+
+/** Opens and migrates the database, starts the job runner and builds the shared context of the app. */
 export async function createContext(env: Env, log: (message: string) => void = console.log): Promise<AppContext & { close: () => Promise<void> }> {
   const handle = openDatabase(env.DATABASE_PATH);
   await migrateToLatest(handle.db);
   const publicUrl = env.PUBLIC_URL ?? `http://${env.HOST}:${env.PORT}`;
   const auth = createAuth(handle.sqlite, { secureCookies: publicUrl.startsWith('https:') });
-  return { env, db: handle.db, sqlite: handle.sqlite, auth, log, close: handle.close };
+  const pool = createWorkerPool(env.WORKERS);
+  const jobs = new SqliteJobRunner(handle.db, pool, JOB_KINDS, log);
+  await jobs.start();
+  return {
+    env,
+    db: handle.db,
+    sqlite: handle.sqlite,
+    auth,
+    log,
+    jobs,
+    codeVersion: readCodeVersion(),
+    close: async () => {
+      await jobs.stop();
+      await pool.close();
+      await handle.close();
+    },
+  };
 }

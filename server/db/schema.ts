@@ -1,6 +1,8 @@
 import type { AuditEventTable } from '../features/audit/audit.table';
 import type { DatasetTable, DatasetVersionTable, DatasetWithdrawalTable, MeasurementRowTable } from '../features/datasets/datasets.table';
 import type { SubstanceTable } from '../features/substances/substances.table';
+import type { FitTable } from '../features/fits/fits.table';
+import type { JobTable } from '../jobs/job.table';
 import type { SessionTable, UserRoleTable, UserTable } from '../features/users/users.table';
 
 /** The typed database: one entry per table, fed by each feature's *.table.ts (columns in camelCase). */
@@ -14,4 +16,6 @@ export interface Database {
   datasetVersion: DatasetVersionTable;
   measurementRow: MeasurementRowTable;
   datasetWithdrawal: DatasetWithdrawalTable;
+  job: JobTable;
+  fit: FitTable;
 }

@@ -37,7 +37,12 @@ export function SubstanceDetailRoute() {
         eyebrow={<Link to="/substances" className="hover:underline">Substances</Link>}
         title={s.name}
         subtitle={<span className="num">{[s.formula, `M = ${s.molarMassGPerMol} g/mol`].filter(Boolean).join(' · ')}</span>}
-        action={canUpload && <Link to={`/substances/${id}/upload`} className="rounded-md bg-copper px-3.5 py-1.5 text-sm font-semibold text-white shadow-sm hover:bg-copper-dark">Upload measurements</Link>}
+        action={
+          <div className="flex items-center gap-3">
+            <Link to={`/substances/${id}/fits`} className="rounded-md border border-rule bg-paper-raised px-3.5 py-1.5 text-sm font-semibold hover:bg-paper-deep">Fits</Link>
+            {canUpload && <Link to={`/substances/${id}/upload`} className="rounded-md bg-copper px-3.5 py-1.5 text-sm font-semibold text-white shadow-sm hover:bg-copper-dark">Upload measurements</Link>}
+          </div>
+        }
       />
       {s.description && <p className="-mt-2 mb-6 max-w-prose text-ink-soft">{s.description}</p>}
       <div className="grid gap-6">

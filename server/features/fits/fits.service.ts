@@ -1,0 +1,150 @@
+import type { FitDataset, LjFitOptions } from '../../../shared/fitting/lj-fit';
+import { isFitKind } from '../../../shared/fitting/property-models';
+import type { CreateFitBody } from '../../../shared/schemas/fits';
+import { PROPERTY_KINDS, type PropertyKind } from '../../../shared/measurements/property-kinds';
+import type { AppContext } from '../../app-context';
+import type { CurrentUser } from '../../common/auth-middleware';
+import { AppError, notFound } from '../../common/errors';
+import type { Db } from '../../db/database';
+import type { JobKind } from '../../jobs/job-runner';
+import { recordAudit } from '../audit/audit.service';
+import { findDataset, findVersionRow } from '../datasets/datasets.repository';
+import { loadVersionForFit } from '../datasets/datasets.service';
+import { findSubstance } from '../substances/substances.repository';
+
+/** The exact dataset versions a fit used, frozen on the fit row. */
+export interface FitDatasetRef {
+  datasetId: number;
+  version: number;
+  versionId: number;
+  kind: PropertyKind;
+  name: string;
+  weight: number;
+}
+
+export interface FitJobInput {
+  datasets: FitDatasetRef[];
+  options: LjFitOptions;
+}
+
+/** Builds the worker payload from the frozen references: rows are read from the immutable versions. */
+export const fitJobKind: JobKind = {
+  async toPayload(db: Db, input: FitJobInput) {
+    const datasets: FitDataset[] = [];
+    for (const ref of input.datasets) {
+      const rows = await loadVersionForFit(db, ref.versionId);
+      datasets.push({ id: ref.datasetId, version: ref.version, kind: ref.kind as FitDataset['kind'], weight: ref.weight, label: ref.name, rows: rows.map((r) => ({ temperatureK: r.temperatureK, value: r.value, uncertainty: r.uncertainty })) });
+    }
+    return { datasets, options: input.options };
+  },
+};
+
+/** Checks the request against the database, freezes the dataset versions and queues the fit. */
+export async function createFit(ctx: AppContext, actor: CurrentUser, body: CreateFitBody) {
+  const substance = await findSubstance(ctx.db, body.substanceId);
+  if (!substance) throw new AppError(422, 'unknown_substance', `Substance ${body.substanceId} does not exist.`, [{ field: 'substanceId', message: 'no such substance' }]);
+  const refs: FitDatasetRef[] = [];
+  for (const [i, wanted] of body.datasets.entries()) {
+    const field = `datasets.${i}.id`;
+    const dataset = await findDataset(ctx.db, wanted.id);
+    if (!dataset || dataset.substanceId !== substance.id) throw new AppError(422, 'unknown_dataset', `Measurement set ${wanted.id} does not belong to ${substance.name}.`, [{ field, message: 'not a measurement set of this substance' }]);
+    if (dataset.withdrawnAt) throw new AppError(422, 'dataset_withdrawn', `Measurement set "${dataset.name}" was withdrawn and cannot be fitted.`, [{ field, message: 'withdrawn' }]);
+    if (!isFitKind(dataset.property)) {
+      throw new AppError(422, 'kind_not_fittable', `Measurement set "${dataset.name}" holds ${PROPERTY_KINDS[dataset.property].label}, which this fit does not take.`, [{ field, message: `kind ${dataset.property} not supported by the fit` }]);
+    }
+    const version = wanted.version ?? (await ctx.db.selectFrom('datasetVersion').select((eb) => eb.fn.max('version').as('v')).where('datasetId', '=', dataset.id).executeTakeFirstOrThrow()).v;
+    const versionRow = await findVersionRow(ctx.db, dataset.id, Number(version));
+    if (!versionRow) throw new AppError(422, 'unknown_version', `Measurement set "${dataset.name}" has no version ${version}.`, [{ field: `datasets.${i}.version`, message: 'no such version' }]);
+    refs.push({ datasetId: dataset.id, version: versionRow.version, versionId: versionRow.id, kind: dataset.property, name: dataset.name, weight: wanted.weight ?? 1 });
+  }
+  const options: LjFitOptions = { ...body.options, molarMassGPerMol: substance.molarMassGramsPerMol };
+  const input: FitJobInput = { datasets: refs, options };
+  const now = new Date().toISOString();
+  return ctx.db.transaction().execute(async (tx) => {
+    const last = await tx.selectFrom('fit').select((eb) => eb.fn.max('number').as('n')).where('substanceId', '=', substance.id).executeTakeFirst();
+    const number = Number(last?.n ?? 0) + 1;
+    const job = await ctx.jobs.enqueue({ kind: 'fit', input, seed: 0, createdBy: actor.id }, tx);
+    const fit = await tx
+      .insertInto('fit')
+      .values({ substanceId: substance.id, number, jobId: job.id, model: 'lj-12-6', datasetsJson: JSON.stringify(refs), optionsJson: JSON.stringify(options), codeVersion: ctx.codeVersion, createdBy: actor.id, createdAt: now })
+      .returning('id')
+      .executeTakeFirstOrThrow();
+    await recordAudit(tx, { actor, action: 'fit.started', targetType: 'fit', targetId: fit.id, summary: `${actor.email} started Fit #${number} of ${substance.name} on ${refs.map((r) => `${r.name} v${r.version}`).join(', ')}`, after: { datasets: refs, options } });
+    return { id: fit.id, number, jobId: job.id };
+  });
+}
+
+export async function findFit(db: Db, id: number) {
+  return db
+    .selectFrom('fit')
+    .innerJoin('job', 'job.id', 'fit.jobId')
+    .innerJoin('substance', 'substance.id', 'fit.substanceId')
+    .innerJoin('user', 'user.id', 'fit.createdBy')
+    .select([
+      'fit.id', 'fit.number', 'fit.substanceId', 'substance.name as substanceName', 'fit.model', 'fit.datasetsJson', 'fit.optionsJson', 'fit.codeVersion', 'fit.createdAt', 'fit.createdBy', 'user.name as createdByName',
+      'job.id as jobId', 'job.status', 'job.progress', 'job.stage', 'job.resultJson', 'job.error', 'job.startedAt', 'job.finishedAt', 'job.seed',
+    ])
+    .where('fit.id', '=', id)
+    .executeTakeFirst();
+}
+
+export function toFitView(row: NonNullable<Awaited<ReturnType<typeof findFit>>>) {
+  const result = row.resultJson ? JSON.parse(row.resultJson) : null;
+  // The fit record says succeeded only when the computation ran and the least squares converged to an answer.
+  const status = row.status === 'succeeded' && result?.status === 'failed' ? 'failed' : row.status;
+  return {
+    id: row.id,
+    number: row.number,
+    substanceId: row.substanceId,
+    substanceName: row.substanceName,
+    model: row.model,
+    status,
+    progress: row.progress,
+    stage: row.stage,
+    datasets: JSON.parse(row.datasetsJson) as FitDatasetRef[],
+    options: JSON.parse(row.optionsJson) as LjFitOptions,
+    codeVersion: row.codeVersion,
+    createdAt: row.createdAt,
+    createdBy: row.createdBy,
+    createdByName: row.createdByName,
+    startedAt: row.startedAt,
+    finishedAt: row.finishedAt,
+    jobId: row.jobId,
+    error: row.error ?? (result?.status === 'failed' ? result.failureReason ?? 'The fit failed.' : null),
+    result,
+  };
+}
+
+export async function listFitsOfSubstance(db: Db, substanceId: number) {
+  const rows = await db
+    .selectFrom('fit')
+    .innerJoin('job', 'job.id', 'fit.jobId')
+    .innerJoin('user', 'user.id', 'fit.createdBy')
+    .select(['fit.id', 'fit.number', 'fit.createdAt', 'user.name as createdByName', 'fit.datasetsJson', 'job.status', 'job.progress', 'job.resultJson'])
+    .where('fit.substanceId', '=', substanceId)
+    .orderBy('fit.number', 'desc')
+    .execute();
+  return rows.map((r) => {
+    const result = r.resultJson ? JSON.parse(r.resultJson) : null;
+    return {
+      id: r.id,
+      number: r.number,
+      createdAt: r.createdAt,
+      createdByName: r.createdByName,
+      status: r.status === 'succeeded' && result?.status === 'failed' ? 'failed' : r.status,
+      progress: r.progress,
+      datasets: (JSON.parse(r.datasetsJson) as FitDatasetRef[]).map((d) => ({ datasetId: d.datasetId, name: d.name, kind: d.kind, version: d.version })),
+      epsilonK: result?.epsilonK ?? null,
+      sigmaAngstrom: result?.sigmaAngstrom ?? null,
+      stdErr: result?.stdErr ?? null,
+      reducedChi2: result?.reducedChi2 ?? null,
+      warnings: result?.warnings ?? [],
+    };
+  });
+}
+
+export async function requireFit(db: Db, id: number) {
+  const row = await findFit(db, id);
+  if (!row) throw notFound(`Fit ${id}`);
+  return row;
+}

@@ -1,0 +1,60 @@
+import { Link, useSearchParams } from 'react-router-dom';
+import { useQueries } from '@tanstack/react-query';
+import { formatSignificant, formatWithUncertainty } from '@shared/format/numbers';
+import type { LjFitResult } from '@shared/fitting/lj-fit';
+import { ErrorState, LoadingState, PageHeader, Panel } from '@/components/ui/states';
+import { fitQueryOptions, type Fit } from '@/features/fits/api/fits';
+import { FitCurves } from '@/features/fits/components/fit-curves';
+
+/** Two fits of one substance side by side: parameters, statistics, and both model curves over the data. */
+export function FitCompareRoute() {
+  const [params] = useSearchParams();
+  const ids = [Number(params.get('a')), Number(params.get('b'))];
+  const [a, b] = useQueries({ queries: ids.map((id) => fitQueryOptions(id)) });
+  if (a.isPending || b.isPending) return <LoadingState />;
+  if (a.isError || b.isError) return <ErrorState error={a.error ?? b.error} />;
+  const fits = [a.data, b.data] as Fit[];
+  if (fits[0].substanceId !== fits[1].substanceId) return <ErrorState error={new Error('Only fits of the same substance can be compared.')} />;
+  if (!fits.every((f) => f.result?.status === 'succeeded')) return <ErrorState error={new Error('Both fits must have succeeded to be compared.')} />;
+  const results = fits.map((f) => f.result!) as [LjFitResult, LjFitResult];
+  const rows: Array<[string, (r: LjFitResult) => string]> = [
+    ['ε/k_B', (r) => formatWithUncertainty(r.epsilonK, r.stdErr.epsilonK, 'K')],
+    ['σ', (r) => formatWithUncertainty(r.sigmaAngstrom, r.stdErr.sigmaAngstrom, 'Å')],
+    ['Correlation', (r) => (r.correlation == null ? '—' : r.correlation.toFixed(3))],
+    ['χ² / dof', (r) => `${formatSignificant(r.chi2, 4)} / ${r.dof}`],
+    ['Reduced χ²', (r) => (r.reducedChi2 == null ? '—' : formatSignificant(r.reducedChi2, 4))],
+    ['Warnings', (r) => String(r.warnings.length + r.hitBounds.length)],
+  ];
+  // The union of both fits' data, with the residuals of the first, carries every measured point.
+  const names = Object.fromEntries(fits.flatMap((f) => f.datasets.map((d) => [String(d.datasetId), `${d.name} v${d.version}`])));
+  const merged: LjFitResult = { ...results[0], residuals: [...results[0].residuals, ...results[1].residuals.filter((r) => !results[0].residuals.some((q) => q.datasetId === r.datasetId))] };
+  return (
+    <>
+      <PageHeader eyebrow={<Link to={`/substances/${fits[0].substanceId}/fits`} className="hover:underline">{fits[0].substanceName} · fits</Link>} title={`Fit #${fits[0].number} and Fit #${fits[1].number}`} />
+      <div className="grid gap-6">
+        <Panel title="Side by side">
+          <table className="w-full text-sm">
+            <thead className="border-b border-rule text-xs uppercase tracking-wider text-ink-faint">
+              <tr><th className="py-1.5 text-left" />{fits.map((f) => <th key={f.id} className="text-right"><Link to={`/fits/${f.id}`} className="underline">Fit #{f.number}</Link></th>)}</tr>
+            </thead>
+            <tbody>
+              {rows.map(([label, fn]) => (
+                <tr key={label} className="border-b border-rule/60"><td className="py-1.5 text-ink-faint">{label}</td>{results.map((r, i) => <td key={i} className="num text-right">{fn(r)}</td>)}</tr>
+              ))}
+              <tr><td className="py-1.5 text-ink-faint">Data</td>{fits.map((f) => <td key={f.id} className="text-right text-xs">{f.datasets.map((d) => `${d.name} v${d.version}`).join(', ')}</td>)}</tr>
+            </tbody>
+          </table>
+        </Panel>
+        <Panel title="Both models over the data">
+          <FitCurves
+            result={merged}
+            datasetNames={names}
+            context={{ molarMassGPerMol: fits[0].options.molarMassGPerMol, quantumCorrection: !!fits[0].options.quantumCorrection }}
+            curves={fits.map((f) => ({ label: `Fit #${f.number}`, epsilonK: f.result!.epsilonK, sigmaAngstrom: f.result!.sigmaAngstrom }))}
+          />
+          <p className="mt-2 text-xs text-ink-faint">Residuals underneath are those of Fit #{fits[0].number}{fits[0].options.quantumCorrection !== fits[1].options.quantumCorrection ? '; the two fits differ in the quantum correction, and both curves are drawn with the first fit’s setting' : ''}.</p>
+        </Panel>
+      </div>
+    </>
+  );
+}
