@@ -3,6 +3,8 @@ import type { DatasetTable, DatasetVersionTable, DatasetWithdrawalTable, Measure
 import type { SubstanceTable } from '../features/substances/substances.table';
 import type { FitTable } from '../features/fits/fits.table';
 import type { JobTable } from '../jobs/job.table';
+import type { MailboxMessageTable, MailOutboxTable } from '../features/mail/mail.table';
+import type { SubstanceFollowTable } from '../features/follows/follows.table';
 import type { SessionTable, UserRoleTable, UserTable } from '../features/users/users.table';
 
 /** The typed database: one entry per table, fed by each feature's *.table.ts (columns in camelCase). */
@@ -18,4 +20,7 @@ export interface Database {
   datasetWithdrawal: DatasetWithdrawalTable;
   job: JobTable;
   fit: FitTable;
+  mailOutbox: MailOutboxTable;
+  mailboxMessage: MailboxMessageTable;
+  substanceFollow: SubstanceFollowTable;
 }

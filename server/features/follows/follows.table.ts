@@ -1,0 +1,6 @@
+/** A user who wants mail about a substance. */
+export interface SubstanceFollowTable {
+  userId: string;
+  substanceId: number;
+  createdAt: string;
+}
