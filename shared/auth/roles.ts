@@ -36,6 +36,8 @@ export const POLICIES = {
   'parameterSet:draft': ['modeller'],
   'parameterSet:review': ['reviewer'],
   'parameterSet:retire': ['reviewer', 'admin'],
+  'parameterSet:read': ['admin', 'modeller', 'reviewer', 'consumer'],
+  'parameterSet:comment': ['admin', 'modeller', 'reviewer'],
   'catalog:read': ['admin', 'modeller', 'reviewer', 'consumer'],
   'catalog:export': ['admin', 'modeller', 'reviewer', 'consumer'],
 } as const satisfies Record<string, readonly Role[]>;
