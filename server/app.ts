@@ -11,6 +11,8 @@ import { userRoutes } from './features/users/users.routes';
 import { substanceRoutes } from './features/substances/substances.routes';
 import { datasetRoutes } from './features/datasets/datasets.routes';
 import { fitRoutes } from './features/fits/fits.routes';
+import { parameterSetRoutes } from './features/parameter-sets/parameter-sets.routes';
+import { simulationRoutes } from './features/simulations/simulations.routes';
 
 export interface CreateAppOptions {
   /** Folder of the built client (vite build); when set, the server serves it with an SPA fallback. */
@@ -57,6 +59,8 @@ export function createApp(ctx: AppContext, options: CreateAppOptions = {}) {
   api.use(substanceRoutes(ctx));
   api.use(datasetRoutes(ctx));
   api.use(fitRoutes(ctx));
+  api.use(parameterSetRoutes(ctx));
+  api.use(simulationRoutes(ctx));
   api.use(apiNotFound);
   app.use('/api', api);
 

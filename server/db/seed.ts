@@ -1,13 +1,18 @@
 import { randomUUID } from 'node:crypto';
-import { DEMO_PEOPLE } from '../../fixtures/demo/scenario';
+import { readFileSync } from 'node:fs';
+import { DEMO_PEOPLE, DEMO_SUBSTANCES } from '../../fixtures/demo/scenario';
 import { hashPassword } from '../features/auth/auth';
-import { countUsers, insertUser } from '../features/users/users.repository';
-import type { Db } from './database';
 import { recordAudit } from '../features/audit/audit.service';
+import { parseUpload, storeVersion } from '../features/datasets/datasets.service';
+import { countUsers, findUserByEmail, insertUser, rolesOf } from '../features/users/users.repository';
+import type { Db } from './database';
+
+const demoFile = (name: string) => readFileSync(new URL(`../../fixtures/demo/${name}`, import.meta.url));
 
 /**
- * Seeds the invented demo scenario into an empty database. Does nothing when any person exists,
- * so it is safe to call at every start.
+ * Seeds the invented demo scenario into an empty database: one person per role, then the demo
+ * substances with their measurement tables, uploaded through the same parser and store as any upload.
+ * Does nothing when any person exists, so it is safe to call at every start.
  */
 export async function seedDemo(db: Db, options: { demoPassword: string }): Promise<{ seeded: boolean }> {
   if ((await countUsers(db)) > 0) return { seeded: false };
@@ -16,14 +21,26 @@ export async function seedDemo(db: Db, options: { demoPassword: string }): Promi
     for (const person of DEMO_PEOPLE) {
       const id = randomUUID();
       await insertUser(tx, { id, email: person.email, name: person.name, passwordHash, roles: person.roles });
-      await recordAudit(tx, {
-        actor: null,
-        action: 'user.created',
-        targetType: 'user',
-        targetId: id,
-        summary: `Demo seed added ${person.email} with roles ${person.roles.join(', ')}`,
-        after: { email: person.email, name: person.name, roles: person.roles },
-      });
+      await recordAudit(tx, { actor: null, action: 'user.created', targetType: 'user', targetId: id, summary: `Demo seed added ${person.email} with roles ${person.roles.join(', ')}`, after: { email: person.email, name: person.name, roles: person.roles } });
+    }
+    const modellerRow = (await findUserByEmail(tx, 'modeller@demo.epsigma.test'))!;
+    const modeller = { id: modellerRow.id, email: modellerRow.email, name: modellerRow.name, roles: await rolesOf(tx, modellerRow.id) };
+    const now = new Date().toISOString();
+    for (const s of DEMO_SUBSTANCES) {
+      const substance = await tx
+        .insertInto('substance')
+        .values({ name: s.name, formula: s.formula ?? null, description: s.description, molarMassGramsPerMol: s.molarMassGPerMol, createdBy: modeller.id, createdAt: now, updatedAt: now })
+        .returning('id')
+        .executeTakeFirstOrThrow();
+      await recordAudit(tx, { actor: modeller, action: 'substance.created', targetType: 'substance', targetId: substance.id, summary: `Demo seed created substance ${s.name}` });
+      for (const kind of ['b2', 'viscosity', 'density'] as const) {
+        const meta = s.sources[kind];
+        if (!meta || !s.tables[kind]) continue;
+        const file = { originalname: `${s.file}-${kind}.csv`, buffer: demoFile(`${s.file}-${kind}.csv`) };
+        const fields = { source: meta.source, method: meta.method };
+        const parsed = parseUpload(file, kind, fields, s.molarMassGPerMol);
+        await storeVersion(tx, { newDataset: { substanceId: substance.id, property: kind, name: meta.name }, file, fields, parsed, actor: modeller });
+      }
     }
   });
   return { seeded: true };

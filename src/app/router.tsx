@@ -24,6 +24,8 @@ export const router = createBrowserRouter([
           { path: 'substances/:substanceId/fits/new', lazy: () => import('./routes/fit-new').then((m) => ({ Component: m.FitNewRoute })) },
           { path: 'fits/compare', lazy: () => import('./routes/fit-compare').then((m) => ({ Component: m.FitCompareRoute })) },
           { path: 'fits/:fitId', lazy: () => import('./routes/fit-detail').then((m) => ({ Component: m.FitDetailRoute })) },
+          { path: 'simulations', lazy: () => import('./routes/simulations').then((m) => ({ Component: m.SimulationsRoute })) },
+          { path: 'simulations/:simulationId', lazy: () => import('./routes/simulation-detail').then((m) => ({ Component: m.SimulationDetailRoute })) },
           { path: 'people', lazy: () => import('./routes/people').then((m) => ({ Component: m.PeopleRoute })) },
           { path: 'account', lazy: () => import('./routes/account').then((m) => ({ Component: m.AccountRoute })) },
           { path: '*', element: <NotFoundRoute /> },

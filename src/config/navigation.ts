@@ -10,5 +10,6 @@ export interface NavItem {
 export const NAV_ITEMS: NavItem[] = [
   { to: '/', label: 'Workbench' },
   { to: '/substances', label: 'Substances', policy: 'measurements:browse' },
+  { to: '/simulations', label: 'Simulations', policy: 'simulation:read' },
   { to: '/people', label: 'People', policy: 'people:manage' },
 ];

@@ -1,0 +1,97 @@
+import { DEFAULT_ATOMS, DEFAULT_CUTOFF, DEFAULT_NPT_STEPS, DEFAULT_SEED, DEFAULT_TIMESTEP, type NptOptions } from '../../../shared/physics/md/npt';
+import { reducedStateOf } from '../../../shared/physics/corresponding-states';
+import type { CreateSimulationBody, MdSettings, SimulationsFromDatasetBody } from '../../../shared/schemas/simulations';
+import type { AppContext } from '../../app-context';
+import type { CurrentUser } from '../../common/auth-middleware';
+import { AppError, notFound } from '../../common/errors';
+import type { Db } from '../../db/database';
+import type { JobKind, JobView } from '../../jobs/job-runner';
+import { toJobView } from '../../jobs/job-runner';
+import { recordAudit } from '../audit/audit.service';
+import { findDataset, findVersionRow, rowsOfVersion } from '../datasets/datasets.repository';
+
+/** Where a run came from, when a modeller started it from a measured density. */
+export interface SimulationOrigin {
+  substanceId: number;
+  datasetId: number;
+  version: number;
+  fileRow: number;
+  temperatureK: number;
+  pressureMPa: number;
+  densityKgPerM3: number;
+  epsilonK: number;
+  sigmaAngstrom: number;
+}
+
+export interface SimulationInput {
+  state: Required<Pick<NptOptions, 'reducedTemperature' | 'reducedPressure' | 'atoms' | 'steps' | 'cutoff' | 'scheme' | 'timestep' | 'seed'>>;
+  origin?: SimulationOrigin;
+}
+
+/** Every setting that changes the trajectory, with defaults filled in, so equal requests have equal keys. */
+export function normaliseState(state: { reducedTemperature: number; reducedPressure: number } & MdSettings): SimulationInput['state'] {
+  return {
+    reducedTemperature: Number(state.reducedTemperature.toPrecision(10)),
+    reducedPressure: Number(state.reducedPressure.toPrecision(10)),
+    atoms: state.atoms ?? DEFAULT_ATOMS,
+    steps: state.steps ?? DEFAULT_NPT_STEPS,
+    cutoff: state.cutoff ?? DEFAULT_CUTOFF,
+    scheme: state.scheme ?? 'truncated-tail',
+    timestep: DEFAULT_TIMESTEP,
+    seed: state.seed ?? DEFAULT_SEED,
+  };
+}
+
+export const simulationCacheKey = (state: SimulationInput['state']) =>
+  JSON.stringify([state.reducedTemperature, state.reducedPressure, state.atoms, state.steps, state.cutoff, state.scheme, state.timestep, state.seed]);
+
+export const simulationJobKind: JobKind = {
+  toPayload: (_db: Db, input: SimulationInput) => input.state,
+};
+
+export async function createSimulation(ctx: AppContext, actor: CurrentUser, body: CreateSimulationBody, origin?: SimulationOrigin) {
+  const state = normaliseState(body);
+  const input: SimulationInput = { state, ...(origin ? { origin } : {}) };
+  const job = await ctx.jobs.enqueue({ kind: 'simulation', input, seed: state.seed, cacheKey: simulationCacheKey(state), createdBy: actor.id });
+  if (!job.reused) {
+    await recordAudit(ctx.db, { actor, action: 'simulation.started', targetType: 'job', targetId: job.id, summary: `${actor.email} started an NPT run at T* = ${state.reducedTemperature}, P* = ${state.reducedPressure} (${state.atoms} atoms, ${state.steps} steps, rc = ${state.cutoff}, ${state.scheme})` });
+  }
+  return { id: job.id, reused: job.reused, state };
+}
+
+/** Maps measured density rows to reduced states with trial ε, σ and queues one run per row. */
+export async function createSimulationsFromDataset(ctx: AppContext, actor: CurrentUser, body: SimulationsFromDatasetBody) {
+  const dataset = await findDataset(ctx.db, body.datasetId);
+  if (!dataset) throw notFound(`Dataset ${body.datasetId}`);
+  if (dataset.property !== 'density') throw new AppError(422, 'not_density', `Simulations start from density sets; "${dataset.name}" holds ${dataset.property}.`, [{ field: 'datasetId', message: 'not a density set' }]);
+  const version = body.version ?? (await ctx.db.selectFrom('datasetVersion').select((eb) => eb.fn.max('version').as('v')).where('datasetId', '=', dataset.id).executeTakeFirstOrThrow()).v;
+  const versionRow = await findVersionRow(ctx.db, dataset.id, Number(version));
+  if (!versionRow) throw notFound(`Version ${version} of dataset ${dataset.id}`);
+  const rows = await rowsOfVersion(ctx.db, versionRow.id);
+  const chosen = body.rows ? rows.filter((r) => body.rows!.includes(r.fileRow)) : rows;
+  const missing = (body.rows ?? []).filter((n) => !rows.some((r) => r.fileRow === n));
+  if (missing.length) throw new AppError(422, 'unknown_rows', `Rows ${missing.join(', ')} are not in version ${versionRow.version} of "${dataset.name}".`, [{ field: 'rows', message: `no rows ${missing.join(', ')}` }]);
+  const runs = [];
+  for (const r of chosen) {
+    const reduced = reducedStateOf({ temperatureK: r.temperatureK, pressureMPa: r.pressureMpa!, epsilonK: body.epsilonK, sigmaAngstrom: body.sigmaAngstrom });
+    if (reduced.reducedTemperature < 0.3 || reduced.reducedTemperature > 10 || reduced.reducedPressure > 20) {
+      throw new AppError(422, 'state_out_of_range', `Row ${r.fileRow} maps to T* = ${reduced.reducedTemperature.toFixed(3)}, P* = ${reduced.reducedPressure.toFixed(3)}, outside the engine's range (0.3 ≤ T* ≤ 10, P* ≤ 20).`, [{ field: 'rows', row: r.fileRow, message: 'reduced state out of range' }]);
+    }
+    const origin: SimulationOrigin = { substanceId: dataset.substanceId, datasetId: dataset.id, version: versionRow.version, fileRow: r.fileRow, temperatureK: r.temperatureK, pressureMPa: r.pressureMpa!, densityKgPerM3: r.value, epsilonK: body.epsilonK, sigmaAngstrom: body.sigmaAngstrom };
+    runs.push(await createSimulation(ctx, actor, { ...body, ...reduced }, origin));
+  }
+  return { runs };
+}
+
+export async function listSimulations(db: Db, limit = 200) {
+  const rows = await db.selectFrom('job').selectAll().where('kind', '=', 'simulation').orderBy('id', 'desc').limit(limit).execute();
+  return rows.map((row) => toSimulationView(row, { withTrace: false }));
+}
+
+export function toSimulationView(row: Parameters<typeof toJobView>[0] & { inputJson: string }, { withTrace }: { withTrace: boolean }) {
+  const job: JobView = toJobView(row);
+  const input = JSON.parse(row.inputJson) as SimulationInput;
+  const result = job.result as (Record<string, unknown> & { trace?: unknown }) | null;
+  const { trace, ...summary } = result ?? {};
+  return { ...job, result: undefined, state: input.state, origin: input.origin ?? null, summary: result ? summary : null, trace: withTrace && result ? trace : undefined };
+}

@@ -1,0 +1,92 @@
+import { useState } from 'react';
+import { Link } from 'react-router-dom';
+import { formatWithUncertainty } from '@shared/format/numbers';
+import { Button } from '@/components/ui/button';
+import { Field, Input, Select } from '@/components/ui/field';
+import { ProgressBar } from '@/components/ui/progress-bar';
+import { EmptyState, ErrorState, LoadingState, PageHeader, Panel } from '@/components/ui/states';
+import { useCan } from '@/lib/authorization';
+import { FitStatusBadge } from '@/features/fits/components/fit-status-badge';
+import { useSimulations, useStartSimulation } from '@/features/simulations/api/simulations';
+import { PhaseBadge } from '@/features/simulations/components/phase-badge';
+
+function StartForm() {
+  const start = useStartSimulation();
+  const [t, setT] = useState('1.2');
+  const [p, setP] = useState('0.5');
+  const [atoms, setAtoms] = useState('500');
+  const [steps, setSteps] = useState('20000');
+  const [scheme, setScheme] = useState<'truncated-tail' | 'truncated-shifted'>('truncated-tail');
+  const [cutoff, setCutoff] = useState('2.5');
+  return (
+    <form
+      className="grid gap-3"
+      onSubmit={(e) => {
+        e.preventDefault();
+        start.mutate({ reducedTemperature: Number(t), reducedPressure: Number(p), atoms: Number(atoms), steps: Number(steps), scheme, cutoff: Number(cutoff) });
+      }}
+    >
+      <div className="grid grid-cols-2 gap-3">
+        <Field label="T*" htmlFor="sim-t"><Input id="sim-t" inputMode="decimal" value={t} onChange={(e) => setT(e.target.value)} /></Field>
+        <Field label="P*" htmlFor="sim-p"><Input id="sim-p" inputMode="decimal" value={p} onChange={(e) => setP(e.target.value)} /></Field>
+        <Field label="Atoms" htmlFor="sim-n"><Input id="sim-n" inputMode="numeric" value={atoms} onChange={(e) => setAtoms(e.target.value)} /></Field>
+        <Field label="MD steps" htmlFor="sim-steps"><Input id="sim-steps" inputMode="numeric" value={steps} onChange={(e) => setSteps(e.target.value)} /></Field>
+        <Field label="Cutoff rc/σ" htmlFor="sim-rc"><Input id="sim-rc" inputMode="decimal" value={cutoff} onChange={(e) => setCutoff(e.target.value)} /></Field>
+        <Field label="Scheme" htmlFor="sim-scheme">
+          <Select id="sim-scheme" value={scheme} onChange={(e) => setScheme(e.target.value as typeof scheme)}>
+            <option value="truncated-tail">truncated + tail corrections</option>
+            <option value="truncated-shifted">truncated and shifted</option>
+          </Select>
+        </Field>
+      </div>
+      {start.isError && <p role="alert" className="text-sm text-changes">{start.error.message}</p>}
+      {start.isSuccess && <p role="status" className="text-sm text-approved">{start.data.reused ? `An identical run exists: simulation ${start.data.id} is reused.` : `Simulation ${start.data.id} queued.`}</p>}
+      <div><Button type="submit" variant="primary" busy={start.isPending}>Run NPT simulation</Button></div>
+    </form>
+  );
+}
+
+export function SimulationsRoute() {
+  const sims = useSimulations();
+  const canRun = useCan('simulation:run');
+  return (
+    <>
+      <PageHeader eyebrow="Molecular dynamics" title="Simulations" subtitle="NPT runs of the LJ fluid at reduced state points. One run serves every substance whose (ε, σ) maps to its state; identical requests reuse the stored result." />
+      <div className={`grid gap-6 ${canRun ? 'lg:grid-cols-[2fr_1fr]' : ''}`}>
+        <Panel title="Runs">
+          {sims.isPending ? (
+            <LoadingState />
+          ) : sims.isError ? (
+            <ErrorState error={sims.error} onRetry={() => sims.refetch()} />
+          ) : sims.data.length === 0 ? (
+            <EmptyState title="No simulations yet">Run a state point here, or from a density set's page.</EmptyState>
+          ) : (
+            <ul className="divide-y divide-rule/70">
+              {sims.data.map((s) => (
+                <li key={s.id} className="py-3">
+                  <div className="flex flex-wrap items-center justify-between gap-2">
+                    <Link to={`/simulations/${s.id}`} className="font-semibold underline decoration-rule underline-offset-4 hover:decoration-copper">
+                      Simulation {s.id}: T* = {s.state.reducedTemperature.toFixed(4)}, P* = {s.state.reducedPressure.toFixed(4)}
+                    </Link>
+                    <span className="flex items-center gap-2">
+                      {s.summary && <PhaseBadge phase={s.summary.phase} />}
+                      <FitStatusBadge status={s.status} />
+                    </span>
+                  </div>
+                  <div className="mt-1 text-xs text-ink-faint">
+                    {s.state.atoms} atoms · {s.state.steps} steps · rc = {s.state.cutoff}σ · {s.state.scheme} · seed {s.state.seed}
+                    {s.origin && <> · from row {s.origin.fileRow} of set {s.origin.datasetId} (ε/k_B = {s.origin.epsilonK} K, σ = {s.origin.sigmaAngstrom} Å)</>}
+                  </div>
+                  {(s.status === 'running' || s.status === 'queued') && <div className="mt-2"><ProgressBar fraction={s.progress} label={s.status === 'queued' ? 'Waiting for a free worker' : s.stage ?? 'Running'} /></div>}
+                  {s.summary && <div className="num mt-1 text-sm">ρ* = {formatWithUncertainty(s.summary.reducedDensity, s.summary.stdErr)}</div>}
+                  {s.status === 'failed' && <div className="mt-1 text-sm text-changes">{s.error}</div>}
+                </li>
+              ))}
+            </ul>
+          )}
+        </Panel>
+        {canRun && <Panel title="New run"><StartForm /></Panel>}
+      </div>
+    </>
+  );
+}

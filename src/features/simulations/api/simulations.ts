@@ -1,0 +1,99 @@
+import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import type { CreateSimulationBody, SimulationsFromDatasetBody } from '@shared/schemas/simulations';
+import { api } from '@/lib/api-client';
+
+export type JobStatus = 'queued' | 'running' | 'succeeded' | 'failed' | 'cancelled';
+
+export interface SimulationState {
+  reducedTemperature: number;
+  reducedPressure: number;
+  atoms: number;
+  steps: number;
+  cutoff: number;
+  scheme: 'truncated-tail' | 'truncated-shifted';
+  timestep: number;
+  seed: number;
+}
+
+export interface SimulationSummary {
+  reducedDensity: number;
+  stdErr: number;
+  phase: 'fluid' | 'solid' | 'two-phase';
+  reducedPotentialEnergy: number;
+  reducedPotentialEnergyStdErr: number;
+  reducedEnthalpy: number;
+  dRhoDT: number;
+  dRhoDTStdErr: number;
+  dRhoDP: number;
+  dRhoDPStdErr: number;
+  isothermalCompressibility: number;
+  diagnostics: Record<string, number>;
+  orderParameter: { q6Mean: number; q6Last: number; localDensityVarianceToMean: number; sparseCellFraction: number; bondsPerAtom: number };
+}
+
+export interface Simulation {
+  id: number;
+  status: JobStatus;
+  progress: number;
+  stage: string | null;
+  error: string | null;
+  retryable: boolean;
+  attempts: number;
+  seed: number;
+  createdAt: string;
+  startedAt: string | null;
+  finishedAt: string | null;
+  state: SimulationState;
+  origin: { substanceId: number; datasetId: number; version: number; fileRow: number; temperatureK: number; pressureMPa: number; densityKgPerM3: number; epsilonK: number; sigmaAngstrom: number } | null;
+  summary: SimulationSummary | null;
+  trace?: { step: number[]; reducedDensity: number[]; reducedTemperature: number[]; potentialEnergyPerAtom: number[]; q6: number[] };
+}
+
+export const simulationKeys = {
+  all: ['simulations'] as const,
+  list: () => [...simulationKeys.all, 'list'] as const,
+  detail: (id: number) => [...simulationKeys.all, 'detail', id] as const,
+};
+
+const live = (s?: JobStatus) => s === 'queued' || s === 'running';
+
+export const simulationsQueryOptions = () =>
+  queryOptions({
+    queryKey: simulationKeys.list(),
+    queryFn: () => api<{ simulations: Simulation[] }>('/simulations').then((r) => r.simulations),
+    refetchInterval: (q) => (q.state.data?.some((s) => live(s.status)) ? 1000 : false),
+  });
+
+export const simulationQueryOptions = (id: number) =>
+  queryOptions({
+    queryKey: simulationKeys.detail(id),
+    queryFn: () => api<Simulation>(`/simulations/${id}`),
+    refetchInterval: (q) => (live(q.state.data?.status) ? 1000 : false),
+  });
+
+export const useSimulations = () => useQuery(simulationsQueryOptions());
+export const useSimulation = (id: number) => useQuery(simulationQueryOptions(id));
+
+export const useStartSimulation = () => {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (body: CreateSimulationBody) => api<{ id: number; reused: boolean }>('/simulations', { body }),
+    onSuccess: () => qc.invalidateQueries({ queryKey: simulationKeys.all }),
+  });
+};
+
+export const useStartSimulationsFromDataset = () => {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (body: SimulationsFromDatasetBody) => api<{ runs: Array<{ id: number; reused: boolean }> }>('/simulations/from-dataset', { body }),
+    onSuccess: () => qc.invalidateQueries({ queryKey: simulationKeys.all }),
+  });
+};
+
+export const useSimulationAction = (id: number, action: 'cancel' | 'retry') => {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: () => api<Simulation>(`/simulations/${id}/${action}`, { method: 'POST' }),
+    onSuccess: () => qc.invalidateQueries({ queryKey: simulationKeys.all }),
+  });
+};
