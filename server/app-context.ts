@@ -2,6 +2,7 @@ import type { Env } from './config/env';
 import type { Db, DatabaseHandle } from './db/database';
 import type { Auth } from './features/auth/auth';
 import type { JobQueue } from './jobs/job-runner';
+import type { MailRuntime } from './features/mail/mail.runtime';
 
 /** What every feature's routes are built from: configuration, the database and the session manager. */
 export interface AppContext {
@@ -11,6 +12,8 @@ export interface AppContext {
   auth: Auth;
   log: (message: string) => void;
   jobs: JobQueue;
+  /** Outbox sender and, without SMTP_URL, the local fake mail service. */
+  mail: MailRuntime;
   /** Package version and commit, recorded on every fit. */
   codeVersion: string;
 }

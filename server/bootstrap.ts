@@ -3,6 +3,7 @@ import type { AppContext } from './app-context';
 import type { Env } from './config/env';
 import { migrateToLatest, openDatabase } from './db/database';
 import { createAuth } from './features/auth/auth';
+import { startMail } from './features/mail/mail.runtime';
 import { JOB_KINDS } from './jobs/job-kinds';
 import { SqliteJobRunner } from './jobs/job-runner';
 import { createWorkerPool } from './jobs/worker-pool';
@@ -27,6 +28,7 @@ export async function createContext(env: Env, log: (message: string) => void = c
   const pool = createWorkerPool(env.WORKERS);
   const jobs = new SqliteJobRunner(handle.db, pool, JOB_KINDS, log);
   await jobs.start();
+  const mail = await startMail(handle.db, { smtpUrl: env.SMTP_URL, from: env.MAIL_FROM, publicUrl }, log);
   return {
     env,
     db: handle.db,
@@ -34,8 +36,10 @@ export async function createContext(env: Env, log: (message: string) => void = c
     auth,
     log,
     jobs,
+    mail,
     codeVersion: readCodeVersion(),
     close: async () => {
+      await mail.close();
       await jobs.stop();
       await pool.close();
       await handle.close();

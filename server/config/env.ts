@@ -12,6 +12,8 @@ const envSchema = z.object({
   SMTP_URL: z.string().url().optional(),
   /** Public address used in e-mail links; defaults to http://HOST:PORT. */
   PUBLIC_URL: z.string().url().optional(),
+  /** From header of every mail the app sends. */
+  MAIL_FROM: z.string().min(3).default('Epsigma <epsigma@localhost>'),
   WORKERS: z.coerce.number().int().min(1).max(64).default(Math.max(1, os.availableParallelism() - 1)),
   LOG_REQUESTS: z.enum(['0', '1']).default('1'),
   /** Sign-in attempts allowed per e-mail address and client address in 15 minutes. */
