@@ -11,6 +11,7 @@ import { ErrorState, LoadingState, PageHeader, Panel } from '@/components/ui/sta
 import { useCan } from '@/lib/authorization';
 import { type DatasetRow, useDataset, useWithdrawDataset } from '@/features/datasets/api/datasets';
 import { DatasetChart, quantityHeading } from '@/features/datasets/components/dataset-chart';
+import { SimulateRowsPanel } from '@/features/simulations/components/simulate-rows-panel';
 
 function rowColumns(kind: keyof typeof PROPERTY_KINDS): ColumnDef<DatasetRow, any>[] {
   const def = PROPERTY_KINDS[kind];
@@ -29,6 +30,7 @@ export function DatasetDetailRoute() {
   const version = params.get('version') ? Number(params.get('version')) : undefined;
   const dataset = useDataset(id, version);
   const canUpload = useCan('dataset:upload');
+  const canSimulate = useCan('simulation:run');
   const withdraw = useWithdrawDataset(id);
   const [reason, setReason] = useState('');
   if (dataset.isPending) return <LoadingState />;
@@ -114,6 +116,11 @@ export function DatasetDetailRoute() {
               ))}
             </ol>
           </Panel>
+          {canSimulate && d.property === 'density' && (
+            <Panel title="Simulate these state points">
+              <SimulateRowsPanel datasetId={d.id} version={d.version} />
+            </Panel>
+          )}
           {canUpload && !d.withdrawn && (
             <Panel title="Withdraw">
               <p className="mb-3 text-sm text-ink-soft">A withdrawn set stays readable with all its versions but is offered to no new fit.</p>
