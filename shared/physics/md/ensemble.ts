@@ -39,8 +39,10 @@ export interface EnsembleSettings {
   seed: number;
   /** CSVR relaxation time in τ. */
   thermostatTau: number;
-  /** MD steps between volume moves (and between samples). */
+  /** MD steps between samples (a multiple of volumeMoveEvery). */
   sampleEvery: number;
+  /** MD steps between volume moves. */
+  volumeMoveEvery: number;
   /** Initial maximum |Δ ln V| of a volume move. */
   maxLnVolumeStep: number;
 }
@@ -204,14 +206,17 @@ export class Ensemble {
    */
   run(steps: number, series: SampleSeries | null, adapt: boolean, onStep?: (done: number) => void): void {
     const every = this.settings.sampleEvery;
+    const moveEvery = this.settings.volumeMoveEvery;
     for (let i = 1; i <= steps; i++) {
-      const sampleNow = (this.stepCount + 1) % every === 0;
-      this.step(sampleNow);
-      if (sampleNow) {
+      const next = this.stepCount + 1;
+      const sampleNow = next % every === 0;
+      const moveNow = next % moveEvery === 0;
+      this.step(sampleNow || moveNow);
+      if (moveNow) {
         this.volumeMove();
         if (adapt) this.adaptVolumeStep();
-        if (series) this.record(series);
       }
+      if (sampleNow && series) this.record(series);
       if (onStep && (i & 255) === 0) onStep(i);
     }
   }

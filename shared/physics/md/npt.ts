@@ -26,8 +26,10 @@ export const DEFAULT_SKIN = 0.3;
 export const DEFAULT_SEED = 1;
 /** CSVR relaxation time (τ): 100 steps of 0.005. */
 export const DEFAULT_THERMOSTAT_TAU = 0.5;
-/** MD steps between samples and between volume moves. */
+/** MD steps between samples. */
 export const DEFAULT_SAMPLE_EVERY = 10;
+/** MD steps between volume moves (each costs about one force evaluation). */
+export const VOLUME_MOVE_EVERY = 5;
 const TRACE_POINTS = 500;
 
 export interface NptOptions {
@@ -94,6 +96,10 @@ export interface NptResult {
   dRhoDPStdErr: number;
   /** Isothermal compressibility κ_T* = (1/ρ)(∂ρ/∂P)_T. */
   isothermalCompressibility: number;
+  /** ⟨V*⟩ and Var(V*) with its standard error (isobaric check: Var(V) = ⟨V⟩·T*·κ_T). */
+  meanVolume: number;
+  volumeVariance: number;
+  volumeVarianceStdErr: number;
   settings: {
     reducedTemperature: number;
     reducedPressure: number;
@@ -213,6 +219,7 @@ export function runNpt(options: NptOptions, onProgress?: ProgressCallback): NptR
     seed,
     thermostatTau: DEFAULT_THERMOSTAT_TAU,
     sampleEvery: DEFAULT_SAMPLE_EVERY,
+    volumeMoveEvery: VOLUME_MOVE_EVERY,
     maxLnVolumeStep: 0.02,
   });
   const all = new SampleSeries();
@@ -247,6 +254,7 @@ export function runNpt(options: NptOptions, onProgress?: ProgressCallback): NptR
   const times = all.step.slice(from, to).map((s) => s * dt);
   const { phase, orderParameter } = phaseCheck(all, from, to);
   const dRhoDP = -covRhoV.mean / t;
+  const varV = estimateCovariance(all.volume, all.volume, from, to);
   onProgress?.({ fraction: 1, stage: 'done' });
   return {
     reducedDensity: rho.mean,
@@ -262,6 +270,9 @@ export function runNpt(options: NptOptions, onProgress?: ProgressCallback): NptR
     dRhoDP,
     dRhoDPStdErr: covRhoV.stdErr / t,
     isothermalCompressibility: dRhoDP / rho.mean,
+    meanVolume: estimateMean(all.volume, from, to).mean,
+    volumeVariance: varV.mean,
+    volumeVarianceStdErr: varV.stdErr,
     settings: {
       reducedTemperature: t,
       reducedPressure: p,

@@ -3,7 +3,7 @@
  * published NVT data (NIST SRSW) and for checks of the canonical kinetic-energy distribution.
  */
 import { Ensemble, SampleSeries, type CutoffScheme } from './ensemble';
-import { detectEquilibration, estimateMean, variance } from './statistics';
+import { detectEquilibration, estimateCovariance, estimateMean } from './statistics';
 import { requireInteger, requireNumber } from './validate';
 import {
   DEFAULT_ATOMS,
@@ -13,6 +13,7 @@ import {
   DEFAULT_SKIN,
   DEFAULT_THERMOSTAT_TAU,
   DEFAULT_TIMESTEP,
+  VOLUME_MOVE_EVERY,
   decimatedTrace,
   phaseCheck,
   validateScheme,
@@ -58,6 +59,7 @@ export interface NvtResult {
   meanTemperature: number;
   /** Var(K) over the retained samples and its canonical value (Nf/2)·T² for Nf = 3N − 3. */
   kineticEnergyVariance: number;
+  kineticEnergyVarianceStdErr: number;
   kineticEnergyVarianceCanonical: number;
   phase: Phase;
   orderParameter: PhaseCheck;
@@ -92,6 +94,7 @@ export function runNvt(options: NvtOptions, onProgress?: ProgressCallback): NvtR
     seed,
     thermostatTau: tau,
     sampleEvery: DEFAULT_SAMPLE_EVERY,
+    volumeMoveEvery: VOLUME_MOVE_EVERY,
     maxLnVolumeStep: 0,
   });
   const burnIn = Math.floor(0.2 * steps);
@@ -105,6 +108,7 @@ export function runNvt(options: NvtOptions, onProgress?: ProgressCallback): NvtR
   const u = estimateMean(series.potentialPerAtom, from, to);
   const p = estimateMean(series.pressure, from, to);
   const nf = 3 * atoms - 3;
+  const kVar = estimateCovariance(series.kinetic, series.kinetic, from, to);
   const { phase, orderParameter } = phaseCheck(series, from, to);
   onProgress?.({ fraction: 1, stage: 'done' });
   return {
@@ -116,7 +120,8 @@ export function runNvt(options: NvtOptions, onProgress?: ProgressCallback): NvtR
     reducedPressureStdErr: p.stdErr,
     reducedPressureTruncated: estimateMean(series.pressureTruncated, from, to).mean,
     meanTemperature: estimateMean(series.temperature, from, to).mean,
-    kineticEnergyVariance: (variance(series.kinetic, from, to) * (to - from)) / (to - from - 1),
+    kineticEnergyVariance: kVar.mean,
+    kineticEnergyVarianceStdErr: kVar.stdErr,
     kineticEnergyVarianceCanonical: 0.5 * nf * t * t,
     phase,
     orderParameter,
