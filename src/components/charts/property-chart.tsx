@@ -65,7 +65,8 @@ export function PropertyChart({ series, xTitle, yTitle, residuals, height = 320,
   const xMin = xs.length ? Math.min(...xs) : 0;
   const xMax = xs.length ? Math.max(...xs) : 1;
   const pad = (xMax - xMin || Math.abs(xMax) || 1) * 0.04;
-  const xScale = { type: 'linear' as const, min: xMin - pad, max: xMax + pad, grid: { color: 'rgba(219,208,187,0.5)' } };
+  // Suggested (not hard) limits: the axis still ends on round ticks, and both panels get the same ones.
+  const xScale = { type: 'linear' as const, suggestedMin: xMin - pad, suggestedMax: xMax + pad, grid: { color: 'rgba(219,208,187,0.5)' } };
   const options: ChartOptions<'scatter'> = {
     responsive: true,
     maintainAspectRatio: false,

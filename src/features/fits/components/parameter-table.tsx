@@ -26,11 +26,11 @@ export function ParameterTable({ result, energy, length }: { result: LjFitResult
     <div>
       <div className="grid gap-3 sm:grid-cols-2">
         <div className="rounded-md border border-rule bg-paper px-4 py-3">
-          <div className="text-xs font-semibold uppercase tracking-wider text-ink-faint">{energySymbol(energy)} ({energy})</div>
+          <div className="text-xs font-semibold tracking-wider text-ink-faint">{energySymbol(energy)} ({energy})</div>
           <div className="num text-2xl font-bold" data-testid="epsilon-value">{formatWithUncertainty(eps, epsErr, energy)}</div>
         </div>
         <div className="rounded-md border border-rule bg-paper px-4 py-3">
-          <div className="text-xs font-semibold uppercase tracking-wider text-ink-faint">σ ({length})</div>
+          <div className="text-xs font-semibold tracking-wider text-ink-faint">σ ({length})</div>
           <div className="num text-2xl font-bold" data-testid="sigma-value">{formatWithUncertainty(sig, sigErr, length)}</div>
         </div>
       </div>
