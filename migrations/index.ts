@@ -2,6 +2,7 @@ import type { Migration } from 'kysely';
 import * as m20261201_0001 from './20261201_0001_people_sessions_audit';
 import * as m20261201_0002 from './20261201_0002_substances_datasets';
 import * as m20261201_0003 from './20261201_0003_jobs_fits';
+import * as m20261201_0004 from './20261201_0004_parameter_sets';
 import * as m20261201_0005 from './20261201_0005_mail_follows';
 
 /**
@@ -12,5 +13,6 @@ export const MIGRATIONS: Record<string, Migration> = {
   '20261201_0001_people_sessions_audit': m20261201_0001,
   '20261201_0002_substances_datasets': m20261201_0002,
   '20261201_0003_jobs_fits': m20261201_0003,
+  '20261201_0004_parameter_sets': m20261201_0004,
   '20261201_0005_mail_follows': m20261201_0005,
 };

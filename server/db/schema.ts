@@ -2,6 +2,7 @@ import type { AuditEventTable } from '../features/audit/audit.table';
 import type { DatasetTable, DatasetVersionTable, DatasetWithdrawalTable, MeasurementRowTable } from '../features/datasets/datasets.table';
 import type { SubstanceTable } from '../features/substances/substances.table';
 import type { FitTable } from '../features/fits/fits.table';
+import type { ParameterSetCommentTable, ParameterSetTable, ParameterSetTransitionTable } from '../features/parameter-sets/parameter-sets.table';
 import type { JobTable } from '../jobs/job.table';
 import type { MailboxMessageTable, MailOutboxTable } from '../features/mail/mail.table';
 import type { SubstanceFollowTable } from '../features/follows/follows.table';
@@ -20,6 +21,9 @@ export interface Database {
   datasetWithdrawal: DatasetWithdrawalTable;
   job: JobTable;
   fit: FitTable;
+  parameterSet: ParameterSetTable;
+  parameterSetTransition: ParameterSetTransitionTable;
+  parameterSetComment: ParameterSetCommentTable;
   mailOutbox: MailOutboxTable;
   mailboxMessage: MailboxMessageTable;
   substanceFollow: SubstanceFollowTable;

@@ -1,0 +1,110 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import { PARAMETER_SET_STATES } from '../../../shared/parameter-sets/transitions';
+import {
+  commentBody,
+  createParameterSetBody,
+  FROZEN_FIELDS,
+  retireParameterSetBody,
+  reviewParameterSetBody,
+  reviseParameterSetBody,
+  updateParameterSetBody,
+} from '../../../shared/schemas/parameter-sets';
+import type { AppContext } from '../../app-context';
+import { currentUser, requirePolicy } from '../../common/auth-middleware';
+import { idParams, validBody, validParams, validQuery } from '../../common/validate';
+import { listReviewQueue } from './parameter-sets.repository';
+import {
+  addComment,
+  createParameterSet,
+  editDraft,
+  getParameterSetDetail,
+  listVisible,
+  refuseUnlessEditable,
+  requireSubstanceExists,
+  retireParameterSet,
+  reviewParameterSet,
+  reviseParameterSet,
+  submitParameterSet,
+  toParameterSetSummary,
+} from './parameter-sets.service';
+
+const listQuery = z.object({
+  substanceId: z.coerce.number().int().positive().optional(),
+  state: z
+    .string()
+    .transform((s) => s.split(',').map((x) => x.trim()))
+    .pipe(z.array(z.enum(PARAMETER_SET_STATES)))
+    .optional(),
+});
+
+/** Parameter sets: drafting from a fit, the review moves, comments, and the Review desk's queue. */
+export function parameterSetRoutes(ctx: AppContext): Router {
+  const router = Router();
+  const { db } = ctx;
+
+  router.post('/parameter-sets', requirePolicy('parameterSet:draft'), async (req, res) => {
+    const body = validBody(createParameterSetBody, req);
+    res.status(201).json(await createParameterSet(ctx, currentUser(res), body));
+  });
+
+  router.get('/parameter-sets', requirePolicy('parameterSet:read'), async (req, res) => {
+    const { substanceId, state } = validQuery(listQuery, req);
+    res.json({ parameterSets: await listVisible(db, currentUser(res), { substanceId, states: state }) });
+  });
+
+  router.get('/parameter-sets/:id', requirePolicy('parameterSet:read'), async (req, res) => {
+    const { id } = validParams(idParams, req);
+    res.json(await getParameterSetDetail(db, id, currentUser(res)));
+  });
+
+  router.patch('/parameter-sets/:id', requirePolicy('parameterSet:draft'), async (req, res) => {
+    const { id } = validParams(idParams, req);
+    const raw = req.body && typeof req.body === 'object' ? (req.body as Record<string, unknown>) : {};
+    await refuseUnlessEditable(db, currentUser(res), id, FROZEN_FIELDS.filter((f) => f in raw));
+    const body = validBody(updateParameterSetBody, req);
+    res.json(await editDraft(ctx, currentUser(res), id, body));
+  });
+
+  router.post('/parameter-sets/:id/submit', requirePolicy('parameterSet:draft'), async (req, res) => {
+    const { id } = validParams(idParams, req);
+    res.json(await submitParameterSet(ctx, currentUser(res), id));
+  });
+
+  router.post('/parameter-sets/:id/review', requirePolicy('parameterSet:review'), async (req, res) => {
+    const { id } = validParams(idParams, req);
+    const { decision, comment } = validBody(reviewParameterSetBody, req);
+    res.json(await reviewParameterSet(ctx, currentUser(res), id, decision, comment));
+  });
+
+  router.post('/parameter-sets/:id/retire', requirePolicy('parameterSet:retire'), async (req, res) => {
+    const { id } = validParams(idParams, req);
+    const { reason } = validBody(retireParameterSetBody, req);
+    res.json(await retireParameterSet(ctx, currentUser(res), id, reason));
+  });
+
+  router.post('/parameter-sets/:id/revise', requirePolicy('parameterSet:draft'), async (req, res) => {
+    const { id } = validParams(idParams, req);
+    const body = validBody(reviseParameterSetBody, req);
+    res.status(201).json(await reviseParameterSet(ctx, currentUser(res), id, body));
+  });
+
+  router.post('/parameter-sets/:id/comments', requirePolicy('parameterSet:comment'), async (req, res) => {
+    const { id } = validParams(idParams, req);
+    const { body } = validBody(commentBody, req);
+    res.status(201).json(await addComment(ctx, currentUser(res), id, body));
+  });
+
+  router.get('/review-queue', requirePolicy('parameterSet:review'), async (_req, res) => {
+    const rows = await listReviewQueue(db, currentUser(res).id);
+    res.json({ parameterSets: rows.map((r) => ({ ...toParameterSetSummary(r), submittedAt: r.submittedAt })) });
+  });
+
+  router.get('/substances/:id/parameter-sets', requirePolicy('parameterSet:read'), async (req, res) => {
+    const { id } = validParams(idParams, req);
+    await requireSubstanceExists(db, id);
+    res.json({ parameterSets: await listVisible(db, currentUser(res), { substanceId: id }) });
+  });
+
+  return router;
+}

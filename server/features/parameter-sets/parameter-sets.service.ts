@@ -1,0 +1,420 @@
+import { hasPolicy } from '../../../shared/auth/roles';
+import { availableMoves, checkMove, isVisibleTo, STATE_LABELS, type Move, type MoveActor, type MoveSubject, type ParameterSetState } from '../../../shared/parameter-sets/transitions';
+import {
+  CUTOFF_SCHEME_LABELS,
+  type CreateParameterSetBody,
+  type CutoffScheme,
+  type ReviseParameterSetBody,
+  type UpdateParameterSetBody,
+  type Validity,
+} from '../../../shared/schemas/parameter-sets';
+import type { LjFitResult } from '../../../shared/fitting/lj-fit';
+import type { AppContext } from '../../app-context';
+import type { CurrentUser } from '../../common/auth-middleware';
+import { AppError, notFound } from '../../common/errors';
+import type { Db, Tx } from '../../db/database';
+import { recordAudit } from '../audit/audit.service';
+import type { FitDatasetRef } from '../fits/fits.service';
+import { findFit, toFitView } from '../fits/fits.service';
+import { emailsOfFollowers, emailsOfRole, mailBody, queueMail } from '../mail/mail.service';
+import { approvedOf, commentsOf, emailOf, findParameterSet, historyOf, listParameterSets, nextVersion, type ParameterSetRow } from './parameter-sets.repository';
+
+const SYSTEM: MoveActor = { id: 'system', roles: [], system: true };
+
+/** Audit action per move (`parameterSet.<action>`). */
+const AUDIT_ACTION: Record<Move, string> = {
+  submit: 'submitted',
+  approve: 'approved',
+  request_changes: 'changes_requested',
+  revise: 'revised',
+  retire: 'retired',
+  supersede: 'superseded',
+  edit: 'edited',
+};
+
+export function setLabel(row: { substanceName: string; version: number; scheme: CutoffScheme; cutoffSigma: number | null }): string {
+  const cutoff = row.cutoffSigma === null ? '' : `, r_c = ${row.cutoffSigma} σ`;
+  return `${row.substanceName} v${row.version} (${CUTOFF_SCHEME_LABELS[row.scheme]}${cutoff})`;
+}
+
+/** A parameter set as every list shows it. */
+export function toParameterSetSummary(row: ParameterSetRow) {
+  return {
+    id: row.id,
+    label: setLabel(row),
+    substanceId: row.substanceId,
+    substanceName: row.substanceName,
+    version: row.version,
+    scheme: row.scheme,
+    cutoffSigma: row.cutoffSigma,
+    model: row.model,
+    state: row.state,
+    stateLabel: STATE_LABELS[row.state],
+    epsilonK: row.epsilonK,
+    sigmaAngstrom: row.sigmaAngstrom,
+    stdErr: { epsilonK: row.epsilonStdErrK, sigmaAngstrom: row.sigmaStdErrAngstrom },
+    correlation: row.correlation,
+    validity: {
+      temperatureMinK: row.temperatureMinK,
+      temperatureMaxK: row.temperatureMaxK,
+      pressureMinMPa: row.pressureMinMpa,
+      pressureMaxMPa: row.pressureMaxMpa,
+    },
+    fitId: row.fitId,
+    fitNumber: row.fitNumber,
+    revisionOf: row.revisionOf,
+    revisedBy: row.revisedBy ?? null,
+    createdBy: row.createdBy,
+    createdByName: row.createdByName,
+    createdAt: row.createdAt,
+    updatedAt: row.updatedAt,
+  };
+}
+
+const moveActor = (user: CurrentUser): MoveActor => ({ id: user.id, roles: user.roles });
+
+async function subjectOf(db: Db | Tx, row: ParameterSetRow): Promise<MoveSubject> {
+  const approved = await approvedOf(db, row.substanceId, row.scheme);
+  return {
+    state: row.state,
+    version: row.version,
+    authorId: row.createdBy,
+    fitAuthorId: row.fitCreatedBy,
+    approvedVersion: approved.length ? approved[0].version : null,
+    revised: row.revisedBy != null,
+  };
+}
+
+async function requireVisibleSet(db: Db | Tx, id: number, viewer: CurrentUser): Promise<ParameterSetRow> {
+  const row = await findParameterSet(db, id);
+  // A consumer asking for an unpublished set learns nothing about it, not even that it exists.
+  if (!row || !isVisibleTo(row.state, viewer.roles)) throw notFound(`Parameter set ${id}`);
+  return row;
+}
+
+/**
+ * Makes one move through the state machine: refuses with its status and code, or writes the transition
+ * row, the new state and the audit row. Runs inside the caller's transaction.
+ */
+async function applyMove(tx: Tx, row: ParameterSetRow, move: Move, actor: CurrentUser | null, text: string | null, extra: { summary?: string } = {}): Promise<ParameterSetState> {
+  const decision = checkMove(move, await subjectOf(tx, row), actor ? moveActor(actor) : SYSTEM, { text });
+  if (!decision.ok) throw new AppError(decision.status, decision.code, decision.message);
+  const at = new Date().toISOString();
+  await tx.insertInto('parameterSetTransition').values({ parameterSetId: row.id, move, fromState: row.state, toState: decision.to, actorId: actor?.id ?? null, comment: text, at }).execute();
+  if (decision.to !== row.state) await tx.updateTable('parameterSet').set({ state: decision.to, updatedAt: at }).where('id', '=', row.id).execute();
+  const who = actor?.email ?? 'Epsigma';
+  await recordAudit(tx, {
+    actor,
+    action: `parameterSet.${AUDIT_ACTION[move]}`,
+    targetType: 'parameterSet',
+    targetId: row.id,
+    summary: extra.summary ?? `${who}: ${setLabel(row)} ${STATE_LABELS[row.state]} → ${STATE_LABELS[decision.to]}${text ? ` — ${text}` : ''}`,
+    before: { state: row.state },
+    after: { state: decision.to, ...(text ? { comment: text } : {}) },
+  });
+  return decision.to;
+}
+
+/** The fit's result when it can back a parameter set: the fit succeeded and its least squares converged. */
+async function usableFit(db: Db | Tx, fitId: number, field = 'fitId') {
+  const row = await findFit(db, fitId);
+  if (!row) throw new AppError(422, 'unknown_fit', `Fit ${fitId} does not exist.`, [{ field, message: 'no such fit' }]);
+  const fit = toFitView(row);
+  if (fit.status !== 'succeeded' || !fit.result || fit.result.status !== 'succeeded') {
+    throw new AppError(409, 'fit_not_succeeded', `Fit #${fit.number} of ${fit.substanceName} is ${fit.status}; only a succeeded fit can back a parameter set.`, [{ field, message: `fit is ${fit.status}` }]);
+  }
+  if (fit.model !== 'lj-12-6') throw new AppError(409, 'unsupported_model', `Fit #${fit.number} used model ${fit.model}; parameter sets hold LJ 12-6 parameters.`);
+  return { fit, result: fit.result as LjFitResult };
+}
+
+/** Temperature span of the fitted points, and the pressure span of any density rows among the fit's dataset versions. */
+async function dataSpan(db: Db | Tx, fit: Awaited<ReturnType<typeof usableFit>>['fit']): Promise<Validity> {
+  const temps = (fit.result as LjFitResult).residuals.map((r) => r.temperatureK);
+  const span: Validity = { temperatureMinK: Math.min(...temps), temperatureMaxK: Math.max(...temps) };
+  const densityVersions = fit.datasets.filter((d) => d.kind === 'density').map((d) => d.versionId);
+  if (densityVersions.length) {
+    const p = await db
+      .selectFrom('measurementRow')
+      .select((eb) => [eb.fn.min('pressureMpa').as('lo'), eb.fn.max('pressureMpa').as('hi')])
+      .where('datasetVersionId', 'in', densityVersions)
+      .executeTakeFirst();
+    if (p?.lo != null && p?.hi != null && Number(p.lo) < Number(p.hi)) Object.assign(span, { pressureMinMPa: Number(p.lo), pressureMaxMPa: Number(p.hi) });
+  }
+  return span;
+}
+
+async function insertSet(
+  tx: Tx,
+  actor: CurrentUser,
+  input: { fit: Awaited<ReturnType<typeof usableFit>>; scheme: CutoffScheme; cutoffSigma: number | null; validity: Validity; rationale: string; revisionOf: ParameterSetRow | null },
+) {
+  const { fit, result } = input.fit;
+  const version = await nextVersion(tx, fit.substanceId, input.scheme);
+  const now = new Date().toISOString();
+  const { id } = await tx
+    .insertInto('parameterSet')
+    .values({
+      substanceId: fit.substanceId,
+      scheme: input.scheme,
+      cutoffSigma: input.cutoffSigma,
+      version,
+      fitId: fit.id,
+      revisionOf: input.revisionOf?.id ?? null,
+      model: 'lj-12-6',
+      epsilonK: result.epsilonK,
+      sigmaAngstrom: result.sigmaAngstrom,
+      epsilonStdErrK: result.stdErr.epsilonK,
+      sigmaStdErrAngstrom: result.stdErr.sigmaAngstrom,
+      correlation: result.correlation,
+      datasetsJson: JSON.stringify(fit.datasets),
+      temperatureMinK: input.validity.temperatureMinK,
+      temperatureMaxK: input.validity.temperatureMaxK,
+      pressureMinMpa: input.validity.pressureMinMPa ?? null,
+      pressureMaxMpa: input.validity.pressureMaxMPa ?? null,
+      rationale: input.rationale,
+      state: 'draft',
+      createdBy: actor.id,
+      createdAt: now,
+      updatedAt: now,
+    })
+    .returning('id')
+    .executeTakeFirstOrThrow();
+  const comment = input.revisionOf ? `Revision of v${input.revisionOf.version} after changes were requested` : null;
+  await tx.insertInto('parameterSetTransition').values({ parameterSetId: id, move: 'create', fromState: null, toState: 'draft', actorId: actor.id, comment, at: now }).execute();
+  const row = (await findParameterSet(tx, id))!;
+  await recordAudit(tx, {
+    actor,
+    action: 'parameterSet.drafted',
+    targetType: 'parameterSet',
+    targetId: id,
+    summary: `${actor.email} drafted ${setLabel(row)} from Fit #${fit.number}${input.revisionOf ? ` as a revision of v${input.revisionOf.version}` : ''}`,
+    after: { ...toParameterSetSummary(row), datasets: fit.datasets },
+  });
+  return row;
+}
+
+/** POST /api/parameter-sets: a draft from a succeeded fit, values frozen from its result. */
+export async function createParameterSet(ctx: AppContext, actor: CurrentUser, body: CreateParameterSetBody) {
+  const fit = await usableFit(ctx.db, body.fitId);
+  const validity = body.validity ?? (await dataSpan(ctx.db, fit.fit));
+  const scheme = body.scheme ?? 'full-potential';
+  const row = await ctx.db.transaction().execute((tx) => insertSet(tx, actor, { fit, scheme, cutoffSigma: body.cutoffSigma ?? null, validity, rationale: body.rationale, revisionOf: null }));
+  return toParameterSetSummary(row);
+}
+
+/** POST /api/parameter-sets/:id/revise: the set sent back stays as it is; its revision is the next version, a new draft. */
+export async function reviseParameterSet(ctx: AppContext, actor: CurrentUser, id: number, body: ReviseParameterSetBody) {
+  const before = await requireVisibleSet(ctx.db, id, actor);
+  // Role and state first, so a refused move answers 403/409 whatever the body holds.
+  const allowed = checkMove('revise', await subjectOf(ctx.db, before), moveActor(actor));
+  if (!allowed.ok) throw new AppError(allowed.status, allowed.code, allowed.message);
+  const fitId = body.fitId ?? before.fitId;
+  const fit = await usableFit(ctx.db, fitId);
+  if (fit.fit.substanceId !== before.substanceId) throw new AppError(422, 'wrong_substance', `Fit #${fit.fit.number} is a fit of ${fit.fit.substanceName}, not of ${before.substanceName}.`, [{ field: 'fitId', message: 'fit of another substance' }]);
+  if (fit.fit.id < before.fitId) throw new AppError(422, 'older_fit', `A revision is drafted from the same fit (#${before.fitNumber}) or a newer one.`, [{ field: 'fitId', message: 'older than the fit of the set sent back' }]);
+  if (before.scheme === 'full-potential' && body.cutoffSigma !== undefined) throw new AppError(400, 'validation_failed', 'The full potential has no cutoff.', [{ field: 'cutoffSigma', message: 'the full potential has no cutoff; leave cutoffSigma out' }]);
+  const sameFit = fit.fit.id === before.fitId;
+  const validity: Validity =
+    body.validity ??
+    (sameFit
+      ? { temperatureMinK: before.temperatureMinK, temperatureMaxK: before.temperatureMaxK, ...(before.pressureMinMpa !== null ? { pressureMinMPa: before.pressureMinMpa, pressureMaxMPa: before.pressureMaxMpa! } : {}) }
+      : await dataSpan(ctx.db, fit.fit));
+  const row = await ctx.db.transaction().execute(async (tx) => {
+    const current = (await findParameterSet(tx, id))!;
+    const version = await nextVersion(tx, current.substanceId, current.scheme);
+    await applyMove(tx, current, 'revise', actor, `Revised as v${version}`);
+    return insertSet(tx, actor, { fit, scheme: current.scheme, cutoffSigma: body.cutoffSigma ?? current.cutoffSigma, validity, rationale: body.rationale, revisionOf: current });
+  });
+  return toParameterSetSummary(row);
+}
+
+const link = (id: number) => `/parameter-sets/${id}`;
+
+/** POST /api/parameter-sets/:id/submit: the author hands the draft to the reviewers. */
+export async function submitParameterSet(ctx: AppContext, actor: CurrentUser, id: number) {
+  await requireVisibleSet(ctx.db, id, actor);
+  await ctx.db.transaction().execute(async (tx) => {
+    const row = (await findParameterSet(tx, id))!;
+    await applyMove(tx, row, 'submit', actor, null);
+    // Everyone who may decide on it; the author and the fit's author may not, so they are left out.
+    const excluded = new Set([row.createdByEmail.toLowerCase(), ((await emailOf(tx, row.fitCreatedBy)) ?? '').toLowerCase()]);
+    const reviewers = (await emailsOfRole(tx, 'reviewer')).filter((e) => !excluded.has(e.toLowerCase()));
+    await queueMail(tx, {
+      to: reviewers,
+      subject: `In review: ${setLabel(row)}`,
+      ...mailBody([
+        `${actor.name} submitted ${setLabel(row)} for review.`,
+        `ε/k_B = ${row.epsilonK.toPrecision(6)} K, σ = ${row.sigmaAngstrom.toPrecision(6)} Å, from Fit #${row.fitNumber}.`,
+        `Rationale: ${row.rationale}`,
+        'It waits on the Review desk.',
+      ]),
+      link: link(id),
+      reason: 'parameterSet.submitted',
+    });
+  });
+  return getParameterSetDetail(ctx.db, id, actor);
+}
+
+/** POST /api/parameter-sets/:id/review: approve (superseding the approved older version) or send back. */
+export async function reviewParameterSet(ctx: AppContext, actor: CurrentUser, id: number, decision: 'approve' | 'request_changes', comment: string) {
+  await requireVisibleSet(ctx.db, id, actor);
+  await ctx.db.transaction().execute(async (tx) => {
+    const row = (await findParameterSet(tx, id))!;
+    await applyMove(tx, row, decision, actor, comment);
+    const author = [row.createdByEmail];
+    if (decision === 'request_changes') {
+      await queueMail(tx, {
+        to: author,
+        subject: `Changes requested: ${setLabel(row)}`,
+        ...mailBody([`${actor.name} sent ${setLabel(row)} back with this comment:`, comment, 'Draft a revision from the parameter set page.']),
+        link: link(id),
+        reason: 'parameterSet.changes_requested',
+      });
+      return;
+    }
+    const superseded: string[] = [];
+    for (const older of await approvedOf(tx, row.substanceId, row.scheme)) {
+      if (older.id === row.id) continue;
+      await applyMove(tx, older, 'supersede', null, `Superseded by v${row.version}`, { summary: `${setLabel(older)} superseded by v${row.version}, approved by ${actor.email}` });
+      superseded.push(`v${older.version}`);
+    }
+    await queueMail(tx, {
+      to: author,
+      subject: `Approved: ${setLabel(row)}`,
+      ...mailBody([`${actor.name} approved ${setLabel(row)} with this comment:`, comment]),
+      link: link(id),
+      reason: 'parameterSet.approved',
+    });
+    await queueMail(tx, {
+      to: await emailsOfFollowers(tx, row.substanceId),
+      subject: `New approved parameters: ${setLabel(row)}`,
+      ...mailBody([
+        `${setLabel(row)} was approved: ε/k_B = ${row.epsilonK.toPrecision(6)} K, σ = ${row.sigmaAngstrom.toPrecision(6)} Å, valid ${row.temperatureMinK}–${row.temperatureMaxK} K.`,
+        superseded.length ? `It supersedes ${superseded.join(', ')}.` : 'It is the first approved version for this scheme.',
+        'Fitted model parameters are not validated property data for pressure, safety or process design; defer to local codes and licensed engineering practice.',
+      ]),
+      link: link(id),
+      reason: 'parameterSet.version_approved',
+    });
+  });
+  return getParameterSetDetail(ctx.db, id, actor);
+}
+
+/** POST /api/parameter-sets/:id/retire: an approved set is withdrawn with a reason. */
+export async function retireParameterSet(ctx: AppContext, actor: CurrentUser, id: number, reason: string) {
+  await requireVisibleSet(ctx.db, id, actor);
+  await ctx.db.transaction().execute(async (tx) => {
+    const row = (await findParameterSet(tx, id))!;
+    await applyMove(tx, row, 'retire', actor, reason);
+    await queueMail(tx, {
+      to: [...(await emailsOfFollowers(tx, row.substanceId)), row.createdByEmail],
+      subject: `Retired: ${setLabel(row)}`,
+      ...mailBody([`${actor.name} retired ${setLabel(row)}. Do not use it for new work.`, `Reason: ${reason}`]),
+      link: link(id),
+      reason: 'parameterSet.retired',
+    });
+  });
+  return getParameterSetDetail(ctx.db, id, actor);
+}
+
+/**
+ * Refuses a PATCH before its body is read: 404/403 as for any move, 409 when the set is not a draft
+ * or when the body tries to change a frozen value (the values never change; draft a new set).
+ */
+export async function refuseUnlessEditable(db: Db, actor: CurrentUser, id: number, frozenFieldsInBody: string[]) {
+  const row = await requireVisibleSet(db, id, actor);
+  const decision = checkMove('edit', await subjectOf(db, row), moveActor(actor));
+  if (!decision.ok) throw new AppError(decision.status, decision.code, decision.message);
+  if (frozenFieldsInBody.length) {
+    throw new AppError(409, 'values_frozen', `The values of a parameter set are frozen at creation (${frozenFieldsInBody.join(', ')}); draft a new parameter set from a fit instead.`, frozenFieldsInBody.map((field) => ({ field, message: 'frozen at creation' })));
+  }
+}
+
+/** PATCH /api/parameter-sets/:id: rationale and validity of a draft. */
+export async function editDraft(ctx: AppContext, actor: CurrentUser, id: number, body: UpdateParameterSetBody) {
+  await ctx.db.transaction().execute(async (tx) => {
+    const row = (await requireVisibleSet(tx, id, actor))!;
+    const changed = [body.rationale !== undefined ? 'rationale' : null, body.validity ? 'validity' : null].filter(Boolean).join(' and ');
+    await applyMove(tx, row, 'edit', actor, `Changed the ${changed}`, { summary: `${actor.email} edited the ${changed} of ${setLabel(row)}` });
+    await tx
+      .updateTable('parameterSet')
+      .set({
+        ...(body.rationale !== undefined ? { rationale: body.rationale } : {}),
+        ...(body.validity
+          ? { temperatureMinK: body.validity.temperatureMinK, temperatureMaxK: body.validity.temperatureMaxK, pressureMinMpa: body.validity.pressureMinMPa ?? null, pressureMaxMpa: body.validity.pressureMaxMPa ?? null }
+          : {}),
+        updatedAt: new Date().toISOString(),
+      })
+      .where('id', '=', id)
+      .execute();
+  });
+  return getParameterSetDetail(ctx.db, id, actor);
+}
+
+/** POST /api/parameter-sets/:id/comments */
+export async function addComment(ctx: AppContext, actor: CurrentUser, id: number, body: string) {
+  return ctx.db.transaction().execute(async (tx) => {
+    const row = await requireVisibleSet(tx, id, actor);
+    const createdAt = new Date().toISOString();
+    const { id: commentId } = await tx.insertInto('parameterSetComment').values({ parameterSetId: id, authorId: actor.id, body, createdAt }).returning('id').executeTakeFirstOrThrow();
+    await recordAudit(tx, { actor, action: 'parameterSet.commented', targetType: 'parameterSet', targetId: id, summary: `${actor.email} commented on ${setLabel(row)}`, after: { commentId } });
+    return { id: commentId, authorId: actor.id, authorName: actor.name, body, createdAt };
+  });
+}
+
+/** GET /api/parameter-sets/:id: the set, its history and comments, its fit and data, the approved version it would replace. */
+export async function getParameterSetDetail(db: Db, id: number, viewer: CurrentUser) {
+  const row = await requireVisibleSet(db, id, viewer);
+  const [history, comments, approved, fitRow, subject] = await Promise.all([historyOf(db, id), commentsOf(db, id), approvedOf(db, row.substanceId, row.scheme), findFit(db, row.fitId), subjectOf(db, row)]);
+  const fit = toFitView(fitRow!);
+  const result = fit.result as LjFitResult | null;
+  const refs = JSON.parse(row.datasetsJson) as FitDatasetRef[];
+  const versions = refs.length
+    ? await db
+        .selectFrom('datasetVersion')
+        .select(['id', 'source', 'doi', 'method', 'rowCount', 'sha256', 'uploadedAt'])
+        .where('id', 'in', refs.map((r) => r.versionId))
+        .execute()
+    : [];
+  const temps = result?.residuals.map((r) => r.temperatureK) ?? [];
+  const current = approved.find((a) => a.id !== row.id) ?? null;
+  return {
+    ...toParameterSetSummary(row),
+    rationale: row.rationale,
+    fit: {
+      id: fit.id,
+      number: fit.number,
+      createdBy: fit.createdBy,
+      createdByName: fit.createdByName,
+      createdAt: fit.createdAt,
+      codeVersion: fit.codeVersion,
+      quantumCorrection: !!fit.options.quantumCorrection,
+      molarMassGPerMol: fit.options.molarMassGPerMol ?? null,
+      chi2: result?.chi2 ?? null,
+      dof: result?.dof ?? null,
+      reducedChi2: result?.reducedChi2 ?? null,
+      warnings: [...(result?.warnings ?? []), ...(result?.hitBounds ?? []).map((b) => `The fit ended on the bound of ${b}.`)],
+      dataSpan: temps.length ? { temperatureMinK: Math.min(...temps), temperatureMaxK: Math.max(...temps) } : null,
+    },
+    datasets: refs.map((r) => {
+      const v = versions.find((x) => x.id === r.versionId);
+      return { datasetId: r.datasetId, name: r.name, kind: r.kind, version: r.version, versionId: r.versionId, weight: r.weight, source: v?.source ?? null, doi: v?.doi ?? null, method: v?.method ?? null, rowCount: v?.rowCount ?? null, sha256: v?.sha256 ?? null };
+    }),
+    history: history.map((h) => ({ id: h.id, move: h.move, fromState: h.fromState, toState: h.toState, actorId: h.actorId, actorName: h.actorName ?? (h.actorId ? null : 'Epsigma'), comment: h.comment, at: h.at })),
+    comments,
+    currentApproved: current && isVisibleTo(current.state, viewer.roles) ? toParameterSetSummary(current) : null,
+    allowedMoves: availableMoves(subject, moveActor(viewer)),
+    canComment: hasPolicy(viewer.roles, 'parameterSet:comment'),
+  };
+}
+
+/** Sets a viewer may see, by substance and/or state (consumers: published sets only). */
+export async function listVisible(db: Db, viewer: CurrentUser, filter: { substanceId?: number; states?: ParameterSetState[] }) {
+  const rows = await listParameterSets(db, filter);
+  return rows.filter((r) => isVisibleTo(r.state, viewer.roles)).map(toParameterSetSummary);
+}
+
+export async function requireSubstanceExists(db: Db, substanceId: number) {
+  const s = await db.selectFrom('substance').select('id').where('id', '=', substanceId).executeTakeFirst();
+  if (!s) throw notFound(`Substance ${substanceId}`);
+}
