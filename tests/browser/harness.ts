@@ -1,4 +1,3 @@
-import { spawn, type ChildProcess } from 'node:child_process';
 import { existsSync, mkdirSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
@@ -7,7 +6,9 @@ import { chromium, type BrowserContext, type Page } from 'playwright-core';
 
 const root = fileURLToPath(new URL('../..', import.meta.url));
 export const SCREENSHOT_DIR = path.join(root, 'tests', 'output', 'screenshots');
-export const DEMO_PASSWORD = 'browser-test-password';
+import { DEMO_PASSWORD } from '../support/app-process';
+
+export { DEMO_PASSWORD };
 
 /** Debian's Chromium, or CHROMIUM_PATH. */
 export function findChromium(): string | undefined {
@@ -28,52 +29,7 @@ export function chromiumOrSkip(): { available: boolean } {
   return { available: false };
 }
 
-export interface RunningApp {
-  url: string;
-  dir: string;
-  stop: () => Promise<void>;
-  output: () => string;
-}
-
-/** Starts the real server entry point on a random port with a fresh database; the client must be built. */
-export async function startApp(extraEnv: Record<string, string> = {}): Promise<RunningApp> {
-  if (!existsSync(path.join(root, 'dist', 'client', 'index.html'))) throw new Error('The client is not built: run `vite build` first (npm test does).');
-  const dir = mkdtempSync(path.join(tmpdir(), 'epsigma-browser-'));
-  let output = '';
-  const child: ChildProcess = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
-    cwd: root,
-    env: { ...process.env, NODE_ENV: 'production', PORT: '0', HOST: '127.0.0.1', DATABASE_PATH: path.join(dir, 'app.sqlite'), DEMO_PASSWORD, LOG_REQUESTS: '0', WORKERS: '1', ...extraEnv },
-    stdio: ['ignore', 'pipe', 'pipe'],
-  });
-  const url = await new Promise<string>((resolve, reject) => {
-    const timer = setTimeout(() => reject(new Error(`server did not start:\n${output}`)), 60_000);
-    const onData = (d: Buffer) => {
-      output += d.toString();
-      const m = output.match(/LISTENING (http:\/\/\S+)/);
-      if (m) {
-        clearTimeout(timer);
-        resolve(m[1]);
-      }
-    };
-    child.stdout!.on('data', onData);
-    child.stderr!.on('data', (d: Buffer) => (output += d.toString()));
-    child.on('exit', (code) => reject(new Error(`server exited with ${code}:\n${output}`)));
-  });
-  return {
-    url,
-    dir,
-    output: () => output,
-    stop: async () => {
-      if (child.exitCode === null) {
-        const exited = new Promise((r) => child.once('exit', r));
-        child.kill('SIGTERM');
-        await Promise.race([exited, new Promise((r) => setTimeout(r, 5000))]);
-        if (child.exitCode === null) child.kill('SIGKILL');
-      }
-      rmSync(dir, { recursive: true, force: true });
-    },
-  };
-}
+export { startApp, type RunningApp } from '../support/app-process';
 
 /** A fresh headless Chromium profile, as the workplace's notes require (no --user-data-dir in args). */
 export async function openBrowser(): Promise<{ context: BrowserContext; close: () => Promise<void> }> {
