@@ -11,6 +11,9 @@ import { userRoutes } from './features/users/users.routes';
 import { substanceRoutes } from './features/substances/substances.routes';
 import { datasetRoutes } from './features/datasets/datasets.routes';
 import { fitRoutes } from './features/fits/fits.routes';
+import { mailRoutes } from './features/mail/mail.routes';
+import { auditRoutes } from './features/audit/audit.routes';
+import { followRoutes } from './features/follows/follows.routes';
 import { parameterSetRoutes } from './features/parameter-sets/parameter-sets.routes';
 import { simulationRoutes } from './features/simulations/simulations.routes';
 
@@ -61,6 +64,9 @@ export function createApp(ctx: AppContext, options: CreateAppOptions = {}) {
   api.use(fitRoutes(ctx));
   api.use(parameterSetRoutes(ctx));
   api.use(simulationRoutes(ctx));
+  api.use(mailRoutes(ctx));
+  api.use(auditRoutes(ctx));
+  api.use(followRoutes(ctx));
   api.use(apiNotFound);
   app.use('/api', api);
 

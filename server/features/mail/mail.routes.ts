@@ -1,0 +1,40 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import { requirePolicy } from '../../common/auth-middleware';
+import { AppError } from '../../common/errors';
+import { validQuery } from '../../common/validate';
+import type { AppContext } from '../../app-context';
+import { listMailbox } from './mail.repository';
+
+const mailboxQuery = z.object({
+  to: z.string().trim().max(200).optional(),
+  limit: z.coerce.number().int().min(1).max(500).default(100),
+});
+
+export function mailRoutes(ctx: AppContext): Router {
+  const router = Router();
+  const { db } = ctx;
+
+  router.get('/mailbox', requirePolicy('mailbox:read'), async (req, res) => {
+    const { to, limit } = validQuery(mailboxQuery, req);
+    if (ctx.mail.mode !== 'local') {
+      throw new AppError(409, 'mailbox_unavailable', 'The mailbox only exists with the local mail service; this server sends mail to SMTP_URL.');
+    }
+    const rows = await listMailbox(db, { to: to || undefined, limit });
+    res.json({
+      messages: rows.map((m) => ({
+        id: m.id,
+        receivedAt: m.receivedAt,
+        from: m.from,
+        to: JSON.parse(m.toJson) as string[],
+        subject: m.subject,
+        text: m.text,
+        html: m.html,
+        messageId: m.messageId,
+        sizeBytes: m.rawSizeBytes,
+      })),
+    });
+  });
+
+  return router;
+}
