@@ -1,0 +1,61 @@
+/**
+ * `npm run -s cli -- viscosity --epsilon-k E --sigma-angstrom S --molar-mass M --temperatures 200,300 --json`
+ * Dilute-gas viscosity of a Lennard-Jones 12-6 gas, first Chapman–Enskog approximation (shared/physics/viscosity.ts).
+ * Prints { rows: [{ temperatureK, viscosityMicroPaS }], higherOrderCorrection }.
+ */
+import { parseArgs } from 'node:util';
+import { VISCOSITY_HIGHER_ORDER_CORRECTION, viscosityWithGradient } from '../../shared/physics/viscosity';
+
+const USAGE = 'usage: viscosity --epsilon-k <K> --sigma-angstrom <Å> --molar-mass <g/mol> --temperatures <T1,T2,…> --json';
+
+/** A flag value as a finite number > 0, or an error that names the flag. */
+function positiveFlag(name: string, raw: string | undefined): number {
+  if (raw === undefined) throw new Error(`missing required flag --${name}; ${USAGE}`);
+  const value = Number(raw);
+  if (raw.trim() === '' || !Number.isFinite(value) || value <= 0) {
+    throw new Error(`--${name} must be a finite number > 0, got "${raw}"`);
+  }
+  return value;
+}
+
+export async function run(argv: string[]): Promise<unknown> {
+  let values: Record<string, string | boolean | undefined>;
+  try {
+    ({ values } = parseArgs({
+      args: argv,
+      strict: true,
+      allowPositionals: false,
+      options: {
+        'epsilon-k': { type: 'string' },
+        'sigma-angstrom': { type: 'string' },
+        'molar-mass': { type: 'string' },
+        temperatures: { type: 'string' },
+        json: { type: 'boolean' },
+      },
+    }));
+  } catch (err) {
+    throw new Error(`${err instanceof Error ? err.message : String(err)}; ${USAGE}`);
+  }
+  const epsilonK = positiveFlag('epsilon-k', values['epsilon-k'] as string | undefined);
+  const sigmaAngstrom = positiveFlag('sigma-angstrom', values['sigma-angstrom'] as string | undefined);
+  const molarMassGPerMol = positiveFlag('molar-mass', values['molar-mass'] as string | undefined);
+  const raw = values.temperatures as string | undefined;
+  if (raw === undefined) throw new Error(`missing required flag --temperatures; ${USAGE}`);
+  const temperatures = raw.split(',').map((s) => {
+    const p = s.trim();
+    const value = Number(p);
+    if (p === '' || !Number.isFinite(value) || value <= 0) {
+      throw new Error(`--temperatures must be a comma-separated list of finite numbers > 0, got "${raw}"`);
+    }
+    return value;
+  });
+  const rows = temperatures.map((temperatureK) => {
+    try {
+      const p = viscosityWithGradient(temperatureK, epsilonK, sigmaAngstrom, molarMassGPerMol);
+      return { temperatureK, viscosityMicroPaS: p.viscosityMicroPaS };
+    } catch (err) {
+      throw new Error(`--temperatures ${temperatureK}: ${err instanceof Error ? err.message : String(err)}`);
+    }
+  });
+  return { rows, higherOrderCorrection: VISCOSITY_HIGHER_ORDER_CORRECTION };
+}
