@@ -15,7 +15,7 @@
  * singularity there, which is made a breakpoint of the b integration. The same approach (substitution
  * plus adaptive quadrature to a prescribed accuracy) is that of O'Hara & Smith, J. Comput. Phys. 5, 328 (1970).
  *
- * The exact routines take roughly a second; omega11/omega22/omega22Derivative interpolate the table
+ * The exact routines take about 1 s (T* > 10) to 10 s (T* < 1), relative accuracy about 1e-6; omega11/omega22/omega22Derivative interpolate the table
  * precomputed by scripts/generate-collision-table.ts (cubic Hermite in ln T* with the exact node derivatives).
  */
 import { integrateVector, type QuadratureOptions } from './quadrature';
@@ -331,12 +331,12 @@ export function collisionIntegralsExact(tStar: number): CollisionIntegralPoint {
   };
 }
 
-/** Ω^(1,1)*(T*) from the definition (slow: about a second). */
+/** Ω^(1,1)*(T*) from the definition (slow: seconds). */
 export function omega11Exact(tStar: number): number {
   return collisionIntegralsExact(tStar).omega11;
 }
 
-/** Ω^(2,2)*(T*) from the definition (slow: about a second). */
+/** Ω^(2,2)*(T*) from the definition (slow: seconds). */
 export function omega22Exact(tStar: number): number {
   return collisionIntegralsExact(tStar).omega22;
 }

@@ -17,6 +17,18 @@ describe('Chapman–Enskog dilute-gas viscosity (first approximation)', () => {
     }
   });
 
+  it('equals the dilute-gas term of Lemmon & Jacobsen (Int. J. Thermophys. 25, 21, 2004): η0 = 0.0266958 √(MT)/(σ²Ω) µPa·s, σ in nm', () => {
+    // Same Chapman–Enskog expression with the constant evaluated by the authors (quoted on the ASCEND FPROPS viscosity page).
+    for (const [T, e, s, M] of [
+      [300, 122.4, 3.432, 39.948],
+      [1000, 98.94, 3.656, 28.013],
+    ]) {
+      const sigmaNm = s / 10;
+      const lj = (0.0266958 * Math.sqrt(M * T)) / (sigmaNm * sigmaNm * omega22(T / e));
+      expect(rel(viscosityWithGradient(T, e, s, M).viscosityMicroPaS, lj)).toBeLessThan(1e-5);
+    }
+  });
+
   it('CO2 at 300 K with σ = 3.996 Å, ε/k = 190 K gives ≈ 14.9 µPa·s; measured 15.0 (BSL 2nd ed. Example 1.4-1, from memory)', () => {
     const eta = viscosityWithGradient(300, 190, 3.996, 44.01).viscosityMicroPaS;
     expect(eta).toBeGreaterThan(14.7);
