@@ -12,12 +12,14 @@ import { FitCurves } from '@/features/fits/components/fit-curves';
 import { FitStatusBadge } from '@/features/fits/components/fit-status-badge';
 import { DatasetStatsTable, ParameterTable } from '@/features/fits/components/parameter-table';
 import { WhatIfPanel } from '@/features/fits/components/what-if-panel';
+import { DraftParameterSetPanel } from '@/features/parameter-sets/components/draft-panel';
 
 export function FitDetailRoute() {
   const id = Number(useParams().fitId);
   const fit = useFit(id);
   const cancel = useCancelFit(id);
   const canRun = useCan('fit:run');
+  const canDraft = useCan('parameterSet:draft');
   const [units, setUnits] = useState<{ energy: EnergyUnit; length: LengthUnit }>({ energy: 'K', length: 'Å' });
   if (fit.isPending) return <LoadingState />;
   if (fit.isError) return <ErrorState error={fit.error} onRetry={() => fit.refetch()} />;
@@ -83,6 +85,7 @@ export function FitDetailRoute() {
           <Panel title="What if?">
             <WhatIfPanel result={r} names={names} context={context} weights={weights} />
           </Panel>
+          {canDraft && <DraftParameterSetPanel fitId={f.id} temperaturesK={r.residuals.map((p) => p.temperatureK)} />}
           <Panel title="Record">
             <dl className="grid grid-cols-[max-content_1fr] gap-x-4 gap-y-1 text-sm">
               <dt className="text-ink-faint">Run by</dt><dd>{f.createdByName}, {new Date(f.createdAt).toLocaleString()}</dd>
