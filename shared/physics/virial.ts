@@ -36,7 +36,7 @@ function requireReducedTemperature(tStar: number): void {
  * ∫_0^∞ g(x) dx split at x = 1 (u = 0) and x = 2^{1/6} (minimum); the tail uses x = 2^{1/6}/t,
  * dx = 2^{1/6} dt/t², which turns the algebraic decay of the integrands into a polynomial in t.
  */
-function integrateSplit(g: (x: number) => number[], components: number): number[] {
+function integrateSplit(g: (x: number) => number[], components: number, tStar: number): number[] {
   const inner = integrateVector(g, 0, 1, components, QUAD);
   const well = integrateVector(g, 1, X_MIN, components, QUAD);
   const tail = integrateVector(
@@ -51,6 +51,10 @@ function integrateSplit(g: (x: number) => number[], components: number): number[
     components,
     QUAD,
   );
+  if (!inner.converged || !well.converged || !tail.converged) {
+    // Not seen anywhere in the supported range; fail loudly rather than hand a fit a rough value.
+    throw new Error(`virial quadrature did not reach its tolerance at tStar = ${tStar}`);
+  }
   return inner.values.map((v, c) => v + well.values[c] + tail.values[c]);
 }
 
@@ -69,7 +73,7 @@ function classicalReduced(tStar: number): [number, number] {
     const boltz = Math.exp(-u * invT);
     // expm1 keeps full precision in the tail where |u/T*| ≪ 1.
     return [-3 * Math.expm1(-u * invT) * x2, -3 * boltz * u * invT * invT * x2];
-  }, 2);
+  }, 2, tStar);
   return [b, db];
 }
 
@@ -81,7 +85,7 @@ function quantumReduced(tStar: number): [number, number] {
     // (d(u*)/dx)² x² = (x d(u*)/dx)²
     const k = Math.exp(-u * invT) * xDu * xDu;
     return [k, k * u * invT * invT];
-  }, 2);
+  }, 2, tStar);
   const c = 1 / (16 * Math.PI * Math.PI);
   const t3 = tStar * tStar * tStar;
   return [(c * i0) / t3, (c * i1) / t3 - (3 * c * i0) / (t3 * tStar)];
