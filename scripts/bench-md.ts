@@ -42,6 +42,8 @@ const out = {
   atomStepsPerSecond: r.atomStepsPerSecond,
   energyDriftPerAtom: r.energyDriftPerAtom,
   wallSeconds: r.wallSeconds,
+  cpuSeconds: r.cpuSeconds,
+  atomStepsPerCpuSecond: (r.atoms * r.steps) / r.cpuSeconds,
   listBuilds: r.listBuilds,
   initialPotentialTruncatedPerAtom: r.initial.potentialTruncatedPerAtom,
   initialPressureTruncated: r.initial.pressureTruncated,

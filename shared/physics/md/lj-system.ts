@@ -350,70 +350,16 @@ export class LjSystem {
     this.force = nf;
     this.ref.set(np);
 
-    const x = np;
-    const rlist2 = this.rlist2;
-    const rpc = this.rangesPerCell;
-    const rangeLo = this.rangeLo;
-    const rangeHi = this.rangeHi;
-    const rangeShift = this.rangeShift;
-    const rangeZero = this.rangeZero;
-    const start = this.nbStart;
-    const mid = this.nbMid;
     const maxCandidates = (this.stencilCells + 1) * maxOcc;
-    let list = this.nbList;
-    let p = 0;
-    for (let c = 0; c < nc3; c++) {
-      const own0 = cellStart[c];
-      const own1 = cellStart[c + 1];
-      const e0 = c * rpc;
-      const eZero = e0 + rangeZero[c];
-      const eEnd = e0 + rpc;
-      for (let i = own0; i < own1; i++) {
-        if (p + maxCandidates > list.length) {
-          this.ensureCapacity(p + maxCandidates + (n - i) * 48);
-          list = this.nbList;
-        }
-        const xi = x[3 * i];
-        const yi = x[3 * i + 1];
-        const zi = x[3 * i + 2];
-        start[i] = p;
-        for (let j = i + 1; j < own1; j++) {
-          const dx = xi - x[3 * j];
-          const dy = yi - x[3 * j + 1];
-          const dz = zi - x[3 * j + 2];
-          list[p] = j;
-          p += dx * dx + dy * dy + dz * dz < rlist2 ? 1 : 0;
-        }
-        for (let e = e0; e < eZero; e++) {
-          const jEnd = cellStart[rangeHi[e]];
-          for (let j = cellStart[rangeLo[e]]; j < jEnd; j++) {
-            const dx = xi - x[3 * j];
-            const dy = yi - x[3 * j + 1];
-            const dz = zi - x[3 * j + 2];
-            list[p] = j;
-            p += dx * dx + dy * dy + dz * dz < rlist2 ? 1 : 0;
-          }
-        }
-        mid[i] = p;
-        for (let e = eZero; e < eEnd; e++) {
-          const lo = rangeLo[e];
-          const hi = rangeHi[e];
-          if (lo >= hi) continue;
-          const xs = xi - rangeShift[3 * e];
-          const ys = yi - rangeShift[3 * e + 1];
-          const zs = zi - rangeShift[3 * e + 2];
-          const jEnd = cellStart[hi];
-          for (let j = cellStart[lo]; j < jEnd; j++) {
-            const dx = xs - x[3 * j];
-            const dy = ys - x[3 * j + 1];
-            const dz = zs - x[3 * j + 2];
-            list[p] = j;
-            p += dx * dx + dy * dy + dz * dz < rlist2 ? 1 : 0;
-          }
-        }
-      }
+    this.ensureCapacity(Math.max(n * 48, maxCandidates));
+    for (;;) {
+      const p = findPairs(
+        np, this.rlist2, nc3, this.rangesPerCell, cellStart, this.rangeLo, this.rangeHi, this.rangeShift, this.rangeZero,
+        this.nbStart, this.nbMid, this.nbList, maxCandidates,
+      );
+      if (p >= 0) break;
+      this.ensureCapacity(this.nbList.length * 2);
     }
-    start[n] = p;
   }
 
   /** All pairs with minimum image, for boxes too small for a 5-cell grid. */
@@ -443,7 +389,7 @@ export class LjSystem {
         if (dz > h) dz -= L;
         else if (dz < -h) dz += L;
         list[p] = j;
-        p += dx * dx + dy * dy + dz * dz < rlist2 ? 1 : 0;
+        p += +(dx * dx + dy * dy + dz * dz < rlist2);
       }
     }
     this.nbStart[n] = p;
@@ -477,47 +423,41 @@ export class LjSystem {
         const dy = yi - x[j3 + 1];
         const dz = zi - x[j3 + 2];
         const r2 = dx * dx + dy * dy + dz * dz;
-        if (r2 < rc2) {
-          const ir2 = 1 / r2;
-          const ir6 = ir2 * ir2 * ir2;
-          const ff = 48 * ir2 * ir6 * (ir6 - 0.5);
-          const fx = ff * dx;
-          const fy = ff * dy;
-          const fz = ff * dz;
-          fxi += fx;
-          fyi += fy;
-          fzi += fz;
-          f[j3] -= fx;
-          f[j3 + 1] -= fy;
-          f[j3 + 2] -= fz;
-        }
+        // Branch-free cut: pairs beyond rc (about 30 % of the list) get a zero force instead of a mispredicted jump.
+        const ir2 = 1 / r2;
+        const ir6 = ir2 * ir2 * ir2;
+        const ff = +(r2 < rc2) * (48 * ir2 * ir6 * (ir6 - 0.5));
+        const fx = ff * dx;
+        const fy = ff * dy;
+        const fz = ff * dz;
+        fxi += fx;
+        fyi += fy;
+        fzi += fz;
+        f[j3] -= fx;
+        f[j3 + 1] -= fy;
+        f[j3 + 2] -= fz;
       }
       for (let k = kMid; k < kEnd; k++) {
         const j3 = 3 * list[k];
         let dx = xi - x[j3];
         let dy = yi - x[j3 + 1];
         let dz = zi - x[j3 + 2];
-        if (dx > h) dx -= L;
-        else if (dx < -h) dx += L;
-        if (dy > h) dy -= L;
-        else if (dy < -h) dy += L;
-        if (dz > h) dz -= L;
-        else if (dz < -h) dz += L;
+        dx -= L * (+(dx > h) - +(dx < -h));
+        dy -= L * (+(dy > h) - +(dy < -h));
+        dz -= L * (+(dz > h) - +(dz < -h));
         const r2 = dx * dx + dy * dy + dz * dz;
-        if (r2 < rc2) {
-          const ir2 = 1 / r2;
-          const ir6 = ir2 * ir2 * ir2;
-          const ff = 48 * ir2 * ir6 * (ir6 - 0.5);
-          const fx = ff * dx;
-          const fy = ff * dy;
-          const fz = ff * dz;
-          fxi += fx;
-          fyi += fy;
-          fzi += fz;
-          f[j3] -= fx;
-          f[j3 + 1] -= fy;
-          f[j3 + 2] -= fz;
-        }
+        const ir2 = 1 / r2;
+        const ir6 = ir2 * ir2 * ir2;
+        const ff = +(r2 < rc2) * (48 * ir2 * ir6 * (ir6 - 0.5));
+        const fx = ff * dx;
+        const fy = ff * dy;
+        const fz = ff * dz;
+        fxi += fx;
+        fyi += fy;
+        fzi += fz;
+        f[j3] -= fx;
+        f[j3 + 1] -= fy;
+        f[j3 + 2] -= fz;
       }
       f[i3] += fxi;
       f[i3 + 1] += fyi;
@@ -525,13 +465,14 @@ export class LjSystem {
     }
   }
 
-  /** Forces plus the pair sums (energy, virial, pairs inside rc) in one pass. */
+  /** Forces plus the pair sums (energy, virial, pairs inside rc) in one pass; same branch-free cut as computeForces. */
   computeForcesAndEnergy(): PairSums {
     const n = this.n;
     const x = this.pos;
     const f = this.force;
     const list = this.nbList;
     const start = this.nbStart;
+    const mid = this.nbMid;
     const rc2 = this.rc2;
     const L = this.box;
     const h = this.halfBox;
@@ -547,36 +488,35 @@ export class LjSystem {
       let fxi = 0;
       let fyi = 0;
       let fzi = 0;
+      const kMid = mid[i];
       const kEnd = start[i + 1];
       for (let k = start[i]; k < kEnd; k++) {
         const j3 = 3 * list[k];
         let dx = xi - x[j3];
         let dy = yi - x[j3 + 1];
         let dz = zi - x[j3 + 2];
-        if (dx > h) dx -= L;
-        else if (dx < -h) dx += L;
-        if (dy > h) dy -= L;
-        else if (dy < -h) dy += L;
-        if (dz > h) dz -= L;
-        else if (dz < -h) dz += L;
+        // Partners after nbMid[i] were found across a box face: apply the minimum image (no-op for the others).
+        const img = +(k >= kMid);
+        dx -= img * L * (+(dx > h) - +(dx < -h));
+        dy -= img * L * (+(dy > h) - +(dy < -h));
+        dz -= img * L * (+(dz > h) - +(dz < -h));
         const r2 = dx * dx + dy * dy + dz * dz;
-        if (r2 < rc2) {
-          const ir2 = 1 / r2;
-          const ir6 = ir2 * ir2 * ir2;
-          const ff = 48 * ir2 * ir6 * (ir6 - 0.5);
-          u += 4 * ir6 * (ir6 - 1);
-          w += ff * r2;
-          pairs++;
-          const fx = ff * dx;
-          const fy = ff * dy;
-          const fz = ff * dz;
-          fxi += fx;
-          fyi += fy;
-          fzi += fz;
-          f[j3] -= fx;
-          f[j3 + 1] -= fy;
-          f[j3 + 2] -= fz;
-        }
+        const inside = +(r2 < rc2);
+        const ir2 = 1 / r2;
+        const ir6 = ir2 * ir2 * ir2;
+        const ff = inside * (48 * ir2 * ir6 * (ir6 - 0.5));
+        u += inside * (4 * ir6 * (ir6 - 1));
+        w += ff * r2;
+        pairs += inside;
+        const fx = ff * dx;
+        const fy = ff * dy;
+        const fz = ff * dz;
+        fxi += fx;
+        fyi += fy;
+        fzi += fz;
+        f[j3] -= fx;
+        f[j3 + 1] -= fy;
+        f[j3 + 2] -= fz;
       }
       f[i3] += fxi;
       f[i3 + 1] += fyi;
@@ -649,4 +589,74 @@ export class LjSystem {
       this.listScale = this.savedScale;
     }
   }
+}
+
+/**
+ * Cell-ordered half-list search (atoms already sorted by cell, so cell c holds atoms cellStart[c] … cellStart[c+1]).
+ * Candidates are appended branch-free: the slot is always written and the count advances only when accepted.
+ * Returns the number of pairs, or −1 if the list array ran short (the caller grows it and retries).
+ */
+function findPairs(
+  x: Float64Array,
+  rlist2: number,
+  nc3: number,
+  rpc: number,
+  cellStart: Int32Array,
+  rangeLo: Int32Array,
+  rangeHi: Int32Array,
+  rangeShift: Float64Array,
+  rangeZero: Int32Array,
+  start: Int32Array,
+  mid: Int32Array,
+  list: Int32Array,
+  maxCandidates: number,
+): number {
+  const cap = list.length;
+  let p = 0;
+  for (let c = 0; c < nc3; c++) {
+    const own1 = cellStart[c + 1];
+    const e0 = c * rpc;
+    const eZero = e0 + rangeZero[c];
+    const eEnd = e0 + rpc;
+    for (let i = cellStart[c]; i < own1; i++) {
+      if (p + maxCandidates > cap) return -1;
+      const xi = x[3 * i];
+      const yi = x[3 * i + 1];
+      const zi = x[3 * i + 2];
+      start[i] = p;
+      for (let j = i + 1; j < own1; j++) {
+        const dx = xi - x[3 * j];
+        const dy = yi - x[3 * j + 1];
+        const dz = zi - x[3 * j + 2];
+        list[p] = j;
+        p += +(dx * dx + dy * dy + dz * dz < rlist2);
+      }
+      for (let e = e0; e < eZero; e++) {
+        const jEnd = cellStart[rangeHi[e]];
+        for (let j = cellStart[rangeLo[e]]; j < jEnd; j++) {
+          const dx = xi - x[3 * j];
+          const dy = yi - x[3 * j + 1];
+          const dz = zi - x[3 * j + 2];
+          list[p] = j;
+          p += +(dx * dx + dy * dy + dz * dz < rlist2);
+        }
+      }
+      mid[i] = p;
+      for (let e = eZero; e < eEnd; e++) {
+        const jEnd = cellStart[rangeHi[e]];
+        const xs = xi - rangeShift[3 * e];
+        const ys = yi - rangeShift[3 * e + 1];
+        const zs = zi - rangeShift[3 * e + 2];
+        for (let j = cellStart[rangeLo[e]]; j < jEnd; j++) {
+          const dx = xs - x[3 * j];
+          const dy = ys - x[3 * j + 1];
+          const dz = zs - x[3 * j + 2];
+          list[p] = j;
+          p += +(dx * dx + dy * dy + dz * dz < rlist2);
+        }
+      }
+    }
+  }
+  start[x.length / 3] = p;
+  return p;
 }
