@@ -29,6 +29,8 @@ export const router = createBrowserRouter([
           { path: 'simulations', lazy: () => import('./routes/simulations').then((m) => ({ Component: m.SimulationsRoute })) },
           { path: 'simulations/:simulationId', lazy: () => import('./routes/simulation-detail').then((m) => ({ Component: m.SimulationDetailRoute })) },
           { path: 'people', lazy: () => import('./routes/people').then((m) => ({ Component: m.PeopleRoute })) },
+          { path: 'mailbox', lazy: () => import('./routes/mailbox').then((m) => ({ Component: m.MailboxRoute })) },
+          { path: 'audit', lazy: () => import('./routes/audit-trail').then((m) => ({ Component: m.AuditTrailRoute })) },
           { path: 'account', lazy: () => import('./routes/account').then((m) => ({ Component: m.AccountRoute })) },
           { path: '*', element: <NotFoundRoute /> },
         ],

@@ -13,4 +13,6 @@ export const NAV_ITEMS: NavItem[] = [
   { to: '/simulations', label: 'Simulations', policy: 'simulation:read' },
   { to: '/review', label: 'Review desk', policy: 'parameterSet:review' },
   { to: '/people', label: 'People', policy: 'people:manage' },
+  { to: '/audit', label: 'Audit trail', policy: 'audit:read' },
+  { to: '/mailbox', label: 'Mailbox', policy: 'mailbox:read' },
 ];

@@ -9,6 +9,7 @@ import { useCan } from '@/lib/authorization';
 import type { DatasetSummary } from '@/features/datasets/api/datasets';
 import { useSubstance, useUpdateSubstance } from '@/features/substances/api/substances';
 import { SubstanceForm } from '@/features/substances/components/substance-form';
+import { FollowButton } from '@/features/follows/components/follow-button';
 import { SubstanceParameterSetsPanel } from '@/features/parameter-sets/components/substance-parameter-sets';
 
 const col = createColumnHelper<DatasetSummary>();
@@ -40,6 +41,7 @@ export function SubstanceDetailRoute() {
         subtitle={<span className="num">{[s.formula, `M = ${s.molarMassGPerMol} g/mol`].filter(Boolean).join(' · ')}</span>}
         action={
           <div className="flex items-center gap-3">
+            <FollowButton substanceId={id} substanceName={s.name} />
             <Link to={`/substances/${id}/fits`} className="rounded-md border border-rule bg-paper-raised px-3.5 py-1.5 text-sm font-semibold hover:bg-paper-deep">Fits</Link>
             {canUpload && <Link to={`/substances/${id}/upload`} className="rounded-md bg-copper px-3.5 py-1.5 text-sm font-semibold text-white shadow-sm hover:bg-copper-dark">Upload measurements</Link>}
           </div>

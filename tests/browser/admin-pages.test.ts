@@ -1,0 +1,118 @@
+import path from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { BrowserContext, Locator } from 'playwright-core';
+import { openDatabase } from '../../server/db/database';
+import { mailBody, queueMail } from '../../server/features/mail/mail.service';
+import { chromiumOrSkip, openBrowser, screenshot, signIn, startApp, type RunningApp } from './harness';
+
+const { available } = chromiumOrSkip();
+
+const SUBJECT = 'Quillgas QG-1 v1 — submitted for review';
+
+async function expectVisible(locator: Locator) {
+  await locator.waitFor({ state: 'visible' });
+  expect(await locator.isVisible()).toBe(true);
+}
+
+describe.skipIf(!available)('admin pages in Chromium: Mailbox and Audit trail', () => {
+  let app: RunningApp;
+  let browser: { context: BrowserContext; close: () => Promise<void> };
+  beforeAll(async () => {
+    app = await startApp();
+    browser = await openBrowser();
+    // Queue a mail in the running app's database; its own sender delivers it over SMTP to its local service.
+    const handle = openDatabase(path.join(app.dir, 'app.sqlite'));
+    try {
+      await queueMail(handle.db, {
+        to: ['reviewer@demo.epsigma.test'],
+        subject: SUBJECT,
+        ...mailBody(['Milo Carraway submitted v1 of Quillgas QG-1 for review: ε/k_B = 152.3 ± 0.8 K, σ = 3.71 ± 0.01 Å.']),
+        link: '/substances',
+        reason: 'browser-test',
+      });
+      for (let i = 0; i < 100; i++) {
+        const got = await handle.db.selectFrom('mailboxMessage').select('id').where('subject', '=', SUBJECT).executeTakeFirst();
+        if (got) break;
+        await new Promise((r) => setTimeout(r, 200));
+      }
+    } finally {
+      await handle.close();
+    }
+  });
+  afterAll(async () => {
+    await browser?.close();
+    await app?.stop();
+  });
+
+  it('lets a modeller follow a substance from its page', async () => {
+    const page = await browser.context.newPage();
+    await signIn(page, app.url, 'modeller@demo.epsigma.test');
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Substances' }).click();
+    await page.getByRole('table').getByRole('link').first().click();
+    const follow = page.getByRole('button', { name: 'Follow', exact: false });
+    await expectVisible(follow);
+    await page.getByRole('button', { name: /^\+\s*Follow$/ }).click();
+    await expectVisible(page.getByRole('button', { name: /Following/, pressed: true }));
+    await screenshot(page, 'substance-followed');
+    await page.close();
+  });
+
+  it('shows the admin the mailbox with the delivered message and its text part', async () => {
+    const page = await browser.context.newPage();
+    await signIn(page, app.url, 'admin@demo.epsigma.test');
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Mailbox' }).click();
+    await expectVisible(page.getByRole('heading', { name: 'Mailbox', level: 1 }));
+    const list = page.getByRole('list', { name: 'Messages' });
+    await expectVisible(list.getByRole('button', { name: new RegExp(SUBJECT) }));
+    await list.getByRole('button', { name: new RegExp(SUBJECT) }).click();
+    const reader = page.getByRole('article', { name: `Message ${SUBJECT}` });
+    await expectVisible(reader.getByText('reviewer@demo.epsigma.test'));
+    expect(await reader.locator('pre').textContent()).toContain('ε/k_B = 152.3 ± 0.8 K, σ = 3.71 ± 0.01 Å');
+    expect(await reader.locator('pre').textContent()).toMatch(/Open in Epsigma: http:\/\/127\.0\.0\.1:\d+\/substances/);
+    await screenshot(page, 'mailbox-text');
+
+    await reader.getByRole('button', { name: 'HTML' }).click();
+    const frame = reader.locator('iframe');
+    await expectVisible(frame);
+    expect(await frame.getAttribute('sandbox')).toBe('');
+    await expectVisible(page.frameLocator('iframe').getByRole('link', { name: 'Open in Epsigma' }));
+    await screenshot(page, 'mailbox-html');
+
+    await page.getByLabel('Recipient contains').fill('nobody-here@');
+    await expectVisible(page.getByText('No mail to that address'));
+    await page.close();
+  });
+
+  it('shows the admin the audit trail and filters it by action', async () => {
+    const page = await browser.context.newPage();
+    await signIn(page, app.url, 'admin@demo.epsigma.test');
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Audit trail' }).click();
+    await expectVisible(page.getByRole('heading', { name: 'Audit trail', level: 1 }));
+    const table = page.getByRole('table');
+    await expectVisible(table.getByText('substance.followed'));
+    await screenshot(page, 'audit-trail');
+
+    await page.getByLabel('Action').selectOption('substance.followed');
+    await page.getByRole('button', { name: 'Apply filters' }).click();
+    await page.waitForURL(/action=substance\.followed/);
+    await expectVisible(table.getByText('modeller@demo.epsigma.test'));
+    const actions = (await table.locator('tbody tr td:nth-child(4)').allTextContents()).map((s) => s.trim());
+    expect(actions.length).toBeGreaterThan(0);
+    expect(new Set(actions)).toEqual(new Set(['substance.followed']));
+    await screenshot(page, 'audit-trail-filtered');
+    await page.close();
+  });
+
+  it('hides Mailbox and Audit trail from other roles', async () => {
+    const page = await browser.context.newPage();
+    await signIn(page, app.url, 'reviewer@demo.epsigma.test');
+    const main = page.getByRole('navigation', { name: 'Main' });
+    await main.getByRole('link', { name: 'Workbench' }).waitFor();
+    const labels = (await main.getByRole('link').allTextContents()).map((s) => s.trim());
+    expect(labels).not.toContain('Mailbox');
+    expect(labels).not.toContain('Audit trail');
+    await page.goto(`${app.url}/mailbox`);
+    await expectVisible(page.getByText('Not allowed for your roles'));
+    await page.close();
+  });
+});
