@@ -399,6 +399,28 @@ export function omega22Derivative(tStar: number): number {
   return interpolate(tStar, COL.omega22, COL.dOmega22)[1];
 }
 
+/**
+ * Ω^(2,2)* with its first and second T*-derivatives from the interpolant (second derivative of the
+ * Hermite cubic: piecewise linear in ln T*, continuous to about 1e-4 relative at the nodes).
+ */
+export function omega22WithDerivatives(tStar: number): { omega22: number; dOmega22dT: number; d2Omega22dT2: number } {
+  const [value, dValueDt] = interpolate(tStar, COL.omega22, COL.dOmega22);
+  const u = Math.log(tStar);
+  let i = Math.floor((u - LN_T_MIN) / LN_STEP);
+  if (i < 0) i = 0;
+  if (i > ROWS.length - 2) i = ROWS.length - 2;
+  const a = ROWS[i];
+  const b = ROWS[i + 1];
+  const h = b[0] - a[0];
+  const t = (u - a[0]) / h;
+  const col = COL.omega22;
+  const slope = COL.dOmega22;
+  const d2du2 =
+    ((12 * t - 6) * a[col] + (-12 * t + 6) * b[col]) / (h * h) + ((6 * t - 4) * a[slope] + (6 * t - 2) * b[slope]) / h;
+  const dValueDu = dValueDt * tStar;
+  return { omega22: value, dOmega22dT: dValueDt, d2Omega22dT2: (d2du2 - dValueDu) / (tStar * tStar) };
+}
+
 /** dΩ^(1,1)*∕dT*, the derivative of the interpolant (consistent with omega11). */
 export function omega11Derivative(tStar: number): number {
   return interpolate(tStar, COL.omega11, COL.dOmega11)[1];

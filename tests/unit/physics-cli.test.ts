@@ -102,6 +102,20 @@ describe('cli viscosity', () => {
     expect(json.higherOrderCorrection).toBe('none (first Chapman–Enskog approximation)');
   });
 
+  it('applies Kihara\'s factor with --higher-order-correction kihara and rejects other values', async () => {
+    const args = ['--epsilon-k', '122.4', '--sigma-angstrom', '3.432', '--molar-mass', '39.948', '--temperatures', '1500'];
+    const out = await cli('viscosity', ...args, '--higher-order-correction', 'kihara', '--json');
+    expect(out.code).toBe(0);
+    const json = JSON.parse(out.stdout) as { rows: { viscosityMicroPaS: number }[]; higherOrderCorrection: string };
+    expect(json.rows[0].viscosityMicroPaS).toBe(
+      viscosityWithGradient(1500, 122.4, 3.432, 39.948, { higherOrderCorrection: 'kihara' }).viscosityMicroPaS,
+    );
+    expect(json.higherOrderCorrection).toMatch(/Kihara/);
+    const bad = await cli('viscosity', ...args, '--higher-order-correction', 'full', '--json');
+    expect(bad.code).not.toBe(0);
+    expect(bad.stderr).toMatch(/--higher-order-correction/);
+  });
+
   it('rejects a missing --molar-mass with a message naming it', async () => {
     const out = await cli('viscosity', '--epsilon-k', '122.4', '--sigma-angstrom', '3.432', '--temperatures', '300', '--json');
     expect(out.code).not.toBe(0);
