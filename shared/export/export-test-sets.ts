@@ -1,0 +1,59 @@
+/**
+ * Parameter sets used by the export tests. Invented values of the Quillmoor demo scenario (not published
+ * data); the tests check conversions and formats, not these numbers.
+ */
+import type { ExportableParameterSet } from './parameter-set-export';
+
+export const argonShifted: ExportableParameterSet = {
+  id: 12,
+  version: 3,
+  substance: { id: 1, name: 'Argon', formula: 'Ar', molarMassGPerMol: 39.948 },
+  model: 'lj-12-6',
+  epsilonK: 119.6,
+  sigmaAngstrom: 3.405,
+  stdErr: { epsilonK: 0.4, sigmaAngstrom: 0.003 },
+  correlation: -0.82,
+  scheme: 'truncated-shifted',
+  cutoffSigma: 2.5,
+  validity: { temperatureMinK: 90, temperatureMaxK: 300, pressureMinMPa: 0.1, pressureMaxMPa: 10 },
+  approvedAt: '2026-11-30T10:00:00Z',
+  approvedBy: 'R. Ostrova',
+  state: 'approved',
+  fitId: 7,
+  datasets: [
+    { id: 4, version: 2, kind: 'b2', name: 'Argon B2, Quillmoor cell A', source: 'Quillmoor lab notebook 3', doi: null },
+    { id: 5, version: 1, kind: 'viscosity', name: 'Argon dilute-gas viscosity', source: null, doi: '10.0000/quillmoor.example.5' },
+  ],
+};
+
+export const kryptonTail: ExportableParameterSet = {
+  ...argonShifted,
+  id: 15,
+  version: 1,
+  substance: { id: 2, name: 'Krypton', formula: 'Kr', molarMassGPerMol: 83.798 },
+  epsilonK: 171,
+  sigmaAngstrom: 3.6,
+  stdErr: { epsilonK: null, sigmaAngstrom: null },
+  correlation: null,
+  scheme: 'truncated-tail',
+  cutoffSigma: 3,
+  validity: { temperatureMinK: 120, temperatureMaxK: 400 },
+  fitId: 9,
+  datasets: [],
+};
+
+export const methaneFull: ExportableParameterSet = {
+  ...argonShifted,
+  id: 21,
+  version: 1,
+  substance: { id: 3, name: 'Methane (united atom)', formula: 'CH4', molarMassGPerMol: 16.043 },
+  epsilonK: 148.6,
+  sigmaAngstrom: 3.758,
+  scheme: 'full-potential',
+  cutoffSigma: null,
+  validity: { temperatureMinK: 200, temperatureMaxK: 500, pressureMinMPa: null, pressureMaxMPa: null },
+  fitId: 11,
+};
+
+/** Same scheme and cutoff as argonShifted, so a mixture of the two is consistent. */
+export const kryptonShifted: ExportableParameterSet = { ...kryptonTail, id: 16, scheme: 'truncated-shifted', cutoffSigma: 2.5, validity: { temperatureMinK: 120, temperatureMaxK: 400, pressureMinMPa: 0.5, pressureMaxMPa: 20 } };
