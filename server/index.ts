@@ -18,6 +18,8 @@ export async function startServer() {
     const address = server.address();
     const port = typeof address === 'object' && address ? address.port : env.PORT;
     const url = `http://${env.HOST}:${port}`;
+    // Mail links need the real port when PORT=0; PUBLIC_URL, when set, always wins.
+    if (!env.PUBLIC_URL) ctx.mail.sender.setPublicUrl(url);
     console.log(`Epsigma is serving ${url} (database ${path.resolve(env.DATABASE_PATH)})`);
     if (seeded) console.log('Seeded the demo scenario into the empty database.');
     console.log(`Demo sign-ins (password from DEMO_PASSWORD${process.env.DEMO_PASSWORD ? '' : ', default "epsigma-demo-2026"'}):`);

@@ -37,16 +37,23 @@ export class MailSender {
   private timer: NodeJS.Timeout | null = null;
   private running: Promise<number> | null = null;
   private stopped = true;
+  private publicUrl: string;
 
   constructor(
     private readonly db: Db,
     private readonly options: MailSenderOptions,
   ) {
+    this.publicUrl = options.publicUrl;
     const timeouts = { connectionTimeout: 10_000, greetingTimeout: 10_000, socketTimeout: 20_000 };
     this.transport =
       typeof options.smtp === 'string'
         ? nodemailer.createTransport({ url: options.smtp, ...timeouts })
         : nodemailer.createTransport({ host: options.smtp.host, port: options.smtp.port, secure: false, ignoreTLS: true, ...timeouts });
+  }
+
+  /** Sets the base of links once the real address is known (PORT=0 picks the port only when listening). */
+  setPublicUrl(url: string): void {
+    this.publicUrl = url;
   }
 
   start(): void {
@@ -89,7 +96,7 @@ export class MailSender {
   private async sendDue(now: Date): Promise<number> {
     const rows = await dueOutboxRows(this.db, now);
     for (const row of rows) {
-      const link = row.link ? absoluteLink(row.link, this.options.publicUrl) : null;
+      const link = row.link ? absoluteLink(row.link, this.publicUrl) : null;
       try {
         const info = await this.transport.sendMail({
           from: this.options.from,

@@ -1,12 +1,15 @@
 import { useState } from 'react';
 import type { MailboxMessage } from '../api/mailbox';
 
+/** A plain frame style so the HTML part reads like the rest of the page; the message's own styles still apply after it. */
+const FRAME_HEAD = '<!doctype html><meta charset="utf-8"><style>body{font:15px/1.55 system-ui,sans-serif;color:#18223a;margin:12px}</style>';
+
 /** One message: headers, then the plain-text part or the HTML part in a sandboxed frame (no scripts, no same-origin access). */
 export function MailReader({ message }: { message: MailboxMessage }) {
   const [view, setView] = useState<'text' | 'html'>('text');
   const showHtml = view === 'html' && message.html !== null;
   return (
-    <article aria-label={`Message ${message.subject}`} className="flex h-full flex-col">
+    <article aria-label={`Message ${message.subject}`}>
       <header className="border-b border-rule pb-3">
         <h3 className="text-lg font-semibold">{message.subject || '(no subject)'}</h3>
         <dl className="mt-2 grid grid-cols-[auto_1fr] gap-x-3 gap-y-0.5 text-sm">
@@ -34,7 +37,7 @@ export function MailReader({ message }: { message: MailboxMessage }) {
         )}
       </header>
       {showHtml ? (
-        <iframe title={`HTML part of ${message.subject}`} sandbox="" srcDoc={message.html ?? ''} className="mt-3 min-h-80 w-full flex-1 rounded-md border border-rule bg-white" />
+        <iframe title={`HTML part of ${message.subject}`} sandbox="" srcDoc={FRAME_HEAD + (message.html ?? '')} className="mt-3 block h-80 w-full rounded-md border border-rule bg-white" />
       ) : (
         <pre className="mt-3 whitespace-pre-wrap break-words font-sans text-sm leading-relaxed">{message.text || '(no text part)'}</pre>
       )}
