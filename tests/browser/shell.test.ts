@@ -6,10 +6,10 @@ const { available } = chromiumOrSkip();
 
 /** What each demo role must (and must not) find in the main navigation. */
 const NAVIGATION: Record<string, { email: string; sees: string[]; doesNotSee: string[] }> = {
-  admin: { email: 'admin@demo.epsigma.test', sees: ['Workbench', 'People'], doesNotSee: [] },
-  modeller: { email: 'modeller@demo.epsigma.test', sees: ['Workbench', 'Substances'], doesNotSee: ['People'] },
-  reviewer: { email: 'reviewer@demo.epsigma.test', sees: ['Workbench', 'Substances'], doesNotSee: ['People'] },
-  consumer: { email: 'consumer@demo.epsigma.test', sees: ['Workbench'], doesNotSee: ['People', 'Substances'] },
+  admin: { email: 'admin@demo.epsigma.test', sees: ['Workbench', 'People'], doesNotSee: ['Review desk'] },
+  modeller: { email: 'modeller@demo.epsigma.test', sees: ['Workbench', 'Substances'], doesNotSee: ['People', 'Review desk'] },
+  reviewer: { email: 'reviewer@demo.epsigma.test', sees: ['Workbench', 'Substances', 'Review desk'], doesNotSee: ['People'] },
+  consumer: { email: 'consumer@demo.epsigma.test', sees: ['Workbench'], doesNotSee: ['People', 'Substances', 'Review desk'] },
 };
 
 describe.skipIf(!available)('app shell in Chromium', () => {

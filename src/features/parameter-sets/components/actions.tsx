@@ -54,7 +54,10 @@ function ReviewDecision({ set }: { set: ParameterSetDetail }) {
   return (
     <form className="grid gap-3" aria-label="Review decision" onSubmit={(e) => e.preventDefault()}>
       <Field label="Review comment" htmlFor="review-comment" error={missing ? 'A review needs a comment.' : undefined} hint="Required for either decision; the author receives it.">
-        <TextArea id="review-comment" rows={4} aria-invalid={missing} value={comment} onChange={(e) => setComment(e.target.value)} />
+        <TextArea id="review-comment" rows={4} aria-invalid={missing} value={comment} onChange={(e) => {
+          setComment(e.target.value);
+          if (e.target.value.trim()) setMissing(false);
+        }} />
       </Field>
       <FormError error={review.error} />
       <div className="flex flex-wrap gap-3">

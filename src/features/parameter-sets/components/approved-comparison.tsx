@@ -4,14 +4,16 @@ import { formatSignificant, formatWithUncertainty } from '@shared/format/numbers
 import { datasetDeviations } from '@shared/parameter-sets/compare';
 import type { ParameterSetSummary } from '../api/parameter-sets';
 
-const UNIT = { b2: 'cm³/mol', viscosity: 'µPa·s' } as const;
+const UNIT: Record<string, string> = { b2: 'cm³/mol', viscosity: 'µPa·s', density: 'kg/m³' };
 
 /** The change in units of the combined standard error, when both sets carry one. */
 function inSigmas(delta: number, a: number | null, b: number | null): string {
   if (a == null || b == null) return '';
   const combined = Math.hypot(a, b);
-  return combined > 0 ? ` (${formatSignificant(delta / combined, 2)} u)` : '';
+  return combined > 0 ? `, ${signed(delta / combined, 2)} u` : '';
 }
+
+const signed = (x: number, digits: number) => `${x >= 0 ? '+' : '−'}${formatSignificant(Math.abs(x), digits)}`;
 
 /**
  * This set against the approved version of the same substance and scheme: parameters side by side with
@@ -44,9 +46,7 @@ export function ApprovedComparison({ set, approved, points, context, datasetName
                 <td className="num text-right">{formatWithUncertainty(r.a, r.ua, r.unit)}</td>
                 <td className="num text-right">{formatWithUncertainty(r.b, r.ub, r.unit)}</td>
                 <td className="num text-right">
-                  {delta >= 0 ? '+' : '−'}
-                  {formatSignificant(Math.abs(delta), 3)} {r.unit} ({delta >= 0 ? '+' : '−'}
-                  {formatSignificant(Math.abs((100 * delta) / r.a), 2)} %){inSigmas(delta, r.ua, r.ub)}
+                  {signed(delta, 3)} {r.unit} ({signed((100 * delta) / r.a, 2)} %{inSigmas(delta, r.ua, r.ub)})
                 </td>
               </tr>
             );

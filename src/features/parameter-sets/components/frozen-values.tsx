@@ -1,11 +1,14 @@
-import { formatSignificant, formatWithUncertainty } from '@shared/format/numbers';
+import { formatWithUncertainty } from '@shared/format/numbers';
 import { CUTOFF_SCHEME_LABELS } from '@shared/schemas/parameter-sets';
 import type { ParameterSetSummary } from '../api/parameter-sets';
 
 export const schemeText = (s: Pick<ParameterSetSummary, 'scheme' | 'cutoffSigma'>) => `${CUTOFF_SCHEME_LABELS[s.scheme]}${s.cutoffSigma !== null ? `, r_c = ${s.cutoffSigma} σ` : ''}`;
 
+/** A bound as typed or as the data gave it, without trailing zeros (170 K, 297.15 K). */
+const bound = (x: number) => String(Number(x.toPrecision(6)));
+
 export const validityText = (v: ParameterSetSummary['validity']) =>
-  `${formatSignificant(v.temperatureMinK, 5)}–${formatSignificant(v.temperatureMaxK, 5)} K${v.pressureMinMPa !== null && v.pressureMaxMPa !== null ? `, ${formatSignificant(v.pressureMinMPa, 4)}–${formatSignificant(v.pressureMaxMPa, 4)} MPa` : ''}`;
+  `${bound(v.temperatureMinK)}–${bound(v.temperatureMaxK)} K${v.pressureMinMPa !== null && v.pressureMaxMPa !== null ? `, ${bound(v.pressureMinMPa)}–${bound(v.pressureMaxMPa)} MPa` : ''}`;
 
 /** The frozen ε/k_B and σ with standard errors, and what they are meant for. */
 export function FrozenValues({ set }: { set: ParameterSetSummary }) {
@@ -13,11 +16,11 @@ export function FrozenValues({ set }: { set: ParameterSetSummary }) {
     <div>
       <div className="grid gap-3 sm:grid-cols-2">
         <div className="rounded-md border border-rule bg-paper px-4 py-3">
-          <div className="text-xs font-semibold uppercase tracking-wider text-ink-faint">ε/k_B (K)</div>
+          <div className="text-xs font-semibold tracking-wider text-ink-faint">ε/k_B (K)</div>
           <div className="num text-2xl font-bold" data-testid="set-epsilon">{formatWithUncertainty(set.epsilonK, set.stdErr.epsilonK, 'K')}</div>
         </div>
         <div className="rounded-md border border-rule bg-paper px-4 py-3">
-          <div className="text-xs font-semibold uppercase tracking-wider text-ink-faint">σ (Å)</div>
+          <div className="text-xs font-semibold tracking-wider text-ink-faint">σ (Å)</div>
           <div className="num text-2xl font-bold" data-testid="set-sigma">{formatWithUncertainty(set.sigmaAngstrom, set.stdErr.sigmaAngstrom, 'Å')}</div>
         </div>
       </div>

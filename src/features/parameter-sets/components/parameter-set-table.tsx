@@ -21,8 +21,8 @@ export function ParameterSetTable({ sets, caption, withSubstance = false, queue 
     }),
     col.accessor('scheme', { header: 'Scheme', cell: (c) => schemeText(c.row.original) }),
     col.accessor('state', { header: 'State', cell: (c) => <ParameterSetStateBadge state={c.getValue()} /> }),
-    col.accessor('epsilonK', { header: 'ε/k_B', meta: { numeric: true }, cell: (c) => formatWithUncertainty(c.getValue(), c.row.original.stdErr.epsilonK, 'K') }),
-    col.accessor('sigmaAngstrom', { header: 'σ', meta: { numeric: true }, cell: (c) => formatWithUncertainty(c.getValue(), c.row.original.stdErr.sigmaAngstrom, 'Å') }),
+    col.accessor('epsilonK', { header: () => <span className="normal-case">ε/k_B</span>, meta: { numeric: true }, cell: (c) => formatWithUncertainty(c.getValue(), c.row.original.stdErr.epsilonK, 'K') }),
+    col.accessor('sigmaAngstrom', { header: () => <span className="normal-case">σ</span>, meta: { numeric: true }, cell: (c) => formatWithUncertainty(c.getValue(), c.row.original.stdErr.sigmaAngstrom, 'Å') }),
     col.accessor((s) => s.validity.temperatureMinK, { id: 'validity', header: 'Valid for', cell: (c) => <span className="num">{validityText(c.row.original.validity)}</span> }),
     col.accessor('createdByName', { header: 'Author' }),
     queue
