@@ -1,0 +1,124 @@
+/**
+ * LAMMPS input fragments (pair_style lj/cut) for a parameter set or a mixture, in `units real`
+ * (ε in kcal/mol, distances in Å, mass in g/mol) or `units metal` (ε in eV, Å, g/mol).
+ * Keywords checked against the LAMMPS documentation:
+ *   units        https://docs.lammps.org/units.html   (real: kcal/mol with the thermochemical calorie, Å; metal: eV, Å)
+ *   pair lj/cut  https://docs.lammps.org/pair_lj.html  (pair_style lj/cut <rc>; pair_coeff i j ε σ [rc])
+ *   pair_modify  https://docs.lammps.org/pair_modify.html (shift yes: energy zero at rc; tail yes: long-range
+ *                energy and pressure corrections; explicit pair_coeff i j overrides mixing)
+ * The fragment goes after the box exists (read_data or create_box); the units command is given as a
+ * comment because it must come before the box is created.
+ */
+import type { ExportableParameterSet } from './parameter-set-export';
+import { COMBINING_RULE_INFO, mixtureTable, type CombiningRule } from '../mixing/combining-rules';
+import { convertEpsilon } from '../physics/parameter-units';
+import {
+  CAUTION_TEXT,
+  FULL_POTENTIAL_SUGGESTED_CUTOFF_SIGMA,
+  SCHEME_DESCRIPTION,
+  approvalText,
+  asciiText,
+  commentBlock,
+  commonValidity,
+  engineNumber,
+  mixtureCutoff,
+  setHeaderLines,
+  substanceLabel,
+  validityOf,
+  validityText,
+  type ExportScheme,
+} from './export-common';
+
+export type LammpsUnits = 'real' | 'metal';
+
+const ENERGY_UNIT = { real: 'kcal/mol', metal: 'eV' } as const;
+
+function unitsLines(units: LammpsUnits): string[] {
+  return [
+    `Target: LAMMPS units ${units} (energy ${ENERGY_UNIT[units]}, distance Angstrom, mass g/mol); https://docs.lammps.org/units.html`,
+    `Put the command units ${units} before the box is created; paste the commands below after read_data/create_box.`,
+  ];
+}
+
+function schemeCommentLines(scheme: ExportScheme, cutoffSigma: number): string[] {
+  switch (scheme) {
+    case 'full-potential':
+      return [
+        'Cutoff treatment: these parameters describe the FULL potential (fitted without a cutoff).',
+        `Recommended: a long cutoff (here ${engineNumber(cutoffSigma, 6)} sigma) with analytic tail corrections (pair_modify tail yes);`,
+        'lengthen the cutoff if the box allows. Do not shift the potential. https://docs.lammps.org/pair_modify.html',
+      ];
+    case 'truncated-tail':
+      return [
+        `Cutoff treatment: truncated at rc = ${engineNumber(cutoffSigma, 6)} sigma with tail corrections, as fitted (pair_modify tail yes).`,
+        'https://docs.lammps.org/pair_modify.html',
+      ];
+    case 'truncated-shifted':
+      return [
+        `Cutoff treatment: truncated at rc = ${engineNumber(cutoffSigma, 6)} sigma and shifted to zero there, as fitted (pair_modify shift yes, no tail).`,
+        'https://docs.lammps.org/pair_modify.html',
+      ];
+  }
+}
+
+function modifyLine(scheme: ExportScheme): string {
+  return scheme === 'truncated-shifted' ? 'pair_modify shift yes tail no' : 'pair_modify shift no tail yes';
+}
+
+/** Fragment for one set as atom type 1. */
+export function lammpsParameterSet(set: ExportableParameterSet, units: LammpsUnits): string {
+  const cutoffSigma = set.scheme === 'full-potential' ? FULL_POTENTIAL_SUGGESTED_CUTOFF_SIGMA : (set.cutoffSigma as number);
+  const rcAngstrom = cutoffSigma * set.sigmaAngstrom;
+  const eps = convertEpsilon(set.epsilonK, ENERGY_UNIT[units]);
+  const lines = [
+    ...commentBlock('#', [
+      ...setHeaderLines(set),
+      '',
+      ...unitsLines(units),
+      `epsilon = ${engineNumber(eps)} ${ENERGY_UNIT[units]} (from epsilon/k_B = ${engineNumber(set.epsilonK)} K), sigma = ${engineNumber(set.sigmaAngstrom)} Angstrom, rc = ${engineNumber(rcAngstrom)} Angstrom`,
+      ...schemeCommentLines(set.scheme, cutoffSigma),
+    ]),
+    `mass 1 ${engineNumber(set.substance.molarMassGPerMol)}`,
+    `pair_style lj/cut ${engineNumber(rcAngstrom)}`,
+    `pair_coeff 1 1 ${engineNumber(eps)} ${engineNumber(set.sigmaAngstrom)}`,
+    modifyLine(set.scheme),
+  ];
+  return lines.join('\n') + '\n';
+}
+
+/**
+ * Fragment for a mixture: atom types 1…n in the order given, every pair written explicitly with its own
+ * cutoff rc_ij = (rc/σ)·σ_ij so each pair keeps the reduced cutoff its parameters were fitted for.
+ */
+export function lammpsMixture(sets: readonly ExportableParameterSet[], rule: CombiningRule, units: LammpsUnits): string {
+  const table = mixtureTable(sets, rule);
+  const cut = mixtureCutoff(sets);
+  const info = COMBINING_RULE_INFO[rule];
+  const common = commonValidity(sets);
+  const rcMax = Math.max(...table.pairs.map((p) => cut.cutoffSigma * p.sigmaAngstrom));
+  const header: string[] = [
+    `Epsigma mixture of ${sets.length} parameter sets, cross pairs by the ${info.name} combining rule`,
+    `Rule: ${info.formulas} (${info.reference})`,
+    `NOTE: ${table.note}`,
+    ...sets.map((s, k) => `Type ${k + 1}: ${substanceLabel(s)}, parameter set ${s.id} v${s.version}, ${approvalText(s)}; valid for ${validityText(validityOf(s))}; fitted for ${SCHEME_DESCRIPTION[s.scheme]}${s.cutoffSigma != null ? ` (rc = ${engineNumber(s.cutoffSigma, 6)} sigma)` : ''}`),
+    common ? `All components valid together for: ${validityText(common)}` : 'WARNING: the validity ranges of the components do not overlap.',
+    ...(cut.warning ? [cut.warning] : []),
+    `CAUTION: ${CAUTION_TEXT}`,
+    '',
+    ...unitsLines(units),
+    ...schemeCommentLines(cut.scheme, cut.cutoffSigma),
+    'Every pair is set explicitly, so pair_modify mix has no effect on these pairs.',
+  ];
+  const lines = [
+    ...commentBlock('#', header),
+    ...sets.map((s, k) => `mass ${k + 1} ${engineNumber(s.substance.molarMassGPerMol)}`),
+    `pair_style lj/cut ${engineNumber(rcMax)}`,
+    ...table.pairs.map((p) => {
+      const eps = convertEpsilon(p.epsilonK, ENERGY_UNIT[units]);
+      const what = p.kind === 'pure' ? `pure, set ${sets[p.i].id} v${sets[p.i].version}` : `${asciiText(info.name)} estimate, not fitted`;
+      return `pair_coeff ${p.i + 1} ${p.j + 1} ${engineNumber(eps)} ${engineNumber(p.sigmaAngstrom)} ${engineNumber(cut.cutoffSigma * p.sigmaAngstrom)} # ${what}`;
+    }),
+    modifyLine(cut.scheme),
+  ];
+  return lines.join('\n') + '\n';
+}

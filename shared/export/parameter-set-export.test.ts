@@ -1,0 +1,81 @@
+import { describe, expect, it } from 'vitest';
+import { EXPORT_FORMATS, exportMixture, exportParameterSet, isExportFormat, type ExportFormat } from './parameter-set-export';
+import { ExportError } from './export-common';
+import { checkJsonSchema } from './json-schema-check';
+import { MIXTURE_JSON_SCHEMA, PARAMETER_SET_JSON_SCHEMA } from './json-schema';
+import { argonShifted, kryptonShifted, methaneFull } from './export-test-sets';
+import type { CombiningRule } from '../mixing/combining-rules';
+
+const CAUTION = 'Fitted model parameters, not validated property data for pressure, safety or process design; defer to local codes and licensed engineering practice.';
+
+function expectExportError(fn: () => unknown, code: string, message: string) {
+  try {
+    fn();
+  } catch (e) {
+    expect(e).toBeInstanceOf(ExportError);
+    expect((e as ExportError).code).toBe(code);
+    expect((e as Error).message).toBe(message);
+    return;
+  }
+  throw new Error('expected an ExportError');
+}
+
+describe('exportParameterSet', () => {
+  it('gives content type, file name and body for every format, each carrying the caution text', () => {
+    const expected: Record<ExportFormat, [string, string]> = {
+      json: ['application/json; charset=utf-8', 'epsigma-argon-ps12-v3.json'],
+      csv: ['text/csv; charset=utf-8; header=present', 'epsigma-argon-ps12-v3.csv'],
+      'lammps-real': ['text/plain; charset=utf-8', 'epsigma-argon-ps12-v3.lammps-real.in'],
+      'lammps-metal': ['text/plain; charset=utf-8', 'epsigma-argon-ps12-v3.lammps-metal.in'],
+      gromacs: ['text/plain; charset=utf-8', 'epsigma-argon-ps12-v3.gromacs.itp'],
+    };
+    for (const format of EXPORT_FORMATS) {
+      const r = exportParameterSet(argonShifted, format);
+      expect([r.contentType, r.filename], format).toEqual(expected[format]);
+      expect(r.body, format).toContain(CAUTION);
+    }
+    expect(checkJsonSchema(PARAMETER_SET_JSON_SCHEMA, JSON.parse(exportParameterSet(methaneFull, 'json').body))).toEqual([]);
+  });
+
+  it('uses the unit options for CSV only', () => {
+    expect(exportParameterSet(argonShifted, 'csv', { energyUnit: 'eV' }).body.split('\r\n')[0]).toContain('epsilon_eV');
+    expect(exportParameterSet(argonShifted, 'json', { energyUnit: 'eV' }).body).toBe(exportParameterSet(argonShifted, 'json').body);
+    expect(exportParameterSet(argonShifted, 'gromacs', { lengthUnit: 'Å' }).body).toBe(exportParameterSet(argonShifted, 'gromacs').body);
+  });
+
+  it('makes file names from ASCII slugs of the substance name', () => {
+    const odd = { ...argonShifted, substance: { ...argonShifted.substance, name: 'Äthan/../"x"' } };
+    expect(exportParameterSet(odd, 'json').filename).toBe('epsigma-athan-x-ps12-v3.json');
+  });
+
+  it('refuses unknown formats and sets that would give a wrong export', () => {
+    expect(isExportFormat('pdf')).toBe(false);
+    expectExportError(() => exportParameterSet(argonShifted, 'pdf' as ExportFormat), 'unknown-format', 'unknown export format "pdf"; use one of json, csv, lammps-real, lammps-metal, gromacs');
+    expectExportError(() => exportParameterSet({ ...argonShifted, epsilonK: Number.NaN }, 'json'), 'invalid-set', 'parameter set 12: epsilonK must be a finite number above 0');
+    expectExportError(() => exportParameterSet({ ...argonShifted, cutoffSigma: null }, 'csv'), 'invalid-set', 'parameter set 12: a truncated-shifted set needs cutoffSigma (rc/σ) above 0');
+    expectExportError(() => exportParameterSet({ ...methaneFull, cutoffSigma: 2.5 }, 'gromacs'), 'invalid-set', 'parameter set 21: the full potential has no cutoff; cutoffSigma must be null');
+    expectExportError(() => exportParameterSet({ ...argonShifted, validity: { temperatureMinK: 300, temperatureMaxK: 90 } }, 'json'), 'invalid-set', 'parameter set 12: validity needs 0 < temperatureMinK < temperatureMaxK');
+    expectExportError(() => exportParameterSet({ ...argonShifted, validity: { temperatureMinK: 90, temperatureMaxK: 300, pressureMinMPa: 1 } }, 'json'), 'invalid-set', 'parameter set 12: give both pressure bounds or neither');
+    expectExportError(() => exportParameterSet({ ...argonShifted, correlation: 1.5 }, 'json'), 'invalid-set', 'parameter set 12: correlation must be null or within [-1, 1]');
+    expectExportError(() => exportParameterSet({ ...argonShifted, substance: { ...argonShifted.substance, molarMassGPerMol: 0 } }, 'lammps-real'), 'invalid-set', 'parameter set 12: substance molarMassGPerMol must be a finite number above 0');
+  });
+});
+
+describe('exportMixture', () => {
+  it('exports every format with the rule in the file name', () => {
+    for (const format of EXPORT_FORMATS) {
+      const r = exportMixture([argonShifted, kryptonShifted], 'kong', format);
+      expect(r.filename.startsWith('epsigma-mixture-ps12v3-ps16v1-kong')).toBe(true);
+      expect(r.body).toContain(CAUTION);
+      expect(r.body).toContain('not fitted');
+    }
+    expect(checkJsonSchema(MIXTURE_JSON_SCHEMA, JSON.parse(exportMixture([argonShifted, kryptonShifted, methaneFull], 'lorentz-berthelot', 'json').body))).toEqual([]);
+  });
+
+  it('refuses fewer than two sets, a set twice, an unknown rule or an invalid set', () => {
+    expectExportError(() => exportMixture([argonShifted], 'kong', 'json'), 'too-few-sets', 'a mixture needs at least two parameter sets');
+    expectExportError(() => exportMixture([argonShifted, argonShifted], 'kong', 'json'), 'duplicate-set', 'parameter set 12 appears twice in the mixture');
+    expectExportError(() => exportMixture([argonShifted, kryptonShifted], 'mean' as CombiningRule, 'csv'), 'unknown-rule', 'unknown combining rule "mean"; use one of lorentz-berthelot, kong, waldman-hagler');
+    expectExportError(() => exportMixture([argonShifted, { ...kryptonShifted, sigmaAngstrom: -3 }], 'kong', 'csv'), 'invalid-set', 'parameter set 16: sigmaAngstrom must be a finite number above 0');
+  });
+});

@@ -1,0 +1,135 @@
+/**
+ * Exports of approved parameter sets and of mixtures built from them. The lead maps database rows to
+ * `ExportableParameterSet`; everything here is pure (no Node-only APIs) so the server routes
+ * (GET /api/parameter-sets/:id/export, GET /api/mixtures) and the browser share it.
+ */
+import type { EnergyUnit, LengthUnit } from '../physics/parameter-units';
+import { COMBINING_RULES, isCombiningRule, type CombiningRule } from '../mixing/combining-rules';
+import { parameterSetJsonText, mixtureJsonText } from './json-export';
+import { parameterSetsToCsv, mixtureToCsv } from './csv-export';
+import { lammpsParameterSet, lammpsMixture } from './lammps-export';
+import { gromacsParameterSet, gromacsMixture } from './gromacs-export';
+import { assertExportable, fileBaseName, mixtureFileBaseName, ExportError } from './export-common';
+
+export interface ExportableParameterSet {
+  id: number;
+  version: number;
+  substance: { id: number; name: string; formula?: string | null; molarMassGPerMol: number };
+  model: 'lj-12-6';
+  epsilonK: number;
+  sigmaAngstrom: number;
+  stdErr: { epsilonK: number | null; sigmaAngstrom: number | null };
+  /** Correlation coefficient of the ε and σ estimates from the fit covariance. */
+  correlation: number | null;
+  scheme: 'full-potential' | 'truncated-tail' | 'truncated-shifted';
+  /** rc/σ for the truncated schemes; null for the full potential. */
+  cutoffSigma: number | null;
+  validity: { temperatureMinK: number; temperatureMaxK: number; pressureMinMPa?: number | null; pressureMaxMPa?: number | null };
+  approvedAt: string | null;
+  approvedBy: string | null;
+  state: string;
+  fitId: number;
+  datasets: Array<{ id: number; version: number; kind: string; name: string; source?: string | null; doi?: string | null }>;
+}
+
+export const EXPORT_FORMATS = ['json', 'csv', 'lammps-real', 'lammps-metal', 'gromacs'] as const;
+export type ExportFormat = (typeof EXPORT_FORMATS)[number];
+
+export function isExportFormat(value: unknown): value is ExportFormat {
+  return typeof value === 'string' && (EXPORT_FORMATS as readonly string[]).includes(value);
+}
+
+/**
+ * Display units for the CSV export (extra columns next to the canonical K and Å ones). JSON always carries
+ * every unit; the engine fragments always use the engine's own units, so these options do not touch them.
+ */
+export interface ExportOptions {
+  energyUnit?: EnergyUnit;
+  lengthUnit?: LengthUnit;
+}
+
+export interface ExportResult {
+  contentType: string;
+  filename: string;
+  body: string;
+}
+
+const CONTENT_TYPE: Record<ExportFormat, string> = {
+  json: 'application/json; charset=utf-8',
+  // RFC 4180 §3 registers the optional "header" parameter of text/csv.
+  csv: 'text/csv; charset=utf-8; header=present',
+  'lammps-real': 'text/plain; charset=utf-8',
+  'lammps-metal': 'text/plain; charset=utf-8',
+  gromacs: 'text/plain; charset=utf-8',
+};
+
+const EXTENSION: Record<ExportFormat, string> = {
+  json: '.json',
+  csv: '.csv',
+  'lammps-real': '.lammps-real.in',
+  'lammps-metal': '.lammps-metal.in',
+  gromacs: '.gromacs.itp',
+};
+
+function checkFormat(format: unknown): asserts format is ExportFormat {
+  if (!isExportFormat(format)) throw new ExportError('unknown-format', `unknown export format "${String(format)}"; use one of ${EXPORT_FORMATS.join(', ')}`);
+}
+
+/** One parameter set as a downloadable document. */
+export function exportParameterSet(set: ExportableParameterSet, format: ExportFormat, options: ExportOptions = {}): ExportResult {
+  checkFormat(format);
+  assertExportable(set);
+  const filename = fileBaseName(set) + EXTENSION[format];
+  let body: string;
+  switch (format) {
+    case 'json':
+      body = parameterSetJsonText(set);
+      break;
+    case 'csv':
+      body = parameterSetsToCsv([set], options);
+      break;
+    case 'lammps-real':
+      body = lammpsParameterSet(set, 'real');
+      break;
+    case 'lammps-metal':
+      body = lammpsParameterSet(set, 'metal');
+      break;
+    case 'gromacs':
+      body = gromacsParameterSet(set);
+      break;
+  }
+  return { contentType: CONTENT_TYPE[format], filename, body };
+}
+
+/** A mixture of several sets: pure pairs from the sets, cross pairs from the combining rule. */
+export function exportMixture(sets: readonly ExportableParameterSet[], rule: CombiningRule, format: ExportFormat, options: ExportOptions = {}): ExportResult {
+  checkFormat(format);
+  if (!isCombiningRule(rule)) throw new ExportError('unknown-rule', `unknown combining rule "${String(rule)}"; use one of ${COMBINING_RULES.join(', ')}`);
+  if (!Array.isArray(sets) || sets.length < 2) throw new ExportError('too-few-sets', 'a mixture needs at least two parameter sets');
+  const ids = new Set<number>();
+  for (const s of sets) {
+    assertExportable(s);
+    if (ids.has(s.id)) throw new ExportError('duplicate-set', `parameter set ${s.id} appears twice in the mixture`);
+    ids.add(s.id);
+  }
+  const filename = mixtureFileBaseName(sets, rule) + EXTENSION[format];
+  let body: string;
+  switch (format) {
+    case 'json':
+      body = mixtureJsonText(sets, rule);
+      break;
+    case 'csv':
+      body = mixtureToCsv(sets, rule, options);
+      break;
+    case 'lammps-real':
+      body = lammpsMixture(sets, rule, 'real');
+      break;
+    case 'lammps-metal':
+      body = lammpsMixture(sets, rule, 'metal');
+      break;
+    case 'gromacs':
+      body = gromacsMixture(sets, rule);
+      break;
+  }
+  return { contentType: CONTENT_TYPE[format], filename, body };
+}
