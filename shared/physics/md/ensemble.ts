@@ -112,8 +112,7 @@ export class Ensemble {
   step(withEnergy: boolean): void {
     const s = this.system;
     const dt = this.settings.timestep;
-    s.kickDrift(dt);
-    if (s.needsRebuild()) s.buildList();
+    if (s.kickDrift(dt)) s.buildList();
     if (withEnergy) this.sums = s.computeForcesAndEnergy();
     else s.computeForces();
     s.kick(dt);

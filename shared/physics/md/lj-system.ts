@@ -533,16 +533,32 @@ export class LjSystem {
     return 0.5 * s;
   }
 
-  /** Velocity Verlet first half: v += ½dt·f, x += dt·v. */
-  kickDrift(dt: number): void {
+  /**
+   * Velocity Verlet first half: v += ½dt·f, x += dt·v, fused with the largest squared displacement since the
+   * last build (one pass over the atoms instead of two). Returns true when the list must be rebuilt.
+   */
+  kickDrift(dt: number): boolean {
     const hdt = 0.5 * dt;
     const x = this.pos;
     const v = this.vel;
     const f = this.force;
-    for (let k = 0; k < x.length; k++) {
+    const x0 = this.ref;
+    let max = 0;
+    for (let k = 0; k < x.length; k += 3) {
       v[k] += hdt * f[k];
+      v[k + 1] += hdt * f[k + 1];
+      v[k + 2] += hdt * f[k + 2];
       x[k] += dt * v[k];
+      x[k + 1] += dt * v[k + 1];
+      x[k + 2] += dt * v[k + 2];
+      const ux = x[k] - x0[k];
+      const uy = x[k + 1] - x0[k + 1];
+      const uz = x[k + 2] - x0[k + 2];
+      const d2 = ux * ux + uy * uy + uz * uz;
+      if (d2 > max) max = d2;
     }
+    const margin = 0.5 * (this.listScale * (this.cutoff + this.skin) - this.cutoff);
+    return margin <= 0 || max > margin * margin;
   }
 
   /** Velocity Verlet second half: v += ½dt·f. */

@@ -109,7 +109,6 @@ export function runNve(options: NveOptions): NveResult {
   system.buildList();
   const first = thermo(system, system.computeForcesAndEnergy());
   const builds0 = system.builds;
-  const halfSkin2 = 0.25 * skin * skin;
   let sn = 1;
   let st = 0;
   let se = first.conservedEnergyPerAtom;
@@ -122,8 +121,7 @@ export function runNve(options: NveOptions): NveResult {
   const cpu0 = cpuClock ? cpuClock() : null;
   const tStart = performance.now();
   for (let step = 1; step <= steps; step++) {
-    system.kickDrift(dt);
-    if (system.maxDisplacement2() > halfSkin2) system.buildList();
+    if (system.kickDrift(dt)) system.buildList();
     if (step % every === 0 || step === steps) {
       // Positions do not change in the second half kick, so the pair sums stay valid for thermo().
       const sums = system.computeForcesAndEnergy();
