@@ -261,7 +261,8 @@ export async function reviewParameterSet(ctx: AppContext, actor: CurrentUser, id
   await ctx.db.transaction().execute(async (tx) => {
     const row = (await findParameterSet(tx, id))!;
     await applyMove(tx, row, decision, actor, comment);
-    const author = [row.createdByEmail];
+    // The author is told only while their account is active (emailOf skips deactivated people).
+    const author = [(await emailOf(tx, row.createdBy)) ?? ''];
     if (decision === 'request_changes') {
       await queueMail(tx, {
         to: author,
@@ -307,7 +308,7 @@ export async function retireParameterSet(ctx: AppContext, actor: CurrentUser, id
     const row = (await findParameterSet(tx, id))!;
     await applyMove(tx, row, 'retire', actor, reason);
     await queueMail(tx, {
-      to: [...(await emailsOfFollowers(tx, row.substanceId)), row.createdByEmail],
+      to: [...(await emailsOfFollowers(tx, row.substanceId)), (await emailOf(tx, row.createdBy)) ?? ''],
       subject: `Retired: ${setLabel(row)}`,
       ...mailBody([`${actor.name} retired ${setLabel(row)}. Do not use it for new work.`, `Reason: ${reason}`]),
       link: link(id),
