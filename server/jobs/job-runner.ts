@@ -29,14 +29,25 @@ export interface JobView {
   finishedAt: string | null;
 }
 
-/**
- * What a job kind needs from the runner: how to turn the stored input into the worker payload
- * (on the main thread, where the database is), and optionally what to do with the result.
- */
-export interface JobKind {
-  toPayload: (db: Db, input: any, job: { id: number; seed: number }) => Promise<unknown> | unknown;
-  onSucceeded?: (db: Db, jobId: number, result: unknown) => Promise<void> | void;
+/** What an orchestrating job may use while it runs on the main thread. */
+export interface JobRunEnvironment {
+  db: Db;
+  jobs: JobQueue;
+  /** Runs a worker task directly (not as a job of its own); piscina queues it when every thread is busy. */
+  runTask: (kind: string, payload: unknown, onProgress: (p: ProgressReport) => void) => Promise<unknown>;
+  progress: (p: ProgressReport) => void;
+  signal: AbortSignal;
 }
+
+/**
+ * What a job kind needs from the runner. A compute kind turns the stored input into a worker payload
+ * (on the main thread, where the database is) and runs in the pool, one thread per job. An orchestrating
+ * kind (`run`) runs on the main thread and spends its time waiting for work it hands to the pool, so it
+ * takes no pool slot.
+ */
+export type JobKind =
+  | { toPayload: (db: Db, input: any, job: { id: number; seed: number }) => Promise<unknown> | unknown; run?: undefined }
+  | { run: (env: JobRunEnvironment, input: any, job: { id: number; seed: number }) => Promise<unknown>; toPayload?: undefined };
 
 /**
  * The small interface every caller uses; the SQLite-backed runner below implements it, and a
@@ -81,6 +92,8 @@ export function toJobView(row: {
 /** Jobs persisted in SQLite, executed in the worker pool, at most `pool.size` at a time. */
 export class SqliteJobRunner implements JobQueue {
   private running = new Map<number, AbortController>();
+  /** Jobs of compute kinds currently holding a pool thread. */
+  private poolJobs = new Set<number>();
   private waiters = new Map<number, Array<(job: JobView) => void>>();
   private stopped = false;
   private pumping = false;
@@ -182,25 +195,32 @@ export class SqliteJobRunner implements JobQueue {
     for (const resolve of list) resolve(job);
   }
 
-  /** Starts queued jobs while the pool has room. */
+  /** Starts queued jobs: orchestrating kinds at once, compute kinds while the pool has a free thread. */
   private async pump(): Promise<void> {
     if (this.pumping || this.stopped) return;
     this.pumping = true;
     try {
-      while (!this.stopped && this.running.size < this.pool.size) {
-        const next = await this.db.selectFrom('job').selectAll().where('status', '=', 'queued').orderBy('id').executeTakeFirst();
-        if (!next) break;
-        const now = new Date().toISOString();
-        const claimed = await this.db
-          .updateTable('job')
-          .set({ status: 'running', startedAt: now, updatedAt: now, attempts: next.attempts + 1, progress: 0 })
-          .where('id', '=', next.id)
-          .where('status', '=', 'queued')
-          .executeTakeFirst();
-        if (Number(claimed.numUpdatedRows) === 0) continue;
-        const controller = new AbortController();
-        this.running.set(next.id, controller);
-        void this.execute(next.id, next.kind, JSON.parse(next.inputJson), next.seed, controller);
+      let started = true;
+      while (!this.stopped && started) {
+        started = false;
+        const queued = await this.db.selectFrom('job').select(['id', 'kind', 'attempts', 'inputJson', 'seed']).where('status', '=', 'queued').orderBy('id').limit(100).execute();
+        for (const next of queued) {
+          const orchestrating = !!this.kinds[next.kind]?.run;
+          if (!orchestrating && this.poolJobs.size >= this.pool.size) continue;
+          const now = new Date().toISOString();
+          const claimed = await this.db
+            .updateTable('job')
+            .set({ status: 'running', startedAt: now, updatedAt: now, attempts: next.attempts + 1, progress: 0 })
+            .where('id', '=', next.id)
+            .where('status', '=', 'queued')
+            .executeTakeFirst();
+          if (Number(claimed.numUpdatedRows) === 0) continue;
+          const controller = new AbortController();
+          this.running.set(next.id, controller);
+          if (!orchestrating) this.poolJobs.add(next.id);
+          void this.execute(next.id, next.kind, JSON.parse(next.inputJson), next.seed, controller);
+          started = true;
+        }
       }
     } finally {
       this.pumping = false;
@@ -217,16 +237,28 @@ export class SqliteJobRunner implements JobQueue {
       void this.db.updateTable('job').set({ progress: Math.min(1, Math.max(0, p.fraction)), stage: p.stage.slice(0, 200), updatedAt: new Date().toISOString() }).where('id', '=', id).where('status', '=', 'running').execute();
     };
     try {
-      const payload = await kind.toPayload(this.db, input, { id, seed });
-      const result = await this.pool.run(kindName, payload, onProgress, controller.signal);
+      let result: unknown;
+      if (kind.run) {
+        const env: JobRunEnvironment = {
+          db: this.db,
+          jobs: this,
+          runTask: (task, payload, taskProgress) => this.pool.run(task, payload, taskProgress, controller.signal),
+          progress: onProgress,
+          signal: controller.signal,
+        };
+        result = await kind.run(env, input, { id, seed });
+      } else {
+        const payload = await kind.toPayload(this.db, input, { id, seed });
+        result = await this.pool.run(kindName, payload, onProgress, controller.signal);
+      }
       const now = new Date().toISOString();
-      const res = await this.db
+      // Only a job still running takes the result: a cancelled job stays cancelled.
+      await this.db
         .updateTable('job')
         .set({ status: 'succeeded', progress: 1, stage: 'done', resultJson: JSON.stringify(result), finishedAt: now, updatedAt: now })
         .where('id', '=', id)
         .where('status', '=', 'running')
-        .executeTakeFirst();
-      if (Number(res.numUpdatedRows) > 0) await kind.onSucceeded?.(this.db, id, result);
+        .execute();
     } catch (err) {
       // A cancelled job is already marked (the update below matches only `running`); on a stop the job
       // stays `running` so the next start resumes it.
@@ -237,6 +269,7 @@ export class SqliteJobRunner implements JobQueue {
       }
     } finally {
       this.running.delete(id);
+      this.poolJobs.delete(id);
       await this.notify(id);
       void this.pump();
     }

@@ -16,6 +16,8 @@ export type { LjBounds } from './lj-starting-values';
 
 export interface FitRow {
   temperatureK: number;
+  /** MPa; required for 'density'. */
+  pressureMPa?: number;
   /** cm3/mol for 'b2', µPa·s for 'viscosity'. */
   value: number;
   /** Standard uncertainty, same unit as value. */
@@ -51,6 +53,8 @@ export interface LjResidual {
   datasetId: string | number;
   kind: FitKind;
   temperatureK: number;
+  /** For state points given in T and P (densities). */
+  pressureMPa?: number;
   measured: number;
   uncertainty: number;
   predicted: number;
@@ -132,6 +136,7 @@ interface FlatPoint {
   datasetId: string | number;
   kind: FitKind;
   temperatureK: number;
+  pressureMPa?: number;
   value: number;
   uncertainty: number;
   weight: number;
@@ -159,7 +164,10 @@ function validate(datasets: readonly FitDataset[], options: LjFitOptions): { poi
       if (!(row.uncertainty > 0) || !Number.isFinite(row.uncertainty)) {
         throw new LjFitInputError('bad-uncertainty', `${name}, row ${i + 1}: uncertainty must be a positive finite number, got ${row.uncertainty}`);
       }
-      points.push({ datasetIndex, datasetId: dataset.id, kind: dataset.kind, temperatureK: row.temperatureK, value: row.value, uncertainty: row.uncertainty, weight });
+      if (model.needsPressure && !(Number(row.pressureMPa) > 0)) {
+        throw new LjFitInputError('bad-value', `${name}, row ${i + 1}: the ${model.label} needs a positive pressureMPa, got ${row.pressureMPa}`);
+      }
+      points.push({ datasetIndex, datasetId: dataset.id, kind: dataset.kind, temperatureK: row.temperatureK, ...(row.pressureMPa !== undefined ? { pressureMPa: row.pressureMPa } : {}), value: row.value, uncertainty: row.uncertainty, weight });
     });
   });
   if (points.length < PARAMETER_NAMES.length) {
@@ -188,6 +196,8 @@ function validate(datasets: readonly FitDataset[], options: LjFitOptions): { poi
   return { points, bounds, context: { molarMassGPerMol: molar, quantumCorrection: options.quantumCorrection ?? false } };
 }
 
+const modelPoint = (p: { temperatureK: number; pressureMPa?: number; value: number }) => ({ temperatureK: p.temperatureK, pressureMPa: p.pressureMPa, measured: p.value });
+
 function problemFor(points: readonly FlatPoint[], context: PropertyContext): WeightedResidualProblem {
   return {
     parameterNames: PARAMETER_NAMES,
@@ -196,7 +206,7 @@ function problemFor(points: readonly FlatPoint[], context: PropertyContext): Wei
       const residuals = new Array<number>(points.length);
       const jacobian: number[][] = [];
       points.forEach((point, i) => {
-        const prediction = PROPERTY_MODELS[point.kind].evaluate(point.temperatureK, epsilonK, sigmaAngstrom, context);
+        const prediction = PROPERTY_MODELS[point.kind].evaluate(modelPoint(point), epsilonK, sigmaAngstrom, context);
         const scale = point.weight / point.uncertainty;
         residuals[i] = (prediction.value - point.value) * scale;
         jacobian.push([prediction.dEpsilonK * scale, prediction.dSigmaAngstrom * scale]);
@@ -223,7 +233,7 @@ export function fitLennardJones(
   if (options.start) {
     start = { ...options.start, method: 'given' };
   } else {
-    const startPoints: StartPoint[] = points.map((p) => ({ kind: p.kind, temperatureK: p.temperatureK, value: p.value, uncertainty: p.uncertainty / p.weight }));
+    const startPoints: StartPoint[] = points.map((p) => ({ kind: p.kind, temperatureK: p.temperatureK, pressureMPa: p.pressureMPa, value: p.value, uncertainty: p.uncertainty / p.weight }));
     const estimate = estimateLjStart(startPoints, context, bounds);
     if (estimate) {
       start = { epsilonK: estimate.epsilonK, sigmaAngstrom: estimate.sigmaAngstrom, method: estimate.method };
@@ -274,12 +284,13 @@ export function fitLennardJones(
   const residuals: LjResidual[] = [];
   if (fit.convergence !== 'failed') {
     points.forEach((point, i) => {
-      const predicted = PROPERTY_MODELS[point.kind].evaluate(point.temperatureK, epsilonK, sigmaAngstrom, context).value;
+      const predicted = PROPERTY_MODELS[point.kind].evaluate(modelPoint(point), epsilonK, sigmaAngstrom, context).value;
       residuals.push({
         datasetIndex: point.datasetIndex,
         datasetId: point.datasetId,
         kind: point.kind,
         temperatureK: point.temperatureK,
+        ...(point.pressureMPa !== undefined ? { pressureMPa: point.pressureMPa } : {}),
         measured: point.value,
         uncertainty: point.uncertainty,
         predicted,

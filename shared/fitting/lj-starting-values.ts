@@ -13,6 +13,7 @@ import { PROPERTY_MODELS, type FitKind, type PropertyContext } from './property-
 export interface StartPoint {
   kind: FitKind;
   temperatureK: number;
+  pressureMPa?: number;
   value: number;
   /** Effective uncertainty u / weight. */
   uncertainty: number;
@@ -56,7 +57,7 @@ function sigmaForEpsilon(points: readonly StartPoint[], epsilonK: number, contex
     const k = PROPERTY_MODELS[point.kind].sigmaExponent;
     if (k === null) continue;
     try {
-      unit.push({ point, a: PROPERTY_MODELS[point.kind].evaluate(point.temperatureK, epsilonK, 1, classical).value, k });
+      unit.push({ point, a: PROPERTY_MODELS[point.kind].evaluate({ temperatureK: point.temperatureK }, epsilonK, 1, classical).value, k });
     } catch {
       return null; // ε outside the model's range for these temperatures
     }
@@ -78,13 +79,70 @@ function sigmaForEpsilon(points: readonly StartPoint[], epsilonK: number, contex
     if (s > 0 && Number.isFinite(s)) candidates.push(s ** (1 / rows[0].k));
   }
   if (candidates.length > 1) candidates.push(Math.exp(candidates.reduce((s, c) => s + Math.log(c), 0) / candidates.length));
+  const unscaled = points.filter((p) => PROPERTY_MODELS[p.kind].sigmaExponent === null);
   let best: { sigmaAngstrom: number; chi2: number } | null = null;
+  if (unscaled.length) {
+    // Properties without a σ^k scaling (densities from the equation of state): minimise the full χ² over σ.
+    // Scaling kinds through their cheap σ^k form, the others through their full model.
+    const fullChi2 = (sigma: number) => {
+      let sum = chi2At(sigma);
+      for (const p of unscaled) {
+        try {
+          const v = PROPERTY_MODELS[p.kind].evaluate({ temperatureK: p.temperatureK, pressureMPa: p.pressureMPa, measured: p.value }, epsilonK, sigma, classical).value;
+          sum += ((v - p.value) / p.uncertainty) ** 2;
+        } catch {
+          return Infinity; // no fluid state of the model at this (ε, σ)
+        }
+      }
+      return sum;
+    };
+    // Gas-phase data, when present, already place σ within ±25 %: search there only.
+    const lo = candidates.length ? Math.max(bounds.sigmaAngstrom[0], Math.min(...candidates) / 1.25) : bounds.sigmaAngstrom[0];
+    const hi = candidates.length ? Math.min(bounds.sigmaAngstrom[1], Math.max(...candidates) * 1.25) : bounds.sigmaAngstrom[1];
+    const sigma = goldenSectionLog(fullChi2, lo, Math.max(hi, lo * 1.01));
+    const chi2 = fullChi2(sigma);
+    return Number.isFinite(chi2) ? { sigmaAngstrom: sigma, chi2 } : null;
+  }
   for (const raw of candidates) {
     const sigma = Math.min(Math.max(raw, bounds.sigmaAngstrom[0]), bounds.sigmaAngstrom[1]);
     const chi2 = chi2At(sigma);
     if (Number.isFinite(chi2) && (!best || chi2 < best.chi2)) best = { sigmaAngstrom: sigma, chi2 };
   }
   return best;
+}
+
+/**
+ * Minimum of f on [lo, hi] searched in ln x: a coarse scan first (the χ² surface of densities has flat
+ * infinite stretches where the model has no fluid state), then golden-section refinement around the best node.
+ */
+function goldenSectionLog(f: (x: number) => number, lo: number, hi: number): number {
+  const nodes = 16;
+  let bestI = 0;
+  let bestF = Infinity;
+  const at = (i: number) => lo * (hi / lo) ** (i / (nodes - 1));
+  for (let i = 0; i < nodes; i++) {
+    const v = f(at(i));
+    if (v < bestF) [bestF, bestI] = [v, i];
+  }
+  let a = Math.log(at(Math.max(0, bestI - 1)));
+  let b = Math.log(at(Math.min(nodes - 1, bestI + 1)));
+  const g = (Math.sqrt(5) - 1) / 2;
+  let c = b - g * (b - a);
+  let d = a + g * (b - a);
+  let fc = f(Math.exp(c));
+  let fd = f(Math.exp(d));
+  for (let k = 0; k < 18; k++) {
+    if (fc < fd) {
+      [b, d, fd] = [d, c, fc];
+      c = b - g * (b - a);
+      fc = f(Math.exp(c));
+    } else {
+      [a, c, fc] = [c, d, fd];
+      d = a + g * (b - a);
+      fd = f(Math.exp(d));
+    }
+  }
+  return Math.exp((a + b) / 2);
 }
 
 /** Starting (ε, σ) for the fit: Boyle estimate and a log-spaced ε scan, σ solved per ε; the lowest χ² wins. */
@@ -97,7 +155,9 @@ export function estimateLjStart(points: readonly StartPoint[], context: Property
   let hi = Math.min(bounds.epsilonK[1], tMin / 0.3);
   if (!(lo < hi)) [lo, hi] = bounds.epsilonK;
   const trials: Array<{ epsilonK: number; method: string }> = [];
-  for (let i = 0; i < SCAN_POINTS; i++) trials.push({ epsilonK: lo * (hi / lo) ** (i / (SCAN_POINTS - 1)), method: 'epsilon scan with sigma solved per epsilon' });
+  // Without a closed form in σ (densities) each trial costs a 1-D search, so the ε grid is coarser.
+  const scanPoints = points.some((p) => PROPERTY_MODELS[p.kind].sigmaExponent === null) ? 21 : SCAN_POINTS;
+  for (let i = 0; i < scanPoints; i++) trials.push({ epsilonK: lo * (hi / lo) ** (i / (scanPoints - 1)), method: 'epsilon scan with sigma solved per epsilon' });
   const boyleK = boyleTemperatureFromB2(points);
   if (boyleK !== null) {
     const epsilonK = boyleK / boyleReducedTemperature();

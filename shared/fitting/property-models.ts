@@ -1,13 +1,24 @@
 /**
  * Registry of the measured properties the Lennard-Jones fit understands, keyed by dataset kind.
- * Adding a property (e.g. density) is one entry here: its model with the analytic gradient in (ε/k_B, σ).
+ * Adding a property is one entry here: its model with the analytic gradient in (ε/k_B, σ).
  */
+import { densityWithGradient, reducedDensityOf, reducedStateOf } from '../physics/corresponding-states';
+import { ljEosDensity } from '../physics/lj-eos';
 import { b2WithGradient } from '../physics/virial';
 import { viscosityWithGradient } from '../physics/viscosity';
 
 export interface PropertyContext {
   molarMassGPerMol?: number;
   quantumCorrection: boolean;
+}
+
+/** Where a model is evaluated: the state point, and the measured value where the model must choose a phase. */
+export interface ModelPoint {
+  temperatureK: number;
+  /** Needed by state functions of T and P (density). */
+  pressureMPa?: number;
+  /** The measured value, used only to pick the liquid or vapour root of a two-phase state. */
+  measured?: number;
 }
 
 export interface PropertyPrediction {
@@ -22,12 +33,14 @@ export interface PropertyModel {
   unit: string;
   /** True when the model cannot be evaluated without the molar mass. */
   needsMolarMass: boolean;
+  /** True when every point needs a pressure. */
+  needsPressure: boolean;
   /**
    * k such that, at fixed T and ε, the classical model scales as σ^k (B2 ∝ b0 ∝ σ³; η ∝ σ^−2).
    * The starting-value scan uses it to solve σ for a trial ε in closed form; null if the property has no such scaling.
    */
   sigmaExponent: number | null;
-  evaluate(temperatureK: number, epsilonK: number, sigmaAngstrom: number, context: PropertyContext): PropertyPrediction;
+  evaluate(point: ModelPoint, epsilonK: number, sigmaAngstrom: number, context: PropertyContext): PropertyPrediction;
 }
 
 export const PROPERTY_MODELS = {
@@ -35,22 +48,48 @@ export const PROPERTY_MODELS = {
     label: 'second virial coefficient B2',
     unit: 'cm3/mol',
     needsMolarMass: false,
+    needsPressure: false,
     sigmaExponent: 3,
-    evaluate(temperatureK, epsilonK, sigmaAngstrom, context) {
+    evaluate(point, epsilonK, sigmaAngstrom, context) {
       const quantum = context.quantumCorrection && context.molarMassGPerMol !== undefined ? { molarMassGPerMol: context.molarMassGPerMol } : undefined;
-      const point = b2WithGradient(temperatureK, epsilonK, sigmaAngstrom, quantum);
-      return { value: point.b2Cm3PerMol, dEpsilonK: point.dB2dEpsilonK, dSigmaAngstrom: point.dB2dSigmaAngstrom };
+      const p = b2WithGradient(point.temperatureK, epsilonK, sigmaAngstrom, quantum);
+      return { value: p.b2Cm3PerMol, dEpsilonK: p.dB2dEpsilonK, dSigmaAngstrom: p.dB2dSigmaAngstrom };
     },
   },
   viscosity: {
     label: 'dilute-gas viscosity',
     unit: 'uPa s',
     needsMolarMass: true,
+    needsPressure: false,
     sigmaExponent: -2,
-    evaluate(temperatureK, epsilonK, sigmaAngstrom, context) {
+    evaluate(point, epsilonK, sigmaAngstrom, context) {
       if (context.molarMassGPerMol === undefined) throw new Error('the viscosity model needs the molar mass');
-      const point = viscosityWithGradient(temperatureK, epsilonK, sigmaAngstrom, context.molarMassGPerMol);
-      return { value: point.viscosityMicroPaS, dEpsilonK: point.dEtadEpsilonK, dSigmaAngstrom: point.dEtadSigmaAngstrom };
+      const p = viscosityWithGradient(point.temperatureK, epsilonK, sigmaAngstrom, context.molarMassGPerMol);
+      return { value: p.viscosityMicroPaS, dEpsilonK: p.dEtadEpsilonK, dSigmaAngstrom: p.dEtadSigmaAngstrom };
+    },
+  },
+  density: {
+    // The equation of state of the full LJ potential (Johnson, Zollweg & Gubbins 1993; lj-eos.ts) at the
+    // corresponding state; the simulation stage of a density fit replaces it by molecular dynamics.
+    label: 'fluid density (LJ equation of state)',
+    unit: 'kg/m3',
+    needsMolarMass: true,
+    needsPressure: true,
+    sigmaExponent: null,
+    evaluate(point, epsilonK, sigmaAngstrom, context) {
+      if (context.molarMassGPerMol === undefined) throw new Error('the density model needs the molar mass');
+      if (point.pressureMPa === undefined) throw new Error('the density model needs the pressure of every point');
+      const state = { temperatureK: point.temperatureK, pressureMPa: point.pressureMPa, epsilonK, sigmaAngstrom };
+      const reduced = reducedStateOf(state);
+      let eos = ljEosDensity(reduced.reducedTemperature, reduced.reducedPressure);
+      if (point.measured !== undefined && eos.roots.length > 1) {
+        // Two fluid roots (below the critical temperature): the measurement says which phase it is.
+        const measuredStar = reducedDensityOf(point.measured, context.molarMassGPerMol, sigmaAngstrom);
+        const nearest = eos.roots.reduce((a, b) => (Math.abs(Math.log(b / measuredStar)) < Math.abs(Math.log(a / measuredStar)) ? b : a));
+        if (nearest !== eos.reducedDensity) eos = ljEosDensity(reduced.reducedTemperature, reduced.reducedPressure, { prefer: nearest < eos.reducedDensity ? 'vapour' : 'liquid' });
+      }
+      const g = densityWithGradient(eos, state, context.molarMassGPerMol);
+      return { value: g.densityKgPerM3, dEpsilonK: g.dRhodEpsilonK, dSigmaAngstrom: g.dRhodSigmaAngstrom };
     },
   },
 } satisfies Record<string, PropertyModel>;

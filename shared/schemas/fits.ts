@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { mdSettingsSchema } from './simulations';
 
 const range = (name: string, lo: number, hi: number) =>
   z
@@ -29,6 +30,8 @@ export const createFitBody = z.object({
       bounds: z.object({ epsilonK: range('epsilonK', 0.1, 20000), sigmaAngstrom: range('sigmaAngstrom', 0.5, 30) }).optional(),
       restarts: z.number().int().min(0).max(10).optional(),
       maxIterations: z.number().int().min(5).max(2000).optional(),
+      /** Engine settings of the simulation stage of a fit with density data (reduced units). */
+      density: mdSettingsSchema.strict().optional(),
     })
     .strict()
     .optional(),

@@ -11,6 +11,8 @@ import { recordAudit } from '../audit/audit.service';
 import { findDataset, findVersionRow } from '../datasets/datasets.repository';
 import { loadVersionForFit } from '../datasets/datasets.service';
 import { findSubstance } from '../substances/substances.repository';
+import type { MdSettings } from '../../../shared/schemas/simulations';
+import { DENSITY_FIT_DEFAULTS, runDensityFit } from './density-fit';
 
 /** The exact dataset versions a fit used, frozen on the fit row. */
 export interface FitDatasetRef {
@@ -25,17 +27,37 @@ export interface FitDatasetRef {
 export interface FitJobInput {
   datasets: FitDatasetRef[];
   options: LjFitOptions;
+  /** Engine settings of the simulation stage; present when the fit has density data. */
+  density?: MdSettings;
+  createdBy?: string;
 }
 
-/** Builds the worker payload from the frozen references: rows are read from the immutable versions. */
+/** The worker payload, read from the frozen references: rows come from the immutable versions. */
+async function fitPayload(db: Db, input: FitJobInput) {
+  const datasets: FitDataset[] = [];
+  for (const ref of input.datasets) {
+    const rows = await loadVersionForFit(db, ref.versionId);
+    datasets.push({
+      id: ref.datasetId,
+      version: ref.version,
+      kind: ref.kind as FitDataset['kind'],
+      weight: ref.weight,
+      label: ref.name,
+      rows: rows.map((r) => ({ temperatureK: r.temperatureK, ...(r.pressureMPa !== null ? { pressureMPa: r.pressureMPa } : {}), value: r.value, uncertainty: r.uncertainty })),
+    });
+  }
+  return { datasets, options: input.options };
+}
+
+/**
+ * Gas-phase fits are one worker task. Fits with densities orchestrate: an equation-of-state stage, then
+ * rounds of NPT simulations as jobs of their own (cached and shared), from the main thread.
+ */
 export const fitJobKind: JobKind = {
-  async toPayload(db: Db, input: FitJobInput) {
-    const datasets: FitDataset[] = [];
-    for (const ref of input.datasets) {
-      const rows = await loadVersionForFit(db, ref.versionId);
-      datasets.push({ id: ref.datasetId, version: ref.version, kind: ref.kind as FitDataset['kind'], weight: ref.weight, label: ref.name, rows: rows.map((r) => ({ temperatureK: r.temperatureK, value: r.value, uncertainty: r.uncertainty })) });
-    }
-    return { datasets, options: input.options };
+  async run(env, input: FitJobInput) {
+    const payload = await fitPayload(env.db, input);
+    if (!input.datasets.some((d) => d.kind === 'density')) return env.runTask('fit', payload, env.progress);
+    return runDensityFit(env, payload, input.density ?? {}, input.createdBy ?? null);
   },
 };
 
@@ -49,16 +71,20 @@ export async function createFit(ctx: AppContext, actor: CurrentUser, body: Creat
     const dataset = await findDataset(ctx.db, wanted.id);
     if (!dataset || dataset.substanceId !== substance.id) throw new AppError(422, 'unknown_dataset', `Measurement set ${wanted.id} does not belong to ${substance.name}.`, [{ field, message: 'not a measurement set of this substance' }]);
     if (dataset.withdrawnAt) throw new AppError(422, 'dataset_withdrawn', `Measurement set "${dataset.name}" was withdrawn and cannot be fitted.`, [{ field, message: 'withdrawn' }]);
-    if (!isFitKind(dataset.property)) {
-      throw new AppError(422, 'kind_not_fittable', `Measurement set "${dataset.name}" holds ${PROPERTY_KINDS[dataset.property].label}, which this fit does not take.`, [{ field, message: `kind ${dataset.property} not supported by the fit` }]);
+    // Every stored kind has a model today; a kind added to the upload before the fit learns it is refused here.
+    const kind: string = dataset.property;
+    if (!isFitKind(kind)) {
+      throw new AppError(422, 'kind_not_fittable', `Measurement set "${dataset.name}" holds ${PROPERTY_KINDS[kind as PropertyKind].label}, which this fit does not take.`, [{ field, message: `kind ${kind} not supported by the fit` }]);
     }
     const version = wanted.version ?? (await ctx.db.selectFrom('datasetVersion').select((eb) => eb.fn.max('version').as('v')).where('datasetId', '=', dataset.id).executeTakeFirstOrThrow()).v;
     const versionRow = await findVersionRow(ctx.db, dataset.id, Number(version));
     if (!versionRow) throw new AppError(422, 'unknown_version', `Measurement set "${dataset.name}" has no version ${version}.`, [{ field: `datasets.${i}.version`, message: 'no such version' }]);
     refs.push({ datasetId: dataset.id, version: versionRow.version, versionId: versionRow.id, kind: dataset.property, name: dataset.name, weight: wanted.weight ?? 1 });
   }
-  const options: LjFitOptions = { ...body.options, molarMassGPerMol: substance.molarMassGramsPerMol };
-  const input: FitJobInput = { datasets: refs, options };
+  const { density, ...fitOptions } = body.options ?? {};
+  const options: LjFitOptions = { ...fitOptions, molarMassGPerMol: substance.molarMassGramsPerMol };
+  const hasDensity = refs.some((r) => r.kind === 'density');
+  const input: FitJobInput = { datasets: refs, options, ...(hasDensity ? { density: { ...DENSITY_FIT_DEFAULTS, ...density } } : {}), createdBy: actor.id };
   const now = new Date().toISOString();
   return ctx.db.transaction().execute(async (tx) => {
     const last = await tx.selectFrom('fit').select((eb) => eb.fn.max('number').as('n')).where('substanceId', '=', substance.id).executeTakeFirst();
@@ -66,7 +92,7 @@ export async function createFit(ctx: AppContext, actor: CurrentUser, body: Creat
     const job = await ctx.jobs.enqueue({ kind: 'fit', input, seed: 0, createdBy: actor.id }, tx);
     const fit = await tx
       .insertInto('fit')
-      .values({ substanceId: substance.id, number, jobId: job.id, model: 'lj-12-6', datasetsJson: JSON.stringify(refs), optionsJson: JSON.stringify(options), codeVersion: ctx.codeVersion, createdBy: actor.id, createdAt: now })
+      .values({ substanceId: substance.id, number, jobId: job.id, model: 'lj-12-6', datasetsJson: JSON.stringify(refs), optionsJson: JSON.stringify({ ...options, ...(input.density ? { density: input.density } : {}) }), codeVersion: ctx.codeVersion, createdBy: actor.id, createdAt: now })
       .returning('id')
       .executeTakeFirstOrThrow();
     await recordAudit(tx, { actor, action: 'fit.started', targetType: 'fit', targetId: fit.id, summary: `${actor.email} started Fit #${number} of ${substance.name} on ${refs.map((r) => `${r.name} v${r.version}`).join(', ')}`, after: { datasets: refs, options } });

@@ -12,7 +12,7 @@ export function modelCurve(kind: FitKind, temperaturesK: number[], epsilonK: num
   for (let i = 0; i <= steps; i++) {
     const t = from + ((to - from) * i) / steps;
     try {
-      points.push({ x: t, y: PROPERTY_MODELS[kind].evaluate(t, epsilonK, sigmaAngstrom, context).value });
+      points.push({ x: t, y: PROPERTY_MODELS[kind].evaluate({ temperatureK: t }, epsilonK, sigmaAngstrom, context).value });
     } catch {
       // Outside the model's tabulated range (e.g. collision integrals): leave a gap rather than invent a value.
     }

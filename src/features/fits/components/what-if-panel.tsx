@@ -19,7 +19,7 @@ export function WhatIfPanel({ result, names, context, weights }: { result: LjFit
     let sum = 0;
     for (const r of result.residuals) {
       try {
-        const predicted = PROPERTY_MODELS[r.kind as FitKind].evaluate(r.temperatureK, eps, sigma, context).value;
+        const predicted = PROPERTY_MODELS[r.kind as FitKind].evaluate({ temperatureK: r.temperatureK, pressureMPa: r.pressureMPa, measured: r.measured }, eps, sigma, context).value;
         const w = weights[String(r.datasetId)] ?? 1;
         sum += ((w * (predicted - r.measured)) / r.uncertainty) ** 2;
       } catch {
