@@ -51,7 +51,10 @@ export interface PairSums {
   pairsInside: number;
 }
 
-const MAX_CELLS = 4096;
+/** Upper bound on cells: about one per atom, so a dilute gas does not loop over thousands of empty cells. */
+function maxCells(atoms: number): number {
+  return Math.max(125, Math.min(4096, atoms));
+}
 
 export class LjSystem {
   readonly n: number;
@@ -123,7 +126,7 @@ export class LjSystem {
     this.halfBox = 0.5 * box;
     const rlist = Math.sqrt(this.rlist2);
     let m = Math.floor((2 * box) / rlist);
-    while (m * m * m > MAX_CELLS) m--;
+    while (m * m * m > maxCells(this.n)) m--;
     if (m < 5) m = 0;
     if (m === 0) {
       this.m = 0;
