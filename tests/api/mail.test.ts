@@ -96,9 +96,25 @@ describe('GET /api/mailbox', () => {
       const res = await (await t.signIn(email)).get('/api/mailbox');
       expect(res.status).toBe(403);
     }
+    expect((await t.client().get('/api/mail/outbox')).status).toBe(401);
+    expect((await (await t.signIn(EMAIL.reviewer)).get('/api/mail/outbox')).status).toBe(403);
+    const badStatus = await admin.get('/api/mail/outbox').query({ status: 'lost' });
+    expect(badStatus.status).toBe(400);
+    expect(badStatus.body.error.details[0].field).toBe('status');
     const bad = await admin.get('/api/mailbox').query({ limit: 0 });
     expect(bad.status).toBe(400);
     expect(bad.body.error.details[0].field).toBe('limit');
+  });
+});
+
+describe('GET /api/mail/outbox', () => {
+  it('lists what was sent, newest first, with counts per status', async () => {
+    const res = await admin.get('/api/mail/outbox').query({ status: 'sent' });
+    expect(res.status).toBe(200);
+    expect(res.body.mode).toBe('local');
+    expect(res.body.counts.sent).toBeGreaterThanOrEqual(1);
+    expect(res.body.messages.every((m: { status: string }) => m.status === 'sent')).toBe(true);
+    expect(res.body.messages.map((m: { subject: string }) => m.subject)).toContain('Mailium v1 — submitted for review');
   });
 });
 
@@ -186,5 +202,11 @@ describe('with SMTP_URL pointing at a closed port', () => {
     // A failed row is never tried again.
     expect(await broken.ctx.mail.flush(new Date(Date.now() + 365 * 86_400_000))).toBe(0);
     expect(broken.logs.some((l) => l.includes('giving up'))).toBe(true);
+
+    const outbox = await (await broken.signIn(EMAIL.admin)).get('/api/mail/outbox').query({ status: 'failed' });
+    expect(outbox.status).toBe(200);
+    expect(outbox.body.mode).toBe('smtp');
+    expect(outbox.body.counts.failed).toBe(1);
+    expect(outbox.body.messages).toEqual([expect.objectContaining({ subject: 'Unreachable', status: 'failed', attempts: MAX_MAIL_ATTEMPTS, to: [EMAIL.admin], nextAttemptAt: null, lastError: expect.stringMatching(/ECONNREFUSED/) })]);
   });
 });

@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BrowserContext, Locator } from 'playwright-core';
 import { openDatabase } from '../../server/db/database';
 import { mailBody, queueMail } from '../../server/features/mail/mail.service';
-import { chromiumOrSkip, openBrowser, screenshot, signIn, startApp, type RunningApp } from './harness';
+import { chromiumOrSkip, openBrowser, screenshot, SCREENSHOT_DIR, signIn, startApp, type RunningApp } from './harness';
 
 const { available } = chromiumOrSkip();
 
@@ -69,6 +69,9 @@ describe.skipIf(!available)('admin pages in Chromium: Mailbox and Audit trail', 
     await expectVisible(reader.getByText('reviewer@demo.epsigma.test'));
     expect(await reader.locator('pre').textContent()).toContain('ε/k_B = 152.3 ± 0.8 K, σ = 3.71 ± 0.01 Å');
     expect(await reader.locator('pre').textContent()).toContain(`Open in Epsigma: ${app.url}/substances`);
+    const outbox = page.getByRole('table', { name: 'Outbox' });
+    await expectVisible(outbox.getByText(SUBJECT));
+    expect(await outbox.getByRole('row').filter({ hasText: SUBJECT }).textContent()).toContain('sent');
     await screenshot(page, 'mailbox-text');
 
     await reader.getByRole('button', { name: 'HTML' }).click();
@@ -76,7 +79,8 @@ describe.skipIf(!available)('admin pages in Chromium: Mailbox and Audit trail', 
     await expectVisible(frame);
     expect(await frame.getAttribute('sandbox')).toBe('');
     await expectVisible(page.frameLocator('iframe').getByRole('link', { name: 'Open in Epsigma' }));
-    await screenshot(page, 'mailbox-html');
+    // An element shot: Chromium leaves a frame blank in full-page shots taller than the window.
+    await reader.screenshot({ path: path.join(SCREENSHOT_DIR, 'mailbox-html.png') });
 
     await page.getByLabel('Recipient contains').fill('nobody-here@');
     await expectVisible(page.getByText('No mail to that address'));
@@ -118,8 +122,10 @@ describe.skipIf(!available)('admin pages in Chromium: Mailbox and Audit trail', 
     const labels = (await main.getByRole('link').allTextContents()).map((s) => s.trim());
     expect(labels).not.toContain('Mailbox');
     expect(labels).not.toContain('Audit trail');
-    await page.goto(`${app.url}/mailbox`);
-    await expectVisible(page.getByText('Not allowed for your roles'));
+    for (const address of ['/mailbox', '/audit']) {
+      await page.goto(`${app.url}${address}`);
+      await expectVisible(page.getByText('Not allowed for your roles'));
+    }
     await page.close();
   });
 });

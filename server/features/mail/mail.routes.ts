@@ -4,10 +4,16 @@ import { requirePolicy } from '../../common/auth-middleware';
 import { AppError } from '../../common/errors';
 import { validQuery } from '../../common/validate';
 import type { AppContext } from '../../app-context';
-import { listMailbox } from './mail.repository';
+import { listMailbox, listOutbox } from './mail.repository';
+import { outboxCounts } from './mail.service';
 
 const mailboxQuery = z.object({
   to: z.string().trim().max(200).optional(),
+  limit: z.coerce.number().int().min(1).max(500).default(100),
+});
+
+const outboxQuery = z.object({
+  status: z.enum(['queued', 'sent', 'failed']).optional(),
   limit: z.coerce.number().int().min(1).max(500).default(100),
 });
 
@@ -32,6 +38,29 @@ export function mailRoutes(ctx: AppContext): Router {
         html: m.html,
         messageId: m.messageId,
         sizeBytes: m.rawSizeBytes,
+      })),
+    });
+  });
+
+  /** What the app tried to send and how it went; available with the local service and with SMTP_URL. */
+  router.get('/mail/outbox', requirePolicy('mailbox:read'), async (req, res) => {
+    const { status, limit } = validQuery(outboxQuery, req);
+    const rows = await listOutbox(db, { status, limit });
+    res.json({
+      mode: ctx.mail.mode,
+      counts: await outboxCounts(db),
+      messages: rows.map((m) => ({
+        id: m.id,
+        to: JSON.parse(m.toJson) as string[],
+        subject: m.subject,
+        reason: m.reason,
+        status: m.status,
+        attempts: m.attempts,
+        lastError: m.lastError,
+        createdAt: m.createdAt,
+        nextAttemptAt: m.status === 'queued' ? m.nextAttemptAt : null,
+        sentAt: m.sentAt,
+        messageId: m.messageId,
       })),
     });
   });

@@ -18,9 +18,32 @@ export interface MailboxFilter {
   to?: string;
 }
 
+export type OutboxStatus = 'queued' | 'sent' | 'failed';
+
+export interface OutboxMessage {
+  id: number;
+  to: string[];
+  subject: string;
+  reason: string;
+  status: OutboxStatus;
+  attempts: number;
+  lastError: string | null;
+  createdAt: string;
+  nextAttemptAt: string | null;
+  sentAt: string | null;
+  messageId: string | null;
+}
+
+export interface Outbox {
+  mode: 'local' | 'smtp';
+  counts: Record<OutboxStatus, number>;
+  messages: OutboxMessage[];
+}
+
 export const mailKeys = {
   all: ['mailbox'] as const,
   list: (filter: MailboxFilter) => [...mailKeys.all, 'list', filter] as const,
+  outbox: (status?: OutboxStatus) => [...mailKeys.all, 'outbox', status ?? 'any'] as const,
 };
 
 export const mailboxQueryOptions = (filter: MailboxFilter) =>
@@ -36,3 +59,12 @@ export const mailboxQueryOptions = (filter: MailboxFilter) =>
   });
 
 export const useMailbox = (filter: MailboxFilter) => useQuery(mailboxQueryOptions(filter));
+
+export const outboxQueryOptions = (status?: OutboxStatus) =>
+  queryOptions({
+    queryKey: mailKeys.outbox(status),
+    queryFn: () => api<Outbox>(`/mail/outbox${status ? `?status=${status}` : ''}`),
+    refetchInterval: 10_000,
+  });
+
+export const useOutbox = (status?: OutboxStatus) => useQuery(outboxQueryOptions(status));
