@@ -53,6 +53,7 @@ export const methaneFull: ExportableParameterSet = {
   cutoffSigma: null,
   validity: { temperatureMinK: 200, temperatureMaxK: 500, pressureMinMPa: null, pressureMaxMPa: null },
   fitId: 11,
+  datasets: [{ id: 8, version: 1, kind: 'b2', name: 'Methane B2, Quillmoor cell B', source: 'Quillmoor lab notebook 5', doi: null }],
 };
 
 /** Same scheme and cutoff as argonShifted, so a mixture of the two is consistent. */
