@@ -58,8 +58,6 @@ export interface NveResult {
   /** N·steps / wall time of the step loop. */
   atomStepsPerSecond: number;
   wallSeconds: number;
-  /** CPU time of the step loop where the host exposes it (Node), else the wall time. */
-  cpuSeconds: number;
   /** Final − initial conserved energy per atom (kinetic + shifted potential). */
   energyDriftPerAtom: number;
   /** Least-squares slope of the conserved energy per atom, per unit reduced time. */
@@ -117,8 +115,6 @@ export function runNve(options: NveOptions): NveResult {
   let eMin = se;
   let eMax = se;
   let last = first;
-  const cpuClock = (globalThis as { process?: { cpuUsage?: () => { user: number; system: number } } }).process?.cpuUsage;
-  const cpu0 = cpuClock ? cpuClock() : null;
   const tStart = performance.now();
   for (let step = 1; step <= steps; step++) {
     if (system.kickDrift(dt)) system.buildList();
@@ -142,8 +138,6 @@ export function runNve(options: NveOptions): NveResult {
     }
   }
   const wall = (performance.now() - tStart) / 1000;
-  const cpu1 = cpuClock ? cpuClock() : null;
-  const cpu = cpu0 && cpu1 ? (cpu1.user - cpu0.user + cpu1.system - cpu0.system) / 1e6 : wall;
   const denom = sn * stt - st * st;
   return {
     atoms,
@@ -154,7 +148,6 @@ export function runNve(options: NveOptions): NveResult {
     reducedDensity: rho,
     atomStepsPerSecond: (atoms * steps) / wall,
     wallSeconds: wall,
-    cpuSeconds: cpu,
     energyDriftPerAtom: last.conservedEnergyPerAtom - first.conservedEnergyPerAtom,
     energyDriftSlopePerAtomPerTime: denom > 0 ? (sn * ste - st * se) / denom : 0,
     energyRangePerAtom: eMax - eMin,
