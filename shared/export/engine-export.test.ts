@@ -120,9 +120,12 @@ describe('LAMMPS fragments', () => {
     expect(text).toMatch(/^[\x20-\x7e\n]*$/); // plain ASCII for old readers
   });
 
-  it('marks a set that is not approved', () => {
-    const draft = { ...argonShifted, state: 'in-review', approvedAt: null, approvedBy: null };
-    expect(lammpsParameterSet(draft, 'real')).toContain('# Status: NOT APPROVED (state: in-review)');
+  it('marks a set that is not approved, superseded or retired', () => {
+    // State names of shared/parameter-sets/transitions.ts.
+    const draft = { ...argonShifted, state: 'in_review', approvedAt: null, approvedBy: null };
+    expect(lammpsParameterSet(draft, 'real')).toContain('# Status: NOT APPROVED (state: in_review)');
+    expect(lammpsParameterSet({ ...argonShifted, state: 'superseded' }, 'real')).toContain('# Status: SUPERSEDED by a newer version (approved 2026-11-30T10:00:00Z by R. Ostrova)');
+    expect(gromacsParameterSet({ ...argonShifted, state: 'retired' })).toContain('; Status: RETIRED (was approved 2026-11-30T10:00:00Z by R. Ostrova)');
   });
 
   it('free text cannot escape its comment line', () => {

@@ -25,7 +25,7 @@ export const SCHEME_DESCRIPTION: Record<ExportScheme, string> = {
   'truncated-shifted': 'truncated at rc and shifted to zero at rc, no tail corrections',
 };
 
-export type ExportErrorCode = 'invalid-set' | 'unknown-format' | 'too-few-sets' | 'duplicate-set' | 'unknown-rule';
+export type ExportErrorCode = 'invalid-set' | 'unknown-format' | 'too-few-sets' | 'duplicate-set' | 'unknown-rule' | 'unknown-unit';
 
 /** Thrown for input the exporters refuse; `code` lets the server map it to a 400 answer. */
 export class ExportError extends Error {
@@ -117,11 +117,12 @@ export function substanceLabel(set: ExportableParameterSet): string {
 }
 
 export function approvalText(set: ExportableParameterSet): string {
-  if (set.state.toLowerCase() === 'approved' && set.approvedAt) {
-    return `approved ${oneLine(set.approvedAt)}${set.approvedBy ? ` by ${oneLine(set.approvedBy)}` : ''}`;
-  }
-  const when = set.approvedAt ? `; approved ${oneLine(set.approvedAt)} before that` : '';
-  return `NOT APPROVED (state: ${oneLine(set.state)}${when})`;
+  const state = set.state.toLowerCase();
+  const approved = set.approvedAt ? `approved ${oneLine(set.approvedAt)}${set.approvedBy ? ` by ${oneLine(set.approvedBy)}` : ''}` : '';
+  if (state === 'approved') return approved || 'approved (date not recorded)';
+  if (state === 'superseded') return `SUPERSEDED by a newer version${approved ? ` (${approved})` : ''}`;
+  if (state === 'retired') return `RETIRED${approved ? ` (was ${approved})` : ''}`;
+  return `NOT APPROVED (state: ${oneLine(set.state)})`;
 }
 
 export interface ValidityRange {

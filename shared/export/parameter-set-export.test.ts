@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { EXPORT_FORMATS, exportMixture, exportParameterSet, isExportFormat, type ExportFormat } from './parameter-set-export';
+import { EXPORT_FORMATS, exportMixture, exportOptionsFromQuery, exportParameterSet, isExportFormat, type ExportFormat } from './parameter-set-export';
 import { ExportError } from './export-common';
 import { checkJsonSchema } from './json-schema-check';
 import { MIXTURE_JSON_SCHEMA, PARAMETER_SET_JSON_SCHEMA } from './json-schema';
@@ -77,5 +77,21 @@ describe('exportMixture', () => {
     expectExportError(() => exportMixture([argonShifted, argonShifted], 'kong', 'json'), 'duplicate-set', 'parameter set 12 appears twice in the mixture');
     expectExportError(() => exportMixture([argonShifted, kryptonShifted], 'mean' as CombiningRule, 'csv'), 'unknown-rule', 'unknown combining rule "mean"; use one of lorentz-berthelot, kong, waldman-hagler');
     expectExportError(() => exportMixture([argonShifted, { ...kryptonShifted, sigmaAngstrom: -3 }], 'kong', 'csv'), 'invalid-set', 'parameter set 16: sigmaAngstrom must be a finite number above 0');
+  });
+});
+
+describe('exportOptionsFromQuery (the units= query value)', () => {
+  it('reads at most one energy and one length unit in any order', () => {
+    expect(exportOptionsFromQuery(undefined)).toEqual({});
+    expect(exportOptionsFromQuery('')).toEqual({});
+    expect(exportOptionsFromQuery('kJ/mol,nm')).toEqual({ energyUnit: 'kJ/mol', lengthUnit: 'nm' });
+    expect(exportOptionsFromQuery(' nm , eV ')).toEqual({ energyUnit: 'eV', lengthUnit: 'nm' });
+    expect(exportOptionsFromQuery('kcal/mol,A')).toEqual({ energyUnit: 'kcal/mol', lengthUnit: 'Å' });
+    expect(exportOptionsFromQuery('Å')).toEqual({ lengthUnit: 'Å' });
+  });
+
+  it('refuses unknown units and a second unit of the same kind', () => {
+    expectExportError(() => exportOptionsFromQuery('J'), 'unknown-unit', 'units: "J" is not a unit we export in, or repeats a kind; give at most one of K, kJ/mol, kcal/mol, eV and one of Å, nm (A for Å)');
+    expectExportError(() => exportOptionsFromQuery('eV,K'), 'unknown-unit', 'units: "K" is not a unit we export in, or repeats a kind; give at most one of K, kJ/mol, kcal/mol, eV and one of Å, nm (A for Å)');
   });
 });

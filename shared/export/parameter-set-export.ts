@@ -3,7 +3,7 @@
  * `ExportableParameterSet`; everything here is pure (no Node-only APIs) so the server routes
  * (GET /api/parameter-sets/:id/export, GET /api/mixtures) and the browser share it.
  */
-import type { EnergyUnit, LengthUnit } from '../physics/parameter-units';
+import { isEnergyUnit, isLengthUnit, ENERGY_UNITS, LENGTH_UNITS, type EnergyUnit, type LengthUnit } from '../physics/parameter-units';
 import { COMBINING_RULES, isCombiningRule, type CombiningRule } from '../mixing/combining-rules';
 import { parameterSetJsonText, mixtureJsonText } from './json-export';
 import { parameterSetsToCsv, mixtureToCsv } from './csv-export';
@@ -46,6 +46,31 @@ export function isExportFormat(value: unknown): value is ExportFormat {
 export interface ExportOptions {
   energyUnit?: EnergyUnit;
   lengthUnit?: LengthUnit;
+}
+
+/** Spellings of Å that survive URLs and keyboards without the letter. */
+const ANGSTROM_ALIASES = new Set(['A', 'Angstrom', 'angstrom', 'Å', '\u212b']);
+
+/**
+ * The `units=` query value of the export routes: comma-separated, at most one energy and one length unit,
+ * e.g. "kJ/mol,nm", "eV" or "kcal/mol,A". Empty or missing gives no options.
+ */
+export function exportOptionsFromQuery(units: string | null | undefined): ExportOptions {
+  const options: ExportOptions = {};
+  if (units == null || units.trim() === '') return options;
+  for (const raw of units.split(',')) {
+    const token = raw.trim();
+    const unit = ANGSTROM_ALIASES.has(token) ? 'Å' : token;
+    if (isEnergyUnit(unit) && options.energyUnit === undefined) options.energyUnit = unit;
+    else if (isLengthUnit(unit) && options.lengthUnit === undefined) options.lengthUnit = unit;
+    else {
+      throw new ExportError(
+        'unknown-unit',
+        `units: "${token}" is not a unit we export in, or repeats a kind; give at most one of ${ENERGY_UNITS.join(', ')} and one of ${LENGTH_UNITS.join(', ')} (A for Å)`,
+      );
+    }
+  }
+  return options;
 }
 
 export interface ExportResult {
