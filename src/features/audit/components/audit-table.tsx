@@ -1,9 +1,28 @@
+import { Link } from 'react-router-dom';
 import { createColumnHelper } from '@tanstack/react-table';
 import { Badge } from '@/components/ui/badge';
 import { DataTable } from '@/components/ui/data-table';
 import type { AuditEvent } from '../api/audit';
 
 const col = createColumnHelper<AuditEvent>();
+
+/** Pages that show a target, by the target type written in the audit row. */
+const TARGET_PAGES: Record<string, (id: string) => string> = {
+  substance: (id) => `/substances/${id}`,
+  dataset: (id) => `/datasets/${id}`,
+  fit: (id) => `/fits/${id}`,
+  parameterSet: (id) => `/parameter-sets/${id}`,
+};
+
+function Target({ event }: { event: AuditEvent }) {
+  const label = `${event.targetType}${event.targetId ? ` ${event.targetId}` : ''}`;
+  const page = event.targetId ? TARGET_PAGES[event.targetType]?.(event.targetId) : undefined;
+  return page ? (
+    <Link to={page} className="whitespace-nowrap underline decoration-rule underline-offset-4 hover:decoration-copper">{label}</Link>
+  ) : (
+    <span className="whitespace-nowrap">{label}</span>
+  );
+}
 
 function Changes({ event }: { event: AuditEvent }) {
   if (event.before == null && event.after == null) return <span className="text-ink-faint">—</span>;
@@ -27,7 +46,7 @@ const columns = [
   col.accessor('at', { header: 'When', cell: (c) => <span className="num whitespace-nowrap">{new Date(c.getValue()).toLocaleString()}</span> }),
   col.accessor('actorEmail', { header: 'Actor', cell: (c) => c.getValue() ?? <span className="text-ink-faint">system</span> }),
   col.accessor('action', { header: 'Action', cell: (c) => <Badge>{c.getValue()}</Badge> }),
-  col.accessor((e) => `${e.targetType}${e.targetId ? ` ${e.targetId}` : ''}`, { id: 'target', header: 'Target', cell: (c) => <span className="whitespace-nowrap">{c.getValue()}</span> }),
+  col.accessor((e) => `${e.targetType}${e.targetId ? ` ${e.targetId}` : ''}`, { id: 'target', header: 'Target', cell: (c) => <Target event={c.row.original} /> }),
   col.accessor('summary', { header: 'Summary', enableSorting: false, cell: (c) => <span className="text-ink-soft">{c.getValue()}</span> }),
   col.display({ id: 'changes', header: 'Changes', cell: (c) => <Changes event={c.row.original} /> }),
 ];
