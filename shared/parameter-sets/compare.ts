@@ -2,6 +2,7 @@
  * Deviations of a parameter pair from the measured points of a fit, per measurement set, so a reviewer
  * can see what replacing the approved ε/σ would change on the same data. Same measures as the fit's own
  * summary (lj-fit.ts): RMS of model − measured in the set's unit, and the mean absolute relative deviation.
+ * Density points carry their pressure, and the measured value picks the phase where the EOS has two roots.
  */
 import type { LjResidual } from '../fitting/lj-fit';
 import { PROPERTY_MODELS, type FitKind, type PropertyContext } from '../fitting/property-models';
@@ -10,7 +11,7 @@ export interface DatasetDeviation {
   datasetId: string | number;
   kind: FitKind;
   points: number;
-  /** √(mean (model − measured)²), in the set's unit (cm³/mol for B2, µPa·s for viscosity). */
+  /** √(mean (model − measured)²), in the set's unit (cm³/mol for B2, µPa·s for viscosity, kg/m³ for density). */
   rms: number;
   /** Mean |model − measured|/|measured| in percent; null when every measured value is 0. */
   aadPercent: number | null;
@@ -19,7 +20,7 @@ export interface DatasetDeviation {
 }
 
 export function datasetDeviations(
-  points: ReadonlyArray<Pick<LjResidual, 'datasetId' | 'kind' | 'temperatureK' | 'measured'>>,
+  points: ReadonlyArray<Pick<LjResidual, 'datasetId' | 'kind' | 'temperatureK' | 'measured'> & { pressureMPa?: number }>,
   epsilonK: number,
   sigmaAngstrom: number,
   context: PropertyContext,
@@ -34,7 +35,7 @@ export function datasetDeviations(
     for (const p of mine) {
       let predicted: number;
       try {
-        predicted = PROPERTY_MODELS[p.kind].evaluate(p.temperatureK, epsilonK, sigmaAngstrom, context).value;
+        predicted = PROPERTY_MODELS[p.kind].evaluate({ temperatureK: p.temperatureK, pressureMPa: p.pressureMPa, measured: p.measured }, epsilonK, sigmaAngstrom, context).value;
       } catch {
         continue;
       }
