@@ -28,7 +28,7 @@ function Changes({ event }: { event: AuditEvent }) {
   if (event.before == null && event.after == null) return <span className="text-ink-faint">—</span>;
   return (
     <details>
-      <summary className="cursor-pointer text-xs font-semibold text-copper-dark">Before / after</summary>
+      <summary className="cursor-pointer whitespace-nowrap text-xs font-semibold text-copper-dark">Before / after</summary>
       <div className="mt-1 grid gap-2 sm:grid-cols-2">
         {(['before', 'after'] as const).map((k) => (
           <div key={k}>
