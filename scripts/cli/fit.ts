@@ -1,17 +1,27 @@
 /**
- * `npm run -s cli -- fit --data FILE.csv [--data FILE2.csv ...] [--molar-mass M] [--quantum] [--restarts N] --json`
- * Fits Lennard-Jones (ε/k_B, σ) to uploaded-format measurement CSVs (B2 and/or viscosity, one property per file;
- * headers such as "T (K),B2 (cm3/mol),u(B2) (cm3/mol)" or "T (K),eta (uPa s),u(eta) (uPa s)").
- * Prints { status, epsilonK, sigmaAngstrom, stdErr, correlation, chi2, dof, reducedChi2, convergence, warnings }.
+ * `npm run -s cli -- fit --data FILE.csv [--data FILE2.csv ...] [--molar-mass M] [--quantum] [--restarts N]
+ *   [--atoms N --steps S --cutoff RC --scheme truncated-tail|truncated-shifted --seed K] --json`
+ * Fits Lennard-Jones (ε/k_B, σ) to uploaded-format measurement CSVs (B2, viscosity or density, one property
+ * per file; headers such as "T (K),B2 (cm3/mol),u(B2) (cm3/mol)", "T (K),eta (uPa s)" or "T (K),P (MPa),rho (kg/m3)").
+ * With density data the equation-of-state stage is followed by the simulation stage: NPT runs in worker
+ * threads (WORKERS, default cores − 1), cached for the duration of the command.
+ * Prints { status, epsilonK, sigmaAngstrom, stdErr, correlation, chi2, dof, reducedChi2, convergence, warnings }
+ * plus { eosStage, mdRuns, mdIterations } for density fits.
  */
 import { readFileSync } from 'node:fs';
 import { parseArgs } from 'node:util';
-import { fitLennardJones, type FitDataset } from '../../shared/fitting/lj-fit';
+import os from 'node:os';
+import { fitLennardJones, type FitDataset, type LjFitResult } from '../../shared/fitting/lj-fit';
+import { mdStageFit, type MdRunSummary, type MdStatePoint } from '../../shared/fitting/md-stage';
+import { DENSITY_FIT_DEFAULTS } from '../../server/features/fits/density-fit';
+import { normaliseState, simulationCacheKey } from '../../server/features/simulations/simulations.service';
+import { createWorkerPool } from '../../server/jobs/worker-pool';
+import type { NptResult } from '../../shared/physics/md/npt';
 import { isFitKind } from '../../shared/fitting/property-models';
 import { parseMeasurementCsv } from '../../shared/measurements/parse-measurement-csv';
 import { rowValueAndUncertainty } from '../../shared/measurements/property-kinds';
 
-const USAGE = 'usage: fit --data <file.csv> [--data <file2.csv> ...] [--molar-mass <g/mol>] [--quantum] [--restarts <n>] --json';
+const USAGE = 'usage: fit --data <file.csv> [--data <file2.csv> ...] [--molar-mass <g/mol>] [--quantum] [--restarts <n>] [--atoms <n> --steps <n> --cutoff <rc/σ> --scheme truncated-tail|truncated-shifted --seed <k>] --json';
 
 function positiveNumberFlag(name: string, raw: string | undefined): number | undefined {
   if (raw === undefined) return undefined;
@@ -33,20 +43,20 @@ function loadDataset(path: string, molarMassGPerMol: number | undefined): FitDat
     throw new Error(`${path}: ${parsed.problems.map((p) => p.message).join(' | ')}`);
   }
   const kind = parsed.kind;
-  if (!isFitKind(kind)) throw new Error(`${path}: holds ${String(kind)} data, which the Lennard-Jones fit does not use yet (it fits b2 and viscosity)`);
+  if (!isFitKind(kind)) throw new Error(`${path}: holds ${String(kind)} data, which the Lennard-Jones fit does not use`);
   return {
     id: path,
     kind,
     label: path,
     rows: parsed.rows.map((row) => {
       const { value, uncertainty } = rowValueAndUncertainty(row);
-      return { temperatureK: row.temperatureK, value, uncertainty };
+      return { temperatureK: row.temperatureK, ...(row.kind === 'density' ? { pressureMPa: row.pressureMPa } : {}), value, uncertainty };
     }),
   };
 }
 
 export async function run(argv: string[]): Promise<unknown> {
-  let values: { data?: string[]; 'molar-mass'?: string; quantum?: boolean; restarts?: string; json?: boolean };
+  let values: { data?: string[]; 'molar-mass'?: string; quantum?: boolean; restarts?: string; json?: boolean; atoms?: string; steps?: string; cutoff?: string; scheme?: string; seed?: string };
   try {
     ({ values } = parseArgs({
       args: argv,
@@ -58,6 +68,11 @@ export async function run(argv: string[]): Promise<unknown> {
         quantum: { type: 'boolean' },
         restarts: { type: 'string' },
         json: { type: 'boolean' },
+        atoms: { type: 'string' },
+        steps: { type: 'string' },
+        cutoff: { type: 'string' },
+        scheme: { type: 'string' },
+        seed: { type: 'string' },
       },
     }));
   } catch (err) {
@@ -76,7 +91,73 @@ export async function run(argv: string[]): Promise<unknown> {
   if (datasets.some((d) => d.kind === 'viscosity') && molarMassGPerMol === undefined) {
     throw new Error('viscosity data need --molar-mass (the Chapman–Enskog viscosity depends on the molecular mass)');
   }
-  const fit = fitLennardJones(datasets, { molarMassGPerMol, quantumCorrection: values.quantum ?? false, ...(restarts !== undefined ? { restarts } : {}) });
+  if (datasets.some((d) => d.kind === 'density') && molarMassGPerMol === undefined) {
+    throw new Error('density data need --molar-mass (mass density = reduced density × M / (N_A σ³))');
+  }
+  const options = { molarMassGPerMol, quantumCorrection: values.quantum ?? false, ...(restarts !== undefined ? { restarts } : {}) };
+  const fit = fitLennardJones(datasets, options);
+  if (!datasets.some((d) => d.kind === 'density') || fit.status !== 'succeeded') return summary(fit, datasets.some((d) => d.kind === 'density') ? { eosStage: summary(fit) } : {});
+  return densityStage(datasets, fit, molarMassGPerMol!, values);
+}
+
+/** The simulation stage, with the worker pool and an in-command cache of runs by reduced state and settings. */
+async function densityStage(datasets: FitDataset[], eos: LjFitResult, molarMassGPerMol: number, values: { atoms?: string; steps?: string; cutoff?: string; scheme?: string; seed?: string }) {
+  const intFlag = (name: string, raw: string | undefined, lo: number, hi: number) => {
+    if (raw === undefined) return undefined;
+    const v = Number(raw);
+    if (!Number.isInteger(v) || v < lo || v > hi) throw new Error(`--${name} must be a whole number from ${lo} to ${hi}, got "${raw}"`);
+    return v;
+  };
+  const cutoff = values.cutoff === undefined ? undefined : Number(values.cutoff);
+  if (cutoff !== undefined && !(cutoff >= 2 && cutoff <= 4)) throw new Error(`--cutoff must be between 2 and 4 (rc/σ), got "${values.cutoff}"`);
+  if (values.scheme !== undefined && values.scheme !== 'truncated-tail' && values.scheme !== 'truncated-shifted') throw new Error(`--scheme must be truncated-tail or truncated-shifted, got "${values.scheme}"`);
+  const md = {
+    ...DENSITY_FIT_DEFAULTS,
+    ...(intFlag('atoms', values.atoms, 108, 20000) !== undefined ? { atoms: Number(values.atoms) } : {}),
+    ...(intFlag('steps', values.steps, 1000, 2_000_000) !== undefined ? { steps: Number(values.steps) } : {}),
+    ...(cutoff !== undefined ? { cutoff } : {}),
+    ...(values.scheme ? { scheme: values.scheme as 'truncated-tail' | 'truncated-shifted' } : {}),
+    ...(intFlag('seed', values.seed, 0, 2 ** 32 - 1) !== undefined ? { seed: Number(values.seed) } : {}),
+  };
+  const pool = createWorkerPool(Number(process.env.WORKERS) || Math.max(1, os.availableParallelism() - 1));
+  const cache = new Map<string, Promise<NptResult>>();
+  let runs = 0;
+  let reused = 0;
+  try {
+    const simulate = (states: MdStatePoint[]): Promise<MdRunSummary[]> =>
+      Promise.all(
+        states.map(async (s) => {
+          const state = normaliseState({ ...s, ...md });
+          const key = simulationCacheKey(state);
+          const hit = cache.has(key);
+          if (hit) reused++;
+          else cache.set(key, pool.run('simulation', state, () => {}) as Promise<NptResult>);
+          const r = await cache.get(key)!;
+          runs++;
+          return { id: runs, reused: hit, reducedDensity: r.reducedDensity, stdErr: r.stdErr, dRhoDT: r.dRhoDT, dRhoDP: r.dRhoDP, phase: r.phase };
+        }),
+      );
+    const points = datasets.flatMap((d, datasetIndex) => d.rows.map((r) => ({ datasetId: d.id, datasetIndex, kind: d.kind, temperatureK: r.temperatureK, pressureMPa: r.pressureMPa, value: r.value, uncertainty: r.uncertainty, weight: d.weight ?? 1 })));
+    const result = await mdStageFit(points, datasets.map((d) => ({ id: d.id, kind: d.kind })), {
+      start: { epsilonK: eos.epsilonK, sigmaAngstrom: eos.sigmaAngstrom },
+      bounds: eos.bounds,
+      context: { molarMassGPerMol, quantumCorrection: eos.quantumCorrection },
+      simulate,
+    });
+    return summary(result, {
+      eosStage: summary(eos),
+      mdRuns: cache.size,
+      mdRunsReused: reused,
+      mdSettings: md,
+      mdIterations: result.mdIterations.map((i) => ({ iteration: i.iteration, epsilonK: i.epsilonK, sigmaAngstrom: i.sigmaAngstrom, chi2: i.chi2, accepted: i.accepted })),
+      stoppingRule: result.stoppingRule,
+    });
+  } finally {
+    await pool.close();
+  }
+}
+
+function summary(fit: LjFitResult, extra: Record<string, unknown> = {}) {
   return {
     status: fit.status,
     ...(fit.failureReason ? { failureReason: fit.failureReason } : {}),
@@ -89,5 +170,6 @@ export async function run(argv: string[]): Promise<unknown> {
     reducedChi2: fit.reducedChi2,
     convergence: fit.convergence,
     warnings: fit.warnings,
+    ...extra,
   };
 }

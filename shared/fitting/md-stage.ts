@@ -46,7 +46,7 @@ export interface MdStageOptions {
   context: PropertyContext & { molarMassGPerMol: number };
   /** At most this many rounds of simulations (default 6). */
   maxIterations?: number;
-  /** Stop when every parameter moves by less than this many standard errors (default 0.25). */
+  /** Stop when every parameter moves by less than this many standard errors (default 0.5: below the step's own simulation noise). */
   changeInStandardErrors?: number;
   simulate: (states: MdStatePoint[]) => Promise<MdRunSummary[]>;
   onProgress?: (p: { fraction: number; stage: string }) => void;
@@ -122,6 +122,16 @@ async function evaluate(points: MdStagePoint[], epsilonK: number, sigmaAngstrom:
       included.push(false);
       return;
     }
+    const ratio = g.densityKgPerM3 / p.value;
+    if (ratio < 0.5 || ratio > 2) {
+      // The simulated fluid is in another phase than the sample (e.g. the data say liquid, the run says gas):
+      // no small change of ε and σ bridges that, so the point is reported and left out rather than averaged in.
+      excluded.push({ temperatureK: p.temperatureK, pressureMPa: p.pressureMPa, reason: `the simulated fluid (${g.densityKgPerM3.toFixed(1)} kg/m³) is in another phase than the measured one (${p.value} kg/m³)` });
+      residuals.push(0);
+      jacobian.push([0, 0]);
+      included.push(false);
+      return;
+    }
     const u = Math.hypot(p.uncertainty, uModel);
     const scale = p.weight / u;
     residuals.push((g.densityKgPerM3 - p.value) * scale);
@@ -153,7 +163,7 @@ const clamp = (x: number, [lo, hi]: [number, number]) => Math.min(Math.max(x, lo
 
 export async function mdStageFit(points: MdStagePoint[], datasets: Array<{ id: string | number; kind: FitKind }>, options: MdStageOptions): Promise<MdStageResult> {
   const maxIterations = options.maxIterations ?? 6;
-  const tolerance = options.changeInStandardErrors ?? 0.25;
+  const tolerance = options.changeInStandardErrors ?? 0.5;
   const report = (fraction: number, stage: string) => options.onProgress?.({ fraction, stage });
   const iterations: MdIteration[] = [];
   const allRuns: MdStageResult['mdRuns'] = [];
@@ -225,13 +235,8 @@ export async function mdStageFit(points: MdStagePoint[], datasets: Array<{ id: s
       chi2: mine.reduce((s, r) => s + r.residual * r.residual, 0),
     };
   });
-  // A measured density far from the model's fluid state (e.g. liquid data, gas-like model) is reported, not averaged away.
+  // Points left out (frozen, split, or in another phase than the sample) are reported, never quietly averaged away.
   const phaseWarnings: string[] = [];
-  residuals.forEach((r) => {
-    if (r.kind !== 'density' || !r.included) return;
-    const ratio = r.predicted / r.measured;
-    if (ratio < 0.5 || ratio > 2) phaseWarnings.push(`At ${r.temperatureK.toFixed(2)} K and ${r.pressureMPa?.toFixed(3)} MPa the model's fluid has ${r.predicted.toFixed(1)} kg/m³ against ${r.measured} kg/m³ measured: a different phase (e.g. the data say liquid, the model says gas).`);
-  });
   for (const it of iterations) for (const x of it.excludedPoints) phaseWarnings.push(`Round ${it.iteration}: the point at ${x.temperatureK.toFixed(2)} K, ${x.pressureMPa?.toFixed(3)} MPa was left out because ${x.reason}.`);
   const warnings = [...phaseWarnings];
   if (!converged) warnings.push(stoppingRule);
