@@ -493,16 +493,38 @@ export class LjSystem {
       let fzi = 0;
       const kMid = mid[i];
       const kEnd = start[i + 1];
-      for (let k = start[i]; k < kEnd; k++) {
+      for (let k = start[i]; k < kMid; k++) {
+        const j3 = 3 * list[k];
+        const dx = xi - x[j3];
+        const dy = yi - x[j3 + 1];
+        const dz = zi - x[j3 + 2];
+        const r2 = dx * dx + dy * dy + dz * dz;
+        const inside = +(r2 < rc2);
+        const ir2 = 1 / r2;
+        const ir6 = ir2 * ir2 * ir2;
+        const ff = inside * (48 * ir2 * ir6 * (ir6 - 0.5));
+        u += inside * (4 * ir6 * (ir6 - 1));
+        w += ff * r2;
+        pairs += inside;
+        const fx = ff * dx;
+        const fy = ff * dy;
+        const fz = ff * dz;
+        fxi += fx;
+        fyi += fy;
+        fzi += fz;
+        f[j3] -= fx;
+        f[j3 + 1] -= fy;
+        f[j3 + 2] -= fz;
+      }
+      // Partners found across a box face: minimum image.
+      for (let k = kMid; k < kEnd; k++) {
         const j3 = 3 * list[k];
         let dx = xi - x[j3];
         let dy = yi - x[j3 + 1];
         let dz = zi - x[j3 + 2];
-        // Partners after nbMid[i] were found across a box face: apply the minimum image (no-op for the others).
-        const img = +(k >= kMid);
-        dx -= img * L * (+(dx > h) - +(dx < -h));
-        dy -= img * L * (+(dy > h) - +(dy < -h));
-        dz -= img * L * (+(dz > h) - +(dz < -h));
+        dx -= L * (+(dx > h) - +(dx < -h));
+        dy -= L * (+(dy > h) - +(dy < -h));
+        dz -= L * (+(dz > h) - +(dz < -h));
         const r2 = dx * dx + dy * dy + dz * dz;
         const inside = +(r2 < rc2);
         const ir2 = 1 / r2;
