@@ -1,7 +1,9 @@
 import { hasPolicy } from '../../../shared/auth/roles';
+import { schemeOfFit } from '../../../shared/parameter-sets/scheme';
 import { availableMoves, checkMove, isVisibleTo, STATE_LABELS, type Move, type MoveActor, type MoveSubject, type ParameterSetState } from '../../../shared/parameter-sets/transitions';
 import {
   CUTOFF_SCHEME_LABELS,
+  CUTOFF_SIGMA_RANGE,
   type CreateParameterSetBody,
   type CutoffScheme,
   type ReviseParameterSetBody,
@@ -193,12 +195,21 @@ async function insertSet(
   return row;
 }
 
+/** The scheme of a draft that names none (see schemeOfFit); a simulation cutoff out of range is the modeller's to settle. */
+function defaultScheme(result: LjFitResult): { scheme: CutoffScheme; cutoffSigma: number | null } {
+  const d = schemeOfFit(result as LjFitResult & { mdSettings?: { scheme?: string; cutoff?: number } });
+  if (d.cutoffOutOfRange) {
+    throw new AppError(422, 'cutoff_out_of_range', `The fit's simulations used r_c = ${d.cutoffSigma} σ, outside the ${CUTOFF_SIGMA_RANGE.min}–${CUTOFF_SIGMA_RANGE.max} σ a parameter set accepts; name the scheme and cutoff yourself.`, [{ field: 'cutoffSigma', message: `simulation cutoff ${d.cutoffSigma} σ out of range` }]);
+  }
+  return { scheme: d.scheme, cutoffSigma: d.cutoffSigma };
+}
+
 /** POST /api/parameter-sets: a draft from a succeeded fit, values frozen from its result. */
 export async function createParameterSet(ctx: AppContext, actor: CurrentUser, body: CreateParameterSetBody) {
   const fit = await usableFit(ctx.db, body.fitId);
   const validity = body.validity ?? (await dataSpan(ctx.db, fit.fit));
-  const scheme = body.scheme ?? 'full-potential';
-  const row = await ctx.db.transaction().execute((tx) => insertSet(tx, actor, { fit, scheme, cutoffSigma: body.cutoffSigma ?? null, validity, rationale: body.rationale, revisionOf: null }));
+  const { scheme, cutoffSigma } = body.scheme ? { scheme: body.scheme, cutoffSigma: body.cutoffSigma ?? null } : defaultScheme(fit.result);
+  const row = await ctx.db.transaction().execute((tx) => insertSet(tx, actor, { fit, scheme, cutoffSigma, validity, rationale: body.rationale, revisionOf: null }));
   return toParameterSetSummary(row);
 }
 

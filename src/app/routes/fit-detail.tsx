@@ -85,7 +85,7 @@ export function FitDetailRoute() {
           <Panel title="What if?">
             <WhatIfPanel result={r} names={names} context={context} weights={weights} />
           </Panel>
-          {canDraft && <DraftParameterSetPanel fitId={f.id} temperaturesK={r.residuals.map((p) => p.temperatureK)} />}
+          {canDraft && <DraftParameterSetPanel fitId={f.id} result={r} />}
           <Panel title="Record">
             <dl className="grid grid-cols-[max-content_1fr] gap-x-4 gap-y-1 text-sm">
               <dt className="text-ink-faint">Run by</dt><dd>{f.createdByName}, {new Date(f.createdAt).toLocaleString()}</dd>

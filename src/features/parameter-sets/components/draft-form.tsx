@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { CUTOFF_SCHEME_LABELS, CUTOFF_SCHEMES, CUTOFF_SIGMA_RANGE, type CutoffScheme } from '@shared/schemas/parameter-sets';
+import { CUTOFF_SCHEME_LABELS, CUTOFF_SCHEMES, CUTOFF_SIGMA_RANGE, type CutoffScheme, type Validity } from '@shared/schemas/parameter-sets';
 import { Button } from '@/components/ui/button';
 import { Field, Input, Select, TextArea } from '@/components/ui/field';
 import { useDraftParameterSet, type ParameterSetSummary } from '../api/parameter-sets';
@@ -8,13 +8,13 @@ import { toValidity, validityInputOf, ValidityFields, type ValidityInput } from 
 
 /**
  * Drafts a parameter set from a succeeded fit. The validity range starts at the span of the fitted data;
- * B2 and dilute-gas viscosity see the whole potential, hence the full-potential default.
+ * the scheme at the fit's (full potential for B2 and viscosity, the simulations' cutoff for densities).
  */
-export function DraftParameterSetForm({ fitId, dataSpan, onDrafted }: { fitId: number; dataSpan: { temperatureMinK: number; temperatureMaxK: number }; onDrafted: (set: ParameterSetSummary) => void }) {
+export function DraftParameterSetForm({ fitId, defaults, onDrafted }: { fitId: number; defaults: { scheme: CutoffScheme; cutoffSigma: number | null; validity: Validity }; onDrafted: (set: ParameterSetSummary) => void }) {
   const draft = useDraftParameterSet();
-  const [scheme, setScheme] = useState<CutoffScheme>('full-potential');
-  const [cutoff, setCutoff] = useState('2.5');
-  const [validity, setValidity] = useState<ValidityInput>(validityInputOf(dataSpan));
+  const [scheme, setScheme] = useState<CutoffScheme>(defaults.scheme);
+  const [cutoff, setCutoff] = useState(String(defaults.cutoffSigma ?? 2.5));
+  const [validity, setValidity] = useState<ValidityInput>(validityInputOf(defaults.validity));
   const [rationale, setRationale] = useState('');
   return (
     <form
@@ -29,7 +29,7 @@ export function DraftParameterSetForm({ fitId, dataSpan, onDrafted }: { fitId: n
       }}
     >
       <div className="grid gap-3 sm:grid-cols-2">
-        <Field label="Cutoff scheme" htmlFor="draft-scheme" hint="B2 and dilute-gas viscosity see the whole potential.">
+        <Field label="Cutoff scheme" htmlFor="draft-scheme" hint="B2 and dilute-gas viscosity see the whole potential; density fits use their simulations’ cutoff.">
           <Select id="draft-scheme" value={scheme} onChange={(e) => setScheme(e.target.value as CutoffScheme)}>
             {CUTOFF_SCHEMES.map((s) => <option key={s} value={s}>{CUTOFF_SCHEME_LABELS[s]}</option>)}
           </Select>
