@@ -8,7 +8,7 @@ describe.skipIf(!available)('fits in Chromium', () => {
   let app: RunningApp;
   let browser: { context: BrowserContext; close: () => Promise<void> };
   beforeAll(async () => {
-    app = await startApp();
+    app = await startApp({ WORKERS: '2' });
     browser = await openBrowser();
   });
   afterAll(async () => {
@@ -51,4 +51,38 @@ describe.skipIf(!available)('fits in Chromium', () => {
     await expect.poll(async () => page.getByTestId('what-if-chi2').textContent()).not.toBe(chi2Before);
     await page.close();
   });
+
+  it('a joint B2 + density fit runs its simulations, shows them, and a second identical fit reuses every run', async () => {
+    const page = await browser.context.newPage();
+    await signIn(page, app.url, 'modeller@demo.epsigma.test');
+    await page.getByRole('navigation', { name: 'Main' }).waitFor();
+    const runJointFit = async () => {
+      await page.goto(`${app.url}/substances`);
+      await page.getByRole('link', { name: 'Quillgas QG-1' }).click();
+      await page.getByRole('link', { name: 'Fits', exact: true }).click();
+      await page.getByRole('link', { name: 'New fit' }).click();
+      await page.getByLabel('Use QG-1 viscosity, oscillating disc').uncheck();
+      await page.getByLabel('Use QG-1 liquid and supercritical densities').check();
+      // Small, quick runs: this checks the flow; the physics has its own tests.
+      await page.getByLabel('Atoms').fill('200');
+      await page.getByLabel('MD steps per run').fill('3000');
+      await page.getByRole('button', { name: 'Run fit' }).click();
+      await page.waitForURL(/\/fits\/\d+$/);
+      await page.getByRole('progressbar').or(page.getByText('Succeeded', { exact: true })).first().waitFor();
+      await page.getByText('Succeeded', { exact: true }).waitFor({ timeout: 170_000 });
+    };
+    await runJointFit();
+    const runsTable = page.getByRole('table', { name: 'Simulations behind the fit' });
+    await runsTable.waitFor();
+    expect(await runsTable.getByRole('row').count()).toBeGreaterThan(8);
+    await screenshot(page, 'fit-density-result');
+    const firstSummary = await page.getByText(/runs, \d+ of them reused/).textContent();
+    expect(firstSummary).toMatch(/(\d+) runs, 0 of them reused/);
+
+    await runJointFit();
+    const summary = await page.getByText(/runs, \d+ of them reused/).textContent();
+    const [, total, reused] = summary!.match(/(\d+) runs, (\d+) of them reused/)!;
+    expect(Number(reused)).toBe(Number(total));
+    await page.close();
+  }, 400_000);
 });

@@ -9,6 +9,7 @@ import { useCan } from '@/lib/authorization';
 import { useCancelFit, useFit } from '@/features/fits/api/fits';
 import { EllipseChart } from '@/features/fits/components/ellipse-chart';
 import { FitCurves } from '@/features/fits/components/fit-curves';
+import { DensityCharts, SimulationStage, type DensityFitResult } from '@/features/fits/components/density-panel';
 import { FitStatusBadge } from '@/features/fits/components/fit-status-badge';
 import { DatasetStatsTable, ParameterTable } from '@/features/fits/components/parameter-table';
 import { WhatIfPanel } from '@/features/fits/components/what-if-panel';
@@ -77,8 +78,16 @@ export function FitDetailRoute() {
             </Panel>
           </div>
           <Panel title="Data and model">
-            <FitCurves result={r} datasetNames={names} context={context} curves={[{ label: `Fit #${f.number}`, epsilonK: r.epsilonK, sigmaAngstrom: r.sigmaAngstrom }]} />
+            <div className="grid gap-6">
+              <FitCurves result={r} datasetNames={names} context={context} curves={[{ label: `Fit #${f.number}`, epsilonK: r.epsilonK, sigmaAngstrom: r.sigmaAngstrom }]} />
+              <DensityCharts result={r as DensityFitResult} />
+            </div>
           </Panel>
+          {(r as DensityFitResult).mdRuns && (
+            <Panel title="Simulation stage">
+              <SimulationStage result={r as DensityFitResult} />
+            </Panel>
+          )}
           <Panel title="Per measurement set">
             <DatasetStatsTable result={r} names={names} />
           </Panel>

@@ -15,7 +15,8 @@ export interface CurveParameters {
  * residuals (model − measured)/u of the fit underneath.
  */
 export function FitCurves({ result, datasetNames, context, curves, height = 300 }: { result: LjFitResult; datasetNames: Record<string, string>; context: { molarMassGPerMol?: number; quantumCorrection: boolean }; curves: CurveParameters[]; height?: number }) {
-  const kinds = [...new Set(result.residuals.map((r) => r.kind))] as FitKind[];
+  // Densities are state functions of T and P: they get their own panel (density-panel.tsx).
+  const kinds = [...new Set(result.residuals.map((r) => r.kind))].filter((k) => k !== 'density') as FitKind[];
   return (
     <div className="grid gap-6 xl:grid-cols-2">
       {kinds.map((kind) => {

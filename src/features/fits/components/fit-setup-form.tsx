@@ -3,7 +3,7 @@ import { FIT_KINDS } from '@shared/fitting/property-models';
 import type { CreateFitBody } from '@shared/schemas/fits';
 import { KindBadge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
-import { Field, Input } from '@/components/ui/field';
+import { Field, Input, Select } from '@/components/ui/field';
 import { Panel } from '@/components/ui/states';
 import { ApiError } from '@/lib/api-client';
 import type { DatasetSummary } from '@/features/datasets/api/datasets';
@@ -16,7 +16,13 @@ const num = (s: string) => Number(s.replace(',', '.'));
 export function FitSetupForm({ substanceId, datasets, busy, error, onSubmit }: { substanceId: number; datasets: DatasetSummary[]; busy: boolean; error: Error | null; onSubmit: (body: CreateFitBody) => void }) {
   const usable = datasets.filter((d) => !d.withdrawn);
   const fittable = (d: DatasetSummary) => (FIT_KINDS as string[]).includes(d.property);
-  const [choices, setChoices] = useState<Record<number, Choice>>(() => Object.fromEntries(usable.map((d) => [d.id, { checked: fittable(d), weight: '1' }])));
+  // Gas-phase sets are ticked by default; densities add a simulation stage of minutes, so they are opt-in.
+  const [choices, setChoices] = useState<Record<number, Choice>>(() => Object.fromEntries(usable.map((d) => [d.id, { checked: fittable(d) && d.property !== 'density', weight: '1' }])));
+  const [mdAtoms, setMdAtoms] = useState('256');
+  const [mdSteps, setMdSteps] = useState('10000');
+  const [mdCutoff, setMdCutoff] = useState('2.5');
+  const [mdScheme, setMdScheme] = useState<'truncated-tail' | 'truncated-shifted'>('truncated-tail');
+  const densityChosen = usable.some((d) => d.property === 'density' && choices[d.id]?.checked);
   const [quantum, setQuantum] = useState(false);
   const [manualStart, setManualStart] = useState(false);
   const [startEps, setStartEps] = useState('');
@@ -40,6 +46,7 @@ export function FitSetupForm({ substanceId, datasets, busy, error, onSubmit }: {
         bounds: { epsilonK: [num(epsBounds[0]), num(epsBounds[1])], sigmaAngstrom: [num(sigmaBounds[0]), num(sigmaBounds[1])] },
         restarts: Math.round(num(restarts)),
         ...(manualStart ? { start: { epsilonK: num(startEps), sigmaAngstrom: num(startSigma) } } : {}),
+        ...(chosen.some((d) => d.property === 'density') ? { density: { atoms: Math.round(num(mdAtoms)), steps: Math.round(num(mdSteps)), cutoff: num(mdCutoff), scheme: mdScheme } } : {}),
       },
     };
     setLocalError(null);
@@ -73,7 +80,7 @@ export function FitSetupForm({ substanceId, datasets, busy, error, onSubmit }: {
                     </td>
                     <td>
                       <span className="font-semibold">{d.name}</span> <span className="text-ink-faint">v{d.version}</span>
-                      {!ok && <div className="text-xs text-ink-faint">Densities enter the fit through the simulation stage, which this fit does not run.</div>}
+                      {d.property === 'density' && <div className="text-xs text-ink-faint">Adds a simulation stage: NPT runs at every state point, a few rounds of them.</div>}
                     </td>
                     <td><KindBadge kind={d.property} /></td>
                     <td className="num text-right">{d.rowCount}</td>
@@ -127,6 +134,22 @@ export function FitSetupForm({ substanceId, datasets, busy, error, onSubmit }: {
           </div>
         </div>
       </Panel>
+      {densityChosen && (
+        <Panel title="Simulation stage (densities)">
+          <p className="mb-3 text-sm text-ink-soft">The equation of state (Johnson, Zollweg & Gubbins 1993) fits first; its parameters start rounds of NPT simulations at the measured state points. Runs are cached by reduced state and settings and shared between fits.</p>
+          <div className="grid gap-4 md:grid-cols-4">
+            <Field label="Atoms" htmlFor="md-atoms"><Input id="md-atoms" inputMode="numeric" value={mdAtoms} onChange={(e) => setMdAtoms(e.target.value)} /></Field>
+            <Field label="MD steps per run" htmlFor="md-steps"><Input id="md-steps" inputMode="numeric" value={mdSteps} onChange={(e) => setMdSteps(e.target.value)} /></Field>
+            <Field label="Cutoff rc/σ" htmlFor="md-cutoff"><Input id="md-cutoff" inputMode="decimal" value={mdCutoff} onChange={(e) => setMdCutoff(e.target.value)} /></Field>
+            <Field label="Scheme" htmlFor="md-scheme">
+              <Select id="md-scheme" value={mdScheme} onChange={(e) => setMdScheme(e.target.value as typeof mdScheme)}>
+                <option value="truncated-tail">truncated + tail corrections</option>
+                <option value="truncated-shifted">truncated and shifted</option>
+              </Select>
+            </Field>
+          </div>
+        </Panel>
+      )}
       {(localError || error) && (
         <div role="alert" className="rounded-md bg-changes-soft px-3 py-2 text-sm text-changes">
           <p className="font-semibold">{localError ?? error?.message}</p>

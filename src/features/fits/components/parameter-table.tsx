@@ -46,6 +46,8 @@ export function ParameterTable({ result, energy, length }: { result: LjFitResult
   );
 }
 
+const KIND_UNIT: Record<string, string> = { b2: 'cm³/mol', viscosity: 'µPa·s', density: 'kg/m³' };
+
 export function DatasetStatsTable({ result, names }: { result: LjFitResult; names: Record<string, string> }) {
   return (
     <table className="w-full text-sm">
@@ -63,7 +65,7 @@ export function DatasetStatsTable({ result, names }: { result: LjFitResult; name
           <tr key={String(d.datasetId)} className="border-b border-rule/60">
             <td className="py-1.5">{names[String(d.datasetId)] ?? d.datasetId}</td>
             <td className="num text-right">{d.points}</td>
-            <td className="num text-right">{formatSignificant(d.rms, 3)} {d.kind === 'b2' ? 'cm³/mol' : 'µPa·s'}</td>
+            <td className="num text-right">{formatSignificant(d.rms, 3)} {KIND_UNIT[d.kind] ?? ''}</td>
             <td className="num text-right">{d.aadPercent == null ? '—' : d.aadPercent.toFixed(2)}</td>
             <td className="num text-right">{formatSignificant(d.chi2, 4)}</td>
           </tr>
