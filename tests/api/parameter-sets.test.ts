@@ -73,7 +73,8 @@ async function mailsWith(reason: string) {
 }
 
 beforeAll(async () => {
-  t = await startTestApp();
+  // Two workers: the density-fit case runs its simulations two at a time.
+  t = await startTestApp({ WORKERS: '2' });
   modeller = await t.signIn(EMAIL.modeller);
   reviewer = await t.signIn(EMAIL.reviewer);
   admin = await t.signIn(EMAIL.admin);
@@ -371,5 +372,33 @@ describe('the review walk', () => {
       ['parameterSet.approved', 'second.reviewer@demo.epsigma.test'],
       ['parameterSet.retired', EMAIL.admin],
     ]);
+  });
+});
+
+describe('a set from a fit with density data', () => {
+  // Small, fast simulations as in tests/api/density-fit.test.ts; the physics of that stage is tested there.
+  it('defaults to the simulations’ cutoff scheme and to the temperature and pressure span of the data', async () => {
+    const quillgas = (await modeller.get('/api/substances')).body.substances.find((s: { name: string }) => s.name === 'Quillgas QG-1');
+    const datasets = (await modeller.get(`/api/datasets?substanceId=${quillgas.id}`)).body.datasets as Array<{ id: number; property: string }>;
+    const density = datasets.find((d) => d.property === 'density')!;
+    const res = await modeller.post('/api/fits').send({ substanceId: quillgas.id, datasets: datasets.filter((d) => d.property === 'b2' || d.property === 'density').map((d) => ({ id: d.id })), options: { density: { atoms: 108, steps: 3000, scheme: 'truncated-shifted' }, restarts: 0 } });
+    expect(res.status).toBe(202);
+    const job = await t.ctx.jobs.waitFor(res.body.jobId);
+    expect(job.status, job.error ?? '').toBe('succeeded');
+    const rows = (await modeller.get(`/api/datasets/${density.id}`)).body.rows as Array<{ temperatureK: number; pressureMPa: number }>;
+    const fitted = (await modeller.get(`/api/fits/${res.body.id}`)).body.result.residuals as Array<{ temperatureK: number }>;
+
+    const set = await draft(modeller, { fitId: res.body.id, rationale: 'Joint B2 and density fit for truncated-and-shifted MD at 2.5σ.' });
+    expect(set.status).toBe(201);
+    expect(set.body).toMatchObject({ scheme: 'truncated-shifted', cutoffSigma: 2.5, version: 1 });
+    expect(set.body.validity).toEqual({
+      temperatureMinK: Math.min(...fitted.map((r) => r.temperatureK)),
+      temperatureMaxK: Math.max(...fitted.map((r) => r.temperatureK)),
+      pressureMinMPa: Math.min(...rows.map((r) => r.pressureMPa)),
+      pressureMaxMPa: Math.max(...rows.map((r) => r.pressureMPa)),
+    });
+    // Naming the scheme overrides the default.
+    const full = await draft(modeller, { fitId: res.body.id, scheme: 'full-potential', rationale: 'Compared with the B2-only set.' });
+    expect(full.body).toMatchObject({ scheme: 'full-potential', cutoffSigma: null });
   });
 });
