@@ -1,0 +1,78 @@
+/**
+ * `npm run -s bench:fit [-- --json]`: a joint fit of the demo's 8 densities on 2 isotherms plus its B2 table,
+ * through the real job runner and worker pool, first from a cold simulation cache and then again (warm).
+ * Prints wall times, the number of simulation runs and the cache hit rate. A report, never a test.
+ */
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { parseArgs } from 'node:util';
+import { createContext } from '../server/bootstrap';
+import { loadEnv } from '../server/config/env';
+import { seedDemo } from '../server/db/seed';
+import { createFit, findFit } from '../server/features/fits/fits.service';
+import { rolesOf } from '../server/features/users/users.repository';
+
+const { values } = parseArgs({ options: { json: { type: 'boolean' } } });
+const dir = mkdtempSync(path.join(tmpdir(), 'epsigma-bench-fit-'));
+const env = loadEnv({ ...process.env, NODE_ENV: 'production', DATABASE_PATH: path.join(dir, 'bench.sqlite'), LOG_REQUESTS: '0' });
+const ctx = await createContext(env, () => {});
+try {
+  await seedDemo(ctx.db, { demoPassword: 'bench-password' });
+  const user = await ctx.db.selectFrom('user').select(['id', 'email', 'name']).where('email', '=', 'modeller@demo.epsigma.test').executeTakeFirstOrThrow();
+  const actor = { ...user, roles: await rolesOf(ctx.db, user.id) };
+  const substance = await ctx.db.selectFrom('substance').select('id').where('name', '=', 'Quillgas QG-1').executeTakeFirstOrThrow();
+  const datasets = await ctx.db.selectFrom('dataset').select(['id', 'property']).where('substanceId', '=', substance.id).where('property', 'in', ['b2', 'density']).execute();
+  const densityPoints = await ctx.db
+    .selectFrom('measurementRow')
+    .innerJoin('datasetVersion', 'datasetVersion.id', 'measurementRow.datasetVersionId')
+    .innerJoin('dataset', 'dataset.id', 'datasetVersion.datasetId')
+    .select(['measurementRow.temperatureK'])
+    .where('dataset.substanceId', '=', substance.id)
+    .where('dataset.property', '=', 'density')
+    .execute();
+  const countRuns = async () => Number((await ctx.db.selectFrom('job').select((eb) => eb.fn.countAll<number>().as('n')).where('kind', '=', 'simulation').executeTakeFirstOrThrow()).n);
+
+  const runOnce = async () => {
+    const before = await countRuns();
+    const started = performance.now();
+    const { id, jobId } = await createFit(ctx, actor, { substanceId: substance.id, datasets: datasets.map((d) => ({ id: d.id })) });
+    const job = await ctx.jobs.waitFor(jobId);
+    const seconds = (performance.now() - started) / 1000;
+    const fit = await findFit(ctx.db, id);
+    const result = JSON.parse(fit!.resultJson ?? '{}');
+    return {
+      status: job.status,
+      wallSeconds: Number(seconds.toFixed(2)),
+      newSimulationRuns: (await countRuns()) - before,
+      runsUsed: result.mdRunCount,
+      cacheHitRate: result.mdRunCount ? Number((result.mdRunsReused / result.mdRunCount).toFixed(3)) : null,
+      rounds: result.mdIterations?.length,
+      epsilonK: result.epsilonK,
+      sigmaAngstrom: result.sigmaAngstrom,
+      stdErr: result.stdErr,
+      eosStage: result.eosStage ? { epsilonK: result.eosStage.epsilonK, sigmaAngstrom: result.eosStage.sigmaAngstrom } : null,
+      error: job.error,
+    };
+  };
+
+  const cold = await runOnce();
+  const warm = await runOnce();
+  const report = {
+    fixture: `Quillgas QG-1 demo: ${densityPoints.length} densities on ${new Set(densityPoints.map((p) => p.temperatureK)).size} isotherms + B2 table`,
+    workers: env.WORKERS,
+    mdSettings: JSON.parse((await findFit(ctx.db, (await ctx.db.selectFrom('fit').select((eb) => eb.fn.max('id').as('m')).executeTakeFirstOrThrow()).m as number))!.optionsJson).density,
+    cold,
+    warm,
+  };
+  if (values.json) console.log(JSON.stringify(report, null, 2));
+  else {
+    console.log(`${report.fixture}, ${report.workers} worker(s), MD ${JSON.stringify(report.mdSettings)}`);
+    for (const [name, r] of [['cold', cold], ['warm', warm]] as const) {
+      console.log(`${name}: ${r.status} in ${r.wallSeconds} s, ${r.runsUsed} runs used (${r.newSimulationRuns} new), cache hit rate ${r.cacheHitRate}, ${r.rounds} rounds, ε/k_B = ${r.epsilonK?.toFixed(2)} K, σ = ${r.sigmaAngstrom?.toFixed(4)} Å`);
+    }
+  }
+} finally {
+  await ctx.close();
+  rmSync(dir, { recursive: true, force: true });
+}
