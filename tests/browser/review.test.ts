@@ -81,7 +81,7 @@ describe.skipIf(!available)('parameter-set review in Chromium', () => {
     expect(await caution.textContent()).toContain('Fitted model parameters are not validated property data for pressure, safety or process design; defer to local codes and licensed engineering practice.');
     await page.getByRole('button', { name: 'Submit for review' }).click();
     await page.getByRole('heading', { name: 'Actions' }).waitFor();
-    await page.getByText('Nothing for you to do on this set while it is in review.').waitFor();
+    await page.getByText('Nothing for you to do on this set now (In review).').waitFor();
     const setUrl = page.url();
     await screenshot(page, 'parameter-set-in-review');
 
@@ -122,7 +122,7 @@ describe.skipIf(!available)('parameter-set review in Chromium', () => {
     await page.close();
   });
 
-  it('the reviewer of v2 sees it against the approved v1: parameters with the change, deviations, both curves', async () => {
+  it('the reviewer of v2 sees it against the approved v1 (parameters with the change, deviations, both curves) and sends it back; the modeller revises it as v3', async () => {
     const page = await browser.context.newPage();
     await signIn(page, app.url, 'modeller@demo.epsigma.test');
     await page.getByRole('navigation', { name: 'Main' }).waitFor();
@@ -146,6 +146,20 @@ describe.skipIf(!available)('parameter-set review in Chromium', () => {
     expect(await page.getByRole('table', { name: 'Deviations per measurement set' }).getByRole('row').count()).toBe(2);
     await page.getByRole('heading', { name: 'Data with both models' }).waitFor();
     await screenshot(page, 'parameter-set-compare');
+
+    // Sent back with a comment, then revised by the modeller as the next version.
+    await page.getByLabel('Review comment').fill('Say why the recalibration moves ε by 3 %.');
+    await page.getByRole('button', { name: 'Request changes' }).click();
+    await page.getByText('Nothing for you to do on this set now (Changes requested).').waitFor();
+    await signIn(page, app.url, 'modeller@demo.epsigma.test');
+    await page.getByRole('navigation', { name: 'Main' }).waitFor();
+    await page.goto(`${app.url}/parameter-sets/${setId}`);
+    const revise = page.getByRole('form', { name: 'Draft a revision' });
+    await revise.getByLabel('Rationale of the revision').fill('Recalibrated B2 table: the pressure gauge offset moved every B2 by +1.5 cm³/mol, hence the lower ε.');
+    await revise.getByRole('button', { name: 'Draft revision' }).click();
+    await page.getByRole('heading', { name: 'Reviewite v3' }).waitFor();
+    await page.getByRole('link', { name: 'the set sent back' }).waitFor();
+    await screenshot(page, 'parameter-set-revision');
     await page.close();
   });
 });

@@ -18,7 +18,7 @@ import { toValidity, validityInputOf, ValidityFields } from './validity-fields';
 export function ParameterSetActions({ set, onRevised }: { set: ParameterSetDetail; onRevised: (s: ParameterSetSummary) => void }) {
   const moves = new Set(set.allowedMoves);
   if (moves.size === 0) {
-    return <p className="text-sm text-ink-soft">Nothing for you to do on this set while it is {STATE_LABELS[set.state].toLowerCase()}.</p>;
+    return <p className="text-sm text-ink-soft">Nothing for you to do on this set now ({STATE_LABELS[set.state]}).</p>;
   }
   return (
     <div className="grid gap-6">
