@@ -139,8 +139,9 @@ export class Ensemble {
     const u = this.rng.uniform();
     this.volumeAttempts++;
     this.windowAttempts++;
-    // The minimum image needs the cutoff below half the box.
-    if (box1 <= 2 * s.cutoff) return;
+    // The minimum image needs the cutoff below half the box; densities below 1e-6 are outside any useful state
+    // (both bounds are hard walls in V, so rejecting such proposals keeps detailed balance).
+    if (box1 <= 2 * s.cutoff || n / v1 < 1e-6) return;
     s.saveState();
     s.scaleBox(box1 / s.box);
     if (s.needsRebuild()) s.buildList();

@@ -4,9 +4,9 @@ import { reducedB2 } from '../virial';
 
 describe('runNpt', () => {
   it('flags the fcc solid at T* = 0.5, P* = 5 and passes the liquid at T* = 1, P* = 1', () => {
-    // Agrawal & Kofke 1995 (Mol. Phys. 85, 43) melting line: P*_melt(T* = 0.5) ≈ −0.3…0 (near the triple point,
-    // T*_t ≈ 0.69), so P* = 5 at T* = 0.5 is deep in the solid; at T* = 1.0 the melting pressure is ≈ 7 (from memory),
-    // so P* = 1 is liquid. Q6 of fcc is 0.575, of a liquid ≈ 0 (Steinhardt et al. 1983).
+    // Agrawal & Kofke 1995 (Mol. Phys. 85, 43): the LJ triple point is at T*_t ≈ 0.69, so at T* = 0.5 and P* = 5 the
+    // stable phase is the fcc solid; at T* = 1.0 their melting pressure is roughly 6–7 (from memory), so P* = 1 is
+    // liquid. Q6 of fcc is 0.575, of a liquid ≈ 0 (Steinhardt et al. 1983).
     const solid = runNpt({ reducedTemperature: 0.5, reducedPressure: 5, atoms: 500, steps: 5000, seed: 2 });
     expect(solid.phase).toBe('solid');
     expect(solid.orderParameter.q6Mean).toBeGreaterThan(0.3);
@@ -18,7 +18,7 @@ describe('runNpt', () => {
 
   it('matches the second-virial equation of state in the dilute gas (T* = 2.0, P* = 0.05)', () => {
     // P/T = ρ(1 + B2 ρ), B2 = B2*·(2π/3)σ³ with B2* from ../virial.ts (classical LJ second virial coefficient;
-    // Hirschfelder, Curtiss & Bird 1954 tabulate B2*(2.0) = −0.6276). Third-virial terms are ~0.1 % here.
+    // Hirschfelder, Curtiss & Bird 1954 tabulate B2*(2.0) = −0.628, from memory). Third-virial terms are ~0.1 % here.
     const t = 2.0;
     const p = 0.05;
     const b2 = reducedB2(t) * ((2 * Math.PI) / 3);
@@ -58,6 +58,7 @@ describe('runNpt', () => {
     expect(() => runNpt({ ...base, cutoff: 4.5 })).toThrow(/^cutoff/);
     expect(() => runNpt({ ...base, reducedTemperature: -1 })).toThrow(/reducedTemperature/);
     expect(() => runNpt({ ...base, reducedPressure: Number.NaN })).toThrow(/reducedPressure/);
+    expect(() => runNpt({ ...base, reducedPressure: 0 })).toThrow(/reducedPressure must be greater than 0/);
     expect(() => runNpt({ ...base, atoms: 10 })).toThrow(/atoms/);
     expect(() => runNpt({ ...base, steps: 12.5 })).toThrow(/steps/);
     expect(() => runNpt({ ...base, scheme: 'shifted-force' as never })).toThrow(/scheme/);

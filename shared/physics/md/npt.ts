@@ -38,7 +38,7 @@ const TRACE_POINTS = 500;
 export interface NptOptions {
   /** T* = k_BT/ε, 0.3 … 10. */
   reducedTemperature: number;
-  /** P* = Pσ³/ε, 0 … 20. */
+  /** P* = Pσ³/ε, > 0 … 20 (at P* = 0 a vapour would expand without bound). */
   reducedPressure: number;
   /** Number of atoms, 100 … 20000; default 500. */
   atoms?: number;
@@ -198,6 +198,7 @@ export function phaseCheck(series: SampleSeries, from: number, to: number): { ph
 export function runNpt(options: NptOptions, onProgress?: ProgressCallback): NptResult {
   const t = requireNumber('reducedTemperature', options.reducedTemperature, 0.3, 10);
   const p = requireNumber('reducedPressure', options.reducedPressure, 0, 20);
+  if (p === 0) throw new RangeError('reducedPressure must be greater than 0 (a vapour at P* = 0 expands without bound)');
   const atoms = requireInteger('atoms', options.atoms ?? DEFAULT_ATOMS, 100, 20000);
   const steps = requireInteger('steps', options.steps ?? DEFAULT_NPT_STEPS, 1000, 1e8);
   const cutoff = requireNumber('cutoff', options.cutoff ?? DEFAULT_CUTOFF, 2, 4);
