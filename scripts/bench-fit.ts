@@ -2,9 +2,11 @@
  * `npm run -s bench:fit [-- --json]`: a joint fit of the demo's 8 densities on 2 isotherms plus its B2 table,
  * through the real job runner and worker pool, first from a cold simulation cache and then again (warm).
  * Prints wall times, the number of simulation runs and the cache hit rate. A report, never a test.
+ * Uses one worker per core unless WORKERS is set: the fit is the only work, the main thread mostly waits.
  */
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
+import os from 'node:os';
 import path from 'node:path';
 import { parseArgs } from 'node:util';
 import { createContext } from '../server/bootstrap';
@@ -15,7 +17,7 @@ import { rolesOf } from '../server/features/users/users.repository';
 
 const { values } = parseArgs({ options: { json: { type: 'boolean' } } });
 const dir = mkdtempSync(path.join(tmpdir(), 'epsigma-bench-fit-'));
-const env = loadEnv({ ...process.env, NODE_ENV: 'production', DATABASE_PATH: path.join(dir, 'bench.sqlite'), LOG_REQUESTS: '0' });
+const env = loadEnv({ WORKERS: String(os.availableParallelism()), ...process.env, NODE_ENV: 'production', DATABASE_PATH: path.join(dir, 'bench.sqlite'), LOG_REQUESTS: '0' });
 const ctx = await createContext(env, () => {});
 try {
   await seedDemo(ctx.db, { demoPassword: 'bench-password' });

@@ -46,7 +46,7 @@ export interface MdStageOptions {
   context: PropertyContext & { molarMassGPerMol: number };
   /** At most this many rounds of simulations (default 6). */
   maxIterations?: number;
-  /** Stop when every parameter moves by less than this many standard errors (default 0.5: below the step's own simulation noise). */
+  /** Stop when every parameter moves by less than this many standard errors (default 1: a smaller step is within the simulation noise of the step itself). */
   changeInStandardErrors?: number;
   simulate: (states: MdStatePoint[]) => Promise<MdRunSummary[]>;
   onProgress?: (p: { fraction: number; stage: string }) => void;
@@ -163,7 +163,7 @@ const clamp = (x: number, [lo, hi]: [number, number]) => Math.min(Math.max(x, lo
 
 export async function mdStageFit(points: MdStagePoint[], datasets: Array<{ id: string | number; kind: FitKind }>, options: MdStageOptions): Promise<MdStageResult> {
   const maxIterations = options.maxIterations ?? 6;
-  const tolerance = options.changeInStandardErrors ?? 0.5;
+  const tolerance = options.changeInStandardErrors ?? 1;
   const report = (fraction: number, stage: string) => options.onProgress?.({ fraction, stage });
   const iterations: MdIteration[] = [];
   const allRuns: MdStageResult['mdRuns'] = [];
