@@ -1,10 +1,10 @@
 /**
- * Starting density for an NPT run from the van der Waals equation fitted to the LJ critical point
+ * Fallback starting density for an NPT run from the van der Waals equation fitted to the LJ critical point
  * (T_c* ≈ 1.31, ρ_c* ≈ 0.31; Smit 1992, J. Chem. Phys. 96, 8639, for rc → ∞: T_c 1.316, ρ_c 0.304):
  * b = 1/(3ρ_c), a = 27 b T_c / 8. Where the cubic has three roots the one with the lowest chemical potential
  * is taken. A rough start only: the barostat finds the real density. Clamped to [1e-4, 1.1].
  */
-import { ljEosDensity } from '../lj-eos';
+import { LJ_EOS_FIT_RANGE, ljEosDensity, ljEosResidualHelmholtz } from '../lj-eos';
 
 const RHO_C = 0.31;
 const T_C = 1.31;
@@ -52,16 +52,22 @@ function vanDerWaalsDensity(tStar: number, pStar: number): number {
 }
 
 /**
- * Starting density: the van der Waals estimate picks the phase (liquid or vapour root with the lower chemical
- * potential); the Johnson–Zollweg–Gubbins 1993 EOS (../lj-eos.ts) then gives that phase's density when it has
- * a root there. Falls back to the van der Waals value outside the EOS's domain (e.g. P* = 0).
+ * Starting density from the Johnson–Zollweg–Gubbins 1993 EOS (../lj-eos.ts): of its mechanically stable roots at
+ * (T*, P*) the one with the lowest chemical potential μ = T ln ρ + A_res + P/ρ (up to a function of T), i.e. the
+ * stable phase, so that the run starts in the right basin. Falls back to the van der Waals estimate where the EOS
+ * has no root or outside its fitted temperature range.
  */
 export function guessReducedDensity(tStar: number, pStar: number): number {
   const vdw = vanDerWaalsDensity(tStar, pStar);
+  // Outside the temperatures JZG fitted the polynomial's roots are unreliable (e.g. a spurious low root at T* = 0.3).
+  if (tStar < LJ_EOS_FIT_RANGE.minReducedTemperature || tStar > LJ_EOS_FIT_RANGE.maxReducedTemperature) return vdw;
   try {
-    const eos = ljEosDensity(tStar, pStar, { prefer: vdw > RHO_C ? 'liquid' : 'vapour' });
-    const rho = eos.reducedDensity;
-    return Number.isFinite(rho) && rho > 0 ? Math.min(1.1, Math.max(1e-4, rho)) : vdw;
+    const roots = ljEosDensity(tStar, pStar).roots.filter((r) => Number.isFinite(r) && r > 0);
+    if (roots.length === 0) return vdw;
+    const mu = (rho: number): number => tStar * Math.log(rho) + ljEosResidualHelmholtz(rho, tStar) + pStar / rho;
+    let best = roots[0];
+    for (const r of roots) if (mu(r) < mu(best)) best = r;
+    return Math.min(1.1, Math.max(1e-4, best));
   } catch {
     return vdw;
   }
