@@ -4,6 +4,7 @@ import * as m20261201_0002 from './20261201_0002_substances_datasets';
 import * as m20261201_0003 from './20261201_0003_jobs_fits';
 import * as m20261201_0004 from './20261201_0004_parameter_sets';
 import * as m20261201_0005 from './20261201_0005_mail_follows';
+import * as m20261201_0006 from './20261201_0006_tokens_preferences';
 
 /**
  * Every migration, by name, in the order they run. Listed statically so the same code runs under
@@ -15,4 +16,5 @@ export const MIGRATIONS: Record<string, Migration> = {
   '20261201_0003_jobs_fits': m20261201_0003,
   '20261201_0004_parameter_sets': m20261201_0004,
   '20261201_0005_mail_follows': m20261201_0005,
+  '20261201_0006_tokens_preferences': m20261201_0006,
 };

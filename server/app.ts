@@ -4,6 +4,7 @@ import express from 'express';
 import helmet from 'helmet';
 import type { AppContext } from './app-context';
 import { originCheck, sessionMiddleware } from './common/auth-middleware';
+import { bearerTokenMiddleware } from './common/bearer-token';
 import { apiNotFound, createErrorHandler } from './common/error-handler';
 import { authRoutes } from './features/auth/auth.routes';
 import { healthRoutes } from './features/health/health.routes';
@@ -16,6 +17,9 @@ import { auditRoutes } from './features/audit/audit.routes';
 import { followRoutes } from './features/follows/follows.routes';
 import { parameterSetRoutes } from './features/parameter-sets/parameter-sets.routes';
 import { simulationRoutes } from './features/simulations/simulations.routes';
+import { catalogRoutes } from './features/catalog/catalog.routes';
+import { tokenRoutes } from './features/tokens/tokens.routes';
+import { preferenceRoutes } from './features/preferences/preferences.routes';
 
 export interface CreateAppOptions {
   /** Folder of the built client (vite build); when set, the server serves it with an SPA fallback. */
@@ -54,6 +58,8 @@ export function createApp(ctx: AppContext, options: CreateAppOptions = {}) {
 
   const api = express.Router();
   api.use(express.json({ limit: '1mb' }));
+  // Before the Origin check: a token request that is not a read of an allowed route stops here (403).
+  api.use(bearerTokenMiddleware(ctx.db));
   api.use(originCheck);
   api.use(sessionMiddleware(ctx.auth, ctx.db));
   api.use(healthRoutes(ctx));
@@ -67,6 +73,9 @@ export function createApp(ctx: AppContext, options: CreateAppOptions = {}) {
   api.use(mailRoutes(ctx));
   api.use(auditRoutes(ctx));
   api.use(followRoutes(ctx));
+  api.use(catalogRoutes(ctx));
+  api.use(tokenRoutes(ctx));
+  api.use(preferenceRoutes(ctx));
   api.use(apiNotFound);
   app.use('/api', api);
 

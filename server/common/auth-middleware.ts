@@ -12,6 +12,9 @@ export interface CurrentUser {
   email: string;
   name: string;
   roles: Role[];
+  /** Set when a personal API token signed the request in (server/common/bearer-token.ts). */
+  via?: 'token';
+  tokenId?: number;
 }
 
 declare global {

@@ -6,6 +6,7 @@ import type { ParameterSetCommentTable, ParameterSetTable, ParameterSetTransitio
 import type { JobTable } from '../jobs/job.table';
 import type { MailboxMessageTable, MailOutboxTable } from '../features/mail/mail.table';
 import type { SubstanceFollowTable } from '../features/follows/follows.table';
+import type { ApiTokenTable } from '../features/tokens/tokens.table';
 import type { SessionTable, UserRoleTable, UserTable } from '../features/users/users.table';
 
 /** The typed database: one entry per table, fed by each feature's *.table.ts (columns in camelCase). */
@@ -27,4 +28,5 @@ export interface Database {
   mailOutbox: MailOutboxTable;
   mailboxMessage: MailboxMessageTable;
   substanceFollow: SubstanceFollowTable;
+  apiToken: ApiTokenTable;
 }

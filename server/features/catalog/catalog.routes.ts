@@ -1,0 +1,71 @@
+import { Router, type Response } from 'express';
+import { MIXTURE_JSON_SCHEMA, PARAMETER_SET_JSON_SCHEMA } from '../../../shared/export/json-schema';
+import type { ExportResult } from '../../../shared/export/parameter-set-export';
+import { catalogQuery, exportQuery, mixtureQuery } from '../../../shared/schemas/catalog';
+import type { AppContext } from '../../app-context';
+import { currentUser, requirePolicy } from '../../common/auth-middleware';
+import { notFound } from '../../common/errors';
+import { idParams, validParams, validQuery } from '../../common/validate';
+import { exportableSet, exportMixtureFile, exportSetFile, mixtureJson, parameterCard, searchCatalog } from './catalog.service';
+import { openApiDocument } from './openapi';
+
+/** Published JSON Schemas of the export formats, by file name. */
+const SCHEMAS: Record<string, object> = {
+  'parameter-set-1.json': PARAMETER_SET_JSON_SCHEMA,
+  'mixture-1.json': MIXTURE_JSON_SCHEMA,
+};
+
+function sendFile(res: Response, file: ExportResult) {
+  res.attachment(file.filename);
+  res.set('Content-Type', file.contentType);
+  // The set's state can change (superseded, retired): revalidate rather than keep a stale copy.
+  res.set('Cache-Control', 'private, no-cache');
+  res.send(file.body);
+}
+
+/**
+ * The catalog (approved sets), the parameter card, exports, mixtures, and the published schemas and API
+ * description. The read routes here are the only ones personal API tokens reach (server/common/bearer-token.ts).
+ */
+export function catalogRoutes(ctx: AppContext): Router {
+  const router = Router();
+  const { db } = ctx;
+
+  router.get('/catalog', requirePolicy('catalog:read'), async (req, res) => {
+    const query = validQuery(catalogQuery, req);
+    res.json({ sets: await searchCatalog(db, query) });
+  });
+
+  router.get('/catalog/:id', requirePolicy('catalog:read'), async (req, res) => {
+    const { id } = validParams(idParams, req);
+    res.json(await parameterCard(db, id, currentUser(res)));
+  });
+
+  router.get('/parameter-sets/:id/export', requirePolicy('catalog:export'), async (req, res) => {
+    const { id } = validParams(idParams, req);
+    const { format, units } = validQuery(exportQuery, req);
+    const set = await exportableSet(db, id, currentUser(res));
+    sendFile(res, exportSetFile(set, format, units));
+  });
+
+  router.get('/mixtures', requirePolicy('catalog:export'), async (req, res) => {
+    const { sets: ids, rule, format, units } = validQuery(mixtureQuery, req);
+    const sets = [];
+    for (const id of ids) sets.push(await exportableSet(db, id, currentUser(res), 'sets'));
+    if (format) sendFile(res, exportMixtureFile(sets, rule, format, units));
+    else res.json(mixtureJson(sets, rule));
+  });
+
+  // Public: the schemas and the API description hold no data, and tools fetch them without credentials.
+  router.get('/schemas/:name', (req, res) => {
+    const schema = Object.prototype.hasOwnProperty.call(SCHEMAS, req.params.name) ? SCHEMAS[req.params.name] : undefined;
+    if (!schema) throw notFound(`Schema ${req.params.name}`);
+    res.type('application/schema+json').send(JSON.stringify(schema, null, 2));
+  });
+
+  router.get('/openapi.json', (_req, res) => {
+    res.type('application/json').send(JSON.stringify(openApiDocument(), null, 2));
+  });
+
+  return router;
+}

@@ -1,0 +1,188 @@
+import { type CombiningRule, COMBINING_RULE_INFO, mixtureTable } from '../../../shared/mixing/combining-rules';
+import { commonValidity, ExportError, mixtureCutoff } from '../../../shared/export/export-common';
+import { exportMixture, exportOptionsFromQuery, exportParameterSet, type ExportableParameterSet, type ExportFormat, type ExportResult } from '../../../shared/export/parameter-set-export';
+import { isVisibleTo, PUBLISHED_STATES, STATE_LABELS, type ParameterSetState } from '../../../shared/parameter-sets/transitions';
+import type { PropertyKind } from '../../../shared/measurements/property-kinds';
+import { CUTOFF_SCHEME_LABELS } from '../../../shared/schemas/parameter-sets';
+import type { CatalogQuery } from '../../../shared/schemas/catalog';
+import type { CurrentUser } from '../../common/auth-middleware';
+import { AppError, notFound } from '../../common/errors';
+import type { Db } from '../../db/database';
+import type { FitDatasetRef } from '../fits/fits.service';
+import { getParameterSetDetail } from '../parameter-sets/parameter-sets.service';
+import { approvals, datasetVersionSources, findCatalogRow, listCatalogRows, versionRows, type CatalogRow } from './catalog.repository';
+
+/**
+ * States the export and mixture routes serve: the approved version and the superseded ones it replaced
+ * (kept reproducible). Drafts, sets in review or sent back, and retired sets are never exported.
+ */
+export const EXPORTABLE_STATES: readonly ParameterSetState[] = ['approved', 'superseded'];
+
+const kindsOf = (row: { datasetsJson: string }) => [...new Set((JSON.parse(row.datasetsJson) as FitDatasetRef[]).map((d) => d.kind))].sort() as PropertyKind[];
+
+function toCatalogEntry(row: CatalogRow, approval: { at: string; actorName: string | null } | undefined) {
+  return {
+    id: row.id,
+    substanceId: row.substanceId,
+    substanceName: row.substanceName,
+    formula: row.formula,
+    version: row.version,
+    state: row.state,
+    stateLabel: STATE_LABELS[row.state],
+    scheme: row.scheme,
+    schemeLabel: CUTOFF_SCHEME_LABELS[row.scheme],
+    cutoffSigma: row.cutoffSigma,
+    model: row.model,
+    epsilonK: row.epsilonK,
+    sigmaAngstrom: row.sigmaAngstrom,
+    stdErr: { epsilonK: row.epsilonStdErrK, sigmaAngstrom: row.sigmaStdErrAngstrom },
+    correlation: row.correlation,
+    validity: { temperatureMinK: row.temperatureMinK, temperatureMaxK: row.temperatureMaxK, pressureMinMPa: row.pressureMinMpa, pressureMaxMPa: row.pressureMaxMpa },
+    kinds: kindsOf(row),
+    fitId: row.fitId,
+    approvedAt: approval?.at ?? null,
+    approvedByName: approval?.actorName ?? null,
+    olderVersions: Number(row.olderPublished ?? 0),
+  };
+}
+
+export type CatalogEntry = ReturnType<typeof toCatalogEntry>;
+
+/** GET /api/catalog: the current approved version of each substance and scheme, filtered. */
+export async function searchCatalog(db: Db, query: CatalogQuery): Promise<CatalogEntry[]> {
+  const rows = await listCatalogRows(db, ['approved']);
+  const needle = query.q?.toLowerCase();
+  const kept = rows.filter((r) => {
+    if (needle && !r.substanceName.toLowerCase().includes(needle) && !(r.formula ?? '').toLowerCase().includes(needle)) return false;
+    if (query.scheme && r.scheme !== query.scheme) return false;
+    if (query.kind?.length) {
+      const kinds = kindsOf(r);
+      if (!query.kind.every((k) => kinds.includes(k as PropertyKind))) return false;
+    }
+    // Overlap of the closed ranges [tMin, tMax] and the set's validity.
+    if (query.tMinK !== undefined && r.temperatureMaxK < query.tMinK) return false;
+    if (query.tMaxK !== undefined && r.temperatureMinK > query.tMaxK) return false;
+    return true;
+  });
+  const approvalsById = await approvals(db, kept.map((r) => r.approveTransitionId).filter((x): x is number => x != null));
+  return kept.map((r) => toCatalogEntry(r, r.approveTransitionId != null ? approvalsById.get(r.approveTransitionId) : undefined));
+}
+
+/** A published set, or 404 (unpublished sets have no card; the review page shows them to the review roles). */
+async function requirePublishedRow(db: Db, id: number) {
+  const row = await findCatalogRow(db, id);
+  if (!row || !PUBLISHED_STATES.includes(row.state)) throw notFound(`Parameter set ${id} in the catalog`);
+  return row;
+}
+
+/**
+ * GET /api/catalog/:id: the parameter card. Values, validity, approval, measurement sets with sources,
+ * fit statistics, and every published version of the same substance and scheme with what changed.
+ */
+export async function parameterCard(db: Db, id: number, viewer: CurrentUser) {
+  const row = await requirePublishedRow(db, id);
+  const detail = await getParameterSetDetail(db, id, viewer);
+  const versions = await versionRows(db, row.substanceId, row.scheme, PUBLISHED_STATES);
+  const approvalIds = [row, ...versions].map((r) => r.approveTransitionId).filter((x): x is number => x != null);
+  const approvalsById = await approvals(db, approvalIds);
+  const approval = row.approveTransitionId != null ? approvalsById.get(row.approveTransitionId) : undefined;
+  const current = versions.find((v) => v.state === 'approved') ?? null;
+  return {
+    ...toCatalogEntry(row, approval),
+    molarMassGPerMol: row.molarMassGramsPerMol,
+    approvalComment: approval?.comment ?? null,
+    rationale: detail.rationale,
+    fit: detail.fit,
+    datasets: detail.datasets,
+    exportable: EXPORTABLE_STATES.includes(row.state),
+    currentApprovedId: current?.id ?? null,
+    // Oldest first; each version's change is against the published version before it.
+    versions: versions.map((v, k) => {
+      const prev = k > 0 ? versions[k - 1] : null;
+      const a = v.approveTransitionId != null ? approvalsById.get(v.approveTransitionId) : undefined;
+      return {
+        id: v.id,
+        version: v.version,
+        state: v.state,
+        stateLabel: STATE_LABELS[v.state],
+        epsilonK: v.epsilonK,
+        sigmaAngstrom: v.sigmaAngstrom,
+        stdErr: { epsilonK: v.epsilonStdErrK, sigmaAngstrom: v.sigmaStdErrAngstrom },
+        validity: { temperatureMinK: v.temperatureMinK, temperatureMaxK: v.temperatureMaxK },
+        kinds: kindsOf(v),
+        fitId: v.fitId,
+        approvedAt: a?.at ?? null,
+        approvedByName: a?.actorName ?? null,
+        change: prev ? { fromVersion: prev.version, epsilonK: v.epsilonK - prev.epsilonK, sigmaAngstrom: v.sigmaAngstrom - prev.sigmaAngstrom } : null,
+      };
+    }),
+  };
+}
+
+/**
+ * A set as the exporters take it. 404 when the viewer may not see it (a consumer learns nothing about an
+ * unpublished set), 409 when they may see it but it is not in an exportable state.
+ */
+export async function exportableSet(db: Db, id: number, viewer: CurrentUser, field = 'id'): Promise<ExportableParameterSet> {
+  const row = await findCatalogRow(db, id);
+  if (!row || !isVisibleTo(row.state, viewer.roles)) throw notFound(`Parameter set ${id}`);
+  if (!EXPORTABLE_STATES.includes(row.state)) {
+    throw new AppError(409, 'not_exportable', `Parameter set ${id} is ${STATE_LABELS[row.state]}; only approved and superseded sets are exported.`, [{ field, message: `set ${id} is ${row.state}` }]);
+  }
+  const refs = JSON.parse(row.datasetsJson) as FitDatasetRef[];
+  const sources = await datasetVersionSources(db, refs.map((r) => r.versionId));
+  const approval = row.approveTransitionId != null ? (await approvals(db, [row.approveTransitionId])).get(row.approveTransitionId) : undefined;
+  return {
+    id: row.id,
+    version: row.version,
+    substance: { id: row.substanceId, name: row.substanceName, formula: row.formula, molarMassGPerMol: row.molarMassGramsPerMol },
+    model: row.model,
+    epsilonK: row.epsilonK,
+    sigmaAngstrom: row.sigmaAngstrom,
+    stdErr: { epsilonK: row.epsilonStdErrK, sigmaAngstrom: row.sigmaStdErrAngstrom },
+    correlation: row.correlation,
+    scheme: row.scheme,
+    cutoffSigma: row.cutoffSigma,
+    validity: { temperatureMinK: row.temperatureMinK, temperatureMaxK: row.temperatureMaxK, pressureMinMPa: row.pressureMinMpa, pressureMaxMPa: row.pressureMaxMpa },
+    approvedAt: approval?.at ?? null,
+    approvedBy: approval?.actorName ?? null,
+    state: row.state,
+    fitId: row.fitId,
+    datasets: refs.map((r) => ({ id: r.datasetId, version: r.version, kind: r.kind, name: r.name, source: sources.get(r.versionId)?.source ?? null, doi: sources.get(r.versionId)?.doi ?? null })),
+  };
+}
+
+/** Runs an exporter; its refusals become 400 answers in the API's error shape. */
+export function runExport(fn: () => ExportResult, field: string): ExportResult {
+  try {
+    return fn();
+  } catch (err) {
+    if (err instanceof ExportError) throw new AppError(400, err.code.replace(/-/g, '_'), err.message, [{ field: err.code === 'unknown-unit' ? 'units' : field, message: err.message }]);
+    throw err;
+  }
+}
+
+export function exportSetFile(set: ExportableParameterSet, format: ExportFormat, units: string | undefined): ExportResult {
+  return runExport(() => exportParameterSet(set, format, exportOptionsFromQuery(units)), 'format');
+}
+
+export function exportMixtureFile(sets: ExportableParameterSet[], rule: CombiningRule, format: ExportFormat, units: string | undefined): ExportResult {
+  return runExport(() => exportMixture(sets, rule, format, exportOptionsFromQuery(units)), 'sets');
+}
+
+/** GET /api/mixtures without a format: the pair table as JSON. Cross pairs are combining-rule estimates. */
+export function mixtureJson(sets: ExportableParameterSet[], rule: CombiningRule) {
+  const table = mixtureTable(sets, rule);
+  const info = COMBINING_RULE_INFO[rule];
+  return {
+    rule,
+    ruleName: info.name,
+    formulas: info.formulas,
+    reference: info.reference,
+    components: sets.map((s, index) => ({ index, setId: s.id, version: s.version, state: s.state, substanceName: s.substance.name, scheme: s.scheme, cutoffSigma: s.cutoffSigma, epsilonK: s.epsilonK, sigmaAngstrom: s.sigmaAngstrom })),
+    pairs: table.pairs.map((p) => ({ i: p.i, j: p.j, setIdI: sets[p.i].id, setIdJ: sets[p.j].id, substanceI: sets[p.i].substance.name, substanceJ: sets[p.j].substance.name, epsilonK: p.epsilonK, sigmaAngstrom: p.sigmaAngstrom, kind: p.kind })),
+    note: table.note,
+    commonValidity: commonValidity(sets),
+    cutoff: mixtureCutoff(sets),
+  };
+}

@@ -1,0 +1,88 @@
+/**
+ * zod schemas of the catalog, export, mixture, preference and token API, shared by the server (request
+ * validation, OpenAPI document) and the client. Units in names: K for ε/k_B and temperatures, Å for σ.
+ */
+import { z } from 'zod';
+import { COMBINING_RULES } from '../mixing/combining-rules';
+import { PROPERTY_KIND_IDS } from '../measurements/property-kinds';
+import { ENERGY_UNITS, LENGTH_UNITS } from '../physics/parameter-units';
+import { EXPORT_FORMATS } from '../export/parameter-set-export';
+import { CUTOFF_SCHEMES } from './parameter-sets';
+
+const temperature = (name: string) =>
+  z.coerce.number({ error: `${name} must be a temperature in K` }).gt(0, `${name} must be above 0 K`).max(100000, `${name} must be at most 100000 K`);
+
+/** GET /api/catalog — every filter optional; a temperature range keeps the sets whose validity overlaps it. */
+export const catalogQuery = z
+  .object({
+    q: z.string().trim().max(120, 'at most 120 characters').optional(),
+    scheme: z.enum(CUTOFF_SCHEMES, { error: `scheme must be one of ${CUTOFF_SCHEMES.join(', ')}` }).optional(),
+    kind: z
+      .string()
+      .transform((s) => s.split(',').map((x) => x.trim()).filter(Boolean))
+      .pipe(z.array(z.enum(PROPERTY_KIND_IDS as [string, ...string[]], { error: `kind must be among ${PROPERTY_KIND_IDS.join(', ')}` })))
+      .optional(),
+    tMinK: temperature('tMinK').optional(),
+    tMaxK: temperature('tMaxK').optional(),
+  })
+  .strict()
+  .superRefine((v, ctx) => {
+    if (v.tMinK !== undefined && v.tMaxK !== undefined && v.tMinK > v.tMaxK) ctx.addIssue({ code: 'custom', path: ['tMaxK'], message: 'tMaxK must not be below tMinK' });
+  });
+export type CatalogQuery = z.infer<typeof catalogQuery>;
+
+/** GET /api/parameter-sets/:id/export */
+export const exportQuery = z
+  .object({
+    format: z.enum(EXPORT_FORMATS, { error: `format must be one of ${EXPORT_FORMATS.join(', ')}` }),
+    units: z.string().max(40).optional(),
+  })
+  .strict();
+
+/** GET /api/mixtures — two or more distinct set ids, a combining rule, and a format for a file. */
+export const mixtureQuery = z
+  .object({
+    sets: z
+      .string({ error: 'give sets as comma-separated parameter set ids' })
+      .transform((s) => s.split(',').map((x) => x.trim()).filter(Boolean))
+      .pipe(
+        z
+          .array(z.coerce.number<string>({ error: 'each set id must be a number' }).int('each set id must be an integer').positive('each set id must be positive'))
+          .min(2, 'a mixture needs at least two parameter sets')
+          .max(12, 'at most 12 parameter sets')
+          .refine((ids) => new Set(ids).size === ids.length, 'each parameter set may appear once'),
+      ),
+    rule: z.enum(COMBINING_RULES, { error: `rule must be one of ${COMBINING_RULES.join(', ')}` }),
+    format: z.enum(EXPORT_FORMATS, { error: `format must be one of ${EXPORT_FORMATS.join(', ')}` }).optional(),
+    units: z.string().max(40).optional(),
+  })
+  .strict();
+export type MixtureQuery = z.infer<typeof mixtureQuery>;
+
+/** What the user last picked on the parameter card; remembered per user on the server. */
+export const preferencesSchema = z
+  .object({
+    energyUnit: z.enum(ENERGY_UNITS, { error: `energyUnit must be one of ${ENERGY_UNITS.join(', ')}` }),
+    lengthUnit: z.enum(LENGTH_UNITS, { error: `lengthUnit must be one of ${LENGTH_UNITS.join(', ')}` }),
+    /** The cutoff scheme the user's simulations use ("my simulation uses"); absent when not said. */
+    scheme: z.enum(CUTOFF_SCHEMES, { error: `scheme must be one of ${CUTOFF_SCHEMES.join(', ')}` }).optional(),
+  })
+  .strict();
+export type Preferences = z.infer<typeof preferencesSchema>;
+export const DEFAULT_PREFERENCES: Preferences = { energyUnit: 'K', lengthUnit: 'Å' };
+
+/** PUT /api/me/preferences — any subset; `scheme: null` forgets the scheme. */
+export const updatePreferencesBody = z
+  .object({
+    energyUnit: preferencesSchema.shape.energyUnit.optional(),
+    lengthUnit: preferencesSchema.shape.lengthUnit.optional(),
+    scheme: preferencesSchema.shape.scheme.unwrap().nullable().optional(),
+  })
+  .strict()
+  .refine((v) => Object.keys(v).length > 0, { message: 'give at least one of energyUnit, lengthUnit, scheme' });
+export type UpdatePreferencesBody = z.infer<typeof updatePreferencesBody>;
+
+/** POST /api/tokens */
+export const createTokenBody = z
+  .object({ name: z.string({ error: 'give the token a name' }).trim().min(1, 'give the token a name').max(80, 'at most 80 characters') })
+  .strict();
