@@ -1,10 +1,59 @@
 import { Link } from 'react-router-dom';
 import { hasPolicy, ROLE_DESCRIPTIONS, ROLE_LABELS } from '@shared/auth/roles';
+import { formatWithUncertainty } from '@shared/format/numbers';
 import { NAV_ITEMS } from '@/config/navigation';
-import { PageHeader, Panel } from '@/components/ui/states';
+import { KindBadge } from '@/components/ui/badge';
+import { ErrorState, LoadingState, PageHeader, Panel } from '@/components/ui/states';
 import { useMe } from '@/features/auth/api/me';
+import { useReviewQueue } from '@/features/parameter-sets/api/parameter-sets';
+import { useSimulations } from '@/features/simulations/api/simulations';
+import { useSubstances } from '@/features/substances/api/substances';
 
-/** The landing page after sign-in: who you are here and where your work is. */
+function ReviewWaiting() {
+  const queue = useReviewQueue();
+  if (queue.isPending) return <LoadingState />;
+  if (queue.isError) return <ErrorState error={queue.error} onRetry={() => queue.refetch()} />;
+  if (!queue.data.length) return <p className="text-ink-soft">Nothing waits for your review.</p>;
+  return (
+    <ul className="divide-y divide-rule/70">
+      {queue.data.slice(0, 6).map((s) => (
+        <li key={s.id} className="py-2">
+          <Link to={`/parameter-sets/${s.id}`} className="font-semibold underline decoration-rule underline-offset-4 hover:decoration-copper">
+            {s.substanceName} v{s.version}
+          </Link>
+          <span className="num ml-2 text-sm text-ink-soft">
+            ε/k_B = {formatWithUncertainty(s.epsilonK, s.stdErr.epsilonK, 'K')}, σ = {formatWithUncertainty(s.sigmaAngstrom, s.stdErr.sigmaAngstrom, 'Å')} · by {s.createdByName}
+          </span>
+        </li>
+      ))}
+    </ul>
+  );
+}
+
+function ModellerWork() {
+  const substances = useSubstances();
+  const sims = useSimulations();
+  if (substances.isPending) return <LoadingState />;
+  if (substances.isError) return <ErrorState error={substances.error} onRetry={() => substances.refetch()} />;
+  const running = (sims.data ?? []).filter((s) => s.status === 'running' || s.status === 'queued').length;
+  return (
+    <div className="grid gap-3">
+      <ul className="divide-y divide-rule/70">
+        {substances.data.slice(0, 6).map((s) => (
+          <li key={s.id} className="flex items-center justify-between gap-3 py-2">
+            <Link to={`/substances/${s.id}`} className="font-semibold underline decoration-rule underline-offset-4 hover:decoration-copper">{s.name}</Link>
+            <span className="flex gap-1">{s.kinds.map((k) => <KindBadge key={k} kind={k} />)}</span>
+          </li>
+        ))}
+      </ul>
+      <p className="text-sm text-ink-soft">
+        {running ? `${running} simulation(s) queued or running.` : 'No simulation is running.'} <Link to="/simulations" className="text-copper underline">Simulations</Link>
+      </p>
+    </div>
+  );
+}
+
+/** The landing page after sign-in: who you are here, what waits for you, and where your work is. */
 export function WorkbenchRoute() {
   const me = useMe().data!;
   const destinations = NAV_ITEMS.filter((i) => i.to !== '/' && (!i.policy || hasPolicy(me.roles, i.policy)));
@@ -12,6 +61,16 @@ export function WorkbenchRoute() {
     <>
       <PageHeader eyebrow="Workbench" title={`Good to see you, ${me.name.split(' ')[0]}`} subtitle="Lennard-Jones 12-6 parameters, fitted to measurements and checked by a second person." />
       <div className="grid gap-5 md:grid-cols-2">
+        {hasPolicy(me.roles, 'parameterSet:review') && (
+          <Panel title="Waiting for your review">
+            <ReviewWaiting />
+          </Panel>
+        )}
+        {hasPolicy(me.roles, 'fit:run') && (
+          <Panel title="Substances">
+            <ModellerWork />
+          </Panel>
+        )}
         <Panel title="Your roles">
           <ul className="space-y-3">
             {me.roles.map((role) => (
@@ -23,19 +82,15 @@ export function WorkbenchRoute() {
           </ul>
         </Panel>
         <Panel title="Go to">
-          {destinations.length ? (
-            <ul className="grid gap-2 sm:grid-cols-2">
-              {destinations.map((d) => (
-                <li key={d.to}>
-                  <Link to={d.to} className="block rounded-md border border-rule px-4 py-3 font-semibold hover:border-copper hover:text-copper">
-                    {d.label} →
-                  </Link>
-                </li>
-              ))}
-            </ul>
-          ) : (
-            <p className="text-ink-soft">Your roles have no workspace pages yet.</p>
-          )}
+          <ul className="grid gap-2 sm:grid-cols-2">
+            {destinations.map((d) => (
+              <li key={d.to}>
+                <Link to={d.to} className="block rounded-md border border-rule px-4 py-3 font-semibold hover:border-copper hover:text-copper">
+                  {d.label} →
+                </Link>
+              </li>
+            ))}
+          </ul>
         </Panel>
       </div>
     </>
