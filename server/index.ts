@@ -4,6 +4,7 @@ import { createApp } from './app';
 import { createContext } from './bootstrap';
 import { loadEnv } from './config/env';
 import { seedDemo } from './db/seed';
+import { seedApprovedDemoSets } from './features/catalog/catalog.seed';
 import { DEMO_PEOPLE } from '../fixtures/demo/scenario';
 
 const CLIENT_DIR = fileURLToPath(new URL('../dist/client/', import.meta.url));
@@ -13,6 +14,8 @@ export async function startServer() {
   const env = loadEnv();
   const ctx = await createContext(env);
   const { seeded } = await seedDemo(ctx.db, { demoPassword: env.DEMO_PASSWORD });
+  // The demo catalog: real fits of the gas-phase tables, approved through the review services.
+  if (seeded) await seedApprovedDemoSets(ctx);
   const app = createApp(ctx, { clientDir: CLIENT_DIR });
   const server = app.listen(env.PORT, env.HOST, () => {
     const address = server.address();

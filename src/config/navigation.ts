@@ -10,6 +10,8 @@ export interface NavItem {
 export const NAV_ITEMS: NavItem[] = [
   { to: '/', label: 'Workbench' },
   { to: '/substances', label: 'Substances', policy: 'measurements:browse' },
+  { to: '/catalog', label: 'Catalog', policy: 'catalog:read' },
+  { to: '/mixtures', label: 'Mixtures', policy: 'catalog:read' },
   { to: '/simulations', label: 'Simulations', policy: 'simulation:read' },
   { to: '/review', label: 'Review desk', policy: 'parameterSet:review' },
   { to: '/people', label: 'People', policy: 'people:manage' },

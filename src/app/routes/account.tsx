@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { Link } from 'react-router-dom';
 import { ROLE_LABELS } from '@shared/auth/roles';
 import { Button } from '@/components/ui/button';
 import { Field, Input } from '@/components/ui/field';
@@ -35,6 +36,10 @@ export function AccountRoute() {
             <Button type="submit" variant="primary" busy={change.isPending}>Change password</Button>
           </div>
         </form>
+      </Panel>
+      <Panel title="API tokens" className="mt-6 max-w-md">
+        <p className="text-sm text-ink-soft">Read-only tokens let your scripts read the catalog and download exports as you.</p>
+        <Link className="mt-2 inline-block text-sm font-semibold text-copper underline" to="/account/tokens">Manage API tokens</Link>
       </Panel>
     </>
   );

@@ -1,0 +1,143 @@
+import { Link, useParams } from 'react-router-dom';
+import type { LjFitResult } from '@shared/fitting/lj-fit';
+import type { EnergyUnit, LengthUnit } from '@shared/physics/parameter-units';
+import { KindBadge } from '@/components/ui/badge';
+import { ErrorState, LoadingState, PageHeader, Panel } from '@/components/ui/states';
+import { UnitSwitch } from '@/components/ui/unit-switch';
+import { exportHref, useParameterCard, usePreferences, useUpdatePreferences, type ParameterCard } from '@/features/catalog/api/catalog';
+import { ExportLinks } from '@/features/catalog/components/export-links';
+import { ParameterValues } from '@/features/catalog/components/parameter-values';
+import { SchemeCheck } from '@/features/catalog/components/scheme-check';
+import { VersionHistory } from '@/features/catalog/components/version-history';
+import { useFit } from '@/features/fits/api/fits';
+import { FitCurves } from '@/features/fits/components/fit-curves';
+import { DatasetStatsTable, ParameterTable } from '@/features/fits/components/parameter-table';
+import { FollowButton } from '@/features/follows/components/follow-button';
+import { ParameterSetCaution } from '@/features/parameter-sets/components/caution';
+import { ParameterSetStateBadge } from '@/features/parameter-sets/components/state-badge';
+
+/** The parameter card: what a consumer needs to use one published set, in their own units. */
+export function CatalogCardRoute() {
+  const id = Number(useParams().parameterSetId);
+  const card = useParameterCard(id);
+  const prefs = usePreferences();
+  const update = useUpdatePreferences();
+  if (card.isPending || prefs.isPending) return <LoadingState />;
+  if (card.isError) return <ErrorState error={card.error} onRetry={() => card.refetch()} />;
+  const c = card.data;
+  const energy: EnergyUnit = prefs.data?.energyUnit ?? 'K';
+  const length: LengthUnit = prefs.data?.lengthUnit ?? 'Å';
+  const csvUnits = [energy, length === 'Å' ? 'A' : length].join(',');
+  return (
+    <>
+      <PageHeader
+        eyebrow={<Link to="/catalog" className="hover:underline">Catalog</Link>}
+        title={`${c.substanceName} v${c.version}`}
+        subtitle={
+          <span className="flex flex-wrap items-center gap-2">
+            <ParameterSetStateBadge state={c.state} /> {c.schemeLabel}
+            {c.cutoffSigma !== null && `, r_c = ${c.cutoffSigma} σ`}
+            {c.formula && <span className="text-ink-faint">· {c.formula}</span>}
+          </span>
+        }
+        action={<FollowButton substanceId={c.substanceId} substanceName={c.substanceName} />}
+      />
+      <div className="grid gap-6">
+        <ParameterSetCaution />
+        {c.state === 'superseded' && c.currentApprovedId && (
+          <p role="status" className="rounded-md bg-slate-soft px-4 py-2 text-sm text-slate">
+            Superseded: the current approved version is <Link className="underline" to={`/catalog/${c.currentApprovedId}`}>v{c.versions.find((v) => v.id === c.currentApprovedId)?.version}</Link>. This version stays here and in exports for reproducing earlier work.
+          </p>
+        )}
+        {c.state === 'retired' && <p role="status" className="rounded-md bg-changes-soft px-4 py-2 text-sm text-changes">Retired: do not use for new work. Retired sets are not exported.</p>}
+        <div className="grid gap-6 lg:grid-cols-[3fr_2fr]">
+          <Panel title="Parameters" actions={<UnitSwitch energy={energy} length={length} onChange={(u) => update.mutate({ energyUnit: u.energy, lengthUnit: u.length })} />}>
+            <ParameterValues card={c} energy={energy} length={length} />
+          </Panel>
+          <Panel title="Use it">
+            <div className="grid gap-5">
+              <SchemeCheck fitted={c.scheme} cutoffSigma={c.cutoffSigma} used={prefs.data?.scheme} onChange={(scheme) => update.mutate({ scheme })} />
+              {c.exportable ? (
+                <ExportLinks hrefOf={(f) => exportHref(c.id, f, f === 'csv' ? csvUnits : undefined)} note={`CSV adds columns in ${energy} and ${length}; the engine files use the engines' own units.`} />
+              ) : (
+                <p className="text-sm text-ink-faint">Only approved and superseded sets are exported.</p>
+              )}
+            </div>
+          </Panel>
+        </div>
+        <Panel title="Approval">
+          <p className="text-sm">
+            {c.approvedAt ? (
+              <>Approved by <span className="font-semibold">{c.approvedByName ?? 'a reviewer'}</span> on <time dateTime={c.approvedAt}>{new Date(c.approvedAt).toLocaleString()}</time>.</>
+            ) : (
+              'No approval recorded.'
+            )}{' '}
+            <Link className="text-copper underline" to={`/parameter-sets/${c.id}`}>Full review record</Link>
+          </p>
+          {c.approvalComment && <blockquote className="mt-2 border-l-2 border-rule pl-3 text-sm text-ink-soft">{c.approvalComment}</blockquote>}
+          <p className="mt-3 whitespace-pre-line text-sm"><span className="text-ink-faint">Rationale: </span>{c.rationale}</p>
+        </Panel>
+        <FitEvidence card={c} energy={energy} length={length} />
+        <Panel title="Measurement sets and their sources">
+          <Sources card={c} />
+        </Panel>
+        <Panel title="Versions">
+          <VersionHistory card={c} energy={energy} length={length} />
+        </Panel>
+      </div>
+    </>
+  );
+}
+
+/** The fit against the data it was fitted to, with per-set statistics (from GET /api/fits/:id). */
+function FitEvidence({ card, energy, length }: { card: ParameterCard; energy: EnergyUnit; length: LengthUnit }) {
+  const fit = useFit(card.fitId);
+  if (fit.isPending) return <LoadingState label="Loading the fit…" />;
+  if (fit.isError) return <ErrorState error={fit.error} onRetry={() => fit.refetch()} />;
+  const result = fit.data.result as LjFitResult | null;
+  if (!result || result.status !== 'succeeded') return null;
+  const names = Object.fromEntries(card.datasets.map((d) => [String(d.datasetId), `${d.name} v${d.version}`]));
+  const context = { molarMassGPerMol: fit.data.options.molarMassGPerMol, quantumCorrection: !!fit.data.options.quantumCorrection };
+  return (
+    <>
+      <Panel title={`Fit #${fit.data.number} against the data`}>
+        <FitCurves result={result} datasetNames={names} context={context} curves={[{ label: `v${card.version}`, epsilonK: card.epsilonK, sigmaAngstrom: card.sigmaAngstrom }]} />
+      </Panel>
+      <div className="grid gap-6 lg:grid-cols-2">
+        <Panel title="Fit statistics">
+          <ParameterTable result={result} energy={energy} length={length} />
+        </Panel>
+        <Panel title="Per measurement set">
+          <DatasetStatsTable result={result} names={names} />
+        </Panel>
+      </div>
+    </>
+  );
+}
+
+function Sources({ card }: { card: ParameterCard }) {
+  return (
+    <table className="w-full text-sm">
+      <thead className="border-b border-rule text-xs uppercase tracking-wider text-ink-faint">
+        <tr>
+          <th className="py-1.5 text-left">Set</th>
+          <th className="text-left">Kind</th>
+          <th className="text-right">Points</th>
+          <th className="pl-4 text-left">Citation</th>
+          <th className="text-left">DOI</th>
+        </tr>
+      </thead>
+      <tbody>
+        {card.datasets.map((d) => (
+          <tr key={d.versionId} className="border-b border-rule/60">
+            <td className="py-1.5">{d.name} v{d.version}</td>
+            <td><KindBadge kind={d.kind} /></td>
+            <td className="num text-right">{d.rowCount ?? '—'}</td>
+            <td className="pl-4">{d.source ?? <span className="text-ink-faint">not given</span>}{d.method && <div className="text-xs text-ink-faint">{d.method}</div>}</td>
+            <td>{d.doi ? <a className="underline" href={`https://doi.org/${encodeURI(d.doi)}`} rel="noreferrer noopener" target="_blank">{d.doi}</a> : '—'}</td>
+          </tr>
+        ))}
+      </tbody>
+    </table>
+  );
+}

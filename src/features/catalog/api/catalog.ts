@@ -1,0 +1,140 @@
+import { keepPreviousData, queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import type { CombiningRule } from '@shared/mixing/combining-rules';
+import type { PropertyKind } from '@shared/measurements/property-kinds';
+import type { ParameterSetState } from '@shared/parameter-sets/transitions';
+import type { CutoffScheme } from '@shared/schemas/parameter-sets';
+import type { Preferences, UpdatePreferencesBody } from '@shared/schemas/catalog';
+import { api } from '@/lib/api-client';
+
+export interface CatalogEntry {
+  id: number;
+  substanceId: number;
+  substanceName: string;
+  formula: string | null;
+  version: number;
+  state: ParameterSetState;
+  stateLabel: string;
+  scheme: CutoffScheme;
+  schemeLabel: string;
+  cutoffSigma: number | null;
+  model: 'lj-12-6';
+  epsilonK: number;
+  sigmaAngstrom: number;
+  stdErr: { epsilonK: number | null; sigmaAngstrom: number | null };
+  correlation: number | null;
+  validity: { temperatureMinK: number; temperatureMaxK: number; pressureMinMPa: number | null; pressureMaxMPa: number | null };
+  kinds: PropertyKind[];
+  fitId: number;
+  approvedAt: string | null;
+  approvedByName: string | null;
+  olderVersions: number;
+}
+
+export interface ParameterCard extends CatalogEntry {
+  molarMassGPerMol: number;
+  approvalComment: string | null;
+  rationale: string;
+  fit: { id: number; number: number; chi2: number | null; dof: number | null; reducedChi2: number | null; quantumCorrection: boolean; molarMassGPerMol: number | null; warnings: string[]; dataSpan: { temperatureMinK: number; temperatureMaxK: number } | null };
+  datasets: Array<{ datasetId: number; name: string; kind: PropertyKind; version: number; versionId: number; weight: number; source: string | null; doi: string | null; method: string | null; rowCount: number | null; sha256: string | null }>;
+  exportable: boolean;
+  currentApprovedId: number | null;
+  versions: Array<{
+    id: number;
+    version: number;
+    state: ParameterSetState;
+    stateLabel: string;
+    epsilonK: number;
+    sigmaAngstrom: number;
+    stdErr: { epsilonK: number | null; sigmaAngstrom: number | null };
+    validity: { temperatureMinK: number; temperatureMaxK: number };
+    kinds: PropertyKind[];
+    fitId: number;
+    approvedAt: string | null;
+    approvedByName: string | null;
+    change: { fromVersion: number; epsilonK: number; sigmaAngstrom: number } | null;
+  }>;
+}
+
+export interface CatalogFilters {
+  q?: string;
+  scheme?: CutoffScheme;
+  kind?: PropertyKind[];
+  tMinK?: number;
+  tMaxK?: number;
+}
+
+export interface MixtureAnswer {
+  rule: CombiningRule;
+  ruleName: string;
+  formulas: string;
+  reference: string;
+  components: Array<{ index: number; setId: number; version: number; state: ParameterSetState; substanceName: string; scheme: CutoffScheme; cutoffSigma: number | null; epsilonK: number; sigmaAngstrom: number }>;
+  pairs: Array<{ i: number; j: number; setIdI: number; setIdJ: number; substanceI: string; substanceJ: string; epsilonK: number; sigmaAngstrom: number; kind: 'pure' | 'combining-rule-estimate' }>;
+  note: string;
+  commonValidity: { temperatureMinK: number; temperatureMaxK: number; pressureMinMPa: number | null; pressureMaxMPa: number | null } | null;
+  cutoff: { scheme: CutoffScheme; cutoffSigma: number; consistent: boolean; warning: string | null };
+}
+
+/** The query string of a filter set; empty filters are left out so equal searches share a cache entry. */
+export function catalogSearch(filters: CatalogFilters): string {
+  const p = new URLSearchParams();
+  if (filters.q?.trim()) p.set('q', filters.q.trim());
+  if (filters.scheme) p.set('scheme', filters.scheme);
+  if (filters.kind?.length) p.set('kind', filters.kind.join(','));
+  if (filters.tMinK !== undefined) p.set('tMinK', String(filters.tMinK));
+  if (filters.tMaxK !== undefined) p.set('tMaxK', String(filters.tMaxK));
+  const s = p.toString();
+  return s ? `?${s}` : '';
+}
+
+export const catalogKeys = {
+  all: ['catalog'] as const,
+  list: (search: string) => [...catalogKeys.all, 'list', search] as const,
+  card: (id: number) => [...catalogKeys.all, 'card', id] as const,
+  mixture: (setIds: number[], rule: CombiningRule) => [...catalogKeys.all, 'mixture', setIds.join(','), rule] as const,
+  preferences: () => ['preferences'] as const,
+};
+
+export const catalogQueryOptions = (filters: CatalogFilters) => {
+  const search = catalogSearch(filters);
+  return queryOptions({ queryKey: catalogKeys.list(search), queryFn: () => api<{ sets: CatalogEntry[] }>(`/catalog${search}`).then((r) => r.sets) });
+};
+
+export const parameterCardQueryOptions = (id: number) => queryOptions({ queryKey: catalogKeys.card(id), queryFn: () => api<ParameterCard>(`/catalog/${id}`) });
+
+export const mixtureQueryOptions = (setIds: number[], rule: CombiningRule) =>
+  queryOptions({ queryKey: catalogKeys.mixture(setIds, rule), queryFn: () => api<MixtureAnswer>(`/mixtures?sets=${setIds.join(',')}&rule=${rule}`), enabled: setIds.length >= 2 });
+
+export const preferencesQueryOptions = () => queryOptions({ queryKey: catalogKeys.preferences(), queryFn: () => api<Preferences>('/me/preferences'), staleTime: 5 * 60_000 });
+
+export const useCatalog = (filters: CatalogFilters) => useQuery({ ...catalogQueryOptions(filters), placeholderData: keepPreviousData });
+export const useParameterCard = (id: number) => useQuery(parameterCardQueryOptions(id));
+export const useMixture = (setIds: number[], rule: CombiningRule) => useQuery(mixtureQueryOptions(setIds, rule));
+export const usePreferences = () => useQuery(preferencesQueryOptions());
+
+/** Saves a change of units or scheme; the cache shows it at once and follows the server's answer. */
+export const useUpdatePreferences = () => {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (body: UpdatePreferencesBody) => api<Preferences>('/me/preferences', { method: 'PUT', body }),
+    onMutate: (body) => {
+      const before = qc.getQueryData<Preferences>(catalogKeys.preferences());
+      if (before) {
+        const next: Preferences = { ...before, ...(body.energyUnit ? { energyUnit: body.energyUnit } : {}), ...(body.lengthUnit ? { lengthUnit: body.lengthUnit } : {}) };
+        if (body.scheme === null) delete next.scheme;
+        else if (body.scheme) next.scheme = body.scheme;
+        qc.setQueryData(catalogKeys.preferences(), next);
+      }
+      return { before };
+    },
+    onError: (_e, _b, context) => {
+      if (context?.before) qc.setQueryData(catalogKeys.preferences(), context.before);
+    },
+    onSuccess: (data) => qc.setQueryData(catalogKeys.preferences(), data),
+  });
+};
+
+/** Download addresses: plain links, so the browser saves the file the server names. */
+export const exportHref = (setId: number, format: string, units?: string) => `/api/parameter-sets/${setId}/export?format=${format}${units ? `&units=${encodeURIComponent(units)}` : ''}`;
+export const mixtureHref = (setIds: number[], rule: CombiningRule, format: string, units?: string) =>
+  `/api/mixtures?sets=${setIds.join(',')}&rule=${rule}&format=${format}${units ? `&units=${encodeURIComponent(units)}` : ''}`;

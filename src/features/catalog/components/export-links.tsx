@@ -1,0 +1,28 @@
+import { EXPORT_FORMATS, type ExportFormat } from '@shared/export/parameter-set-export';
+
+export const FORMAT_LABELS: Record<ExportFormat, { label: string; hint: string }> = {
+  json: { label: 'JSON', hint: 'epsigma.parameter-set/1, every unit' },
+  csv: { label: 'CSV', hint: 'one row, units in the headers' },
+  'lammps-real': { label: 'LAMMPS real', hint: 'kcal/mol, Å' },
+  'lammps-metal': { label: 'LAMMPS metal', hint: 'eV, Å' },
+  gromacs: { label: 'GROMACS', hint: 'kJ/mol, nm' },
+};
+
+/** One plain download link per format; the server names the file (Content-Disposition). */
+export function ExportLinks({ hrefOf, note }: { hrefOf: (format: ExportFormat) => string; note?: string }) {
+  return (
+    <div>
+      <ul className="flex flex-wrap gap-2" aria-label="Downloads">
+        {EXPORT_FORMATS.map((f) => (
+          <li key={f}>
+            <a href={hrefOf(f)} download className="inline-flex flex-col rounded-md border border-rule bg-paper-raised px-3 py-1.5 text-sm hover:bg-paper-deep" title={FORMAT_LABELS[f].hint}>
+              <span className="font-semibold">↓ {FORMAT_LABELS[f].label}</span>
+              <span className="text-xs text-ink-faint">{FORMAT_LABELS[f].hint}</span>
+            </a>
+          </li>
+        ))}
+      </ul>
+      {note && <p className="mt-2 text-xs text-ink-faint">{note}</p>}
+    </div>
+  );
+}
