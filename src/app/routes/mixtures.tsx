@@ -80,7 +80,7 @@ export function MixturesRoute() {
                   <span className="text-ink-faint">Every component is inside its validity range for </span>
                   {mixture.data.commonValidity ? <span className="num">{temperatureRangeText(mixture.data.commonValidity)}</span> : <span className="text-changes">no common temperature range</span>}
                 </p>
-                <ExportLinks hrefOf={(f) => mixtureHref(picked, rule, f, f === 'csv' ? csvUnits : undefined)} />
+                <ExportLinks of="mixture" hrefOf={(f) => mixtureHref(picked, rule, f, f === 'csv' ? csvUnits : undefined)} note="Every pair is written explicitly; cross pairs carry the estimate note." />
               </div>
             )}
           </Panel>

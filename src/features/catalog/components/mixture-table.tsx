@@ -13,8 +13,8 @@ export function MixtureTable({ mixture, energy, length }: { mixture: MixtureAnsw
           <tr>
             <th className="py-1.5 text-left">Pair</th>
             <th className="text-left">Components</th>
-            <th className="text-right">{epsilonHeader(energy)}</th>
-            <th className="text-right">{sigmaHeader(length)}</th>
+            <th className="text-right normal-case">{epsilonHeader(energy)}</th>
+            <th className="text-right normal-case">{sigmaHeader(length)}</th>
             <th className="pl-4 text-left">Origin</th>
           </tr>
         </thead>

@@ -14,10 +14,10 @@ export function VersionHistory({ card, energy, length }: { card: ParameterCard; 
           <tr>
             <th className="py-1.5 text-left">Version</th>
             <th className="text-left">State</th>
-            <th className="text-right">{epsilonHeader(energy)}</th>
-            <th className="text-right">Δε</th>
-            <th className="text-right">{sigmaHeader(length)}</th>
-            <th className="text-right">Δσ</th>
+            <th className="text-right normal-case">{epsilonHeader(energy)}</th>
+            <th className="text-right normal-case">Δε</th>
+            <th className="text-right normal-case">{sigmaHeader(length)}</th>
+            <th className="text-right normal-case">Δσ</th>
             <th className="pl-4 text-left">Valid for</th>
             <th className="text-left">Approved</th>
           </tr>
