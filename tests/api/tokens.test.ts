@@ -110,6 +110,13 @@ describe('using a token', () => {
     expect((await consumer.get(`/api/catalog/${setId}`)).body.state).toBe('approved');
   });
 
+  it('judges the path spellings Express also routes (any case, trailing slash) the same way', async () => {
+    const c = t.client();
+    for (const path of ['/api/CATALOG', '/api/catalog/', `/api/Parameter-Sets/${setId}/Export?format=csv`]) expect((await c.get(path).set(bearer(token))).status, path).toBe(200);
+    for (const path of ['/api/Tokens', '/api/tokens/', '/api/ME/preferences', `/api/parameter-sets/${setId}/`, '/api/catalog/1/comments']) expect((await c.get(path).set(bearer(token))).status, path).toBe(403);
+    expect((await c.head('/api/catalog').set(bearer(token))).status).toBe(200);
+  });
+
   it('the allow-list is only the read routes of the catalog, export, mixtures, schemas and OpenAPI', () => {
     expect(TOKEN_ROUTES.map((r) => r.route)).toEqual([
       'GET /api/catalog',
