@@ -24,7 +24,7 @@ function NewSecret({ name, secret, onDone }: { name: string; secret: string; onD
         </Button>
         <Button variant="quiet" onClick={onDone}>Done</Button>
       </div>
-      <pre className="mt-3 overflow-x-auto rounded bg-paper px-3 py-2 text-xs">{`curl -H "Authorization: Bearer ${secret.slice(0, 8)}…" ${window.location.origin}/api/catalog`}</pre>
+      <pre className="mt-3 overflow-x-auto rounded bg-paper px-3 py-2 text-xs">{`export EPSIGMA_TOKEN=…   # the token above\ncurl -H "Authorization: Bearer $EPSIGMA_TOKEN" ${window.location.origin}/api/catalog`}</pre>
     </div>
   );
 }
