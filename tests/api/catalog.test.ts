@@ -1,6 +1,7 @@
 import Papa from 'papaparse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { checkJsonSchema } from '../../shared/export/json-schema-check';
+import { TOKEN_ROUTES } from '../../server/common/bearer-token';
 import { approvedSet, newSubstance } from './approved-set';
 import { EMAIL, startTestApp, type TestApp } from './test-app';
 
@@ -270,6 +271,9 @@ describe('published descriptions', () => {
     expect(doc.openapi).toBe('3.1.0');
     expect(doc.components.securitySchemes.bearerToken).toMatchObject({ type: 'http', scheme: 'bearer' });
     expect(Object.keys(doc.paths)).toEqual(expect.arrayContaining(['/catalog', '/parameter-sets/{id}/export', '/mixtures', '/schemas/{name}', '/openapi.json']));
+    // Every route a token reaches is described, and nothing else.
+    const described = Object.keys(doc.paths).map((p) => `GET /api${p.replace(/\{(\w+)\}/g, ':$1')}`);
+    expect(described.sort()).toEqual(TOKEN_ROUTES.map((r) => r.route).sort());
     const tMin = doc.paths['/catalog'].get.parameters.find((p: { name: string }) => p.name === 'tMinK');
     expect(tMin.schema).toMatchObject({ type: 'number', exclusiveMinimum: 0 });
   });
