@@ -9,7 +9,6 @@
  * plus { eosStage, mdRuns, mdIterations } for density fits.
  */
 import { readFileSync } from 'node:fs';
-import { parseArgs } from 'node:util';
 import os from 'node:os';
 import { fitLennardJones, type FitDataset, type LjFitResult } from '../../shared/fitting/lj-fit';
 import { mdStageFit, type MdRunSummary, type MdStatePoint } from '../../shared/fitting/md-stage';
@@ -20,15 +19,9 @@ import type { NptResult } from '../../shared/physics/md/npt';
 import { isFitKind } from '../../shared/fitting/property-models';
 import { parseMeasurementCsv } from '../../shared/measurements/parse-measurement-csv';
 import { rowValueAndUncertainty } from '../../shared/measurements/property-kinds';
+import { errorMessage, missingFlagError, parseFlags, positiveNumberFlag } from './_flags';
 
 const USAGE = 'usage: fit --data <file.csv> [--data <file2.csv> ...] [--molar-mass <g/mol>] [--quantum] [--restarts <n>] [--atoms <n> --steps <n> --cutoff <rc/σ> --scheme truncated-tail|truncated-shifted --seed <k>] --json';
-
-function positiveNumberFlag(name: string, raw: string | undefined): number | undefined {
-  if (raw === undefined) return undefined;
-  const value = Number(raw);
-  if (raw.trim() === '' || !Number.isFinite(value) || value <= 0) throw new Error(`--${name} must be a positive number, got "${raw}"`);
-  return value;
-}
 
 /** Reads one CSV through the shared upload parser; throws with every problem it reports. */
 function loadDataset(path: string, molarMassGPerMol: number | undefined): FitDataset {
@@ -36,7 +29,7 @@ function loadDataset(path: string, molarMassGPerMol: number | undefined): FitDat
   try {
     text = readFileSync(path, 'utf8');
   } catch (err) {
-    throw new Error(`cannot read --data ${path}: ${err instanceof Error ? err.message : String(err)}`);
+    throw new Error(`cannot read --data ${path}: ${errorMessage(err)}`);
   }
   const parsed = parseMeasurementCsv(text, molarMassGPerMol !== undefined ? { molarMassGPerMol } : {});
   if (!parsed.ok) {
@@ -56,31 +49,25 @@ function loadDataset(path: string, molarMassGPerMol: number | undefined): FitDat
 }
 
 export async function run(argv: string[]): Promise<unknown> {
-  let values: { data?: string[]; 'molar-mass'?: string; quantum?: boolean; restarts?: string; json?: boolean; atoms?: string; steps?: string; cutoff?: string; scheme?: string; seed?: string };
-  try {
-    ({ values } = parseArgs({
-      args: argv,
-      strict: true,
-      allowPositionals: false,
-      options: {
-        data: { type: 'string', multiple: true },
-        'molar-mass': { type: 'string' },
-        quantum: { type: 'boolean' },
-        restarts: { type: 'string' },
-        json: { type: 'boolean' },
-        atoms: { type: 'string' },
-        steps: { type: 'string' },
-        cutoff: { type: 'string' },
-        scheme: { type: 'string' },
-        seed: { type: 'string' },
-      },
-    }));
-  } catch (err) {
-    throw new Error(`${err instanceof Error ? err.message : String(err)}; ${USAGE}`);
-  }
+  const values = parseFlags(
+    argv,
+    {
+      data: { type: 'string', multiple: true },
+      'molar-mass': { type: 'string' },
+      quantum: { type: 'boolean' },
+      restarts: { type: 'string' },
+      json: { type: 'boolean' },
+      atoms: { type: 'string' },
+      steps: { type: 'string' },
+      cutoff: { type: 'string' },
+      scheme: { type: 'string' },
+      seed: { type: 'string' },
+    },
+    USAGE,
+  );
   const files = values.data ?? [];
-  if (files.length === 0) throw new Error(`missing required flag --data; ${USAGE}`);
-  const molarMassGPerMol = positiveNumberFlag('molar-mass', values['molar-mass']);
+  if (files.length === 0) throw missingFlagError('data', USAGE);
+  const molarMassGPerMol = positiveNumberFlag('molar-mass', values['molar-mass'], 'a positive number');
   let restarts: number | undefined;
   if (values.restarts !== undefined) {
     restarts = Number(values.restarts);

@@ -1,31 +1,8 @@
-import { execFile } from 'node:child_process';
-import { fileURLToPath } from 'node:url';
-import { promisify } from 'node:util';
 import { describe, expect, it } from 'vitest';
+import { runCli, type CliOutcome } from '../support/run-cli';
 import { LJ_EOS_SOURCE, ljEosDensity, ljEosPressure } from '../../shared/physics/lj-eos';
 
-const execFileAsync = promisify(execFile);
-const repoRoot = fileURLToPath(new URL('../../', import.meta.url));
-
-interface CliOutcome {
-  code: number;
-  stdout: string;
-  stderr: string;
-}
-
-/** Runs the real dispatcher in a child process, as a user would via `npm run -s cli --`. */
-async function cli(...args: string[]): Promise<CliOutcome> {
-  try {
-    const { stdout, stderr } = await execFileAsync(process.execPath, ['--import', 'tsx', 'scripts/cli.ts', ...args], {
-      cwd: repoRoot,
-      timeout: 30_000,
-    });
-    return { code: 0, stdout, stderr };
-  } catch (err) {
-    const e = err as { code?: number; stdout?: string; stderr?: string };
-    return { code: typeof e.code === 'number' ? e.code : -1, stdout: e.stdout ?? '', stderr: e.stderr ?? '' };
-  }
-}
+const cli = (...args: string[]): Promise<CliOutcome> => runCli(args);
 
 describe('cli eos', () => {
   it('prints the liquid density at T* = 1.0, P* = 0.1 as JSON', async () => {

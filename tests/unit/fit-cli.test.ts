@@ -1,33 +1,14 @@
-import { execFile } from 'node:child_process';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { fileURLToPath } from 'node:url';
-import { promisify } from 'node:util';
 import { afterAll, describe, expect, it } from 'vitest';
+import { runCli, type CliOutcome } from '../support/run-cli';
 import { run } from '../../scripts/cli/fit';
 
-const execFileAsync = promisify(execFile);
-const repoRoot = fileURLToPath(new URL('../../', import.meta.url));
 const workDir = mkdtempSync(join(tmpdir(), 'epsigma-fit-cli-'));
 afterAll(() => rmSync(workDir, { recursive: true, force: true }));
 
-interface CliOutcome {
-  code: number;
-  stdout: string;
-  stderr: string;
-}
-
-/** Runs the real dispatcher in a child process, as a user would via `npm run -s cli --`. */
-async function cli(...args: string[]): Promise<CliOutcome> {
-  try {
-    const { stdout, stderr } = await execFileAsync(process.execPath, ['--import', 'tsx', 'scripts/cli.ts', ...args], { cwd: repoRoot, timeout: 60_000 });
-    return { code: 0, stdout, stderr };
-  } catch (err) {
-    const e = err as { code?: number; stdout?: string; stderr?: string };
-    return { code: typeof e.code === 'number' ? e.code : -1, stdout: e.stdout ?? '', stderr: e.stderr ?? '' };
-  }
-}
+const cli = (...args: string[]): Promise<CliOutcome> => runCli(args, 60_000);
 
 function writeCsv(name: string, text: string): string {
   const path = join(workDir, name);

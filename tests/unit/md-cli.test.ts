@@ -1,24 +1,8 @@
-import { execFile } from 'node:child_process';
-import { fileURLToPath } from 'node:url';
-import { promisify } from 'node:util';
 import { describe, expect, it } from 'vitest';
+import { runCli, type CliOutcome } from '../support/run-cli';
 import { ljEosDensity } from '../../shared/physics/lj-eos';
 
-const execFileAsync = promisify(execFile);
-const repoRoot = fileURLToPath(new URL('../../', import.meta.url));
-
-async function cli(...args: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
-  try {
-    const { stdout, stderr } = await execFileAsync(process.execPath, ['--import', 'tsx', 'scripts/cli.ts', ...args], {
-      cwd: repoRoot,
-      timeout: 120_000,
-    });
-    return { code: 0, stdout, stderr };
-  } catch (err) {
-    const e = err as { code?: number; stdout?: string; stderr?: string };
-    return { code: typeof e.code === 'number' ? e.code : -1, stdout: e.stdout ?? '', stderr: e.stderr ?? '' };
-  }
-}
+const cli = (...args: string[]): Promise<CliOutcome> => runCli(args, 120_000);
 
 describe('cli md', () => {
   it('prints an NPT result as JSON with the contract fields and the settings echoed', async () => {

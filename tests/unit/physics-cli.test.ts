@@ -1,33 +1,10 @@
-import { execFile } from 'node:child_process';
-import { fileURLToPath } from 'node:url';
-import { promisify } from 'node:util';
 import { describe, expect, it } from 'vitest';
+import { runCli, type CliOutcome } from '../support/run-cli';
 import { b2WithGradient } from '../../shared/physics/virial';
 import { omega11, omega22 } from '../../shared/physics/collision-integrals';
 import { viscosityWithGradient } from '../../shared/physics/viscosity';
 
-const execFileAsync = promisify(execFile);
-const repoRoot = fileURLToPath(new URL('../../', import.meta.url));
-
-interface CliOutcome {
-  code: number;
-  stdout: string;
-  stderr: string;
-}
-
-/** Runs the real dispatcher in a child process, as `npm run -s cli --` does. */
-async function cli(...args: string[]): Promise<CliOutcome> {
-  try {
-    const { stdout, stderr } = await execFileAsync(process.execPath, ['--import', 'tsx', 'scripts/cli.ts', ...args], {
-      cwd: repoRoot,
-      timeout: 30_000,
-    });
-    return { code: 0, stdout, stderr };
-  } catch (err) {
-    const e = err as { code?: number; stdout?: string; stderr?: string };
-    return { code: typeof e.code === 'number' ? e.code : -1, stdout: e.stdout ?? '', stderr: e.stderr ?? '' };
-  }
-}
+const cli = (...args: string[]): Promise<CliOutcome> => runCli(args);
 
 describe('cli b2', () => {
   it('prints B2 rows for argon that match the library and the measured sign change near the Boyle point', async () => {
