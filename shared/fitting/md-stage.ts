@@ -63,7 +63,15 @@ export interface MdIteration {
   excludedPoints: Array<{ temperatureK: number; pressureMPa?: number; reason: string }>;
 }
 
+/** A residual of the simulation stage: with the simulation's standard error (kg/m³), the run behind it, and whether the final round used it. */
+export interface MdResidual extends LjResidual {
+  modelUncertainty: number;
+  simulationId: number | null;
+  included: boolean;
+}
+
 export interface MdStageResult extends LjFitResult {
+  residuals: MdResidual[];
   mdIterations: MdIteration[];
   mdRuns: Array<{ id: number; reused: boolean; temperatureK: number; pressureMPa: number; reducedTemperature: number; reducedPressure: number; reducedDensity: number; stdErr: number; phase: string; iteration: number }>;
   phaseWarnings: string[];
@@ -208,7 +216,7 @@ export async function mdStageFit(points: MdStagePoint[], datasets: Array<{ id: s
   const cov = covarianceFromJacobian(final.jacobian, final.chi2, Math.max(dof, 1));
   const covariance = cov.scaled ?? cov.unscaled;
   const stdErr = covariance ? standardErrorsFromCovariance(covariance) : [null, null];
-  const residuals: Array<LjResidual & { modelUncertainty: number; simulationId: number | null; included: boolean }> = points.map((p, i) => ({
+  const residuals: MdResidual[] = points.map((p, i) => ({
     datasetIndex: p.datasetIndex,
     datasetId: p.datasetId,
     kind: p.kind,
