@@ -1,9 +1,9 @@
 import path from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { BrowserContext, Locator } from 'playwright-core';
+import { beforeAll, describe, expect, it } from 'vitest';
+import type { Locator } from 'playwright-core';
 import { openDatabase } from '../../server/db/database';
 import { mailBody, queueMail } from '../../server/features/mail/mail.service';
-import { chromiumOrSkip, openBrowser, screenshot, SCREENSHOT_DIR, signIn, startApp, type RunningApp } from './harness';
+import { chromiumOrSkip, screenshot, SCREENSHOT_DIR, signIn, useAppAndBrowser } from './harness';
 
 const { available } = chromiumOrSkip();
 
@@ -15,11 +15,8 @@ async function expectVisible(locator: Locator) {
 }
 
 describe.skipIf(!available)('admin pages in Chromium: Mailbox and Audit trail', () => {
-  let app: RunningApp;
-  let browser: { context: BrowserContext; close: () => Promise<void> };
+  const { app, browser } = useAppAndBrowser();
   beforeAll(async () => {
-    app = await startApp();
-    browser = await openBrowser();
     // Queue a mail in the running app's database; its own sender delivers it over SMTP to its local service.
     const handle = openDatabase(path.join(app.dir, 'app.sqlite'));
     try {
@@ -38,10 +35,6 @@ describe.skipIf(!available)('admin pages in Chromium: Mailbox and Audit trail', 
     } finally {
       await handle.close();
     }
-  });
-  afterAll(async () => {
-    await browser?.close();
-    await app?.stop();
   });
 
   it('lets a modeller follow a substance from its page', async () => {

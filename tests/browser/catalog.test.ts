@@ -1,7 +1,6 @@
 import { readFileSync } from 'node:fs';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { BrowserContext } from 'playwright-core';
-import { chromiumOrSkip, openBrowser, screenshot, signIn, startApp, type RunningApp } from './harness';
+import { describe, expect, it } from 'vitest';
+import { chromiumOrSkip, screenshot, signIn, useAppAndBrowser } from './harness';
 
 const { available } = chromiumOrSkip();
 
@@ -13,16 +12,7 @@ const { available } = chromiumOrSkip();
 const R_KJ_PER_MOL_K = (6.02214076e23 * 1.380649e-23) / 1000;
 
 describe.skipIf(!available)('catalog in Chromium', () => {
-  let app: RunningApp;
-  let browser: { context: BrowserContext; close: () => Promise<void> };
-  beforeAll(async () => {
-    app = await startApp();
-    browser = await openBrowser();
-  });
-  afterAll(async () => {
-    await browser?.close();
-    await app?.stop();
-  });
+  const { app, browser } = useAppAndBrowser();
 
   it('a consumer finds a substance, switches units, downloads two formats and builds a mixture', async () => {
     const page = await browser.context.newPage();

@@ -1,20 +1,10 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { BrowserContext } from 'playwright-core';
-import { chromiumOrSkip, openBrowser, screenshot, signIn, startApp, type RunningApp } from './harness';
+import { describe, expect, it } from 'vitest';
+import { chromiumOrSkip, screenshot, signIn, useAppAndBrowser } from './harness';
 
 const { available } = chromiumOrSkip();
 
 describe.skipIf(!available)('fits in Chromium', () => {
-  let app: RunningApp;
-  let browser: { context: BrowserContext; close: () => Promise<void> };
-  beforeAll(async () => {
-    app = await startApp({ WORKERS: '2' });
-    browser = await openBrowser();
-  });
-  afterAll(async () => {
-    await browser?.close();
-    await app?.stop();
-  });
+  const { app, browser } = useAppAndBrowser({ WORKERS: '2' });
 
   it('a modeller runs a fit of the demo B2 and viscosity sets from the form and sees the result with its plots', async () => {
     const page = await browser.context.newPage();

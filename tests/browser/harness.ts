@@ -3,6 +3,8 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import { afterAll, beforeAll } from 'vitest';
+import { startApp, type RunningApp } from '../support/app-process';
 
 const root = fileURLToPath(new URL('../..', import.meta.url));
 export const SCREENSHOT_DIR = path.join(root, 'tests', 'output', 'screenshots');
@@ -31,8 +33,14 @@ export function chromiumOrSkip(): { available: boolean } {
 
 export { startApp, type RunningApp } from '../support/app-process';
 
+/** A browser opened by openBrowser: its context and how to close it (and remove its profile). */
+export interface OpenBrowser {
+  context: BrowserContext;
+  close: () => Promise<void>;
+}
+
 /** A fresh headless Chromium profile, as the workplace's notes require (no --user-data-dir in args). */
-export async function openBrowser(): Promise<{ context: BrowserContext; close: () => Promise<void> }> {
+export async function openBrowser(): Promise<OpenBrowser> {
   const profile = mkdtempSync(path.join(tmpdir(), 'epsigma-chromium-'));
   const context = await chromium.launchPersistentContext(profile, {
     executablePath: findChromium(),
@@ -46,6 +54,46 @@ export async function openBrowser(): Promise<{ context: BrowserContext; close: (
       rmSync(profile, { recursive: true, force: true });
     },
   };
+}
+
+/**
+ * Starts the app (with `extraEnv`) and a fresh Chromium before the tests of the enclosing describe, and closes
+ * both after them. The returned `app` and `browser` read through to the running ones, so tests keep writing
+ * `app.url` and `browser.context`; using them before the beforeAll hook has run throws.
+ */
+export function useAppAndBrowser(extraEnv: Record<string, string> = {}): { app: RunningApp; browser: OpenBrowser } {
+  let running: RunningApp | undefined;
+  let opened: OpenBrowser | undefined;
+  beforeAll(async () => {
+    running = await startApp(extraEnv);
+    opened = await openBrowser();
+  });
+  afterAll(async () => {
+    await opened?.close();
+    await running?.stop();
+  });
+  const started = <T>(value: T | undefined, what: string): T => {
+    if (value === undefined) throw new Error(`the ${what} is not started yet: use it inside a test or a later hook`);
+    return value;
+  };
+  const app: RunningApp = {
+    get url() {
+      return started(running, 'app').url;
+    },
+    get dir() {
+      return started(running, 'app').dir;
+    },
+    stop: () => started(running, 'app').stop(),
+    kill: () => started(running, 'app').kill(),
+    output: () => started(running, 'app').output(),
+  };
+  const browser: OpenBrowser = {
+    get context() {
+      return started(opened, 'browser').context;
+    },
+    close: () => started(opened, 'browser').close(),
+  };
+  return { app, browser };
 }
 
 /** Signs in from a clean slate (the browser profile is shared by the pages of one test file). */

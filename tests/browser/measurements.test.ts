@@ -1,22 +1,12 @@
 import { fileURLToPath } from 'node:url';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { BrowserContext } from 'playwright-core';
-import { chromiumOrSkip, openBrowser, screenshot, signIn, startApp, type RunningApp } from './harness';
+import { describe, expect, it } from 'vitest';
+import { chromiumOrSkip, screenshot, signIn, useAppAndBrowser } from './harness';
 
 const { available } = chromiumOrSkip();
 const fixture = (name: string) => fileURLToPath(new URL(`../fixtures/csv/${name}`, import.meta.url));
 
 describe.skipIf(!available)('measurement upload in Chromium', () => {
-  let app: RunningApp;
-  let browser: { context: BrowserContext; close: () => Promise<void> };
-  beforeAll(async () => {
-    app = await startApp();
-    browser = await openBrowser();
-  });
-  afterAll(async () => {
-    await browser?.close();
-    await app?.stop();
-  });
+  const { app, browser } = useAppAndBrowser();
 
   it('a modeller uploads a °C + bar density table, previews it, stores it and finds canonical values', async () => {
     const page = await browser.context.newPage();

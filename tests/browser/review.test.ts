@@ -1,7 +1,7 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { BrowserContext, Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
 import { b2WithGradient } from '../../shared/physics/virial';
-import { chromiumOrSkip, openBrowser, screenshot, signIn, startApp, type RunningApp } from './harness';
+import { chromiumOrSkip, screenshot, signIn, useAppAndBrowser } from './harness';
 
 const { available } = chromiumOrSkip();
 
@@ -47,16 +47,7 @@ async function fitOf(page: Page, url: string, dataset: { id: number; version?: n
 }
 
 describe.skipIf(!available)('parameter-set review in Chromium', () => {
-  let app: RunningApp;
-  let browser: { context: BrowserContext; close: () => Promise<void> };
-  beforeAll(async () => {
-    app = await startApp();
-    browser = await openBrowser();
-  });
-  afterAll(async () => {
-    await browser?.close();
-    await app?.stop();
-  });
+  const { app, browser } = useAppAndBrowser();
 
   it('a modeller drafts and submits; a reviewer approves it from the Review desk; the approval mail reaches the mailbox', async () => {
     const page = await browser.context.newPage();

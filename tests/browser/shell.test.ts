@@ -1,6 +1,5 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { BrowserContext } from 'playwright-core';
-import { chromiumOrSkip, openBrowser, screenshot, signIn, startApp, type RunningApp } from './harness';
+import { describe, expect, it } from 'vitest';
+import { chromiumOrSkip, screenshot, signIn, useAppAndBrowser } from './harness';
 
 const { available } = chromiumOrSkip();
 
@@ -13,16 +12,7 @@ const NAVIGATION: Record<string, { email: string; sees: string[]; doesNotSee: st
 };
 
 describe.skipIf(!available)('app shell in Chromium', () => {
-  let app: RunningApp;
-  let browser: { context: BrowserContext; close: () => Promise<void> };
-  beforeAll(async () => {
-    app = await startApp();
-    browser = await openBrowser();
-  });
-  afterAll(async () => {
-    await browser?.close();
-    await app?.stop();
-  });
+  const { app, browser } = useAppAndBrowser();
 
   it('sends a visitor without a session to the sign-in page', async () => {
     const page = await browser.context.newPage();
