@@ -10,7 +10,7 @@
  *   U_res/(Nε) = Σ c_i ρ^i / i + Σ d_i G_i,   c_i = a_i − T da_i/dT,  d_i = b_i − T db_i/dT
  * with a_i(T) from JZG Table 5, b_i(T) from Table 6, G_i(ρ) from Table 7 and the 32 coefficients
  * x1..x32 of Table 10 with γ = 3; U follows from U = ∂(A/T)/∂(1/T) (JZG give c_i, d_i in Tables 8–9).
- * The paper itself was not at hand: the coefficients were taken from public transcriptions of Table 10
+ * The paper itself was not at hand: the coefficients were taken from public copies of Table 10
  * and checked digit by digit across three independent ones (NIST teqp `mie/lennardjones/johnson.hpp`,
  * apsantos/ljeos_project `parameters.dat`, and a Julia port `LJSinglephase`), which agree in every
  * printed digit. The critical point the coefficients produce (tested) matches the one JZG report.
