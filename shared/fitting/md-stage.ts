@@ -201,7 +201,11 @@ export async function mdStageFit(points: MdStagePoint[], datasets: Array<{ id: s
     const base = current!;
     const [d0, d1] = lmStep(base, lambda);
     const cov = covarianceFromJacobian(base.jacobian, base.chi2, Math.max(1, base.included.filter(Boolean).length - 2));
-    const se = cov.unscaled ? standardErrorsFromCovariance(cov.unscaled) : [Infinity, Infinity];
+    // The statistical uncertainty the result will report: the larger of the stated-uncertainty and the
+    // reduced-χ²-scaled standard errors (the scaled ones vanish for noise-free data).
+    const seUnscaled = cov.unscaled ? standardErrorsFromCovariance(cov.unscaled) : [Infinity, Infinity];
+    const seScaled = cov.scaled ? standardErrorsFromCovariance(cov.scaled) : [0, 0];
+    const se = seUnscaled.map((u, k) => Math.max(u, seScaled[k]));
     if (accepted && Math.abs(d0) < tolerance * se[0] && Math.abs(d1) < tolerance * se[1]) {
       converged = true;
       stoppingRule = `converged: the next step (Δε = ${d0.toExponential(2)} K, Δσ = ${d1.toExponential(2)} Å) is below ${tolerance} standard errors of each parameter`;
