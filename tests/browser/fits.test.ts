@@ -73,6 +73,18 @@ describe.skipIf(!available)('fits in Chromium', () => {
     const summary = await page.getByText(/runs, \d+ of them reused/).textContent();
     const [, total, reused] = summary!.match(/(\d+) runs, (\d+) of them reused/)!;
     expect(Number(reused)).toBe(Number(total));
+
+    // A run behind the fit: its traces, the detected start of production, the Q6 order parameter and the phase flag.
+    await page.getByRole('table', { name: 'Simulations behind the fit' }).getByRole('link').first().click();
+    await page.waitForURL(/\/simulations\/\d+$/);
+    await page.getByRole('heading', { name: 'Traces' }).waitFor();
+    await page.getByRole('img', { name: 'Q6 order parameter against MD step' }).waitFor();
+    expect(await page.getByText('fluid', { exact: true }).count()).toBeGreaterThan(0);
+    expect(await page.getByText(/Production starts/).count()).toBe(1);
+    await screenshot(page, 'simulation-detail');
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Simulations' }).click();
+    await page.getByRole('heading', { name: 'Runs' }).waitFor();
+    await screenshot(page, 'simulations');
     await page.close();
   }, 400_000);
 });
