@@ -34,7 +34,7 @@ export function FitCompareRoute() {
       <div className="grid gap-6">
         <Panel title="Side by side">
           <table className="w-full text-sm">
-            <thead className="border-b border-rule text-xs uppercase tracking-wider text-ink-faint">
+            <thead className="border-b border-rule text-xs tracking-wide text-ink-faint">
               <tr><th className="py-1.5 text-left" />{fits.map((f) => <th key={f.id} className="text-right"><Link to={`/fits/${f.id}`} className="underline">Fit #{f.number}</Link></th>)}</tr>
             </thead>
             <tbody>

@@ -131,7 +131,7 @@ function FitEvidence({ set }: { set: ParameterSetDetail }) {
 function DatasetSources({ set }: { set: ParameterSetDetail }) {
   return (
     <table className="w-full text-sm">
-      <thead className="border-b border-rule text-xs uppercase tracking-wider text-ink-faint">
+      <thead className="border-b border-rule text-xs tracking-wide text-ink-faint">
         <tr>
           <th className="py-1.5 text-left">Set</th>
           <th className="text-left">Kind</th>

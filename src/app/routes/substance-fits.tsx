@@ -35,7 +35,7 @@ export function SubstanceFitsRoute() {
         ) : (
           <>
             <table className="w-full text-left text-sm">
-              <thead className="border-b border-rule text-xs uppercase tracking-wider text-ink-faint">
+              <thead className="border-b border-rule text-xs tracking-wide text-ink-faint">
                 <tr><th className="py-1.5">Compare</th><th>Fit</th><th>Status</th><th>Data</th><th className="text-right">ε/k_B (K)</th><th className="text-right">σ (Å)</th><th className="text-right">χ²ν</th><th>Run</th></tr>
               </thead>
               <tbody>

@@ -29,7 +29,7 @@ export function DataTable<T>({ data, columns, initialSorting = [], caption, rowK
     <div className="overflow-x-auto">
       <table className="w-full border-collapse text-left text-sm">
         {caption && <caption className="sr-only">{caption}</caption>}
-        <thead className="border-b border-rule text-xs uppercase tracking-wider text-ink-faint">
+        <thead className="border-b border-rule text-xs tracking-wide text-ink-faint">
           {table.getHeaderGroups().map((hg) => (
             <tr key={hg.id}>
               {hg.headers.map((header) => {
@@ -38,7 +38,7 @@ export function DataTable<T>({ data, columns, initialSorting = [], caption, rowK
                 return (
                   <th key={header.id} className={`px-2 py-2 font-semibold ${numeric ? 'text-right' : ''}`} aria-sort={sorted ? (sorted === 'asc' ? 'ascending' : 'descending') : undefined}>
                     {header.isPlaceholder ? null : header.column.getCanSort() ? (
-                      <button type="button" onClick={header.column.getToggleSortingHandler()} className="inline-flex items-center gap-1 uppercase tracking-wider hover:text-ink">
+                      <button type="button" onClick={header.column.getToggleSortingHandler()} className="inline-flex items-center gap-1 tracking-wide hover:text-ink">
                         {flexRender(header.column.columnDef.header, header.getContext())}
                         <span aria-hidden="true" className="text-[10px]">{sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : '↕'}</span>
                       </button>

@@ -9,7 +9,7 @@ export function MixtureTable({ mixture, energy, length }: { mixture: MixtureAnsw
   return (
     <div className="overflow-x-auto">
       <table className="w-full text-sm" aria-label="Mixture pairs">
-        <thead className="border-b border-rule text-xs uppercase tracking-wider text-ink-faint">
+        <thead className="border-b border-rule text-xs tracking-wide text-ink-faint">
           <tr>
             <th className="py-1.5 text-left">Pair</th>
             <th className="text-left">Components</th>

@@ -10,7 +10,7 @@ export function VersionHistory({ card, energy, length }: { card: ParameterCard; 
   return (
     <div className="overflow-x-auto">
       <table className="w-full text-sm">
-        <thead className="border-b border-rule text-xs uppercase tracking-wider text-ink-faint">
+        <thead className="border-b border-rule text-xs tracking-wide text-ink-faint">
           <tr>
             <th className="py-1.5 text-left">Version</th>
             <th className="text-left">State</th>

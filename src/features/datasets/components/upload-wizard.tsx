@@ -166,7 +166,7 @@ export function UploadWizard({ substanceId, molarMassGPerMol, existing, onStored
         <Panel title="2 · Columns" actions={effectiveKind && <KindBadge kind={effectiveKind} />}>
           <p className="mb-3 text-sm text-ink-soft">What each column holds and its unit. Change a row to map a column the headers did not name.</p>
           <table className="w-full text-left text-sm">
-            <thead className="border-b border-rule text-xs uppercase tracking-wider text-ink-faint">
+            <thead className="border-b border-rule text-xs tracking-wide text-ink-faint">
               <tr><th className="py-1.5 pr-3">Column</th><th className="px-2">Holds</th><th className="px-2">Unit as written</th><th className="px-2">Stored in</th></tr>
             </thead>
             <tbody>
@@ -214,7 +214,7 @@ export function UploadWizard({ substanceId, molarMassGPerMol, existing, onStored
             <DatasetChart kind={effectiveKind} rows={result.rows.map((r) => { const rec = r as unknown as Record<string, number>; const d = PROPERTY_KINDS[effectiveKind]; return { temperatureK: r.temperatureK, pressureMPa: rec.pressureMPa, value: rec[d.valueField], uncertainty: rec[d.uncertaintyField] }; })} height={280} />
             <div className="max-h-80 overflow-auto">
               <table className="w-full text-sm" aria-label="Preview rows">
-                <thead className="sticky top-0 bg-paper-raised text-xs uppercase tracking-wider text-ink-faint">
+                <thead className="sticky top-0 bg-paper-raised text-xs tracking-wide text-ink-faint">
                   <tr>
                     <th className="px-2 py-1 text-right">Row</th>
                     {PROPERTY_KINDS[effectiveKind].columns.map((c) => (

@@ -48,7 +48,7 @@ export function SimulationStage({ result }: { result: DensityFitResult }) {
   return (
     <div className="grid gap-5">
       <table className="w-full max-w-2xl text-sm">
-        <thead className="border-b border-rule text-xs uppercase tracking-wider text-ink-faint">
+        <thead className="border-b border-rule text-xs tracking-wide text-ink-faint">
           <tr><th className="py-1.5 text-left">Stage</th><th className="text-right">ε/k_B (K)</th><th className="text-right">σ (Å)</th><th className="text-right">χ²ν</th></tr>
         </thead>
         <tbody>
@@ -61,7 +61,7 @@ export function SimulationStage({ result }: { result: DensityFitResult }) {
       </p>
       {result.mdIterations && (
         <table className="w-full max-w-2xl text-sm" aria-label="Simulation rounds">
-          <thead className="border-b border-rule text-xs uppercase tracking-wider text-ink-faint">
+          <thead className="border-b border-rule text-xs tracking-wide text-ink-faint">
             <tr><th className="py-1.5 text-left">Round</th><th className="text-right">ε/k_B (K)</th><th className="text-right">σ (Å)</th><th className="text-right">χ²</th><th className="text-right">Runs (reused)</th><th className="text-right">Step</th></tr>
           </thead>
           <tbody>
@@ -80,7 +80,7 @@ export function SimulationStage({ result }: { result: DensityFitResult }) {
       )}
       <div className="max-h-96 overflow-auto">
         <table className="w-full text-sm" aria-label="Simulations behind the fit">
-          <thead className="sticky top-0 border-b border-rule bg-paper-raised text-xs uppercase tracking-wider text-ink-faint">
+          <thead className="sticky top-0 border-b border-rule bg-paper-raised text-xs tracking-wide text-ink-faint">
             <tr><th className="py-1.5 text-left">Run</th><th className="text-right">Round</th><th className="text-right">T (K)</th><th className="text-right">P (MPa)</th><th className="text-right">T*</th><th className="text-right">P*</th><th className="text-right">ρ*</th><th className="text-left pl-3">Phase</th></tr>
           </thead>
           <tbody>

@@ -66,7 +66,7 @@ export function FitSetupForm({ substanceId, datasets, busy, error, onSubmit }: {
           <p className="text-ink-soft">This substance has no measurement sets in use. Upload one first.</p>
         ) : (
           <table className="w-full text-left text-sm">
-            <thead className="border-b border-rule text-xs uppercase tracking-wider text-ink-faint">
+            <thead className="border-b border-rule text-xs tracking-wide text-ink-faint">
               <tr><th className="py-1.5">Use</th><th>Set</th><th>Kind</th><th className="text-right">Points</th><th className="w-28 pl-4">Weight</th></tr>
             </thead>
             <tbody>

@@ -51,7 +51,7 @@ const KIND_UNIT: Record<string, string> = { b2: 'cm³/mol', viscosity: 'µPa·s'
 export function DatasetStatsTable({ result, names }: { result: LjFitResult; names: Record<string, string> }) {
   return (
     <table className="w-full text-sm">
-      <thead className="border-b border-rule text-xs uppercase tracking-wider text-ink-faint">
+      <thead className="border-b border-rule text-xs tracking-wide text-ink-faint">
         <tr>
           <th className="py-1.5 text-left">Set</th>
           <th className="text-right">Points</th>

@@ -29,7 +29,7 @@ export function ApprovedComparison({ set, approved, points, context, datasetName
   return (
     <div className="grid gap-5">
       <table className="w-full text-sm" aria-label="Parameters against the approved version">
-        <thead className="border-b border-rule text-xs uppercase tracking-wider text-ink-faint">
+        <thead className="border-b border-rule text-xs tracking-wide text-ink-faint">
           <tr>
             <th className="py-1.5 text-left" />
             <th className="text-right">Approved v{approved.version}</th>
@@ -56,7 +56,7 @@ export function ApprovedComparison({ set, approved, points, context, datasetName
       <div>
         <h3 className="mb-1 font-semibold">Deviations on this set’s data</h3>
         <table className="w-full text-sm" aria-label="Deviations per measurement set">
-          <thead className="border-b border-rule text-xs uppercase tracking-wider text-ink-faint">
+          <thead className="border-b border-rule text-xs tracking-wide text-ink-faint">
             <tr>
               <th className="py-1.5 text-left">Set</th>
               <th className="text-right">Points</th>

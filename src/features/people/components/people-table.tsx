@@ -14,7 +14,7 @@ export function PeopleTable({ people }: { people: Person[] }) {
     <div className="overflow-x-auto">
       {update.isError && <p role="alert" className="mb-3 rounded-md bg-changes-soft px-3 py-2 text-sm text-changes">{update.error.message}</p>}
       <table className="w-full text-left text-sm">
-        <thead className="border-b border-rule text-xs uppercase tracking-wider text-ink-faint">
+        <thead className="border-b border-rule text-xs tracking-wide text-ink-faint">
           <tr>
             <th className="py-2 pr-4">Person</th>
             {ROLES.map((r) => (

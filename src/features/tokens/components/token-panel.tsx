@@ -91,7 +91,7 @@ export function TokenPanel() {
         <EmptyState title="No tokens yet">A token lets a script read the catalog and download exports as you, and nothing else.</EmptyState>
       ) : (
         <table className="w-full text-sm" aria-label="Your API tokens">
-          <thead className="border-b border-rule text-xs uppercase tracking-wider text-ink-faint">
+          <thead className="border-b border-rule text-xs tracking-wide text-ink-faint">
             <tr>
               <th className="py-1.5 text-left">Name</th>
               <th className="text-left">Starts with</th>
