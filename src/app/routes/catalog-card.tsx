@@ -1,7 +1,6 @@
 import { Link, useParams } from 'react-router-dom';
 import type { LjFitResult } from '@shared/fitting/lj-fit';
 import type { EnergyUnit, LengthUnit } from '@shared/physics/parameter-units';
-import { KindBadge } from '@/components/ui/badge';
 import { ErrorState, LoadingState, PageHeader, Panel } from '@/components/ui/states';
 import { UnitSwitch } from '@/components/ui/unit-switch';
 import { exportHref, useParameterCard, usePreferences, useUpdatePreferences, type ParameterCard } from '@/features/catalog/api/catalog';
@@ -15,6 +14,7 @@ import { DatasetStatsTable, ParameterTable } from '@/features/fits/components/pa
 import { FollowButton } from '@/features/follows/components/follow-button';
 import { ParameterSetCaution } from '@/features/parameter-sets/components/caution';
 import { ParameterSetStateBadge } from '@/features/parameter-sets/components/state-badge';
+import { DatasetSourcesTable } from '@/features/datasets/components/dataset-sources-table';
 
 /** The parameter card: what a consumer needs to use one published set, in their own units. */
 export function CatalogCardRoute() {
@@ -79,7 +79,7 @@ export function CatalogCardRoute() {
         </Panel>
         <FitEvidence card={c} energy={energy} length={length} />
         <Panel title="Measurement sets and their sources">
-          <Sources card={c} />
+          <DatasetSourcesTable rows={c.datasets} />
         </Panel>
         <Panel title="Versions">
           <VersionHistory card={c} energy={energy} length={length} />
@@ -112,32 +112,5 @@ function FitEvidence({ card, energy, length }: { card: ParameterCard; energy: En
         </Panel>
       </div>
     </>
-  );
-}
-
-function Sources({ card }: { card: ParameterCard }) {
-  return (
-    <table className="w-full text-sm">
-      <thead className="border-b border-rule text-xs tracking-wide text-ink-faint">
-        <tr>
-          <th className="py-1.5 text-left">Set</th>
-          <th className="text-left">Kind</th>
-          <th className="text-right">Points</th>
-          <th className="pl-4 text-left">Citation</th>
-          <th className="text-left">DOI</th>
-        </tr>
-      </thead>
-      <tbody>
-        {card.datasets.map((d) => (
-          <tr key={d.versionId} className="border-b border-rule/60">
-            <td className="py-1.5">{d.name} v{d.version}</td>
-            <td><KindBadge kind={d.kind} /></td>
-            <td className="num text-right">{d.rowCount ?? '—'}</td>
-            <td className="pl-4">{d.source ?? <span className="text-ink-faint">not given</span>}{d.method && <div className="text-xs text-ink-faint">{d.method}</div>}</td>
-            <td>{d.doi ? <a className="underline" href={`https://doi.org/${encodeURI(d.doi)}`} rel="noreferrer noopener" target="_blank">{d.doi}</a> : '—'}</td>
-          </tr>
-        ))}
-      </tbody>
-    </table>
   );
 }

@@ -1,6 +1,5 @@
 import { Link, useNavigate, useParams } from 'react-router-dom';
 import type { LjFitResult } from '@shared/fitting/lj-fit';
-import { KindBadge } from '@/components/ui/badge';
 import { ErrorState, LoadingState, PageHeader, Panel } from '@/components/ui/states';
 import { useFit } from '@/features/fits/api/fits';
 import { EllipseChart } from '@/features/fits/components/ellipse-chart';
@@ -14,6 +13,7 @@ import { CommentThread } from '@/features/parameter-sets/components/comment-thre
 import { FrozenValues, schemeText } from '@/features/parameter-sets/components/frozen-values';
 import { HistoryTimeline } from '@/features/parameter-sets/components/history-timeline';
 import { ParameterSetStateBadge } from '@/features/parameter-sets/components/state-badge';
+import { DatasetSourcesTable } from '@/features/datasets/components/dataset-sources-table';
 
 /** A parameter set: frozen values, state, review actions, the fit behind it and the approved version it would replace. */
 export function ParameterSetDetailRoute() {
@@ -51,7 +51,7 @@ export function ParameterSetDetailRoute() {
         </Panel>
         <FitEvidence set={s} />
         <Panel title="Measurement sets behind it">
-          <DatasetSources set={s} />
+          <DatasetSourcesTable rows={s.datasets} linkToDatasets showSha />
         </Panel>
         <div className="grid gap-6 lg:grid-cols-2">
           <Panel title="History">
@@ -125,34 +125,5 @@ function FitEvidence({ set }: { set: ParameterSetDetail }) {
         <DatasetStatsTable result={result} names={names} />
       </Panel>
     </>
-  );
-}
-
-function DatasetSources({ set }: { set: ParameterSetDetail }) {
-  return (
-    <table className="w-full text-sm">
-      <thead className="border-b border-rule text-xs tracking-wide text-ink-faint">
-        <tr>
-          <th className="py-1.5 text-left">Set</th>
-          <th className="text-left">Kind</th>
-          <th className="text-right">Points</th>
-          <th className="pl-4 text-left">Source</th>
-          <th className="text-left">DOI</th>
-          <th className="text-left">SHA-256</th>
-        </tr>
-      </thead>
-      <tbody>
-        {set.datasets.map((d) => (
-          <tr key={d.versionId} className="border-b border-rule/60">
-            <td className="py-1.5"><Link className="underline" to={`/datasets/${d.datasetId}?version=${d.version}`}>{d.name} v{d.version}</Link>{d.weight !== 1 && <span className="text-ink-faint"> (weight {d.weight})</span>}</td>
-            <td><KindBadge kind={d.kind} /></td>
-            <td className="num text-right">{d.rowCount ?? '—'}</td>
-            <td className="pl-4">{d.source ?? <span className="text-ink-faint">not given</span>}{d.method && <div className="text-xs text-ink-faint">{d.method}</div>}</td>
-            <td>{d.doi ? <a className="underline" href={`https://doi.org/${d.doi}`} rel="noreferrer noopener" target="_blank">{d.doi}</a> : '—'}</td>
-            <td className="font-mono text-xs">{d.sha256 ? `${d.sha256.slice(0, 12)}…` : '—'}</td>
-          </tr>
-        ))}
-      </tbody>
-    </table>
   );
 }
