@@ -359,6 +359,18 @@ const COL = { omega11: 1, omega22: 2, dOmega11: 3, dOmega22: 4 } as const;
  * (both from collisionIntegralsExact), so the interpolant and its derivative are continuous.
  * Returns [value, d value / dT*].
  */
+/** The table rows bracketing T* in ln T*, their spacing h and the position t ∈ [0, 1] between them. */
+function tableInterval(tStar: number) {
+  const u = Math.log(tStar);
+  let i = Math.floor((u - LN_T_MIN) / LN_STEP);
+  if (i < 0) i = 0;
+  if (i > ROWS.length - 2) i = ROWS.length - 2;
+  const a = ROWS[i];
+  const b = ROWS[i + 1];
+  const h = b[0] - a[0];
+  return { a, b, h, t: (u - a[0]) / h };
+}
+
 function interpolate(tStar: number, valueCol: number, slopeCol: number): [number, number] {
   if (typeof tStar !== 'number' || !Number.isFinite(tStar)) {
     throw new RangeError(`reduced temperature tStar must be a finite number (got ${String(tStar)})`);
@@ -367,14 +379,7 @@ function interpolate(tStar: number, valueCol: number, slopeCol: number): [number
   if (tStar < lo || tStar > hi) {
     throw new RangeError(`reduced temperature tStar = ${tStar} is outside the collision-integral table range [${lo}, ${hi}]`);
   }
-  const u = Math.log(tStar);
-  let i = Math.floor((u - LN_T_MIN) / LN_STEP);
-  if (i < 0) i = 0;
-  if (i > ROWS.length - 2) i = ROWS.length - 2;
-  const a = ROWS[i];
-  const b = ROWS[i + 1];
-  const h = b[0] - a[0];
-  const t = (u - a[0]) / h;
+  const { a, b, h, t } = tableInterval(tStar);
   const t2 = t * t;
   const t3 = t2 * t;
   const value =
@@ -405,14 +410,7 @@ export function omega22Derivative(tStar: number): number {
  */
 export function omega22WithDerivatives(tStar: number): { omega22: number; dOmega22dT: number; d2Omega22dT2: number } {
   const [value, dValueDt] = interpolate(tStar, COL.omega22, COL.dOmega22);
-  const u = Math.log(tStar);
-  let i = Math.floor((u - LN_T_MIN) / LN_STEP);
-  if (i < 0) i = 0;
-  if (i > ROWS.length - 2) i = ROWS.length - 2;
-  const a = ROWS[i];
-  const b = ROWS[i + 1];
-  const h = b[0] - a[0];
-  const t = (u - a[0]) / h;
+  const { a, b, h, t } = tableInterval(tStar);
   const col = COL.omega22;
   const slope = COL.dOmega22;
   const d2du2 =
