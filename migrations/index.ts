@@ -5,6 +5,7 @@ import * as m20261201_0003 from './20261201_0003_jobs_fits';
 import * as m20261201_0004 from './20261201_0004_parameter_sets';
 import * as m20261201_0005 from './20261201_0005_mail_follows';
 import * as m20261201_0006 from './20261201_0006_tokens_preferences';
+import * as m20261202_0007 from './20261202_0007_session_hash_sign_in_failures';
 
 /**
  * Every migration, by name, in the order they run. Listed statically so the same code runs under
@@ -17,4 +18,5 @@ export const MIGRATIONS: Record<string, Migration> = {
   '20261201_0004_parameter_sets': m20261201_0004,
   '20261201_0005_mail_follows': m20261201_0005,
   '20261201_0006_tokens_preferences': m20261201_0006,
+  '20261202_0007_session_hash_sign_in_failures': m20261202_0007,
 };

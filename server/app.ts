@@ -6,6 +6,7 @@ import type { AppContext } from './app-context';
 import { originCheck, sessionMiddleware } from './common/auth-middleware';
 import { bearerTokenMiddleware } from './common/bearer-token';
 import { apiNotFound, createErrorHandler } from './common/error-handler';
+import { trustProxySetting } from './config/env';
 import { authRoutes } from './features/auth/auth.routes';
 import { healthRoutes } from './features/health/health.routes';
 import { userRoutes } from './features/users/users.routes';
@@ -30,7 +31,8 @@ export interface CreateAppOptions {
 export function createApp(ctx: AppContext, options: CreateAppOptions = {}) {
   const app = express();
   app.disable('x-powered-by');
-  app.set('trust proxy', 'loopback');
+  // Forwarding headers (X-Forwarded-For/-Host/-Proto) count only from the proxies TRUST_PROXY names; none by default.
+  app.set('trust proxy', trustProxySetting(ctx.env.TRUST_PROXY));
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -57,6 +59,11 @@ export function createApp(ctx: AppContext, options: CreateAppOptions = {}) {
   }
 
   const api = express.Router();
+  // API answers hold personal data and change with every move: no browser or proxy may keep them.
+  api.use((_req, res, next) => {
+    res.set('Cache-Control', 'no-store');
+    next();
+  });
   api.use(express.json({ limit: '1mb' }));
   // Before the Origin check: a token request that is not a read of an allowed route stops here (403).
   api.use(bearerTokenMiddleware(ctx.db));

@@ -1,6 +1,5 @@
 import type { RequestHandler } from 'express';
 import type { Session } from 'lucia';
-import { verifyRequestOrigin } from 'lucia';
 import { hasPolicy, type Policy, type Role } from '../../shared/auth/roles';
 import type { Db } from '../db/database';
 import type { Auth } from '../features/auth/auth';
@@ -30,18 +29,28 @@ declare global {
 const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
 
 /**
- * Cross-site request forgery guard: a state-changing request must carry an Origin header naming this host.
- * Browsers always send it on POST/PATCH/DELETE; scripts add it themselves.
+ * Cross-site request forgery guard: a state-changing request must carry an Origin header naming this site,
+ * scheme, host and port alike. The site is what this server sees (req.protocol, req.host): X-Forwarded-Proto
+ * and X-Forwarded-Host count only from a proxy that TRUST_PROXY names (Express's "trust proxy").
+ * Browsers always send Origin on POST/PATCH/DELETE; scripts add it themselves.
  */
 export const originCheck: RequestHandler = (req, _res, next) => {
   if (SAFE_METHODS.has(req.method)) return next();
-  const origin = req.get('origin');
-  const host = req.get('x-forwarded-host') ?? req.get('host');
-  if (!origin || !host || !verifyRequestOrigin(origin, [host])) {
+  if (!sameOrigin(req.get('origin'), req.protocol, req.host)) {
     return next(new AppError(403, 'origin_rejected', 'State-changing requests must come from this site (Origin header missing or foreign).'));
   }
   next();
 };
+
+/** True when `origin` is exactly protocol://host (default ports and letter case normalised by URL). */
+export function sameOrigin(origin: string | undefined, protocol: string, host: string | undefined): boolean {
+  if (!origin || !host) return false;
+  try {
+    return new URL(origin).origin === new URL(`${protocol}://${host}`).origin;
+  } catch {
+    return false;
+  }
+}
 
 /** Reads the session cookie, refreshes or clears it, and loads the user with their roles. */
 export function sessionMiddleware(auth: Auth, db: Db): RequestHandler {

@@ -14,11 +14,31 @@ const envSchema = z.object({
   PUBLIC_URL: z.string().url().optional(),
   /** From header of every mail the app sends. */
   MAIL_FROM: z.string().min(3).default('Epsigma <epsigma@localhost>'),
-  WORKERS: z.coerce.number().int().min(1).max(64).default(Math.max(1, os.availableParallelism() - 1)),
+  /** Threads that run jobs in this process (default cores − 1, at least 1); 0 with REDIS_URL: this process runs no jobs. */
+  WORKERS: z.coerce.number().int().min(0).max(64).default(Math.max(1, os.availableParallelism() - 1)),
+  /** A Redis server shared by the web process and `npm run worker` processes (BullMQ driver); unset: the embedded SQLite queue. */
+  REDIS_URL: z.string().regex(/^rediss?:\/\/\S+$/, 'REDIS_URL must look like redis://host:6379').optional(),
+  /** BullMQ lock of a running job (ms): a worker killed without warning gives its job to another worker about this long later. */
+  QUEUE_LOCK_MS: z.coerce.number().int().min(2000).max(600_000).default(30_000),
   LOG_REQUESTS: z.enum(['0', '1']).default('1'),
   /** Sign-in attempts allowed per e-mail address and client address in 15 minutes. */
   SIGN_IN_LIMIT: z.coerce.number().int().min(1).default(10),
+  /**
+   * Which peers may set X-Forwarded-For/-Host/-Proto: unset trusts none (the socket address is the client);
+   * a hop count ("1") or a comma-separated list of addresses, subnets or loopback/linklocal/uniquelocal.
+   */
+  TRUST_PROXY: z
+    .string()
+    .trim()
+    .regex(/^$|^\d{1,2}$|^[\w.:/]+(\s*,\s*[\w.:/]+)*$/, 'TRUST_PROXY must be a hop count such as 1 or a comma-separated list of addresses or subnets (e.g. loopback, 10.0.0.0/8)')
+    .optional(),
 });
+
+/** Express's "trust proxy" value for TRUST_PROXY: false when unset, a hop count, or the list of trusted peers. */
+export function trustProxySetting(value: string | undefined): false | number | string {
+  if (value === undefined || value === '' || value === '0' || value.toLowerCase() === 'false') return false;
+  return /^\d+$/.test(value) ? Number(value) : value;
+}
 
 export type Env = z.infer<typeof envSchema>;
 
@@ -28,5 +48,6 @@ export function loadEnv(source: NodeJS.ProcessEnv = process.env): Env {
     const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`);
     throw new Error(`Invalid environment:\n${lines.join('\n')}`);
   }
+  if (parsed.data.WORKERS === 0 && !parsed.data.REDIS_URL) throw new Error('Invalid environment:\n  WORKERS: 0 leaves nobody to run jobs without REDIS_URL (worker processes); use at least 1');
   return parsed.data;
 }

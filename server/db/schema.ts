@@ -8,6 +8,7 @@ import type { MailboxMessageTable, MailOutboxTable } from '../features/mail/mail
 import type { SubstanceFollowTable } from '../features/follows/follows.table';
 import type { ApiTokenTable } from '../features/tokens/tokens.table';
 import type { SessionTable, UserRoleTable, UserTable } from '../features/users/users.table';
+import type { SignInFailureTable } from '../features/auth/sign-in-failure.table';
 
 /** The typed database: one entry per table, fed by each feature's *.table.ts (columns in camelCase). */
 export interface Database {
@@ -29,4 +30,5 @@ export interface Database {
   mailboxMessage: MailboxMessageTable;
   substanceFollow: SubstanceFollowTable;
   apiToken: ApiTokenTable;
+  signInFailure: SignInFailureTable;
 }

@@ -1,7 +1,12 @@
 import { z } from 'zod';
 import { ROLES } from '../auth/roles';
 
-export const emailSchema = z.string().trim().toLowerCase().email('must be an e-mail address').max(254);
+/**
+ * The one spelling of an e-mail address: Unicode NFKC (a full-width or no-break character becomes its plain
+ * form), trimmed, lower case. Sign-in, its limiter and people management all key on this.
+ */
+export const normaliseEmail = (email: string) => email.normalize('NFKC').trim().toLowerCase();
+export const emailSchema = z.string().overwrite(normaliseEmail).email('must be an e-mail address').max(254);
 export const passwordSchema = z.string().min(12, 'must have at least 12 characters').max(200);
 export const roleSchema = z.enum(ROLES);
 

@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
+import { ipKeyGenerator } from 'express-rate-limit';
 import { changePasswordBody, signInBody } from '../../../shared/schemas/users';
 import { currentUser, requireUser } from '../../common/auth-middleware';
 import { AppError } from '../../common/errors';
@@ -7,7 +7,8 @@ import { validBody } from '../../common/validate';
 import type { AppContext } from '../../app-context';
 import { recordAudit } from '../audit/audit.service';
 import { findUserByEmail, findUserById } from '../users/users.repository';
-import { hashPassword, verifyPassword } from './auth';
+import { hashPassword, sessionIdHash, verifyPassword } from './auth';
+import { signInLimiter } from './sign-in-limiter';
 
 // A hash of a random string, verified when the e-mail is unknown so the answer takes as long as for a known one.
 let decoyHash: Promise<string> | undefined;
@@ -16,18 +17,17 @@ export function authRoutes(ctx: AppContext): Router {
   const router = Router();
   const { db, auth } = ctx;
 
-  const signInLimiter = rateLimit({
-    windowMs: 15 * 60 * 1000,
-    limit: ctx.env.SIGN_IN_LIMIT,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}|${String(req.body?.email ?? '').toLowerCase()}`,
-    handler: (_req, _res, next) =>
-      next(new AppError(429, 'too_many_attempts', 'Too many sign-in attempts. Wait 15 minutes and try again.')),
-  });
+  const limiter = signInLimiter(db, ctx.env.SIGN_IN_LIMIT);
 
-  router.post('/auth/login', signInLimiter, async (req, res) => {
+  router.post('/auth/login', async (req, res) => {
+    // Validation first: the limiter keys on the e-mail exactly as it is looked up (NFKC, trimmed, lower case).
     const body = validBody(signInBody, req);
+    const key = limiter.keyOf(ipKeyGenerator(req.ip ?? req.socket.remoteAddress ?? ''), body.email);
+    const waitSeconds = await limiter.begin(key);
+    if (waitSeconds > 0) {
+      res.set('Retry-After', String(waitSeconds));
+      throw new AppError(429, 'too_many_attempts', `Too many failed sign-ins for this address. Wait ${Math.ceil(waitSeconds / 60)} minute${waitSeconds > 60 ? 's' : ''} and try again.`);
+    }
     const user = await findUserByEmail(db, body.email);
     let ok = false;
     if (user) ok = await verifyPassword(user.passwordHash, body.password);
@@ -42,6 +42,7 @@ export function authRoutes(ctx: AppContext): Router {
       });
       throw new AppError(401, 'invalid_credentials', 'E-mail or password is not right.');
     }
+    await limiter.clear(key);
     const session = await auth.createSession(user.id, {});
     res.append('Set-Cookie', auth.createSessionCookie(session.id).serialize());
     const roles = await db.selectFrom('userRole').select('role').where('userId', '=', user.id).execute();
@@ -74,7 +75,7 @@ export function authRoutes(ctx: AppContext): Router {
       await recordAudit(tx, { actor: me, action: 'user.password_changed', targetType: 'user', targetId: me.id, summary: `${me.email} changed their password` });
     });
     // Other sessions of this user end; this one stays.
-    await db.deleteFrom('session').where('userId', '=', me.id).where('id', '!=', res.locals.session!.id).execute();
+    await db.deleteFrom('session').where('userId', '=', me.id).where('id', '!=', sessionIdHash(res.locals.session!.id)).execute();
     res.status(204).end();
   });
 

@@ -18,8 +18,8 @@ const SCHEMAS: Record<string, object> = {
 function sendFile(res: Response, file: ExportResult) {
   res.attachment(file.filename);
   res.set('Content-Type', file.contentType);
-  // The set's state can change (superseded, retired): revalidate rather than keep a stale copy.
-  res.set('Cache-Control', 'private, no-cache');
+  // The set's state can change (superseded, retired): no copy may be kept (like every API answer).
+  res.set('Cache-Control', 'no-store');
   res.send(file.body);
 }
 

@@ -43,8 +43,17 @@ const upload = multer({
   },
 });
 
-/** Multipart parsing runs after the role check, so nobody without the right can make the server read a file. */
-const singleCsv: RequestHandler = upload.single('file');
+/**
+ * Multipart parsing runs after the role check, so nobody without the right can make the server read a file.
+ * A body that is not valid multipart (no boundary, cut short, broken part headers) answers 400, never 500.
+ */
+const parseSingleCsv: RequestHandler = upload.single('file');
+const singleCsv: RequestHandler = (req, res, next) => {
+  parseSingleCsv(req, res, (err?: unknown) => {
+    if (!err || err instanceof AppError || (err as { name?: string }).name === 'MulterError') return next(err);
+    next(new AppError(400, 'bad_multipart', `The upload is not valid multipart/form-data (${err instanceof Error ? err.message : String(err)}); send the CSV in the form field "file".`, [{ field: 'file', message: 'unreadable multipart body' }]));
+  });
+};
 
 function requireFile(file: Express.Multer.File | undefined): UploadedFile {
   if (!file) throw badRequest('Attach the CSV file in the multipart field "file".', [{ field: 'file', message: 'is required' }]);
