@@ -9,10 +9,12 @@ import { jointConfidenceEllipse } from './ellipse';
 import { LeastSquaresInputError, weightedLeastSquares, type Convergence, type CovarianceScaling, type LeastSquaresResult, type WeightedResidualProblem } from './least-squares';
 import { estimateLjStart, type LjBounds, type StartPoint } from './lj-starting-values';
 import { PROPERTY_MODELS, isFitKind, type FitKind, type PropertyContext } from './property-models';
+import { profileChi2, type ProfileCurve } from './profile-chi2';
 import { gaussianGenerator, mulberry32 } from './random';
 
 export type { FitKind } from './property-models';
 export type { LjBounds } from './lj-starting-values';
+export type { ProfileCurve } from './profile-chi2';
 
 export interface FitRow {
   temperatureK: number;
@@ -32,7 +34,11 @@ export interface FitDataset {
   weight?: number;
   label?: string;
   rows: FitRow[];
+  /** Row numbers (1-based, as the dataset page shows them) left out of χ²; their predictions are still reported. */
+  excludeRows?: number[];
 }
+
+export type LjParameter = 'epsilonK' | 'sigmaAngstrom';
 
 export interface LjFitOptions {
   /** Needed for viscosity and for the quantum correction to B2. */
@@ -45,6 +51,10 @@ export interface LjFitOptions {
   restarts?: number;
   /** Levenberg–Marquardt iterations per fit (default 200). */
   maxIterations?: number;
+  /** Hold one parameter at this value: it is exact in the result, has no standard error and costs no degree of freedom. */
+  fixed?: { epsilonK?: number; sigmaAngstrom?: number };
+  /** Compute the profile-χ² curves (default true). */
+  profiles?: boolean;
 }
 
 export interface LjResidual {
@@ -52,6 +62,10 @@ export interface LjResidual {
   datasetIndex: number;
   datasetId: string | number;
   kind: FitKind;
+  /** Row number within its dataset (1-based, as the dataset page shows it). */
+  rowNumber: number;
+  /** Left out by the modeller: predicted at the final parameters, never counted in χ², dof or statistics. */
+  excluded: boolean;
   temperatureK: number;
   /** For state points given in T and P (densities). */
   pressureMPa?: number;
@@ -67,7 +81,10 @@ export interface LjResidual {
 export interface LjDatasetSummary {
   datasetId: string | number;
   kind: FitKind;
+  /** Points counted in χ² (left-out rows not included). */
   points: number;
+  /** Rows left out by the modeller. */
+  excludedPoints: number;
   /** Root-mean-square of predicted − measured, in the dataset's unit. */
   rms: number;
   /** Mean |predicted − measured|/|measured| in percent (points with measured = 0 left out); null if none remain. */
@@ -77,7 +94,15 @@ export interface LjDatasetSummary {
 
 export interface LjFitResult {
   status: 'succeeded' | 'failed';
+  /** False for a failed fit: epsilonK/sigmaAngstrom are then its last iterate, with no standard errors. */
+  converged: boolean;
   failureReason?: string;
+  /** Parameters held at a given value (exact, no standard error, no degree of freedom). */
+  heldParameters: LjParameter[];
+  /** |correlation(ε, σ)| > STRONG_CORRELATION: the data constrain a combination of the two (a warning says so). */
+  strongCorrelation: boolean;
+  /** Profile χ² of each parameter (null when held, not computed, or without standard errors). */
+  profiles: { epsilonK: ProfileCurve | null; sigmaAngstrom: ProfileCurve | null };
   epsilonK: number;
   sigmaAngstrom: number;
   stdErr: { epsilonK: number | null; sigmaAngstrom: number | null };
@@ -130,11 +155,20 @@ const DEFAULT_RESTARTS = 2;
 /** Seed of the restart perturbations: fixed so that a fit is reproducible. */
 const RESTART_SEED = 20240611;
 const PARAMETER_NAMES = ['epsilonK', 'sigmaAngstrom'] as const;
+/** |correlation(ε, σ)| above which the result warns that only a combination of the two is determined (common practice, no source). */
+export const STRONG_CORRELATION = 0.95;
+
+/** The plain-words warning for a strong ε–σ correlation. */
+export function strongCorrelationWarning(correlation: number): string {
+  return `ε and σ are strongly correlated (correlation ${correlation.toFixed(3)}): the data pin down a combination of the two rather than each on its own, so a larger ε with a ${correlation > 0 ? 'larger' : 'smaller'} σ fits almost as well. Read the joint 95 % region and the profile-χ² intervals, not the two standard errors alone.`;
+}
 
 interface FlatPoint {
   datasetIndex: number;
   datasetId: string | number;
   kind: FitKind;
+  rowNumber: number;
+  excluded: boolean;
   temperatureK: number;
   pressureMPa?: number;
   value: number;
@@ -142,7 +176,7 @@ interface FlatPoint {
   weight: number;
 }
 
-function validate(datasets: readonly FitDataset[], options: LjFitOptions): { points: FlatPoint[]; bounds: LjBounds; context: PropertyContext } {
+function validate(datasets: readonly FitDataset[], options: LjFitOptions): { allPoints: FlatPoint[]; points: FlatPoint[]; bounds: LjBounds; context: PropertyContext; held: Array<{ index: number; value: number }> } {
   if (!datasets || datasets.length === 0) throw new LjFitInputError('no-data', 'no datasets to fit');
   const points: FlatPoint[] = [];
   datasets.forEach((dataset, datasetIndex) => {
@@ -156,6 +190,10 @@ function validate(datasets: readonly FitDataset[], options: LjFitOptions): { poi
     }
     const weight = dataset.weight ?? 1;
     if (!(weight > 0) || !Number.isFinite(weight)) throw new LjFitInputError('bad-weight', `${name}: weight must be a positive finite number, got ${weight}`);
+    const excludeRows = new Set(dataset.excludeRows ?? []);
+    for (const r of excludeRows) {
+      if (!Number.isInteger(r) || r < 1 || r > dataset.rows.length) throw new LjFitInputError('bad-value', `${name}: row ${r} cannot be left out: the rows are numbered 1 to ${dataset.rows.length}`);
+    }
     dataset.rows.forEach((row, i) => {
       if (!(row.temperatureK > 0) || !Number.isFinite(row.temperatureK)) {
         throw new LjFitInputError('bad-value', `${name}, row ${i + 1}: temperatureK must be a positive finite number, got ${row.temperatureK}`);
@@ -167,11 +205,25 @@ function validate(datasets: readonly FitDataset[], options: LjFitOptions): { poi
       if (model.needsPressure && !(Number(row.pressureMPa) > 0)) {
         throw new LjFitInputError('bad-value', `${name}, row ${i + 1}: the ${model.label} needs a positive pressureMPa, got ${row.pressureMPa}`);
       }
-      points.push({ datasetIndex, datasetId: dataset.id, kind: dataset.kind, temperatureK: row.temperatureK, ...(row.pressureMPa !== undefined ? { pressureMPa: row.pressureMPa } : {}), value: row.value, uncertainty: row.uncertainty, weight });
+      points.push({ datasetIndex, datasetId: dataset.id, kind: dataset.kind, rowNumber: i + 1, excluded: excludeRows.has(i + 1), temperatureK: row.temperatureK, ...(row.pressureMPa !== undefined ? { pressureMPa: row.pressureMPa } : {}), value: row.value, uncertainty: row.uncertainty, weight });
     });
   });
-  if (points.length < PARAMETER_NAMES.length) {
-    throw new LjFitInputError('too-few-points', `too few points: ${points.length} point(s) for 2 parameters (epsilonK, sigmaAngstrom); need at least 2, and at least 3 for standard errors`);
+  const held: Array<{ index: number; value: number }> = [];
+  PARAMETER_NAMES.forEach((name, index) => {
+    const value = options.fixed?.[name];
+    if (value === undefined) return;
+    if (!(value > 0) || !Number.isFinite(value)) throw new LjFitInputError('bad-option', `fixed.${name} must be a positive finite number, got ${value}`);
+    held.push({ index, value });
+  });
+  if (held.length > 1) throw new LjFitInputError('bad-option', 'only one of epsilonK and sigmaAngstrom can be held; with both held there is nothing to fit');
+  const included = points.filter((p) => !p.excluded);
+  const free = PARAMETER_NAMES.length - held.length;
+  if (included.length < Math.max(free, 2)) {
+    const left = points.length - included.length;
+    throw new LjFitInputError(
+      'too-few-points',
+      `too few points: ${included.length} point(s)${left ? ` after leaving out ${left}` : ''} for ${free === 2 ? '2 parameters (epsilonK, sigmaAngstrom)' : `1 free parameter (${PARAMETER_NAMES[1 - held[0].index]})`}; need at least ${Math.max(free, 2)}, and at least ${free + 1} for standard errors`,
+    );
   }
   const molar = options.molarMassGPerMol;
   if (molar !== undefined && (!(molar > 0) || !Number.isFinite(molar))) {
@@ -193,7 +245,7 @@ function validate(datasets: readonly FitDataset[], options: LjFitOptions): { poi
   }
   const restarts = options.restarts ?? DEFAULT_RESTARTS;
   if (!Number.isInteger(restarts) || restarts < 0) throw new LjFitInputError('bad-option', `restarts must be a non-negative integer, got ${restarts}`);
-  return { points, bounds, context: { molarMassGPerMol: molar, quantumCorrection: options.quantumCorrection ?? false } };
+  return { allPoints: points, points: included, bounds, held, context: { molarMassGPerMol: molar, quantumCorrection: options.quantumCorrection ?? false } };
 }
 
 const modelPoint = (p: { temperatureK: number; pressureMPa?: number; value: number }) => ({ temperatureK: p.temperatureK, pressureMPa: p.pressureMPa, measured: p.value });
@@ -216,6 +268,26 @@ function problemFor(points: readonly FlatPoint[], context: PropertyContext): Wei
   };
 }
 
+/** The problem in the free parameters only, with the held one at its value (its Jacobian column dropped). */
+function holdParameter(problem: WeightedResidualProblem, heldIndex: number, heldValue: number): WeightedResidualProblem {
+  const freeIndex = 1 - heldIndex;
+  const full = (v: number) => (heldIndex === 0 ? [heldValue, v] : [v, heldValue]);
+  return {
+    parameterNames: [problem.parameterNames[freeIndex]],
+    pointCount: problem.pointCount,
+    evaluate([v]) {
+      const e = problem.evaluate(full(v));
+      return { residuals: e.residuals, jacobian: Array.from(e.jacobian, (row) => [row[freeIndex]]) };
+    },
+  };
+}
+
+const sumSquares = (r: ArrayLike<number>) => {
+  let s = 0;
+  for (let i = 0; i < r.length; i++) s += r[i] * r[i];
+  return s;
+};
+
 /** Fits (ε/k_B, σ) to the datasets. Throws LjFitInputError on invalid input; fit trouble is reported in the result. */
 export function fitLennardJones(
   datasets: FitDataset[],
@@ -224,9 +296,11 @@ export function fitLennardJones(
 ): LjFitResult {
   const report = (fraction: number, stage: string) => onProgress?.({ fraction, stage });
   report(0, 'validating input');
-  const { points, bounds, context } = validate(datasets, options);
+  const { allPoints, points, bounds, context, held } = validate(datasets, options);
   const restarts = options.restarts ?? DEFAULT_RESTARTS;
   const warnings: string[] = [];
+  const heldIndex = held.length ? held[0].index : null;
+  const freeIndices = PARAMETER_NAMES.map((_, k) => k).filter((k) => k !== heldIndex);
 
   report(0.05, 'estimating starting values');
   let start: { epsilonK: number; sigmaAngstrom: number; method: string };
@@ -242,25 +316,35 @@ export function fitLennardJones(
       warnings.push('no automatic starting values could be found; started from the middle of the bounds');
     }
   }
+  if (heldIndex !== null) start = { ...start, [PARAMETER_NAMES[heldIndex]]: held[0].value, method: `${start.method}; ${PARAMETER_NAMES[heldIndex]} held` };
 
-  const problem = problemFor(points, context);
-  const lowerBounds = [bounds.epsilonK[0], bounds.sigmaAngstrom[0]];
-  const upperBounds = [bounds.epsilonK[1], bounds.sigmaAngstrom[1]];
-  const starts: number[][] = [[start.epsilonK, start.sigmaAngstrom]];
+  const fullProblem = problemFor(points, context);
+  const problem = heldIndex === null ? fullProblem : holdParameter(fullProblem, heldIndex, held[0].value);
+  const boundsOf = (k: number) => bounds[PARAMETER_NAMES[k]];
+  const lowerBounds = freeIndices.map((k) => boundsOf(k)[0]);
+  const upperBounds = freeIndices.map((k) => boundsOf(k)[1]);
+  const startFull = [start.epsilonK, start.sigmaAngstrom];
+  const starts: number[][] = [freeIndices.map((k) => startFull[k])];
   const gaussian = gaussianGenerator(mulberry32(RESTART_SEED));
   for (let r = 0; r < restarts; r++) {
     // ±30 % in ε and ±8 % in σ (1 s.d.) spans the spread of plausible minima without leaving the basin of sane values.
     const eps = start.epsilonK * Math.exp(0.3 * gaussian());
     const sigma = start.sigmaAngstrom * Math.exp(0.08 * gaussian());
-    starts.push([Math.min(Math.max(eps, lowerBounds[0]), upperBounds[0]), Math.min(Math.max(sigma, lowerBounds[1]), upperBounds[1])]);
+    const perturbed = [eps, sigma];
+    starts.push(freeIndices.map((k, j) => Math.min(Math.max(perturbed[k], lowerBounds[j]), upperBounds[j])));
   }
+  /** Free parameters back to (ε, σ). */
+  const toFull = (free: readonly number[]): [number, number] => {
+    const full = heldIndex === null ? [...free] : heldIndex === 0 ? [held[0].value, free[0]] : [free[0], held[0].value];
+    return [full[0], full[1]];
+  };
 
   const attempts: LeastSquaresResult[] = [];
   const solveErrors: string[] = [];
   const usable = (f: LeastSquaresResult) => f.convergence !== 'failed' && Number.isFinite(f.chi2);
   let bestIndex = 0;
   starts.forEach((initial, index) => {
-    report(0.1 + (0.8 * index) / starts.length, index === 0 ? 'fitting' : `restart ${index} of ${restarts}`);
+    report(0.1 + (0.7 * index) / starts.length, index === 0 ? 'fitting' : `restart ${index} of ${restarts}`);
     let fit: LeastSquaresResult;
     try {
       fit = weightedLeastSquares(problem, { initialParameters: initial, lowerBounds, upperBounds, maxIterations: options.maxIterations ?? 200 });
@@ -276,46 +360,70 @@ export function fitLennardJones(
   });
   const fit = attempts[bestIndex];
   if (bestIndex > 0) {
-    start = { epsilonK: starts[bestIndex][0], sigmaAngstrom: starts[bestIndex][1], method: `restart ${bestIndex} (perturbed from: ${start.method})` };
+    const [e, s] = toFull(starts[bestIndex]);
+    start = { epsilonK: e, sigmaAngstrom: s, method: `restart ${bestIndex} (perturbed from: ${start.method})` };
   }
+  const failed = fit.convergence === 'failed' || fit.convergence === 'max-iterations';
 
-  report(0.92, 'summarising');
-  const [epsilonK, sigmaAngstrom] = fit.parameters;
+  report(0.8, 'summarising');
+  // A failed fit keeps its last iterate, so the per-point misfit is reported for it too (where the model can be evaluated).
+  const [epsilonK, sigmaAngstrom] = toFull(fit.parameters);
   const residuals: LjResidual[] = [];
-  if (fit.convergence !== 'failed') {
-    points.forEach((point, i) => {
+  try {
+    allPoints.forEach((point) => {
       const predicted = PROPERTY_MODELS[point.kind].evaluate(modelPoint(point), epsilonK, sigmaAngstrom, context).value;
       residuals.push({
         datasetIndex: point.datasetIndex,
         datasetId: point.datasetId,
         kind: point.kind,
+        rowNumber: point.rowNumber,
+        excluded: point.excluded,
         temperatureK: point.temperatureK,
         ...(point.pressureMPa !== undefined ? { pressureMPa: point.pressureMPa } : {}),
         measured: point.value,
         uncertainty: point.uncertainty,
         predicted,
-        residual: fit.residuals[i],
+        residual: (point.weight * (predicted - point.value)) / point.uncertainty,
         relativeDeviationPercent: point.value !== 0 ? (100 * (predicted - point.value)) / point.value : null,
       });
     });
+  } catch {
+    residuals.length = 0;
+    warnings.push('the model cannot be evaluated at the last iterate, so no per-point misfit is given');
   }
   const perDataset: LjDatasetSummary[] = datasets.map((dataset, datasetIndex) => {
-    const mine = residuals.filter((r) => r.datasetIndex === datasetIndex);
+    const mine = residuals.filter((r) => r.datasetIndex === datasetIndex && !r.excluded);
     const relative = mine.filter((r) => r.relativeDeviationPercent !== null);
     return {
       datasetId: dataset.id,
       kind: dataset.kind,
-      points: dataset.rows.length,
+      points: allPoints.filter((p) => p.datasetIndex === datasetIndex && !p.excluded).length,
+      excludedPoints: allPoints.filter((p) => p.datasetIndex === datasetIndex && p.excluded).length,
       rms: mine.length ? Math.sqrt(mine.reduce((s, r) => s + (r.predicted - r.measured) ** 2, 0) / mine.length) : NaN,
       aadPercent: relative.length ? relative.reduce((s, r) => s + Math.abs(r.relativeDeviationPercent as number), 0) / relative.length : null,
       chi2: mine.reduce((s, r) => s + r.residual * r.residual, 0),
     };
   });
+  const excludedCount = allPoints.length - points.length;
+  if (excludedCount) warnings.push(`${excludedCount} point(s) were left out by the modeller: they are shown with their predictions but not counted in χ²`);
+
+  // Covariance, standard errors and correlation in (ε, σ); the held parameter's row and column are zero.
+  const embed = (m: number[][] | null): number[][] | null => {
+    if (!m) return null;
+    if (heldIndex === null) return m;
+    const out = [[0, 0], [0, 0]];
+    out[freeIndices[0]][freeIndices[0]] = m[0][0];
+    return out;
+  };
+  const covariance = failed ? null : embed(fit.covariance);
+  const stdErr: LjFitResult['stdErr'] = { epsilonK: null, sigmaAngstrom: null };
+  if (!failed && fit.standardErrors) freeIndices.forEach((k, j) => (stdErr[PARAMETER_NAMES[k]] = fit.standardErrors![j]));
+  const correlation = !failed && heldIndex === null ? (fit.correlation?.[0][1] ?? null) : null;
 
   let ellipse95: LjFitResult['ellipse95'] = null;
-  if (fit.covariance && !(fit.covariance[0][0] > 0 && fit.covariance[1][1] > 0)) {
+  if (fit.covariance && !fit.covariance.every((row, j) => row[j] > 0)) {
     warnings.push('χ² is zero to rounding: the data lie exactly on the model, so the scaled covariance and the confidence ellipse collapse to a point');
-  } else if (fit.covariance && fit.convergence !== 'failed' && fit.dof > 0) {
+  } else if (fit.covariance && !failed && fit.dof > 0 && heldIndex === null) {
     const ellipse = jointConfidenceEllipse([epsilonK, sigmaAngstrom], fit.covariance, fit.covarianceScaling, points.length);
     ellipse95 = {
       points: ellipse.points.map(([e, s]) => ({ epsilonK: e, sigmaAngstrom: s })),
@@ -323,8 +431,39 @@ export function fitLennardJones(
       description: ellipse.description,
     };
   }
+  const strongCorrelation = correlation !== null && Math.abs(correlation) > STRONG_CORRELATION;
+  if (strongCorrelation) warnings.push(strongCorrelationWarning(correlation));
 
-  const failed = fit.convergence === 'failed' || fit.convergence === 'max-iterations';
+  // Profile χ²: each free parameter held on a grid, the other (if free) re-optimised at every value.
+  const profiles: LjFitResult['profiles'] = { epsilonK: null, sigmaAngstrom: null };
+  const threshold = fit.covarianceScaling === 'reduced-chi2' && fit.reducedChi2 !== null ? fit.reducedChi2 : 1;
+  if (!failed && (options.profiles ?? true) && fit.standardErrors && threshold > 0) {
+    freeIndices.forEach((k, j) => {
+      report(0.85 + 0.1 * j, `profile χ² of ${PARAMETER_NAMES[k]}`);
+      const other = 1 - k;
+      const otherFree = heldIndex === null;
+      const otherValue = toFull(fit.parameters)[other];
+      const chi2At = (value: number, warm: number[]): { chi2: number; others: number[] } | null => {
+        try {
+          if (!otherFree) return { chi2: sumSquares(fullProblem.evaluate(k === 0 ? [value, otherValue] : [otherValue, value]).residuals), others: [] };
+          const sub = weightedLeastSquares(holdParameter(fullProblem, k, value), { initialParameters: warm, lowerBounds: [boundsOf(other)[0]], upperBounds: [boundsOf(other)[1]], maxIterations: 100, parameterTolerance: 1e-8 });
+          return Number.isFinite(sub.chi2) && sub.convergence !== 'failed' ? { chi2: sub.chi2, others: sub.parameters } : null;
+        } catch {
+          return null;
+        }
+      };
+      profiles[PARAMETER_NAMES[k]] = profileChi2({
+        best: toFull(fit.parameters)[k],
+        standardError: fit.standardErrors![j],
+        chi2Min: fit.chi2,
+        threshold,
+        bounds: boundsOf(k),
+        chi2At,
+        othersAtBest: otherFree ? [otherValue] : [],
+      });
+    });
+  }
+
   const failureReason = failed
     ? fit.convergence === 'max-iterations'
       ? `the fit did not converge within ${options.maxIterations ?? 200} iterations from any of ${starts.length} start(s)`
@@ -333,16 +472,20 @@ export function fitLennardJones(
   report(1, 'done');
   return {
     status: failed ? 'failed' : 'succeeded',
+    converged: !failed,
     ...(failureReason ? { failureReason } : {}),
+    heldParameters: heldIndex === null ? [] : [PARAMETER_NAMES[heldIndex]],
+    strongCorrelation,
+    profiles,
     epsilonK,
     sigmaAngstrom,
-    stdErr: { epsilonK: fit.standardErrors?.[0] ?? null, sigmaAngstrom: fit.standardErrors?.[1] ?? null },
-    correlation: fit.correlation?.[0][1] ?? null,
+    stdErr,
+    correlation,
     chi2: fit.chi2,
     dof: fit.dof,
     reducedChi2: fit.reducedChi2,
-    covariance: fit.covariance,
-    covarianceUnscaled: fit.covarianceUnscaled,
+    covariance,
+    covarianceUnscaled: failed ? null : embed(fit.covarianceUnscaled),
     covarianceScaling: fit.covarianceScaling,
     iterations: fit.iterations,
     convergence: fit.convergence,

@@ -10,7 +10,7 @@
 import { densityWithGradient, reducedStateOf } from '../physics/corresponding-states';
 import { covarianceFromJacobian, correlationFromCovariance, standardErrorsFromCovariance } from './covariance';
 import { jointConfidenceEllipse } from './ellipse';
-import type { LjDatasetSummary, LjFitResult, LjResidual } from './lj-fit';
+import { STRONG_CORRELATION, strongCorrelationWarning, type LjDatasetSummary, type LjFitResult, type LjResidual } from './lj-fit';
 import { PROPERTY_MODELS, type FitKind, type PropertyContext } from './property-models';
 
 export interface MdStatePoint {
@@ -33,6 +33,10 @@ export interface MdStagePoint {
   datasetId: string | number;
   datasetIndex: number;
   kind: FitKind;
+  /** Row number within its dataset (1-based). */
+  rowNumber?: number;
+  /** Left out by the modeller: still simulated and predicted, never counted in χ². */
+  excluded?: boolean;
   temperatureK: number;
   pressureMPa?: number;
   value: number;
@@ -44,6 +48,8 @@ export interface MdStageOptions {
   start: { epsilonK: number; sigmaAngstrom: number };
   bounds: { epsilonK: [number, number]; sigmaAngstrom: [number, number] };
   context: PropertyContext & { molarMassGPerMol: number };
+  /** Hold one parameter at its start value: exact in the result, no standard error, one degree of freedom more. */
+  held?: 'epsilonK' | 'sigmaAngstrom';
   /** At most this many rounds of simulations (default 6). */
   maxIterations?: number;
   /** Stop when every parameter moves by less than this many standard errors (default 1: a smaller step is within the simulation noise of the step itself). */
@@ -106,12 +112,12 @@ async function evaluate(points: MdStagePoint[], epsilonK: number, sigmaAngstrom:
   points.forEach((p, i) => {
     if (p.kind !== 'density') {
       const m = PROPERTY_MODELS[p.kind].evaluate({ temperatureK: p.temperatureK, pressureMPa: p.pressureMPa, measured: p.value }, epsilonK, sigmaAngstrom, options.context);
-      const scale = p.weight / p.uncertainty;
+      const scale = p.excluded ? 0 : p.weight / p.uncertainty;
       residuals.push((m.value - p.value) * scale);
       jacobian.push([m.dEpsilonK * scale, m.dSigmaAngstrom * scale]);
       predicted.push(m.value);
       modelUncertainty.push(0);
-      included.push(true);
+      included.push(!p.excluded);
       runIds.push(null);
       return;
     }
@@ -122,6 +128,13 @@ async function evaluate(points: MdStagePoint[], epsilonK: number, sigmaAngstrom:
     const uModel = densityWithGradient({ reducedDensity: run.stdErr, dRhoDT: 0, dRhoDP: 0 }, state, options.context.molarMassGPerMol).densityKgPerM3;
     predicted.push(g.densityKgPerM3);
     modelUncertainty.push(uModel);
+    if (p.excluded) {
+      // Left out by the modeller: simulated so its prediction can be shown, never counted.
+      residuals.push(0);
+      jacobian.push([0, 0]);
+      included.push(false);
+      return;
+    }
     if (run.phase !== 'fluid') {
       // A frozen or split state point says nothing about the fluid density: leave it out of this iteration.
       excluded.push({ temperatureK: p.temperatureK, pressureMPa: p.pressureMPa, reason: run.phase === 'solid' ? 'the run froze into an ordered solid' : 'the run split into vapour and liquid' });
@@ -150,8 +163,30 @@ async function evaluate(points: MdStagePoint[], epsilonK: number, sigmaAngstrom:
   return { epsilonK, sigmaAngstrom, residuals, jacobian, predicted, modelUncertainty, included, runIds, chi2, excluded, runs };
 }
 
-/** Solves the 2×2 damped normal equations (JᵀJ + λ·diag JᵀJ) δ = −Jᵀr. */
-function lmStep(e: Evaluation, lambda: number): [number, number] {
+const PARAMETER_NAMES = ['epsilonK', 'sigmaAngstrom'] as const;
+
+/** The Jacobian's columns of the free parameters. */
+function freeColumns(jacobian: number[][], heldIndex: number | null): number[][] {
+  return heldIndex === null ? jacobian : jacobian.map((row) => [row[1 - heldIndex]]);
+}
+
+/** A free parameter's covariance back in (ε, σ), zero for the held one. */
+function embedCovariance(m: number[][] | null, heldIndex: number | null): number[][] | null {
+  if (!m || heldIndex === null) return m;
+  const out = [[0, 0], [0, 0]];
+  out[1 - heldIndex][1 - heldIndex] = m[0][0];
+  return out;
+}
+
+function embedStdErr(se: number[], heldIndex: number | null, heldValue: number): number[] {
+  if (heldIndex === null) return se;
+  const out = [heldValue, heldValue];
+  out[1 - heldIndex] = se[0];
+  return out;
+}
+
+/** Solves the 2×2 damped normal equations (JᵀJ + λ·diag JᵀJ) δ = −Jᵀr; with a held parameter, the 1×1 equation of the other. */
+function lmStep(e: Evaluation, lambda: number, heldIndex: number | null = null): [number, number] {
   let a = 0, b = 0, d = 0, g0 = 0, g1 = 0;
   e.jacobian.forEach(([j0, j1], i) => {
     a += j0 * j0;
@@ -160,6 +195,8 @@ function lmStep(e: Evaluation, lambda: number): [number, number] {
     g0 += j0 * e.residuals[i];
     g1 += j1 * e.residuals[i];
   });
+  if (heldIndex === 0) return [0, d > 0 ? -g1 / (d * (1 + lambda)) : 0];
+  if (heldIndex === 1) return [a > 0 ? -g0 / (a * (1 + lambda)) : 0, 0];
   const A = a * (1 + lambda);
   const D = d * (1 + lambda);
   const det = A * D - b * b;
@@ -171,6 +208,8 @@ const clamp = (x: number, [lo, hi]: [number, number]) => Math.min(Math.max(x, lo
 
 export async function mdStageFit(points: MdStagePoint[], datasets: Array<{ id: string | number; kind: FitKind }>, options: MdStageOptions): Promise<MdStageResult> {
   const maxIterations = options.maxIterations ?? 6;
+  const heldIndex = options.held ? PARAMETER_NAMES.indexOf(options.held) : null;
+  const freeCount = heldIndex === null ? 2 : 1;
   const tolerance = options.changeInStandardErrors ?? 1;
   const report = (fraction: number, stage: string) => options.onProgress?.({ fraction, stage });
   const iterations: MdIteration[] = [];
@@ -199,12 +238,12 @@ export async function mdStageFit(points: MdStagePoint[], datasets: Array<{ id: s
       lambda *= 10;
     }
     const base = current!;
-    const [d0, d1] = lmStep(base, lambda);
-    const cov = covarianceFromJacobian(base.jacobian, base.chi2, Math.max(1, base.included.filter(Boolean).length - 2));
+    const [d0, d1] = lmStep(base, lambda, heldIndex);
+    const cov = covarianceFromJacobian(freeColumns(base.jacobian, heldIndex), base.chi2, Math.max(1, base.included.filter(Boolean).length - freeCount));
     // The statistical uncertainty the result will report: the larger of the stated-uncertainty and the
     // reduced-χ²-scaled standard errors (the scaled ones vanish for noise-free data).
-    const seUnscaled = cov.unscaled ? standardErrorsFromCovariance(cov.unscaled) : [Infinity, Infinity];
-    const seScaled = cov.scaled ? standardErrorsFromCovariance(cov.scaled) : [0, 0];
+    const seUnscaled = embedStdErr(cov.unscaled ? standardErrorsFromCovariance(cov.unscaled) : [Infinity, Infinity], heldIndex, Infinity);
+    const seScaled = embedStdErr(cov.scaled ? standardErrorsFromCovariance(cov.scaled) : [0, 0], heldIndex, 0);
     const se = seUnscaled.map((u, k) => Math.max(u, seScaled[k]));
     if (accepted && Math.abs(d0) < tolerance * se[0] && Math.abs(d1) < tolerance * se[1]) {
       converged = true;
@@ -216,20 +255,24 @@ export async function mdStageFit(points: MdStagePoint[], datasets: Array<{ id: s
   report(0.97, 'summarising');
   const final = current!;
   const nIncluded = final.included.filter(Boolean).length;
-  const dof = nIncluded - 2;
-  const cov = covarianceFromJacobian(final.jacobian, final.chi2, Math.max(dof, 1));
-  const covariance = cov.scaled ?? cov.unscaled;
-  const stdErr = covariance ? standardErrorsFromCovariance(covariance) : [null, null];
+  const dof = nIncluded - freeCount;
+  const cov = covarianceFromJacobian(freeColumns(final.jacobian, heldIndex), final.chi2, Math.max(dof, 1));
+  const covariance = embedCovariance(cov.scaled ?? cov.unscaled, heldIndex);
+  const stdErr: Array<number | null> = covariance ? standardErrorsFromCovariance(covariance) : [null, null];
+  if (heldIndex !== null) stdErr[heldIndex] = null;
   const residuals: MdResidual[] = points.map((p, i) => ({
     datasetIndex: p.datasetIndex,
     datasetId: p.datasetId,
     kind: p.kind,
     temperatureK: p.temperatureK,
     ...(p.pressureMPa !== undefined ? { pressureMPa: p.pressureMPa } : {}),
+    rowNumber: p.rowNumber ?? i + 1,
+    excluded: !!p.excluded,
     measured: p.value,
     uncertainty: p.uncertainty,
     predicted: final.predicted[i],
-    residual: final.residuals[i],
+    // A point left out by the modeller shows where it would lie; it is not in χ².
+    residual: p.excluded ? ((final.predicted[i] - p.value) * p.weight) / Math.hypot(p.uncertainty, final.modelUncertainty[i]) : final.residuals[i],
     relativeDeviationPercent: p.value !== 0 ? (100 * (final.predicted[i] - p.value)) / p.value : null,
     modelUncertainty: final.modelUncertainty[i],
     simulationId: final.runIds[i],
@@ -241,7 +284,8 @@ export async function mdStageFit(points: MdStagePoint[], datasets: Array<{ id: s
     return {
       datasetId: d.id,
       kind: d.kind,
-      points: residuals.filter((r) => r.datasetIndex === index).length,
+      points: residuals.filter((r) => r.datasetIndex === index && !r.excluded).length,
+      excludedPoints: residuals.filter((r) => r.datasetIndex === index && r.excluded).length,
       rms: mine.length ? Math.sqrt(mine.reduce((s, r) => s + (r.predicted - r.measured) ** 2, 0) / mine.length) : NaN,
       aadPercent: rel.length ? rel.reduce((s, r) => s + Math.abs(r.relativeDeviationPercent!), 0) / rel.length : null,
       chi2: mine.reduce((s, r) => s + r.residual * r.residual, 0),
@@ -256,18 +300,28 @@ export async function mdStageFit(points: MdStagePoint[], datasets: Array<{ id: s
   if (final.epsilonK <= options.bounds.epsilonK[0] || final.epsilonK >= options.bounds.epsilonK[1]) hitBounds.push('epsilonK');
   if (final.sigmaAngstrom <= options.bounds.sigmaAngstrom[0] || final.sigmaAngstrom >= options.bounds.sigmaAngstrom[1]) hitBounds.push('sigmaAngstrom');
   let ellipse95: LjFitResult['ellipse95'] = null;
-  if (covariance && dof > 0) {
+  if (covariance && dof > 0 && heldIndex === null) {
     const e = jointConfidenceEllipse([final.epsilonK, final.sigmaAngstrom], covariance, cov.scaled ? 'reduced-chi2' : 'none', nIncluded);
     ellipse95 = { points: e.points.map(([x, y]) => ({ epsilonK: x, sigmaAngstrom: y })), method: e.method, description: e.description };
   }
+  const correlation = covariance && heldIndex === null ? correlationFromCovariance(covariance)[0][1] : null;
+  const strongCorrelation = correlation !== null && Math.abs(correlation) > STRONG_CORRELATION;
+  if (strongCorrelation) warnings.push(strongCorrelationWarning(correlation));
+  const excludedByModeller = points.filter((p) => p.excluded).length;
+  if (excludedByModeller) warnings.push(`${excludedByModeller} point(s) were left out by the modeller: they are shown with their predictions but not counted in χ²`);
+  warnings.push('No profile-χ² curves for the simulation stage: every point of a curve would need its own rounds of simulations; the intervals are the linearised ones.');
   report(1, 'done');
   return {
     status: dof >= 0 ? 'succeeded' : 'failed',
+    converged: dof >= 0,
+    heldParameters: heldIndex === null ? [] : [PARAMETER_NAMES[heldIndex]],
+    strongCorrelation,
+    profiles: { epsilonK: null, sigmaAngstrom: null },
     ...(dof < 0 ? { failureReason: 'fewer usable points than parameters after leaving out frozen or split state points' } : {}),
     epsilonK: final.epsilonK,
     sigmaAngstrom: final.sigmaAngstrom,
     stdErr: { epsilonK: stdErr[0] ?? null, sigmaAngstrom: stdErr[1] ?? null },
-    correlation: covariance ? correlationFromCovariance(covariance)[0][1] : null,
+    correlation,
     chi2: final.chi2,
     dof,
     reducedChi2: dof > 0 ? final.chi2 / dof : null,

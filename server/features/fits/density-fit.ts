@@ -38,7 +38,8 @@ function waitOrAbort<T>(promise: Promise<T>, signal: AbortSignal): Promise<T> {
 export async function runDensityFit(env: JobRunEnvironment, payload: { datasets: FitDataset[]; options: LjFitOptions }, settings: MdSettings, createdBy: string | null) {
   const md = { ...DENSITY_FIT_DEFAULTS, ...settings };
   env.progress({ fraction: 0.01, stage: 'equation-of-state stage' });
-  const eos = (await env.runTask('fit', payload, (p) => env.progress({ fraction: 0.01 + 0.09 * p.fraction, stage: `equation-of-state stage: ${p.stage}` }))) as LjFitResult;
+  // The equation-of-state stage only starts the simulation stage: its profile-χ² curves would be discarded.
+  const eos = (await env.runTask('fit', { ...payload, options: { ...payload.options, profiles: false } }, (p) => env.progress({ fraction: 0.01 + 0.09 * p.fraction, stage: `equation-of-state stage: ${p.stage}` }))) as LjFitResult;
   if (eos.status !== 'succeeded') {
     return { ...eos, eosStage: eos, failureReason: `the equation-of-state stage failed, so the simulation stage did not start: ${eos.failureReason ?? 'no result'}` };
   }
@@ -60,12 +61,13 @@ export async function runDensityFit(env: JobRunEnvironment, payload: { datasets:
   };
 
   const points: MdStagePoint[] = payload.datasets.flatMap((d, datasetIndex) =>
-    d.rows.map((r) => ({ datasetId: d.id, datasetIndex, kind: d.kind, temperatureK: r.temperatureK, pressureMPa: r.pressureMPa, value: r.value, uncertainty: r.uncertainty, weight: d.weight ?? 1 })),
+    d.rows.map((r, i) => ({ datasetId: d.id, datasetIndex, kind: d.kind, rowNumber: i + 1, excluded: !!d.excludeRows?.includes(i + 1), temperatureK: r.temperatureK, pressureMPa: r.pressureMPa, value: r.value, uncertainty: r.uncertainty, weight: d.weight ?? 1 })),
   );
   const result = await mdStageFit(points, payload.datasets.map((d) => ({ id: d.id, kind: d.kind })), {
     start: { epsilonK: eos.epsilonK, sigmaAngstrom: eos.sigmaAngstrom },
     bounds: eos.bounds,
     context: { molarMassGPerMol: payload.options.molarMassGPerMol!, quantumCorrection: !!payload.options.quantumCorrection },
+    ...(payload.options.fixed?.epsilonK !== undefined ? { held: 'epsilonK' as const } : payload.options.fixed?.sigmaAngstrom !== undefined ? { held: 'sigmaAngstrom' as const } : {}),
     simulate,
     onProgress: (p) => env.progress({ fraction: 0.1 + 0.9 * p.fraction, stage: p.stage }),
   });
