@@ -1,7 +1,7 @@
 /**
  * JSON Schemas (draft 2020-12) of Epsigma's export formats, published by the server so that consumers can
- * validate what they download. They use only the keywords json-schema-check.ts implements: type, required,
- * properties, additionalProperties, items, enum, const, minimum, maximum (plus annotations).
+ * validate what they download. json-schema-check.ts checks documents against them with Ajv (draft 2020-12, strict);
+ * they use the keywords type, required, properties, additionalProperties, items, enum, const, minimum, maximum.
  * The $id values are URNs: they name the format version, they are not addresses to fetch.
  */
 import { COMBINING_RULES } from '../mixing/combining-rules';

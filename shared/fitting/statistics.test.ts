@@ -1,40 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { logGamma, regularizedGammaP, regularizedIncompleteBeta } from './special-functions';
 import { chiSquareCdf, chiSquareQuantile, chiSquareTwoSidedPValue, fCdf, fQuantile } from './statistics';
-
-describe('special functions', () => {
-  it('ln Γ matches Γ(1/2) = √π and Γ(n) = (n−1)! (Abramowitz & Stegun 1964, 6.1.8 and 6.1.6)', () => {
-    expect(logGamma(0.5)).toBeCloseTo(0.5 * Math.log(Math.PI), 13);
-    expect(logGamma(1)).toBeCloseTo(0, 14);
-    expect(logGamma(5)).toBeCloseTo(Math.log(24), 13);
-    expect(logGamma(10)).toBeCloseTo(Math.log(362880), 12);
-    // Γ(3/2) = √π/2 (A&S 6.1.9)
-    expect(logGamma(1.5)).toBeCloseTo(Math.log(Math.sqrt(Math.PI) / 2), 13);
-  });
-
-  it('I_x(a, b) obeys closed forms: I_x(a,1) = x^a, I_x(1,b) = 1 − (1−x)^b, I_½(a,a) = ½ (A&S 26.5.1 and symmetry 26.5.2)', () => {
-    for (const x of [0.01, 0.3, 0.77, 0.999]) {
-      expect(regularizedIncompleteBeta(x, 3.5, 1)).toBeCloseTo(x ** 3.5, 13);
-      expect(regularizedIncompleteBeta(x, 1, 6)).toBeCloseTo(1 - (1 - x) ** 6, 13);
-    }
-    expect(regularizedIncompleteBeta(0.5, 7.3, 7.3)).toBeCloseTo(0.5, 13);
-    expect(regularizedIncompleteBeta(0.2, 2, 3) + regularizedIncompleteBeta(0.8, 3, 2)).toBeCloseTo(1, 14);
-  });
-
-  it('P(a, x) obeys P(1, x) = 1 − e^−x and P(½, x) = erf(√x) (A&S 6.5.13 and 6.5.17)', () => {
-    for (const x of [0.1, 1, 4.5, 30]) expect(regularizedGammaP(1, x)).toBeCloseTo(1 - Math.exp(-x), 13);
-    // erf(1) = 0.8427007929497149 (A&S Table 7.1, 10 digits there)
-    expect(regularizedGammaP(0.5, 1)).toBeCloseTo(0.8427007929, 9);
-  });
-
-  it('rejects arguments outside the domain with named messages', () => {
-    expect(() => logGamma(0)).toThrow('logGamma: x must be positive, got 0');
-    expect(() => regularizedIncompleteBeta(1.2, 1, 1)).toThrow('x must lie in [0, 1], got 1.2');
-    expect(() => regularizedIncompleteBeta(0.5, -1, 1)).toThrow('a and b must be positive');
-    expect(() => regularizedGammaP(0, 1)).toThrow('a must be positive');
-    expect(() => regularizedGammaP(1, -1)).toThrow('x must be non-negative');
-  });
-});
 
 describe('F distribution', () => {
   // Upper 5 % critical values F(ν1, ν2). Rows ν2 = 1..3: table "F Distribution" at atozmath.com/CONM/DistributionTables.aspx

@@ -1,9 +1,13 @@
 /**
- * Distribution functions used for confidence regions and goodness-of-fit checks.
- * F and χ² CDFs via the regularised incomplete beta / gamma functions
- * (Abramowitz & Stegun 1964, 26.6.2 and 26.4.19); quantiles by bisection on the CDF.
+ * Distribution functions used for confidence regions and goodness-of-fit checks: thin, validated wrappers over
+ * the stdlib distribution packages (@stdlib/stats-base-dists-chisquare-* and -f-*), which evaluate the CDFs through
+ * the regularised incomplete gamma and beta functions (Abramowitz & Stegun 1964, 26.4.19 and 26.6.2) and invert
+ * them with dedicated inverse-incomplete-function kernels.
  */
-import { regularizedGammaP, regularizedIncompleteBeta } from './special-functions';
+import chisquareCdf from '@stdlib/stats-base-dists-chisquare-cdf';
+import chisquareQuantile from '@stdlib/stats-base-dists-chisquare-quantile';
+import fDistributionCdf from '@stdlib/stats-base-dists-f-cdf';
+import fDistributionQuantile from '@stdlib/stats-base-dists-f-quantile';
 
 function assertDegreesOfFreedom(name: string, value: number): void {
   if (!(value > 0) || !Number.isFinite(value)) throw new RangeError(`${name} must be a positive finite number, got ${value}`);
@@ -13,38 +17,21 @@ function assertProbability(probability: number): void {
   if (!(probability > 0 && probability < 1)) throw new RangeError(`probability must lie strictly between 0 and 1, got ${probability}`);
 }
 
-/** CDF of Snedecor's F(d1, d2) at x: I_{d1 x/(d1 x + d2)}(d1/2, d2/2). */
+/** CDF of Snedecor's F(d1, d2) at x. */
 export function fCdf(x: number, d1: number, d2: number): number {
   assertDegreesOfFreedom('d1', d1);
   assertDegreesOfFreedom('d2', d2);
   if (x <= 0) return 0;
   if (!Number.isFinite(x)) return 1;
-  return regularizedIncompleteBeta((d1 * x) / (d1 * x + d2), d1 / 2, d2 / 2);
+  return fDistributionCdf(x, d1, d2);
 }
 
-/** CDF of χ²(ν) at x: P(ν/2, x/2). */
+/** CDF of χ²(ν) at x. */
 export function chiSquareCdf(x: number, dof: number): number {
   assertDegreesOfFreedom('dof', dof);
   if (x <= 0) return 0;
   if (!Number.isFinite(x)) return 1;
-  return regularizedGammaP(dof / 2, x / 2);
-}
-
-/** Inverts a monotone increasing CDF on (0, ∞) by bracketing then bisection to relative precision 1e-12. */
-function invertCdf(cdf: (x: number) => number, probability: number): number {
-  let lo = 0;
-  let hi = 1;
-  while (cdf(hi) < probability) {
-    lo = hi;
-    hi *= 2;
-    if (hi > 1e300) throw new Error('quantile search failed to bracket the probability');
-  }
-  for (let i = 0; i < 2000 && hi - lo > 1e-12 * hi; i++) {
-    const mid = 0.5 * (lo + hi);
-    if (cdf(mid) < probability) lo = mid;
-    else hi = mid;
-  }
-  return 0.5 * (lo + hi);
+  return chisquareCdf(x, dof);
 }
 
 /** Quantile of F(d1, d2): the x with fCdf(x) = probability (e.g. probability 0.95 gives the upper 5 % critical value). */
@@ -52,14 +39,14 @@ export function fQuantile(probability: number, d1: number, d2: number): number {
   assertProbability(probability);
   assertDegreesOfFreedom('d1', d1);
   assertDegreesOfFreedom('d2', d2);
-  return invertCdf((x) => fCdf(x, d1, d2), probability);
+  return fDistributionQuantile(probability, d1, d2);
 }
 
 /** Quantile of χ²(ν). */
 export function chiSquareQuantile(probability: number, dof: number): number {
   assertProbability(probability);
   assertDegreesOfFreedom('dof', dof);
-  return invertCdf((x) => chiSquareCdf(x, dof), probability);
+  return chisquareQuantile(probability, dof);
 }
 
 /**

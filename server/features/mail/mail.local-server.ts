@@ -1,7 +1,7 @@
 import type { AddressInfo } from 'node:net';
 import { SMTPServer } from 'smtp-server';
 import type { Db } from '../../db/database';
-import { parseMail } from './mime-parse';
+import { parseMail } from './mail-reader';
 
 /** Largest message the local service accepts; app mail is a few kilobytes. */
 const MAX_MESSAGE_BYTES = 1024 * 1024;
@@ -35,22 +35,25 @@ export async function startLocalMailServer(db: Db, log: (message: string) => voi
       stream.on('end', () => {
         if (stream.sizeExceeded) return callback(Object.assign(new Error('Message exceeds the 1 MiB limit of the local mailbox'), { responseCode: 552 }));
         const raw = Buffer.concat(chunks);
-        const parsed = parseMail(raw);
         const envelopeTo = session.envelope.rcptTo.map((a) => a.address);
         const envelopeFrom = session.envelope.mailFrom ? session.envelope.mailFrom.address : '';
-        db.insertInto('mailboxMessage')
-          .values({
-            receivedAt: new Date().toISOString(),
-            from: parsed.from || envelopeFrom,
-            // The envelope is who the message was delivered to (it includes Bcc); headers may differ.
-            toJson: JSON.stringify(envelopeTo.length ? envelopeTo : parsed.to),
-            subject: parsed.subject,
-            text: parsed.text ?? '',
-            html: parsed.html,
-            messageId: parsed.messageId,
-            rawSizeBytes: raw.length,
-          })
-          .execute()
+        parseMail(raw)
+          .then((parsed) =>
+            db
+              .insertInto('mailboxMessage')
+              .values({
+                receivedAt: new Date().toISOString(),
+                from: parsed.from || envelopeFrom,
+                // The envelope is who the message was delivered to (it includes Bcc); headers may differ.
+                toJson: JSON.stringify(envelopeTo.length ? envelopeTo : parsed.to),
+                subject: parsed.subject,
+                text: parsed.text ?? '',
+                html: parsed.html,
+                messageId: parsed.messageId,
+                rawSizeBytes: raw.length,
+              })
+              .execute(),
+          )
           .then(
             () => callback(),
             (err: unknown) => {
