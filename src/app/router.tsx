@@ -1,4 +1,5 @@
 import { createBrowserRouter } from 'react-router-dom';
+import { LoadingState } from '@/components/ui/states';
 import { RouteError } from './route-error';
 import { NotFoundRoute } from './routes/not-found';
 import { ProtectedRoute } from './routes/protected';
@@ -6,10 +7,12 @@ import { SignInRoute } from './routes/sign-in';
 
 /** Pages load lazily; everything but sign-in sits behind the session check. */
 export const router = createBrowserRouter([
-  { path: '/sign-in', element: <SignInRoute />, errorElement: <RouteError /> },
+  { path: '/sign-in', element: <SignInRoute />, errorElement: <RouteError />, hydrateFallbackElement: <LoadingState /> },
   {
     element: <ProtectedRoute />,
     errorElement: <RouteError />,
+    // Shown while the first page's code loads on a full page load (the pages load lazily).
+    hydrateFallbackElement: <LoadingState />,
     children: [
       {
         errorElement: <RouteError />,

@@ -4,11 +4,11 @@ import { ROLE_LABELS } from '@shared/auth/roles';
 import { Button } from '@/components/ui/button';
 import { Field, Input } from '@/components/ui/field';
 import { PageHeader, Panel } from '@/components/ui/states';
-import { useMe } from '@/features/auth/api/me';
+import { useSignedIn } from '@/lib/signed-in';
 import { useChangePassword } from '@/features/auth/api/sign-in';
 
 export function AccountRoute() {
-  const me = useMe().data!;
+  const me = useSignedIn();
   const change = useChangePassword();
   const [current, setCurrent] = useState('');
   const [next, setNext] = useState('');

@@ -1,4 +1,5 @@
 import { Link, useParams } from 'react-router-dom';
+import { formatDateTime } from '@shared/format/dates';
 import type { LjFitResult } from '@shared/fitting/lj-fit';
 import type { EnergyUnit, LengthUnit } from '@shared/physics/parameter-units';
 import { ErrorState, LoadingState, PageHeader, Panel } from '@/components/ui/states';
@@ -9,8 +10,7 @@ import { ParameterValues } from '@/features/catalog/components/parameter-values'
 import { SchemeCheck } from '@/features/catalog/components/scheme-check';
 import { VersionHistory } from '@/features/catalog/components/version-history';
 import { useFit } from '@/features/fits/api/fits';
-import { FitCurves } from '@/features/fits/components/fit-curves';
-import { DatasetStatsTable, ParameterTable } from '@/features/fits/components/parameter-table';
+import { FitEvidence, hasEvidence } from '@/features/fits/components/fit-evidence';
 import { FollowButton } from '@/features/follows/components/follow-button';
 import { ParameterSetCaution } from '@/features/parameter-sets/components/caution';
 import { ParameterSetStateBadge } from '@/features/parameter-sets/components/state-badge';
@@ -68,7 +68,7 @@ export function CatalogCardRoute() {
         <Panel title="Approval">
           <p className="text-sm">
             {c.approvedAt ? (
-              <>Approved by <span className="font-semibold">{c.approvedByName ?? 'a reviewer'}</span> on <time dateTime={c.approvedAt}>{new Date(c.approvedAt).toLocaleString()}</time>.</>
+              <>Approved by <span className="font-semibold">{c.approvedByName ?? 'a reviewer'}</span> on <time dateTime={c.approvedAt}>{formatDateTime(c.approvedAt)}</time>.</>
             ) : (
               'No approval recorded.'
             )}{' '}
@@ -77,7 +77,7 @@ export function CatalogCardRoute() {
           {c.approvalComment && <blockquote className="mt-2 border-l-2 border-rule pl-3 text-sm text-ink-soft">{c.approvalComment}</blockquote>}
           <p className="mt-3 whitespace-pre-line text-sm"><span className="text-ink-faint">Rationale: </span>{c.rationale}</p>
         </Panel>
-        <FitEvidence card={c} energy={energy} length={length} />
+        <FitEvidenceOfCard card={c} energy={energy} length={length} />
         <Panel title="Measurement sets and their sources">
           <DatasetSourcesTable rows={c.datasets} />
         </Panel>
@@ -89,28 +89,12 @@ export function CatalogCardRoute() {
   );
 }
 
-/** The fit against the data it was fitted to, with per-set statistics (from GET /api/fits/:id). */
-function FitEvidence({ card, energy, length }: { card: ParameterCard; energy: EnergyUnit; length: LengthUnit }) {
+/** Everything behind the fit (GET /api/fits/:id), shown as on the fit page and the review page, in the reader's units. */
+function FitEvidenceOfCard({ card, energy, length }: { card: ParameterCard; energy: EnergyUnit; length: LengthUnit }) {
   const fit = useFit(card.fitId);
   if (fit.isPending) return <LoadingState label="Loading the fit…" />;
   if (fit.isError) return <ErrorState error={fit.error} onRetry={() => fit.refetch()} />;
   const result = fit.data.result as LjFitResult | null;
-  if (!result || result.status !== 'succeeded') return null;
-  const names = Object.fromEntries(card.datasets.map((d) => [String(d.datasetId), `${d.name} v${d.version}`]));
-  const context = { molarMassGPerMol: fit.data.options.molarMassGPerMol, quantumCorrection: !!fit.data.options.quantumCorrection };
-  return (
-    <>
-      <Panel title={`Fit #${fit.data.number} against the data`}>
-        <FitCurves result={result} datasetNames={names} context={context} curves={[{ label: `v${card.version}`, epsilonK: card.epsilonK, sigmaAngstrom: card.sigmaAngstrom }]} />
-      </Panel>
-      <div className="grid gap-6 lg:grid-cols-2">
-        <Panel title="Fit statistics">
-          <ParameterTable result={result} energy={energy} length={length} />
-        </Panel>
-        <Panel title="Per measurement set">
-          <DatasetStatsTable result={result} names={names} />
-        </Panel>
-      </div>
-    </>
-  );
+  if (!hasEvidence(result)) return null;
+  return <FitEvidence fit={fit.data} result={result} curves={[{ label: `v${card.version}`, epsilonK: card.epsilonK, sigmaAngstrom: card.sigmaAngstrom }]} energy={energy} length={length} parametersTitle={`Fit #${fit.data.number}: parameters and statistics`} />;
 }

@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { formatDate, formatDateTime } from '@shared/format/dates';
 import { Link, useParams, useSearchParams } from 'react-router-dom';
 import type { ColumnDef } from '@tanstack/react-table';
 import { QUANTITIES, PROPERTY_KINDS, type QuantityKey } from '@shared/measurements/property-kinds';
@@ -64,7 +65,7 @@ export function DatasetDetailRoute() {
       )}
       {d.withdrawn && (
         <p role="status" className="mb-4 rounded-md bg-slate-soft px-3 py-2 text-sm text-slate">
-          Withdrawn on {new Date(d.withdrawn.at).toLocaleDateString()}: {d.withdrawn.reason}. It is kept for history and offered to no new fit.
+          Withdrawn on {formatDate(d.withdrawn.at)}: {d.withdrawn.reason}. It is kept for history and offered to no new fit.
         </p>
       )}
       <div className="grid gap-6 lg:grid-cols-[3fr_2fr]">
@@ -96,7 +97,7 @@ export function DatasetDetailRoute() {
             <dt className="text-ink-faint">Default u</dt>
             <dd className="num">{(d.defaultRelativeUncertainty * 100).toFixed(2)} % relative, for rows without an uncertainty</dd>
             <dt className="text-ink-faint">Uploaded</dt>
-            <dd>{new Date(d.uploadedAt).toLocaleString()} by {d.uploadedByName}</dd>
+            <dd>{formatDateTime(d.uploadedAt)} by {d.uploadedByName}</dd>
           </dl>
         </Panel>
         <Panel title="Rows (canonical units)" className="lg:col-span-1">
@@ -110,7 +111,7 @@ export function DatasetDetailRoute() {
                   <button type="button" className="font-semibold hover:underline" onClick={() => setParams(v.version === d.latestVersion ? {} : { version: String(v.version) })}>
                     v{v.version}
                   </button>{' '}
-                  · {v.rowCount} points · {new Date(v.uploadedAt).toLocaleDateString()} by {v.uploadedByName}
+                  · {v.rowCount} points · {formatDate(v.uploadedAt)} by {v.uploadedByName}
                   <div className="font-mono text-xs text-ink-faint">sha256 {v.sha256.slice(0, 16)}…</div>
                 </li>
               ))}

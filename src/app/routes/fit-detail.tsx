@@ -1,5 +1,6 @@
 import { useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
+import { formatDateTime } from '@shared/format/dates';
 import type { EnergyUnit, LengthUnit } from '@shared/physics/parameter-units';
 import { Button } from '@/components/ui/button';
 import { ProgressBar } from '@/components/ui/progress-bar';
@@ -7,11 +8,8 @@ import { ErrorState, LoadingState, PageHeader, Panel } from '@/components/ui/sta
 import { UnitSwitch } from '@/components/ui/unit-switch';
 import { useCan } from '@/lib/authorization';
 import { useCancelFit, useFit } from '@/features/fits/api/fits';
-import { EllipseChart } from '@/features/fits/components/ellipse-chart';
-import { FitCurves } from '@/features/fits/components/fit-curves';
-import { DensityCharts, SimulationStage, type DensityFitResult } from '@/features/fits/components/density-panel';
+import { FitEvidence, fitContext, hasEvidence } from '@/features/fits/components/fit-evidence';
 import { FitStatusBadge } from '@/features/fits/components/fit-status-badge';
-import { DatasetStatsTable, ParameterTable } from '@/features/fits/components/parameter-table';
 import { WhatIfPanel } from '@/features/fits/components/what-if-panel';
 import { DraftParameterSetPanel } from '@/features/parameter-sets/components/draft-panel';
 
@@ -22,13 +20,12 @@ export function FitDetailRoute() {
   const canRun = useCan('fit:run');
   const canDraft = useCan('parameterSet:draft');
   const [units, setUnits] = useState<{ energy: EnergyUnit; length: LengthUnit }>({ energy: 'K', length: 'Å' });
-  if (fit.isPending) return <LoadingState />;
+  if (fit.isPending) return <LoadingState label="Loading the fit…" />;
   if (fit.isError) return <ErrorState error={fit.error} onRetry={() => fit.refetch()} />;
   const f = fit.data;
-  const names = Object.fromEntries(f.datasets.map((d) => [String(d.datasetId), `${d.name} v${d.version}`]));
-  const weights = Object.fromEntries(f.datasets.map((d) => [String(d.datasetId), d.weight]));
-  const context = { molarMassGPerMol: f.options.molarMassGPerMol, quantumCorrection: !!f.options.quantumCorrection };
+  const { names, weights, context } = fitContext(f);
   const r = f.result;
+  const leftOut = f.datasets.filter((d) => (d as { excludeRows?: number[] }).excludeRows?.length);
   return (
     <>
       <PageHeader
@@ -43,7 +40,7 @@ export function FitDetailRoute() {
       />
       {(f.status === 'queued' || f.status === 'running') && (
         <Panel title="Running" className="mb-6">
-          <ProgressBar fraction={f.progress} label={f.status === 'queued' ? 'Waiting for a free worker…' : f.stage ?? 'Working…'} />
+          <ProgressBar fraction={f.progress} label={f.status === 'queued' ? 'Waiting for a free worker…' : f.stage ?? 'Starting the fit…'} />
           {canRun && (
             <Button className="mt-4" variant="danger" busy={cancel.isPending} onClick={() => cancel.mutate()}>
               Cancel fit
@@ -58,54 +55,46 @@ export function FitDetailRoute() {
           <p className="mt-1 text-sm text-ink-soft">A fit is never edited: run a new one with changed data or options.</p>
         </div>
       )}
-      {r && r.status === 'succeeded' && (
-        <div className="grid gap-6">
-          {(r.warnings.length > 0 || r.hitBounds.length > 0) && (
-            <div role="status" className="rounded-lg border border-review/40 bg-review-soft/70 px-5 py-3">
-              <p className="font-semibold text-review">Read before use</p>
-              <ul className="mt-1 list-disc pl-5 text-sm">
-                {r.hitBounds.map((b) => <li key={b}>The fit ended on the bound of {b}; the value is a limit, not an estimate.</li>)}
-                {r.warnings.map((w) => <li key={w}>{w}</li>)}
-              </ul>
-            </div>
-          )}
-          <div className="grid gap-6 lg:grid-cols-[3fr_2fr]">
-            <Panel title="Parameters" actions={<UnitSwitch energy={units.energy} length={units.length} onChange={setUnits} />}>
-              <ParameterTable result={r} energy={units.energy} length={units.length} />
-            </Panel>
-            <Panel title="95 % joint confidence region">
-              <EllipseChart result={r} />
-            </Panel>
-          </div>
-          <Panel title="Data and model">
-            <div className="grid gap-6">
-              <FitCurves result={r} datasetNames={names} context={context} curves={[{ label: `Fit #${f.number}`, epsilonK: r.epsilonK, sigmaAngstrom: r.sigmaAngstrom }]} />
-              <DensityCharts result={r as DensityFitResult} />
-            </div>
-          </Panel>
-          {(r as DensityFitResult).mdRuns && (
-            <Panel title="Simulation stage">
-              <SimulationStage result={r as DensityFitResult} />
-            </Panel>
-          )}
-          <Panel title="Per measurement set">
-            <DatasetStatsTable result={r} names={names} />
-          </Panel>
-          <Panel title="What if?">
-            <WhatIfPanel result={r} names={names} context={context} weights={weights} />
-          </Panel>
-          {canDraft && <DraftParameterSetPanel fitId={f.id} result={r} />}
-          <Panel title="Record">
-            <dl className="grid grid-cols-[max-content_1fr] gap-x-4 gap-y-1 text-sm">
-              <dt className="text-ink-faint">Run by</dt><dd>{f.createdByName}, {new Date(f.createdAt).toLocaleString()}</dd>
-              <dt className="text-ink-faint">Finished</dt><dd>{f.finishedAt ? new Date(f.finishedAt).toLocaleString() : '—'}</dd>
-              <dt className="text-ink-faint">Code version</dt><dd className="font-mono text-xs">{f.codeVersion}</dd>
-              <dt className="text-ink-faint">Molar mass</dt><dd className="num">{f.options.molarMassGPerMol} g/mol</dd>
-              <dt className="text-ink-faint">Data versions</dt><dd>{f.datasets.map((d) => <Link key={d.datasetId} className="mr-3 text-copper underline" to={`/datasets/${d.datasetId}?version=${d.version}`}>{d.name} v{d.version}</Link>)}</dd>
-            </dl>
-          </Panel>
+      {leftOut.length > 0 && (
+        <div role="note" className="mb-6 rounded-md bg-paper-deep px-4 py-2 text-sm">
+          {leftOut.map((d) => {
+            const x = d as typeof d & { excludeRows?: number[]; excludeReason?: string | null };
+            return (
+              <p key={d.datasetId}>
+                Left out of {d.name} v{d.version}: row{x.excludeRows!.length > 1 ? 's' : ''} {x.excludeRows!.join(', ')}
+                {x.excludeReason ? ` — “${x.excludeReason}”` : ''}.
+              </p>
+            );
+          })}
         </div>
       )}
+      {hasEvidence(r) && (
+        <div className="grid gap-6">
+          <FitEvidence
+            fit={f}
+            result={r}
+            curves={[{ label: `Fit #${f.number}`, epsilonK: r.epsilonK, sigmaAngstrom: r.sigmaAngstrom }]}
+            energy={units.energy}
+            length={units.length}
+            unitSwitch={<UnitSwitch energy={units.energy} length={units.length} onChange={setUnits} />}
+          />
+          {r.status === 'succeeded' && (
+            <Panel title="What if?" className="min-w-0">
+              <WhatIfPanel result={r} names={names} context={context} weights={weights} />
+            </Panel>
+          )}
+          {canDraft && r.status === 'succeeded' && <DraftParameterSetPanel fitId={f.id} result={r} />}
+        </div>
+      )}
+      <Panel title="Record" className="mt-6">
+        <dl className="grid grid-cols-[max-content_1fr] gap-x-4 gap-y-1 text-sm">
+          <dt className="text-ink-faint">Run by</dt><dd>{f.createdByName}, {formatDateTime(f.createdAt)}</dd>
+          <dt className="text-ink-faint">Finished</dt><dd>{f.finishedAt ? formatDateTime(f.finishedAt) : '—'}</dd>
+          <dt className="text-ink-faint">Code version</dt><dd className="break-all font-mono text-xs">{f.codeVersion}</dd>
+          <dt className="text-ink-faint">Molar mass</dt><dd className="num">{f.options.molarMassGPerMol ?? '—'} g/mol</dd>
+          <dt className="text-ink-faint">Data versions</dt><dd>{f.datasets.map((d) => <Link key={d.datasetId} className="mr-3 text-copper underline" to={`/datasets/${d.datasetId}?version=${d.version}`}>{d.name} v{d.version}</Link>)}</dd>
+        </dl>
+      </Panel>
     </>
   );
 }

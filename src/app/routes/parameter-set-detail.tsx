@@ -1,10 +1,11 @@
+import { useQuery } from '@tanstack/react-query';
 import { Link, useNavigate, useParams } from 'react-router-dom';
+import { formatDate } from '@shared/format/dates';
+import { formatSignificant } from '@shared/format/numbers';
 import type { LjFitResult } from '@shared/fitting/lj-fit';
 import { ErrorState, LoadingState, PageHeader, Panel } from '@/components/ui/states';
-import { useFit } from '@/features/fits/api/fits';
-import { EllipseChart } from '@/features/fits/components/ellipse-chart';
-import { FitCurves } from '@/features/fits/components/fit-curves';
-import { DatasetStatsTable, ParameterTable } from '@/features/fits/components/parameter-table';
+import { substanceFitsQueryOptions, useFit } from '@/features/fits/api/fits';
+import { FitEvidence, fitContext, hasEvidence } from '@/features/fits/components/fit-evidence';
 import { useParameterSet, type ParameterSetDetail } from '@/features/parameter-sets/api/parameter-sets';
 import { ParameterSetActions } from '@/features/parameter-sets/components/actions';
 import { ApprovedComparison } from '@/features/parameter-sets/components/approved-comparison';
@@ -20,6 +21,8 @@ export function ParameterSetDetailRoute() {
   const id = Number(useParams().parameterSetId);
   const query = useParameterSet(id);
   const navigate = useNavigate();
+  const substanceId = query.data?.substanceId;
+  const fits = useQuery({ ...substanceFitsQueryOptions(substanceId ?? 0), enabled: substanceId !== undefined && !!query.data?.allowedMoves.includes('revise') });
   if (query.isPending) return <LoadingState />;
   if (query.isError) return <ErrorState error={query.error} onRetry={() => query.refetch()} />;
   const s = query.data;
@@ -43,13 +46,17 @@ export function ParameterSetDetailRoute() {
             <FrozenValues set={s} />
           </Panel>
           <Panel title="Actions">
-            <ParameterSetActions set={s} onRevised={(r) => navigate(`/parameter-sets/${r.id}`)} />
+            <ParameterSetActions
+              set={s}
+              onRevised={(r) => navigate(`/parameter-sets/${r.id}`)}
+              fitChoices={(fits.data ?? []).filter((f) => f.status === 'succeeded').map((f) => ({ id: f.id, number: f.number, label: `Fit #${f.number} — ${formatDate(f.createdAt)}, ${f.epsilonK !== null ? `ε/k_B ${formatSignificant(f.epsilonK, 5)} K` : ''}${f.sigmaAngstrom !== null ? `, σ ${formatSignificant(f.sigmaAngstrom, 5)} Å` : ''}` }))}
+            />
           </Panel>
         </div>
         <Panel title="Rationale">
           <p className="whitespace-pre-line">{s.rationale}</p>
         </Panel>
-        <FitEvidence set={s} />
+        <FitEvidenceOfSet set={s} />
         <Panel title="Measurement sets behind it">
           <DatasetSourcesTable rows={s.datasets} linkToDatasets showSha />
         </Panel>
@@ -85,45 +92,30 @@ function Notices({ set, lastComment }: { set: ParameterSetDetail; lastComment: s
   );
 }
 
-/** The fit's plots and statistics, and — when another version is approved — the comparison with it. */
-function FitEvidence({ set }: { set: ParameterSetDetail }) {
+/** Everything behind the fit, shown as on the fit page, and — when another version is approved — the comparison with it. */
+function FitEvidenceOfSet({ set }: { set: ParameterSetDetail }) {
   const fit = useFit(set.fitId);
   if (fit.isPending) return <LoadingState label="Loading the fit…" />;
   if (fit.isError) return <ErrorState error={fit.error} onRetry={() => fit.refetch()} />;
   const result = fit.data.result as LjFitResult | null;
-  if (!result || result.status !== 'succeeded') return null;
-  const names = Object.fromEntries(set.datasets.map((d) => [String(d.datasetId), `${d.name} v${d.version}`]));
-  const context = { molarMassGPerMol: fit.data.options.molarMassGPerMol, quantumCorrection: !!fit.data.options.quantumCorrection };
+  if (!hasEvidence(result)) return null;
+  const { names, context } = fitContext(fit.data);
   const approved = set.currentApproved;
-  const curves = [{ label: `This set v${set.version}`, epsilonK: set.epsilonK, sigmaAngstrom: set.sigmaAngstrom }, ...(approved ? [{ label: `Approved v${approved.version}`, epsilonK: approved.epsilonK, sigmaAngstrom: approved.sigmaAngstrom }] : [])];
+  const curves = [{ label: `This set v${set.version}`, epsilonK: set.epsilonK, sigmaAngstrom: set.sigmaAngstrom }, ...(approved && approved.id !== set.id ? [{ label: `Approved v${approved.version}`, epsilonK: approved.epsilonK, sigmaAngstrom: approved.sigmaAngstrom }] : [])];
   return (
-    <>
-      {approved && (
-        <Panel title={`Against the approved v${approved.version}`}>
-          <ApprovedComparison set={set} approved={approved} points={result.residuals} context={context} datasetNames={names} />
-        </Panel>
-      )}
-      {result.warnings.length > 0 && (
-        <div role="status" className="rounded-lg border border-review/40 bg-review-soft/70 px-5 py-3">
-          <p className="font-semibold text-review">Warnings of Fit #{fit.data.number}</p>
-          <ul className="mt-1 list-disc pl-5 text-sm">{result.warnings.map((w) => <li key={w}>{w}</li>)}</ul>
-        </div>
-      )}
-      <div className="grid gap-6 lg:grid-cols-[3fr_2fr]">
-        <Panel title={`Fit #${fit.data.number}: parameters and statistics`}>
-          <ParameterTable result={result} energy="K" length="Å" />
-        </Panel>
-        <Panel title="95 % joint confidence region">
-          <EllipseChart result={result} />
-        </Panel>
-      </div>
-      <Panel title={approved ? 'Data with both models' : 'Data and model'}>
-        <FitCurves result={result} datasetNames={names} context={context} curves={curves} />
-        {approved && <p className="mt-2 text-xs text-ink-faint">Residuals underneath are those of this set’s fit.</p>}
-      </Panel>
-      <Panel title="Per measurement set">
-        <DatasetStatsTable result={result} names={names} />
-      </Panel>
-    </>
+    <FitEvidence
+      fit={fit.data}
+      result={result}
+      curves={curves}
+      parametersTitle={`Fit #${fit.data.number}: parameters and statistics`}
+      dataTitle={curves.length > 1 ? 'Data with both models' : 'Data and model'}
+      comparison={
+        approved && approved.id !== set.id ? (
+          <Panel title={`Against the approved v${approved.version}`}>
+            <ApprovedComparison set={set} approved={approved} points={result.residuals} context={context} datasetNames={names} />
+          </Panel>
+        ) : undefined
+      }
+    />
   );
 }

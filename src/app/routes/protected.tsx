@@ -1,12 +1,17 @@
+import { useRef } from 'react';
 import { Navigate, useLocation } from 'react-router-dom';
 import { AppShell } from '@/components/layouts/app-shell';
 import { ErrorState, LoadingState } from '@/components/ui/states';
 import { useMe } from '@/features/auth/api/me';
+import { useSignOut } from '@/features/auth/api/sign-in';
+import { SignedInProvider } from '@/lib/signed-in';
 
 /** Every signed-in page sits under this route: no session means a trip to the sign-in page and back. */
 export function ProtectedRoute() {
   const me = useMe();
+  const signOut = useSignOut();
   const location = useLocation();
+  const signingOut = useRef(false);
   if (me.isPending) return <LoadingState label="Checking your session…" />;
   if (me.isError)
     return (
@@ -14,6 +19,21 @@ export function ProtectedRoute() {
         <ErrorState error={me.error} onRetry={() => me.refetch()} />
       </div>
     );
-  if (!me.data) return <Navigate to={`/sign-in?next=${encodeURIComponent(location.pathname + location.search)}`} replace />;
-  return <AppShell />;
+  if (!me.data) {
+    // After "Sign out" go to the plain sign-in page; a lapsed session comes back here after signing in again.
+    if (signingOut.current) return <Navigate to="/sign-in" replace />;
+    return <Navigate to={`/sign-in?next=${encodeURIComponent(location.pathname + location.search)}`} replace />;
+  }
+  return (
+    <SignedInProvider me={me.data}>
+      <AppShell
+        me={me.data}
+        signingOut={signOut.isPending}
+        onSignOut={() => {
+          signingOut.current = true;
+          signOut.mutate();
+        }}
+      />
+    </SignedInProvider>
+  );
 }

@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import { formatWithUncertainty } from '@shared/format/numbers';
+import { CUTOFF_SCHEME_LABELS } from '@shared/schemas/parameter-sets';
 import { Button } from '@/components/ui/button';
 import { Field, Input, Select } from '@/components/ui/field';
 import { ProgressBar } from '@/components/ui/progress-bar';
@@ -9,6 +10,21 @@ import { useCan } from '@/lib/authorization';
 import { FitStatusBadge } from '@/features/fits/components/fit-status-badge';
 import { useSimulations, useStartSimulation } from '@/features/simulations/api/simulations';
 import { PhaseBadge } from '@/features/simulations/components/phase-badge';
+
+/** What became of the run just started, kept current from the polled list (queued → running → finished). */
+function StartedNotice({ id, reused }: { id: number; reused: boolean }) {
+  const sims = useSimulations();
+  const sim = sims.data?.find((s) => s.id === id);
+  const status = sim?.status ?? 'queued';
+  const link = <Link className="underline" to={`/simulations/${id}`}>Simulation {id}</Link>;
+  const text =
+    status === 'succeeded' ? <>{link} {reused ? 'is an identical earlier run, reused' : 'has finished'}{sim?.summary ? <>: ρ* = {formatWithUncertainty(sim.summary.reducedDensity, sim.summary.stdErr)}</> : null}.</>
+    : status === 'running' ? <>{link} is running ({Math.round((sim?.progress ?? 0) * 100)} %).</>
+    : status === 'failed' ? <>{link} failed{sim?.error ? `: ${sim.error}` : '.'}</>
+    : status === 'cancelled' ? <>{link} was cancelled.</>
+    : <>{link} {reused ? 'is an identical run already waiting; it is reused' : 'is queued'} and waits for a free worker.</>;
+  return <p role="status" data-testid="started-simulation" className={`text-sm ${status === 'failed' ? 'text-changes' : 'text-approved'}`}>{text}</p>;
+}
 
 function StartForm() {
   const start = useStartSimulation();
@@ -40,7 +56,7 @@ function StartForm() {
         </Field>
       </div>
       {start.isError && <p role="alert" className="text-sm text-changes">{start.error.message}</p>}
-      {start.isSuccess && <p role="status" className="text-sm text-approved">{start.data.reused ? `An identical run exists: simulation ${start.data.id} is reused.` : `Simulation ${start.data.id} queued.`}</p>}
+      {start.isSuccess && <StartedNotice id={start.data.id} reused={start.data.reused} />}
       <div><Button type="submit" variant="primary" busy={start.isPending}>Run NPT simulation</Button></div>
     </form>
   );
@@ -74,7 +90,7 @@ export function SimulationsRoute() {
                     </span>
                   </div>
                   <div className="mt-1 text-xs text-ink-faint">
-                    {s.state.atoms} atoms · {s.state.steps} steps · rc = {s.state.cutoff}σ · {s.state.scheme} · seed {s.state.seed}
+                    {s.state.atoms} atoms · {s.state.steps} steps · r_c = {s.state.cutoff} σ · {CUTOFF_SCHEME_LABELS[s.state.scheme]?.toLowerCase() ?? s.state.scheme} · seed {s.state.seed}
                     {s.origin && <> · from row {s.origin.fileRow} of set {s.origin.datasetId} (ε/k_B = {s.origin.epsilonK} K, σ = {s.origin.sigmaAngstrom} Å)</>}
                   </div>
                   {(s.status === 'running' || s.status === 'queued') && <div className="mt-2"><ProgressBar fraction={s.progress} label={s.status === 'queued' ? 'Waiting for a free worker' : s.stage ?? 'Running'} /></div>}

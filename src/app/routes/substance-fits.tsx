@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { formatDate } from '@shared/format/dates';
 import { Link, useNavigate, useParams } from 'react-router-dom';
 import { formatWithUncertainty, formatSignificant } from '@shared/format/numbers';
 import { KindBadge } from '@/components/ui/badge';
@@ -48,7 +49,7 @@ export function SubstanceFitsRoute() {
                     <td className="num text-right">{f.epsilonK == null ? '—' : formatWithUncertainty(f.epsilonK, f.stdErr?.epsilonK)}</td>
                     <td className="num text-right">{f.sigmaAngstrom == null ? '—' : formatWithUncertainty(f.sigmaAngstrom, f.stdErr?.sigmaAngstrom)}</td>
                     <td className="num text-right">{f.reducedChi2 == null ? '—' : formatSignificant(f.reducedChi2, 3)}</td>
-                    <td className="text-ink-soft">{f.createdByName}, {new Date(f.createdAt).toLocaleDateString()}</td>
+                    <td className="text-ink-soft">{f.createdByName}, {formatDate(f.createdAt)}</td>
                   </tr>
                 ))}
               </tbody>

@@ -4,7 +4,7 @@ import { formatWithUncertainty } from '@shared/format/numbers';
 import { NAV_ITEMS } from '@/config/navigation';
 import { KindBadge } from '@/components/ui/badge';
 import { ErrorState, LoadingState, PageHeader, Panel } from '@/components/ui/states';
-import { useMe } from '@/features/auth/api/me';
+import { useSignedIn } from '@/lib/signed-in';
 import { useReviewQueue } from '@/features/parameter-sets/api/parameter-sets';
 import { useSimulations } from '@/features/simulations/api/simulations';
 import { useSubstances } from '@/features/substances/api/substances';
@@ -55,7 +55,7 @@ function ModellerWork() {
 
 /** The landing page after sign-in: who you are here, what waits for you, and where your work is. */
 export function WorkbenchRoute() {
-  const me = useMe().data!;
+  const me = useSignedIn();
   const destinations = NAV_ITEMS.filter((i) => i.to !== '/' && (!i.policy || hasPolicy(me.roles, i.policy)));
   return (
     <>

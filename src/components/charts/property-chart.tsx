@@ -6,6 +6,8 @@ export interface SeriesPoint {
   x: number;
   y: number;
   u?: number;
+  /** Drawn as an open marker: a point left out of the fit. */
+  hollow?: boolean;
 }
 
 export interface ChartSeries {
@@ -32,6 +34,8 @@ function toDataset(s: ChartSeries, indexOfKind: number) {
   const base = STYLE[s.kind];
   const style = { ...base, pointStyle: s.kind === 'model' ? base.pointStyle : SHAPES[indexOfKind % SHAPES.length] };
   const line = s.kind === 'model';
+  const fill = line ? style.color : `${style.color}cc`;
+  const anyHollow = s.points.some((p) => p.hollow);
   return {
     label: s.label,
     data: s.points.map((p) => ({ x: p.x, y: p.y })),
@@ -39,7 +43,9 @@ function toDataset(s: ChartSeries, indexOfKind: number) {
     errorBarColor: style.color,
     showLine: line,
     borderColor: style.color,
-    backgroundColor: line ? style.color : `${style.color}cc`,
+    backgroundColor: fill,
+    pointBackgroundColor: anyHollow ? s.points.map((p) => (p.hollow ? '#fffdf8' : fill)) : undefined,
+    pointBorderWidth: anyHollow ? s.points.map((p) => (p.hollow ? 1.5 : 1)) : undefined,
     borderWidth: line ? 2 : 1,
     borderDash: line && indexOfKind > 0 ? [6, 3 + indexOfKind] : undefined,
     pointRadius: style.radius,
@@ -61,6 +67,8 @@ export interface PropertyChartProps {
 
 /** Measured points with error bars, model curves and optional residual panel; axis titles carry units. */
 export function PropertyChart({ series, xTitle, yTitle, residuals, height = 320, ariaLabel }: PropertyChartProps) {
+  const axisTitle = { weight: 600 as const, size: 12 };
+  const residualTitle = { weight: 600 as const, size: 11 };
   const xs = [...series, ...(residuals?.series ?? [])].flatMap((s) => s.points.map((p) => p.x));
   const xMin = xs.length ? Math.min(...xs) : 0;
   const xMax = xs.length ? Math.max(...xs) : 1;
@@ -73,8 +81,8 @@ export function PropertyChart({ series, xTitle, yTitle, residuals, height = 320,
     animation: false,
     plugins: { legend: { position: 'top', align: 'end', labels: { usePointStyle: true, boxWidth: 7, boxHeight: 7, font: { size: 12 } } }, tooltip: { mode: 'nearest', intersect: true } },
     scales: {
-      x: { ...xScale, title: { display: !residuals, text: xTitle, font: { weight: 600 } } },
-      y: { title: { display: true, text: yTitle, font: { weight: 600 } }, grid: { color: 'rgba(219,208,187,0.5)' } },
+      x: { ...xScale, title: { display: !residuals, text: xTitle, font: axisTitle } },
+      y: { title: { display: true, text: yTitle, font: axisTitle }, grid: { color: 'rgba(219,208,187,0.5)' }, afterFit: (axis) => void (axis.width = Math.max(axis.width, 64)) },
     },
   };
   const residualOptions: ChartOptions<'scatter'> = {
@@ -83,8 +91,9 @@ export function PropertyChart({ series, xTitle, yTitle, residuals, height = 320,
     animation: false,
     plugins: { legend: { display: false } },
     scales: {
-      x: { ...xScale, title: { display: true, text: xTitle, font: { weight: 600 } } },
-      y: { title: { display: true, text: residuals?.title ?? '', font: { weight: 600 } }, grid: { color: (c) => (c.tick.value === 0 ? CHART_COLORS.inkFaint : 'rgba(219,208,187,0.5)') } },
+      x: { ...xScale, title: { display: true, text: xTitle, font: axisTitle } },
+      // The same y-axis width as the main panel, so the two x-axes line up.
+      y: { title: { display: true, text: residuals?.title ?? '', font: residualTitle }, ticks: { maxTicksLimit: 5 }, grid: { color: (c) => (c.tick.value === 0 ? CHART_COLORS.inkFaint : 'rgba(219,208,187,0.5)') }, afterFit: (axis) => void (axis.width = Math.max(axis.width, 64)) },
     },
   };
   return (
@@ -93,7 +102,7 @@ export function PropertyChart({ series, xTitle, yTitle, residuals, height = 320,
         <Scatter data={{ datasets: toDatasets(series) }} options={options} />
       </div>
       {residuals && (
-        <div style={{ height: Math.round(height * 0.38) }} className="mt-1" role="img" aria-label={`Residuals: ${residuals.title}`}>
+        <div style={{ height: Math.max(160, Math.round(height * 0.5)) }} className="mt-1" role="img" aria-label={`Residuals: ${residuals.title}`}>
           <Scatter data={{ datasets: toDatasets(residuals.series) }} options={residualOptions} />
         </div>
       )}

@@ -36,7 +36,7 @@ export function DataTable<T>({ data, columns, initialSorting = [], caption, rowK
                 const numeric = (header.column.columnDef.meta as { numeric?: boolean } | undefined)?.numeric;
                 const sorted = header.column.getIsSorted();
                 return (
-                  <th key={header.id} className={`px-2 py-2 font-semibold ${numeric ? 'text-right' : ''}`} aria-sort={sorted ? (sorted === 'asc' ? 'ascending' : 'descending') : undefined}>
+                  <th key={header.id} className={`whitespace-nowrap px-3 py-2 font-semibold ${numeric ? 'text-right' : ''}`} aria-sort={sorted ? (sorted === 'asc' ? 'ascending' : 'descending') : undefined}>
                     {header.isPlaceholder ? null : header.column.getCanSort() ? (
                       <button type="button" onClick={header.column.getToggleSortingHandler()} className="inline-flex items-center gap-1 tracking-wide hover:text-ink">
                         {flexRender(header.column.columnDef.header, header.getContext())}
@@ -57,7 +57,7 @@ export function DataTable<T>({ data, columns, initialSorting = [], caption, rowK
               {row.getVisibleCells().map((cell) => {
                 const numeric = (cell.column.columnDef.meta as { numeric?: boolean } | undefined)?.numeric;
                 return (
-                  <td key={cell.id} className={`px-2 py-1.5 ${numeric ? 'num text-right' : ''}`}>
+                  <td key={cell.id} className={`px-3 py-1.5 ${numeric ? 'num text-right' : ''}`}>
                     {flexRender(cell.column.columnDef.cell, cell.getContext())}
                   </td>
                 );

@@ -1,4 +1,5 @@
 import { Link } from 'react-router-dom';
+import { formatDateTime } from '@shared/format/dates';
 import { createColumnHelper } from '@tanstack/react-table';
 import { Badge } from '@/components/ui/badge';
 import { DataTable } from '@/components/ui/data-table';
@@ -43,7 +44,7 @@ function Changes({ event }: { event: AuditEvent }) {
 
 const columns = [
   col.accessor('id', { header: '#', meta: { numeric: true } }),
-  col.accessor('at', { header: 'When', cell: (c) => <span className="num whitespace-nowrap">{new Date(c.getValue()).toLocaleString()}</span> }),
+  col.accessor('at', { header: 'When', cell: (c) => <span className="num whitespace-nowrap">{formatDateTime(c.getValue())}</span> }),
   col.accessor('actorEmail', { header: 'Actor', cell: (c) => c.getValue() ?? <span className="text-ink-faint">system</span> }),
   col.accessor('action', { header: 'Action', cell: (c) => <Badge>{c.getValue()}</Badge> }),
   col.accessor((e) => `${e.targetType}${e.targetId ? ` ${e.targetId}` : ''}`, { id: 'target', header: 'Target', cell: (c) => <Target event={c.row.original} /> }),

@@ -14,13 +14,21 @@ export const useSignIn = () => {
   });
 };
 
+/**
+ * Signs out. The pages' queries are stopped first, so nothing asks the server after the session is gone; then
+ * "nobody" is recorded as the user (the protected route leaves for the sign-in page) and the rest of the cache
+ * is dropped once the pages have unmounted.
+ */
 export const useSignOut = () => {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: () => api<void>('/auth/logout', { method: 'POST' }),
+    mutationFn: async () => {
+      await qc.cancelQueries({ predicate: (q) => q.queryKey[0] !== authKeys.all[0] });
+      return api<void>('/auth/logout', { method: 'POST' });
+    },
     onSuccess: () => {
-      qc.clear();
       qc.setQueryData(authKeys.me(), null);
+      setTimeout(() => qc.removeQueries({ predicate: (q) => q.queryKey[0] !== authKeys.all[0] }), 0);
     },
   });
 };

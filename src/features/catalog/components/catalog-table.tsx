@@ -1,4 +1,5 @@
 import { Link } from 'react-router-dom';
+import { formatDate } from '@shared/format/dates';
 import { createColumnHelper } from '@tanstack/react-table';
 import type { EnergyUnit, LengthUnit } from '@shared/physics/parameter-units';
 import { convertEpsilon, convertSigma } from '@shared/physics/parameter-units';
@@ -27,7 +28,7 @@ export function CatalogTable({ sets, energy, length }: { sets: CatalogEntry[]; e
     col.accessor((s) => convertSigma(s.sigmaAngstrom, length), { id: 'sigma', header: () => <span className="normal-case">{sigmaHeader(length)}</span>, meta: { numeric: true }, cell: (c) => sigmaText(c.row.original.sigmaAngstrom, c.row.original.stdErr.sigmaAngstrom, length) }),
     col.accessor((s) => s.validity.temperatureMinK, { id: 'validity', header: 'Valid for', meta: { numeric: true }, cell: (c) => temperatureRangeText(c.row.original.validity) }),
     col.accessor('kinds', { header: 'Data', enableSorting: false, cell: (c) => <span className="flex gap-1">{c.getValue().map((k) => <KindBadge key={k} kind={k} />)}</span> }),
-    col.accessor('approvedAt', { header: 'Approved', cell: (c) => (c.getValue() ? <time dateTime={c.getValue()!}>{new Date(c.getValue()!).toLocaleDateString()}</time> : '—') }),
+    col.accessor('approvedAt', { header: 'Approved', cell: (c) => (c.getValue() ? <time dateTime={c.getValue()!}>{formatDate(c.getValue()!)}</time> : '—') }),
     col.accessor('olderVersions', { header: 'Older', meta: { numeric: true }, cell: (c) => (c.getValue() ? c.getValue() : '—') }),
   ];
   return <DataTable data={sets} columns={columns} caption="Approved parameter sets" rowKey={(s) => s.id} initialSorting={[{ id: 'substanceName', desc: false }]} />;

@@ -1,4 +1,5 @@
 import { Link } from 'react-router-dom';
+import { formatDate } from '@shared/format/dates';
 import { convertEpsilon, convertSigma, type EnergyUnit, type LengthUnit } from '@shared/physics/parameter-units';
 import { Badge } from '@/components/ui/badge';
 import type { ParameterCard } from '../api/catalog';
@@ -32,7 +33,7 @@ export function VersionHistory({ card, energy, length }: { card: ParameterCard; 
               <td className="num text-right">{sigmaText(v.sigmaAngstrom, v.stdErr.sigmaAngstrom, length)}</td>
               <td className="num text-right">{v.change ? signedText(convertSigma(v.change.sigmaAngstrom, length), length) : '—'}</td>
               <td className="num pl-4">{temperatureRangeText(v.validity)}</td>
-              <td>{v.approvedAt ? `${new Date(v.approvedAt).toLocaleDateString()}${v.approvedByName ? `, ${v.approvedByName}` : ''}` : '—'}</td>
+              <td>{v.approvedAt ? `${formatDate(v.approvedAt)}${v.approvedByName ? `, ${v.approvedByName}` : ''}` : '—'}</td>
             </tr>
           ))}
         </tbody>

@@ -1,8 +1,11 @@
 import { Link } from 'react-router-dom';
 import type { LjFitResult, LjResidual } from '@shared/fitting/lj-fit';
+import { PROPERTY_MODELS } from '@shared/fitting/property-models';
 import { formatSignificant, formatWithUncertainty } from '@shared/format/numbers';
+import { CUTOFF_SCHEME_LABELS, type CutoffScheme } from '@shared/schemas/parameter-sets';
 import { PropertyChart, type ChartSeries } from '@/components/charts/property-chart';
 import { Badge } from '@/components/ui/badge';
+import { isLeftOut, RESIDUAL_AXIS_TITLE, type CurveParameters } from './fit-curves';
 
 type DensityResidual = LjResidual & { modelUncertainty?: number; simulationId?: number | null; included?: boolean };
 
@@ -17,25 +20,80 @@ export interface DensityFitResult extends LjFitResult {
   mdRuns?: Array<{ id: number; reused: boolean; temperatureK: number; pressureMPa: number; reducedTemperature: number; reducedPressure: number; reducedDensity: number; stdErr: number; phase: string; iteration: number }>;
 }
 
-/** Measured densities against simulated ones, one isotherm per marker shape, with both error bars. */
-export function DensityCharts({ result }: { result: DensityFitResult }) {
+/** A cutoff scheme in words ("truncated with tail corrections"), whatever spelling the result carries. */
+export const schemeWords = (scheme: string) => (CUTOFF_SCHEME_LABELS[scheme as CutoffScheme] ?? scheme.replace(/-/g, ' ')).toLowerCase();
+
+const round = (x: number, digits: number) => Number(x.toFixed(digits));
+const percent = (r: LjResidual) => r.relativeDeviationPercent ?? (r.measured !== 0 ? (100 * (r.predicted - r.measured)) / r.measured : NaN);
+
+/**
+ * The equation-of-state density along one isobar on a temperature grid; a jump between neighbouring grid
+ * points (a phase change of the model) is left as a gap rather than drawn as a line.
+ */
+function eosIsobar(pressureMPa: number, temperaturesK: number[], p: CurveParameters, context: { molarMassGPerMol?: number; quantumCorrection: boolean }, steps = 60) {
+  if (context.molarMassGPerMol === undefined) return [];
+  const lo = Math.min(...temperaturesK);
+  const hi = Math.max(...temperaturesK);
+  const span = hi - lo || lo * 0.2;
+  const from = Math.max(lo - span * 0.1, 1);
+  const to = hi + span * 0.1;
+  const out: Array<{ x: number; y: number }> = [];
+  let last: number | null = null;
+  for (let i = 0; i <= steps; i++) {
+    const t = from + ((to - from) * i) / steps;
+    try {
+      const y = PROPERTY_MODELS.density.evaluate({ temperatureK: t, pressureMPa }, p.epsilonK, p.sigmaAngstrom, context).value;
+      if (!Number.isFinite(y)) throw new Error('no density');
+      if (last !== null && Math.abs(y - last) > 0.25 * Math.max(Math.abs(y), Math.abs(last))) out.push({ x: t, y: NaN });
+      out.push({ x: t, y });
+      last = y;
+    } catch {
+      if (last !== null) out.push({ x: t, y: NaN });
+      last = null;
+    }
+  }
+  return out;
+}
+
+/**
+ * Densities two ways: ρ against P per isotherm with the predicted values (the fit's simulations, or the
+ * equation of state in "What if?") and their deviation in %; and ρ against T per isobar with the
+ * equation-of-state curve at the given parameters, residuals (model − meas.)/u underneath. Left-out points are hollow.
+ */
+export function DensityCharts({ result, context, curves, predictions, predictedLabel = 'simulated', residualsLabel = 'of the fit (simulations)', height = 300 }: { result: LjFitResult; context: { molarMassGPerMol?: number; quantumCorrection: boolean }; curves: CurveParameters[]; predictions?: LjResidual[]; predictedLabel?: string; residualsLabel?: string; height?: number }) {
   const rows = result.residuals.filter((r) => r.kind === 'density') as DensityResidual[];
   if (!rows.length) return null;
-  const isotherms = [...new Set(rows.map((r) => Number(r.temperatureK.toFixed(2))))].sort((a, b) => a - b);
-  const byT = (t: number) => rows.filter((r) => Number(r.temperatureK.toFixed(2)) === t).sort((a, b) => (a.pressureMPa ?? 0) - (b.pressureMPa ?? 0));
-  const series: ChartSeries[] = [
-    ...isotherms.map((t) => ({ label: `measured, ${t} K`, kind: 'measured' as const, points: byT(t).map((r) => ({ x: r.pressureMPa ?? 0, y: r.measured, u: r.uncertainty })) })),
-    ...isotherms.map((t) => ({ label: `simulated, ${t} K`, kind: 'simulated' as const, points: byT(t).map((r) => ({ x: r.pressureMPa ?? 0, y: r.predicted, u: r.modelUncertainty })) })),
+  const predicted = ((predictions ?? result.residuals).filter((r) => r.kind === 'density') as DensityResidual[]).map((r, i) => ({ ...rows[i], ...r }));
+  const isotherms = [...new Set(rows.map((r) => round(r.temperatureK, 2)))].sort((a, b) => a - b);
+  const isobars = [...new Set(rows.map((r) => round(r.pressureMPa ?? 0, 3)))].sort((a, b) => a - b);
+  const atT = <T extends DensityResidual>(list: T[], t: number) => list.filter((r) => round(r.temperatureK, 2) === t).sort((a, b) => (a.pressureMPa ?? 0) - (b.pressureMPa ?? 0));
+  const atP = <T extends DensityResidual>(list: T[], p: number) => list.filter((r) => round(r.pressureMPa ?? 0, 3) === p).sort((a, b) => a.temperatureK - b.temperatureK);
+  const byPressure: ChartSeries[] = [
+    ...isotherms.map((t) => ({ label: `measured, ${t} K`, kind: 'measured' as const, points: atT(rows, t).map((r) => ({ x: r.pressureMPa ?? 0, y: r.measured, u: r.uncertainty, hollow: isLeftOut(r) })) })),
+    ...isotherms.map((t) => ({ label: `${predictedLabel}, ${t} K`, kind: 'simulated' as const, points: atT(predicted, t).map((r) => ({ x: r.pressureMPa ?? 0, y: r.predicted, u: r.modelUncertainty, hollow: isLeftOut(r) })) })),
   ];
-  const residualSeries: ChartSeries[] = [
-    { label: 'measurement u', kind: 'measured', points: rows.map((r) => ({ x: r.pressureMPa ?? 0, y: 0, u: r.uncertainty })) },
-    { label: 'simulated − measured', kind: 'simulated', points: rows.map((r) => ({ x: r.pressureMPa ?? 0, y: r.predicted - r.measured, u: r.modelUncertainty })) },
+  const percentSeries: ChartSeries[] = isotherms.map((t) => ({ label: `${t} K`, kind: 'simulated' as const, points: atT(predicted, t).map((r) => ({ x: r.pressureMPa ?? 0, y: percent(r), hollow: isLeftOut(r) })) }));
+  const temps = rows.map((r) => r.temperatureK);
+  const byTemperature: ChartSeries[] = [
+    ...isobars.map((p) => ({ label: `measured, ${p} MPa`, kind: 'measured' as const, points: atP(rows, p).map((r) => ({ x: r.temperatureK, y: r.measured, u: r.uncertainty, hollow: isLeftOut(r) })) })),
+    ...curves.flatMap((c) => isobars.map((p) => ({ label: `equation of state${curves.length > 1 || c.label !== 'fit' ? ` (${c.label})` : ''}, ${p} MPa`, kind: 'model' as const, points: eosIsobar(p, temps, c, context) }))),
   ];
+  const residualSeries: ChartSeries[] = isobars.map((p) => ({ label: `${p} MPa`, kind: 'measured' as const, points: atP(predicted, p).map((r) => ({ x: r.temperatureK, y: r.residual, hollow: isLeftOut(r) })) }));
+  const leftOut = rows.some(isLeftOut);
   return (
-    <div>
-      <h3 className="mb-1 font-semibold">Fluid density</h3>
-      <PropertyChart ariaLabel="density data and simulations" series={series} xTitle="P (MPa)" yTitle="ρ (kg/m³)" residuals={{ title: 'ρ_sim − ρ_meas (kg/m³)', series: residualSeries }} height={320} />
-      {rows.some((r) => r.included === false) && <p className="mt-1 text-xs text-changes">Points left out of the final round are listed in the warnings above.</p>}
+    <div className="grid gap-6 xl:grid-cols-2">
+      <div className="min-w-0">
+        <h3 className="mb-1 font-semibold">Fluid density against pressure, per isotherm</h3>
+        <PropertyChart ariaLabel="density against pressure" series={byPressure} xTitle="P (MPa)" yTitle="ρ (kg/m³)" residuals={{ title: 'deviation (%)', series: percentSeries }} height={height} />
+        <p className="mt-1 text-xs text-ink-faint">Lower panel: 100·({predictedLabel} − measured)/measured in %.{leftOut ? ' Open markers are points left out of the fit.' : ''}</p>
+      </div>
+      <div className="min-w-0">
+        <h3 className="mb-1 font-semibold">Fluid density against temperature, per isobar</h3>
+        <PropertyChart ariaLabel="density against temperature" series={byTemperature} xTitle="T (K)" yTitle="ρ (kg/m³)" residuals={{ title: RESIDUAL_AXIS_TITLE, series: residualSeries }} height={height} />
+        <p className="mt-1 text-xs text-ink-faint">
+          Curves: the LJ equation of state (Johnson, Zollweg & Gubbins 1993) at {curves.map((c) => `${c.label} ε/k_B = ${formatSignificant(c.epsilonK, 5)} K, σ = ${formatSignificant(c.sigmaAngstrom, 5)} Å`).join('; ')}. Lower panel: residuals {residualsLabel}, (model − measured)/u.
+        </p>
+      </div>
     </div>
   );
 }
@@ -47,52 +105,56 @@ export function SimulationStage({ result }: { result: DensityFitResult }) {
   const md = result.mdSettings;
   return (
     <div className="grid gap-5">
-      <table className="w-full max-w-2xl text-sm">
-        <thead className="border-b border-rule text-xs tracking-wide text-ink-faint">
-          <tr><th className="py-1.5 text-left">Stage</th><th className="text-right">ε/k_B (K)</th><th className="text-right">σ (Å)</th><th className="text-right">χ²ν</th></tr>
-        </thead>
-        <tbody>
-          <tr className="border-b border-rule/60"><td className="py-1.5">Equation of state (Johnson, Zollweg & Gubbins 1993)</td><td className="num text-right">{formatWithUncertainty(eos.epsilonK, eos.stdErr.epsilonK)}</td><td className="num text-right">{formatWithUncertainty(eos.sigmaAngstrom, eos.stdErr.sigmaAngstrom)}</td><td className="num text-right">{eos.reducedChi2 == null ? '—' : formatSignificant(eos.reducedChi2, 3)}</td></tr>
-          <tr><td className="py-1.5">Molecular dynamics (NPT){md ? `, ${md.atoms} atoms, ${md.steps} steps, rc = ${md.cutoff}σ, ${md.scheme}` : ''}</td><td className="num text-right text-teal">{formatWithUncertainty(result.epsilonK, result.stdErr.epsilonK)}</td><td className="num text-right text-teal">{formatWithUncertainty(result.sigmaAngstrom, result.stdErr.sigmaAngstrom)}</td><td className="num text-right">{result.reducedChi2 == null ? '—' : formatSignificant(result.reducedChi2, 3)}</td></tr>
-        </tbody>
-      </table>
+      <div className="overflow-x-auto">
+        <table className="w-full max-w-3xl text-sm" aria-label="Stages of the fit">
+          <thead className="border-b border-rule text-xs tracking-wide text-ink-faint">
+            <tr><th className="py-1.5 pr-4 text-left">Stage</th><th className="px-3 text-right">ε/k_B (K)</th><th className="px-3 text-right">σ (Å)</th><th className="pl-3 text-right">χ²ν</th></tr>
+          </thead>
+          <tbody>
+            <tr className="border-b border-rule/60"><td className="py-1.5 pr-4">Equation of state (Johnson, Zollweg & Gubbins 1993), the starting point</td><td className="num whitespace-nowrap px-3 text-right">{formatWithUncertainty(eos.epsilonK, eos.stdErr.epsilonK)}</td><td className="num whitespace-nowrap px-3 text-right">{formatWithUncertainty(eos.sigmaAngstrom, eos.stdErr.sigmaAngstrom)}</td><td className="num pl-3 text-right">{eos.reducedChi2 == null ? '—' : formatSignificant(eos.reducedChi2, 3)}</td></tr>
+            <tr><td className="py-1.5 pr-4">Molecular dynamics (NPT){md ? `, ${md.atoms} atoms, ${md.steps} steps, r_c = ${md.cutoff} σ, ${schemeWords(md.scheme)}` : ''} — the result</td><td className="num whitespace-nowrap px-3 text-right text-teal">{formatWithUncertainty(result.epsilonK, result.stdErr.epsilonK)}</td><td className="num whitespace-nowrap px-3 text-right text-teal">{formatWithUncertainty(result.sigmaAngstrom, result.stdErr.sigmaAngstrom)}</td><td className="num pl-3 text-right">{result.reducedChi2 == null ? '—' : formatSignificant(result.reducedChi2, 3)}</td></tr>
+          </tbody>
+        </table>
+      </div>
       <p className="text-sm text-ink-soft">
         {result.stoppingRule}. {result.schemeNote} The simulation standard errors are added to the measurement uncertainties, so the parameter uncertainties include the simulation noise. {result.mdRunCount} runs, {result.mdRunsReused} of them reused from earlier fits or rounds.
       </p>
       {result.mdIterations && (
-        <table className="w-full max-w-2xl text-sm" aria-label="Simulation rounds">
-          <thead className="border-b border-rule text-xs tracking-wide text-ink-faint">
-            <tr><th className="py-1.5 text-left">Round</th><th className="text-right">ε/k_B (K)</th><th className="text-right">σ (Å)</th><th className="text-right">χ²</th><th className="text-right">Runs (reused)</th><th className="text-right">Step</th></tr>
-          </thead>
-          <tbody>
-            {result.mdIterations.map((it) => (
-              <tr key={it.iteration} className="border-b border-rule/60">
-                <td className="py-1">{it.iteration}</td>
-                <td className="num text-right">{it.epsilonK.toFixed(3)}</td>
-                <td className="num text-right">{it.sigmaAngstrom.toFixed(5)}</td>
-                <td className="num text-right">{formatSignificant(it.chi2, 5)}</td>
-                <td className="num text-right">{it.runs} ({it.reusedRuns})</td>
-                <td className="text-right">{it.accepted ? 'kept' : 'rejected'}</td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
+        <div className="overflow-x-auto">
+          <table className="w-full max-w-3xl text-sm" aria-label="Simulation rounds">
+            <thead className="border-b border-rule text-xs tracking-wide text-ink-faint">
+              <tr><th className="py-1.5 pr-3 text-left">Round</th><th className="px-3 text-right">ε/k_B (K)</th><th className="px-3 text-right">σ (Å)</th><th className="px-3 text-right">χ²</th><th className="px-3 text-right">Runs (reused)</th><th className="pl-3 text-right">Step</th></tr>
+            </thead>
+            <tbody>
+              {result.mdIterations.map((it) => (
+                <tr key={it.iteration} className="border-b border-rule/60">
+                  <td className="py-1 pr-3">{it.iteration}</td>
+                  <td className="num px-3 text-right">{it.epsilonK.toFixed(3)}</td>
+                  <td className="num px-3 text-right">{it.sigmaAngstrom.toFixed(5)}</td>
+                  <td className="num px-3 text-right">{formatSignificant(it.chi2, 5)}</td>
+                  <td className="num px-3 text-right">{it.runs} ({it.reusedRuns})</td>
+                  <td className="pl-3 text-right">{it.accepted ? 'kept' : 'rejected'}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
       )}
       <div className="max-h-96 overflow-auto">
         <table className="w-full text-sm" aria-label="Simulations behind the fit">
           <thead className="sticky top-0 border-b border-rule bg-paper-raised text-xs tracking-wide text-ink-faint">
-            <tr><th className="py-1.5 text-left">Run</th><th className="text-right">Round</th><th className="text-right">T (K)</th><th className="text-right">P (MPa)</th><th className="text-right">T*</th><th className="text-right">P*</th><th className="text-right">ρ*</th><th className="text-left pl-3">Phase</th></tr>
+            <tr><th className="py-1.5 pr-3 text-left">Run</th><th className="px-3 text-right">Round</th><th className="px-3 text-right">T (K)</th><th className="px-3 text-right">P (MPa)</th><th className="px-3 text-right">T*</th><th className="px-3 text-right">P*</th><th className="px-3 text-right">ρ*</th><th className="pl-3 text-left">Phase</th></tr>
           </thead>
           <tbody>
             {result.mdRuns.map((r, i) => (
               <tr key={`${r.id}-${i}`} className="border-b border-rule/50">
-                <td className="py-1"><Link className="text-copper underline" to={`/simulations/${r.id}`}>Simulation {r.id}</Link>{r.reused && <span className="ml-2 text-xs text-ink-faint">reused</span>}</td>
-                <td className="num text-right">{r.iteration}</td>
-                <td className="num text-right">{r.temperatureK.toFixed(2)}</td>
-                <td className="num text-right">{r.pressureMPa.toFixed(3)}</td>
-                <td className="num text-right">{r.reducedTemperature.toFixed(4)}</td>
-                <td className="num text-right">{r.reducedPressure.toFixed(4)}</td>
-                <td className="num text-right text-teal">{formatWithUncertainty(r.reducedDensity, r.stdErr)}</td>
+                <td className="whitespace-nowrap py-1 pr-3"><Link className="text-copper underline" to={`/simulations/${r.id}`}>Simulation {r.id}</Link>{r.reused && <span className="ml-2 text-xs text-ink-faint">reused</span>}</td>
+                <td className="num px-3 text-right">{r.iteration}</td>
+                <td className="num px-3 text-right">{r.temperatureK.toFixed(2)}</td>
+                <td className="num px-3 text-right">{r.pressureMPa.toFixed(3)}</td>
+                <td className="num px-3 text-right">{r.reducedTemperature.toFixed(4)}</td>
+                <td className="num px-3 text-right">{r.reducedPressure.toFixed(4)}</td>
+                <td className="num whitespace-nowrap px-3 text-right text-teal">{formatWithUncertainty(r.reducedDensity, r.stdErr)}</td>
                 <td className="pl-3">{r.phase === 'fluid' ? <Badge tone="teal">fluid</Badge> : <Badge tone="changes">{r.phase}</Badge>}</td>
               </tr>
             ))}

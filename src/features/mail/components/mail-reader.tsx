@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { formatDateTime } from '@shared/format/dates';
 import type { MailboxMessage } from '../api/mailbox';
 
 /** A plain frame style so the HTML part reads like the rest of the page; the message's own styles still apply after it. */
@@ -18,7 +19,7 @@ export function MailReader({ message }: { message: MailboxMessage }) {
           <dt className="text-ink-faint">To</dt>
           <dd>{message.to.join(', ')}</dd>
           <dt className="text-ink-faint">Received</dt>
-          <dd className="num">{new Date(message.receivedAt).toLocaleString()}</dd>
+          <dd className="num">{formatDateTime(message.receivedAt)}</dd>
         </dl>
         {message.html !== null && (
           <div role="group" aria-label="Part shown" className="mt-3 inline-flex rounded-md border border-rule text-sm">

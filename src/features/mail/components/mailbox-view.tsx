@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { formatDateTime } from '@shared/format/dates';
 import { Field, Input } from '@/components/ui/field';
 import { EmptyState, ErrorState, LoadingState, Panel } from '@/components/ui/states';
 import { isApiError } from '@/lib/api-client';
@@ -48,7 +49,7 @@ export function MailboxView() {
                 >
                   <div className="flex items-baseline justify-between gap-3">
                     <span className="truncate font-semibold">{m.subject || '(no subject)'}</span>
-                    <span className="num shrink-0 text-xs text-ink-faint">{new Date(m.receivedAt).toLocaleString()}</span>
+                    <span className="num shrink-0 text-xs text-ink-faint">{formatDateTime(m.receivedAt)}</span>
                   </div>
                   <div className="truncate text-sm text-ink-soft">To {m.to.join(', ')}</div>
                 </button>

@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { formatDateTime, formatTime } from '@shared/format/dates';
 import { createColumnHelper } from '@tanstack/react-table';
 import { Badge, type BadgeTone } from '@/components/ui/badge';
 import { DataTable } from '@/components/ui/data-table';
@@ -10,7 +11,7 @@ const STATUS_TONE: Record<OutboxStatus, BadgeTone> = { queued: 'review', sent: '
 
 const col = createColumnHelper<OutboxMessage>();
 const columns = [
-  col.accessor('createdAt', { header: 'Queued', cell: (c) => <span className="num whitespace-nowrap">{new Date(c.getValue()).toLocaleString()}</span> }),
+  col.accessor('createdAt', { header: 'Queued', cell: (c) => <span className="num whitespace-nowrap">{formatDateTime(c.getValue())}</span> }),
   col.accessor('subject', { header: 'Subject' }),
   col.accessor((m) => m.to.join(', '), { id: 'to', header: 'To', cell: (c) => <span className="text-ink-soft">{c.getValue()}</span> }),
   col.accessor('status', { header: 'Status', cell: (c) => <Badge tone={STATUS_TONE[c.getValue()]}>{c.getValue()}</Badge> }),
@@ -23,7 +24,7 @@ const columns = [
       return (
         <span className="text-xs text-ink-soft">
           {m.lastError ?? '—'}
-          {m.nextAttemptAt && m.attempts > 0 && <span className="num block">next try {new Date(m.nextAttemptAt).toLocaleTimeString()}</span>}
+          {m.nextAttemptAt && m.attempts > 0 && <span className="num block">next try {formatTime(m.nextAttemptAt)}</span>}
         </span>
       );
     },

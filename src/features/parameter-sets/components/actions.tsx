@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { STATE_LABELS } from '@shared/parameter-sets/transitions';
 import { Button } from '@/components/ui/button';
-import { Field, Input, TextArea } from '@/components/ui/field';
+import { Field, Input, Select, TextArea } from '@/components/ui/field';
 import {
   useEditParameterSet,
   useRetireParameterSet,
@@ -14,8 +14,15 @@ import {
 import { FormError } from './form-error';
 import { toValidity, validityInputOf, ValidityFields } from './validity-fields';
 
+/** A fit a revision may start from (the substance's succeeded fits, offered by the page). */
+export interface FitChoice {
+  id: number;
+  number: number;
+  label: string;
+}
+
 /** The moves the server allows this viewer now (from the shared state machine); nothing else is offered. */
-export function ParameterSetActions({ set, onRevised }: { set: ParameterSetDetail; onRevised: (s: ParameterSetSummary) => void }) {
+export function ParameterSetActions({ set, onRevised, fitChoices }: { set: ParameterSetDetail; onRevised: (s: ParameterSetSummary) => void; fitChoices?: FitChoice[] }) {
   const moves = new Set(set.allowedMoves);
   if (moves.size === 0) {
     return <p className="text-sm text-ink-soft">Nothing for you to do on this set now ({STATE_LABELS[set.state]}).</p>;
@@ -25,7 +32,7 @@ export function ParameterSetActions({ set, onRevised }: { set: ParameterSetDetai
       {moves.has('submit') && <SubmitAction set={set} />}
       {(moves.has('approve') || moves.has('request_changes')) && <ReviewDecision set={set} />}
       {moves.has('edit') && <EditDraft set={set} />}
-      {moves.has('revise') && <ReviseForm set={set} onRevised={onRevised} />}
+      {moves.has('revise') && <ReviseForm set={set} onRevised={onRevised} fitChoices={fitChoices} />}
       {moves.has('retire') && <RetireForm set={set} />}
     </div>
   );
@@ -97,7 +104,9 @@ function EditDraft({ set }: { set: ParameterSetDetail }) {
   );
 }
 
-function ReviseForm({ set, onRevised }: { set: ParameterSetDetail; onRevised: (s: ParameterSetSummary) => void }) {
+function ReviseForm({ set, onRevised, fitChoices }: { set: ParameterSetDetail; onRevised: (s: ParameterSetSummary) => void; fitChoices?: FitChoice[] }) {
+  // The set's own fit first, then the newer succeeded fits of the substance (the server refuses older ones).
+  const choices = [{ id: set.fitId, number: set.fitNumber, label: `Fit #${set.fitNumber} — this set's fit` }, ...(fitChoices ?? []).filter((f) => f.id !== set.fitId && f.number > set.fitNumber)];
   const revise = useReviseParameterSet(set.id);
   const [fitId, setFitId] = useState(String(set.fitId));
   const [cutoff, setCutoff] = useState(set.cutoffSigma === null ? '' : String(set.cutoffSigma));
@@ -118,8 +127,10 @@ function ReviseForm({ set, onRevised }: { set: ParameterSetDetail; onRevised: (s
     >
       <p className="text-sm text-ink-soft">A revision is a new draft (the next version) linked to this one; this set stays as the record of its review.</p>
       <div className="grid gap-3 sm:grid-cols-2">
-        <Field label="From fit (id)" htmlFor="revise-fit" hint={`Fit #${set.fitNumber} (id ${set.fitId}) or a newer fit of ${set.substanceName}; a different fit takes its own data span.`}>
-          <Input id="revise-fit" inputMode="numeric" value={fitId} onChange={(e) => setFitId(e.target.value)} />
+        <Field label="From fit" htmlFor="revise-fit" hint={`This set's fit or a newer succeeded fit of ${set.substanceName}; a different fit brings its own values and data span.`}>
+          <Select id="revise-fit" value={fitId} onChange={(e) => setFitId(e.target.value)}>
+            {choices.map((f) => <option key={f.id} value={String(f.id)}>{f.label}</option>)}
+          </Select>
         </Field>
         {set.cutoffSigma !== null && (
           <Field label="Cutoff r_c (σ)" htmlFor="revise-cutoff">

@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { formatDateTime } from '@shared/format/dates';
 import { Button } from '@/components/ui/button';
 import { Field, TextArea } from '@/components/ui/field';
 import { useCommentOnParameterSet, type ParameterSetDetail } from '../api/parameter-sets';
@@ -14,7 +15,7 @@ export function CommentThread({ set }: { set: ParameterSetDetail }) {
         <ul className="grid gap-3" aria-label="Comments">
           {set.comments.map((c) => (
             <li key={c.id} className="rounded-md border border-rule bg-paper px-4 py-2">
-              <div className="text-xs text-ink-faint"><span className="font-semibold text-ink">{c.authorName}</span> · {new Date(c.createdAt).toLocaleString()}</div>
+              <div className="text-xs text-ink-faint"><span className="font-semibold text-ink">{c.authorName}</span> · {formatDateTime(c.createdAt)}</div>
               <p className="mt-1 whitespace-pre-line text-sm">{c.body}</p>
             </li>
           ))}

@@ -1,4 +1,5 @@
 import type { ParameterSetDetail } from '../api/parameter-sets';
+import { formatDateTime } from '@shared/format/dates';
 import { ParameterSetStateBadge } from './state-badge';
 
 const MOVE_TEXT: Record<ParameterSetDetail['history'][number]['move'], string> = {
@@ -23,7 +24,7 @@ export function HistoryTimeline({ history }: { history: ParameterSetDetail['hist
             <span className="font-semibold">{h.actorName ?? 'Someone'}</span>
             <span>{MOVE_TEXT[h.move]}</span>
             <ParameterSetStateBadge state={h.toState} />
-            <time className="text-xs text-ink-faint" dateTime={h.at}>{new Date(h.at).toLocaleString()}</time>
+            <time className="text-xs text-ink-faint" dateTime={h.at}>{formatDateTime(h.at)}</time>
           </div>
           {h.comment && <p className="mt-1 whitespace-pre-line text-sm text-ink-soft">{h.comment}</p>}
         </li>

@@ -1,4 +1,5 @@
 import { Link } from 'react-router-dom';
+import { formatDate, formatDateTime } from '@shared/format/dates';
 import { createColumnHelper } from '@tanstack/react-table';
 import { formatWithUncertainty } from '@shared/format/numbers';
 import { DataTable } from '@/components/ui/data-table';
@@ -26,8 +27,8 @@ export function ParameterSetTable({ sets, caption, withSubstance = false, queue 
     col.accessor((s) => s.validity.temperatureMinK, { id: 'validity', header: 'Valid for', cell: (c) => <span className="num">{validityText(c.row.original.validity)}</span> }),
     col.accessor('createdByName', { header: 'Author' }),
     queue
-      ? col.accessor('submittedAt', { header: 'Submitted', cell: (c) => (c.getValue() ? new Date(c.getValue()!).toLocaleString() : '—') })
-      : col.accessor('updatedAt', { header: 'Last change', cell: (c) => new Date(c.getValue()).toLocaleDateString() }),
+      ? col.accessor('submittedAt', { header: 'Submitted', cell: (c) => (c.getValue() ? formatDateTime(c.getValue()!) : '—') })
+      : col.accessor('updatedAt', { header: 'Last change', cell: (c) => formatDate(c.getValue()) }),
   ];
   return <DataTable data={sets} columns={columns} caption={caption} rowKey={(s) => s.id} />;
 }

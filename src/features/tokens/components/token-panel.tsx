@@ -1,10 +1,11 @@
 import { useState } from 'react';
+import { formatDateTime } from '@shared/format/dates';
 import { Button } from '@/components/ui/button';
 import { Field, Input } from '@/components/ui/field';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { useCreateToken, useMyTokens, useRevokeToken, type ApiToken } from '../api/tokens';
 
-const when = (iso: string | null) => (iso ? new Date(iso).toLocaleString() : '—');
+const when = (iso: string | null) => (iso ? formatDateTime(iso) : '—');
 
 /** The new secret, shown once with a copy button; gone when dismissed. */
 function NewSecret({ name, secret, onDone }: { name: string; secret: string; onDone: () => void }) {
