@@ -5,7 +5,8 @@ import { migrateToLatest, openDatabase } from './db/database';
 import { createAuth } from './features/auth/auth';
 import { startMail } from './features/mail/mail.runtime';
 import { JOB_KINDS } from './jobs/job-kinds';
-import { SqliteJobRunner } from './jobs/job-runner';
+import { JobRunner, LocalExecutor, type JobExecutor } from './jobs/job-runner';
+import { RedisExecutor } from './jobs/redis-executor';
 import { createWorkerPool } from './jobs/worker-pool';
 import pkg from '../package.json' with { type: 'json' };
 
@@ -25,8 +26,12 @@ export async function createContext(env: Env, log: (message: string) => void = c
   await migrateToLatest(handle.db);
   const publicUrl = env.PUBLIC_URL ?? `http://${env.HOST}:${env.PORT}`;
   const auth = createAuth(handle.sqlite, { secureCookies: publicUrl.startsWith('https:') });
-  const pool = createWorkerPool(env.WORKERS);
-  const jobs = new SqliteJobRunner(handle.db, pool, JOB_KINDS, log);
+  const codeVersion = readCodeVersion();
+  // The job driver: the embedded queue (this process's threads) by default, BullMQ workers with REDIS_URL.
+  const executor: JobExecutor = env.REDIS_URL
+    ? await RedisExecutor.create({ redisUrl: env.REDIS_URL, codeVersion, localThreads: env.WORKERS, lockMs: env.QUEUE_LOCK_MS, log })
+    : new LocalExecutor(createWorkerPool(env.WORKERS));
+  const jobs = new JobRunner(handle.db, executor, JOB_KINDS, log);
   await jobs.start();
   const mail = await startMail(handle.db, { smtpUrl: env.SMTP_URL, from: env.MAIL_FROM, publicUrl }, log);
   return {
@@ -37,11 +42,10 @@ export async function createContext(env: Env, log: (message: string) => void = c
     log,
     jobs,
     mail,
-    codeVersion: readCodeVersion(),
+    codeVersion,
     close: async () => {
       await mail.close();
       await jobs.stop();
-      await pool.close();
       await handle.close();
     },
   };

@@ -1,14 +1,18 @@
+import os from 'node:os';
 import type { Db, Tx } from '../db/database';
 import type { JobStatus } from './job.table';
-import type { ProgressReport } from './tasks';
-import type { TaskPool } from './worker-pool';
+import { engineVersionOf, laneOf, type Lane, type ProgressReport } from './tasks';
+import { CancelledError, TaskError, type TaskPool } from './worker-pool';
 
 export interface JobRequest {
   kind: string;
   input: unknown;
   /** Recorded on the job so a run can be repeated exactly. */
   seed: number;
-  /** Identical requests (same kind and key) reuse the queued, running or finished job instead of computing again. */
+  /**
+   * Identical requests (same kind, key and engine version) reuse the queued, running or finished job instead of
+   * computing again, however many fits ask for them.
+   */
   cacheKey?: string;
   createdBy?: string | null;
 }
@@ -24,6 +28,8 @@ export interface JobView {
   retryable: boolean;
   attempts: number;
   seed: number;
+  /** Worker process that ran (or runs) the job: host and process id. */
+  ranOn: string | null;
   createdAt: string;
   startedAt: string | null;
   finishedAt: string | null;
@@ -33,7 +39,7 @@ export interface JobView {
 export interface JobRunEnvironment {
   db: Db;
   jobs: JobQueue;
-  /** Runs a worker task directly (not as a job of its own); piscina queues it when every thread is busy. */
+  /** Runs a worker task directly (not as a job of its own), in the task's lane; it waits when every thread of the lane is busy. */
   runTask: (kind: string, payload: unknown, onProgress: (p: ProgressReport) => void) => Promise<unknown>;
   progress: (p: ProgressReport) => void;
   signal: AbortSignal;
@@ -41,19 +47,51 @@ export interface JobRunEnvironment {
 
 /**
  * What a job kind needs from the runner. A compute kind turns the stored input into a worker payload
- * (on the main thread, where the database is) and runs in the pool, one thread per job. An orchestrating
- * kind (`run`) runs on the main thread and spends its time waiting for work it hands to the pool, so it
- * takes no pool slot.
+ * (in the web process, where the database is) and runs on a worker, one thread per job. An orchestrating
+ * kind (`run`) runs on the web process's main thread and spends its time waiting for work it hands to
+ * workers, so it takes no worker slot.
  */
 export type JobKind =
   | { toPayload: (db: Db, input: any, job: { id: number; seed: number }) => Promise<unknown> | unknown; run?: undefined }
   | { run: (env: JobRunEnvironment, input: any, job: { id: number; seed: number }) => Promise<unknown>; toPayload?: undefined };
 
+export interface LaneCounts {
+  waiting: number;
+  active: number;
+  /** Waiting for a retry after a failure (backoff). */
+  delayed: number;
+}
+
+/** A worker process that runs jobs, as it last reported itself. */
+export interface WorkerInfo {
+  name: string;
+  host: string;
+  pid: number;
+  threads: Record<Lane, number>;
+  active: number;
+  engineVersions: Record<string, string>;
+  startedAt: string;
+  lastSeenAt: string;
+}
+
+/** GET /api/health `queue` (counts only) and the admin's queue view (with the workers). */
+export interface QueueHealth {
+  driver: 'sqlite' | 'redis';
+  waiting: number;
+  active: number;
+  delayed: number;
+  /** Live worker processes (the web process counts when it runs jobs itself). */
+  workers: number;
+  lanes: Record<Lane, LaneCounts>;
+  workerList: WorkerInfo[];
+}
+
 /**
- * The small interface every caller uses; the SQLite-backed runner below implements it, and a
- * Redis-backed queue shared by several machines can implement it later without touching callers.
+ * The small interface every caller uses. Jobs are rows in SQLite, written by the web process only; a driver
+ * (JobExecutor) runs them: in this process's threads (default) or on worker processes through Redis.
  */
 export interface JobQueue {
+  readonly driver: 'sqlite' | 'redis';
   /** Pass a transaction to queue the job together with the record that owns it; it starts after the commit. */
   enqueue(request: JobRequest, executor?: Db | Tx): Promise<{ id: number; reused: boolean }>;
   get(id: number): Promise<JobView | undefined>;
@@ -61,16 +99,51 @@ export interface JobQueue {
   retry(id: number): Promise<boolean>;
   /** Resolves when the job has finished (succeeded, failed or cancelled). */
   waitFor(id: number): Promise<JobView>;
+  health(): Promise<QueueHealth>;
   start(): Promise<void>;
   stop(): Promise<void>;
 }
 
-const MAX_ATTEMPTS = 3;
+/** What happens to a job while a driver runs it. */
+export interface ExecutionHooks {
+  /** A worker took the job (again, after a stall or a retry): where, and how many starts so far. */
+  onActive: (info: { ranOn: string; attempt: number }) => void;
+  onProgress: (p: ProgressReport) => void;
+  /** A failed attempt that will be tried again after a pause. */
+  onRetry: (info: { reason: string; delayMs: number; attempt: number }) => void;
+}
+
+/** A driver: where jobs and tasks run. The runner stays the only writer of the job table. */
+export interface JobExecutor {
+  readonly driver: 'sqlite' | 'redis';
+  /**
+   * Whether a compute job of this lane may be handed over now (embedded: a free thread; Redis: always, the queue
+   * waits). A true answer reserves the room until runJob ends, or until `release` when the job never got there.
+   */
+  reserve(lane: Lane): boolean;
+  release(lane: Lane): void;
+  /**
+   * Runs one execution of a compute job (`ref` names it; the same ref after a web-process restart joins the
+   * execution already under way). Resolves with the task's result, rejects with TaskError (the task failed),
+   * CancelledError, or an error after the last attempt.
+   */
+  runJob(job: { id: number; kind: string; ref: string; engineVersion: string }, payload: unknown, hooks: ExecutionHooks, signal: AbortSignal): Promise<unknown>;
+  /** Runs a task for an orchestrating job (not a job of its own). */
+  runTask(kind: string, payload: unknown, onProgress: (p: ProgressReport) => void, signal: AbortSignal): Promise<unknown>;
+  counts(): Promise<Omit<QueueHealth, 'driver' | 'waiting' | 'active' | 'delayed'>>;
+  close(): Promise<void>;
+}
+
+/** Attempts of an execution before it fails for good (BullMQ attempts; embedded: thread crashes and restarts). */
+export const MAX_ATTEMPTS = 3;
+/** First pause before a retry; doubled each time. */
+export const RETRY_BACKOFF_MS = 2000;
 const PROGRESS_WRITE_INTERVAL_MS = 250;
+const FINISHED: JobStatus[] = ['succeeded', 'failed', 'cancelled'];
 
 export function toJobView(row: {
   id: number; kind: string; status: JobStatus; progress: number; stage: string | null; resultJson: string | null; error: string | null;
-  retryable: number; attempts: number; seed: number; createdAt: string; startedAt: string | null; finishedAt: string | null;
+  retryable: number; attempts: number; seed: number; createdAt: string; startedAt: string | null; finishedAt: string | null; ranOn?: string | null;
 }): JobView {
   return {
     id: row.id,
@@ -83,57 +156,171 @@ export function toJobView(row: {
     retryable: row.retryable === 1,
     attempts: row.attempts,
     seed: row.seed,
+    ranOn: row.ranOn ?? null,
     createdAt: row.createdAt,
     startedAt: row.startedAt,
     finishedAt: row.finishedAt,
   };
 }
 
-/** Jobs persisted in SQLite, executed in the worker pool, at most `pool.size` at a time. */
-export class SqliteJobRunner implements JobQueue {
-  private running = new Map<number, AbortController>();
-  /** Jobs of compute kinds currently holding a pool thread. */
-  private poolJobs = new Set<number>();
+/** The cache key as stored: the engine version of the kind first, so results of older code are not reused. */
+const versionedKey = (kind: string, cacheKey: string) => `${engineVersionOf(kind)}|${cacheKey}`;
+
+const messageOf = (err: unknown) => (err instanceof Error ? err.message : String(err));
+
+/** This process as a worker name: host and process id. */
+export const processName = (suffix = '') => `${os.hostname()}:${process.pid}${suffix}`;
+
+/**
+ * The embedded driver: compute jobs and tasks run in this process's thread pool, one pool per lane. A thread
+ * crash counts as a failed attempt and is retried with backoff; the task's own error fails the job at once.
+ */
+export class LocalExecutor implements JobExecutor {
+  readonly driver = 'sqlite' as const;
+  private readonly name = processName();
+  private readonly startedAt = new Date().toISOString();
+
+  constructor(private readonly pool: TaskPool) {}
+
+  private reserved: Record<Lane, number> = { simulation: 0, fast: 0 };
+
+  reserve(lane: Lane): boolean {
+    if (this.reserved[lane] >= this.pool.sizes[lane]) return false;
+    this.reserved[lane]++;
+    return true;
+  }
+
+  release(lane: Lane) {
+    this.reserved[lane] = Math.max(0, this.reserved[lane] - 1);
+  }
+
+  async runJob(job: { id: number; kind: string }, payload: unknown, hooks: ExecutionHooks, signal: AbortSignal): Promise<unknown> {
+    try {
+      return await this.attempts(job, payload, hooks, signal);
+    } finally {
+      this.release(laneOf(job.kind));
+    }
+  }
+
+  private async attempts(job: { id: number; kind: string }, payload: unknown, hooks: ExecutionHooks, signal: AbortSignal): Promise<unknown> {
+    for (let attempt = 1; ; attempt++) {
+      hooks.onActive({ ranOn: this.name, attempt });
+      try {
+        return await this.pool.run(job.kind, payload, hooks.onProgress, signal);
+      } catch (err) {
+        if (err instanceof TaskError || err instanceof CancelledError || signal.aborted || attempt >= MAX_ATTEMPTS) {
+          if (err instanceof TaskError || err instanceof CancelledError || signal.aborted) throw err;
+          throw new Error(`failed after ${attempt} attempts: ${messageOf(err)}`);
+        }
+        const delayMs = RETRY_BACKOFF_MS * 2 ** (attempt - 1);
+        hooks.onRetry({ reason: messageOf(err), delayMs, attempt });
+        await new Promise((r) => setTimeout(r, delayMs));
+      }
+    }
+  }
+
+  runTask(kind: string, payload: unknown, onProgress: (p: ProgressReport) => void, signal: AbortSignal) {
+    return this.pool.run(kind, payload, onProgress, signal);
+  }
+
+  async counts() {
+    const threads = this.pool.sizes;
+    const active = this.pool.busy('simulation') + this.pool.busy('fast');
+    const workerList: WorkerInfo[] = [
+      { name: this.name, host: os.hostname(), pid: process.pid, threads, active, engineVersions: {}, startedAt: this.startedAt, lastSeenAt: new Date().toISOString() },
+    ];
+    return {
+      workers: 1,
+      lanes: {
+        simulation: { waiting: this.pool.waiting('simulation'), active: this.pool.busy('simulation'), delayed: 0 },
+        fast: { waiting: this.pool.waiting('fast'), active: this.pool.busy('fast'), delayed: 0 },
+      },
+      workerList,
+    };
+  }
+
+  close() {
+    return this.pool.close();
+  }
+}
+
+/**
+ * Jobs persisted in SQLite (the web process is the single writer) and run by a driver. Compute jobs are handed
+ * to the driver while their lane has room; orchestrating jobs run on the main thread at once.
+ */
+export class JobRunner implements JobQueue {
+  private running = new Map<number, { controller: AbortController; ref: string }>();
   private waiters = new Map<number, Array<(job: JobView) => void>>();
   private stopped = false;
   private pumping = false;
+  private pumpAgain = false;
+  private refCounter = 0;
 
   constructor(
     private readonly db: Db,
-    private readonly pool: TaskPool,
+    private readonly executor: JobExecutor,
     private readonly kinds: Record<string, JobKind>,
     private readonly log: (m: string) => void,
   ) {}
 
-  /** Jobs left `running` by a crash or restart are queued again (same seed, so the same result), or failed after too many attempts. */
+  get driver() {
+    return this.executor.driver;
+  }
+
+  /**
+   * Jobs a stopped or crashed web process left behind. Embedded: every unfinished execution died with the
+   * process, so it is queued again (same seed, so the same result), or failed after too many attempts. Redis:
+   * compute jobs went on without us on the worker processes; the runner joins them again by their ref.
+   */
   async start(): Promise<void> {
     const now = new Date().toISOString();
-    const interrupted = await this.db.selectFrom('job').select(['id', 'attempts']).where('status', '=', 'running').execute();
-    for (const job of interrupted) {
-      if (job.attempts >= MAX_ATTEMPTS) {
+    const left = await this.db.selectFrom('job').select(['id', 'kind', 'status', 'attempts', 'queueRef']).where('status', 'in', ['queued', 'running']).where('queueRef', 'is not', null).execute();
+    let requeued = 0;
+    const rejoin: number[] = [];
+    for (const job of left) {
+      const compute = !this.kinds[job.kind]?.run;
+      if (compute && this.executor.driver === 'redis') {
+        rejoin.push(job.id);
+      } else if (job.status === 'running' && job.attempts >= MAX_ATTEMPTS) {
         await this.db.updateTable('job').set({ status: 'failed', retryable: 1, error: `Interrupted by a server restart ${job.attempts} times; not resumed again. Retry it when the cause is fixed.`, finishedAt: now, updatedAt: now }).where('id', '=', job.id).execute();
       } else {
-        await this.db.updateTable('job').set({ status: 'queued', progress: 0, stage: 'resumed after a server restart', updatedAt: now }).where('id', '=', job.id).execute();
+        await this.db.updateTable('job').set({ status: 'queued', progress: 0, queueRef: null, stage: 'resumed after a server restart', updatedAt: now }).where('id', '=', job.id).execute();
+        requeued++;
       }
     }
-    if (interrupted.length) this.log(`job runner: ${interrupted.length} interrupted job(s) handled at start-up`);
+    if (left.length) this.log(`job runner: ${requeued} interrupted job(s) queued again, ${rejoin.length} joined on the worker processes`);
     this.stopped = false;
+    for (const id of rejoin) {
+      const row = await this.db.selectFrom('job').select(['id', 'kind', 'inputJson', 'seed', 'queueRef']).where('id', '=', id).executeTakeFirstOrThrow();
+      // The queue counts the starts of this execution itself.
+      this.executor.reserve(laneOf(row.kind));
+      this.launch(row.id, row.kind, JSON.parse(row.inputJson), row.seed, row.queueRef!, 0);
+    }
     void this.pump();
   }
 
   async stop(): Promise<void> {
     this.stopped = true;
-    for (const controller of this.running.values()) controller.abort(new Error('server stopping'));
+    // Not a cancel: the Redis driver leaves the job running on its worker, and the next start joins it again.
+    for (const { controller } of this.running.values()) controller.abort(new Error('server stopping'));
+    await this.executor.close();
   }
 
   async enqueue(request: JobRequest, executor: Db | Tx = this.db): Promise<{ id: number; reused: boolean }> {
     if (!this.kinds[request.kind]) throw new Error(`Unknown job kind "${request.kind}".`);
-    if (request.cacheKey) {
+    // Look-up and insert in one transaction, so two fits asking at the same moment get one job.
+    if (executor === this.db) return this.db.transaction().execute((tx) => this.insertOrReuse(request, tx));
+    return this.insertOrReuse(request, executor);
+  }
+
+  private async insertOrReuse(request: JobRequest, executor: Db | Tx): Promise<{ id: number; reused: boolean }> {
+    const cacheKey = request.cacheKey ? versionedKey(request.kind, request.cacheKey) : null;
+    if (cacheKey) {
       const existing = await executor
         .selectFrom('job')
         .select('id')
         .where('kind', '=', request.kind)
-        .where('cacheKey', '=', request.cacheKey)
+        .where('cacheKey', '=', cacheKey)
         .where('status', 'in', ['queued', 'running', 'succeeded'])
         .orderBy('id', 'desc')
         .executeTakeFirst();
@@ -142,7 +329,7 @@ export class SqliteJobRunner implements JobQueue {
     const now = new Date().toISOString();
     const row = await executor
       .insertInto('job')
-      .values({ kind: request.kind, status: 'queued', inputJson: JSON.stringify(request.input), seed: request.seed, cacheKey: request.cacheKey ?? null, createdBy: request.createdBy ?? null, createdAt: now, updatedAt: now })
+      .values({ kind: request.kind, status: 'queued', inputJson: JSON.stringify(request.input), seed: request.seed, cacheKey, createdBy: request.createdBy ?? null, createdAt: now, updatedAt: now })
       .returning('id')
       .executeTakeFirstOrThrow();
     // Inside a transaction the pump's queries wait on the single connection until the commit.
@@ -158,7 +345,7 @@ export class SqliteJobRunner implements JobQueue {
   async cancel(id: number): Promise<boolean> {
     const now = new Date().toISOString();
     const res = await this.db.updateTable('job').set({ status: 'cancelled', finishedAt: now, updatedAt: now, error: 'Cancelled by a person.' }).where('id', '=', id).where('status', 'in', ['queued', 'running']).executeTakeFirst();
-    this.running.get(id)?.abort(new Error('cancelled'));
+    this.running.get(id)?.controller.abort(new CancelledError());
     const changed = Number(res.numUpdatedRows) > 0;
     if (changed) await this.notify(id);
     return changed;
@@ -168,7 +355,7 @@ export class SqliteJobRunner implements JobQueue {
     const now = new Date().toISOString();
     const res = await this.db
       .updateTable('job')
-      .set({ status: 'queued', progress: 0, stage: null, error: null, retryable: 0, attempts: 0, resultJson: null, startedAt: null, finishedAt: null, updatedAt: now })
+      .set({ status: 'queued', progress: 0, stage: null, error: null, retryable: 0, attempts: 0, resultJson: null, startedAt: null, finishedAt: null, queueRef: null, ranOn: null, updatedAt: now })
       .where('id', '=', id)
       .where('status', 'in', ['failed', 'cancelled'])
       .executeTakeFirst();
@@ -178,98 +365,151 @@ export class SqliteJobRunner implements JobQueue {
 
   waitFor(id: number): Promise<JobView> {
     return new Promise((resolve, reject) => {
+      // Registered before the read, so a job finishing in between still wakes us.
+      this.waiters.set(id, [...(this.waiters.get(id) ?? []), resolve]);
       this.get(id).then((job) => {
         if (!job) return reject(new Error(`No job ${id}.`));
-        if (['succeeded', 'failed', 'cancelled'].includes(job.status)) return resolve(job);
-        this.waiters.set(id, [...(this.waiters.get(id) ?? []), resolve]);
+        if (FINISHED.includes(job.status)) {
+          this.waiters.set(id, (this.waiters.get(id) ?? []).filter((r) => r !== resolve));
+          resolve(job);
+        }
       }, reject);
     });
   }
 
+  async health(): Promise<QueueHealth> {
+    const rows = await this.db.selectFrom('job').select(['kind', 'status', 'queueRef']).where('status', 'in', ['queued', 'running']).execute();
+    const lanes = { simulation: { waiting: 0, active: 0, delayed: 0 }, fast: { waiting: 0, active: 0, delayed: 0 } };
+    const counts = await this.executor.counts();
+    if (this.executor.driver === 'redis') {
+      // The queue holds the truth about compute work; orchestrating fits wait in the web process.
+      Object.assign(lanes, counts.lanes);
+    } else {
+      for (const r of rows) {
+        if (this.kinds[r.kind]?.run) continue;
+        const lane = laneOf(r.kind);
+        if (r.status === 'running') lanes[lane].active++;
+        else lanes[lane].waiting++;
+      }
+      lanes.fast.waiting += counts.lanes.fast.waiting;
+      lanes.fast.active += counts.lanes.fast.active;
+    }
+    const sum = (k: keyof LaneCounts) => lanes.simulation[k] + lanes.fast[k];
+    return { driver: this.executor.driver, waiting: sum('waiting'), active: sum('active'), delayed: sum('delayed'), workers: counts.workers, lanes, workerList: counts.workerList };
+  }
+
   private async notify(id: number) {
     const list = this.waiters.get(id);
-    if (!list) return;
+    if (!list?.length) return;
     const job = await this.get(id);
-    if (!job || !['succeeded', 'failed', 'cancelled'].includes(job.status)) return;
+    if (!job || !FINISHED.includes(job.status)) return;
     this.waiters.delete(id);
     for (const resolve of list) resolve(job);
   }
 
-  /** Starts queued jobs: orchestrating kinds at once, compute kinds while the pool has a free thread. */
+  /** Hands queued jobs to the driver: orchestrating kinds at once, compute kinds while their lane has room. */
   private async pump(): Promise<void> {
-    if (this.pumping || this.stopped) return;
+    if (this.stopped) return;
+    if (this.pumping) {
+      this.pumpAgain = true;
+      return;
+    }
     this.pumping = true;
     try {
-      let started = true;
-      while (!this.stopped && started) {
-        started = false;
-        const queued = await this.db.selectFrom('job').select(['id', 'kind', 'attempts', 'inputJson', 'seed']).where('status', '=', 'queued').orderBy('id').limit(100).execute();
+      do {
+        this.pumpAgain = false;
+        const queued = await this.db.selectFrom('job').select(['id', 'kind', 'inputJson', 'seed', 'attempts']).where('status', '=', 'queued').where('queueRef', 'is', null).orderBy('id').limit(500).execute();
         for (const next of queued) {
-          const orchestrating = !!this.kinds[next.kind]?.run;
-          if (!orchestrating && this.poolJobs.size >= this.pool.size) continue;
-          const now = new Date().toISOString();
+          if (this.stopped) break;
+          const kind = this.kinds[next.kind];
+          if (!kind) continue;
+          if (!kind.run && !this.executor.reserve(laneOf(next.kind))) continue;
+          const ref = `${next.id}.${Date.now().toString(36)}${(this.refCounter++).toString(36)}`;
           const claimed = await this.db
             .updateTable('job')
-            .set({ status: 'running', startedAt: now, updatedAt: now, attempts: next.attempts + 1, progress: 0 })
+            .set({ queueRef: ref, stage: kind.run ? null : 'waiting for a worker', updatedAt: new Date().toISOString() })
             .where('id', '=', next.id)
             .where('status', '=', 'queued')
+            .where('queueRef', 'is', null)
             .executeTakeFirst();
-          if (Number(claimed.numUpdatedRows) === 0) continue;
-          const controller = new AbortController();
-          this.running.set(next.id, controller);
-          if (!orchestrating) this.poolJobs.add(next.id);
-          void this.execute(next.id, next.kind, JSON.parse(next.inputJson), next.seed, controller);
-          started = true;
+          if (Number(claimed.numUpdatedRows) === 0) {
+            if (!kind.run) this.executor.release(laneOf(next.kind));
+            continue;
+          }
+          this.launch(next.id, next.kind, JSON.parse(next.inputJson), next.seed, ref, next.attempts);
         }
-      }
+      } while (this.pumpAgain && !this.stopped);
     } finally {
       this.pumping = false;
     }
   }
 
-  private async execute(id: number, kindName: string, input: unknown, seed: number, controller: AbortController) {
+  /** `baseAttempts`: starts before this execution (after a restart of the web process, embedded). */
+  private launch(id: number, kindName: string, input: unknown, seed: number, ref: string, baseAttempts: number) {
+    const controller = new AbortController();
+    this.running.set(id, { controller, ref });
+    void this.execute(id, kindName, input, seed, ref, baseAttempts, controller);
+  }
+
+  /** Updates the row of this execution only: a retried or cancelled job ignores late news of an earlier one. */
+  private ofExecution(id: number, ref: string) {
+    return this.db.updateTable('job').where('id', '=', id).where('queueRef', '=', ref).where('status', 'in', ['queued', 'running']);
+  }
+
+  private async execute(id: number, kindName: string, input: unknown, seed: number, ref: string, baseAttempts: number, controller: AbortController) {
     const kind = this.kinds[kindName];
     let lastWrite = 0;
     const onProgress = (p: ProgressReport) => {
       const now = Date.now();
       if (now - lastWrite < PROGRESS_WRITE_INTERVAL_MS) return;
       lastWrite = now;
-      void this.db.updateTable('job').set({ progress: Math.min(1, Math.max(0, p.fraction)), stage: p.stage.slice(0, 200), updatedAt: new Date().toISOString() }).where('id', '=', id).where('status', '=', 'running').execute();
+      void this.ofExecution(id, ref).set({ progress: Math.min(1, Math.max(0, p.fraction)), stage: p.stage.slice(0, 200), updatedAt: new Date().toISOString() }).where('status', '=', 'running').execute();
+    };
+    const hooks: ExecutionHooks = {
+      onActive: ({ ranOn, attempt }) => {
+        const now = new Date().toISOString();
+        lastWrite = 0;
+        void this.ofExecution(id, ref).set({ status: 'running', startedAt: now, updatedAt: now, attempts: baseAttempts + attempt, progress: 0, stage: 'started', ranOn: ranOn.slice(0, 200) }).execute();
+      },
+      onProgress,
+      onRetry: ({ reason, delayMs, attempt }) => {
+        void this.ofExecution(id, ref).set({ stage: `attempt ${attempt} failed (${reason.slice(0, 120)}); trying again in ${Math.round(delayMs / 1000)} s`, updatedAt: new Date().toISOString() }).execute();
+      },
     };
     try {
       let result: unknown;
       if (kind.run) {
+        hooks.onActive({ ranOn: processName(), attempt: 1 });
         const env: JobRunEnvironment = {
           db: this.db,
           jobs: this,
-          runTask: (task, payload, taskProgress) => this.pool.run(task, payload, taskProgress, controller.signal),
+          runTask: (task, payload, taskProgress) => this.executor.runTask(task, payload, taskProgress, controller.signal),
           progress: onProgress,
           signal: controller.signal,
         };
         result = await kind.run(env, input, { id, seed });
       } else {
-        const payload = await kind.toPayload(this.db, input, { id, seed });
-        result = await this.pool.run(kindName, payload, onProgress, controller.signal);
+        let payload: unknown;
+        try {
+          payload = await kind.toPayload(this.db, input, { id, seed });
+        } catch (err) {
+          this.executor.release(laneOf(kindName));
+          throw err;
+        }
+        result = await this.executor.runJob({ id, kind: kindName, ref, engineVersion: engineVersionOf(kindName) }, payload, hooks, controller.signal);
       }
       const now = new Date().toISOString();
-      // Only a job still running takes the result: a cancelled job stays cancelled.
-      await this.db
-        .updateTable('job')
-        .set({ status: 'succeeded', progress: 1, stage: 'done', resultJson: JSON.stringify(result), finishedAt: now, updatedAt: now })
-        .where('id', '=', id)
-        .where('status', '=', 'running')
-        .execute();
+      // Only a job still under way takes the result: a cancelled job stays cancelled.
+      await this.ofExecution(id, ref).set({ status: 'succeeded', progress: 1, stage: 'done', resultJson: JSON.stringify(result), finishedAt: now, updatedAt: now }).execute();
     } catch (err) {
-      // A cancelled job is already marked (the update below matches only `running`); on a stop the job
-      // stays `running` so the next start resumes it.
+      // A cancelled job is already marked (the update matches only unfinished rows of this execution); on a stop
+      // the job stays as it is so the next start resumes or rejoins it.
       if (!this.stopped) {
-        const message = err instanceof Error ? err.message : String(err);
         const now = new Date().toISOString();
-        await this.db.updateTable('job').set({ status: 'failed', error: message.slice(0, 2000), retryable: 1, finishedAt: now, updatedAt: now }).where('id', '=', id).where('status', '=', 'running').execute();
+        await this.ofExecution(id, ref).set({ status: 'failed', error: messageOf(err).slice(0, 2000), retryable: 1, finishedAt: now, updatedAt: now }).execute();
       }
     } finally {
-      this.running.delete(id);
-      this.poolJobs.delete(id);
+      if (this.running.get(id)?.ref === ref) this.running.delete(id);
       await this.notify(id);
       void this.pump();
     }

@@ -15,6 +15,10 @@ export interface JobTable {
   attempts: Generated<number>;
   seed: number;
   cacheKey: string | null;
+  /** The driver's name for the current execution (changes on retry); null while the job waits to be handed over. */
+  queueRef: string | null;
+  /** Worker process that ran the job: host and process id. */
+  ranOn: string | null;
   createdBy: string | null;
   createdAt: string;
   startedAt: string | null;
