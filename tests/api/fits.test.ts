@@ -78,9 +78,9 @@ describe('fits', () => {
     expect(list.status).toBe(200);
     expect(list.body.fits.map((f: { number: number }) => f.number)).toEqual([2, 1]);
     expect(list.body.fits[0].status).toBe('succeeded');
-    // Readers may see fits; a consumer may read but not run them.
+    // A fit behind no published set is unpublished work: a consumer gets 404 (tests/api/consumer-reads-and-ownership.test.ts).
     const consumer = await t.signIn(EMAIL.consumer);
-    expect((await consumer.get(`/api/fits/${res.body.id}`)).status).toBe(200);
+    expect((await consumer.get(`/api/fits/${res.body.id}`)).status).toBe(404);
   });
 
   it('says plainly when the fit ended on a bound', async () => {

@@ -3,8 +3,9 @@ import multer from 'multer';
 import { z } from 'zod';
 import { datasetUploadFields, datasetVersionFields } from '../../../shared/schemas/measurements';
 import { PROPERTY_KINDS, type PropertyKind } from '../../../shared/measurements/property-kinds';
-import { currentUser, requirePolicy } from '../../common/auth-middleware';
-import { AppError, badRequest, conflict, notFound } from '../../common/errors';
+import { hasPolicy, mayChangeWorkOf, refusalMessage } from '../../../shared/auth/roles';
+import { currentUser, requirePolicy, requireUser } from '../../common/auth-middleware';
+import { AppError, badRequest, conflict, forbidden, notFound } from '../../common/errors';
 import { idParams, validBody, validParams, validQuery } from '../../common/validate';
 import type { AppContext } from '../../app-context';
 import { recordAudit } from '../audit/audit.service';
@@ -65,6 +66,11 @@ const versionQuery = z.object({ version: z.coerce.number().int().positive().opti
 const versionParams = z.object({ id: z.coerce.number().int().positive(), version: z.coerce.number().int().positive() });
 const withdrawBody = z.object({ reason: z.string().trim().min(3, 'give a reason of at least 3 characters').max(2000) });
 
+/** An upload without a source citation is stored, with a warning: review will need the citation. */
+function citationWarnings(source: string | undefined | null): string[] {
+  return source && source.trim() ? [] : ['No source citation was given. A parameter set fitted to this measurement set cannot be submitted for review until a version that cites its source is uploaded.'];
+}
+
 export function datasetRoutes(ctx: AppContext): Router {
   const router = Router();
   const { db } = ctx;
@@ -84,10 +90,27 @@ export function datasetRoutes(ctx: AppContext): Router {
     const stored = await db.transaction().execute((tx) =>
       storeVersion(tx, { newDataset: { substanceId: substance.id, property: fields.property, name: fields.name }, file, fields, parsed, actor }),
     );
-    res.status(201).json(stored);
+    res.status(201).json({ ...stored, warnings: citationWarnings(fields.source) });
   });
 
-  router.post('/datasets/:id/versions', requirePolicy('dataset:upload'), singleCsv, async (req, res) => {
+  /**
+   * Ownership rule (shared/auth/roles.ts mayChangeWorkOf): a new version or a withdrawal is for the author of
+   * the measurement set (who uploaded version 1) or an admin. Checked before any file is read.
+   */
+  const requireDatasetAuthorOrAdmin: RequestHandler = async (req, res, next) => {
+    const { id } = validParams(idParams, req);
+    const actor = currentUser(res);
+    if (!hasPolicy(actor.roles, 'dataset:upload') && !actor.roles.includes('admin')) throw forbidden(refusalMessage(actor.roles, 'dataset:upload', ['admin']));
+    const dataset = await findDataset(db, id);
+    if (!dataset) throw notFound(`Dataset ${id}`);
+    if (!mayChangeWorkOf(actor, dataset.createdBy, 'dataset:upload')) {
+      const author = await db.selectFrom('user').select('name').where('id', '=', dataset.createdBy).executeTakeFirst();
+      throw new AppError(403, 'not_author', `Only the author of measurement set "${dataset.name}" (${author?.name ?? 'unknown'}) or an admin may change it.`);
+    }
+    next();
+  };
+
+  router.post('/datasets/:id/versions', requireUser, requireDatasetAuthorOrAdmin, singleCsv, async (req, res) => {
     const { id } = validParams(idParams, req);
     const fields = validBody(datasetVersionFields, req);
     const file = requireFile(req.file);
@@ -98,7 +121,7 @@ export function datasetRoutes(ctx: AppContext): Router {
     const substance = await findSubstance(db, dataset.substanceId);
     const parsed = parseUpload(file, dataset.property, fields, substance!.molarMassGramsPerMol);
     const stored = await db.transaction().execute((tx) => storeVersion(tx, { datasetId: id, file, fields, parsed, actor }));
-    res.status(201).json(stored);
+    res.status(201).json({ ...stored, warnings: citationWarnings(fields.source) });
   });
 
   router.get('/datasets/:id', requirePolicy('dataset:read'), async (req, res) => {
@@ -155,7 +178,7 @@ export function datasetRoutes(ctx: AppContext): Router {
     res.send(row.originalBytes);
   });
 
-  router.post('/datasets/:id/withdraw', requirePolicy('dataset:upload'), async (req, res) => {
+  router.post('/datasets/:id/withdraw', requireUser, requireDatasetAuthorOrAdmin, async (req, res) => {
     const { id } = validParams(idParams, req);
     const { reason } = validBody(withdrawBody, req);
     const actor = currentUser(res);
@@ -164,7 +187,7 @@ export function datasetRoutes(ctx: AppContext): Router {
       if (!dataset) throw notFound(`Dataset ${id}`);
       if (dataset.withdrawnAt) throw conflict(`Dataset ${id} is already withdrawn.`);
       await tx.insertInto('datasetWithdrawal').values({ datasetId: id, withdrawnBy: actor.id, withdrawnAt: new Date().toISOString(), reason }).execute();
-      await recordAudit(tx, { actor, action: 'dataset.withdrawn', targetType: 'dataset', targetId: id, summary: `${actor.email} withdrew dataset ${dataset.name}: ${reason}` });
+      await recordAudit(tx, { actor, action: 'dataset.withdrawn', targetType: 'dataset', targetId: id, summary: `${actor.email} withdrew dataset ${dataset.name}${dataset.createdBy === actor.id ? '' : ' (as admin; not the author)'}: ${reason}` });
     });
     res.json({ id, withdrawn: true });
   });

@@ -1,5 +1,6 @@
 import { Router } from 'express';
 import { createSubstanceBody, updateSubstanceBody } from '../../../shared/schemas/measurements';
+import { hasPolicy } from '../../../shared/auth/roles';
 import { currentUser, requirePolicy } from '../../common/auth-middleware';
 import { conflict, notFound } from '../../common/errors';
 import { idParams, validBody, validParams } from '../../common/validate';
@@ -54,6 +55,8 @@ export function substanceRoutes(ctx: AppContext): Router {
     const { id } = validParams(idParams, req);
     const substance = await findSubstance(db, id);
     if (!substance) throw notFound(`Substance ${id}`);
+    // Measurement sets are unpublished work: only the roles that may read them get the list.
+    if (!hasPolicy(currentUser(res).roles, 'dataset:read')) return res.json({ ...toSubstance(substance), createdByName: substance.createdByName });
     const datasets = await listDatasetsOfSubstance(db, id);
     res.json({ ...toSubstance(substance), createdByName: substance.createdByName, datasets: datasets.map(toDatasetSummary) });
   });
