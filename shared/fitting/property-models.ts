@@ -4,8 +4,10 @@
  */
 import { densityWithGradient, reducedDensityOf, reducedStateOf } from '../physics/corresponding-states';
 import { ljEosDensity } from '../physics/lj-eos';
+import { b3WithGradient } from '../physics/third-virial';
 import { b2WithGradient } from '../physics/virial';
 import { viscosityWithGradient } from '../physics/viscosity';
+import { saturationPrediction, saturationRangeProblem } from './saturation-properties';
 
 export interface PropertyContext {
   molarMassGPerMol?: number;
@@ -41,6 +43,12 @@ export interface PropertyModel {
    */
   sigmaExponent: number | null;
   evaluate(point: ModelPoint, epsilonK: number, sigmaAngstrom: number, context: PropertyContext): PropertyPrediction;
+  /**
+   * A message when the point lies outside what the model can predict at these parameters (a saturation point at
+   * or above the critical temperature), else null. The fit evaluates such points by continuation while it
+   * iterates and refuses the result if any remain outside at the final parameters.
+   */
+  rangeProblem?(point: ModelPoint, epsilonK: number, sigmaAngstrom: number, context: PropertyContext): string | null;
 }
 
 export const PROPERTY_MODELS = {
@@ -91,6 +99,51 @@ export const PROPERTY_MODELS = {
       const g = densityWithGradient(eos, state, context.molarMassGPerMol);
       return { value: g.densityKgPerM3, dEpsilonK: g.dRhodEpsilonK, dSigmaAngstrom: g.dRhodSigmaAngstrom };
     },
+  },
+  b3: {
+    // Classical, pairwise-additive B3 of the LJ 12-6 potential (third-virial.ts).
+    label: 'third virial coefficient B3',
+    unit: 'cm6/mol2',
+    needsMolarMass: false,
+    needsPressure: false,
+    sigmaExponent: 6,
+    evaluate(point, epsilonK, sigmaAngstrom) {
+      const p = b3WithGradient(point.temperatureK, epsilonK, sigmaAngstrom);
+      return { value: p.b3Cm6PerMol2, dEpsilonK: p.dB3dEpsilonK, dSigmaAngstrom: p.dB3dSigmaAngstrom };
+    },
+  },
+  saturatedLiquidDensity: {
+    label: 'saturated liquid density (Thol 2016 LJ equation of state)',
+    unit: 'kg/m3',
+    needsMolarMass: true,
+    needsPressure: false,
+    sigmaExponent: -3,
+    evaluate(point, epsilonK, sigmaAngstrom, context) {
+      return saturationPrediction('liquidDensity', point.temperatureK, epsilonK, sigmaAngstrom, context.molarMassGPerMol);
+    },
+    rangeProblem: (point, epsilonK) => saturationRangeProblem(point.temperatureK, epsilonK),
+  },
+  saturatedVapourDensity: {
+    label: 'saturated vapour density (Thol 2016 LJ equation of state)',
+    unit: 'kg/m3',
+    needsMolarMass: true,
+    needsPressure: false,
+    sigmaExponent: -3,
+    evaluate(point, epsilonK, sigmaAngstrom, context) {
+      return saturationPrediction('vapourDensity', point.temperatureK, epsilonK, sigmaAngstrom, context.molarMassGPerMol);
+    },
+    rangeProblem: (point, epsilonK) => saturationRangeProblem(point.temperatureK, epsilonK),
+  },
+  vapourPressure: {
+    label: 'vapour pressure (Thol 2016 LJ equation of state)',
+    unit: 'MPa',
+    needsMolarMass: false,
+    needsPressure: false,
+    sigmaExponent: -3,
+    evaluate(point, epsilonK, sigmaAngstrom, context) {
+      return saturationPrediction('vapourPressure', point.temperatureK, epsilonK, sigmaAngstrom, context.molarMassGPerMol);
+    },
+    rangeProblem: (point, epsilonK) => saturationRangeProblem(point.temperatureK, epsilonK),
   },
 } satisfies Record<string, PropertyModel>;
 

@@ -5,6 +5,7 @@
  */
 import {
   DEFAULT_RELATIVE_UNCERTAINTY,
+  PROPERTY_KIND_IDS,
   PROPERTY_KINDS,
   QUANTITIES,
   defaultUncertainty,
@@ -129,7 +130,7 @@ function checkOptions(options: ParseOptions, problems: ProblemList) {
     } else molarMassGPerMol = m;
   }
   if (options.kind !== undefined && !isPropertyKind(options.kind)) {
-    problems.add({ field: 'kind', code: 'invalid-option', message: `Unknown property kind "${String(options.kind)}"; expected b2, density or viscosity.` });
+    problems.add({ field: 'kind', code: 'invalid-option', message: `Unknown property kind "${String(options.kind)}"; expected one of ${PROPERTY_KIND_IDS.join(', ')}.` });
   }
   if (options.delimiter !== undefined && !DELIMITERS.includes(options.delimiter)) {
     problems.add({ field: 'delimiter', code: 'invalid-option', message: `Delimiter must be comma, semicolon or tab, got "${String(options.delimiter)}".` });
@@ -236,14 +237,14 @@ export function parseMeasurementCsv(text: string, options: ParseOptions = {}): P
     headerRecord.cells.map((header, index) => ({ index, header, unitText: meaning[index].unitText }));
 
   if (!kind) {
-    const valueHeaders = (['b2', 'density', 'viscosity'] as PropertyKind[]).filter((k) => present.has(PROPERTY_KINDS[k].valueQuantity));
+    const valueHeaders = PROPERTY_KIND_IDS.filter((k) => present.has(PROPERTY_KINDS[k].valueQuantity));
     problems.add({
       row: headerLine,
       code: 'unknown-kind',
       message:
         valueHeaders.length > 1
           ? `The header line has columns for several properties (${valueHeaders.join(', ')}); upload one property per file or choose the property.`
-          : `Cannot tell which property the file holds from its header line (${quoteList(headerRecord.cells)}); expected a B2, density or viscosity column such as "B2 (cm3/mol)", "rho (kg/m3)" or "eta (uPa s)", or choose the property and map the columns.`,
+          : `Cannot tell which property the file holds from its header line (${quoteList(headerRecord.cells)}); expected a column of one property such as "B2 (cm3/mol)", "rho (kg/m3)", "eta (uPa s)", "B3 (cm6/mol2)", "rho_liq (kg/m3)", "rho_vap (kg/m3)" or "p_sat (kPa)", or choose the property and map the columns.`,
     });
     return result({ decimal, columns: baseColumns(), unmappedColumns: headerRecord.cells.map((_, i) => i) });
   }

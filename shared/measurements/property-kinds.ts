@@ -4,12 +4,12 @@
  * branching on the kind, so a new kind is one more entry here.
  */
 
-export type PropertyKind = 'b2' | 'density' | 'viscosity';
+export type PropertyKind = 'b2' | 'density' | 'viscosity' | 'b3' | 'saturatedLiquidDensity' | 'saturatedVapourDensity' | 'vapourPressure';
 
-export const PROPERTY_KIND_IDS: readonly PropertyKind[] = ['b2', 'density', 'viscosity'];
+export const PROPERTY_KIND_IDS: readonly PropertyKind[] = ['b2', 'density', 'viscosity', 'b3', 'saturatedLiquidDensity', 'saturatedVapourDensity', 'vapourPressure'];
 
 /** Physical dimension of a column, checked on the unit written in its header. */
-export type Dimension = 'temperature' | 'pressure' | 'molarVolume' | 'massDensity' | 'amountDensity' | 'dynamicViscosity';
+export type Dimension = 'temperature' | 'pressure' | 'molarVolume' | 'molarVolumeSquared' | 'massDensity' | 'amountDensity' | 'dynamicViscosity';
 
 /** Keys of the quantities a column can hold (used by the column mapping). */
 export type QuantityKey =
@@ -20,7 +20,15 @@ export type QuantityKey =
   | 'density'
   | 'uDensity'
   | 'viscosity'
-  | 'uViscosity';
+  | 'uViscosity'
+  | 'b3'
+  | 'uB3'
+  | 'liquidDensity'
+  | 'uLiquidDensity'
+  | 'vapourDensity'
+  | 'uVapourDensity'
+  | 'vapourPressure'
+  | 'uVapourPressure';
 
 /** Canonical row field names, exactly as the API uses them. */
 export type CanonicalField =
@@ -31,7 +39,15 @@ export type CanonicalField =
   | 'densityKgPerM3'
   | 'uDensityKgPerM3'
   | 'viscosityMicroPaS'
-  | 'uViscosityMicroPaS';
+  | 'uViscosityMicroPaS'
+  | 'b3Cm6PerMol2'
+  | 'uB3Cm6PerMol2'
+  | 'liquidDensityKgPerM3'
+  | 'uLiquidDensityKgPerM3'
+  | 'vapourDensityKgPerM3'
+  | 'uVapourDensityKgPerM3'
+  | 'vapourPressureMPa'
+  | 'uVapourPressureMPa';
 
 export interface QuantityDefinition {
   key: QuantityKey;
@@ -174,6 +190,117 @@ export const QUANTITIES: Record<QuantityKey, QuantityDefinition> = {
     isUncertainty: true,
     exampleHeader: 'u(eta) (uPa s)',
   }),
+  b3: q({
+    key: 'b3',
+    symbol: 'B3',
+    field: 'b3Cm6PerMol2',
+    label: 'third virial coefficient B3',
+    canonicalUnit: 'cm^6/mol^2',
+    canonicalUnitLabel: 'cm⁶/mol²',
+    aliases: ['b3', 'b₃', 'b3(t)', 'thirdvirialcoefficient', 'thirdvirial'],
+    dimensions: ['molarVolumeSquared'],
+    positivity: 'any',
+    isUncertainty: false,
+    exampleHeader: 'B3 (cm6/mol2)',
+  }),
+  uB3: q({
+    key: 'uB3',
+    symbol: 'u(B3)',
+    field: 'uB3Cm6PerMol2',
+    label: 'uncertainty of B3',
+    canonicalUnit: 'cm^6/mol^2',
+    canonicalUnitLabel: 'cm⁶/mol²',
+    aliases: ['u(b3)', 'u(b₃)', 'ub3', 'δb3', 'uncertaintyb3', 'b3uncertainty'],
+    dimensions: ['molarVolumeSquared'],
+    positivity: 'positive',
+    nonPositiveCode: 'nonpositive-uncertainty',
+    isUncertainty: true,
+    exampleHeader: 'u(B3) (cm6/mol2)',
+  }),
+  liquidDensity: q({
+    key: 'liquidDensity',
+    symbol: 'ρ_liq',
+    field: 'liquidDensityKgPerM3',
+    label: 'saturated liquid density',
+    canonicalUnit: 'kg/m^3',
+    canonicalUnitLabel: 'kg/m³',
+    aliases: ['rholiq', 'ρliq', 'rhol', 'ρl', 'rholiquid', 'ρliquid', "ρ'", 'ρ′', 'liquiddensity', 'saturatedliquiddensity', 'rhosatliq'],
+    dimensions: ['massDensity', 'amountDensity'],
+    positivity: 'positive',
+    nonPositiveCode: 'nonpositive-density',
+    isUncertainty: false,
+    exampleHeader: 'rho_liq (kg/m3)',
+  }),
+  uLiquidDensity: q({
+    key: 'uLiquidDensity',
+    symbol: 'u(ρ_liq)',
+    field: 'uLiquidDensityKgPerM3',
+    label: 'uncertainty of saturated liquid density',
+    canonicalUnit: 'kg/m^3',
+    canonicalUnitLabel: 'kg/m³',
+    aliases: ['u(rholiq)', 'u(ρliq)', 'u(rhol)', 'u(ρl)', 'urholiq', 'δrholiq', 'u(liquiddensity)'],
+    dimensions: ['massDensity', 'amountDensity'],
+    positivity: 'positive',
+    nonPositiveCode: 'nonpositive-uncertainty',
+    isUncertainty: true,
+    exampleHeader: 'u(rho_liq) (kg/m3)',
+  }),
+  vapourDensity: q({
+    key: 'vapourDensity',
+    symbol: 'ρ_vap',
+    field: 'vapourDensityKgPerM3',
+    label: 'saturated vapour density',
+    canonicalUnit: 'kg/m^3',
+    canonicalUnitLabel: 'kg/m³',
+    aliases: ['rhovap', 'ρvap', 'rhov', 'ρv', 'rhovapour', 'rhovapor', "ρ''", 'ρ″', 'vapourdensity', 'vapordensity', 'saturatedvapourdensity', 'saturatedvapordensity'],
+    dimensions: ['massDensity', 'amountDensity'],
+    positivity: 'positive',
+    nonPositiveCode: 'nonpositive-density',
+    isUncertainty: false,
+    exampleHeader: 'rho_vap (kg/m3)',
+  }),
+  uVapourDensity: q({
+    key: 'uVapourDensity',
+    symbol: 'u(ρ_vap)',
+    field: 'uVapourDensityKgPerM3',
+    label: 'uncertainty of saturated vapour density',
+    canonicalUnit: 'kg/m^3',
+    canonicalUnitLabel: 'kg/m³',
+    aliases: ['u(rhovap)', 'u(ρvap)', 'u(rhov)', 'u(ρv)', 'urhovap', 'δrhovap', 'u(vapourdensity)', 'u(vapordensity)'],
+    dimensions: ['massDensity', 'amountDensity'],
+    positivity: 'positive',
+    nonPositiveCode: 'nonpositive-uncertainty',
+    isUncertainty: true,
+    exampleHeader: 'u(rho_vap) (kg/m3)',
+  }),
+  vapourPressure: q({
+    key: 'vapourPressure',
+    symbol: 'p_sat',
+    field: 'vapourPressureMPa',
+    label: 'vapour pressure',
+    canonicalUnit: 'MPa',
+    canonicalUnitLabel: 'MPa',
+    aliases: ['psat', 'ps', 'pσ', 'pvap', 'vapourpressure', 'vaporpressure', 'saturationpressure'],
+    dimensions: ['pressure'],
+    positivity: 'positive',
+    nonPositiveCode: 'nonpositive-pressure',
+    isUncertainty: false,
+    exampleHeader: 'p_sat (kPa)',
+  }),
+  uVapourPressure: q({
+    key: 'uVapourPressure',
+    symbol: 'u(p_sat)',
+    field: 'uVapourPressureMPa',
+    label: 'uncertainty of vapour pressure',
+    canonicalUnit: 'MPa',
+    canonicalUnitLabel: 'MPa',
+    aliases: ['u(psat)', 'u(ps)', 'u(pvap)', 'upsat', 'δpsat', 'u(vapourpressure)', 'u(vaporpressure)'],
+    dimensions: ['pressure'],
+    positivity: 'positive',
+    nonPositiveCode: 'nonpositive-uncertainty',
+    isUncertainty: true,
+    exampleHeader: 'u(p_sat) (kPa)',
+  }),
 };
 
 export interface KindColumn {
@@ -208,6 +335,9 @@ export interface PropertyKindDefinition {
  * best absolute uncertainty of careful B2 measurements (common practice, no source).
  */
 export const B2_DEFAULT_UNCERTAINTY_FLOOR_CM3_PER_MOL = 10;
+
+/** B3 crosses zero too (near T* ≈ 0.9 for LJ); 1000 cm⁶/mol² is the same kind of floor for it (common practice, no source). */
+export const B3_DEFAULT_UNCERTAINTY_FLOOR_CM6_PER_MOL2 = 1000;
 
 export const PROPERTY_KINDS: Record<PropertyKind, PropertyKindDefinition> = {
   b2: {
@@ -252,6 +382,63 @@ export const PROPERTY_KINDS: Record<PropertyKind, PropertyKindDefinition> = {
     valueField: 'viscosityMicroPaS',
     uncertaintyQuantity: 'uViscosity',
     uncertaintyField: 'uViscosityMicroPaS',
+    stateFields: ['temperatureK'],
+  },
+  b3: {
+    kind: 'b3',
+    label: 'Third virial coefficient B3(T)',
+    columns: [
+      { quantity: 'temperature', required: true },
+      { quantity: 'b3', required: true },
+      { quantity: 'uB3', required: false },
+    ],
+    valueQuantity: 'b3',
+    valueField: 'b3Cm6PerMol2',
+    uncertaintyQuantity: 'uB3',
+    uncertaintyField: 'uB3Cm6PerMol2',
+    stateFields: ['temperatureK'],
+    defaultUncertaintyFloor: B3_DEFAULT_UNCERTAINTY_FLOOR_CM6_PER_MOL2,
+  },
+  saturatedLiquidDensity: {
+    kind: 'saturatedLiquidDensity',
+    label: 'Saturated liquid density ρ_liq(T)',
+    columns: [
+      { quantity: 'temperature', required: true },
+      { quantity: 'liquidDensity', required: true },
+      { quantity: 'uLiquidDensity', required: false },
+    ],
+    valueQuantity: 'liquidDensity',
+    valueField: 'liquidDensityKgPerM3',
+    uncertaintyQuantity: 'uLiquidDensity',
+    uncertaintyField: 'uLiquidDensityKgPerM3',
+    stateFields: ['temperatureK'],
+  },
+  saturatedVapourDensity: {
+    kind: 'saturatedVapourDensity',
+    label: 'Saturated vapour density ρ_vap(T)',
+    columns: [
+      { quantity: 'temperature', required: true },
+      { quantity: 'vapourDensity', required: true },
+      { quantity: 'uVapourDensity', required: false },
+    ],
+    valueQuantity: 'vapourDensity',
+    valueField: 'vapourDensityKgPerM3',
+    uncertaintyQuantity: 'uVapourDensity',
+    uncertaintyField: 'uVapourDensityKgPerM3',
+    stateFields: ['temperatureK'],
+  },
+  vapourPressure: {
+    kind: 'vapourPressure',
+    label: 'Vapour pressure p_sat(T)',
+    columns: [
+      { quantity: 'temperature', required: true },
+      { quantity: 'vapourPressure', required: true },
+      { quantity: 'uVapourPressure', required: false },
+    ],
+    valueQuantity: 'vapourPressure',
+    valueField: 'vapourPressureMPa',
+    uncertaintyQuantity: 'uVapourPressure',
+    uncertaintyField: 'uVapourPressureMPa',
     stateFields: ['temperatureK'],
   },
 };
@@ -312,7 +499,35 @@ export interface ViscosityRow extends RowCommon {
   uViscosityMicroPaS: number;
 }
 
-export type CanonicalRow = B2Row | DensityRow | ViscosityRow;
+export interface B3Row extends RowCommon {
+  kind: 'b3';
+  temperatureK: number;
+  b3Cm6PerMol2: number;
+  uB3Cm6PerMol2: number;
+}
+
+export interface SaturatedLiquidDensityRow extends RowCommon {
+  kind: 'saturatedLiquidDensity';
+  temperatureK: number;
+  liquidDensityKgPerM3: number;
+  uLiquidDensityKgPerM3: number;
+}
+
+export interface SaturatedVapourDensityRow extends RowCommon {
+  kind: 'saturatedVapourDensity';
+  temperatureK: number;
+  vapourDensityKgPerM3: number;
+  uVapourDensityKgPerM3: number;
+}
+
+export interface VapourPressureRow extends RowCommon {
+  kind: 'vapourPressure';
+  temperatureK: number;
+  vapourPressureMPa: number;
+  uVapourPressureMPa: number;
+}
+
+export type CanonicalRow = B2Row | DensityRow | ViscosityRow | B3Row | SaturatedLiquidDensityRow | SaturatedVapourDensityRow | VapourPressureRow;
 
 /** Value and standard uncertainty of any row, read through the kind registry. */
 export function rowValueAndUncertainty(row: CanonicalRow): { value: number; uncertainty: number } {

@@ -66,3 +66,12 @@ describe('third virial coefficient B3', () => {
     expect(() => b3WithGradient(-1, 100, 3)).toThrow(/temperatureK/);
   });
 });
+
+describe('B3 interpolation table', () => {
+  it('agrees with direct quadrature between its nodes', () => {
+    for (const t of [0.3123, 0.517, 0.953, 1.2345, 3.21, 77.7]) {
+      const direct = reducedB3OfMayer(ljMayerFunction(t))[0];
+      expect(Math.abs(reducedB3(t) - direct)).toBeLessThan(2e-6 * Math.max(1, Math.abs(direct)));
+    }
+  });
+});

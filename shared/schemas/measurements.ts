@@ -147,7 +147,43 @@ export const viscosityRowSchema = z.object({
   viscosityMicroPaS: positive(),
   uViscosityMicroPaS: positive(),
 });
-export const canonicalRowSchema = z.discriminatedUnion('kind', [b2RowSchema, densityRowSchema, viscosityRowSchema]);
+export const b3RowSchema = z.object({
+  kind: z.literal('b3'),
+  ...rowCommon,
+  temperatureK: positive(),
+  b3Cm6PerMol2: z.number().finite(),
+  uB3Cm6PerMol2: positive(),
+});
+export const saturatedLiquidDensityRowSchema = z.object({
+  kind: z.literal('saturatedLiquidDensity'),
+  ...rowCommon,
+  temperatureK: positive(),
+  liquidDensityKgPerM3: positive(),
+  uLiquidDensityKgPerM3: positive(),
+});
+export const saturatedVapourDensityRowSchema = z.object({
+  kind: z.literal('saturatedVapourDensity'),
+  ...rowCommon,
+  temperatureK: positive(),
+  vapourDensityKgPerM3: positive(),
+  uVapourDensityKgPerM3: positive(),
+});
+export const vapourPressureRowSchema = z.object({
+  kind: z.literal('vapourPressure'),
+  ...rowCommon,
+  temperatureK: positive(),
+  vapourPressureMPa: positive(),
+  uVapourPressureMPa: positive(),
+});
+export const canonicalRowSchema = z.discriminatedUnion('kind', [
+  b2RowSchema,
+  densityRowSchema,
+  viscosityRowSchema,
+  b3RowSchema,
+  saturatedLiquidDensityRowSchema,
+  saturatedVapourDensityRowSchema,
+  vapourPressureRowSchema,
+]);
 export type CanonicalRowSchema = z.infer<typeof canonicalRowSchema>;
 
 /** Rows as GET /datasets/:id returns them (the kind is given once for the dataset), by kind. */
@@ -155,4 +191,8 @@ export const apiRowSchemas = {
   b2: b2RowSchema.omit({ kind: true }),
   density: densityRowSchema.omit({ kind: true }),
   viscosity: viscosityRowSchema.omit({ kind: true }),
+  b3: b3RowSchema.omit({ kind: true }),
+  saturatedLiquidDensity: saturatedLiquidDensityRowSchema.omit({ kind: true }),
+  saturatedVapourDensity: saturatedVapourDensityRowSchema.omit({ kind: true }),
+  vapourPressure: vapourPressureRowSchema.omit({ kind: true }),
 } as const;
