@@ -17,4 +17,12 @@ describe('interpolated B2 for samplers', () => {
       expect(Math.abs(fast.dB2dSigmaAngstrom - exact.dB2dSigmaAngstrom) / scale).toBeLessThan(1e-8);
     }
   });
+
+  it('does the same for a Mie 16-6 potential', () => {
+    for (const tStar of [0.5, 1.1, 4.4]) {
+      const exact = b2WithGradient(tStar * 150, 150, 3.7, undefined, { repulsiveExponent: 16 });
+      const fast = b2Interpolated(tStar * 150, 150, 3.7, 16);
+      expect(Math.abs(fast.b2Cm3PerMol - exact.b2Cm3PerMol) / (Math.abs(exact.b2Cm3PerMol) + 63.9)).toBeLessThan(1e-9);
+    }
+  });
 });

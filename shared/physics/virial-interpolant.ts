@@ -8,15 +8,18 @@
 import { b2WithGradient, b2ZeroCm3PerMol } from './virial';
 
 const STEP = 1 / 256;
-const nodes = new Map<number, [number, number]>();
+/** Memoised nodes per repulsive exponent λr (12: the LJ 12-6 potential). */
+const nodesByExponent = new Map<number, Map<number, [number, number]>>();
 
-function node(k: number): [number, number] {
+function node(k: number, n: number): [number, number] {
+  let nodes = nodesByExponent.get(n);
+  if (!nodes) nodesByExponent.set(n, (nodes = new Map()));
   let v = nodes.get(k);
   if (!v) {
     const tStar = Math.exp(k * STEP);
     // b2WithGradient at ε/k_B = 1 K, σ = 1 Å gives b0·B2* and ∂/∂ε = −b0·T*·dB2*∕dT*.
     const b0 = b2ZeroCm3PerMol(1);
-    const p = b2WithGradient(tStar, 1, 1);
+    const p = b2WithGradient(tStar, 1, 1, undefined, { repulsiveExponent: n });
     v = [p.b2Cm3PerMol / b0, -p.dB2dEpsilonK / b0];
     nodes.set(k, v);
   }
@@ -24,13 +27,13 @@ function node(k: number): [number, number] {
 }
 
 /** B2*(T*) and T*·dB2*∕dT* by Hermite interpolation (see file header). Throws outside the quadrature's range. */
-export function reducedB2Interpolated(tStar: number): { b2Reduced: number; tDb2dT: number } {
+export function reducedB2Interpolated(tStar: number, repulsiveExponent = 12): { b2Reduced: number; tDb2dT: number } {
   if (!(tStar > 0) || !Number.isFinite(tStar)) throw new RangeError(`tStar must be a finite number > 0 (got ${tStar})`);
   const x = Math.log(tStar) / STEP;
   const k = Math.floor(x);
   const t = x - k;
-  const [f0, d0] = node(k);
-  const [f1, d1] = node(k + 1);
+  const [f0, d0] = node(k, repulsiveExponent);
+  const [f1, d1] = node(k + 1, repulsiveExponent);
   // Hermite basis on [0, 1] with derivatives scaled by the step (d/dt = STEP·d/dx).
   const t2 = t * t;
   const t3 = t2 * t;
@@ -44,9 +47,9 @@ export function reducedB2Interpolated(tStar: number): { b2Reduced: number; tDb2d
 }
 
 /** Classical B2 in cm³/mol with its gradient, like b2WithGradient without the quantum term, from the interpolant. */
-export function b2Interpolated(temperatureK: number, epsilonK: number, sigmaAngstrom: number): { b2Cm3PerMol: number; dB2dEpsilonK: number; dB2dSigmaAngstrom: number } {
+export function b2Interpolated(temperatureK: number, epsilonK: number, sigmaAngstrom: number, repulsiveExponent = 12): { b2Cm3PerMol: number; dB2dEpsilonK: number; dB2dSigmaAngstrom: number } {
   const b0 = b2ZeroCm3PerMol(sigmaAngstrom);
-  const { b2Reduced, tDb2dT } = reducedB2Interpolated(temperatureK / epsilonK);
+  const { b2Reduced, tDb2dT } = reducedB2Interpolated(temperatureK / epsilonK, repulsiveExponent);
   const b2 = b0 * b2Reduced;
   return { b2Cm3PerMol: b2, dB2dEpsilonK: (-b0 * tDb2dT) / epsilonK, dB2dSigmaAngstrom: (3 * b2) / sigmaAngstrom };
 }

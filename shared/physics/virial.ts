@@ -8,8 +8,14 @@
  * B2,qm = N_A h²/(24π m (kT)³) ∫_0^∞ e^{−u/kT} (du/dr)² r² dr, which in reduced form is
  * B2,qm/b0 = Λ*² B_I*(T*), B_I* = (1/(16π² T*³)) ∫_0^∞ e^{−u*(x)/T*} (d(u*)/dx)² x² dx, Λ* = h/(σ√(mε)).
  * (Exchange effects are of higher order and not included.)
+ *
+ * The same integrals serve the Mie λr-6 potential u* = C[x^−λr − x^−6] (mie-potential.ts) through an optional
+ * repulsive exponent; λr = 12 takes exactly the 12-6 code path, so 12-6 numbers do not change by a bit.
+ * ∂B2*∕∂λr is taken under the integral sign: (3/T*) ∫ e^{−u*∕T*} (∂u*∕∂λr) x² dx with
+ * ∂u*∕∂λr = u*·d ln C∕dλr − C x^−λr ln x.
  */
 import { AVOGADRO_PER_MOL, ANGSTROM_M, BOLTZMANN_J_PER_K, PLANCK_J_S } from './constants';
+import { LJ_REPULSIVE_EXPONENT, mieMinimumPosition, miePrefactor, miePrefactorLogDerivative, requireRepulsiveExponent } from './mie-potential';
 import { integrateVector, type QuadratureOptions } from './quadrature';
 
 /** Reduced temperatures outside this span are rejected (e^{1/T*} overflows far below it; nothing physical lies beyond). */
@@ -36,14 +42,14 @@ function requireReducedTemperature(tStar: number): void {
  * ∫_0^∞ g(x) dx split at x = 1 (u = 0) and x = 2^{1/6} (minimum); the tail uses x = 2^{1/6}/t,
  * dx = 2^{1/6} dt/t², which turns the algebraic decay of the integrands into a polynomial in t.
  */
-function integrateSplit(g: (x: number) => number[], components: number, tStar: number): number[] {
+function integrateSplit(g: (x: number) => number[], components: number, tStar: number, xMin = X_MIN): number[] {
   const inner = integrateVector(g, 0, 1, components, QUAD);
-  const well = integrateVector(g, 1, X_MIN, components, QUAD);
+  const well = integrateVector(g, 1, xMin, components, QUAD);
   const tail = integrateVector(
     (t) => {
-      const x = X_MIN / t;
+      const x = xMin / t;
       const v = g(x);
-      const jac = X_MIN / (t * t);
+      const jac = xMin / (t * t);
       return v.map((c) => c * jac);
     },
     0,
@@ -58,43 +64,65 @@ function integrateSplit(g: (x: number) => number[], components: number, tStar: n
   return inner.values.map((v, c) => v + well.values[c] + tail.values[c]);
 }
 
-/** Reduced LJ potential u* = 4(w² − w) with w = x^−6, and x·d(u*)/dx = −24(2w² − w). */
-function reducedPotential(x: number): { u: number; xDu: number } {
+/**
+ * Reduced potential u* = C w (v − 1) with w = x^−6, v = x^(6−λr), and x·d(u*)/dx = −C w (λr v − 6);
+ * for λr = 12 (v = w, C = 4) exactly the LJ forms u* = 4(w² − w), x·d(u*)/dx = −24(2w² − w).
+ */
+function reducedPotential(x: number, n = LJ_REPULSIVE_EXPONENT): { u: number; xDu: number } {
   const w = Math.pow(x, -6);
-  return { u: 4 * w * (w - 1), xDu: -24 * w * (2 * w - 1) };
+  if (n === LJ_REPULSIVE_EXPONENT) return { u: 4 * w * (w - 1), xDu: -24 * w * (2 * w - 1) };
+  const c = miePrefactor(n);
+  const v = Math.pow(x, 6 - n);
+  return { u: c * w * (v - 1), xDu: -c * w * (n * v - 6) };
 }
 
+const minimumOf = (n: number) => (n === LJ_REPULSIVE_EXPONENT ? X_MIN : mieMinimumPosition(n));
+
 /** [B2*, d(B2*)/dT*] in one pass (the derivative is taken under the integral sign). */
-function classicalReduced(tStar: number): [number, number] {
+function classicalReduced(tStar: number, n = LJ_REPULSIVE_EXPONENT): [number, number] {
   const invT = 1 / tStar;
   const [b, db] = integrateSplit((x) => {
-    const { u } = reducedPotential(x);
+    const { u } = reducedPotential(x, n);
     const x2 = x * x;
     const boltz = Math.exp(-u * invT);
     // expm1 keeps full precision in the tail where |u/T*| ≪ 1.
     return [-3 * Math.expm1(-u * invT) * x2, -3 * boltz * u * invT * invT * x2];
-  }, 2, tStar);
+  }, 2, tStar, minimumOf(n));
   return [b, db];
 }
 
+/** ∂(B2*)/∂λr at fixed T* (see file header). */
+function classicalReducedExponentDerivative(tStar: number, n: number): number {
+  const invT = 1 / tStar;
+  const c = miePrefactor(n);
+  const dLnC = miePrefactorLogDerivative(n);
+  const [d] = integrateSplit((x) => {
+    const { u } = reducedPotential(x, n);
+    const du = u * dLnC - c * Math.pow(x, -n) * Math.log(x);
+    return [3 * invT * Math.exp(-u * invT) * du * x * x];
+  }, 1, tStar, minimumOf(n));
+  return d;
+}
+
 /** [B_I*, d(B_I*)/dT*] of the first quantum correction (see file header). */
-function quantumReduced(tStar: number): [number, number] {
+function quantumReduced(tStar: number, n = LJ_REPULSIVE_EXPONENT): [number, number] {
   const invT = 1 / tStar;
   const [i0, i1] = integrateSplit((x) => {
-    const { u, xDu } = reducedPotential(x);
+    const { u, xDu } = reducedPotential(x, n);
     // (d(u*)/dx)² x² = (x d(u*)/dx)²
     const k = Math.exp(-u * invT) * xDu * xDu;
     return [k, k * u * invT * invT];
-  }, 2, tStar);
+  }, 2, tStar, minimumOf(n));
   const c = 1 / (16 * Math.PI * Math.PI);
   const t3 = tStar * tStar * tStar;
   return [(c * i0) / t3, (c * i1) / t3 - (3 * c * i0) / (t3 * tStar)];
 }
 
-/** Reduced classical second virial coefficient B2*(T*) = B2/b0 of the LJ 12-6 potential. */
-export function reducedB2(tStar: number): number {
+/** Reduced classical second virial coefficient B2*(T*) = B2/b0 of the LJ 12-6 potential (or Mie λr-6 with λr given). */
+export function reducedB2(tStar: number, repulsiveExponent = LJ_REPULSIVE_EXPONENT): number {
   requireReducedTemperature(tStar);
-  return classicalReduced(tStar)[0];
+  requireRepulsiveExponent(repulsiveExponent);
+  return classicalReduced(tStar, repulsiveExponent)[0];
 }
 
 /** d(B2*)/dT* of the classical reduced second virial coefficient. */
@@ -135,6 +163,15 @@ export interface B2Point {
   dB2dSigmaAngstrom: number;
   /** First-order Wigner–Kirkwood term included in b2Cm3PerMol (0 when classical), cm³/mol. */
   quantumCorrectionCm3PerMol: number;
+  /** ∂B2/∂λr, cm³/mol (classical part), only when asked for with `exponentDerivative`. */
+  dB2dRepulsiveExponent?: number;
+}
+
+export interface B2PotentialOptions {
+  /** λr of the Mie λr-6 potential (default 12, the LJ 12-6 potential). */
+  repulsiveExponent?: number;
+  /** Also compute ∂B2/∂λr (one more quadrature). */
+  exponentDerivative?: boolean;
 }
 
 /**
@@ -148,7 +185,10 @@ export function b2WithGradient(
   epsilonK: number,
   sigmaAngstrom: number,
   quantum?: { molarMassGPerMol: number },
+  potential: B2PotentialOptions = {},
 ): B2Point {
+  const n = potential.repulsiveExponent ?? LJ_REPULSIVE_EXPONENT;
+  requireRepulsiveExponent(n);
   requirePositiveFinite('temperatureK', temperatureK);
   requirePositiveFinite('epsilonK', epsilonK);
   requirePositiveFinite('sigmaAngstrom', sigmaAngstrom);
@@ -156,7 +196,7 @@ export function b2WithGradient(
   const tStar = temperatureK / epsilonK;
   requireReducedTemperature(tStar);
   const b0 = b2ZeroCm3PerMol(sigmaAngstrom);
-  const [bStar, dbStar] = classicalReduced(tStar);
+  const [bStar, dbStar] = classicalReduced(tStar, n);
   const classical = b0 * bStar;
   let b2 = classical;
   let dEps = (-b0 * tStar * dbStar) / epsilonK;
@@ -164,13 +204,15 @@ export function b2WithGradient(
   let quantumCorrection = 0;
   if (quantum !== undefined) {
     const lambda2 = deBoerParameterSquared(epsilonK, sigmaAngstrom, quantum.molarMassGPerMol);
-    const [bI, dbI] = quantumReduced(tStar);
+    const [bI, dbI] = quantumReduced(tStar, n);
     quantumCorrection = b0 * lambda2 * bI;
     b2 += quantumCorrection;
     dEps += b0 * lambda2 * (-bI / epsilonK - (tStar * dbI) / epsilonK);
     dSigma += quantumCorrection / sigmaAngstrom; // d(σ³·σ^−2)/dσ = σ⁰ → (3 − 2)·term/σ
   }
-  return { b2Cm3PerMol: b2, dB2dEpsilonK: dEps, dB2dSigmaAngstrom: dSigma, quantumCorrectionCm3PerMol: quantumCorrection };
+  const result: B2Point = { b2Cm3PerMol: b2, dB2dEpsilonK: dEps, dB2dSigmaAngstrom: dSigma, quantumCorrectionCm3PerMol: quantumCorrection };
+  if (potential.exponentDerivative) result.dB2dRepulsiveExponent = b0 * classicalReducedExponentDerivative(tStar, n);
+  return result;
 }
 
 let boyleCache: number | undefined;
