@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { mdSettingsSchema } from './simulations';
+import { mdSettingsSchema, withinWorkLimit } from './simulations';
 
 const range = (name: string, lo: number, hi: number) =>
   z
@@ -31,7 +31,7 @@ export const createFitBody = z.object({
       restarts: z.number().int().min(0).max(10).optional(),
       maxIterations: z.number().int().min(5).max(2000).optional(),
       /** Engine settings of the simulation stage of a fit with density data (reduced units). */
-      density: mdSettingsSchema.strict().optional(),
+      density: mdSettingsSchema.strict().superRefine(withinWorkLimit).optional(),
     })
     .strict()
     .optional(),

@@ -25,6 +25,29 @@ describe('simulations', () => {
     expect(bad.body.error.details.map((d: { field: string }) => d.field)).toEqual(expect.arrayContaining(['reducedTemperature', 'reducedPressure', 'cutoff']));
   });
 
+  it('states per-request limits: at most 4 000 atoms, 500 000 steps and 250 000 000 atom-steps per run', async () => {
+    const huge = await modeller.post('/api/simulations').send({ reducedTemperature: 1.2, reducedPressure: 0.5, atoms: 20000, steps: 2_000_000 });
+    expect(huge.status).toBe(400);
+    expect(huge.body.error.details.map((d: { field: string }) => d.field)).toEqual(expect.arrayContaining(['atoms', 'steps']));
+    // Each within its own cap, too much together: 4 000 × 100 000 = 4·10⁸.
+    const product = await modeller.post('/api/simulations').send({ reducedTemperature: 1.2, reducedPressure: 0.5, atoms: 4000, steps: 100_000 });
+    expect(product.status).toBe(400);
+    expect(product.body.error.details).toEqual([expect.objectContaining({ field: 'steps', message: expect.stringContaining('atoms × steps') })]);
+    const fromSet = await modeller.post('/api/simulations/from-dataset').send({ datasetId: 1, epsilonK: 131.5, sigmaAngstrom: 3.524, atoms: 4000, steps: 100_000 });
+    expect(fromSet.status).toBe(400);
+  });
+
+  it('health reports the queue (counts only); signed-in people see the worker processes', async () => {
+    const health = await t.client().get('/api/health');
+    expect(health.body.queue).toMatchObject({ driver: 'sqlite', workers: 1, lanes: { simulation: expect.any(Object), fast: expect.any(Object) } });
+    expect(health.body.queue.workerList).toBeUndefined();
+    expect((await t.client().get('/api/simulations/queue')).status).toBe(401);
+    const admin = await t.signIn(EMAIL.admin);
+    const queue = await admin.get('/api/simulations/queue');
+    expect(queue.status).toBe(200);
+    expect(queue.body.queue.workerList).toEqual([expect.objectContaining({ threads: { simulation: 2, fast: 1 } })]);
+  });
+
   it('runs a state point in the background and reuses it for an identical request', async () => {
     const body = { reducedTemperature: 2.0, reducedPressure: 1.0, seed: 11, ...SHORT };
     const first = await modeller.post('/api/simulations').send(body);
@@ -41,6 +64,8 @@ describe('simulations', () => {
     expect(got.body.summary.reducedDensity).toBeLessThan(0.53);
     expect(got.body.trace.step.length).toBeGreaterThan(10);
     expect(got.body.state).toMatchObject({ atoms: 108, steps: 2000, cutoff: 2.5, scheme: 'truncated-tail', seed: 11 });
+    // Where it ran: this (web) process, with the embedded driver.
+    expect(got.body.ranOn).toMatch(new RegExp(`:${process.pid}$`));
     const list = await modeller.get('/api/simulations');
     expect(list.body.simulations[0].trace).toBeUndefined();
   });

@@ -7,7 +7,9 @@ export function healthRoutes(ctx: AppContext): Router {
   const router = Router();
   router.get('/health', async (_req, res) => {
     await sql`select 1`.execute(ctx.db);
-    res.json({ status: 'ok', version: pkg.version, database: 'ok', time: new Date().toISOString() });
+    // Counts only: which machines run the jobs is for signed-in people (GET /api/simulations/queue).
+    const { workerList: _workers, ...queue } = await ctx.jobs.health();
+    res.json({ status: 'ok', version: pkg.version, database: 'ok', queue, time: new Date().toISOString() });
   });
   return router;
 }

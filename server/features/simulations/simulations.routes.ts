@@ -21,6 +21,11 @@ export function simulationRoutes(ctx: AppContext): Router {
     res.json({ simulations: await listSimulations(db) });
   });
 
+  /** The queue as the admin sees it: driver, waiting/active/delayed per lane, and the live worker processes. */
+  router.get('/simulations/queue', requirePolicy('simulation:read'), async (_req, res) => {
+    res.json({ queue: await ctx.jobs.health() });
+  });
+
   router.post('/simulations', requirePolicy('simulation:run'), async (req, res) => {
     const body = validBody(createSimulationBody, req);
     res.status(202).json(await createSimulation(ctx, currentUser(res), body));

@@ -41,7 +41,7 @@ export function SimulationDetailRoute() {
       <PageHeader
         eyebrow={<Link to="/simulations" className="hover:underline">Simulations</Link>}
         title={`Simulation ${s.id}`}
-        subtitle={<span className="flex flex-wrap items-center gap-2"><FitStatusBadge status={s.status} /> NPT at T* = {s.state.reducedTemperature}, P* = {s.state.reducedPressure} · {s.state.atoms} atoms · {s.state.steps} steps · rc = {s.state.cutoff}σ, {s.state.scheme} · seed {s.state.seed}</span>}
+        subtitle={<span className="flex flex-wrap items-center gap-2"><FitStatusBadge status={s.status} /> NPT at T* = {s.state.reducedTemperature}, P* = {s.state.reducedPressure} · {s.state.atoms} atoms · {s.state.steps} steps · rc = {s.state.cutoff}σ, {s.state.scheme} · seed {s.state.seed}{s.ranOn && <> · {s.status === 'running' ? 'running on' : 'ran on'} {s.ranOn}</>}</span>}
       />
       {(s.status === 'queued' || s.status === 'running') && (
         <Panel title="Running" className="mb-6">

@@ -8,7 +8,8 @@ import { ProgressBar } from '@/components/ui/progress-bar';
 import { EmptyState, ErrorState, LoadingState, PageHeader, Panel } from '@/components/ui/states';
 import { useCan } from '@/lib/authorization';
 import { FitStatusBadge } from '@/features/fits/components/fit-status-badge';
-import { useSimulations, useStartSimulation } from '@/features/simulations/api/simulations';
+import { SIMULATION_LIMITS } from '@shared/schemas/simulations';
+import { useQueueState, useSimulations, useStartSimulation } from '@/features/simulations/api/simulations';
 import { PhaseBadge } from '@/features/simulations/components/phase-badge';
 
 /** What became of the run just started, kept current from the polled list (queued → running → finished). */
@@ -34,19 +35,24 @@ function StartForm() {
   const [steps, setSteps] = useState('20000');
   const [scheme, setScheme] = useState<'truncated-tail' | 'truncated-shifted'>('truncated-tail');
   const [cutoff, setCutoff] = useState('2.5');
+  const atomSteps = Number(atoms) * Number(steps);
+  const tooMuch = Number.isFinite(atomSteps) && atomSteps > SIMULATION_LIMITS.maxAtomSteps;
   return (
     <form
       className="grid gap-3"
       onSubmit={(e) => {
         e.preventDefault();
+        if (tooMuch) return;
         start.mutate({ reducedTemperature: Number(t), reducedPressure: Number(p), atoms: Number(atoms), steps: Number(steps), scheme, cutoff: Number(cutoff) });
       }}
     >
       <div className="grid grid-cols-2 gap-3">
         <Field label="T*" htmlFor="sim-t"><Input id="sim-t" inputMode="decimal" value={t} onChange={(e) => setT(e.target.value)} /></Field>
         <Field label="P*" htmlFor="sim-p"><Input id="sim-p" inputMode="decimal" value={p} onChange={(e) => setP(e.target.value)} /></Field>
-        <Field label="Atoms" htmlFor="sim-n"><Input id="sim-n" inputMode="numeric" value={atoms} onChange={(e) => setAtoms(e.target.value)} /></Field>
-        <Field label="MD steps" htmlFor="sim-steps"><Input id="sim-steps" inputMode="numeric" value={steps} onChange={(e) => setSteps(e.target.value)} /></Field>
+        <Field label="Atoms" htmlFor="sim-n" hint={`${SIMULATION_LIMITS.minAtoms}–${SIMULATION_LIMITS.maxAtoms.toLocaleString('en-GB')}`}><Input id="sim-n" inputMode="numeric" value={atoms} onChange={(e) => setAtoms(e.target.value)} /></Field>
+        <Field label="MD steps" htmlFor="sim-steps" hint={`${SIMULATION_LIMITS.minSteps.toLocaleString('en-GB')}–${SIMULATION_LIMITS.maxSteps.toLocaleString('en-GB')}`} error={tooMuch ? `Atoms × steps may be at most ${SIMULATION_LIMITS.maxAtomSteps.toLocaleString('en-GB')} per run (a density fit uses 256 × 10 000).` : undefined}>
+          <Input id="sim-steps" inputMode="numeric" value={steps} aria-invalid={tooMuch || undefined} aria-describedby={tooMuch ? 'sim-steps-error' : undefined} onChange={(e) => setSteps(e.target.value)} />
+        </Field>
         <Field label="Cutoff rc/σ" htmlFor="sim-rc"><Input id="sim-rc" inputMode="decimal" value={cutoff} onChange={(e) => setCutoff(e.target.value)} /></Field>
         <Field label="Scheme" htmlFor="sim-scheme">
           <Select id="sim-scheme" value={scheme} onChange={(e) => setScheme(e.target.value as typeof scheme)}>
@@ -57,18 +63,71 @@ function StartForm() {
       </div>
       {start.isError && <p role="alert" className="text-sm text-changes">{start.error.message}</p>}
       {start.isSuccess && <StartedNotice id={start.data.id} reused={start.data.reused} />}
-      <div><Button type="submit" variant="primary" busy={start.isPending}>Run NPT simulation</Button></div>
+      <p className="text-xs text-ink-faint">Limits per run: {SIMULATION_LIMITS.minAtoms}–{SIMULATION_LIMITS.maxAtoms.toLocaleString('en-GB')} atoms, {SIMULATION_LIMITS.minSteps.toLocaleString('en-GB')}–{SIMULATION_LIMITS.maxSteps.toLocaleString('en-GB')} steps, atoms × steps ≤ {SIMULATION_LIMITS.maxAtomSteps.toLocaleString('en-GB')}.</p>
+      <div><Button type="submit" variant="primary" busy={start.isPending} disabled={tooMuch}>Run NPT simulation</Button></div>
     </form>
+  );
+}
+
+/** The job queue for the admin: driver, what waits and runs in each lane, and the live worker processes. */
+function QueuePanel() {
+  const queue = useQueueState();
+  return (
+    <Panel title="Job queue">
+      {queue.isPending ? (
+        <LoadingState />
+      ) : queue.isError ? (
+        <ErrorState error={queue.error} onRetry={() => queue.refetch()} />
+      ) : (
+        <div className="grid gap-3 text-sm">
+          <p>
+            {queue.data.driver === 'redis' ? 'Redis (BullMQ): jobs run on worker processes.' : 'Embedded: jobs run in the web process.'} {queue.data.workers} live worker process{queue.data.workers === 1 ? '' : 'es'}.
+          </p>
+          <table className="w-full text-left">
+            <thead>
+              <tr className="text-xs text-ink-faint">
+                <th scope="col" className="py-1 font-semibold">Lane</th>
+                <th scope="col" className="py-1 font-semibold">Waiting</th>
+                <th scope="col" className="py-1 font-semibold">Running</th>
+                <th scope="col" className="py-1 font-semibold">Retry pending</th>
+              </tr>
+            </thead>
+            <tbody className="num">
+              {(['simulation', 'fast'] as const).map((lane) => (
+                <tr key={lane}>
+                  <th scope="row" className="py-1 font-normal">{lane === 'fast' ? 'Fast fits' : 'Simulations'}</th>
+                  <td>{queue.data.lanes[lane].waiting}</td>
+                  <td>{queue.data.lanes[lane].active}</td>
+                  <td>{queue.data.lanes[lane].delayed}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+          {queue.data.workerList.length === 0 ? (
+            <p className="text-changes">No worker process is running: queued jobs wait until one starts (npm run worker).</p>
+          ) : (
+            <ul className="grid gap-1" aria-label="Worker processes">
+              {queue.data.workerList.map((w) => (
+                <li key={w.name}>
+                  <span className="font-semibold">{w.name}</span> · {w.threads.simulation} simulation and {w.threads.fast} fast thread{w.threads.fast === 1 ? '' : 's'} · {w.active} running
+                </li>
+              ))}
+            </ul>
+          )}
+        </div>
+      )}
+    </Panel>
   );
 }
 
 export function SimulationsRoute() {
   const sims = useSimulations();
   const canRun = useCan('simulation:run');
+  const isAdmin = useCan('people:manage');
   return (
     <>
       <PageHeader eyebrow="Molecular dynamics" title="Simulations" subtitle="NPT runs of the LJ fluid at reduced state points. One run serves every substance whose (ε, σ) maps to its state; identical requests reuse the stored result." />
-      <div className={`grid gap-6 ${canRun ? 'lg:grid-cols-[2fr_1fr]' : ''}`}>
+      <div className={`grid gap-6 ${canRun || isAdmin ? 'lg:grid-cols-[2fr_1fr]' : ''}`}>
         <Panel title="Runs">
           {sims.isPending ? (
             <LoadingState />
@@ -92,6 +151,7 @@ export function SimulationsRoute() {
                   <div className="mt-1 text-xs text-ink-faint">
                     {s.state.atoms} atoms · {s.state.steps} steps · r_c = {s.state.cutoff} σ · {CUTOFF_SCHEME_LABELS[s.state.scheme]?.toLowerCase() ?? s.state.scheme} · seed {s.state.seed}
                     {s.origin && <> · from row {s.origin.fileRow} of set {s.origin.datasetId} (ε/k_B = {s.origin.epsilonK} K, σ = {s.origin.sigmaAngstrom} Å)</>}
+                    {s.ranOn && <> · {s.status === 'running' ? 'running on' : 'ran on'} {s.ranOn}{s.attempts > 1 ? ` (start ${s.attempts})` : ''}</>}
                   </div>
                   {(s.status === 'running' || s.status === 'queued') && <div className="mt-2"><ProgressBar fraction={s.progress} label={s.status === 'queued' ? 'Waiting for a free worker' : s.stage ?? 'Running'} /></div>}
                   {s.summary && <div className="num mt-1 text-sm">ρ* = {formatWithUncertainty(s.summary.reducedDensity, s.summary.stdErr)}</div>}
@@ -101,7 +161,12 @@ export function SimulationsRoute() {
             </ul>
           )}
         </Panel>
-        {canRun && <Panel title="New run"><StartForm /></Panel>}
+        {(canRun || isAdmin) && (
+          <div className="grid content-start gap-6">
+            {canRun && <Panel title="New run"><StartForm /></Panel>}
+            {isAdmin && <QueuePanel />}
+          </div>
+        )}
       </div>
     </>
   );

@@ -40,6 +40,8 @@ export interface Simulation {
   retryable: boolean;
   attempts: number;
   seed: number;
+  /** Worker process that ran (or runs) it: host and process id. */
+  ranOn: string | null;
   createdAt: string;
   startedAt: string | null;
   finishedAt: string | null;
@@ -49,9 +51,27 @@ export interface Simulation {
   trace?: { step: number[]; reducedDensity: number[]; reducedTemperature: number[]; potentialEnergyPerAtom: number[]; q6: number[] };
 }
 
+export interface QueueLane {
+  waiting: number;
+  active: number;
+  delayed: number;
+}
+
+/** GET /api/simulations/queue: the job queue as the admin sees it. */
+export interface QueueState {
+  driver: 'sqlite' | 'redis';
+  waiting: number;
+  active: number;
+  delayed: number;
+  workers: number;
+  lanes: { simulation: QueueLane; fast: QueueLane };
+  workerList: Array<{ name: string; host: string; pid: number; threads: { simulation: number; fast: number }; active: number; startedAt: string; lastSeenAt: string }>;
+}
+
 export const simulationKeys = {
   all: ['simulations'] as const,
   list: () => [...simulationKeys.all, 'list'] as const,
+  queue: () => [...simulationKeys.all, 'queue'] as const,
   detail: (id: number) => [...simulationKeys.all, 'detail', id] as const,
 };
 
@@ -71,7 +91,15 @@ export const simulationQueryOptions = (id: number) =>
     refetchInterval: (q) => (live(q.state.data?.status) ? 1000 : false),
   });
 
+export const queueQueryOptions = () =>
+  queryOptions({
+    queryKey: simulationKeys.queue(),
+    queryFn: () => api<{ queue: QueueState }>('/simulations/queue').then((r) => r.queue),
+    refetchInterval: 3000,
+  });
+
 export const useSimulations = () => useQuery(simulationsQueryOptions());
+export const useQueueState = (enabled = true) => useQuery({ ...queueQueryOptions(), enabled });
 export const useSimulation = (id: number) => useQuery(simulationQueryOptions(id));
 
 export const useStartSimulation = () => {
