@@ -3,7 +3,6 @@ import type { Session } from 'lucia';
 import { hasPolicy, type Policy, type Role } from '../../shared/auth/roles';
 import type { Db } from '../db/database';
 import type { Auth } from '../features/auth/auth';
-import { rolesOf } from '../features/users/users.repository';
 import { AppError, forbidden, unauthorized } from './errors';
 
 export interface CurrentUser {
@@ -53,7 +52,7 @@ export function sameOrigin(origin: string | undefined, protocol: string, host: s
 }
 
 /** Reads the session cookie, refreshes or clears it, and loads the user with their roles. */
-export function sessionMiddleware(auth: Auth, db: Db): RequestHandler {
+export function sessionMiddleware(auth: Auth, _db?: Db): RequestHandler {
   return async (req, res, next) => {
     const sessionId = auth.readSessionCookie(req.headers.cookie ?? '');
     if (!sessionId) return next();
@@ -63,14 +62,14 @@ export function sessionMiddleware(auth: Auth, db: Db): RequestHandler {
       return next();
     }
     if (session.fresh) res.append('Set-Cookie', auth.createSessionCookie(session.id).serialize());
-    const row = await db.selectFrom('user').select(['id', 'email', 'name', 'active']).where('id', '=', user.id).executeTakeFirst();
-    if (!row || row.active !== 1) {
+    // The session lookup brought the person with their roles (server/features/auth/auth.ts): no further query.
+    if (user.active !== 1) {
       await auth.invalidateSession(session.id);
       res.append('Set-Cookie', auth.createBlankSessionCookie().serialize());
       return next();
     }
     res.locals.session = session;
-    res.locals.user = { id: row.id, email: row.email, name: row.name, roles: await rolesOf(db, row.id) };
+    res.locals.user = { id: user.id, email: user.email, name: user.name, roles: user.roles };
     next();
   };
 }

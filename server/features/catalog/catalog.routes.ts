@@ -6,7 +6,7 @@ import type { AppContext } from '../../app-context';
 import { currentUser, requirePolicy } from '../../common/auth-middleware';
 import { notFound } from '../../common/errors';
 import { idParams, validParams, validQuery } from '../../common/validate';
-import { exportableSet, exportMixtureFile, exportSetFile, mixtureJson, parameterCard, searchCatalog } from './catalog.service';
+import { cachedCatalogSearch, exportableSet, exportMixtureFile, exportSetFile, mixtureJson, parameterCard } from './catalog.service';
 import { openApiDocument } from './openapi';
 
 /** Published JSON Schemas of the export formats, by file name. */
@@ -31,9 +31,10 @@ export function catalogRoutes(ctx: AppContext): Router {
   const router = Router();
   const { db } = ctx;
 
+  const searchCatalog = cachedCatalogSearch(db, ctx.sqlite);
   router.get('/catalog', requirePolicy('catalog:read'), async (req, res) => {
     const query = validQuery(catalogQuery, req);
-    res.json({ sets: await searchCatalog(db, query) });
+    res.type('application/json').send(await searchCatalog(query));
   });
 
   router.get('/catalog/:id', requirePolicy('catalog:read'), async (req, res) => {

@@ -7,6 +7,7 @@ import { CUTOFF_SCHEME_LABELS } from '../../../shared/schemas/parameter-sets';
 import type { CatalogQuery } from '../../../shared/schemas/catalog';
 import type { CurrentUser } from '../../common/auth-middleware';
 import { AppError, notFound } from '../../common/errors';
+import type SQLite from 'better-sqlite3';
 import type { Db } from '../../db/database';
 import type { FitDatasetRef } from '../fits/fits.service';
 import { getParameterSetDetail } from '../parameter-sets/parameter-sets.service';
@@ -48,24 +49,53 @@ function toCatalogEntry(row: CatalogRow, approval: { at: string; actorName: stri
 
 export type CatalogEntry = ReturnType<typeof toCatalogEntry>;
 
+/** True when a catalog entry passes the search filters of GET /api/catalog. */
+function matchesQuery(e: CatalogEntry, query: CatalogQuery): boolean {
+  const needle = query.q?.toLowerCase();
+  if (needle && !e.substanceName.toLowerCase().includes(needle) && !(e.formula ?? '').toLowerCase().includes(needle)) return false;
+  if (query.scheme && e.scheme !== query.scheme) return false;
+  if (query.kind?.length && !query.kind.every((k) => e.kinds.includes(k as PropertyKind))) return false;
+  // Overlap of the closed ranges [tMin, tMax] and the set's validity.
+  if (query.tMinK !== undefined && e.validity.temperatureMaxK < query.tMinK) return false;
+  if (query.tMaxK !== undefined && e.validity.temperatureMinK > query.tMaxK) return false;
+  return true;
+}
+
+/** Every current approved set as the catalog lists it: two queries, whatever the number of sets. */
+async function loadCatalogEntries(db: Db): Promise<CatalogEntry[]> {
+  const rows = await listCatalogRows(db, ['approved']);
+  const approvalsById = await approvals(db, rows.map((r) => r.approveTransitionId).filter((x): x is number => x != null));
+  return rows.map((r) => toCatalogEntry(r, r.approveTransitionId != null ? approvalsById.get(r.approveTransitionId) : undefined));
+}
+
 /** GET /api/catalog: the current approved version of each substance and scheme, filtered. */
 export async function searchCatalog(db: Db, query: CatalogQuery): Promise<CatalogEntry[]> {
-  const rows = await listCatalogRows(db, ['approved']);
-  const needle = query.q?.toLowerCase();
-  const kept = rows.filter((r) => {
-    if (needle && !r.substanceName.toLowerCase().includes(needle) && !(r.formula ?? '').toLowerCase().includes(needle)) return false;
-    if (query.scheme && r.scheme !== query.scheme) return false;
-    if (query.kind?.length) {
-      const kinds = kindsOf(r);
-      if (!query.kind.every((k) => kinds.includes(k as PropertyKind))) return false;
+  return (await loadCatalogEntries(db)).filter((e) => matchesQuery(e, query));
+}
+
+/**
+ * GET /api/catalog for many readers: the entries (values, approvals, kinds parsed from their JSON) and each
+ * entry's JSON text are built once and reused until the database changes. "Changed" is SQLite's own count:
+ * total_changes() for writes on this connection and data_version for commits by any other connection (a
+ * worker process), so no write path has to remember to invalidate anything. A request then costs one tiny
+ * statement, the filter and a string join.
+ */
+export function cachedCatalogSearch(db: Db, sqlite: SQLite.Database) {
+  const changeMark = sqlite.prepare('select total_changes() as tc, (select data_version from pragma_data_version()) as dv');
+  let cache: { mark: string; entries: Promise<Array<{ entry: CatalogEntry; json: string }>> } | undefined;
+  return async (query: CatalogQuery): Promise<string> => {
+    const { tc, dv } = changeMark.get() as { tc: number; dv: number };
+    const mark = `${dv}:${tc}`;
+    if (cache?.mark !== mark) {
+      const entries = loadCatalogEntries(db).then((list) => list.map((entry) => ({ entry, json: JSON.stringify(entry) })));
+      cache = { mark, entries };
+      entries.catch(() => {
+        if (cache?.entries === entries) cache = undefined;
+      });
     }
-    // Overlap of the closed ranges [tMin, tMax] and the set's validity.
-    if (query.tMinK !== undefined && r.temperatureMaxK < query.tMinK) return false;
-    if (query.tMaxK !== undefined && r.temperatureMinK > query.tMaxK) return false;
-    return true;
-  });
-  const approvalsById = await approvals(db, kept.map((r) => r.approveTransitionId).filter((x): x is number => x != null));
-  return kept.map((r) => toCatalogEntry(r, r.approveTransitionId != null ? approvalsById.get(r.approveTransitionId) : undefined));
+    const kept = (await cache.entries).filter((e) => matchesQuery(e.entry, query));
+    return `{"sets":[${kept.map((e) => e.json).join(',')}]}`;
+  };
 }
 
 /** A published set, or 404 (unpublished sets have no card; the review page shows them to the review roles). */
