@@ -5,7 +5,7 @@
  * per file; headers such as "T (K),B2 (cm3/mol),u(B2) (cm3/mol)", "T (K),eta (uPa s)" or "T (K),P (MPa),rho (kg/m3)").
  * With density data the equation-of-state stage is followed by the simulation stage: NPT runs in worker
  * threads (WORKERS, default cores − 1), cached for the duration of the command.
- * Prints { status, epsilonK, sigmaAngstrom, stdErr, correlation, chi2, dof, reducedChi2, convergence, warnings }
+ * Prints { status, epsilonK, sigmaAngstrom, stdErr, correlation, chi2, dof, reducedChi2, convergence, deBoerParameter, deBoerParameterStdErr, warnings }
  * plus { eosStage, mdRuns, mdIterations } for density fits.
  */
 import { readFileSync } from 'node:fs';
@@ -156,6 +156,9 @@ function summary(fit: LjFitResult, extra: Record<string, unknown> = {}) {
     dof: fit.dof,
     reducedChi2: fit.reducedChi2,
     convergence: fit.convergence,
+    // Λ* = h/(σ√(mε)) whenever B2 or viscosity data and the molar mass are given (null otherwise).
+    deBoerParameter: fit.deBoerParameter ?? null,
+    deBoerParameterStdErr: fit.deBoerParameterStdErr ?? null,
     warnings: fit.warnings,
     ...extra,
   };

@@ -8,8 +8,9 @@
 import { jointConfidenceEllipse } from './ellipse';
 import { LeastSquaresInputError, weightedLeastSquares, type Convergence, type CovarianceScaling, type LeastSquaresResult, type WeightedResidualProblem } from './least-squares';
 import { estimateLjStart, type LjBounds, type StartPoint } from './lj-starting-values';
-import { PROPERTY_MODELS, isFitKind, type FitKind, type PropertyContext } from './property-models';
+import { PROPERTY_MODELS, isFitKind, type FitKind, type PropertyContext, type PropertyModel } from './property-models';
 import { profileChi2, type ProfileCurve } from './profile-chi2';
+import { quantumDiagnostics } from './quantum-diagnostics';
 import { gaussianGenerator, mulberry32 } from './random';
 
 export type { FitKind } from './property-models';
@@ -126,6 +127,9 @@ export interface LjFitResult {
   ellipse95: { points: Array<{ epsilonK: number; sigmaAngstrom: number }>; method: string; description: string } | null;
   restartsTried: number;
   quantumCorrection: boolean;
+  /** de Boer parameter Λ* = h/(σ√(mε)) of the fitted parameters (null without molar mass or without B2/viscosity data), see quantum-diagnostics.ts. */
+  deBoerParameter?: number | null;
+  deBoerParameterStdErr?: number | null;
 }
 
 export type LjFitInputErrorCode =
@@ -288,6 +292,17 @@ const sumSquares = (r: ArrayLike<number>) => {
   return s;
 };
 
+/** Messages for the points a model cannot predict at (ε, σ), each naming its dataset and row. */
+function rangeProblemsAt(points: readonly FlatPoint[], [epsilonK, sigmaAngstrom]: number[], context: PropertyContext): string[] {
+  const out: string[] = [];
+  for (const point of points) {
+    const model: PropertyModel = PROPERTY_MODELS[point.kind];
+    const problem = model.rangeProblem?.(modelPoint(point), epsilonK, sigmaAngstrom, context);
+    if (problem) out.push(`dataset ${String(point.datasetId)}, row ${point.rowNumber}: ${problem}`);
+  }
+  return out;
+}
+
 /** Fits (ε/k_B, σ) to the datasets. Throws LjFitInputError on invalid input; fit trouble is reported in the result. */
 export function fitLennardJones(
   datasets: FitDataset[],
@@ -363,7 +378,9 @@ export function fitLennardJones(
     const [e, s] = toFull(starts[bestIndex]);
     start = { epsilonK: e, sigmaAngstrom: s, method: `restart ${bestIndex} (perturbed from: ${start.method})` };
   }
-  const failed = fit.convergence === 'failed' || fit.convergence === 'max-iterations';
+  // Points the model cannot predict at the final parameters (saturation at or above T*c) make the fit fail, naming them.
+  const rangeProblems = rangeProblemsAt(allPoints.filter((p) => !p.excluded), toFull(fit.parameters), context);
+  const failed = fit.convergence === 'failed' || fit.convergence === 'max-iterations' || rangeProblems.length > 0;
 
   report(0.8, 'summarising');
   // A failed fit keeps its last iterate, so the per-point misfit is reported for it too (where the model can be evaluated).
@@ -465,10 +482,13 @@ export function fitLennardJones(
   }
 
   const failureReason = failed
-    ? fit.convergence === 'max-iterations'
+    ? rangeProblems.length > 0
+      ? `the fitted parameters leave ${rangeProblems.length} point(s) outside the model: ${rangeProblems.slice(0, 5).join('; ')}${rangeProblems.length > 5 ? '; …' : ''}`
+      : fit.convergence === 'max-iterations'
       ? `the fit did not converge within ${options.maxIterations ?? 200} iterations from any of ${starts.length} start(s)`
       : `the fit failed from all ${starts.length} start(s): ${[...new Set(solveErrors)].join('; ')}`
     : undefined;
+  const quantum = quantumDiagnostics(points, { epsilonK, sigmaAngstrom, covariance }, context.molarMassGPerMol, context.quantumCorrection);
   report(1, 'done');
   return {
     status: failed ? 'failed' : 'succeeded',
@@ -489,7 +509,7 @@ export function fitLennardJones(
     covarianceScaling: fit.covarianceScaling,
     iterations: fit.iterations,
     convergence: fit.convergence,
-    warnings: [...warnings, ...fit.warnings],
+    warnings: [...warnings, ...fit.warnings, ...quantum.warnings],
     hitBounds: fit.hitBounds,
     start,
     bounds,
@@ -498,5 +518,7 @@ export function fitLennardJones(
     ellipse95,
     restartsTried: starts.length - 1,
     quantumCorrection: context.quantumCorrection,
+    deBoerParameter: quantum.deBoerParameter,
+    deBoerParameterStdErr: quantum.deBoerParameterStdErr,
   };
 }
