@@ -1,5 +1,5 @@
 /**
- * `npm run -s bench:fit [-- --json]`: a joint fit of the demo's 8 densities on 2 isotherms plus its B2 table,
+ * `npm run -s bench:fit [-- --json] [--redis URL --worker-processes N]`: a joint fit of the demo's 8 densities on 2 isotherms plus its B2 table,
  * through the real job runner and worker pool, first from a cold simulation cache and then again (warm).
  * Prints wall times, the number of simulation runs and the cache hit rate. A report, never a test.
  * Uses one worker per core unless WORKERS is set: the fit is the only work, the main thread mostly waits.
@@ -15,7 +15,13 @@ import { seedDemo } from '../server/db/seed';
 import { createFit, findFit } from '../server/features/fits/fits.service';
 import { rolesOf } from '../server/features/users/users.repository';
 
-const { values } = parseArgs({ options: { json: { type: 'boolean' } } });
+const { values } = parseArgs({ options: { json: { type: 'boolean' }, redis: { type: 'string' }, 'worker-processes': { type: 'string' } } });
+if (values.redis) {
+  // The Redis driver with 1 … N worker processes (scripts/bench-fit-workers.ts).
+  const { benchWithWorkerProcesses } = await import('./bench-fit-workers');
+  await benchWithWorkerProcesses(values.redis, Number(values['worker-processes'] ?? 2), !!values.json);
+  process.exit(0);
+}
 const dir = mkdtempSync(path.join(tmpdir(), 'epsigma-bench-fit-'));
 const env = loadEnv({ WORKERS: String(os.availableParallelism()), ...process.env, NODE_ENV: 'production', DATABASE_PATH: path.join(dir, 'bench.sqlite'), LOG_REQUESTS: '0' });
 const ctx = await createContext(env, () => {});

@@ -84,6 +84,8 @@ export interface QueueHealth {
   workers: number;
   lanes: Record<Lane, LaneCounts>;
   workerList: WorkerInfo[];
+  /** Set when the queue could not be asked (Redis unreachable): the counts are then zero, not known. */
+  error?: string;
 }
 
 /**
@@ -380,7 +382,15 @@ export class JobRunner implements JobQueue {
   async health(): Promise<QueueHealth> {
     const rows = await this.db.selectFrom('job').select(['kind', 'status', 'queueRef']).where('status', 'in', ['queued', 'running']).execute();
     const lanes = { simulation: { waiting: 0, active: 0, delayed: 0 }, fast: { waiting: 0, active: 0, delayed: 0 } };
-    const counts = await this.executor.counts();
+    let counts: Awaited<ReturnType<JobExecutor['counts']>>;
+    let error: string | undefined;
+    try {
+      // Redis down must not hang the health check: ask with a deadline.
+      counts = await Promise.race([this.executor.counts(), new Promise<never>((_, reject) => setTimeout(() => reject(new Error('no answer within 2 s')), 2000).unref())]);
+    } catch (err) {
+      error = `the queue did not answer: ${messageOf(err)}`;
+      counts = { workers: 0, lanes: { simulation: { waiting: 0, active: 0, delayed: 0 }, fast: { waiting: 0, active: 0, delayed: 0 } }, workerList: [] };
+    }
     if (this.executor.driver === 'redis') {
       // The queue holds the truth about compute work; orchestrating fits wait in the web process.
       Object.assign(lanes, counts.lanes);
@@ -395,7 +405,7 @@ export class JobRunner implements JobQueue {
       lanes.fast.active += counts.lanes.fast.active;
     }
     const sum = (k: keyof LaneCounts) => lanes.simulation[k] + lanes.fast[k];
-    return { driver: this.executor.driver, waiting: sum('waiting'), active: sum('active'), delayed: sum('delayed'), workers: counts.workers, lanes, workerList: counts.workerList };
+    return { driver: this.executor.driver, waiting: sum('waiting'), active: sum('active'), delayed: sum('delayed'), workers: counts.workers, lanes, workerList: counts.workerList, ...(error ? { error } : {}) };
   }
 
   private async notify(id: number) {
