@@ -7,6 +7,7 @@ import * as m20261201_0005 from './20261201_0005_mail_follows';
 import * as m20261201_0006 from './20261201_0006_tokens_preferences';
 import * as m20261202_0007 from './20261202_0007_session_hash_sign_in_failures';
 import * as m20261202_0009 from './20261202_0009_job_queue_dispatch';
+import * as m20261202_0010 from './20261202_0010_notices';
 
 /**
  * Every migration, by name, in the order they run. Listed statically so the same code runs under
@@ -21,4 +22,5 @@ export const MIGRATIONS: Record<string, Migration> = {
   '20261201_0006_tokens_preferences': m20261201_0006,
   '20261202_0007_session_hash_sign_in_failures': m20261202_0007,
   '20261202_0009_job_queue_dispatch': m20261202_0009,
+  '20261202_0010_notices': m20261202_0010,
 };

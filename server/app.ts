@@ -21,6 +21,8 @@ import { simulationRoutes } from './features/simulations/simulations.routes';
 import { catalogRoutes } from './features/catalog/catalog.routes';
 import { tokenRoutes } from './features/tokens/tokens.routes';
 import { preferenceRoutes } from './features/preferences/preferences.routes';
+import { noticeRoutes } from './features/notices/notices.routes';
+import { workbenchRoutes } from './features/workbench/workbench.routes';
 
 export interface CreateAppOptions {
   /** Folder of the built client (vite build); when set, the server serves it with an SPA fallback. */
@@ -83,6 +85,8 @@ export function createApp(ctx: AppContext, options: CreateAppOptions = {}) {
   api.use(catalogRoutes(ctx));
   api.use(tokenRoutes(ctx));
   api.use(preferenceRoutes(ctx));
+  api.use(noticeRoutes(ctx));
+  api.use(workbenchRoutes(ctx));
   api.use(apiNotFound);
   app.use('/api', api);
 

@@ -1,6 +1,6 @@
 import type { RequestHandler } from 'express';
 import type { Session } from 'lucia';
-import { hasPolicy, type Policy, type Role } from '../../shared/auth/roles';
+import { hasPolicy, refusalMessage, type Policy, type Role } from '../../shared/auth/roles';
 import type { Db } from '../db/database';
 import type { Auth } from '../features/auth/auth';
 import { AppError, forbidden, unauthorized } from './errors';
@@ -83,7 +83,7 @@ export function requirePolicy(policy: Policy): RequestHandler {
   return (_req, res, next) => {
     const user = res.locals.user;
     if (!user) return next(unauthorized());
-    if (!hasPolicy(user.roles, policy)) return next(forbidden(`Your roles (${user.roles.join(', ')}) do not allow ${policy}.`));
+    if (!hasPolicy(user.roles, policy)) return next(forbidden(refusalMessage(user.roles, policy)));
     next();
   };
 }

@@ -4,6 +4,7 @@ import type { SubstanceTable } from '../features/substances/substances.table';
 import type { FitTable } from '../features/fits/fits.table';
 import type { ParameterSetCommentTable, ParameterSetTable, ParameterSetTransitionTable } from '../features/parameter-sets/parameter-sets.table';
 import type { JobTable } from '../jobs/job.table';
+import type { NoticeTable } from '../features/notices/notices.table';
 import type { MailboxMessageTable, MailOutboxTable } from '../features/mail/mail.table';
 import type { SubstanceFollowTable } from '../features/follows/follows.table';
 import type { ApiTokenTable } from '../features/tokens/tokens.table';
@@ -31,4 +32,5 @@ export interface Database {
   substanceFollow: SubstanceFollowTable;
   apiToken: ApiTokenTable;
   signInFailure: SignInFailureTable;
+  notice: NoticeTable;
 }

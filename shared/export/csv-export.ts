@@ -16,7 +16,7 @@ import type { ExportableParameterSet, ExportOptions } from './parameter-set-expo
 import type { EnergyUnit, LengthUnit } from '../physics/parameter-units';
 import { convertEpsilon, convertSigma } from '../physics/parameter-units';
 import { mixtureTable, COMBINING_RULE_INFO, type CombiningRule } from '../mixing/combining-rules';
-import { CAUTION_TEXT, tidy } from './export-common';
+import { CAUTION_TEXT, tidy, validityOf } from './export-common';
 
 const FORMULA_START = /^[=+\-@\t\r\u2212\uFF1D\uFF0B\uFF0D\uFF20]/;
 const PLAIN_NUMBER = /^-?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/;
@@ -91,7 +91,7 @@ export function parameterSetsToCsv(sets: readonly ExportableParameterSet[], opti
       s.sigmaAngstrom, uSig,
       ...(lu ? [tidy(convertSigma(s.sigmaAngstrom, lu)), uSig == null ? null : tidy(convertSigma(uSig, lu))] : []),
       s.correlation, s.scheme, s.cutoffSigma, s.cutoffSigma == null ? null : tidy(s.cutoffSigma * s.sigmaAngstrom),
-      s.validity.temperatureMinK, s.validity.temperatureMaxK, s.validity.pressureMinMPa ?? null, s.validity.pressureMaxMPa ?? null,
+      ...((v) => [v.temperatureMinK, v.temperatureMaxK, v.pressureMinMPa, v.pressureMaxMPa])(validityOf(s)),
       s.fitId, datasetsText(s), CAUTION_TEXT,
     ];
   });

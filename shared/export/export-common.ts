@@ -3,6 +3,7 @@
  * number formatting for engine input, and the validity/cutoff summaries of a mixture.
  */
 import type { ExportableParameterSet } from './parameter-set-export';
+import { roundValidityPressureMPa, roundValidityTemperatureK } from '../parameter-sets/validity';
 import type { CombiningRule } from '../mixing/combining-rules';
 
 /** Carried verbatim by every export (JSON field, CSV column, comment in each engine fragment). */
@@ -132,12 +133,14 @@ export interface ValidityRange {
   pressureMaxMPa: number | null;
 }
 
+/** The set's validity limits, rounded as where they are made (0.01 K, 0.001 MPa), so no binary artefact reaches a file. */
 export function validityOf(set: ExportableParameterSet): ValidityRange {
+  const p = (x: number | null | undefined) => (x == null ? null : roundValidityPressureMPa(x));
   return {
-    temperatureMinK: set.validity.temperatureMinK,
-    temperatureMaxK: set.validity.temperatureMaxK,
-    pressureMinMPa: set.validity.pressureMinMPa ?? null,
-    pressureMaxMPa: set.validity.pressureMaxMPa ?? null,
+    temperatureMinK: roundValidityTemperatureK(set.validity.temperatureMinK),
+    temperatureMaxK: roundValidityTemperatureK(set.validity.temperatureMaxK),
+    pressureMinMPa: p(set.validity.pressureMinMPa),
+    pressureMaxMPa: p(set.validity.pressureMaxMPa),
   };
 }
 

@@ -10,7 +10,7 @@
  *     └──revise── changes_requested   (revise drafts a NEW set, the next version, with revisionOf set;
  *                                      the set sent back stays changes_requested as the record of the review)
  */
-import { hasPolicy, type Policy, type Role } from '../auth/roles';
+import { hasPolicy, refusalMessage, type Policy, type Role } from '../auth/roles';
 
 export const PARAMETER_SET_STATES = ['draft', 'in_review', 'approved', 'changes_requested', 'superseded', 'retired'] as const;
 export type ParameterSetState = (typeof PARAMETER_SET_STATES)[number];
@@ -87,7 +87,7 @@ export function checkMove(move: Move, subject: MoveSubject, actor: MoveActor, in
   if (rule.policy === null) {
     if (!actor.system) return refuse(403, 'system_only', `Nobody ${verb} a parameter set by hand: it happens when a newer version is approved.`);
   } else {
-    if (actor.system || !hasPolicy(actor.roles, rule.policy)) return refuse(403, 'forbidden', `Your roles (${actor.roles.join(', ') || 'none'}) do not allow ${rule.policy}.`);
+    if (actor.system || !hasPolicy(actor.roles, rule.policy)) return refuse(403, 'forbidden', refusalMessage(actor.roles, rule.policy));
     if (rule.authorOnly && actor.id !== subject.authorId) return refuse(403, 'not_author', `Only the author of this parameter set may ${verb}.`);
     if (rule.fourEyes && actor.id === subject.authorId) return refuse(403, 'four_eyes', 'You drafted this parameter set; another reviewer must decide on it.');
     if (rule.fourEyes && actor.id === subject.fitAuthorId) return refuse(403, 'four_eyes', 'You ran the fit behind this parameter set; another reviewer must decide on it.');

@@ -18,11 +18,25 @@ export const createFitBody = z.object({
         version: z.number().int().positive().optional(),
         /** Multiplies 1/u of every point of the dataset (default 1). */
         weight: z.number().gt(0, 'weight must be greater than 0').lte(100, 'weight must be at most 100').optional(),
+        /** Row numbers (1-based, as the dataset page shows them) left out of the fit; predicted, never counted. */
+        excludeRows: z
+          .array(z.number({ error: 'row numbers are whole numbers from 1' }).int('row numbers are whole numbers from 1').positive('row numbers are whole numbers from 1'))
+          .max(10000)
+          .refine((rows) => new Set(rows).size === rows.length, { message: 'a row may be left out only once' })
+          .optional(),
+        /** Why the rows were left out (kept with the fit). */
+        excludeReason: z.string().trim().max(500, 'the reason is at most 500 characters').optional(),
       }),
     )
     .min(1, 'choose at least one measurement set')
     .max(20)
     .refine((list) => new Set(list.map((d) => d.id)).size === list.length, { message: 'a measurement set may appear only once' }),
+  /** Hold one parameter at a value: exact in the result, no standard error, one degree of freedom more. */
+  fixed: z
+    .object({ epsilonK: z.number().gt(0).lte(10000).optional(), sigmaAngstrom: z.number().gt(0).lte(30).optional() })
+    .strict()
+    .refine((f) => f.epsilonK === undefined || f.sigmaAngstrom === undefined, { message: 'hold ε or σ, not both: with both held there is nothing to fit', path: ['sigmaAngstrom'] })
+    .optional(),
   options: z
     .object({
       quantumCorrection: z.boolean().optional(),

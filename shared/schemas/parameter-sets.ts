@@ -47,8 +47,8 @@ const rationale = z.string({ error: 'rationale is required' }).trim().min(3, 'gi
 /** A truncated scheme needs its cutoff; the full potential has none. */
 function schemeNeedsCutoff(v: { scheme?: CutoffScheme; cutoffSigma?: number }, ctx: z.RefinementCtx) {
   const scheme = v.scheme ?? 'full-potential';
-  if (scheme === 'full-potential' && v.cutoffSigma !== undefined) ctx.addIssue({ code: 'custom', path: ['cutoffSigma'], message: 'the full potential has no cutoff; leave cutoffSigma out' });
-  if (scheme !== 'full-potential' && v.cutoffSigma === undefined) ctx.addIssue({ code: 'custom', path: ['cutoffSigma'], message: `a ${scheme} scheme needs cutoffSigma (${CUTOFF_SIGMA_RANGE.min}–${CUTOFF_SIGMA_RANGE.max})` });
+  if (scheme === 'full-potential' && v.cutoffSigma !== undefined) ctx.addIssue({ code: 'custom', path: ['cutoffSigma'], message: 'the full potential has no cutoff; leave the cutoff empty' });
+  if (scheme !== 'full-potential' && v.cutoffSigma === undefined) ctx.addIssue({ code: 'custom', path: ['cutoffSigma'], message: `the scheme “${CUTOFF_SCHEME_LABELS[scheme]}” needs a cutoff (${CUTOFF_SIGMA_RANGE.min}–${CUTOFF_SIGMA_RANGE.max} σ)` });
 }
 
 /** POST /api/parameter-sets */
@@ -66,16 +66,21 @@ export type CreateParameterSetBody = z.infer<typeof createParameterSetBody>;
 
 /**
  * POST /api/parameter-sets/:id/revise — a set sent back becomes a new draft (the next version) from the
- * same fit or a newer fit of the same substance; the scheme stays, the cutoff of a truncated scheme may change.
+ * same fit or a newer fit of the same substance. Like a first draft, it takes the fit's scheme and cutoff
+ * unless the body names a scheme (under the same rules); a cutoff alone changes the cutoff of a truncated scheme.
  */
 export const reviseParameterSetBody = z
   .object({
     fitId: z.number().int().positive().optional(),
+    scheme: z.enum(CUTOFF_SCHEMES).optional(),
     cutoffSigma: cutoffSigma.optional(),
     validity: validitySchema.optional(),
     rationale,
   })
-  .strict();
+  .strict()
+  .superRefine((v, ctx) => {
+    if (v.scheme !== undefined) schemeNeedsCutoff(v, ctx);
+  });
 export type ReviseParameterSetBody = z.infer<typeof reviseParameterSetBody>;
 
 /** PATCH /api/parameter-sets/:id — only the rationale and the range of validity, only in draft. */

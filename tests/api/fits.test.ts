@@ -66,7 +66,7 @@ describe('fits', () => {
     expect(r).toMatchObject({ dof: 12, covarianceScaling: 'reduced-chi2' });
     expect(r.residuals).toHaveLength(14);
     expect(r.perDataset[0]).toMatchObject({ datasetId: b2DatasetId, points: 14 });
-    expect(fit.body.datasets).toEqual([{ datasetId: b2DatasetId, version: 1, versionId: expect.any(Number), kind: 'b2', name: 'Synthetic B2', weight: 1 }]);
+    expect(fit.body.datasets).toEqual([{ datasetId: b2DatasetId, version: 1, versionId: expect.any(Number), kind: 'b2', name: 'Synthetic B2', weight: 1, excludeRows: [], excludeReason: null }]);
     expect(fit.body.codeVersion).toMatch(/^\d+\.\d+\.\d+/);
   });
 

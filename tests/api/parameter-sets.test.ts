@@ -253,7 +253,8 @@ describe('the review walk', () => {
   it('revise: a new draft (next version) from the same fit, linked to the set sent back; only once', async () => {
     await expectRefused(reviewer.post(`/api/parameter-sets/${v1}/revise`).send({ rationale: 'Reviewer revises.' }), 403);
     await expectRefused(modeller.post(`/api/parameter-sets/${v1}/revise`).send({ rationale: 'Has cutoff.', cutoffSigma: 5 }), 400);
-    const res = await modeller.post(`/api/parameter-sets/${v1}/revise`).send({ rationale: 'Range narrowed to 200–600 K, as asked.', validity: { temperatureMinK: 200, temperatureMaxK: 600 } });
+    // A revision takes the fit's scheme like a first draft (full potential for a B2 fit) unless it names one, as the form does.
+    const res = await modeller.post(`/api/parameter-sets/${v1}/revise`).send({ rationale: 'Range narrowed to 200–600 K, as asked.', scheme: 'truncated-tail', cutoffSigma: 3, validity: { temperatureMinK: 200, temperatureMaxK: 600 } });
     expect(res.status).toBe(201);
     rev = res.body.id;
     const old = (await modeller.get(`/api/parameter-sets/${v1}`)).body;
@@ -391,11 +392,13 @@ describe('a set from a fit with density data', () => {
     const set = await draft(modeller, { fitId: res.body.id, rationale: 'Joint B2 and density fit for truncated-and-shifted MD at 2.5σ.' });
     expect(set.status).toBe(201);
     expect(set.body).toMatchObject({ scheme: 'truncated-shifted', cutoffSigma: 2.5, version: 1 });
+    // The span of the data, rounded where it is made (0.01 K, 0.001 MPa): −123.15 °C is 149.99999999999997 K in binary floating point.
+    const decimals = (x: number, d: number) => Number(x.toFixed(d));
     expect(set.body.validity).toEqual({
-      temperatureMinK: Math.min(...fitted.map((r) => r.temperatureK)),
-      temperatureMaxK: Math.max(...fitted.map((r) => r.temperatureK)),
-      pressureMinMPa: Math.min(...rows.map((r) => r.pressureMPa)),
-      pressureMaxMPa: Math.max(...rows.map((r) => r.pressureMPa)),
+      temperatureMinK: decimals(Math.min(...fitted.map((r) => r.temperatureK)), 2),
+      temperatureMaxK: decimals(Math.max(...fitted.map((r) => r.temperatureK)), 2),
+      pressureMinMPa: decimals(Math.min(...rows.map((r) => r.pressureMPa)), 3),
+      pressureMaxMPa: decimals(Math.max(...rows.map((r) => r.pressureMPa)), 3),
     });
     // Naming the scheme overrides the default.
     const full = await draft(modeller, { fitId: res.body.id, scheme: 'full-potential', rationale: 'Compared with the B2-only set.' });

@@ -3,6 +3,7 @@ import { z } from 'zod';
 import { requirePolicy } from '../../common/auth-middleware';
 import { validQuery } from '../../common/validate';
 import type { AppContext } from '../../app-context';
+import { targetLabels } from './audit-targets';
 import { auditVocabulary, listAuditEvents } from './audit.repository';
 
 const DATE_ONLY = /^\d{4}-\d{2}-\d{2}$/;
@@ -53,6 +54,7 @@ export function auditRoutes(ctx: AppContext): Router {
       limit: q.limit,
     });
     const page = rows.slice(0, q.limit);
+    const labels = await targetLabels(db, page);
     res.json({
       events: page.map((e) => ({
         id: e.id,
@@ -61,6 +63,7 @@ export function auditRoutes(ctx: AppContext): Router {
         action: e.action,
         targetType: e.targetType,
         targetId: e.targetId,
+        targetLabel: labels.get(`${e.targetType}:${e.targetId}`) ?? null,
         summary: e.summary,
         before: parseJson(e.beforeJson),
         after: parseJson(e.afterJson),

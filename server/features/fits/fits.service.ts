@@ -13,6 +13,7 @@ import { loadVersionForFit } from '../datasets/datasets.service';
 import { findSubstance } from '../substances/substances.repository';
 import type { MdSettings } from '../../../shared/schemas/simulations';
 import { DENSITY_FIT_DEFAULTS, runDensityFit } from './density-fit';
+import { recordFitOutcome } from './fit-outcome';
 
 /** The exact dataset versions a fit used, frozen on the fit row. */
 export interface FitDatasetRef {
@@ -22,6 +23,9 @@ export interface FitDatasetRef {
   kind: PropertyKind;
   name: string;
   weight: number;
+  /** Rows left out (1-based, as the dataset page numbers them) and why. */
+  excludeRows?: number[];
+  excludeReason?: string;
 }
 
 export interface FitJobInput {
@@ -43,6 +47,7 @@ async function fitPayload(db: Db, input: FitJobInput) {
       kind: ref.kind as FitDataset['kind'],
       weight: ref.weight,
       label: ref.name,
+      ...(ref.excludeRows?.length ? { excludeRows: ref.excludeRows } : {}),
       rows: rows.map((r) => ({ temperatureK: r.temperatureK, ...(r.pressureMPa !== null ? { pressureMPa: r.pressureMPa } : {}), value: r.value, uncertainty: r.uncertainty })),
     });
   }
@@ -54,10 +59,17 @@ async function fitPayload(db: Db, input: FitJobInput) {
  * rounds of NPT simulations as jobs of their own (cached and shared), from the main thread.
  */
 export const fitJobKind: JobKind = {
-  async run(env, input: FitJobInput) {
-    const payload = await fitPayload(env.db, input);
-    if (!input.datasets.some((d) => d.kind === 'density')) return env.runTask('fit', payload, env.progress);
-    return runDensityFit(env, payload, input.density ?? {}, input.createdBy ?? null);
+  async run(env, input: FitJobInput, job) {
+    try {
+      const payload = await fitPayload(env.db, input);
+      const result = !input.datasets.some((d) => d.kind === 'density') ? await env.runTask('fit', payload, env.progress) : await runDensityFit(env, payload, input.density ?? {}, input.createdBy ?? null);
+      await recordFitOutcome(env.db, job.id, result as { status?: string; failureReason?: string }, null);
+      return result;
+    } catch (err) {
+      // A cancelled fit is audited by the cancel route; anything else that stops it is a failure the author hears of.
+      if (!env.signal.aborted) await recordFitOutcome(env.db, job.id, null, err instanceof Error ? err.message : String(err)).catch(() => undefined);
+      throw err;
+    }
   },
 };
 
@@ -79,10 +91,18 @@ export async function createFit(ctx: AppContext, actor: CurrentUser, body: Creat
     const version = wanted.version ?? (await ctx.db.selectFrom('datasetVersion').select((eb) => eb.fn.max('version').as('v')).where('datasetId', '=', dataset.id).executeTakeFirstOrThrow()).v;
     const versionRow = await findVersionRow(ctx.db, dataset.id, Number(version));
     if (!versionRow) throw new AppError(422, 'unknown_version', `Measurement set "${dataset.name}" has no version ${version}.`, [{ field: `datasets.${i}.version`, message: 'no such version' }]);
-    refs.push({ datasetId: dataset.id, version: versionRow.version, versionId: versionRow.id, kind: dataset.property, name: dataset.name, weight: wanted.weight ?? 1 });
+    const unknownRows = (wanted.excludeRows ?? []).filter((r) => r > versionRow.rowCount);
+    if (unknownRows.length) {
+      throw new AppError(422, 'unknown_row', `Measurement set "${dataset.name}" v${versionRow.version} has rows 1 to ${versionRow.rowCount}; there is no row ${unknownRows.join(', ')} to leave out.`, unknownRows.map((r) => ({ field: `datasets.${i}.excludeRows`, row: r, message: `no row ${r} (rows 1 to ${versionRow.rowCount})` })));
+    }
+    const excludeRows = [...(wanted.excludeRows ?? [])].sort((a, b) => a - b);
+    refs.push({
+      datasetId: dataset.id, version: versionRow.version, versionId: versionRow.id, kind: dataset.property, name: dataset.name, weight: wanted.weight ?? 1,
+      ...(excludeRows.length ? { excludeRows, ...(wanted.excludeReason ? { excludeReason: wanted.excludeReason } : {}) } : {}),
+    });
   }
   const { density, ...fitOptions } = body.options ?? {};
-  const options: LjFitOptions = { ...fitOptions, molarMassGPerMol: substance.molarMassGramsPerMol };
+  const options: LjFitOptions = { ...fitOptions, ...(body.fixed && Object.keys(body.fixed).length ? { fixed: body.fixed } : {}), molarMassGPerMol: substance.molarMassGramsPerMol };
   const hasDensity = refs.some((r) => r.kind === 'density');
   const input: FitJobInput = { datasets: refs, options, ...(hasDensity ? { density: { ...DENSITY_FIT_DEFAULTS, ...density } } : {}), createdBy: actor.id };
   const now = new Date().toISOString();
@@ -95,10 +115,13 @@ export async function createFit(ctx: AppContext, actor: CurrentUser, body: Creat
       .values({ substanceId: substance.id, number, jobId: job.id, model: 'lj-12-6', datasetsJson: JSON.stringify(refs), optionsJson: JSON.stringify({ ...options, ...(input.density ? { density: input.density } : {}) }), codeVersion: ctx.codeVersion, createdBy: actor.id, createdAt: now })
       .returning('id')
       .executeTakeFirstOrThrow();
-    await recordAudit(tx, { actor, action: 'fit.started', targetType: 'fit', targetId: fit.id, summary: `${actor.email} started Fit #${number} of ${substance.name} on ${refs.map((r) => `${r.name} v${r.version}`).join(', ')}`, after: { datasets: refs, options } });
+    await recordAudit(tx, { actor, action: 'fit.started', targetType: 'fit', targetId: fit.id, summary: `${actor.email} started Fit #${number} of ${substance.name} on ${refs.map((r) => `${r.name} v${r.version}${r.excludeRows ? ` without row${r.excludeRows.length > 1 ? 's' : ''} ${r.excludeRows.join(', ')}` : ''}`).join(', ')}${heldSummary(options.fixed)}`, after: { datasets: refs, options } });
     return { id: fit.id, number, jobId: job.id };
   });
 }
+
+const heldSummary = (fixed: LjFitOptions['fixed']) =>
+  fixed?.epsilonK !== undefined ? `, ε/k_B held at ${fixed.epsilonK} K` : fixed?.sigmaAngstrom !== undefined ? `, σ held at ${fixed.sigmaAngstrom} Å` : '';
 
 export async function findFit(db: Db, id: number) {
   return db
@@ -127,7 +150,7 @@ export function toFitView(row: NonNullable<Awaited<ReturnType<typeof findFit>>>)
     status,
     progress: row.progress,
     stage: row.stage,
-    datasets: JSON.parse(row.datasetsJson) as FitDatasetRef[],
+    datasets: (JSON.parse(row.datasetsJson) as FitDatasetRef[]).map((d) => ({ ...d, excludeRows: d.excludeRows ?? [], excludeReason: d.excludeReason ?? null })),
     options: JSON.parse(row.optionsJson) as LjFitOptions,
     codeVersion: row.codeVersion,
     createdAt: row.createdAt,
@@ -137,7 +160,8 @@ export function toFitView(row: NonNullable<Awaited<ReturnType<typeof findFit>>>)
     finishedAt: row.finishedAt,
     jobId: row.jobId,
     error: row.error ?? (result?.status === 'failed' ? result.failureReason ?? 'The fit failed.' : null),
-    result,
+    // Results stored before `converged` existed say it through their status.
+    result: result ? { ...result, converged: result.status === 'succeeded' } : null,
   };
 }
 
@@ -159,10 +183,13 @@ export async function listFitsOfSubstance(db: Db, substanceId: number) {
       createdByName: r.createdByName,
       status: r.status === 'succeeded' && result?.status === 'failed' ? 'failed' : r.status,
       progress: r.progress,
-      datasets: (JSON.parse(r.datasetsJson) as FitDatasetRef[]).map((d) => ({ datasetId: d.datasetId, name: d.name, kind: d.kind, version: d.version })),
+      datasets: (JSON.parse(r.datasetsJson) as FitDatasetRef[]).map((d) => ({ datasetId: d.datasetId, name: d.name, kind: d.kind, version: d.version, excludeRows: d.excludeRows ?? [] })),
+      // As on the fit page: a failed fit shows its last iterate, marked not converged, without standard errors.
       epsilonK: result?.epsilonK ?? null,
       sigmaAngstrom: result?.sigmaAngstrom ?? null,
-      stdErr: result?.stdErr ?? null,
+      converged: result ? result.status === 'succeeded' : null,
+      stdErr: result ? (result.status === 'succeeded' ? result.stdErr : { epsilonK: null, sigmaAngstrom: null }) : null,
+      heldParameters: result?.heldParameters ?? [],
       reducedChi2: result?.reducedChi2 ?? null,
       warnings: result?.warnings ?? [],
     };

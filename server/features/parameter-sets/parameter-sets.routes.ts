@@ -13,6 +13,7 @@ import {
 import type { AppContext } from '../../app-context';
 import { currentUser, requirePolicy } from '../../common/auth-middleware';
 import { idParams, validBody, validParams, validQuery } from '../../common/validate';
+import { diffWithPrevious } from './parameter-sets.diff';
 import { listReviewQueue } from './parameter-sets.repository';
 import {
   addComment,
@@ -56,6 +57,11 @@ export function parameterSetRoutes(ctx: AppContext): Router {
   router.get('/parameter-sets/:id', requirePolicy('parameterSet:read'), async (req, res) => {
     const { id } = validParams(idParams, req);
     res.json(await getParameterSetDetail(db, id, currentUser(res)));
+  });
+
+  router.get('/parameter-sets/:id/diff', requirePolicy('parameterSet:read'), async (req, res) => {
+    const { id } = validParams(idParams, req);
+    res.json(await diffWithPrevious(db, id, currentUser(res)));
   });
 
   router.patch('/parameter-sets/:id', requirePolicy('parameterSet:draft'), async (req, res) => {

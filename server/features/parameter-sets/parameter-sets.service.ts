@@ -1,5 +1,6 @@
 import { hasPolicy } from '../../../shared/auth/roles';
 import { schemeOfFit } from '../../../shared/parameter-sets/scheme';
+import { roundValidity } from '../../../shared/parameter-sets/validity';
 import { availableMoves, checkMove, isVisibleTo, STATE_LABELS, type Move, type MoveActor, type MoveSubject, type ParameterSetState } from '../../../shared/parameter-sets/transitions';
 import {
   CUTOFF_SCHEME_LABELS,
@@ -87,7 +88,7 @@ async function subjectOf(db: Db | Tx, row: ParameterSetRow): Promise<MoveSubject
   };
 }
 
-async function requireVisibleSet(db: Db | Tx, id: number, viewer: CurrentUser): Promise<ParameterSetRow> {
+export async function requireVisibleSet(db: Db | Tx, id: number, viewer: CurrentUser): Promise<ParameterSetRow> {
   const row = await findParameterSet(db, id);
   // A consumer asking for an unpublished set learns nothing about it, not even that it exists.
   if (!row || !isVisibleTo(row.state, viewer.roles)) throw notFound(`Parameter set ${id}`);
@@ -110,7 +111,12 @@ async function applyMove(tx: Tx, row: ParameterSetRow, move: Move, actor: Curren
     action: `parameterSet.${AUDIT_ACTION[move]}`,
     targetType: 'parameterSet',
     targetId: row.id,
-    summary: extra.summary ?? `${who}: ${setLabel(row)} ${STATE_LABELS[row.state]} → ${STATE_LABELS[decision.to]}${text ? ` — ${text}` : ''}`,
+    // A move that keeps the state (a revision leaves the set sent back as it is) says what happened, not "X → X".
+    summary:
+      extra.summary ??
+      (decision.to === row.state
+        ? `${who}: ${setLabel(row)} — ${text ?? move}`
+        : `${who}: ${setLabel(row)} ${STATE_LABELS[row.state]} → ${STATE_LABELS[decision.to]}${text ? ` — ${text}` : ''}`),
     before: { state: row.state },
     after: { state: decision.to, ...(text ? { comment: text } : {}) },
   });
@@ -133,6 +139,7 @@ async function usableFit(db: Db | Tx, fitId: number, field = 'fitId') {
 async function dataSpan(db: Db | Tx, fit: Awaited<ReturnType<typeof usableFit>>['fit']): Promise<Validity> {
   const temps = (fit.result as LjFitResult).residuals.map((r) => r.temperatureK);
   const span: Validity = { temperatureMinK: Math.min(...temps), temperatureMaxK: Math.max(...temps) };
+  // Rounded where it is made (0.01 K, 0.001 MPa), outward, so the range still holds every point.
   const densityVersions = fit.datasets.filter((d) => d.kind === 'density').map((d) => d.versionId);
   if (densityVersions.length) {
     const p = await db
@@ -142,7 +149,7 @@ async function dataSpan(db: Db | Tx, fit: Awaited<ReturnType<typeof usableFit>>[
       .executeTakeFirst();
     if (p?.lo != null && p?.hi != null && Number(p.lo) < Number(p.hi)) Object.assign(span, { pressureMinMPa: Number(p.lo), pressureMaxMPa: Number(p.hi) });
   }
-  return span;
+  return roundValidity(span);
 }
 
 async function insertSet(
@@ -152,6 +159,7 @@ async function insertSet(
 ) {
   const { fit, result } = input.fit;
   const version = await nextVersion(tx, fit.substanceId, input.scheme);
+  const validity = roundValidity(input.validity);
   const now = new Date().toISOString();
   const { id } = await tx
     .insertInto('parameterSet')
@@ -169,10 +177,10 @@ async function insertSet(
       sigmaStdErrAngstrom: result.stdErr.sigmaAngstrom,
       correlation: result.correlation,
       datasetsJson: JSON.stringify(fit.datasets),
-      temperatureMinK: input.validity.temperatureMinK,
-      temperatureMaxK: input.validity.temperatureMaxK,
-      pressureMinMpa: input.validity.pressureMinMPa ?? null,
-      pressureMaxMpa: input.validity.pressureMaxMPa ?? null,
+      temperatureMinK: validity.temperatureMinK,
+      temperatureMaxK: validity.temperatureMaxK,
+      pressureMinMpa: validity.pressureMinMPa ?? null,
+      pressureMaxMpa: validity.pressureMaxMPa ?? null,
       rationale: input.rationale,
       state: 'draft',
       createdBy: actor.id,
@@ -223,7 +231,12 @@ export async function reviseParameterSet(ctx: AppContext, actor: CurrentUser, id
   const fit = await usableFit(ctx.db, fitId);
   if (fit.fit.substanceId !== before.substanceId) throw new AppError(422, 'wrong_substance', `Fit #${fit.fit.number} is a fit of ${fit.fit.substanceName}, not of ${before.substanceName}.`, [{ field: 'fitId', message: 'fit of another substance' }]);
   if (fit.fit.id < before.fitId) throw new AppError(422, 'older_fit', `A revision is drafted from the same fit (#${before.fitNumber}) or a newer one.`, [{ field: 'fitId', message: 'older than the fit of the set sent back' }]);
-  if (before.scheme === 'full-potential' && body.cutoffSigma !== undefined) throw new AppError(400, 'validation_failed', 'The full potential has no cutoff.', [{ field: 'cutoffSigma', message: 'the full potential has no cutoff; leave cutoffSigma out' }]);
+  // Like a first draft: the scheme and cutoff the fit was made for, unless the author names them.
+  const inherited = body.scheme ? { scheme: body.scheme, cutoffSigma: body.cutoffSigma ?? null } : defaultScheme(fit.result);
+  if (!body.scheme && body.cutoffSigma !== undefined) {
+    if (inherited.scheme === 'full-potential') throw new AppError(400, 'validation_failed', 'Cutoff r_c (σ): the full potential has no cutoff; leave the cutoff empty or choose a truncated scheme.', [{ field: 'cutoffSigma', message: 'the full potential has no cutoff; leave the cutoff empty' }]);
+    inherited.cutoffSigma = body.cutoffSigma;
+  }
   const sameFit = fit.fit.id === before.fitId;
   const validity: Validity =
     body.validity ??
@@ -232,14 +245,30 @@ export async function reviseParameterSet(ctx: AppContext, actor: CurrentUser, id
       : await dataSpan(ctx.db, fit.fit));
   const row = await ctx.db.transaction().execute(async (tx) => {
     const current = (await findParameterSet(tx, id))!;
-    const version = await nextVersion(tx, current.substanceId, current.scheme);
-    await applyMove(tx, current, 'revise', actor, `Revised as v${version}`);
-    return insertSet(tx, actor, { fit, scheme: current.scheme, cutoffSigma: body.cutoffSigma ?? current.cutoffSigma, validity, rationale: body.rationale, revisionOf: current });
+    const version = await nextVersion(tx, current.substanceId, inherited.scheme);
+    const schemeChange = inherited.scheme !== current.scheme ? ` (${CUTOFF_SCHEME_LABELS[inherited.scheme]})` : '';
+    await applyMove(tx, current, 'revise', actor, `Revised as v${version}${schemeChange}`);
+    return insertSet(tx, actor, { fit, scheme: inherited.scheme, cutoffSigma: inherited.cutoffSigma, validity, rationale: body.rationale, revisionOf: current });
   });
   return toParameterSetSummary(row);
 }
 
 const link = (id: number) => `/parameter-sets/${id}`;
+
+/** 422 naming every measurement set (name and version) whose version behind the set has no source citation. */
+async function requireCitations(tx: Tx, refs: FitDatasetRef[]) {
+  if (!refs.length) return;
+  const versions = await tx.selectFrom('datasetVersion').select(['id', 'source']).where('id', 'in', refs.map((r) => r.versionId)).execute();
+  const missing = refs.filter((r) => !(versions.find((v) => v.id === r.versionId)?.source ?? '').trim());
+  if (!missing.length) return;
+  const names = missing.map((r) => `"${r.name}" v${r.version}`);
+  throw new AppError(
+    422,
+    'citation_missing',
+    `A parameter set goes to review only when every measurement set behind it cites its source. ${names.length === 1 ? `${names[0]} has` : `${names.join(', ')} have`} no source citation: upload a new version with the citation and draft a revision from a fit that uses it.`,
+    missing.map((r) => ({ field: 'datasets', datasetId: r.datasetId, version: r.version, message: `measurement set "${r.name}" v${r.version} has no source citation` })),
+  );
+}
 
 /** POST /api/parameter-sets/:id/submit: the author hands the draft to the reviewers. */
 export async function submitParameterSet(ctx: AppContext, actor: CurrentUser, id: number) {
@@ -247,6 +276,9 @@ export async function submitParameterSet(ctx: AppContext, actor: CurrentUser, id
   await ctx.db.transaction().execute(async (tx) => {
     const row = (await findParameterSet(tx, id))!;
     await applyMove(tx, row, 'submit', actor, null);
+    // Reviewers judge the evidence by its source: every measurement set behind the values needs a citation.
+    // (Checked after the move's own rules, so a refused move still answers 403/409; the throw rolls the move back.)
+    await requireCitations(tx, JSON.parse(row.datasetsJson) as FitDatasetRef[]);
     // Everyone who may decide on it; the author and the fit's author may not, so they are left out.
     const excluded = new Set([row.createdByEmail.toLowerCase(), ((await emailOf(tx, row.fitCreatedBy)) ?? '').toLowerCase()]);
     const reviewers = (await emailsOfRole(tx, 'reviewer')).filter((e) => !excluded.has(e.toLowerCase()));
@@ -347,13 +379,14 @@ export async function editDraft(ctx: AppContext, actor: CurrentUser, id: number,
   await ctx.db.transaction().execute(async (tx) => {
     const row = (await requireVisibleSet(tx, id, actor))!;
     const changed = [body.rationale !== undefined ? 'rationale' : null, body.validity ? 'validity' : null].filter(Boolean).join(' and ');
+    const validity = body.validity ? roundValidity(body.validity) : null;
     await applyMove(tx, row, 'edit', actor, `Changed the ${changed}`, { summary: `${actor.email} edited the ${changed} of ${setLabel(row)}` });
     await tx
       .updateTable('parameterSet')
       .set({
         ...(body.rationale !== undefined ? { rationale: body.rationale } : {}),
-        ...(body.validity
-          ? { temperatureMinK: body.validity.temperatureMinK, temperatureMaxK: body.validity.temperatureMaxK, pressureMinMpa: body.validity.pressureMinMPa ?? null, pressureMaxMpa: body.validity.pressureMaxMPa ?? null }
+        ...(validity
+          ? { temperatureMinK: validity.temperatureMinK, temperatureMaxK: validity.temperatureMaxK, pressureMinMpa: validity.pressureMinMPa ?? null, pressureMaxMpa: validity.pressureMaxMPa ?? null }
           : {}),
         updatedAt: new Date().toISOString(),
       })

@@ -1,6 +1,7 @@
 import { DEFAULT_ATOMS, DEFAULT_CUTOFF, DEFAULT_NPT_STEPS, DEFAULT_SEED, DEFAULT_TIMESTEP, type NptOptions } from '../../../shared/physics/md/npt';
 import { reducedStateOf } from '../../../shared/physics/corresponding-states';
 import type { CreateSimulationBody, MdSettings, SimulationsFromDatasetBody } from '../../../shared/schemas/simulations';
+import { CUTOFF_SCHEME_LABELS, type CutoffScheme } from '../../../shared/schemas/parameter-sets';
 import type { AppContext } from '../../app-context';
 import type { CurrentUser } from '../../common/auth-middleware';
 import { AppError, notFound } from '../../common/errors';
@@ -54,7 +55,7 @@ export async function createSimulation(ctx: AppContext, actor: CurrentUser, body
   const input: SimulationInput = { state, ...(origin ? { origin } : {}) };
   const job = await ctx.jobs.enqueue({ kind: 'simulation', input, seed: state.seed, cacheKey: simulationCacheKey(state), createdBy: actor.id });
   if (!job.reused) {
-    await recordAudit(ctx.db, { actor, action: 'simulation.started', targetType: 'job', targetId: job.id, summary: `${actor.email} started an NPT run at T* = ${state.reducedTemperature}, P* = ${state.reducedPressure} (${state.atoms} atoms, ${state.steps} steps, rc = ${state.cutoff}, ${state.scheme})` });
+    await recordAudit(ctx.db, { actor, action: 'simulation.started', targetType: 'job', targetId: job.id, summary: `${actor.email} started an NPT run at T* = ${state.reducedTemperature}, P* = ${state.reducedPressure} (${state.atoms} atoms, ${state.steps} steps, ${CUTOFF_SCHEME_LABELS[state.scheme as CutoffScheme] ?? state.scheme} at r_c = ${state.cutoff} σ)` });
   }
   return { id: job.id, reused: job.reused, state };
 }
