@@ -8,11 +8,14 @@
  * At every build the atoms are re-sorted by cell so that neighbours sit close in memory.
  * Each atom's list has two segments: partners found without a periodic image (no minimum-image
  * arithmetic needed in the force loop) and partners across a box face (minimum image applied).
+ * With a repulsive exponent λr ≠ 12 the pair potential is the Mie λr-6 form (mie-potential.ts).
  */
+import { LJ_REPULSIVE_EXPONENT, miePrefactor } from '../mie-potential';
 
-/** u(r) = 4(r⁻¹² − r⁻⁶). */
-export function ljPairEnergy(r: number): number {
+/** u(r) = 4(r⁻¹² − r⁻⁶); with a repulsive exponent λr ≠ 12 the Mie form C(r^−λr − r⁻⁶) (mie-potential.ts). */
+export function ljPairEnergy(r: number, repulsiveExponent = LJ_REPULSIVE_EXPONENT): number {
   const ir6 = 1 / (r * r * r * r * r * r);
+  if (repulsiveExponent !== LJ_REPULSIVE_EXPONENT) return miePrefactor(repulsiveExponent) * (Math.pow(r, -repulsiveExponent) - ir6);
   return 4 * ir6 * (ir6 - 1);
 }
 
@@ -20,14 +23,24 @@ export function ljPairEnergy(r: number): number {
  * Long-range tail correction to the potential energy per atom for a cut at rc, assuming g(r) = 1 beyond rc:
  * U_tail/N = (8/3)πρ[(1/3)rc⁻⁹ − rc⁻³] (Allen & Tildesley 2017, eq. 2.144).
  */
-export function tailEnergyPerAtom(reducedDensity: number, cutoff: number): number {
+export function tailEnergyPerAtom(reducedDensity: number, cutoff: number, repulsiveExponent = LJ_REPULSIVE_EXPONENT): number {
   const ir3 = 1 / (cutoff * cutoff * cutoff);
+  if (repulsiveExponent !== LJ_REPULSIVE_EXPONENT) {
+    // Mie: 2πρ ∫_rc^∞ u r² dr = 2πρC[rc^(3−λr)/(λr − 3) − rc⁻³/3]; λr = 12 gives the line below.
+    const n = repulsiveExponent;
+    return 2 * Math.PI * reducedDensity * miePrefactor(n) * (Math.pow(cutoff, 3 - n) / (n - 3) - ir3 / 3);
+  }
   return (8 / 3) * Math.PI * reducedDensity * ((ir3 * ir3 * ir3) / 3 - ir3);
 }
 
 /** Tail correction to the pressure: P_tail = (16/3)πρ²[(2/3)rc⁻⁹ − rc⁻³] (Allen & Tildesley 2017, eq. 2.145). */
-export function tailPressure(reducedDensity: number, cutoff: number): number {
+export function tailPressure(reducedDensity: number, cutoff: number, repulsiveExponent = LJ_REPULSIVE_EXPONENT): number {
   const ir3 = 1 / (cutoff * cutoff * cutoff);
+  if (repulsiveExponent !== LJ_REPULSIVE_EXPONENT) {
+    // Mie: (2π/3)ρ² ∫_rc^∞ r³(−du/dr) dr = (2π/3)ρ²C[λr rc^(3−λr)/(λr − 3) − 2 rc⁻³]; λr = 12 gives the line below.
+    const n = repulsiveExponent;
+    return ((2 * Math.PI) / 3) * reducedDensity * reducedDensity * miePrefactor(n) * ((n * Math.pow(cutoff, 3 - n)) / (n - 3) - 2 * ir3);
+  }
   return (16 / 3) * Math.PI * reducedDensity * reducedDensity * ((2 / 3) * ir3 * ir3 * ir3 - ir3);
 }
 
@@ -37,8 +50,8 @@ export function tailPressure(reducedDensity: number, cutoff: number): number {
  * (2π/3)ρ²rc³u(rc), so U_shifted + U_tail(V) + this term is a Hamiltonian whose virial pressure equals the
  * usual truncated-force virial + P_tail (derivation in the doc comment of npt.ts).
  */
-export function meanFieldShiftPerAtom(reducedDensity: number, cutoff: number): number {
-  return (2 * Math.PI / 3) * reducedDensity * cutoff * cutoff * cutoff * ljPairEnergy(cutoff);
+export function meanFieldShiftPerAtom(reducedDensity: number, cutoff: number, repulsiveExponent = LJ_REPULSIVE_EXPONENT): number {
+  return (2 * Math.PI / 3) * reducedDensity * cutoff * cutoff * cutoff * ljPairEnergy(cutoff, repulsiveExponent);
 }
 
 /** Sums over pairs inside rc from the last energy evaluation. */
@@ -60,6 +73,8 @@ export class LjSystem {
   readonly n: number;
   readonly cutoff: number;
   readonly skin: number;
+  /** λr of the Mie λr-6 pair potential (12: the LJ 12-6 kernel). */
+  readonly repulsiveExponent: number;
   readonly rc2: number;
   readonly rlist2: number;
   box = 0;
@@ -94,8 +109,10 @@ export class LjSystem {
   private rangeZero = new Int32Array(0);
   private rangesPerCell = 0;
 
-  constructor(positions: Float64Array, box: number, cutoff: number, skin: number) {
+  constructor(positions: Float64Array, box: number, cutoff: number, skin: number, repulsiveExponent = LJ_REPULSIVE_EXPONENT) {
     this.n = positions.length / 3;
+    this.repulsiveExponent = repulsiveExponent;
+    this.mieC = miePrefactor(repulsiveExponent);
     this.cutoff = cutoff;
     this.skin = skin;
     this.rc2 = cutoff * cutoff;
@@ -400,6 +417,10 @@ export class LjSystem {
 
   /** Forces only (the hot loop of every MD step). */
   computeForces(): void {
+    if (this.repulsiveExponent !== LJ_REPULSIVE_EXPONENT) {
+      this.mieForces();
+      return;
+    }
     const n = this.n;
     const x = this.pos;
     const f = this.force;
@@ -474,6 +495,7 @@ export class LjSystem {
    * benchmark measures (`npm run -s bench:md`), so the repetition stays, checked by the direct-sum force tests.
    */
   computeForcesAndEnergy(): PairSums {
+    if (this.repulsiveExponent !== LJ_REPULSIVE_EXPONENT) return this.mieForcesAndEnergy();
     const n = this.n;
     const x = this.pos;
     const f = this.force;
@@ -535,6 +557,235 @@ export class LjSystem {
         const ir6 = ir2 * ir2 * ir2;
         const ff = inside * (48 * ir2 * ir6 * (ir6 - 0.5));
         u += inside * (4 * ir6 * (ir6 - 1));
+        w += ff * r2;
+        pairs += inside;
+        const fx = ff * dx;
+        const fy = ff * dy;
+        const fz = ff * dz;
+        fxi += fx;
+        fyi += fy;
+        fzi += fz;
+        f[j3] -= fx;
+        f[j3 + 1] -= fy;
+        f[j3 + 2] -= fz;
+      }
+      f[i3] += fxi;
+      f[i3 + 1] += fyi;
+      f[i3 + 2] += fzi;
+    }
+    return { potentialTruncated: u, virial: w, pairsInside: pairs };
+  }
+
+  /** C(λr) of the Mie kernel. */
+  private readonly mieC: number;
+
+  /**
+   * The Mie λr-6 kernel, u = C(r^−λr − r⁻⁶), r·F = C(λr r^−λr − 6 r⁻⁶), written out like the 12-6 one (two list
+   * segments, branch-free cut, forces alone or with the pair sums) and kept separate so the 12-6 loops stay exactly
+   * as they were. Integer λr runs at close to the 12-6 speed; a non-integer λr needs Math.pow and is several times
+   * slower (README, benchmarks).
+   */
+  /** Mie forces only. */
+  private mieForces(): void {
+    const n = this.n;
+    const x = this.pos;
+    const f = this.force;
+    const list = this.nbList;
+    const start = this.nbStart;
+    const mid = this.nbMid;
+    const rc2 = this.rc2;
+    const L = this.box;
+    const h = this.halfBox;
+    const c = this.mieC;
+    const lr = this.repulsiveExponent;
+    // r^−λr for an integer λr: (r⁻²)^⌊λr/2⌋ from the binary digits of ⌊λr/2⌋ ≤ 18 (the flags are the same for every
+    // pair, so the branches predict perfectly), times r⁻¹ when λr is odd; otherwise Math.pow.
+    const integer = Number.isInteger(lr);
+    const halfPower = Math.floor(lr / 2);
+    const odd = integer && lr % 2 === 1;
+    const bit1 = (halfPower & 1) !== 0;
+    const bit2 = (halfPower & 2) !== 0;
+    const bit4 = (halfPower & 4) !== 0;
+    const bit8 = (halfPower & 8) !== 0;
+    const bit16 = (halfPower & 16) !== 0;
+    const halfExp = -0.5 * lr;
+    f.fill(0);
+    for (let i = 0; i < n; i++) {
+      const i3 = 3 * i;
+      const xi = x[i3];
+      const yi = x[i3 + 1];
+      const zi = x[i3 + 2];
+      let fxi = 0;
+      let fyi = 0;
+      let fzi = 0;
+      const kMid = mid[i];
+      const kEnd = start[i + 1];
+      for (let k = start[i]; k < kMid; k++) {
+        const j3 = 3 * list[k];
+        const dx = xi - x[j3];
+        const dy = yi - x[j3 + 1];
+        const dz = zi - x[j3 + 2];
+        const r2 = dx * dx + dy * dy + dz * dz;
+        const inside = +(r2 < rc2);
+        const ir2 = 1 / r2;
+        const ir6 = ir2 * ir2 * ir2;
+        let irn: number;
+        if (integer) {
+          const p2 = ir2 * ir2;
+          const p4 = p2 * p2;
+          const p8 = p4 * p4;
+          irn = (bit1 ? ir2 : 1) * (bit2 ? p2 : 1) * (bit4 ? p4 : 1) * (bit8 ? p8 : 1) * (bit16 ? p8 * p8 : 1);
+          if (odd) irn *= Math.sqrt(ir2);
+        } else {
+          irn = Math.pow(r2, halfExp);
+        }
+        const ff = inside * c * ir2 * (lr * irn - 6 * ir6);
+        const fx = ff * dx;
+        const fy = ff * dy;
+        const fz = ff * dz;
+        fxi += fx;
+        fyi += fy;
+        fzi += fz;
+        f[j3] -= fx;
+        f[j3 + 1] -= fy;
+        f[j3 + 2] -= fz;
+      }
+      // Partners found across a box face: minimum image.
+      for (let k = kMid; k < kEnd; k++) {
+        const j3 = 3 * list[k];
+        let dx = xi - x[j3];
+        let dy = yi - x[j3 + 1];
+        let dz = zi - x[j3 + 2];
+        dx -= L * (+(dx > h) - +(dx < -h));
+        dy -= L * (+(dy > h) - +(dy < -h));
+        dz -= L * (+(dz > h) - +(dz < -h));
+        const r2 = dx * dx + dy * dy + dz * dz;
+        const inside = +(r2 < rc2);
+        const ir2 = 1 / r2;
+        const ir6 = ir2 * ir2 * ir2;
+        let irn: number;
+        if (integer) {
+          const p2 = ir2 * ir2;
+          const p4 = p2 * p2;
+          const p8 = p4 * p4;
+          irn = (bit1 ? ir2 : 1) * (bit2 ? p2 : 1) * (bit4 ? p4 : 1) * (bit8 ? p8 : 1) * (bit16 ? p8 * p8 : 1);
+          if (odd) irn *= Math.sqrt(ir2);
+        } else {
+          irn = Math.pow(r2, halfExp);
+        }
+        const ff = inside * c * ir2 * (lr * irn - 6 * ir6);
+        const fx = ff * dx;
+        const fy = ff * dy;
+        const fz = ff * dz;
+        fxi += fx;
+        fyi += fy;
+        fzi += fz;
+        f[j3] -= fx;
+        f[j3 + 1] -= fy;
+        f[j3 + 2] -= fz;
+      }
+      f[i3] += fxi;
+      f[i3 + 1] += fyi;
+      f[i3 + 2] += fzi;
+    }
+  }
+
+  /** Mie forces and pair sums. */
+  private mieForcesAndEnergy(): PairSums {
+    const n = this.n;
+    const x = this.pos;
+    const f = this.force;
+    const list = this.nbList;
+    const start = this.nbStart;
+    const mid = this.nbMid;
+    const rc2 = this.rc2;
+    const L = this.box;
+    const h = this.halfBox;
+    const c = this.mieC;
+    const lr = this.repulsiveExponent;
+    // r^−λr for an integer λr: (r⁻²)^⌊λr/2⌋ from the binary digits of ⌊λr/2⌋ ≤ 18 (the flags are the same for every
+    // pair, so the branches predict perfectly), times r⁻¹ when λr is odd; otherwise Math.pow.
+    const integer = Number.isInteger(lr);
+    const halfPower = Math.floor(lr / 2);
+    const odd = integer && lr % 2 === 1;
+    const bit1 = (halfPower & 1) !== 0;
+    const bit2 = (halfPower & 2) !== 0;
+    const bit4 = (halfPower & 4) !== 0;
+    const bit8 = (halfPower & 8) !== 0;
+    const bit16 = (halfPower & 16) !== 0;
+    const halfExp = -0.5 * lr;
+    let u = 0;
+    let w = 0;
+    let pairs = 0;
+    f.fill(0);
+    for (let i = 0; i < n; i++) {
+      const i3 = 3 * i;
+      const xi = x[i3];
+      const yi = x[i3 + 1];
+      const zi = x[i3 + 2];
+      let fxi = 0;
+      let fyi = 0;
+      let fzi = 0;
+      const kMid = mid[i];
+      const kEnd = start[i + 1];
+      for (let k = start[i]; k < kMid; k++) {
+        const j3 = 3 * list[k];
+        const dx = xi - x[j3];
+        const dy = yi - x[j3 + 1];
+        const dz = zi - x[j3 + 2];
+        const r2 = dx * dx + dy * dy + dz * dz;
+        const inside = +(r2 < rc2);
+        const ir2 = 1 / r2;
+        const ir6 = ir2 * ir2 * ir2;
+        let irn: number;
+        if (integer) {
+          const p2 = ir2 * ir2;
+          const p4 = p2 * p2;
+          const p8 = p4 * p4;
+          irn = (bit1 ? ir2 : 1) * (bit2 ? p2 : 1) * (bit4 ? p4 : 1) * (bit8 ? p8 : 1) * (bit16 ? p8 * p8 : 1);
+          if (odd) irn *= Math.sqrt(ir2);
+        } else {
+          irn = Math.pow(r2, halfExp);
+        }
+        const ff = inside * c * ir2 * (lr * irn - 6 * ir6);
+        u += inside * c * (irn - ir6);
+        w += ff * r2;
+        pairs += inside;
+        const fx = ff * dx;
+        const fy = ff * dy;
+        const fz = ff * dz;
+        fxi += fx;
+        fyi += fy;
+        fzi += fz;
+        f[j3] -= fx;
+        f[j3 + 1] -= fy;
+        f[j3 + 2] -= fz;
+      }
+      // Partners found across a box face: minimum image.
+      for (let k = kMid; k < kEnd; k++) {
+        const j3 = 3 * list[k];
+        let dx = xi - x[j3];
+        let dy = yi - x[j3 + 1];
+        let dz = zi - x[j3 + 2];
+        dx -= L * (+(dx > h) - +(dx < -h));
+        dy -= L * (+(dy > h) - +(dy < -h));
+        dz -= L * (+(dz > h) - +(dz < -h));
+        const r2 = dx * dx + dy * dy + dz * dz;
+        const inside = +(r2 < rc2);
+        const ir2 = 1 / r2;
+        const ir6 = ir2 * ir2 * ir2;
+        let irn: number;
+        if (integer) {
+          const p2 = ir2 * ir2;
+          const p4 = p2 * p2;
+          const p8 = p4 * p4;
+          irn = (bit1 ? ir2 : 1) * (bit2 ? p2 : 1) * (bit4 ? p4 : 1) * (bit8 ? p8 : 1) * (bit16 ? p8 * p8 : 1);
+          if (odd) irn *= Math.sqrt(ir2);
+        } else {
+          irn = Math.pow(r2, halfExp);
+        }
+        const ff = inside * c * ir2 * (lr * irn - 6 * ir6);
+        u += inside * c * (irn - ir6);
         w += ff * r2;
         pairs += inside;
         const fx = ff * dx;

@@ -29,6 +29,8 @@ export interface NveOptions {
   velocityDistribution?: 'uniform' | 'gaussian';
   /** Steps between energy evaluations, default 100. */
   thermoEvery?: number;
+  /** λr of a Mie λr-6 pair potential, default 12 (LJ 12-6). */
+  repulsiveExponent?: number;
 }
 
 export interface NveThermo {
@@ -74,16 +76,16 @@ function thermo(system: LjSystem, sums: { potentialTruncated: number; virial: nu
   const rho = system.density;
   const ke = system.kineticEnergy();
   const uTrunc = sums.potentialTruncated / n;
-  const u = uTrunc + tailEnergyPerAtom(rho, system.cutoff);
+  const u = uTrunc + tailEnergyPerAtom(rho, system.cutoff, system.repulsiveExponent);
   const pTrunc = (2 * ke + sums.virial) / (3 * system.volume);
   return {
     potentialTruncatedPerAtom: uTrunc,
     potentialPerAtom: u,
     totalEnergyPerAtom: ke / n + u,
-    conservedEnergyPerAtom: (ke + sums.potentialTruncated - sums.pairsInside * ljPairEnergy(system.cutoff)) / n,
+    conservedEnergyPerAtom: (ke + sums.potentialTruncated - sums.pairsInside * ljPairEnergy(system.cutoff, system.repulsiveExponent)) / n,
     temperature: (2 * ke) / (3 * n - 3),
     pressureTruncated: pTrunc,
-    pressure: pTrunc + tailPressure(rho, system.cutoff),
+    pressure: pTrunc + tailPressure(rho, system.cutoff, system.repulsiveExponent),
   };
 }
 
@@ -98,11 +100,12 @@ export function runNve(options: NveOptions): NveResult {
   const dt = requireNumber('timestep', options.timestep ?? 0.005, 1e-5, 0.02);
   const seed = requireInteger('seed', options.seed ?? 12345, 0, 0xffffffff);
   const every = requireInteger('thermoEvery', options.thermoEvery ?? 100, 1, 1e9);
+  const repulsiveExponent = requireNumber('repulsiveExponent', options.repulsiveExponent ?? 12, 8, 36);
   const lattice = fccLattice(atoms, rho);
   if (lattice.boxLength <= 2 * cutoff) {
     throw new RangeError(`atoms: box edge ${lattice.boxLength.toFixed(3)}σ must exceed twice the cutoff; use more atoms`);
   }
-  const system = new LjSystem(lattice.positions, lattice.boxLength, cutoff, skin);
+  const system = new LjSystem(lattice.positions, lattice.boxLength, cutoff, skin, repulsiveExponent);
   assignVelocities(system, t0, new Xoshiro128(seed), options.velocityDistribution ?? 'uniform');
   system.buildList();
   const first = thermo(system, system.computeForcesAndEnergy());
