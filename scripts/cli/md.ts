@@ -2,7 +2,9 @@
  * `npm run -s cli -- md --reduced-temperature T --reduced-pressure P [--atoms N] [--steps S] [--cutoff RC]
  *   [--scheme truncated-tail|truncated-shifted] [--seed K] [--trace] --json`
  * NPT molecular dynamics of the Lennard-Jones 12-6 fluid in reduced units (σ = ε = m = k_B = 1), see
- * shared/physics/md/npt.ts. Prints the NptResult without the trace (add --trace to include it).
+ * shared/physics/md/npt.ts. Prints the NptResult without the trace (add --trace to include it) and without the
+ * per-frame data kept for reweighting; `effectiveSamples`, `statisticalInefficiency` and `startedFrom` say how much
+ * independent data the run holds and how it started (a fluid state from a melted lattice).
  */
 import { runNpt, type NptOptions } from '../../shared/physics/md/npt';
 import { errorMessage, finiteNumberFlag, parseFlags, requiredFlag } from './_flags';
@@ -59,7 +61,8 @@ export async function run(argv: string[]): Promise<unknown> {
     const param = /^(\w+)/.exec(message)?.[1] ?? '';
     throw new Error(FLAG_OF[param] ? message.replace(param, FLAG_OF[param]) : message);
   }
-  if (values.trace) return result;
-  const { trace: _trace, ...rest } = result;
+  const { frames: _frames, ...withTrace } = result;
+  if (values.trace) return withTrace;
+  const { trace: _trace, ...rest } = withTrace;
   return rest;
 }

@@ -77,6 +77,8 @@ export class Ensemble {
   readonly system: LjSystem;
   readonly rng: Xoshiro128;
   readonly degreesOfFreedom: number;
+  /** Thermostat target: the state's T* except while the start lattice is melted. */
+  targetTemperature: number;
   maxLnVolumeStep: number;
   volumeAttempts = 0;
   volumeAccepted = 0;
@@ -95,6 +97,7 @@ export class Ensemble {
     this.system = new LjSystem(lattice.positions, lattice.boxLength, settings.cutoff, settings.skin);
     assignVelocities(this.system, settings.reducedTemperature, this.rng, 'gaussian');
     this.degreesOfFreedom = 3 * settings.atoms - 3;
+    this.targetTemperature = settings.reducedTemperature;
     this.maxLnVolumeStep = settings.maxLnVolumeStep;
     this.system.buildList();
     this.sums = this.system.computeForcesAndEnergy();
@@ -117,11 +120,40 @@ export class Ensemble {
     else s.computeForces();
     s.kick(dt);
     const k = s.kineticEnergy();
-    const alpha = csvrScaleFactor(k, this.degreesOfFreedom, this.settings.reducedTemperature, dt / this.settings.thermostatTau, this.rng);
+    const alpha = csvrScaleFactor(k, this.degreesOfFreedom, this.targetTemperature, dt / this.settings.thermostatTau, this.rng);
     const v = s.vel;
     for (let i = 0; i < v.length; i++) v[i] *= alpha;
     this.thermostatHeat += (alpha * alpha - 1) * k;
     this.stepCount++;
+  }
+
+  /**
+   * Melts the start lattice at constant volume (the target density) and temperature `meltTemperature`: blocks of
+   * 100 steps until Q6 falls below `q6Below` (after at least `minSteps`) or `maxSteps` have run; then velocities are
+   * drawn afresh at the state's T* and the step count, thermostat heat and barostat jumps start from zero, so the
+   * run proper begins from a disordered configuration that cannot carry crystal order into a liquid.
+   */
+  melt(meltTemperature: number, minSteps: number, maxSteps: number, q6Below: number): { steps: number; q6: number } {
+    const s = this.system;
+    this.targetTemperature = meltTemperature;
+    assignVelocities(s, meltTemperature, this.rng, 'gaussian');
+    let steps = 0;
+    let q6 = globalQ6(s.pos, s.box, s.nbStart, s.nbList, s.n).q6;
+    while (steps < maxSteps) {
+      for (let i = 0; i < 100; i++) this.step(false);
+      steps += 100;
+      if (steps >= minSteps) {
+        q6 = globalQ6(s.pos, s.box, s.nbStart, s.nbList, s.n).q6;
+        if (q6 < q6Below) break;
+      }
+    }
+    this.targetTemperature = this.settings.reducedTemperature;
+    assignVelocities(s, this.settings.reducedTemperature, this.rng, 'gaussian');
+    this.sums = s.computeForcesAndEnergy();
+    this.stepCount = 0;
+    this.thermostatHeat = 0;
+    this.barostatJumps = 0;
+    return { steps, q6 };
   }
 
   /** Metropolis volume move in ln V; requires current pair sums. */

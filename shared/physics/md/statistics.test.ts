@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { blockingStdErr, detectEquilibration, estimateCovariance, estimateMean, statisticalInefficiency } from './statistics';
+import { autocorrelation, blockingStdErr, detectEquilibration, estimateCovariance, estimateMean, statisticalInefficiency } from './statistics';
 import { Xoshiro128 } from './rng';
 
 /** AR(1) process x_t = φ x_{t−1} + e_t: integrated autocorrelation gives g = (1 + φ)/(1 − φ) (Chodera et al. 2007, eq. 14 ff.; standard result for AR(1)). */
@@ -64,5 +64,33 @@ describe('statistics', () => {
     const expected = 2 / (1 - 0.36);
     expect(Math.abs(c.mean - expected)).toBeLessThan(4 * c.stdErr);
     expect(c.stdErr).toBeGreaterThan(0);
+  });
+});
+
+describe('standard errors of short correlated series (the regime of an NPT run: 40–60 independent samples)', () => {
+  it('the spread of means over 400 series matches the mean reported variance', () => {
+    // AR(1), φ = 0.9: g = 19 (standard result), 1000 samples hold about 53 independent ones. For an honest
+    // estimator the ratio Var(means)/⟨SE²⟩ is 1; with 400 series its own relative noise is sqrt(2/399) ≈ 0.07
+    // (χ² with 399 degrees of freedom), so the band [0.8, 1.25] is about ±3 of those (common practice, no source).
+    const means: number[] = [];
+    let sumSe2 = 0;
+    for (let k = 0; k < 400; k++) {
+      const e = estimateMean(ar1(1000, 0.9, 5000 + k));
+      means.push(e.mean);
+      sumSe2 += e.stdErr * e.stdErr;
+    }
+    const m = means.reduce((a, b) => a + b, 0) / means.length;
+    const spread = means.reduce((a, b) => a + (b - m) ** 2, 0) / (means.length - 1);
+    const ratio = spread / (sumSe2 / means.length);
+    expect(ratio).toBeGreaterThan(0.8);
+    expect(ratio).toBeLessThan(1.25);
+  });
+
+  it('reports the window of the sum and whether it closed', () => {
+    const a = autocorrelation(ar1(5000, 0.5, 3));
+    expect(a.reliable).toBe(true);
+    expect(a.window).toBeGreaterThanOrEqual(6);
+    // A steady drift (a run still equilibrating) stays correlated at every lag: the window cannot close within T/2.
+    expect(autocorrelation(Array.from({ length: 40 }, (_, i) => i)).reliable).toBe(false);
   });
 });
