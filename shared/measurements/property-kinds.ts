@@ -4,9 +4,9 @@
  * branching on the kind, so a new kind is one more entry here.
  */
 
-export type PropertyKind = 'b2' | 'density' | 'viscosity' | 'b3' | 'saturatedLiquidDensity' | 'saturatedVapourDensity' | 'vapourPressure';
+export type PropertyKind = 'b2' | 'density' | 'viscosity' | 'b3' | 'saturatedLiquidDensity' | 'saturatedVapourDensity' | 'vapourPressure' | 'b12';
 
-export const PROPERTY_KIND_IDS: readonly PropertyKind[] = ['b2', 'density', 'viscosity', 'b3', 'saturatedLiquidDensity', 'saturatedVapourDensity', 'vapourPressure'];
+export const PROPERTY_KIND_IDS: readonly PropertyKind[] = ['b2', 'density', 'viscosity', 'b3', 'saturatedLiquidDensity', 'saturatedVapourDensity', 'vapourPressure', 'b12'];
 
 /** Physical dimension of a column, checked on the unit written in its header. */
 export type Dimension = 'temperature' | 'pressure' | 'molarVolume' | 'molarVolumeSquared' | 'massDensity' | 'amountDensity' | 'dynamicViscosity';
@@ -28,7 +28,9 @@ export type QuantityKey =
   | 'vapourDensity'
   | 'uVapourDensity'
   | 'vapourPressure'
-  | 'uVapourPressure';
+  | 'uVapourPressure'
+  | 'b12'
+  | 'uB12';
 
 /** Canonical row field names, exactly as the API uses them. */
 export type CanonicalField =
@@ -47,7 +49,9 @@ export type CanonicalField =
   | 'vapourDensityKgPerM3'
   | 'uVapourDensityKgPerM3'
   | 'vapourPressureMPa'
-  | 'uVapourPressureMPa';
+  | 'uVapourPressureMPa'
+  | 'b12Cm3PerMol'
+  | 'uB12Cm3PerMol';
 
 export interface QuantityDefinition {
   key: QuantityKey;
@@ -301,6 +305,33 @@ export const QUANTITIES: Record<QuantityKey, QuantityDefinition> = {
     isUncertainty: true,
     exampleHeader: 'u(p_sat) (kPa)',
   }),
+  b12: q({
+    key: 'b12',
+    symbol: 'B12',
+    field: 'b12Cm3PerMol',
+    label: 'cross second virial coefficient B12',
+    canonicalUnit: 'cm^3/mol',
+    canonicalUnitLabel: 'cm³/mol',
+    aliases: ['b12', 'b₁₂', 'b12(t)', 'crossvirialcoefficient', 'crosssecondvirialcoefficient', 'interactionvirialcoefficient'],
+    dimensions: ['molarVolume'],
+    positivity: 'any',
+    isUncertainty: false,
+    exampleHeader: 'B12 (cm3/mol)',
+  }),
+  uB12: q({
+    key: 'uB12',
+    symbol: 'u(B12)',
+    field: 'uB12Cm3PerMol',
+    label: 'uncertainty of B12',
+    canonicalUnit: 'cm^3/mol',
+    canonicalUnitLabel: 'cm³/mol',
+    aliases: ['u(b12)', 'u(b₁₂)', 'ub12', 'δb12', 'uncertaintyb12', 'b12uncertainty'],
+    dimensions: ['molarVolume'],
+    positivity: 'positive',
+    nonPositiveCode: 'nonpositive-uncertainty',
+    isUncertainty: true,
+    exampleHeader: 'u(B12) (cm3/mol)',
+  }),
 };
 
 export interface KindColumn {
@@ -441,6 +472,23 @@ export const PROPERTY_KINDS: Record<PropertyKind, PropertyKindDefinition> = {
     uncertaintyField: 'uVapourPressureMPa',
     stateFields: ['temperatureK'],
   },
+  b12: {
+    // A mixture property: stored with one of the two substances, fitted by a pair set (shared/mixing/cross-virial.ts),
+    // never by the pure-substance fit.
+    kind: 'b12',
+    label: 'Cross second virial coefficient B12(T) of a pair',
+    columns: [
+      { quantity: 'temperature', required: true },
+      { quantity: 'b12', required: true },
+      { quantity: 'uB12', required: false },
+    ],
+    valueQuantity: 'b12',
+    valueField: 'b12Cm3PerMol',
+    uncertaintyQuantity: 'uB12',
+    uncertaintyField: 'uB12Cm3PerMol',
+    stateFields: ['temperatureK'],
+    defaultUncertaintyFloor: B2_DEFAULT_UNCERTAINTY_FLOOR_CM3_PER_MOL,
+  },
 };
 
 export function isPropertyKind(x: unknown): x is PropertyKind {
@@ -527,7 +575,14 @@ export interface VapourPressureRow extends RowCommon {
   uVapourPressureMPa: number;
 }
 
-export type CanonicalRow = B2Row | DensityRow | ViscosityRow | B3Row | SaturatedLiquidDensityRow | SaturatedVapourDensityRow | VapourPressureRow;
+export interface B12Row extends RowCommon {
+  kind: 'b12';
+  temperatureK: number;
+  b12Cm3PerMol: number;
+  uB12Cm3PerMol: number;
+}
+
+export type CanonicalRow = B2Row | DensityRow | ViscosityRow | B3Row | SaturatedLiquidDensityRow | SaturatedVapourDensityRow | VapourPressureRow | B12Row;
 
 /** Value and standard uncertainty of any row, read through the kind registry. */
 export function rowValueAndUncertainty(row: CanonicalRow): { value: number; uncertainty: number } {

@@ -13,14 +13,32 @@ const optionalText = (max: number) => z.preprocess(blankToUndefined, z.string().
 
 export const propertyKindSchema = z.enum(PROPERTY_KIND_IDS as [PropertyKind, ...PropertyKind[]]);
 
+/** Nothing is lighter than a hydrogen atom, 1.008 g/mol (IUPAC standard atomic weight). */
+export const MOLAR_MASS_MIN_G_PER_MOL = 1;
+/** Above this a single Lennard-Jones site is an unusual model: accepted with a warning. */
+export const MOLAR_MASS_USUAL_MAX_G_PER_MOL = 1000;
+
 const molarMass = z
   .number({ error: 'molar mass must be a number (g/mol)' })
-  .gt(0, 'molar mass must be greater than 0 g/mol')
+  .gte(MOLAR_MASS_MIN_G_PER_MOL, 'molar mass must be at least 1 g/mol (a hydrogen atom is 1.008 g/mol)')
   .lt(10000, 'molar mass must be below 10000 g/mol');
+
+/** Warnings for a molar mass that is possible but unusual (the substance is still saved). */
+export function molarMassWarnings(molarMassGPerMol: number | undefined): string[] {
+  if (molarMassGPerMol === undefined || molarMassGPerMol <= MOLAR_MASS_USUAL_MAX_G_PER_MOL) return [];
+  return [`A molar mass of ${molarMassGPerMol} g/mol is unusual for a single Lennard-Jones site (most are below ${MOLAR_MASS_USUAL_MAX_G_PER_MOL} g/mol); check that it is per mole of molecules, in g/mol.`];
+}
+
+/**
+ * The one spelling of a substance name: Unicode NFKC (a no-break or full-width character becomes its plain
+ * form), runs of white space as one space, trimmed. Uniqueness compares these, ignoring letter case.
+ */
+export const normaliseSubstanceName = (name: string) => name.normalize('NFKC').replace(/\s+/g, ' ').trim();
+const substanceName = (required: string) => z.string().overwrite(normaliseSubstanceName).min(1, required).max(120, 'at most 120 characters');
 
 /** POST /substances body. `molarMass` is in g/mol. */
 export const createSubstanceBody = z.object({
-  name: z.string().trim().min(1, 'name is required').max(120, 'at most 120 characters'),
+  name: substanceName('name is required'),
   formula: optionalText(60),
   description: optionalText(2000),
   molarMass,
@@ -30,7 +48,7 @@ export type CreateSubstanceBody = z.infer<typeof createSubstanceBody>;
 /** PATCH /substances/:id body: any subset of the create fields, at least one. "" clears formula/description. */
 export const updateSubstanceBody = z
   .object({
-    name: z.string().trim().min(1, 'name must not be empty').max(120, 'at most 120 characters').optional(),
+    name: substanceName('name must not be empty').optional(),
     formula: z.string().trim().max(60, 'at most 60 characters').optional(),
     description: z.string().trim().max(2000, 'at most 2000 characters').optional(),
     molarMass: molarMass.optional(),
@@ -175,6 +193,13 @@ export const vapourPressureRowSchema = z.object({
   vapourPressureMPa: positive(),
   uVapourPressureMPa: positive(),
 });
+export const b12RowSchema = z.object({
+  kind: z.literal('b12'),
+  ...rowCommon,
+  temperatureK: positive(),
+  b12Cm3PerMol: z.number().finite(),
+  uB12Cm3PerMol: positive(),
+});
 export const canonicalRowSchema = z.discriminatedUnion('kind', [
   b2RowSchema,
   densityRowSchema,
@@ -183,6 +208,7 @@ export const canonicalRowSchema = z.discriminatedUnion('kind', [
   saturatedLiquidDensityRowSchema,
   saturatedVapourDensityRowSchema,
   vapourPressureRowSchema,
+  b12RowSchema,
 ]);
 export type CanonicalRowSchema = z.infer<typeof canonicalRowSchema>;
 
@@ -195,4 +221,5 @@ export const apiRowSchemas = {
   saturatedLiquidDensity: saturatedLiquidDensityRowSchema.omit({ kind: true }),
   saturatedVapourDensity: saturatedVapourDensityRowSchema.omit({ kind: true }),
   vapourPressure: vapourPressureRowSchema.omit({ kind: true }),
+  b12: b12RowSchema.omit({ kind: true }),
 } as const;
