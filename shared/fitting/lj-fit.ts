@@ -12,6 +12,7 @@ import { PROPERTY_MODELS, isFitKind, type FitKind, type PropertyContext, type Pr
 import { profileChi2, type ProfileCurve } from './profile-chi2';
 import { quantumDiagnostics } from './quantum-diagnostics';
 import { gaussianGenerator, mulberry32 } from './random';
+import { LJ_REPULSIVE_EXPONENT, potentialLabel, requireRepulsiveExponent, type PotentialModel } from '../physics/mie-potential';
 
 export type { FitKind } from './property-models';
 export type { LjBounds } from './lj-starting-values';
@@ -56,6 +57,8 @@ export interface LjFitOptions {
   fixed?: { epsilonK?: number; sigmaAngstrom?: number };
   /** Compute the profile-χ² curves (default true). */
   profiles?: boolean;
+  /** λr of a Mie λr-6 potential, held at this value (default 12: the LJ 12-6 potential). Kinds with a Mie model only. */
+  repulsiveExponent?: number;
 }
 
 export interface LjResidual {
@@ -127,6 +130,10 @@ export interface LjFitResult {
   ellipse95: { points: Array<{ epsilonK: number; sigmaAngstrom: number }>; method: string; description: string } | null;
   restartsTried: number;
   quantumCorrection: boolean;
+  /** 'lj-12-6', or 'mie' when λr ≠ 12. */
+  model?: PotentialModel;
+  /** λr of the potential fitted (12 for LJ 12-6). */
+  repulsiveExponent?: number;
   /** de Boer parameter Λ* = h/(σ√(mε)) of the fitted parameters (null without molar mass or without B2/viscosity data), see quantum-diagnostics.ts. */
   deBoerParameter?: number | null;
   deBoerParameterStdErr?: number | null;
@@ -236,6 +243,18 @@ function validate(datasets: readonly FitDataset[], options: LjFitOptions): { all
   if (options.quantumCorrection && molar === undefined) {
     throw new LjFitInputError('missing-molar-mass', 'the quantum correction to B2 needs the molar mass (molarMassGPerMol)');
   }
+  const repulsiveExponent = options.repulsiveExponent ?? LJ_REPULSIVE_EXPONENT;
+  try {
+    requireRepulsiveExponent(repulsiveExponent);
+  } catch (err) {
+    throw new LjFitInputError('bad-option', (err as Error).message);
+  }
+  if (repulsiveExponent !== LJ_REPULSIVE_EXPONENT) {
+    for (const dataset of datasets) {
+      const model: PropertyModel = PROPERTY_MODELS[dataset.kind];
+      if (!model.supportsMie) throw new LjFitInputError('bad-option', `dataset ${String(dataset.id)}: the ${model.label} model is for the LJ 12-6 potential only; a ${potentialLabel(repulsiveExponent)} fit takes B2 data today`);
+    }
+  }
   const bounds = options.bounds ?? DEFAULT_LJ_BOUNDS;
   for (const name of PARAMETER_NAMES) {
     const [lo, hi] = bounds[name];
@@ -249,7 +268,7 @@ function validate(datasets: readonly FitDataset[], options: LjFitOptions): { all
   }
   const restarts = options.restarts ?? DEFAULT_RESTARTS;
   if (!Number.isInteger(restarts) || restarts < 0) throw new LjFitInputError('bad-option', `restarts must be a non-negative integer, got ${restarts}`);
-  return { allPoints: points, points: included, bounds, held, context: { molarMassGPerMol: molar, quantumCorrection: options.quantumCorrection ?? false } };
+  return { allPoints: points, points: included, bounds, held, context: { molarMassGPerMol: molar, quantumCorrection: options.quantumCorrection ?? false, ...(repulsiveExponent !== LJ_REPULSIVE_EXPONENT ? { repulsiveExponent } : {}) } };
 }
 
 const modelPoint = (p: { temperatureK: number; pressureMPa?: number; value: number }) => ({ temperatureK: p.temperatureK, pressureMPa: p.pressureMPa, measured: p.value });
@@ -518,6 +537,8 @@ export function fitLennardJones(
     ellipse95,
     restartsTried: starts.length - 1,
     quantumCorrection: context.quantumCorrection,
+    model: context.repulsiveExponent === undefined ? 'lj-12-6' : 'mie',
+    repulsiveExponent: context.repulsiveExponent ?? LJ_REPULSIVE_EXPONENT,
     deBoerParameter: quantum.deBoerParameter,
     deBoerParameterStdErr: quantum.deBoerParameterStdErr,
   };

@@ -71,13 +71,13 @@ interface Point {
 
 /** One model value at (ε, σ): the interpolated B2 where it applies, the fit's own model otherwise. */
 export function modelValue(kind: FitKind, point: { temperatureK: number; pressureMPa?: number; measured?: number }, epsilonK: number, sigmaAngstrom: number, context: PropertyContext): number {
-  if (kind === 'b2' && !context.quantumCorrection) return b2Interpolated(point.temperatureK, epsilonK, sigmaAngstrom).b2Cm3PerMol;
+  if (kind === 'b2' && !context.quantumCorrection) return b2Interpolated(point.temperatureK, epsilonK, sigmaAngstrom, context.repulsiveExponent ?? 12).b2Cm3PerMol;
   return PROPERTY_MODELS[kind].evaluate(point, epsilonK, sigmaAngstrom, context).value;
 }
 
 /** χ² of the included rows of the datasets at (ε, σ), as lj-fit.ts defines it. */
-export function chi2Function(datasets: readonly FitDataset[], options: Pick<LjFitOptions, 'molarMassGPerMol' | 'quantumCorrection'>): (epsilonK: number, sigmaAngstrom: number) => number {
-  const context: PropertyContext = { molarMassGPerMol: options.molarMassGPerMol, quantumCorrection: options.quantumCorrection ?? false };
+export function chi2Function(datasets: readonly FitDataset[], options: Pick<LjFitOptions, 'molarMassGPerMol' | 'quantumCorrection' | 'repulsiveExponent'>): (epsilonK: number, sigmaAngstrom: number) => number {
+  const context: PropertyContext = { molarMassGPerMol: options.molarMassGPerMol, quantumCorrection: options.quantumCorrection ?? false, ...(options.repulsiveExponent !== undefined && options.repulsiveExponent !== 12 ? { repulsiveExponent: options.repulsiveExponent } : {}) };
   const points: Point[] = [];
   for (const d of datasets) {
     const excluded = new Set(d.excludeRows ?? []);

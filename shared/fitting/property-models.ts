@@ -12,6 +12,8 @@ import { saturationPrediction, saturationRangeProblem } from './saturation-prope
 export interface PropertyContext {
   molarMassGPerMol?: number;
   quantumCorrection: boolean;
+  /** λr of a Mie λr-6 potential (absent: LJ 12-6); only models with `supportsMie` accept it. */
+  repulsiveExponent?: number;
 }
 
 /** Where a model is evaluated: the state point, and the measured value where the model must choose a phase. */
@@ -49,6 +51,8 @@ export interface PropertyModel {
    * iterates and refuses the result if any remain outside at the final parameters.
    */
   rangeProblem?(point: ModelPoint, epsilonK: number, sigmaAngstrom: number, context: PropertyContext): string | null;
+  /** True when the model takes a Mie λr-6 potential (context.repulsiveExponent). */
+  supportsMie?: boolean;
 }
 
 export const PROPERTY_MODELS = {
@@ -58,9 +62,10 @@ export const PROPERTY_MODELS = {
     needsMolarMass: false,
     needsPressure: false,
     sigmaExponent: 3,
+    supportsMie: true,
     evaluate(point, epsilonK, sigmaAngstrom, context) {
       const quantum = context.quantumCorrection && context.molarMassGPerMol !== undefined ? { molarMassGPerMol: context.molarMassGPerMol } : undefined;
-      const p = b2WithGradient(point.temperatureK, epsilonK, sigmaAngstrom, quantum);
+      const p = context.repulsiveExponent === undefined ? b2WithGradient(point.temperatureK, epsilonK, sigmaAngstrom, quantum) : b2WithGradient(point.temperatureK, epsilonK, sigmaAngstrom, quantum, { repulsiveExponent: context.repulsiveExponent });
       return { value: p.b2Cm3PerMol, dEpsilonK: p.dB2dEpsilonK, dSigmaAngstrom: p.dB2dSigmaAngstrom };
     },
   },
