@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { readFileSync } from 'node:fs';
-import { DEMO_PEOPLE, DEMO_SUBSTANCES } from '../../fixtures/demo/scenario';
+import { DEMO_MIXTURES, DEMO_PEOPLE, DEMO_SUBSTANCES, demoFileOf, demoHasTable, type DemoKind } from '../../fixtures/demo/scenario';
 import { hashPassword } from '../features/auth/auth';
 import { recordAudit } from '../features/audit/audit.service';
 import { parseUpload, storeVersion } from '../features/datasets/datasets.service';
@@ -33,14 +33,23 @@ export async function seedDemo(db: Db, options: { demoPassword: string }): Promi
         .returning('id')
         .executeTakeFirstOrThrow();
       await recordAudit(tx, { actor: modeller, action: 'substance.created', targetType: 'substance', targetId: substance.id, summary: `Demo seed created substance ${s.name}` });
-      for (const kind of ['b2', 'viscosity', 'density'] as const) {
+      for (const kind of ['b2', 'viscosity', 'density', 'saturatedLiquidDensity', 'saturatedVapourDensity', 'vapourPressure'] as DemoKind[]) {
         const meta = s.sources[kind];
-        if (!meta || !s.tables[kind]) continue;
-        const file = { originalname: `${s.file}-${kind}.csv`, buffer: demoFile(`${s.file}-${kind}.csv`) };
+        if (!meta || !demoHasTable(s, kind)) continue;
+        const name = demoFileOf(s.file, kind);
+        const file = { originalname: name, buffer: demoFile(name) };
         const fields = { source: meta.source, method: meta.method };
         const parsed = parseUpload(file, kind, fields, s.molarMassGPerMol);
         await storeVersion(tx, { newDataset: { substanceId: substance.id, property: kind, name: meta.name }, file, fields, parsed, actor: modeller });
       }
+    }
+    // Cross second virial coefficients of a demo pair, stored with the pair's first substance.
+    for (const m of DEMO_MIXTURES) {
+      const first = await tx.selectFrom('substance').select(['id', 'molarMassGramsPerMol']).where('name', '=', m.substances[0]).executeTakeFirstOrThrow();
+      const file = { originalname: `${m.file}.csv`, buffer: demoFile(`${m.file}.csv`) };
+      const fields = { source: m.source, method: m.method, notes: `Cross second virial coefficient of the pair ${m.substances.join(' + ')}.` };
+      const parsed = parseUpload(file, 'b12', fields, first.molarMassGramsPerMol);
+      await storeVersion(tx, { newDataset: { substanceId: first.id, property: 'b12', name: m.name }, file, fields, parsed, actor: modeller });
     }
   });
   return { seeded: true };
