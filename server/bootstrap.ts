@@ -6,7 +6,6 @@ import { createAuth } from './features/auth/auth';
 import { startMail } from './features/mail/mail.runtime';
 import { JOB_KINDS } from './jobs/job-kinds';
 import { JobRunner, LocalExecutor, type JobExecutor } from './jobs/job-runner';
-import { RedisExecutor } from './jobs/redis-executor';
 import { createWorkerPool } from './jobs/worker-pool';
 import pkg from '../package.json' with { type: 'json' };
 
@@ -28,8 +27,9 @@ export async function createContext(env: Env, log: (message: string) => void = c
   const auth = createAuth(handle.sqlite, { secureCookies: publicUrl.startsWith('https:') });
   const codeVersion = readCodeVersion();
   // The job driver: the embedded queue (this process's threads) by default, BullMQ workers with REDIS_URL.
+  // BullMQ and ioredis load only when they are used.
   const executor: JobExecutor = env.REDIS_URL
-    ? await RedisExecutor.create({ redisUrl: env.REDIS_URL, codeVersion, localThreads: env.WORKERS, lockMs: env.QUEUE_LOCK_MS, log })
+    ? await (await import('./jobs/redis-executor')).RedisExecutor.create({ redisUrl: env.REDIS_URL, codeVersion, localThreads: env.WORKERS, lockMs: env.QUEUE_LOCK_MS, log })
     : new LocalExecutor(createWorkerPool(env.WORKERS));
   const jobs = new JobRunner(handle.db, executor, JOB_KINDS, log);
   await jobs.start();
