@@ -31,6 +31,7 @@ import {
 } from './csv-reader';
 import { MAX_DATA_ROWS, MAX_PROBLEMS, type Problem, type ProblemCode } from './problems';
 import { UnitConversionError, makeConverter, normaliseUnitText } from './units';
+import { judgeValue, unitSlipHint } from './plausibility';
 
 export interface ParseOptions {
   /** Inferred from the headers when absent. */
@@ -73,6 +74,11 @@ export interface ParseResult {
   /** Canonical rows in file order; empty when !ok. */
   rows: CanonicalRow[];
   problems: Problem[];
+  /**
+   * Values that are possible but unusual (shared/measurements/plausibility.ts), one per column: accepted, shown
+   * to the person. Impossible values are problems instead.
+   */
+  warnings: Problem[];
   /** 0-based indices of columns not used (unrecognised, ignored, or of another kind). */
   unmappedColumns: number[];
   /** Relative uncertainty applied to rows without a measured one. */
@@ -171,6 +177,7 @@ export function parseMeasurementCsv(text: string, options: ParseOptions = {}): P
       columns: partial.columns ?? [],
       rows: ok ? (partial.rows ?? []) : [],
       problems: list,
+      warnings: partial.warnings ?? [],
       unmappedColumns: partial.unmappedColumns ?? [],
       defaultRelativeUncertainty: rel,
     };
@@ -323,8 +330,9 @@ export function parseMeasurementCsv(text: string, options: ParseOptions = {}): P
     return result({ kind, decimal, columns, unmappedColumns });
   }
 
-  const rows = validateRows(dataRecords, headerRecord.cells.length, used, kind, decimal, rel, problems);
-  return result({ kind, decimal, columns, unmappedColumns, rows });
+  const warnings: Problem[] = [];
+  const rows = validateRows(dataRecords, headerRecord.cells.length, used, kind, decimal, rel, problems, warnings);
+  return result({ kind, decimal, columns, unmappedColumns, rows, warnings });
 }
 
 function validateRows(
@@ -335,9 +343,12 @@ function validateRows(
   decimal: DecimalSeparator,
   rel: number,
   problems: ProblemList,
+  warnings: Problem[],
 ): CanonicalRow[] {
   const def = PROPERTY_KINDS[kind];
   const rows: CanonicalRow[] = [];
+  // Unusual values per column: the first one's row and message, and how many.
+  const unusual = new Map<UsedColumn, { row: number; message: string; count: number }>();
   const uncertaintyColumn = used.find((u) => u.quantity === def.uncertaintyQuantity);
   for (const rec of records) {
     const line = rec.line;
@@ -400,6 +411,17 @@ function validateRows(
         rowOk = false;
         continue;
       }
+      const judged = Number.isFinite(v) ? judgeValue(col.field, v, qdef.label) : { verdict: 'refuse' as const, message: `${qdef.label} "${text}" ${col.unitText} does not fit in a number once converted to ${qdef.canonicalUnitLabel}.` };
+      if (judged.verdict === 'refuse') {
+        problems.add({ row: line, column: col.header, field: col.field, code: 'implausible-value', message: `Row ${line}, column "${col.header}": ${judged.message}` });
+        rowOk = false;
+        continue;
+      }
+      if (judged.verdict === 'warn') {
+        const seen = unusual.get(col) ?? { row: line, message: judged.message, count: 0 };
+        seen.count++;
+        unusual.set(col, seen);
+      }
       values[col.field] = v;
     }
     if (!rowOk) continue;
@@ -412,6 +434,16 @@ function validateRows(
     rows.push({ kind, row: line, uncertaintySource, raw, ...values } as CanonicalRow);
   }
   findDuplicates(rows, used, kind, problems);
+  for (const [col, seen] of unusual) {
+    const columnValues = rows.map((r) => (r as unknown as Record<string, number>)[col.field]).filter((x) => x !== undefined);
+    const hint = unitSlipHint(col.field, columnValues, col.unitText);
+    const more = seen.count > 1 ? ` (${seen.count - 1} more row${seen.count > 2 ? 's' : ''} in this column)` : '';
+    warnings.push(
+      hint
+        ? { row: seen.row, column: col.header, field: col.field, code: 'suspect-unit', message: `Column "${col.header}": ${hint}` }
+        : { row: seen.row, column: col.header, field: col.field, code: 'unusual-value', message: `Row ${seen.row}, column "${col.header}": ${seen.message}${more}` },
+    );
+  }
   return rows;
 }
 

@@ -43,6 +43,10 @@ export const PROBLEM_CODES = [
   'nonpositive-viscosity',
   'nonpositive-uncertainty',
   'duplicate-state-point',
+  'implausible-value',
+  // Warnings (ParseResult.warnings): the upload is accepted.
+  'unusual-value',
+  'suspect-unit',
 ] as const;
 
 export type ProblemCode = (typeof PROBLEM_CODES)[number];

@@ -66,7 +66,10 @@ const versionQuery = z.object({ version: z.coerce.number().int().positive().opti
 const versionParams = z.object({ id: z.coerce.number().int().positive(), version: z.coerce.number().int().positive() });
 const withdrawBody = z.object({ reason: z.string().trim().min(3, 'give a reason of at least 3 characters').max(2000) });
 
-/** An upload without a source citation is stored, with a warning: review will need the citation. */
+/**
+ * An upload without a source citation is stored, with a warning: review will need the citation. Possible but
+ * unusual values (shared/measurements/plausibility.ts, e.g. a unit slip of 10⁶) are stored and warned about too.
+ */
 function citationWarnings(source: string | undefined | null): string[] {
   return source && source.trim() ? [] : ['No source citation was given. A parameter set fitted to this measurement set cannot be submitted for review until a version that cites its source is uploaded.'];
 }
@@ -90,7 +93,7 @@ export function datasetRoutes(ctx: AppContext): Router {
     const stored = await db.transaction().execute((tx) =>
       storeVersion(tx, { newDataset: { substanceId: substance.id, property: fields.property, name: fields.name }, file, fields, parsed, actor }),
     );
-    res.status(201).json({ ...stored, warnings: citationWarnings(fields.source) });
+    res.status(201).json({ ...stored, warnings: [...parsed.warnings.map((w) => w.message), ...citationWarnings(fields.source)] });
   });
 
   /**
@@ -121,7 +124,7 @@ export function datasetRoutes(ctx: AppContext): Router {
     const substance = await findSubstance(db, dataset.substanceId);
     const parsed = parseUpload(file, dataset.property, fields, substance!.molarMassGramsPerMol);
     const stored = await db.transaction().execute((tx) => storeVersion(tx, { datasetId: id, file, fields, parsed, actor }));
-    res.status(201).json({ ...stored, warnings: citationWarnings(fields.source) });
+    res.status(201).json({ ...stored, warnings: [...parsed.warnings.map((w) => w.message), ...citationWarnings(fields.source)] });
   });
 
   router.get('/datasets/:id', requirePolicy('dataset:read'), async (req, res) => {

@@ -1,4 +1,5 @@
 import { sql } from 'kysely';
+import { normaliseSubstanceName } from '../../../shared/schemas/measurements';
 import type { Db, Tx } from '../../db/database';
 
 export async function listSubstances(db: Db | Tx) {
@@ -32,8 +33,16 @@ export async function findSubstance(db: Db | Tx, id: number) {
     .executeTakeFirst();
 }
 
+/**
+ * The substance whose name is the same once both are normalised (NFKC, one space, trimmed) and case is ignored,
+ * so "quillgas\u00a0QG-1" and "Quillgas QG-1" are one name. Compared here rather than in SQL, whose NOCASE
+ * folds ASCII only and knows no Unicode normal forms (older rows may predate normalisation).
+ */
 export async function findSubstanceByName(db: Db | Tx, name: string) {
-  return db.selectFrom('substance').select(['id', 'name']).where(sql`name collate nocase`, '=', name).executeTakeFirst();
+  const key = (n: string) => normaliseSubstanceName(n).toLocaleLowerCase('en');
+  const wanted = key(name);
+  const rows = await db.selectFrom('substance').select(['id', 'name']).execute();
+  return rows.find((r) => key(r.name) === wanted);
 }
 
 export async function countDatasetsOf(db: Db | Tx, substanceId: number): Promise<number> {

@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { createSubstanceBody, updateSubstanceBody } from '../../../shared/schemas/measurements';
+import { createSubstanceBody, molarMassWarnings, updateSubstanceBody } from '../../../shared/schemas/measurements';
 import { hasPolicy } from '../../../shared/auth/roles';
 import { currentUser, requirePolicy } from '../../common/auth-middleware';
 import { conflict, notFound } from '../../common/errors';
@@ -48,7 +48,7 @@ export function substanceRoutes(ctx: AppContext): Router {
       await recordAudit(tx, { actor, action: 'substance.created', targetType: 'substance', targetId: row.id, summary: `${actor.email} created substance ${row.name}`, after: toSubstance(row) });
       return row;
     });
-    res.status(201).json(toSubstance(created));
+    res.status(201).json({ ...toSubstance(created), warnings: molarMassWarnings(body.molarMass) });
   });
 
   router.get('/substances/:id', requirePolicy('substance:read'), async (req, res) => {
@@ -68,7 +68,8 @@ export function substanceRoutes(ctx: AppContext): Router {
     const updated = await db.transaction().execute(async (tx) => {
       const before = await findSubstance(tx, id);
       if (!before) throw notFound(`Substance ${id}`);
-      if (body.name && body.name.toLowerCase() !== before.name.toLowerCase() && (await findSubstanceByName(tx, body.name))) {
+      const sameName = body.name ? await findSubstanceByName(tx, body.name) : undefined;
+      if (sameName && sameName.id !== id) {
         throw conflict(`A substance named "${body.name}" already exists.`, [{ field: 'name', message: 'already in use' }]);
       }
       // The molar mass converts molar densities at upload, so it is fixed once measurements exist.
@@ -90,7 +91,7 @@ export function substanceRoutes(ctx: AppContext): Router {
       await recordAudit(tx, { actor, action: 'substance.updated', targetType: 'substance', targetId: id, summary: `${actor.email} edited substance ${row.name}`, before: toSubstance(before), after: toSubstance(row) });
       return row;
     });
-    res.json(toSubstance(updated));
+    res.json({ ...toSubstance(updated), warnings: molarMassWarnings(body.molarMass) });
   });
 
   return router;
