@@ -81,3 +81,11 @@ export function mapListFlag<T>(name: string, values: number[], fn: (value: numbe
     }
   });
 }
+
+/** `--repulsive-exponent`: λr of the Mie λr-6 potential, a number from 8 to 36 (default 12, the LJ 12-6 potential). */
+export function repulsiveExponentFlag(raw: string | undefined): number {
+  if (raw === undefined) return 12;
+  const value = numberOf(raw);
+  if (!Number.isFinite(value) || value < 8 || value > 36) throw new Error(`--repulsive-exponent must be a number from 8 to 36, got "${raw}"`);
+  return value;
+}

@@ -7,6 +7,10 @@
  * threads (WORKERS, default cores − 1), cached for the duration of the command.
  * Prints { status, epsilonK, sigmaAngstrom, stdErr, correlation, chi2, dof, reducedChi2, convergence, deBoerParameter, deBoerParameterStdErr, warnings }
  * plus { eosStage, mdRuns, mdIterations } for density fits.
+ * Mie λr-6 (B2 data): `--model mie --repulsive-exponent 16` holds λr, `--model mie --fit-repulsive-exponent` fits it
+ * (adds { model, repulsiveExponent[, repulsiveExponentProfile] }). `--posterior [--samples N]` adds
+ * { posterior: { epsilonK: { median, lower95, upper95 }, sigmaAngstrom: {…}, correlation, diagnostics, messages } }
+ * (gas-phase fits; ensemble sampler with a fixed seed, shared/fitting/lj-posterior.ts).
  */
 import { readFileSync } from 'node:fs';
 import os from 'node:os';
@@ -19,9 +23,12 @@ import type { NptResult } from '../../shared/physics/md/npt';
 import { isFitKind } from '../../shared/fitting/property-models';
 import { parseMeasurementCsv } from '../../shared/measurements/parse-measurement-csv';
 import { rowValueAndUncertainty } from '../../shared/measurements/property-kinds';
-import { errorMessage, missingFlagError, parseFlags, positiveNumberFlag } from './_flags';
+import { errorMessage, missingFlagError, parseFlags, positiveNumberFlag, repulsiveExponentFlag } from './_flags';
+import { fitMieWithExponent } from '../../shared/fitting/mie-fit';
+import { ljPosterior } from '../../shared/fitting/lj-posterior';
 
-const USAGE = 'usage: fit --data <file.csv> [--data <file2.csv> ...] [--molar-mass <g/mol>] [--quantum] [--restarts <n>] [--atoms <n> --steps <n> --cutoff <rc/σ> --scheme truncated-tail|truncated-shifted --seed <k>] --json';
+const USAGE =
+  'usage: fit --data <file.csv> [--data <file2.csv> ...] [--molar-mass <g/mol>] [--quantum] [--restarts <n>] [--model lj-12-6|mie [--repulsive-exponent <8–36> | --fit-repulsive-exponent]] [--posterior [--samples <n>]] [--atoms <n> --steps <n> --cutoff <rc/σ> --scheme truncated-tail|truncated-shifted --seed <k>] --json';
 
 /** Reads one CSV through the shared upload parser; throws with every problem it reports. */
 function loadDataset(path: string, molarMassGPerMol: number | undefined): FitDataset {
@@ -62,6 +69,11 @@ export async function run(argv: string[]): Promise<unknown> {
       cutoff: { type: 'string' },
       scheme: { type: 'string' },
       seed: { type: 'string' },
+      model: { type: 'string' },
+      'repulsive-exponent': { type: 'string' },
+      'fit-repulsive-exponent': { type: 'boolean' },
+      posterior: { type: 'boolean' },
+      samples: { type: 'string' },
     },
     USAGE,
   );
@@ -81,8 +93,36 @@ export async function run(argv: string[]): Promise<unknown> {
   if (datasets.some((d) => d.kind === 'density') && molarMassGPerMol === undefined) {
     throw new Error('density data need --molar-mass (mass density = reduced density × M / (N_A σ³))');
   }
-  const options = { molarMassGPerMol, quantumCorrection: values.quantum ?? false, ...(restarts !== undefined ? { restarts } : {}) };
-  const fit = fitLennardJones(datasets, options);
+  const model = values.model ?? 'lj-12-6';
+  if (model !== 'lj-12-6' && model !== 'mie') throw new Error(`--model must be lj-12-6 or mie, got "${model}"`);
+  const fitExponent = values['fit-repulsive-exponent'] === true;
+  if (model === 'lj-12-6' && (values['repulsive-exponent'] !== undefined || fitExponent)) throw new Error('--repulsive-exponent and --fit-repulsive-exponent need --model mie');
+  if (model === 'mie' && (values['repulsive-exponent'] === undefined) === !fitExponent) throw new Error('--model mie needs either --repulsive-exponent <8–36> (held) or --fit-repulsive-exponent (fitted), not both');
+  const repulsiveExponent = repulsiveExponentFlag(values['repulsive-exponent']);
+  let samples: number | undefined;
+  if (values.samples !== undefined) {
+    samples = Number(values.samples);
+    if (!values.posterior) throw new Error('--samples is only used with --posterior');
+    if (!Number.isInteger(samples) || samples < 100 || samples > 100000) throw new Error(`--samples must be a whole number from 100 to 100000, got "${values.samples}"`);
+  }
+  const hasDensity = datasets.some((d) => d.kind === 'density');
+  if (values.posterior && hasDensity) throw new Error('--posterior is for gas-phase fits (B2, viscosity and other non-simulated kinds) in this version; leave out the density data or --posterior');
+  const options = { molarMassGPerMol, quantumCorrection: values.quantum ?? false, ...(restarts !== undefined ? { restarts } : {}), ...(model === 'mie' && !fitExponent ? { repulsiveExponent } : {}) };
+  const fit = model === 'mie' && fitExponent ? fitMieWithExponent(datasets, options) : fitLennardJones(datasets, options);
+  if (!hasDensity) {
+    const extra: Record<string, unknown> = {};
+    if (model === 'mie') {
+      extra.model = fit.model;
+      extra.repulsiveExponent = fit.repulsiveExponent;
+      if ('repulsiveExponentProfile' in fit) extra.repulsiveExponentProfile = fit.repulsiveExponentProfile;
+    }
+    if (values.posterior && fit.status === 'succeeded') {
+      const post = ljPosterior(datasets, { ...options, repulsiveExponent: fit.repulsiveExponent }, fit, { ...(samples !== undefined ? { samples } : {}), drawsReturned: 0 });
+      const pick = (p: typeof post.epsilonK) => ({ median: p.median, lower95: p.lower95, upper95: p.upper95 });
+      extra.posterior = { epsilonK: pick(post.epsilonK), sigmaAngstrom: pick(post.sigmaAngstrom), correlation: post.correlation, linearised: post.linearised, diagnostics: post.diagnostics, likelihood: post.likelihood, priors: post.priors, messages: 'repulsiveExponentProfile' in fit ? [...post.messages, `ε and σ were sampled at the best λr = ${fit.repulsiveExponent?.toFixed(2)}; λr itself is not sampled, so these intervals do not include its uncertainty.`] : post.messages };
+    }
+    return summary(fit, extra);
+  }
   if (!datasets.some((d) => d.kind === 'density') || fit.status !== 'succeeded') return summary(fit, datasets.some((d) => d.kind === 'density') ? { eosStage: summary(fit) } : {});
   return densityStage(datasets, fit, molarMassGPerMol!, values);
 }

@@ -98,7 +98,8 @@ export function fitMieWithExponent(datasets: FitDataset[], options: LjFitOptions
   const upper95 = crossing(3.841458820694124 * s2, rHi);
   k = 0;
   const profile: RepulsiveExponentProfile = {
-    values: [...cache.keys()].sort((x, y) => x - y),
+    // The grid and the best λr (the refinement's own evaluations are left out to keep the curve readable).
+    values: [...new Set([...GRID, best])].sort((x, y) => x - y),
     chi2: [],
     best,
     stdErr: lo1 !== null && hi1 !== null ? (hi1 - lo1) / 2 : null,
