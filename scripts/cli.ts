@@ -15,11 +15,18 @@ function availableCommands(): string[] {
     .sort();
 }
 
+/** Examples from the invented demo scenario (fixtures/demo/scenario.ts): quillgas QG-1 of Quillmoor Chemicals. */
+const HELP_EXAMPLES = `examples (quillgas QG-1 of the demo scenario: ε/k_B = 131.5 K, σ = 3.524 Å, M = 44.62 g/mol):
+  npm run -s cli -- b2 --epsilon-k 131.5 --sigma-angstrom 3.524 --temperatures 150,250,400 --json
+  npm run -s cli -- viscosity --epsilon-k 131.5 --sigma-angstrom 3.524 --molar-mass 44.62 --temperatures 300,500 --json
+  npm run -s cli -- fit --data fixtures/demo/quillgas-qg1-b2.csv --data fixtures/demo/quillgas-qg1-viscosity.csv --molar-mass 44.62 --json
+`;
+
 async function main(): Promise<number> {
   const [command, ...rest] = process.argv.slice(2);
   const commands = availableCommands();
   if (!command || command === '--help' || command === 'help') {
-    process.stderr.write(`usage: npm run -s cli -- <command> [flags] --json\ncommands: ${commands.join(', ')}\n`);
+    process.stderr.write(`usage: npm run -s cli -- <command> [flags] --json\ncommands: ${commands.join(', ')}\n${HELP_EXAMPLES}`);
     return command ? 0 : 2;
   }
   if (!commands.includes(command)) {

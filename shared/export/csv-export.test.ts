@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import Papa from 'papaparse';
 import { csvCell, csvDocument, isFormulaLike, mixtureToCsv, parameterSetsToCsv } from './csv-export';
-import { argonShifted, kryptonShifted, kryptonTail, methaneFull } from './export-test-sets';
+import { brindleShifted, oskaneShifted, oskaneTail, tarrowFull } from './export-test-sets';
 import { combine } from '../mixing/combining-rules';
 
 const CAUTION = 'Fitted model parameters, not validated property data for pressure, safety or process design; defer to local codes and licensed engineering practice.';
@@ -61,7 +61,7 @@ describe('csvCell: formula injection (OWASP "CSV Injection")', () => {
 
 describe('parameter set CSV', () => {
   it('one header row and one row per set, units in the header, caution in the last column', () => {
-    const rows = parse(parameterSetsToCsv([argonShifted, kryptonTail, methaneFull]));
+    const rows = parse(parameterSetsToCsv([brindleShifted, oskaneTail, tarrowFull]));
     expect(rows).toHaveLength(4);
     const [header, argon] = rows;
     expect(header).toContain('epsilon_over_kB_K');
@@ -73,10 +73,10 @@ describe('parameter set CSV', () => {
     expect(get('parameter_set_id')).toBe('12');
     expect(get('version')).toBe('3');
     expect(get('approved_at')).toBe('2026-11-30T10:00:00Z');
-    expect(get('epsilon_over_kB_K')).toBe('119.6');
+    expect(get('epsilon_over_kB_K')).toBe('127.5');
     expect(get('correlation_epsilon_sigma')).toBe('-0.82');
-    expect(get('cutoff_rc_Angstrom')).toBe('8.5125');
-    expect(get('measurement_sets')).toBe('b2: Argon B2, Quillmoor cell A v2 (id 4, source Quillmoor lab notebook 3); viscosity: Argon dilute-gas viscosity v1 (id 5, doi 10.0000/quillmoor.example.5)');
+    expect(get('cutoff_rc_Angstrom')).toBe('8.55');
+    expect(get('measurement_sets')).toBe('b2: Brindle gas B2, Quillmoor cell A v2 (id 4, source Quillmoor lab notebook 3); viscosity: Brindle gas dilute-gas viscosity v1 (id 5, doi 10.0000/quillmoor.example.5)');
     expect(get('caution')).toBe(CAUTION);
     // Missing values are empty cells, not "null".
     const methane = rows[3];
@@ -85,7 +85,7 @@ describe('parameter set CSV', () => {
   });
 
   it('escapes a substance name that starts with "=" and a reviewer name that starts with "@"', () => {
-    const evil = { ...argonShifted, substance: { ...argonShifted.substance, name: '=HYPERLINK("http://example.invalid","x")' }, approvedBy: '@admin' };
+    const evil = { ...brindleShifted, substance: { ...brindleShifted.substance, name: '=HYPERLINK("http://example.invalid","x")' }, approvedBy: '@admin' };
     const text = parameterSetsToCsv([evil]);
     const [header, row] = parse(text);
     expect(row[header.indexOf('substance')]).toBe('\'=HYPERLINK("http://example.invalid","x")');
@@ -95,25 +95,25 @@ describe('parameter set CSV', () => {
   });
 
   it('adds columns in the requested units next to the canonical ones', () => {
-    const [header, row] = parse(parameterSetsToCsv([argonShifted], { energyUnit: 'kcal/mol', lengthUnit: 'nm' }));
+    const [header, row] = parse(parameterSetsToCsv([brindleShifted], { energyUnit: 'kcal/mol', lengthUnit: 'nm' }));
     // ε in kcal/mol = ε/k_B · R / 4184 with R = 8.314462618 J/(mol K) (CODATA 2018).
-    expect(Number(row[header.indexOf('epsilon_kcal_per_mol')])).toBeCloseTo((119.6 * 8.314462618) / 4184, 10);
-    expect(row[header.indexOf('sigma_nm')]).toBe('0.3405');
+    expect(Number(row[header.indexOf('epsilon_kcal_per_mol')])).toBeCloseTo((127.5 * 8.314462618) / 4184, 10);
+    expect(row[header.indexOf('sigma_nm')]).toBe('0.342');
     expect(row[header.indexOf('sigma_stderr_nm')]).toBe('0.0003');
     expect(header).not.toContain('epsilon_K');
-    expect(parse(parameterSetsToCsv([argonShifted], { energyUnit: 'K', lengthUnit: 'Å' }))[0]).toEqual(parse(parameterSetsToCsv([argonShifted]))[0]);
+    expect(parse(parameterSetsToCsv([brindleShifted], { energyUnit: 'K', lengthUnit: 'Å' }))[0]).toEqual(parse(parameterSetsToCsv([brindleShifted]))[0]);
   });
 });
 
 describe('mixture CSV', () => {
   it('one row per pair with kind, rule and the estimate note', () => {
-    const rows = parse(mixtureToCsv([argonShifted, kryptonShifted], 'lorentz-berthelot', { energyUnit: 'kJ/mol' }));
+    const rows = parse(mixtureToCsv([brindleShifted, oskaneShifted], 'lorentz-berthelot', { energyUnit: 'kJ/mol' }));
     expect(rows).toHaveLength(4);
     const [header, , cross] = rows;
     const get = (row: string[], name: string) => row[header.indexOf(name)];
     expect(rows.slice(1).map((r) => `${get(r, 'i')}-${get(r, 'j')}:${get(r, 'kind')}`)).toEqual(['1-1:pure', '1-2:combining-rule-estimate', '2-2:pure']);
     expect(get(cross, 'combining_rule')).toBe('Lorentz–Berthelot');
-    const lb = combine('lorentz-berthelot', argonShifted, kryptonShifted);
+    const lb = combine('lorentz-berthelot', brindleShifted, oskaneShifted);
     expect(Number(get(cross, 'epsilon_over_kB_K'))).toBe(lb.epsilonK);
     expect(Number(get(cross, 'epsilon_kJ_per_mol'))).toBeCloseTo((lb.epsilonK * 8.314462618) / 1000, 10);
     expect(get(cross, 'note')).toContain('not fitted');

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { lammpsMixture, lammpsParameterSet } from './lammps-export';
 import { gromacsMixture, gromacsParameterSet, gromacsTypeName } from './gromacs-export';
-import { argonShifted, kryptonShifted, kryptonTail, methaneFull } from './export-test-sets';
+import { brindleShifted, oskaneShifted, oskaneTail, tarrowFull } from './export-test-sets';
 import { combine } from '../mixing/combining-rules';
 import type { ExportableParameterSet } from './parameter-set-export';
 
@@ -82,27 +82,27 @@ const K_PER_KJ_PER_MOL = 120.2722;
 
 describe('LAMMPS fragments', () => {
   it('units real: truncated-shifted set gives lj/cut at 2.5σ in Å, ε in kcal/mol and shift yes', () => {
-    const cmds = lammpsCommands(lammpsParameterSet(argonShifted, 'real'));
+    const cmds = lammpsCommands(lammpsParameterSet(brindleShifted, 'real'));
     expect(cmds.map((c) => c[0])).toEqual(['mass', 'pair_style', 'pair_coeff', 'pair_modify']);
-    expect(cmds[0]).toEqual(['mass', '1', '39.948']);
-    expect(cmds[1]).toEqual(['pair_style', 'lj/cut', '8.5125']);
+    expect(cmds[0]).toEqual(['mass', '1', '41.25']);
+    expect(cmds[1]).toEqual(['pair_style', 'lj/cut', '8.55']);
     expect(cmds[2].slice(0, 3)).toEqual(['pair_coeff', '1', '1']);
-    expect(Number(cmds[2][3]) * K_PER_KCAL_PER_MOL).toBeCloseTo(119.6, 3);
-    expect(cmds[2][4]).toBe('3.405');
+    expect(Number(cmds[2][3]) * K_PER_KCAL_PER_MOL).toBeCloseTo(127.5, 3);
+    expect(cmds[2][4]).toBe('3.42');
     expect(cmds[3]).toEqual(['pair_modify', 'shift', 'yes', 'tail', 'no']);
   });
 
   it('units metal: ε in eV', () => {
-    const cmds = lammpsCommands(lammpsParameterSet(argonShifted, 'metal'));
-    expect(Number(cmds[2][3]) * K_PER_EV).toBeCloseTo(119.6, 3);
-    expect(lammpsParameterSet(argonShifted, 'metal')).toContain('units metal (energy eV, distance Angstrom');
+    const cmds = lammpsCommands(lammpsParameterSet(brindleShifted, 'metal'));
+    expect(Number(cmds[2][3]) * K_PER_EV).toBeCloseTo(127.5, 3);
+    expect(lammpsParameterSet(brindleShifted, 'metal')).toContain('units metal (energy eV, distance Angstrom');
   });
 
   it('truncated-tail uses tail corrections; the full potential gets a long cutoff with tail corrections and says why', () => {
-    const tail = lammpsCommands(lammpsParameterSet(kryptonTail, 'real'));
+    const tail = lammpsCommands(lammpsParameterSet(oskaneTail, 'real'));
     expect(tail[1]).toEqual(['pair_style', 'lj/cut', '10.8']); // 3 σ × 3.6 Å
     expect(tail[3]).toEqual(['pair_modify', 'shift', 'no', 'tail', 'yes']);
-    const fullText = lammpsParameterSet(methaneFull, 'real');
+    const fullText = lammpsParameterSet(tarrowFull, 'real');
     const full = lammpsCommands(fullText);
     expect(full[1]).toEqual(['pair_style', 'lj/cut', '18.79']); // 5 σ × 3.758 Å
     expect(full[3]).toEqual(['pair_modify', 'shift', 'no', 'tail', 'yes']);
@@ -111,9 +111,9 @@ describe('LAMMPS fragments', () => {
   });
 
   it('carries set id, version, approval date, validity and the caution text as comments', () => {
-    const text = lammpsParameterSet(argonShifted, 'real');
+    const text = lammpsParameterSet(brindleShifted, 'real');
     const comments = text.split('\n').filter((l) => l.startsWith('#'));
-    expect(comments[0]).toBe('# Epsigma parameter set 12 v3: Argon (Ar), Lennard-Jones 12-6');
+    expect(comments[0]).toBe('# Epsigma parameter set 12 v3: Brindle gas (Bd), Lennard-Jones 12-6');
     expect(comments).toContain('# Status: approved 2026-11-30T10:00:00Z by R. Ostrova');
     expect(comments).toContain('# Valid for: T = 90-300 K; p = 0.1-10 MPa');
     expect(comments).toContain(`# CAUTION: ${CAUTION}`);
@@ -122,22 +122,22 @@ describe('LAMMPS fragments', () => {
 
   it('marks a set that is not approved, superseded or retired', () => {
     // State names of shared/parameter-sets/transitions.ts.
-    const draft = { ...argonShifted, state: 'in_review', approvedAt: null, approvedBy: null };
+    const draft = { ...brindleShifted, state: 'in_review', approvedAt: null, approvedBy: null };
     expect(lammpsParameterSet(draft, 'real')).toContain('# Status: NOT APPROVED (state: in_review)');
-    expect(lammpsParameterSet({ ...argonShifted, state: 'superseded' }, 'real')).toContain('# Status: SUPERSEDED by a newer version (approved 2026-11-30T10:00:00Z by R. Ostrova)');
-    expect(gromacsParameterSet({ ...argonShifted, state: 'retired' })).toContain('; Status: RETIRED (was approved 2026-11-30T10:00:00Z by R. Ostrova)');
+    expect(lammpsParameterSet({ ...brindleShifted, state: 'superseded' }, 'real')).toContain('# Status: SUPERSEDED by a newer version (approved 2026-11-30T10:00:00Z by R. Ostrova)');
+    expect(gromacsParameterSet({ ...brindleShifted, state: 'retired' })).toContain('; Status: RETIRED (was approved 2026-11-30T10:00:00Z by R. Ostrova)');
   });
 
   it('free text cannot escape its comment line', () => {
     const evil: ExportableParameterSet = {
-      ...argonShifted,
-      substance: { ...argonShifted.substance, name: 'Argon\npair_style zero 1.0\rshell rm -rf x', formula: 'Ar &' },
+      ...brindleShifted,
+      substance: { ...brindleShifted.substance, name: 'Brindle gas\npair_style zero 1.0\rshell rm -rf x', formula: 'Bd &' },
       approvedBy: 'someone """ &',
       datasets: [{ id: 1, version: 1, kind: 'b2', name: 'ends with &', source: 'trailing backslash \\', doi: null }],
     };
     const cmds = lammpsCommands(lammpsParameterSet(evil, 'real'));
     expect(cmds.map((c) => c[0])).toEqual(['mass', 'pair_style', 'pair_coeff', 'pair_modify']);
-    expect(cmds[1]).toEqual(['pair_style', 'lj/cut', '8.5125']);
+    expect(cmds[1]).toEqual(['pair_style', 'lj/cut', '8.55']);
     const entries = gromacsEntries(gromacsParameterSet({ ...evil, approvedBy: 'ends in a backslash \\' }));
     expect(entries.map((e) => e.section)).toEqual(['atomtypes']);
     expect(entries[0].fields).toHaveLength(6);
@@ -156,12 +156,12 @@ describe('the test readers themselves', () => {
 
 describe('LAMMPS mixture fragment', () => {
   it('writes every pair i ≤ j with its own cutoff rc/σ · σ_ij and marks cross pairs as estimates', () => {
-    const text = lammpsMixture([argonShifted, kryptonShifted], 'kong', 'real');
+    const text = lammpsMixture([brindleShifted, oskaneShifted], 'kong', 'real');
     const cmds = lammpsCommands(text);
-    expect(cmds.filter((c) => c[0] === 'mass')).toEqual([['mass', '1', '39.948'], ['mass', '2', '83.798']]);
+    expect(cmds.filter((c) => c[0] === 'mass')).toEqual([['mass', '1', '41.25'], ['mass', '2', '83.25']]);
     const coeffs = cmds.filter((c) => c[0] === 'pair_coeff');
     expect(coeffs.map((c) => `${c[1]}-${c[2]}`)).toEqual(['1-1', '1-2', '2-2']);
-    const kong = combine('kong', argonShifted, kryptonShifted);
+    const kong = combine('kong', brindleShifted, oskaneShifted);
     expect(Number(coeffs[1][3]) * K_PER_KCAL_PER_MOL).toBeCloseTo(kong.epsilonK, 3);
     expect(Number(coeffs[1][4])).toBeCloseTo(kong.sigmaAngstrom, 6);
     expect(Number(coeffs[1][5])).toBeCloseTo(2.5 * kong.sigmaAngstrom, 5);
@@ -175,7 +175,7 @@ describe('LAMMPS mixture fragment', () => {
   });
 
   it('warns when the components were fitted for different cutoff treatments', () => {
-    const text = lammpsMixture([argonShifted, methaneFull], 'lorentz-berthelot', 'metal');
+    const text = lammpsMixture([brindleShifted, tarrowFull], 'lorentz-berthelot', 'metal');
     expect(text).toContain('# WARNING: the components were fitted for different cutoff treatments');
     expect(lammpsCommands(text).at(-1)).toEqual(['pair_modify', 'shift', 'no', 'tail', 'yes']);
   });
@@ -183,28 +183,28 @@ describe('LAMMPS mixture fragment', () => {
 
 describe('GROMACS fragments', () => {
   it('one [ atomtypes ] line: name, mass, charge, ptype A, σ in nm, ε in kJ/mol', () => {
-    const entries = gromacsEntries(gromacsParameterSet(argonShifted));
+    const entries = gromacsEntries(gromacsParameterSet(brindleShifted));
     expect(entries).toHaveLength(1);
     const f = entries[0].fields;
     expect(entries[0].section).toBe('atomtypes');
     expect(f).toHaveLength(6);
-    expect(f[0]).toBe('Ar_ps12');
-    expect(f.slice(1, 4)).toEqual(['39.948', '0.000', 'A']);
-    expect(f[4]).toBe('0.3405');
-    expect(Number(f[5]) * K_PER_KJ_PER_MOL).toBeCloseTo(119.6, 3);
+    expect(f[0]).toBe('Bd_ps12');
+    expect(f.slice(1, 4)).toEqual(['41.25', '0.000', 'A']);
+    expect(f[4]).toBe('0.342');
+    expect(Number(f[5]) * K_PER_KJ_PER_MOL).toBeCloseTo(127.5, 3);
   });
 
   it('.mdp comments match the scheme', () => {
-    const shifted = gromacsParameterSet(argonShifted);
+    const shifted = gromacsParameterSet(brindleShifted);
     expect(shifted).toContain('; vdwtype = Cut-off');
-    expect(shifted).toContain('; rvdw = 0.85125');
+    expect(shifted).toContain('; rvdw = 0.855');
     expect(shifted).toContain('; vdw-modifier = Potential-shift');
     expect(shifted).toContain('; DispCorr = no');
-    const tail = gromacsParameterSet(kryptonTail);
+    const tail = gromacsParameterSet(oskaneTail);
     expect(tail).toContain('; rvdw = 1.08');
     expect(tail).toContain('; vdw-modifier = None');
     expect(tail).toContain('; DispCorr = EnerPres');
-    const full = gromacsParameterSet(methaneFull);
+    const full = gromacsParameterSet(tarrowFull);
     expect(full).toContain('; rvdw = 1.879');
     expect(full).toContain('; vdw-modifier = None');
     expect(full).toContain('; DispCorr = EnerPres');
@@ -212,8 +212,8 @@ describe('GROMACS fragments', () => {
   });
 
   it('carries set id, version, approval, validity, caution and the combination-rule requirement', () => {
-    const text = gromacsParameterSet(kryptonTail);
-    expect(text).toContain('; Epsigma parameter set 15 v1: Krypton (Kr), Lennard-Jones 12-6');
+    const text = gromacsParameterSet(oskaneTail);
+    expect(text).toContain('; Epsigma parameter set 15 v1: Oskane (Ok), Lennard-Jones 12-6');
     expect(text).toContain('; Status: approved 2026-11-30T10:00:00Z by R. Ostrova');
     expect(text).toContain('; Valid for: T = 120-400 K; pressure range not stated');
     expect(text).toContain(`; CAUTION: ${CAUTION}`);
@@ -222,20 +222,20 @@ describe('GROMACS fragments', () => {
   });
 
   it('builds safe, distinct type names', () => {
-    expect(gromacsTypeName(argonShifted)).toBe('Ar_ps12');
-    expect(gromacsTypeName({ ...argonShifted, substance: { ...argonShifted.substance, formula: null, name: '1,2-Dichloroethane' } })).toBe('X12Dichloroet_ps12');
+    expect(gromacsTypeName(brindleShifted)).toBe('Bd_ps12');
+    expect(gromacsTypeName({ ...brindleShifted, substance: { ...brindleShifted.substance, formula: null, name: '1,2-Dichloroethane' } })).toBe('X12Dichloroet_ps12');
   });
 });
 
 describe('GROMACS mixture fragment', () => {
   it('lists all atom types and every cross pair in [ nonbond_params ] with func 1, σ_ij nm, ε_ij kJ/mol', () => {
-    const sets = [argonShifted, kryptonShifted, { ...methaneFull, scheme: 'truncated-shifted' as const, cutoffSigma: 2.5 }];
+    const sets = [brindleShifted, oskaneShifted, { ...tarrowFull, scheme: 'truncated-shifted' as const, cutoffSigma: 2.5 }];
     const text = gromacsMixture(sets, 'waldman-hagler');
     const entries = gromacsEntries(text);
-    expect(entries.filter((e) => e.section === 'atomtypes').map((e) => e.fields[0])).toEqual(['Ar_ps12', 'Kr_ps16', 'CH4_ps21']);
+    expect(entries.filter((e) => e.section === 'atomtypes').map((e) => e.fields[0])).toEqual(['Bd_ps12', 'Ok_ps16', 'Tw_ps21']);
     const nb = entries.filter((e) => e.section === 'nonbond_params');
-    expect(nb.map((e) => `${e.fields[0]}-${e.fields[1]}`)).toEqual(['Ar_ps12-Kr_ps16', 'Ar_ps12-CH4_ps21', 'Kr_ps16-CH4_ps21']);
-    const wh = combine('waldman-hagler', kryptonShifted, sets[2]);
+    expect(nb.map((e) => `${e.fields[0]}-${e.fields[1]}`)).toEqual(['Bd_ps12-Ok_ps16', 'Bd_ps12-Tw_ps21', 'Ok_ps16-Tw_ps21']);
+    const wh = combine('waldman-hagler', oskaneShifted, sets[2]);
     expect(nb[2].fields[2]).toBe('1');
     expect(Number(nb[2].fields[3])).toBeCloseTo(wh.sigmaAngstrom / 10, 7);
     expect(Number(nb[2].fields[4]) * K_PER_KJ_PER_MOL).toBeCloseTo(wh.epsilonK, 3);

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { mixtureDocument, parameterSetDocument, parameterSetJsonText, mixtureJsonText, PARAMETER_SET_FORMAT_ID } from './json-export';
 import { MIXTURE_JSON_SCHEMA, PARAMETER_SET_JSON_SCHEMA, type JsonSchema } from './json-schema';
 import { checkJsonSchema } from './json-schema-check';
-import { argonShifted, kryptonShifted, kryptonTail, methaneFull } from './export-test-sets';
+import { brindleShifted, oskaneShifted, oskaneTail, tarrowFull } from './export-test-sets';
 import { combine } from '../mixing/combining-rules';
 
 // The caution text exactly as the product brief words it.
@@ -10,64 +10,64 @@ const CAUTION = 'Fitted model parameters, not validated property data for pressu
 
 describe('parameter set JSON (epsigma.parameter-set/1)', () => {
   it('validates against the published schema for every scheme, with and without optional data', () => {
-    for (const set of [argonShifted, kryptonTail, methaneFull]) {
+    for (const set of [brindleShifted, oskaneTail, tarrowFull]) {
       expect(checkJsonSchema(PARAMETER_SET_JSON_SCHEMA, JSON.parse(parameterSetJsonText(set)))).toEqual([]);
     }
   });
 
   it('carries id, version, approval, format id and the exact caution text', () => {
-    const doc = parameterSetDocument(argonShifted);
+    const doc = parameterSetDocument(brindleShifted);
     expect(doc.format).toBe('epsigma.parameter-set/1');
     expect(doc.parameterSet).toEqual({ id: 12, version: 3, state: 'approved', approvedAt: '2026-11-30T10:00:00Z', approvedBy: 'R. Ostrova' });
     expect(doc.caution).toBe(CAUTION);
     expect(doc.provenance.fitId).toBe(7);
-    expect(doc.provenance.datasets[1]).toEqual({ id: 5, version: 1, kind: 'viscosity', name: 'Argon dilute-gas viscosity', source: null, doi: '10.0000/quillmoor.example.5' });
+    expect(doc.provenance.datasets[1]).toEqual({ id: 5, version: 1, kind: 'viscosity', name: 'Brindle gas dilute-gas viscosity', source: null, doi: '10.0000/quillmoor.example.5' });
   });
 
   it('converts ε and σ with CODATA 2018 values', () => {
-    const p = parameterSetDocument(argonShifted).parameters;
+    const p = parameterSetDocument(brindleShifted).parameters;
     // R = 8.314462618 J/(mol K) and k_B/e = 8.617333262e-5 eV/K (CODATA 2018, NIST reference on constants,
     // both exact since the 2019 SI); thermochemical calorie 4.184 J (NIST SP 811, B.8).
-    expect(p.epsilonKJPerMol).toBeCloseTo((119.6 * 8.314462618) / 1000, 10);
-    expect(p.epsilonKcalPerMol).toBeCloseTo((119.6 * 8.314462618) / 4184, 10);
-    expect(p.epsilonEV).toBeCloseTo(119.6 * 8.617333262e-5, 12);
-    expect(p.sigmaNm).toBe(0.3405);
-    const u = parameterSetDocument(argonShifted).uncertainties;
+    expect(p.epsilonKJPerMol).toBeCloseTo((127.5 * 8.314462618) / 1000, 10);
+    expect(p.epsilonKcalPerMol).toBeCloseTo((127.5 * 8.314462618) / 4184, 10);
+    expect(p.epsilonEV).toBeCloseTo(127.5 * 8.617333262e-5, 12);
+    expect(p.sigmaNm).toBe(0.342);
+    const u = parameterSetDocument(brindleShifted).uncertainties;
     expect(u.epsilonStdErrKJPerMol).toBeCloseTo((0.4 * 8.314462618) / 1000, 12);
     expect(u.sigmaStdErrNm).toBe(0.0003); // no binary round-off tail in the export
     expect(u.correlationEpsilonSigma).toBe(-0.82);
   });
 
   it('gives the cutoff in σ, Å and nm, and nulls for the full potential', () => {
-    expect(parameterSetDocument(argonShifted).cutoff).toMatchObject({ scheme: 'truncated-shifted', cutoffSigma: 2.5, cutoffAngstrom: 8.5125, cutoffNm: 0.85125 });
-    expect(parameterSetDocument(methaneFull).cutoff).toMatchObject({ scheme: 'full-potential', cutoffSigma: null, cutoffAngstrom: null, cutoffNm: null });
-    expect(parameterSetDocument(kryptonTail).validity).toEqual({ temperatureMinK: 120, temperatureMaxK: 400, pressureMinMPa: null, pressureMaxMPa: null });
-    expect(parameterSetDocument(kryptonTail).uncertainties.epsilonStdErrEV).toBeNull();
+    expect(parameterSetDocument(brindleShifted).cutoff).toMatchObject({ scheme: 'truncated-shifted', cutoffSigma: 2.5, cutoffAngstrom: 8.55, cutoffNm: 0.855 });
+    expect(parameterSetDocument(tarrowFull).cutoff).toMatchObject({ scheme: 'full-potential', cutoffSigma: null, cutoffAngstrom: null, cutoffNm: null });
+    expect(parameterSetDocument(oskaneTail).validity).toEqual({ temperatureMinK: 120, temperatureMaxK: 400, pressureMinMPa: null, pressureMaxMPa: null });
+    expect(parameterSetDocument(oskaneTail).uncertainties.epsilonStdErrEV).toBeNull();
   });
 
   it('is plain JSON: text parses back to the document', () => {
-    expect(JSON.parse(parameterSetJsonText(argonShifted))).toEqual(parameterSetDocument(argonShifted));
+    expect(JSON.parse(parameterSetJsonText(brindleShifted))).toEqual(parameterSetDocument(brindleShifted));
   });
 });
 
 describe('mixture JSON (epsigma.mixture/1)', () => {
   it('validates against its schema and lists every pair with its kind', () => {
-    const doc = JSON.parse(mixtureJsonText([argonShifted, kryptonShifted, methaneFull], 'waldman-hagler'));
+    const doc = JSON.parse(mixtureJsonText([brindleShifted, oskaneShifted, tarrowFull], 'waldman-hagler'));
     expect(checkJsonSchema(MIXTURE_JSON_SCHEMA, doc)).toEqual([]);
     expect(doc.pairs).toHaveLength(6);
     expect(doc.pairs.map((p: { i: number; j: number; kind: string }) => `${p.i}-${p.j}:${p.kind}`)).toEqual([
       '1-1:pure', '1-2:combining-rule-estimate', '1-3:combining-rule-estimate', '2-2:pure', '2-3:combining-rule-estimate', '3-3:pure',
     ]);
-    expect(doc.pairs[1].epsilonK).toBeCloseTo(combine('waldman-hagler', argonShifted, kryptonShifted).epsilonK, 12);
+    expect(doc.pairs[1].epsilonK).toBeCloseTo(combine('waldman-hagler', brindleShifted, oskaneShifted).epsilonK, 12);
     expect(doc.note).toContain('not fitted');
     expect(doc.caution).toBe(CAUTION);
   });
 
   it('reports the common validity range and whether the cutoff treatments agree', () => {
-    const same = mixtureDocument([argonShifted, kryptonShifted], 'kong');
+    const same = mixtureDocument([brindleShifted, oskaneShifted], 'kong');
     expect(same.commonValidity).toEqual({ temperatureMinK: 120, temperatureMaxK: 300, pressureMinMPa: 0.5, pressureMaxMPa: 10 });
     expect(same.cutoff).toEqual({ scheme: 'truncated-shifted', cutoffSigma: 2.5, consistent: true, warning: null });
-    const mixed = mixtureDocument([argonShifted, methaneFull], 'kong');
+    const mixed = mixtureDocument([brindleShifted, tarrowFull], 'kong');
     expect(mixed.commonValidity).toEqual({ temperatureMinK: 200, temperatureMaxK: 300, pressureMinMPa: null, pressureMaxMPa: null });
     expect(mixed.cutoff.consistent).toBe(false);
     expect(mixed.cutoff.warning).toContain('different cutoff treatments');
@@ -75,8 +75,8 @@ describe('mixture JSON (epsigma.mixture/1)', () => {
   });
 
   it('gives null common validity when the temperature ranges do not overlap', () => {
-    const hot = { ...kryptonShifted, id: 30, validity: { temperatureMinK: 400, temperatureMaxK: 600 } };
-    const doc = mixtureDocument([argonShifted, hot], 'lorentz-berthelot');
+    const hot = { ...oskaneShifted, id: 30, validity: { temperatureMinK: 400, temperatureMaxK: 600 } };
+    const doc = mixtureDocument([brindleShifted, hot], 'lorentz-berthelot');
     expect(doc.commonValidity).toBeNull();
     expect(checkJsonSchema(MIXTURE_JSON_SCHEMA, doc)).toEqual([]);
   });
@@ -91,13 +91,13 @@ describe('the published schemas', () => {
   });
 
   it('close every object: any property the schema does not list makes a document invalid', () => {
-    const doc = JSON.parse(parameterSetJsonText(argonShifted));
+    const doc = JSON.parse(parameterSetJsonText(brindleShifted));
     doc.parameters.epsilon = 1; // a unit-less name must never slip in
     expect(checkJsonSchema(PARAMETER_SET_JSON_SCHEMA, doc)).toEqual([{ path: '/parameters/epsilon', message: 'no value is allowed here' }]);
   });
 
   it('reject documents that break it, each with a pointer to the value', () => {
-    const base = () => JSON.parse(parameterSetJsonText(argonShifted));
+    const base = () => JSON.parse(parameterSetJsonText(brindleShifted));
     const cases: Array<[string, (d: any) => void, { path: string; message: string }]> = [
       ['missing field', (d) => delete d.caution, { path: '', message: 'missing required property "caution"' }],
       ['changed caution', (d) => (d.caution = 'use freely'), { path: '/caution', message: `must equal ${JSON.stringify(CAUTION)}` }],

@@ -7,7 +7,7 @@ import { isEnergyUnit, isLengthUnit, ENERGY_UNITS, LENGTH_UNITS, type EnergyUnit
 import { COMBINING_RULES, isCombiningRule, type CombiningRule } from '../mixing/combining-rules';
 import { parameterSetJsonText, mixtureJsonText } from './json-export';
 import { parameterSetsToCsv, mixtureToCsv } from './csv-export';
-import { lammpsParameterSet, lammpsMixture } from './lammps-export';
+import { lammpsLjMixture, lammpsLjParameterSet, lammpsParameterSet, lammpsMixture } from './lammps-export';
 import { gromacsParameterSet, gromacsMixture } from './gromacs-export';
 import { assertExportable, fileBaseName, mixtureFileBaseName, ExportError } from './export-common';
 
@@ -32,7 +32,7 @@ export interface ExportableParameterSet {
   datasets: Array<{ id: number; version: number; kind: string; name: string; source?: string | null; doi?: string | null }>;
 }
 
-export const EXPORT_FORMATS = ['json', 'csv', 'lammps-real', 'lammps-metal', 'gromacs'] as const;
+export const EXPORT_FORMATS = ['json', 'csv', 'lammps-real', 'lammps-metal', 'lammps-lj', 'gromacs'] as const;
 export type ExportFormat = (typeof EXPORT_FORMATS)[number];
 
 export function isExportFormat(value: unknown): value is ExportFormat {
@@ -85,6 +85,7 @@ const CONTENT_TYPE: Record<ExportFormat, string> = {
   csv: 'text/csv; charset=utf-8; header=present',
   'lammps-real': 'text/plain; charset=utf-8',
   'lammps-metal': 'text/plain; charset=utf-8',
+  'lammps-lj': 'text/plain; charset=utf-8',
   gromacs: 'text/plain; charset=utf-8',
 };
 
@@ -93,6 +94,7 @@ const EXTENSION: Record<ExportFormat, string> = {
   csv: '.csv',
   'lammps-real': '.lammps-real.in',
   'lammps-metal': '.lammps-metal.in',
+  'lammps-lj': '.lammps-lj.in',
   gromacs: '.gromacs.itp',
 };
 
@@ -118,6 +120,9 @@ export function exportParameterSet(set: ExportableParameterSet, format: ExportFo
       break;
     case 'lammps-metal':
       body = lammpsParameterSet(set, 'metal');
+      break;
+    case 'lammps-lj':
+      body = lammpsLjParameterSet(set);
       break;
     case 'gromacs':
       body = gromacsParameterSet(set);
@@ -151,6 +156,9 @@ export function exportMixture(sets: readonly ExportableParameterSet[], rule: Com
       break;
     case 'lammps-metal':
       body = lammpsMixture(sets, rule, 'metal');
+      break;
+    case 'lammps-lj':
+      body = lammpsLjMixture(sets, rule);
       break;
     case 'gromacs':
       body = gromacsMixture(sets, rule);

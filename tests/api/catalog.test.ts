@@ -128,7 +128,7 @@ describe('catalog', () => {
 
 describe('export', () => {
   it('serves every format as an attachment with its content type', async () => {
-    const expected: Record<string, RegExp> = { json: /^application\/json/, csv: /^text\/csv/, 'lammps-real': /^text\/plain/, 'lammps-metal': /^text\/plain/, gromacs: /^text\/plain/ };
+    const expected: Record<string, RegExp> = { json: /^application\/json/, csv: /^text\/csv/, 'lammps-real': /^text\/plain/, 'lammps-metal': /^text\/plain/, 'lammps-lj': /^text\/plain/, gromacs: /^text\/plain/ };
     for (const [format, type] of Object.entries(expected)) {
       const res = await consumer.get(`/api/parameter-sets/${v2}/export?format=${format}`).buffer(true);
       expect(res.status, format).toBe(200);
@@ -235,7 +235,7 @@ describe('mixtures', () => {
   });
 
   it('serves the mixture in every export format; the JSON validates against the mixture schema', async () => {
-    for (const format of ['json', 'csv', 'lammps-real', 'lammps-metal', 'gromacs']) {
+    for (const format of ['json', 'csv', 'lammps-real', 'lammps-metal', 'lammps-lj', 'gromacs']) {
       const res = await consumer.get(`/api/mixtures?sets=${v2},${formulaSet}&rule=kong&format=${format}`).buffer(true);
       expect(res.status, format).toBe(200);
       expect(res.headers['content-disposition']).toMatch(/^attachment; filename="?epsigma-mixture-/);
