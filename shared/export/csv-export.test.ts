@@ -45,7 +45,7 @@ describe('csvCell: formula injection (OWASP "CSV Injection")', () => {
   });
 
   it('quotes per RFC 4180 without escaping harmless text; empty for null and non-finite numbers', () => {
-    expect(csvCell('Argon')).toBe('Argon');
+    expect(csvCell('Norrane')).toBe('Norrane');
     expect(csvCell('a,b')).toBe('"a,b"');
     expect(csvCell('say "hi"')).toBe('"say ""hi"""');
     expect(csvCell('two\nlines')).toBe('"two\nlines"');
@@ -63,13 +63,13 @@ describe('parameter set CSV', () => {
   it('one header row and one row per set, units in the header, caution in the last column', () => {
     const rows = parse(parameterSetsToCsv([brindleShifted, oskaneTail, tarrowFull]));
     expect(rows).toHaveLength(4);
-    const [header, argon] = rows;
+    const [header, brindle] = rows;
     expect(header).toContain('epsilon_over_kB_K');
     expect(header).toContain('sigma_Angstrom');
     expect(header).toContain('T_min_K');
     expect(header).toContain('p_max_MPa');
     expect(header.at(-1)).toBe('caution');
-    const get = (name: string) => argon[header.indexOf(name)];
+    const get = (name: string) => brindle[header.indexOf(name)];
     expect(get('parameter_set_id')).toBe('12');
     expect(get('version')).toBe('3');
     expect(get('approved_at')).toBe('2026-11-30T10:00:00Z');
@@ -79,9 +79,9 @@ describe('parameter set CSV', () => {
     expect(get('measurement_sets')).toBe('b2: Brindle gas B2, Quillmoor cell A v2 (id 4, source Quillmoor lab notebook 3); viscosity: Brindle gas dilute-gas viscosity v1 (id 5, doi 10.0000/quillmoor.example.5)');
     expect(get('caution')).toBe(CAUTION);
     // Missing values are empty cells, not "null".
-    const methane = rows[3];
-    expect(methane[header.indexOf('cutoff_rc_over_sigma')]).toBe('');
-    expect(methane[header.indexOf('p_min_MPa')]).toBe('');
+    const tarrow = rows[3];
+    expect(tarrow[header.indexOf('cutoff_rc_over_sigma')]).toBe('');
+    expect(tarrow[header.indexOf('p_min_MPa')]).toBe('');
   });
 
   it('escapes a substance name that starts with "=" and a reviewer name that starts with "@"', () => {

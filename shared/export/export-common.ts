@@ -72,7 +72,7 @@ export function assertExportable(set: ExportableParameterSet): void {
   if (!Array.isArray(set.datasets)) fail('datasets must be a list');
 }
 
-/** Lower-case ASCII slug for file names: "Argon (Ar)" → "argon-ar". */
+/** Lower-case ASCII slug for file names: "Norrane (Nr2)" → "norrane-nr2". */
 export function slug(text: string, maxLength = 40): string {
   const s = text
     .normalize('NFKD')

@@ -75,7 +75,7 @@ export const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => HTML_ESCAP
 
 /**
  * Builds both parts from plain paragraphs, escaping them for HTML, so callers write the words once:
- * `queueMail(tx, { to, subject, ...mailBody(['Argon v3 was submitted for review.']), link, reason })`.
+ * `queueMail(tx, { to, subject, ...mailBody(['Norrane v3 was submitted for review.']), link, reason })`.
  */
 export function mailBody(paragraphs: string[]): { text: string; html: string } {
   return {
