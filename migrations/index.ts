@@ -6,6 +6,7 @@ import * as m20261201_0004 from './20261201_0004_parameter_sets';
 import * as m20261201_0005 from './20261201_0005_mail_follows';
 import * as m20261201_0006 from './20261201_0006_tokens_preferences';
 import * as m20261202_0007 from './20261202_0007_session_hash_sign_in_failures';
+import * as m20261202_0008 from './20261202_0008_simulation_frames';
 import * as m20261202_0009 from './20261202_0009_job_queue_dispatch';
 import * as m20261202_0010 from './20261202_0010_notices';
 
@@ -21,6 +22,7 @@ export const MIGRATIONS: Record<string, Migration> = {
   '20261201_0005_mail_follows': m20261201_0005,
   '20261201_0006_tokens_preferences': m20261201_0006,
   '20261202_0007_session_hash_sign_in_failures': m20261202_0007,
+  '20261202_0008_simulation_frames': m20261202_0008,
   '20261202_0009_job_queue_dispatch': m20261202_0009,
   '20261202_0010_notices': m20261202_0010,
 };

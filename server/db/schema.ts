@@ -4,6 +4,7 @@ import type { SubstanceTable } from '../features/substances/substances.table';
 import type { FitTable } from '../features/fits/fits.table';
 import type { ParameterSetCommentTable, ParameterSetTable, ParameterSetTransitionTable } from '../features/parameter-sets/parameter-sets.table';
 import type { JobTable } from '../jobs/job.table';
+import type { SimulationFramesTable } from '../features/simulations/simulation-frames.table';
 import type { NoticeTable } from '../features/notices/notices.table';
 import type { MailboxMessageTable, MailOutboxTable } from '../features/mail/mail.table';
 import type { SubstanceFollowTable } from '../features/follows/follows.table';
@@ -23,6 +24,7 @@ export interface Database {
   measurementRow: MeasurementRowTable;
   datasetWithdrawal: DatasetWithdrawalTable;
   job: JobTable;
+  simulationFrames: SimulationFramesTable;
   fit: FitTable;
   parameterSet: ParameterSetTable;
   parameterSetTransition: ParameterSetTransitionTable;
