@@ -1,7 +1,9 @@
 /**
  * `npm run -s bench:fit [-- --json] [--redis URL --worker-processes N]`: a joint fit of the demo's 8 densities on 2 isotherms plus its B2 table,
  * through the real job runner and worker pool, first from a cold simulation cache and then again (warm).
- * Prints wall times, the number of simulation runs and the cache hit rate. A report, never a test.
+ * Prints wall times, rounds, new and reused runs, points predicted by reweighting and why the simulation stage stopped;
+ * with --json one object { cold: { seconds, rounds, newRuns, reusedRuns, reweightedPoints, stoppedBy, epsilonK,
+ * sigmaAngstrom }, warm: { …same… } }. A report, never a test.
  * Uses one worker per core unless WORKERS is set: the fit is the only work, the main thread mostly waits.
  */
 import { mkdtempSync, rmSync } from 'node:fs';
@@ -51,33 +53,34 @@ try {
     const result = JSON.parse(fit!.resultJson ?? '{}');
     return {
       status: job.status,
-      wallSeconds: Number(seconds.toFixed(2)),
-      newSimulationRuns: (await countRuns()) - before,
-      runsUsed: result.mdRunCount,
-      cacheHitRate: result.mdRunCount ? Number((result.mdRunsReused / result.mdRunCount).toFixed(3)) : null,
-      rounds: result.mdIterations?.length,
-      epsilonK: result.epsilonK,
-      sigmaAngstrom: result.sigmaAngstrom,
-      stdErr: result.stdErr,
-      eosStage: result.eosStage ? { epsilonK: result.eosStage.epsilonK, sigmaAngstrom: result.eosStage.sigmaAngstrom } : null,
+      seconds: Number(seconds.toFixed(2)),
+      rounds: result.mdRounds ?? null,
+      newRuns: (await countRuns()) - before,
+      reusedRuns: result.reusedRuns ?? null,
+      reweightedPoints: result.reweightedPoints ?? null,
+      stoppedBy: result.stoppedBy ?? null,
+      epsilonK: result.epsilonK ?? null,
+      sigmaAngstrom: result.sigmaAngstrom ?? null,
+      stdErr: result.stdErr ?? null,
       error: job.error,
     };
   };
 
   const cold = await runOnce();
   const warm = await runOnce();
-  const report = {
-    fixture: `Quillgas QG-1 demo: ${densityPoints.length} densities on ${new Set(densityPoints.map((p) => p.temperatureK)).size} isotherms + B2 table`,
-    workers: env.WORKERS,
-    mdSettings: JSON.parse((await findFit(ctx.db, (await ctx.db.selectFrom('fit').select((eb) => eb.fn.max('id').as('m')).executeTakeFirstOrThrow()).m as number))!.optionsJson).density,
-    cold,
-    warm,
-  };
-  if (values.json) console.log(JSON.stringify(report, null, 2));
+  const pick = (r: typeof cold) => ({ seconds: r.seconds, rounds: r.rounds, newRuns: r.newRuns, reusedRuns: r.reusedRuns, reweightedPoints: r.reweightedPoints, stoppedBy: r.stoppedBy, epsilonK: r.epsilonK, sigmaAngstrom: r.sigmaAngstrom });
+  if (values.json) console.log(JSON.stringify({ cold: pick(cold), warm: pick(warm) }, null, 2));
   else {
-    console.log(`${report.fixture}, ${report.workers} worker(s), MD ${JSON.stringify(report.mdSettings)}`);
+    const lastFit = (await ctx.db.selectFrom('fit').select((eb) => eb.fn.max('id').as('m')).executeTakeFirstOrThrow()).m as number;
+    const mdSettings = JSON.parse((await findFit(ctx.db, lastFit))!.optionsJson).density;
+    const fixture = `Quillgas QG-1 demo: ${densityPoints.length} densities on ${new Set(densityPoints.map((p) => p.temperatureK)).size} isotherms + B2 table`;
+    console.log(`${fixture}, ${env.WORKERS} worker(s), MD ${JSON.stringify(mdSettings)}`);
     for (const [name, r] of [['cold', cold], ['warm', warm]] as const) {
-      console.log(`${name}: ${r.status} in ${r.wallSeconds} s, ${r.runsUsed} runs used (${r.newSimulationRuns} new), cache hit rate ${r.cacheHitRate}, ${r.rounds} rounds, ε/k_B = ${r.epsilonK?.toFixed(2)} K, σ = ${r.sigmaAngstrom?.toFixed(4)} Å`);
+      const se = r.stdErr ?? {};
+      console.log(
+        `${name}: ${r.status} in ${r.seconds} s, ${r.rounds} round(s), ${r.newRuns} new run(s), ${r.reusedRuns} reused, ${r.reweightedPoints} reweighted point(s), stopped by ${r.stoppedBy}; ` +
+          `ε/k_B = ${r.epsilonK?.toFixed(2)} ± ${se.epsilonK?.toFixed(2)} K, σ = ${r.sigmaAngstrom?.toFixed(4)} ± ${se.sigmaAngstrom?.toFixed(4)} Å${r.error ? ` (${r.error})` : ''}`,
+      );
     }
   }
 } finally {

@@ -151,7 +151,7 @@ async function densityStage(datasets: FitDataset[], eos: LjFitResult, molarMassG
   let runs = 0;
   let reused = 0;
   try {
-    const simulate = (states: MdStatePoint[]): Promise<MdRunSummary[]> =>
+    const simulate = (states: MdStatePoint[], onRunFinished?: () => void): Promise<MdRunSummary[]> =>
       Promise.all(
         states.map(async (s) => {
           const state = normaliseState({ ...s, ...md });
@@ -161,7 +161,9 @@ async function densityStage(datasets: FitDataset[], eos: LjFitResult, molarMassG
           else cache.set(key, pool.run('simulation', state, () => {}) as Promise<NptResult>);
           const r = await cache.get(key)!;
           runs++;
-          return { id: runs, reused: hit, reducedDensity: r.reducedDensity, stdErr: r.stdErr, dRhoDT: r.dRhoDT, dRhoDP: r.dRhoDP, phase: r.phase };
+          onRunFinished?.();
+          // Frames and settings go along, so the stage reweights them to nearby states (shared/physics/md/mbar.ts).
+          return { id: runs, reused: hit, reducedDensity: r.reducedDensity, stdErr: r.stdErr, dRhoDT: r.dRhoDT, dRhoDP: r.dRhoDP, phase: r.phase, ...r.settings, effectiveSamples: r.effectiveSamples, startedFrom: r.startedFrom, frames: r.frames };
         }),
       );
     const points = datasets.flatMap((d, datasetIndex) => d.rows.map((r) => ({ datasetId: d.id, datasetIndex, kind: d.kind, temperatureK: r.temperatureK, pressureMPa: r.pressureMPa, value: r.value, uncertainty: r.uncertainty, weight: d.weight ?? 1 })));

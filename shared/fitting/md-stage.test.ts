@@ -54,18 +54,25 @@ describe('simulation stage of a density fit', () => {
     expect(result.warnings.some((w) => /ordered solid/.test(w))).toBe(true);
   });
 
-  it('a synthetic round trip with real NPT runs: within 2 standard errors of the truth, and agreeing with the EOS stage', async () => {
+  it('a synthetic round trip with real NPT runs: within 2 standard errors of the truth, converged by reweighting', async () => {
     const points = syntheticPoints();
     const eosStage = fitLennardJones([{ id: 1, kind: 'density', rows: points.map((p) => ({ temperatureK: p.temperatureK, pressureMPa: p.pressureMPa, value: p.value, uncertainty: p.uncertainty })) }], { molarMassGPerMol: M, restarts: 0, bounds });
     expect(eosStage.status).toBe('succeeded');
     let runs = 0;
-    const md = async (states: MdStatePoint[]): Promise<MdRunSummary[]> =>
+    let finishedCalls = 0;
+    // 128 atoms, 5000 steps extended towards 50 effective samples: frames and settings as the job queue hands them over.
+    const md = async (states: MdStatePoint[], onRunFinished?: () => void): Promise<MdRunSummary[]> =>
       states.map((s) => {
         runs++;
-        const r = runNpt({ ...s, atoms: 200, steps: 8000, seed: 1000 + runs });
-        return { id: runs, reused: false, reducedDensity: r.reducedDensity, stdErr: r.stdErr, dRhoDT: r.dRhoDT, dRhoDP: r.dRhoDP, phase: r.phase };
+        const r = runNpt({ ...s, atoms: 128, steps: 5000, seed: 1000 + runs });
+        onRunFinished?.();
+        finishedCalls++;
+        return { id: runs, reused: false, reducedDensity: r.reducedDensity, stdErr: r.stdErr, dRhoDT: r.dRhoDT, dRhoDP: r.dRhoDP, phase: r.phase, ...r.settings, effectiveSamples: r.effectiveSamples, startedFrom: r.startedFrom, frames: r.frames };
       });
-    const result = await mdStageFit(points, [{ id: 1, kind: 'density' }], { start: { epsilonK: eosStage.epsilonK, sigmaAngstrom: eosStage.sigmaAngstrom }, bounds, context, simulate: md, maxIterations: 4 });
+    const progress: number[] = [];
+    // Started 4 % off in ε and 1.5 % in σ (several standard errors), so the stage has to walk, on reweighted predictions.
+    const start = { epsilonK: eosStage.epsilonK * 1.04, sigmaAngstrom: eosStage.sigmaAngstrom * 0.985 };
+    const result = await mdStageFit(points, [{ id: 1, kind: 'density' }], { start, bounds, context, simulate: md, maxIterations: 5, onProgress: (p) => progress.push(p.fraction) });
     expect(result.status).toBe('succeeded');
     const se = result.stdErr as { epsilonK: number; sigmaAngstrom: number };
     expect(Math.abs(result.epsilonK - TRUE.epsilonK)).toBeLessThan(2 * se.epsilonK);
@@ -74,5 +81,33 @@ describe('simulation stage of a density fit', () => {
     expect(Math.abs(result.epsilonK - eosStage.epsilonK)).toBeLessThan(2 * Math.hypot(se.epsilonK, eosStage.stdErr.epsilonK ?? 0));
     expect(Math.abs(result.sigmaAngstrom - eosStage.sigmaAngstrom)).toBeLessThan(2 * Math.hypot(se.sigmaAngstrom, eosStage.stdErr.sigmaAngstrom ?? 0));
     expect(result.residuals.every((r) => r.modelUncertainty > 0)).toBe(true);
-  }, 300_000);
+    // Stopped because the step was inside the noise, with the steps in between taken on reweighted predictions.
+    expect(result.stoppedBy).toBe('converged');
+    expect(result.mdRounds).toBe(result.mdIterations.length);
+    expect(result.newRuns).toBe(runs);
+    expect(result.mdRuns).toHaveLength(runs);
+    expect(result.reweightedPoints).toBeGreaterThan(0);
+    for (const r of result.residuals) expect(r.effectiveSamples).toBeGreaterThan(0);
+    // Progress moves with every finished run and never goes back.
+    expect(finishedCalls).toBe(runs);
+    expect(progress.length).toBeGreaterThan(runs);
+    for (let i = 1; i < progress.length; i++) expect(progress[i]).toBeGreaterThanOrEqual(progress[i - 1]);
+  }, 600_000);
+
+  it('says so instead of simulating a point the equation of state puts in the solid region', async () => {
+    // 100 K at 600 MPa for ε/k_B = 150 K, σ = 3.6 Å is T* = 0.67, P* = 18.9: below the triple-point temperature and
+    // far beyond the liquid at freezing (Mastny & de Pablo 2007; ../physics/eos/lj-freezing.ts).
+    const points = [...syntheticPoints(), { datasetId: 1, datasetIndex: 0, kind: 'density' as const, temperatureK: 100, pressureMPa: 600, value: 1500, uncertainty: 15, weight: 1 }];
+    const asked: MdStatePoint[] = [];
+    const predictor = async (states: MdStatePoint[]): Promise<MdRunSummary[]> =>
+      states.map((s, i) => {
+        asked.push(s);
+        const e = ljEosDensity(s.reducedTemperature, s.reducedPressure);
+        return { id: asked.length + i, reused: false, reducedDensity: e.reducedDensity, stdErr: 1e-4, dRhoDT: e.dRhoDT, dRhoDP: e.dRhoDP, phase: 'fluid' };
+      });
+    const result = await mdStageFit(points, [{ id: 1, kind: 'density' }], { start: TRUE, bounds, context, simulate: predictor, maxIterations: 3 });
+    expect(asked.every((s) => s.reducedTemperature > 0.7)).toBe(true);
+    expect(result.residuals[4]).toMatchObject({ included: false });
+    expect(result.warnings.some((w) => /solid/.test(w) && /100\.00 K/.test(w))).toBe(true);
+  });
 });

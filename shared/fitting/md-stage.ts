@@ -1,13 +1,26 @@
 /**
- * The simulation stage of a density fit: Levenberg–Marquardt iterations over (ε/k_B, σ) in which every
- * density prediction is an NPT run at the corresponding reduced state, and the Jacobian of a density comes
- * from the fluctuation derivatives of ρ* with respect to T* (at fixed P*) and to P* (at fixed T*) of that same run, by the chain rule
- * (corresponding-states.ts), not from finite differences of noisy averages. Gas-phase properties keep
- * their analytic models. The MD standard error of each prediction is added in quadrature to the
- * measurement uncertainty, so the weights and the reported standard errors include the simulation noise.
+ * The simulation stage of a density fit: Levenberg–Marquardt over (ε/k_B, σ) in which every density prediction
+ * comes from NPT runs of the LJ fluid at the reduced states of the data. Since a change of ε and σ is a change of
+ * reduced state (T*, P*), the frames of every stored run of the same engine settings predict ⟨ρ*⟩ at nearby states
+ * by multistate reweighting (MBAR, ../physics/md/mbar.ts), with the exact derivatives of that prediction as the
+ * Jacobian (chain rule in corresponding-states.ts). So:
+ *   1. a round asks for new runs only at states no stored run covers (Kish effective sample size below the guard);
+ *   2. Levenberg–Marquardt then steps on the reweighted predictions, which are smooth in (ε, σ), for as long as its
+ *      trial points stay covered;
+ *   3. when the step falls inside the noise, one more round runs at the final point's states to confirm it, and the
+ *      stage stops there ('converged') if the step, with those runs included, is still inside the noise — otherwise
+ *      it goes on, up to `maxIterations` rounds ('round-limit').
+ * Points whose state the equation of state (Kolafa–Nezbeda 1994 with the freezing line, ../physics/eos/lj-freezing.ts)
+ * places in the solid region or where it has no fluid root are not simulated; the result says so. A run that freezes or
+ * splits anyway leaves its point out, with a warning. The standard error of each prediction (in kg/m³) is added in
+ * quadrature to the measurement uncertainty. Runs without stored frames (a test double, an old cached result) still
+ * work: their own fluctuation derivatives give one Levenberg–Marquardt step per round.
  * Runs are asked for through an injected `simulate`, so the same code runs against the job queue or a test double.
  */
 import { densityWithGradient, reducedStateOf } from '../physics/corresponding-states';
+import { ljRegionOf } from '../physics/eos/lj-freezing';
+import type { RunFrames } from '../physics/md/frames';
+import { DEFAULT_MIN_REWEIGHT_SAMPLES, ReweightPool, reweightRunFromFrames, type ReweightRun } from '../physics/md/mbar';
 import { covarianceFromJacobian, correlationFromCovariance, standardErrorsFromCovariance } from './covariance';
 import { jointConfidenceEllipse } from './ellipse';
 import { STRONG_CORRELATION, strongCorrelationWarning, type LjDatasetSummary, type LjFitResult, type LjResidual } from './lj-fit';
@@ -27,6 +40,17 @@ export interface MdRunSummary {
   dRhoDT: number;
   dRhoDP: number;
   phase: 'fluid' | 'solid' | 'two-phase';
+  /** The run's own state and size; with `frames`, what reweighting needs. */
+  reducedTemperature?: number;
+  reducedPressure?: number;
+  atoms?: number;
+  effectiveSamples?: number;
+  statisticalInefficiency?: number;
+  startedFrom?: string;
+  warnings?: string[];
+  /** Frames as a task returns them (base64), or already decoded (read back from storage). */
+  frames?: RunFrames;
+  reweightRun?: ReweightRun;
 }
 
 export interface MdStagePoint {
@@ -54,7 +78,12 @@ export interface MdStageOptions {
   maxIterations?: number;
   /** Stop when every parameter moves by less than this many standard errors (default 1: a smaller step is within the simulation noise of the step itself). */
   changeInStandardErrors?: number;
-  simulate: (states: MdStatePoint[]) => Promise<MdRunSummary[]>;
+  /** Runs of the same engine settings stored before this fit (reweighting uses them from the start). */
+  storedRuns?: ReweightRun[];
+  /** Kish effective samples below which a reweighted prediction is refused and a run is asked for (default 20, mbar.ts). */
+  minEffectiveSamples?: number;
+  /** Runs the states; `onRunFinished` is called as each run ends, for progress. */
+  simulate: (states: MdStatePoint[], onRunFinished?: () => void) => Promise<MdRunSummary[]>;
   onProgress?: (p: { fraction: number; stage: string }) => void;
 }
 
@@ -66,6 +95,10 @@ export interface MdIteration {
   accepted: boolean;
   runs: number;
   reusedRuns: number;
+  /** Levenberg–Marquardt steps taken on reweighted predictions in this round. */
+  reweightedSteps: number;
+  /** Why the round asked for runs: 'start', 'uncovered' (a step left the reach of the stored runs) or 'confirm'. */
+  reason: 'start' | 'uncovered' | 'confirm';
   excludedPoints: Array<{ temperatureK: number; pressureMPa?: number; reason: string }>;
 }
 
@@ -74,14 +107,37 @@ export interface MdResidual extends LjResidual {
   modelUncertainty: number;
   simulationId: number | null;
   included: boolean;
+  /** Kish effective samples behind the prediction (null for gas-phase points and predictions without frames). */
+  effectiveSamples: number | null;
+  /** 'reweighted': MBAR over the stored runs; 'run': one run's own averages (no frames); null: no simulation. */
+  predictedBy: 'reweighted' | 'run' | null;
 }
 
 export interface MdStageResult extends LjFitResult {
   residuals: MdResidual[];
   mdIterations: MdIteration[];
-  mdRuns: Array<{ id: number; reused: boolean; temperatureK: number; pressureMPa: number; reducedTemperature: number; reducedPressure: number; reducedDensity: number; stdErr: number; phase: string; iteration: number }>;
+  mdRuns: Array<{ id: number; reused: boolean; temperatureK: number; pressureMPa: number; reducedTemperature: number; reducedPressure: number; reducedDensity: number; stdErr: number; phase: string; iteration: number; effectiveSamples: number | null; startedFrom: string | null }>;
+  /** Rounds of simulations (a round: the runs asked for at one point of (ε, σ), then the steps on reweighted predictions). */
+  mdRounds: number;
+  stoppedBy: 'converged' | 'round-limit';
+  newRuns: number;
+  reusedRuns: number;
+  /** Predictions of a state made by reweighting alone (no run at that state), summed over every step of the stage. */
+  reweightedPoints: number;
   phaseWarnings: string[];
   stoppingRule: string;
+}
+
+interface Prediction {
+  reducedDensity: number;
+  stdErr: number;
+  dRhoDT: number;
+  dRhoDP: number;
+  effectiveSamples: number | null;
+  by: 'reweighted' | 'run';
+  runId: number | null;
+  /** True when no run sits at this very state. */
+  reweightedOnly: boolean;
 }
 
 interface Evaluation {
@@ -93,22 +149,90 @@ interface Evaluation {
   modelUncertainty: number[];
   included: boolean[];
   runIds: Array<number | null>;
+  effectiveSamples: Array<number | null>;
+  predictedBy: Array<'reweighted' | 'run' | null>;
   chi2: number;
   excluded: MdIteration['excludedPoints'];
-  runs: MdRunSummary[];
+  /** Density points whose state no prediction reaches (they need runs). */
+  uncovered: number[];
+  reweightedOnly: number;
 }
 
-async function evaluate(points: MdStagePoint[], epsilonK: number, sigmaAngstrom: number, options: MdStageOptions): Promise<Evaluation> {
-  const densityIdx = points.map((p, i) => (p.kind === 'density' ? i : -1)).filter((i) => i >= 0);
-  const states = densityIdx.map((i) => reducedStateOf({ temperatureK: points[i].temperatureK, pressureMPa: points[i].pressureMPa!, epsilonK, sigmaAngstrom }));
-  const runs = states.length ? await options.simulate(states) : [];
+const stateKey = (s: MdStatePoint) => `${s.reducedTemperature.toPrecision(10)}|${s.reducedPressure.toPrecision(10)}`;
+
+/** Everything the stage knows about runs: frames for reweighting, and runs without frames by their exact state. */
+class RunBook {
+  readonly pool: ReweightPool;
+  readonly direct = new Map<string, MdRunSummary>();
+  readonly frozen = new Map<string, MdRunSummary>();
+
+  constructor(stored: ReweightRun[], minEffectiveSamples: number) {
+    this.pool = new ReweightPool(stored, minEffectiveSamples);
+  }
+
+  add(state: MdStatePoint, run: MdRunSummary): void {
+    const key = stateKey(state);
+    if (run.phase !== 'fluid') {
+      this.frozen.set(key, run);
+      return;
+    }
+    this.direct.set(key, run);
+    if (run.reweightRun && run.reweightRun.volume.length > 0 && !this.pool.has(run.id)) this.pool.add(run.reweightRun);
+    else if (run.frames && run.frames.count > 0 && !this.pool.has(run.id)) {
+      this.pool.add(reweightRunFromFrames(run.id, { reducedTemperature: run.reducedTemperature ?? state.reducedTemperature, reducedPressure: run.reducedPressure ?? state.reducedPressure, atoms: run.atoms ?? 0 }, run.frames));
+    }
+  }
+
+  /** A prediction at the state, or null when neither reweighting nor a run at this state reaches it. */
+  predict(state: MdStatePoint): Prediction | null {
+    const direct = this.direct.get(stateKey(state));
+    const r = this.pool.size ? this.pool.predict(state) : null;
+    if (r && r.ok) {
+      return { reducedDensity: r.reducedDensity, stdErr: r.stdErr, dRhoDT: r.dRhoDT, dRhoDP: r.dRhoDP, effectiveSamples: r.effectiveSamples, by: 'reweighted', runId: direct?.id ?? r.runs.reduce((a, b) => (b.weight > a.weight ? b : a)).id, reweightedOnly: !direct };
+    }
+    // A run at this very state is used even below the reweighting guard: it is the best there is (its own error says how good).
+    if (direct) {
+      return { reducedDensity: direct.reducedDensity, stdErr: direct.stdErr, dRhoDT: direct.dRhoDT, dRhoDP: direct.dRhoDP, effectiveSamples: direct.effectiveSamples ?? null, by: 'run', runId: direct.id, reweightedOnly: false };
+    }
+    return null;
+  }
+}
+
+function densityStates(points: MdStagePoint[], epsilonK: number, sigmaAngstrom: number): Map<number, MdStatePoint> {
+  const out = new Map<number, MdStatePoint>();
+  points.forEach((p, i) => {
+    if (p.kind === 'density') out.set(i, reducedStateOf({ temperatureK: p.temperatureK, pressureMPa: p.pressureMPa!, epsilonK, sigmaAngstrom }));
+  });
+  return out;
+}
+
+/** Why a density point's state is not simulated at all (solid region, no fluid root), or null. */
+function regionProblem(state: MdStatePoint): string | null {
+  const r = ljRegionOf(state.reducedTemperature, state.reducedPressure);
+  return r.region === 'fluid' ? null : r.reason ?? r.region;
+}
+
+function evaluate(points: MdStagePoint[], epsilonK: number, sigmaAngstrom: number, options: MdStageOptions, book: RunBook, leftOut: Map<number, string>): Evaluation {
+  const states = densityStates(points, epsilonK, sigmaAngstrom);
   const residuals: number[] = [];
   const jacobian: number[][] = [];
   const predicted: number[] = [];
   const modelUncertainty: number[] = [];
   const included: boolean[] = [];
   const runIds: Array<number | null> = [];
+  const effectiveSamples: Array<number | null> = [];
+  const predictedBy: Array<'reweighted' | 'run' | null> = [];
   const excluded: MdIteration['excludedPoints'] = [];
+  const uncovered: number[] = [];
+  let reweightedOnly = 0;
+  const leave = (p: MdStagePoint, reason: string | null, value = Number.NaN, u = Number.NaN) => {
+    if (reason) excluded.push({ temperatureK: p.temperatureK, pressureMPa: p.pressureMPa, reason });
+    residuals.push(0);
+    jacobian.push([0, 0]);
+    predicted.push(value);
+    modelUncertainty.push(u);
+    included.push(false);
+  };
   points.forEach((p, i) => {
     if (p.kind !== 'density') {
       const m = PROPERTY_MODELS[p.kind].evaluate({ temperatureK: p.temperatureK, pressureMPa: p.pressureMPa, measured: p.value }, epsilonK, sigmaAngstrom, options.context);
@@ -119,48 +243,44 @@ async function evaluate(points: MdStagePoint[], epsilonK: number, sigmaAngstrom:
       modelUncertainty.push(0);
       included.push(!p.excluded);
       runIds.push(null);
+      effectiveSamples.push(null);
+      predictedBy.push(null);
       return;
     }
-    const run = runs[densityIdx.indexOf(i)];
-    runIds.push(run.id);
+    const reducedState = states.get(i)!;
+    const problem = leftOut.get(i) ?? regionProblem(reducedState);
+    const frozen = book.frozen.get(stateKey(reducedState));
+    const pred = problem || frozen ? null : book.predict(reducedState);
+    runIds.push(pred?.runId ?? frozen?.id ?? null);
+    effectiveSamples.push(pred?.effectiveSamples ?? null);
+    predictedBy.push(pred?.by ?? null);
+    if (problem) return leave(p, problem);
+    if (frozen) return leave(p, frozen.phase === 'solid' ? 'the run froze into an ordered solid' : 'the run split into vapour and liquid');
+    if (!pred) {
+      uncovered.push(i);
+      return leave(p, null);
+    }
+    if (pred.reweightedOnly) reweightedOnly++;
     const state = { temperatureK: p.temperatureK, pressureMPa: p.pressureMPa!, epsilonK, sigmaAngstrom };
-    const g = densityWithGradient(run, state, options.context.molarMassGPerMol);
-    const uModel = densityWithGradient({ reducedDensity: run.stdErr, dRhoDT: 0, dRhoDP: 0 }, state, options.context.molarMassGPerMol).densityKgPerM3;
-    predicted.push(g.densityKgPerM3);
-    modelUncertainty.push(uModel);
-    if (p.excluded) {
-      // Left out by the modeller: simulated so its prediction can be shown, never counted.
-      residuals.push(0);
-      jacobian.push([0, 0]);
-      included.push(false);
-      return;
-    }
-    if (run.phase !== 'fluid') {
-      // A frozen or split state point says nothing about the fluid density: leave it out of this iteration.
-      excluded.push({ temperatureK: p.temperatureK, pressureMPa: p.pressureMPa, reason: run.phase === 'solid' ? 'the run froze into an ordered solid' : 'the run split into vapour and liquid' });
-      residuals.push(0);
-      jacobian.push([0, 0]);
-      included.push(false);
-      return;
-    }
+    const g = densityWithGradient(pred, state, options.context.molarMassGPerMol);
+    const uModel = densityWithGradient({ reducedDensity: pred.stdErr, dRhoDT: 0, dRhoDP: 0 }, state, options.context.molarMassGPerMol).densityKgPerM3;
+    if (p.excluded) return leave(p, null, g.densityKgPerM3, uModel);
     const ratio = g.densityKgPerM3 / p.value;
     if (ratio < 0.5 || ratio > 2) {
       // The simulated fluid is in another phase than the sample (e.g. the data say liquid, the run says gas):
       // no small change of ε and σ bridges that, so the point is reported and left out rather than averaged in.
-      excluded.push({ temperatureK: p.temperatureK, pressureMPa: p.pressureMPa, reason: `the simulated fluid (${g.densityKgPerM3.toFixed(1)} kg/m³) is in another phase than the measured one (${p.value} kg/m³)` });
-      residuals.push(0);
-      jacobian.push([0, 0]);
-      included.push(false);
-      return;
+      return leave(p, `the simulated fluid (${g.densityKgPerM3.toFixed(1)} kg/m³) is in another phase than the measured one (${p.value} kg/m³)`, g.densityKgPerM3, uModel);
     }
     const u = Math.hypot(p.uncertainty, uModel);
     const scale = p.weight / u;
     residuals.push((g.densityKgPerM3 - p.value) * scale);
     jacobian.push([g.dRhodEpsilonK * scale, g.dRhodSigmaAngstrom * scale]);
+    predicted.push(g.densityKgPerM3);
+    modelUncertainty.push(uModel);
     included.push(true);
   });
   const chi2 = residuals.reduce((s, r) => s + r * r, 0);
-  return { epsilonK, sigmaAngstrom, residuals, jacobian, predicted, modelUncertainty, included, runIds, chi2, excluded, runs };
+  return { epsilonK, sigmaAngstrom, residuals, jacobian, predicted, modelUncertainty, included, runIds, effectiveSamples, predictedBy, chi2, excluded, uncovered, reweightedOnly };
 }
 
 const PARAMETER_NAMES = ['epsilonK', 'sigmaAngstrom'] as const;
@@ -212,45 +332,113 @@ export async function mdStageFit(points: MdStagePoint[], datasets: Array<{ id: s
   const freeCount = heldIndex === null ? 2 : 1;
   const tolerance = options.changeInStandardErrors ?? 1;
   const report = (fraction: number, stage: string) => options.onProgress?.({ fraction, stage });
+  const book = new RunBook(options.storedRuns ?? [], options.minEffectiveSamples ?? DEFAULT_MIN_REWEIGHT_SAMPLES);
+  /** Density points left out for good: a run at their state froze or split. */
+  const leftOut = new Map<number, string>();
   const iterations: MdIteration[] = [];
   const allRuns: MdStageResult['mdRuns'] = [];
+  let newRuns = 0;
+  let reusedRuns = 0;
+  let reweightedPoints = 0;
   let lambda = 1e-3;
-  let current: Evaluation | null = null;
   let theta = { ...options.start };
+  let reason: MdIteration['reason'] = 'start';
+  let stoppedBy: MdStageResult['stoppedBy'] = 'round-limit';
   let stoppingRule = `stopped after ${maxIterations} rounds of simulations without the parameters settling below ${tolerance} standard errors`;
-  let converged = false;
-  for (let it = 1; it <= maxIterations; it++) {
-    report(0.05 + (0.9 * (it - 1)) / maxIterations, `simulation round ${it} of at most ${maxIterations}: ${points.filter((p) => p.kind === 'density').length} NPT runs at ε/k_B = ${theta.epsilonK.toFixed(2)} K, σ = ${theta.sigmaAngstrom.toFixed(4)} Å`);
-    const trial = await evaluate(points, theta.epsilonK, theta.sigmaAngstrom, options);
-    trial.runs.forEach((r, k) => {
-      const idx = points.map((p, i) => (p.kind === 'density' ? i : -1)).filter((i) => i >= 0)[k];
-      const s = reducedStateOf({ temperatureK: points[idx].temperatureK, pressureMPa: points[idx].pressureMPa!, epsilonK: theta.epsilonK, sigmaAngstrom: theta.sigmaAngstrom });
-      allRuns.push({ id: r.id, reused: r.reused, temperatureK: points[idx].temperatureK, pressureMPa: points[idx].pressureMPa!, ...s, reducedDensity: r.reducedDensity, stdErr: r.stdErr, phase: r.phase, iteration: it });
+  let current: Evaluation | null = null;
+  // Progress: round r fills [start(r), start(r + 1)), halves that shrink, so the bar never waits for a round limit.
+  const roundStart = (r: number) => 0.05 + 0.9 * (1 - 0.5 ** (r - 1));
+  const describe = (t: { epsilonK: number; sigmaAngstrom: number }) => `ε/k_B = ${t.epsilonK.toFixed(2)} K, σ = ${t.sigmaAngstrom.toFixed(4)} Å`;
+  const stepAndErrors = (e: Evaluation) => {
+    const [d0, d1] = lmStep(e, lambda, heldIndex);
+    const cov = covarianceFromJacobian(freeColumns(e.jacobian, heldIndex), e.chi2, Math.max(1, e.included.filter(Boolean).length - freeCount));
+    // The noise of the step itself: the standard errors from the stated and simulation uncertainties alone. (Scaled by
+    // the reduced χ² they grow with the misfit, so a start far from the minimum would look converged.)
+    const se = embedStdErr(cov.unscaled ? standardErrorsFromCovariance(cov.unscaled) : [Infinity, Infinity], heldIndex, Infinity);
+    return { d0, d1, small: Math.abs(d0) < tolerance * se[0] && Math.abs(d1) < tolerance * se[1] };
+  };
+  rounds: for (let round = 1; round <= maxIterations; round++) {
+    const lo = roundStart(round);
+    const hi = roundStart(round + 1);
+    // 1. Runs where reweighting cannot reach, or (confirm) at every state of this point that has no run of its own.
+    const wanted: Array<[number, MdStatePoint]> = [];
+    const seen = new Set<string>();
+    for (const [i, st] of densityStates(points, theta.epsilonK, theta.sigmaAngstrom)) {
+      const key = stateKey(st);
+      if (leftOut.has(i) || seen.has(key) || book.direct.has(key) || book.frozen.has(key) || regionProblem(st)) continue;
+      if (reason === 'confirm' || !book.predict(st)) {
+        wanted.push([i, st]);
+        seen.add(key);
+      }
+    }
+    const why = { start: 'first runs', uncovered: 'states beyond the reach of the stored runs', confirm: 'confirming the final point' }[reason];
+    report(lo, `simulation round ${round} (${why}): ${wanted.length} NPT run(s) at ${describe(theta)}`);
+    let finished = 0;
+    const runs = wanted.length
+      ? await options.simulate(
+          wanted.map(([, st]) => st),
+          () => {
+            finished++;
+            report(lo + ((hi - lo) * 0.8 * finished) / wanted.length, `simulation round ${round} (${why}): ${finished} of ${wanted.length} run(s) finished`);
+          },
+        )
+      : [];
+    runs.forEach((r, k) => {
+      const [i, st] = wanted[k];
+      book.add(st, r);
+      if (r.phase !== 'fluid') leftOut.set(i, r.phase === 'solid' ? 'the run froze into an ordered solid' : 'the run split into vapour and liquid');
+      if (r.reused) reusedRuns++;
+      else newRuns++;
+      const p = points[i];
+      allRuns.push({ id: r.id, reused: r.reused, temperatureK: p.temperatureK, pressureMPa: p.pressureMPa!, ...st, reducedDensity: r.reducedDensity, stdErr: r.stdErr, phase: r.phase, iteration: round, effectiveSamples: r.effectiveSamples ?? null, startedFrom: r.startedFrom ?? null });
     });
-    // The χ² of a trial carries simulation noise (about √(2n) from the weights); a step is kept unless it is clearly worse.
-    const n = trial.included.filter(Boolean).length;
-    const accepted = !current || trial.chi2 <= current.chi2 + 2 * Math.sqrt(2 * n);
-    iterations.push({ iteration: it, epsilonK: theta.epsilonK, sigmaAngstrom: theta.sigmaAngstrom, chi2: trial.chi2, accepted, runs: trial.runs.length, reusedRuns: trial.runs.filter((r) => r.reused).length, excludedPoints: trial.excluded });
-    if (accepted) {
-      current = trial;
-      lambda = Math.max(lambda / 10, 1e-6);
-    } else {
-      lambda *= 10;
+    const roundReason = reason;
+    // 2. Levenberg–Marquardt on the predictions the stored runs give, while its trial points stay within their reach.
+    let e = evaluate(points, theta.epsilonK, theta.sigmaAngstrom, options, book, leftOut);
+    reweightedPoints += e.reweightedOnly;
+    if (e.uncovered.length) throw new Error(`the simulation stage has no prediction at ${e.uncovered.length} state(s) although their runs finished`);
+    let steps = 0;
+    let converged = false;
+    for (let guard = 0; guard < 200; guard++) {
+      const { d0, d1, small } = stepAndErrors(e);
+      if (small || lambda > 1e8) {
+        // Inside the noise (or no step improves χ² any more): done if every state has a run of its own, else confirm.
+        if (e.reweightedOnly === 0) {
+          converged = true;
+          stoppedBy = 'converged';
+          stoppingRule = `converged: the next step (Δε = ${d0.toExponential(2)} K, Δσ = ${d1.toExponential(2)} Å) is below ${tolerance} standard errors of each parameter, with runs at every state of the final point`;
+        } else reason = 'confirm';
+        break;
+      }
+      let moved = false;
+      let covered = false;
+      for (const f of [1, 0.5, 0.25]) {
+        const trialTheta = { epsilonK: clamp(e.epsilonK + f * d0, options.bounds.epsilonK), sigmaAngstrom: clamp(e.sigmaAngstrom + f * d1, options.bounds.sigmaAngstrom) };
+        const trial = evaluate(points, trialTheta.epsilonK, trialTheta.sigmaAngstrom, options, book, leftOut);
+        if (trial.uncovered.length) continue;
+        covered = true;
+        reweightedPoints += trial.reweightedOnly;
+        if (trial.chi2 < e.chi2) {
+          e = trial;
+          theta = trialTheta;
+          lambda = Math.max(lambda / 10, 1e-7);
+          moved = true;
+          steps++;
+        } else lambda *= 10;
+        break;
+      }
+      if (!covered) {
+        // The step leaves the reach of every stored run: the next round runs there.
+        theta = { epsilonK: clamp(e.epsilonK + d0, options.bounds.epsilonK), sigmaAngstrom: clamp(e.sigmaAngstrom + d1, options.bounds.sigmaAngstrom) };
+        reason = 'uncovered';
+        break;
+      }
+      void moved;
     }
-    const base = current!;
-    const [d0, d1] = lmStep(base, lambda, heldIndex);
-    const cov = covarianceFromJacobian(freeColumns(base.jacobian, heldIndex), base.chi2, Math.max(1, base.included.filter(Boolean).length - freeCount));
-    // The statistical uncertainty the result will report: the larger of the stated-uncertainty and the
-    // reduced-χ²-scaled standard errors (the scaled ones vanish for noise-free data).
-    const seUnscaled = embedStdErr(cov.unscaled ? standardErrorsFromCovariance(cov.unscaled) : [Infinity, Infinity], heldIndex, Infinity);
-    const seScaled = embedStdErr(cov.scaled ? standardErrorsFromCovariance(cov.scaled) : [0, 0], heldIndex, 0);
-    const se = seUnscaled.map((u, k) => Math.max(u, seScaled[k]));
-    if (accepted && Math.abs(d0) < tolerance * se[0] && Math.abs(d1) < tolerance * se[1]) {
-      converged = true;
-      stoppingRule = `converged: the next step (Δε = ${d0.toExponential(2)} K, Δσ = ${d1.toExponential(2)} Å) is below ${tolerance} standard errors of each parameter`;
-      break;
-    }
-    theta = { epsilonK: clamp(base.epsilonK + d0, options.bounds.epsilonK), sigmaAngstrom: clamp(base.sigmaAngstrom + d1, options.bounds.sigmaAngstrom) };
+    iterations.push({ iteration: round, epsilonK: e.epsilonK, sigmaAngstrom: e.sigmaAngstrom, chi2: e.chi2, accepted: true, runs: runs.length, reusedRuns: runs.filter((r) => r.reused).length, reweightedSteps: steps, reason: roundReason, excludedPoints: e.excluded });
+    current = e;
+    report(hi, `simulation round ${round} done: ${describe(e)}, χ² = ${e.chi2.toFixed(2)}`);
+    if (converged) break rounds;
   }
   report(0.97, 'summarising');
   const final = current!;
@@ -277,6 +465,8 @@ export async function mdStageFit(points: MdStagePoint[], datasets: Array<{ id: s
     modelUncertainty: final.modelUncertainty[i],
     simulationId: final.runIds[i],
     included: final.included[i],
+    effectiveSamples: final.effectiveSamples[i],
+    predictedBy: final.predictedBy[i],
   }));
   const perDataset: LjDatasetSummary[] = datasets.map((d, index) => {
     const mine = residuals.filter((r) => r.datasetIndex === index && r.included);
@@ -295,7 +485,7 @@ export async function mdStageFit(points: MdStagePoint[], datasets: Array<{ id: s
   const phaseWarnings: string[] = [];
   for (const it of iterations) for (const x of it.excludedPoints) phaseWarnings.push(`Round ${it.iteration}: the point at ${x.temperatureK.toFixed(2)} K, ${x.pressureMPa?.toFixed(3)} MPa was left out because ${x.reason}.`);
   const warnings = [...phaseWarnings];
-  if (!converged) warnings.push(stoppingRule);
+  if (stoppedBy !== 'converged') warnings.push(stoppingRule);
   const hitBounds: string[] = [];
   if (final.epsilonK <= options.bounds.epsilonK[0] || final.epsilonK >= options.bounds.epsilonK[1]) hitBounds.push('epsilonK');
   if (final.sigmaAngstrom <= options.bounds.sigmaAngstrom[0] || final.sigmaAngstrom >= options.bounds.sigmaAngstrom[1]) hitBounds.push('sigmaAngstrom');
@@ -329,7 +519,7 @@ export async function mdStageFit(points: MdStagePoint[], datasets: Array<{ id: s
     covarianceUnscaled: cov.unscaled ?? null,
     covarianceScaling: cov.scaled ? 'reduced-chi2' : 'none',
     iterations: iterations.length,
-    convergence: converged ? 'parameter-change' : 'max-iterations',
+    convergence: stoppedBy === 'converged' ? 'parameter-change' : 'max-iterations',
     warnings,
     hitBounds,
     start: { ...options.start, method: 'equation-of-state stage' },
@@ -340,6 +530,11 @@ export async function mdStageFit(points: MdStagePoint[], datasets: Array<{ id: s
     restartsTried: 0,
     quantumCorrection: options.context.quantumCorrection,
     mdIterations: iterations,
+    mdRounds: iterations.length,
+    stoppedBy,
+    newRuns,
+    reusedRuns,
+    reweightedPoints,
     mdRuns: allRuns,
     phaseWarnings,
     stoppingRule,

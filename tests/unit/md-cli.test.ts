@@ -15,6 +15,11 @@ describe('cli md', () => {
     const json = JSON.parse(out.stdout) as Record<string, any>;
     for (const key of ['reducedDensity', 'stdErr', 'phase', 'reducedPotentialEnergy', 'dRhoDT', 'dRhoDP']) expect(json).toHaveProperty(key);
     expect(json.trace).toBeUndefined();
+    expect(json.frames).toBeUndefined();
+    // How much independent data the run holds and how it started (a fluid state: from a melted lattice).
+    expect(json.effectiveSamples).toBeGreaterThan(0);
+    expect(json.statisticalInefficiency).toBeGreaterThanOrEqual(1);
+    expect(json.startedFrom).toBe('melted-lattice');
     expect(json.settings).toMatchObject({ reducedTemperature: 2, reducedPressure: 5, atoms: 256, steps: 4000, cutoff: 2.5, scheme: 'truncated-tail', seed: 4 });
     expect(json.phase).toBe('fluid');
     // Supercritical fluid: JZG 1993 EOS density at T* = 2, P* = 5; a short run, so 3 % tolerance.

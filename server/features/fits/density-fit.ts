@@ -3,13 +3,15 @@ import { mdStageFit, type MdRunSummary, type MdStagePoint, type MdStatePoint } f
 import type { MdSettings } from '../../../shared/schemas/simulations';
 import type { JobRunEnvironment } from '../../jobs/job-runner';
 import { normaliseState, simulationCacheKey, type SimulationInput } from '../simulations/simulations.service';
+import { loadRunFrames, storeSimulationFrames } from '../simulations/simulation-frames';
 
 /**
- * Engine settings of the density fit's simulations when the request names none: 256 atoms and 10 000
- * steps give ρ* to about 0.4 % in a few seconds per state point on one core, so a round of 8 state
- * points takes well under a minute on two workers (measured with `npm run -s bench:fit`).
+ * Engine settings of the density fit's simulations when the request names none: 128 atoms (the smallest box that
+ * holds rc = 2.5σ twice at liquid densities) and 5000 steps, which every run extends by itself towards 50 effectively
+ * independent samples (up to 20 000 steps): ρ* to about 0.5–1 % per run with an honest error, about a second of one
+ * core each. Reweighting pools the runs, so the fit's predictions hold more samples than any one run.
  */
-export const DENSITY_FIT_DEFAULTS = { atoms: 256, steps: 10000, cutoff: 2.5, scheme: 'truncated-tail' as const, seed: 20261201 };
+export const DENSITY_FIT_DEFAULTS = { atoms: 128, steps: 5000, cutoff: 2.5, scheme: 'truncated-tail' as const, seed: 20261201 };
 
 /** Waits for a job, giving up when the fit itself is cancelled or the server stops. */
 function waitOrAbort<T>(promise: Promise<T>, signal: AbortSignal): Promise<T> {
@@ -44,7 +46,7 @@ export async function runDensityFit(env: JobRunEnvironment, payload: { datasets:
     return { ...eos, eosStage: eos, failureReason: `the equation-of-state stage failed, so the simulation stage did not start: ${eos.failureReason ?? 'no result'}` };
   }
 
-  const simulate = async (states: MdStatePoint[]): Promise<MdRunSummary[]> => {
+  const simulate = async (states: MdStatePoint[], onRunFinished?: () => void): Promise<MdRunSummary[]> => {
     const jobs = await Promise.all(
       states.map(async (s) => {
         const state = normaliseState({ ...s, ...md });
@@ -52,17 +54,46 @@ export async function runDensityFit(env: JobRunEnvironment, payload: { datasets:
         return env.jobs.enqueue({ kind: 'simulation', input, seed: state.seed, cacheKey: simulationCacheKey(state), createdBy });
       }),
     );
-    const done = await waitOrAbort(Promise.all(jobs.map((j) => env.jobs.waitFor(j.id))), env.signal);
-    return done.map((job, i) => {
-      if (job.status !== 'succeeded') throw new Error(`simulation ${job.id} at T* = ${states[i].reducedTemperature.toFixed(4)}, P* = ${states[i].reducedPressure.toFixed(4)} ${job.status}: ${job.error ?? 'no result'}`);
-      const r = job.result as MdRunSummary;
-      return { id: job.id, reused: jobs[i].reused, reducedDensity: r.reducedDensity, stdErr: r.stdErr, dRhoDT: r.dRhoDT, dRhoDP: r.dRhoDP, phase: r.phase };
-    });
+    const finished = jobs.map((j) =>
+      env.jobs.waitFor(j.id).then((job) => {
+        onRunFinished?.();
+        return job;
+      }),
+    );
+    const done = await waitOrAbort(Promise.all(finished), env.signal);
+    return Promise.all(
+      done.map(async (job, i) => {
+        if (job.status !== 'succeeded') throw new Error(`simulation ${job.id} at T* = ${states[i].reducedTemperature.toFixed(4)}, P* = ${states[i].reducedPressure.toFixed(4)} ${job.status}: ${job.error ?? 'no result'}`);
+        // Frames still inside a result (a runner that did not store them) are stored now; then read back decoded.
+        if ((job.result as { frames?: unknown } | null)?.frames) await storeSimulationFrames(env.db, job.id, job.result);
+        const r = job.result as MdRunSummary & { settings?: { reducedTemperature: number; reducedPressure: number; atoms: number } };
+        const reweightRun = await loadRunFrames(env.db, job.id);
+        return {
+          id: job.id,
+          reused: jobs[i].reused,
+          reducedDensity: r.reducedDensity,
+          stdErr: r.stdErr,
+          dRhoDT: r.dRhoDT,
+          dRhoDP: r.dRhoDP,
+          phase: r.phase,
+          reducedTemperature: r.settings?.reducedTemperature,
+          reducedPressure: r.settings?.reducedPressure,
+          atoms: r.settings?.atoms,
+          effectiveSamples: r.effectiveSamples,
+          statisticalInefficiency: r.statisticalInefficiency,
+          startedFrom: r.startedFrom,
+          warnings: r.warnings,
+          ...(reweightRun ? { reweightRun } : {}),
+        };
+      }),
+    );
   };
 
   const points: MdStagePoint[] = payload.datasets.flatMap((d, datasetIndex) =>
     d.rows.map((r, i) => ({ datasetId: d.id, datasetIndex, kind: d.kind, rowNumber: i + 1, excluded: !!d.excludeRows?.includes(i + 1), temperatureK: r.temperatureK, pressureMPa: r.pressureMPa, value: r.value, uncertainty: r.uncertainty, weight: d.weight ?? 1 })),
   );
+  // The reweighting pool is every run this fit asks for, reused ones included (cached by their exact state, engine
+  // settings and seed): a repeated fit replays the same rounds from the cache and lands on the same parameters.
   const result = await mdStageFit(points, payload.datasets.map((d) => ({ id: d.id, kind: d.kind })), {
     start: { epsilonK: eos.epsilonK, sigmaAngstrom: eos.sigmaAngstrom },
     bounds: eos.bounds,

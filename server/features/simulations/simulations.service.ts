@@ -93,6 +93,7 @@ export function toSimulationView(row: Parameters<typeof toJobView>[0] & { inputJ
   const job: JobView = toJobView(row);
   const input = JSON.parse(row.inputJson) as SimulationInput;
   const result = job.result as (Record<string, unknown> & { trace?: unknown }) | null;
-  const { trace, ...summary } = result ?? {};
+  // Frames (base64) are for reweighting and live in simulation_frames; they are never part of a view.
+  const { trace, frames: _frames, ...summary } = (result ?? {}) as Record<string, unknown> & { trace?: unknown; frames?: unknown };
   return { ...job, result: undefined, state: input.state, origin: input.origin ?? null, summary: result ? summary : null, trace: withTrace && result ? trace : undefined };
 }

@@ -54,8 +54,12 @@ export interface ReweightPrediction {
 
 export type ReweightOutcome = ({ ok: true } & ReweightPrediction) | { ok: false; effectiveSamples: number; reason: string };
 
-/** Smallest Kish effective sample size at which a reweighted prediction is used (the target of a run's own extension is 50). */
-export const DEFAULT_MIN_REWEIGHT_SAMPLES = 40;
+/**
+ * Smallest Kish effective sample size at which a reweighted prediction is used. A run itself aims at 50; 20 lets a
+ * Levenberg–Marquardt step move a few per cent in ε from one round of runs, while the prediction's standard error
+ * (which grows as the effective samples fall) still says honestly how good it is. The final point is confirmed by runs.
+ */
+export const DEFAULT_MIN_REWEIGHT_SAMPLES = 20;
 
 /** Runs whose own frames carry fewer effective samples than this at the target are left out of the MBAR solve. */
 const MIN_SAMPLES_PER_RUN = 1;
