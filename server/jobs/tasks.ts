@@ -32,5 +32,5 @@ export const laneOf = (task: string): Lane => TASK_LANES[task] ?? 'simulation';
  * integrator, more fields in the result): cached results of the old version are no longer reused, and a worker
  * process running other code refuses the job with a clear message instead of computing something else.
  */
-export const ENGINE_VERSIONS: Record<string, string> = { fit: 'lj-fit-1', simulation: 'npt-1' };
+export const ENGINE_VERSIONS: Record<string, string> = { fit: 'lj-fit-1', simulation: 'npt-2' };
 export const engineVersionOf = (task: string): string => ENGINE_VERSIONS[task] ?? 'unversioned';
