@@ -4,6 +4,8 @@ export interface ApiErrorDetail {
   row?: number;
   column?: string;
   field?: string;
+  /** The field as the form labels it (the server's words for it). */
+  label?: string;
   code?: string;
   message: string;
 }
@@ -64,3 +66,16 @@ function safeJson(text: string): unknown {
 
 export const isApiError = (e: unknown, status?: number): e is ApiError =>
   e instanceof ApiError && (status === undefined || e.status === status);
+
+/**
+ * One detail of a refused request in plain words: the field as the form labels it (or the row), then the problem.
+ * Internal paths such as "validity.temperatureMaxK" are never shown.
+ */
+export function detailText(d: ApiErrorDetail): string {
+  const label = d.label ?? (d.row !== undefined ? `Row ${d.row}${d.column ? `, ${d.column}` : ''}` : undefined);
+  return label && !d.message.startsWith(label) ? `${label}: ${d.message}` : d.message;
+}
+
+/** The details worth listing under an error's message (none that only repeat it). */
+export const detailsOf = (error: unknown): ApiErrorDetail[] =>
+  error instanceof ApiError ? (error.details ?? []).filter((d) => !error.message.includes(d.message)) : [];

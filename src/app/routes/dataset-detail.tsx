@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { formatDate, formatDateTime } from '@shared/format/dates';
-import { Link, useParams, useSearchParams } from 'react-router-dom';
+import { Link, useParams, useSearchParams, useLocation } from 'react-router-dom';
 import type { ColumnDef } from '@tanstack/react-table';
 import { QUANTITIES, PROPERTY_KINDS, type QuantityKey } from '@shared/measurements/property-kinds';
 import { formatMeasured } from '@shared/format/numbers';
@@ -16,7 +16,11 @@ import { SimulateRowsPanel } from '@/features/simulations/components/simulate-ro
 
 function rowColumns(kind: keyof typeof PROPERTY_KINDS): ColumnDef<DatasetRow, any>[] {
   const def = PROPERTY_KINDS[kind];
-  const cols: ColumnDef<DatasetRow, any>[] = [{ accessorKey: 'row', header: 'File row', meta: { numeric: true } }];
+  // "Row" counts the data rows from 1 (the number a fit's "leave rows out" uses); "File row" is the line in the file.
+  const cols: ColumnDef<DatasetRow, any>[] = [
+    { id: 'index', header: 'Row', accessorFn: (_r, i) => i + 1, meta: { numeric: true } },
+    { accessorKey: 'row', header: 'File row', meta: { numeric: true } },
+  ];
   for (const c of def.columns) {
     const q = QUANTITIES[c.quantity as QuantityKey];
     cols.push({ accessorKey: q.field, header: quantityHeading(c.quantity), meta: { numeric: true }, cell: (ctx) => formatMeasured(Number(ctx.getValue())) });
@@ -28,6 +32,8 @@ function rowColumns(kind: keyof typeof PROPERTY_KINDS): ColumnDef<DatasetRow, an
 export function DatasetDetailRoute() {
   const id = Number(useParams().datasetId);
   const [params, setParams] = useSearchParams();
+  // Warnings of the upload that just stored this set (e.g. a missing citation), handed over by the upload page.
+  const uploadWarnings = ((useLocation().state as { uploadWarnings?: string[] } | null)?.uploadWarnings ?? []).filter(Boolean);
   const version = params.get('version') ? Number(params.get('version')) : undefined;
   const dataset = useDataset(id, version);
   const canUpload = useCan('dataset:upload');
@@ -58,6 +64,17 @@ export function DatasetDetailRoute() {
           )
         }
       />
+      {uploadWarnings.length > 0 && (
+        <div role="status" className="mb-4 rounded-md border border-review/40 bg-review-soft/70 px-4 py-2 text-sm">
+          <p className="font-semibold text-review">Stored, with a warning</p>
+          <ul className="list-disc pl-5">{uploadWarnings.map((w) => <li key={w}>{w}</li>)}</ul>
+        </div>
+      )}
+      {!d.source && !d.withdrawn && uploadWarnings.length === 0 && (
+        <p role="status" className="mb-4 rounded-md bg-review-soft px-3 py-2 text-sm text-review">
+          No source citation: a parameter set that uses this measurement set cannot be submitted for review until a version with a citation is uploaded.
+        </p>
+      )}
       {d.version !== d.latestVersion && (
         <p role="status" className="mb-4 rounded-md bg-review-soft px-3 py-2 text-sm text-review">
           You are looking at version {d.version}; the newest is version {d.latestVersion}.

@@ -14,7 +14,7 @@ export function DatasetUploadRoute() {
   return (
     <>
       <PageHeader eyebrow={<Link to={`/substances/${substanceId}`} className="hover:underline">{substance.data.name}</Link>} title="Upload measurements" subtitle="A CSV table of B2(T), ρ(T, P) or η(T). Nothing is stored until every row passes." />
-      <UploadWizard substanceId={substanceId} molarMassGPerMol={substance.data.molarMassGPerMol} onStored={(r) => navigate(`/datasets/${r.id}`)} />
+      <UploadWizard substanceId={substanceId} molarMassGPerMol={substance.data.molarMassGPerMol} onStored={(r) => navigate(`/datasets/${r.id}`, { state: { uploadWarnings: (r as { warnings?: string[] }).warnings ?? [] } })} />
     </>
   );
 }
@@ -36,7 +36,7 @@ export function DatasetNewVersionRoute() {
         substanceId={d.substanceId}
         molarMassGPerMol={substance.data!.molarMassGPerMol}
         existing={{ datasetId, kind: d.property, name: d.name, source: d.source, doi: d.doi, method: d.method }}
-        onStored={(r) => navigate(`/datasets/${r.id}`)}
+        onStored={(r) => navigate(`/datasets/${r.id}`, { state: { uploadWarnings: (r as { warnings?: string[] }).warnings ?? [] } })}
       />
     </>
   );

@@ -12,6 +12,7 @@ import { ApprovedComparison } from '@/features/parameter-sets/components/approve
 import { ParameterSetCaution } from '@/features/parameter-sets/components/caution';
 import { CommentThread } from '@/features/parameter-sets/components/comment-thread';
 import { FrozenValues, schemeText } from '@/features/parameter-sets/components/frozen-values';
+import { RevisionDiff } from '@/features/parameter-sets/components/revision-diff';
 import { HistoryTimeline } from '@/features/parameter-sets/components/history-timeline';
 import { ParameterSetStateBadge } from '@/features/parameter-sets/components/state-badge';
 import { DatasetSourcesTable } from '@/features/datasets/components/dataset-sources-table';
@@ -53,6 +54,11 @@ export function ParameterSetDetailRoute() {
             />
           </Panel>
         </div>
+        {(s.revisionOf !== null || s.version > 1) && (
+          <Panel title="Changes from the previous version">
+            <RevisionDiff parameterSetId={s.id} />
+          </Panel>
+        )}
         <Panel title="Rationale">
           <p className="whitespace-pre-line">{s.rationale}</p>
         </Panel>

@@ -4,6 +4,7 @@ import { AppShell } from '@/components/layouts/app-shell';
 import { ErrorState, LoadingState } from '@/components/ui/states';
 import { useMe } from '@/features/auth/api/me';
 import { useSignOut } from '@/features/auth/api/sign-in';
+import { NoticeBell } from '@/features/notices/components/notice-bell';
 import { SignedInProvider } from '@/lib/signed-in';
 
 /** Every signed-in page sits under this route: no session means a trip to the sign-in page and back. */
@@ -29,6 +30,7 @@ export function ProtectedRoute() {
       <AppShell
         me={me.data}
         signingOut={signOut.isPending}
+        notices={<NoticeBell />}
         onSignOut={() => {
           signingOut.current = true;
           signOut.mutate();

@@ -6,6 +6,7 @@ import { KindBadge } from '@/components/ui/badge';
 import { ErrorState, LoadingState, PageHeader, Panel } from '@/components/ui/states';
 import { useSignedIn } from '@/lib/signed-in';
 import { useReviewQueue } from '@/features/parameter-sets/api/parameter-sets';
+import { NeedsActionList } from '@/features/parameter-sets/components/needs-action';
 import { useSimulations } from '@/features/simulations/api/simulations';
 import { useSubstances } from '@/features/substances/api/substances';
 
@@ -61,6 +62,11 @@ export function WorkbenchRoute() {
     <>
       <PageHeader eyebrow="Workbench" title={`Good to see you, ${me.name.split(' ')[0]}`} subtitle="Lennard-Jones 12-6 parameters, fitted to measurements and checked by a second person." />
       <div className="grid gap-5 md:grid-cols-2">
+        {(hasPolicy(me.roles, 'parameterSet:draft') || hasPolicy(me.roles, 'parameterSet:review')) && (
+          <Panel title="Needs my action" className="md:col-span-2">
+            <NeedsActionList />
+          </Panel>
+        )}
         {hasPolicy(me.roles, 'parameterSet:review') && (
           <Panel title="Waiting for your review">
             <ReviewWaiting />

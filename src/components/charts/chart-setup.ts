@@ -60,7 +60,31 @@ const errorBarsPlugin: Plugin = {
   },
 };
 
-Chart.register(ScatterController, LineController, LinearScale, PointElement, LineElement, Tooltip, Legend, Filler, errorBarsPlugin);
+/** A model curve may name itself at its right-hand end (e.g. the pressure of an isobar), instead of in the legend. */
+export type WithEndLabel = { endLabel?: string };
+
+const endLabelsPlugin: Plugin = {
+  id: 'epsigmaEndLabels',
+  afterDatasetsDraw(chart) {
+    const { ctx, chartArea } = chart;
+    chart.data.datasets.forEach((dataset, i) => {
+      const label = (dataset as ChartDataset & WithEndLabel).endLabel;
+      const meta = chart.getDatasetMeta(i);
+      if (!label || meta.hidden) return;
+      const last = [...meta.data].reverse().find((el) => Number.isFinite(el.x) && Number.isFinite(el.y) && el.x <= chartArea.right && el.y >= chartArea.top && el.y <= chartArea.bottom);
+      if (!last) return;
+      ctx.save();
+      ctx.font = '600 10px "Source Sans 3", system-ui, sans-serif';
+      ctx.fillStyle = (dataset.borderColor as string) ?? CHART_COLORS.copper;
+      ctx.textAlign = 'right';
+      ctx.textBaseline = 'bottom';
+      ctx.fillText(label, Math.min(last.x, chartArea.right - 2), last.y - 3);
+      ctx.restore();
+    });
+  },
+};
+
+Chart.register(ScatterController, LineController, LinearScale, PointElement, LineElement, Tooltip, Legend, Filler, errorBarsPlugin, endLabelsPlugin);
 Chart.defaults.font.family = '"Source Sans 3", system-ui, sans-serif';
 Chart.defaults.color = CHART_COLORS.ink;
 Chart.defaults.borderColor = 'rgba(219, 208, 187, 0.7)';

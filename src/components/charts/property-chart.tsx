@@ -1,6 +1,6 @@
 import { Scatter } from 'react-chartjs-2';
 import type { ChartData, ChartOptions } from 'chart.js';
-import { CHART_COLORS, type WithErrorBars } from './chart-setup';
+import { CHART_COLORS, type WithEndLabel, type WithErrorBars } from './chart-setup';
 
 export interface SeriesPoint {
   x: number;
@@ -14,6 +14,10 @@ export interface ChartSeries {
   label: string;
   kind: 'measured' | 'model' | 'simulated';
   points: SeriesPoint[];
+  /** Leave out of the legend (e.g. one model curve per isobar, named at its end instead). */
+  inLegend?: boolean;
+  /** Text drawn at the right-hand end of a curve. */
+  endLabel?: string;
 }
 
 const STYLE = {
@@ -52,7 +56,10 @@ function toDataset(s: ChartSeries, indexOfKind: number) {
     pointHoverRadius: line ? 0 : style.radius + 2,
     pointStyle: style.pointStyle,
     tension: 0,
-  } as ChartData<'scatter'>['datasets'][number] & WithErrorBars;
+    spanGaps: false,
+    endLabel: s.endLabel,
+    inLegend: s.inLegend ?? true,
+  } as ChartData<'scatter'>['datasets'][number] & WithErrorBars & WithEndLabel;
 }
 
 export interface PropertyChartProps {
@@ -79,7 +86,10 @@ export function PropertyChart({ series, xTitle, yTitle, residuals, height = 320,
     responsive: true,
     maintainAspectRatio: false,
     animation: false,
-    plugins: { legend: { position: 'top', align: 'end', labels: { usePointStyle: true, boxWidth: 7, boxHeight: 7, font: { size: 12 } } }, tooltip: { mode: 'nearest', intersect: true } },
+    plugins: {
+      legend: { position: 'top', align: 'end', labels: { usePointStyle: true, boxWidth: 7, boxHeight: 7, font: { size: 12 }, filter: (item, data) => (data.datasets[item.datasetIndex!] as { inLegend?: boolean }).inLegend !== false } },
+      tooltip: { mode: 'nearest', intersect: true },
+    },
     scales: {
       x: { ...xScale, title: { display: !residuals, text: xTitle, font: axisTitle } },
       y: { title: { display: true, text: yTitle, font: axisTitle }, grid: { color: 'rgba(219,208,187,0.5)' }, afterFit: (axis) => void (axis.width = Math.max(axis.width, 64)) },
@@ -102,7 +112,14 @@ export function PropertyChart({ series, xTitle, yTitle, residuals, height = 320,
         <Scatter data={{ datasets: toDatasets(series) }} options={options} />
       </div>
       {residuals && (
-        <div style={{ height: Math.max(160, Math.round(height * 0.5)) }} className="mt-1" role="img" aria-label={`Residuals: ${residuals.title}`}>
+        <div
+          style={{ height: Math.max(160, Math.round(height * 0.5)) }}
+          className="mt-1"
+          role="img"
+          aria-label={`Residuals: ${residuals.title}`}
+          // Σy² of the filled (counted) residual points: lets a reader (and a test) check the panel against the χ² shown.
+          data-residual-sum-squares={residuals.series.flatMap((s) => s.points.filter((p) => !p.hollow && Number.isFinite(p.y)).map((p) => p.y * p.y)).reduce((a, b) => a + b, 0)}
+        >
           <Scatter data={{ datasets: toDatasets(residuals.series) }} options={residualOptions} />
         </div>
       )}

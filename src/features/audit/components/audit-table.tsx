@@ -15,13 +15,16 @@ const TARGET_PAGES: Record<string, (id: string) => string> = {
   parameterSet: (id) => `/parameter-sets/${id}`,
 };
 
+/** The target as people name it ("Fit #3 of norrane"), with the internal type and id only when no name was recorded. */
+const targetText = (e: AuditEvent) => (e as AuditEvent & { targetLabel?: string | null }).targetLabel ?? `${e.targetType}${e.targetId ? ` ${e.targetId}` : ''}`;
+
 function Target({ event }: { event: AuditEvent }) {
-  const label = `${event.targetType}${event.targetId ? ` ${event.targetId}` : ''}`;
+  const label = targetText(event);
   const page = event.targetId ? TARGET_PAGES[event.targetType]?.(event.targetId) : undefined;
   return page ? (
-    <Link to={page} className="whitespace-nowrap underline decoration-rule underline-offset-4 hover:decoration-copper">{label}</Link>
+    <Link to={page} className="underline decoration-rule underline-offset-4 hover:decoration-copper">{label}</Link>
   ) : (
-    <span className="whitespace-nowrap">{label}</span>
+    <span>{label}</span>
   );
 }
 
@@ -47,7 +50,7 @@ const columns = [
   col.accessor('at', { header: 'When', cell: (c) => <span className="num whitespace-nowrap">{formatDateTime(c.getValue())}</span> }),
   col.accessor('actorEmail', { header: 'Actor', cell: (c) => c.getValue() ?? <span className="text-ink-faint">system</span> }),
   col.accessor('action', { header: 'Action', cell: (c) => <Badge>{c.getValue()}</Badge> }),
-  col.accessor((e) => `${e.targetType}${e.targetId ? ` ${e.targetId}` : ''}`, { id: 'target', header: 'Target', cell: (c) => <Target event={c.row.original} /> }),
+  col.accessor(targetText, { id: 'target', header: 'Target', cell: (c) => <Target event={c.row.original} /> }),
   col.accessor('summary', { header: 'Summary', enableSorting: false, cell: (c) => <span className="text-ink-soft">{c.getValue()}</span> }),
   col.display({ id: 'changes', header: 'Changes', cell: (c) => <Changes event={c.row.original} /> }),
 ];

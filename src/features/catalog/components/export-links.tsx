@@ -5,6 +5,7 @@ const FORMAT_LABELS: Record<ExportFormat, { label: string; hint: string }> = {
   csv: { label: 'CSV', hint: 'one row, units in the headers' },
   'lammps-real': { label: 'LAMMPS real', hint: 'kcal/mol, Å' },
   'lammps-metal': { label: 'LAMMPS metal', hint: 'eV, Å' },
+  'lammps-lj': { label: 'LAMMPS lj', hint: 'reduced units; the mass, energy and length scales in its comments' },
   gromacs: { label: 'GROMACS', hint: 'kJ/mol, nm' },
 };
 

@@ -14,11 +14,13 @@ export function quantityHeading(quantity: QuantityKey): string {
   return `${q.exampleHeader.replace(/\s*[([].*$/, '')} (${q.canonicalUnitLabel})`;
 }
 
+const AXIS_SYMBOLS: Partial<Record<PropertyKind, string>> = { b2: 'B2', b3: 'B3', b12: 'B12', density: 'ρ', viscosity: 'η', saturatedLiquidDensity: 'ρ_liq', saturatedVapourDensity: 'ρ_vap', vapourPressure: 'p_sat' };
+
 /** Axis title of a kind's measured value, with its canonical unit. */
 export function valueAxisTitle(kind: PropertyKind): string {
   const q = QUANTITIES[PROPERTY_KINDS[kind].valueQuantity];
-  const symbol = kind === 'b2' ? 'B2' : kind === 'density' ? 'ρ' : 'η';
-  return `${symbol} (${q.canonicalUnitLabel})`;
+  const symbol = AXIS_SYMBOLS[kind];
+  return symbol ? `${symbol} (${q.canonicalUnitLabel})` : quantityHeading(PROPERTY_KINDS[kind].valueQuantity);
 }
 
 /** Measured points against temperature with ±u error bars; densities are grouped by pressure. */

@@ -23,6 +23,7 @@ export interface DensityFitResult extends LjFitResult {
 /** A cutoff scheme in words ("truncated with tail corrections"), whatever spelling the result carries. */
 export const schemeWords = (scheme: string) => (CUTOFF_SCHEME_LABELS[scheme as CutoffScheme] ?? scheme.replace(/-/g, ' ')).toLowerCase();
 
+const capitalised = (s?: string) => (s ? s[0].toUpperCase() + s.slice(1) : '');
 const round = (x: number, digits: number) => Number(x.toFixed(digits));
 const percent = (r: LjResidual) => r.relativeDeviationPercent ?? (r.measured !== 0 ? (100 * (r.predicted - r.measured)) / r.measured : NaN);
 
@@ -76,7 +77,7 @@ export function DensityCharts({ result, context, curves, predictions, predictedL
   const temps = rows.map((r) => r.temperatureK);
   const byTemperature: ChartSeries[] = [
     ...isobars.map((p) => ({ label: `measured, ${p} MPa`, kind: 'measured' as const, points: atP(rows, p).map((r) => ({ x: r.temperatureK, y: r.measured, u: r.uncertainty, hollow: isLeftOut(r) })) })),
-    ...curves.flatMap((c) => isobars.map((p) => ({ label: `equation of state${curves.length > 1 || c.label !== 'fit' ? ` (${c.label})` : ''}, ${p} MPa`, kind: 'model' as const, points: eosIsobar(p, temps, c, context) }))),
+    ...curves.flatMap((c) => isobars.map((p, i) => ({ label: i === 0 ? `equation of state (${c.label})` : `equation of state (${c.label}), ${p} MPa`, kind: 'model' as const, points: eosIsobar(p, temps, c, context), inLegend: i === 0, endLabel: `${p} MPa` }))),
   ];
   const residualSeries: ChartSeries[] = isobars.map((p) => ({ label: `${p} MPa`, kind: 'measured' as const, points: atP(predicted, p).map((r) => ({ x: r.temperatureK, y: r.residual, hollow: isLeftOut(r) })) }));
   const leftOut = rows.some(isLeftOut);
@@ -91,7 +92,7 @@ export function DensityCharts({ result, context, curves, predictions, predictedL
         <h3 className="mb-1 font-semibold">Fluid density against temperature, per isobar</h3>
         <PropertyChart ariaLabel="density against temperature" series={byTemperature} xTitle="T (K)" yTitle="ρ (kg/m³)" residuals={{ title: RESIDUAL_AXIS_TITLE, series: residualSeries }} height={height} />
         <p className="mt-1 text-xs text-ink-faint">
-          Curves: the LJ equation of state (Johnson, Zollweg & Gubbins 1993) at {curves.map((c) => `${c.label} ε/k_B = ${formatSignificant(c.epsilonK, 5)} K, σ = ${formatSignificant(c.sigmaAngstrom, 5)} Å`).join('; ')}. Lower panel: residuals {residualsLabel}, (model − measured)/u.
+          Curves: the LJ equation of state (Johnson, Zollweg & Gubbins 1993), one per measured pressure (named at its end), at {curves.map((c) => `${c.label} ε/k_B = ${formatSignificant(c.epsilonK, 5)} K, σ = ${formatSignificant(c.sigmaAngstrom, 5)} Å`).join('; ')}. Lower panel: residuals {residualsLabel}, (model − measured)/u.
         </p>
       </div>
     </div>
@@ -117,7 +118,7 @@ export function SimulationStage({ result }: { result: DensityFitResult }) {
         </table>
       </div>
       <p className="text-sm text-ink-soft">
-        {result.stoppingRule}. {result.schemeNote} The simulation standard errors are added to the measurement uncertainties, so the parameter uncertainties include the simulation noise. {result.mdRunCount} runs, {result.mdRunsReused} of them reused from earlier fits or rounds.
+        {capitalised(result.stoppingRule)}. {result.schemeNote} The simulation standard errors are added to the measurement uncertainties, so the parameter uncertainties include the simulation noise. {result.mdRunCount} runs, {result.mdRunsReused} of them reused from earlier fits or rounds.
       </p>
       {result.mdIterations && (
         <div className="overflow-x-auto">

@@ -1,5 +1,6 @@
 import type { LjFitResult, LjResidual } from '@shared/fitting/lj-fit';
 import type { FitKind } from '@shared/fitting/property-models';
+import { PROPERTY_KINDS, type PropertyKind } from '@shared/measurements/property-kinds';
 import { PropertyChart, type ChartSeries } from '@/components/charts/property-chart';
 import { valueAxisTitle } from '@/features/datasets/components/dataset-chart';
 import { modelCurve } from './model-curves';
@@ -45,7 +46,7 @@ export function FitCurves({ result, datasetNames, context, curves, height = 300,
         }));
         return (
           <div key={kind} className="min-w-0">
-            <h3 className="mb-1 font-semibold">{kind === 'b2' ? 'Second virial coefficient' : 'Dilute-gas viscosity'}</h3>
+            <h3 className="mb-1 font-semibold">{kind === 'b2' ? 'Second virial coefficient' : kind === 'viscosity' ? 'Dilute-gas viscosity' : (PROPERTY_KINDS[kind as PropertyKind]?.label ?? kind)}</h3>
             <PropertyChart
               ariaLabel={`${kind} data and model`}
               series={[...measured, ...model]}

@@ -1,23 +1,26 @@
-import { useState } from 'react';
+import { Fragment, useState, type ReactNode } from 'react';
 import { FIT_KINDS } from '@shared/fitting/property-models';
 import type { CreateFitBody } from '@shared/schemas/fits';
 import { KindBadge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
 import { Field, Input, Select } from '@/components/ui/field';
 import { Panel } from '@/components/ui/states';
-import { ApiError } from '@/lib/api-client';
+import { detailsOf, detailText } from '@/lib/api-client';
 import type { DatasetSummary } from '@/features/datasets/api/datasets';
 
-type Choice = { checked: boolean; weight: string };
+type Choice = { checked: boolean; weight: string; excludeRows: number[]; excludeReason: string; picking: boolean };
+
+/** Shows a set's rows with a tick box each (the page supplies it: rows belong to the datasets feature). */
+export type RowPickerRenderer = (dataset: DatasetSummary, excluded: number[], onChange: (rows: number[]) => void) => ReactNode;
 
 const num = (s: string) => Number(s.replace(',', '.'));
 
 /** Measurement sets with weights, options, bounds and starting values; the server validates again. */
-export function FitSetupForm({ substanceId, datasets, busy, error, onSubmit }: { substanceId: number; datasets: DatasetSummary[]; busy: boolean; error: Error | null; onSubmit: (body: CreateFitBody) => void }) {
+export function FitSetupForm({ substanceId, datasets, busy, error, onSubmit, renderRowPicker }: { substanceId: number; datasets: DatasetSummary[]; busy: boolean; error: Error | null; onSubmit: (body: CreateFitBody) => void; renderRowPicker?: RowPickerRenderer }) {
   const usable = datasets.filter((d) => !d.withdrawn);
   const fittable = (d: DatasetSummary) => (FIT_KINDS as string[]).includes(d.property);
   // Gas-phase sets are ticked by default; densities add a simulation stage of minutes, so they are opt-in.
-  const [choices, setChoices] = useState<Record<number, Choice>>(() => Object.fromEntries(usable.map((d) => [d.id, { checked: fittable(d) && d.property !== 'density', weight: '1' }])));
+  const [choices, setChoices] = useState<Record<number, Choice>>(() => Object.fromEntries(usable.map((d) => [d.id, { checked: fittable(d) && d.property !== 'density', weight: '1', excludeRows: [], excludeReason: '', picking: false }])));
   const [mdAtoms, setMdAtoms] = useState('256');
   const [mdSteps, setMdSteps] = useState('10000');
   const [mdCutoff, setMdCutoff] = useState('2.5');
@@ -30,17 +33,28 @@ export function FitSetupForm({ substanceId, datasets, busy, error, onSubmit }: {
   const [epsBounds, setEpsBounds] = useState(['1', '5000']);
   const [sigmaBounds, setSigmaBounds] = useState(['1', '15']);
   const [restarts, setRestarts] = useState('2');
+  const [hold, setHold] = useState<'none' | 'epsilonK' | 'sigmaAngstrom'>('none');
+  const [heldEps, setHeldEps] = useState('');
+  const [heldSigma, setHeldSigma] = useState('');
+  const update = (id: number, change: Partial<Choice>) => setChoices((all) => ({ ...all, [id]: { ...all[id], ...change } }));
   const [localError, setLocalError] = useState<string | null>(null);
-  const serverDetails = error instanceof ApiError ? error.details ?? [] : [];
+  const serverDetails = detailsOf(error);
 
   const submit = () => {
     const chosen = usable.filter((d) => choices[d.id]?.checked && fittable(d));
     if (!chosen.length) return setLocalError('Choose at least one measurement set.');
     const weights = chosen.map((d) => num(choices[d.id].weight));
     if (weights.some((w) => !(w > 0))) return setLocalError('Weights must be positive numbers.');
+    const heldValue = hold === 'epsilonK' ? num(heldEps) : hold === 'sigmaAngstrom' ? num(heldSigma) : null;
+    if (heldValue !== null && !(heldValue > 0)) return setLocalError(`Give the value to hold ${hold === 'epsilonK' ? 'ε/k_B at, in K' : 'σ at, in Å'} (a positive number).`);
+    for (const d of chosen) if (choices[d.id].excludeRows.length >= d.rowCount) return setLocalError(`Every row of ${d.name} is left out: untick it instead.`);
     const body: CreateFitBody = {
       substanceId,
-      datasets: chosen.map((d, i) => ({ id: d.id, weight: weights[i] })),
+      datasets: chosen.map((d, i) => {
+        const c = choices[d.id];
+        return { id: d.id, weight: weights[i], ...(c.excludeRows.length ? { excludeRows: c.excludeRows, ...(c.excludeReason.trim() ? { excludeReason: c.excludeReason.trim() } : {}) } : {}) };
+      }),
+      ...(heldValue !== null ? { fixed: { [hold]: heldValue } } : {}),
       options: {
         quantumCorrection: quantum,
         bounds: { epsilonK: [num(epsBounds[0]), num(epsBounds[1])], sigmaAngstrom: [num(sigmaBounds[0]), num(sigmaBounds[1])] },
@@ -65,18 +79,20 @@ export function FitSetupForm({ substanceId, datasets, busy, error, onSubmit }: {
         {usable.length === 0 ? (
           <p className="text-ink-soft">This substance has no measurement sets in use. Upload one first.</p>
         ) : (
+          <div className="overflow-x-auto">
           <table className="w-full text-left text-sm">
             <thead className="border-b border-rule text-xs tracking-wide text-ink-faint">
-              <tr><th className="py-1.5">Use</th><th>Set</th><th>Kind</th><th className="text-right">Points</th><th className="w-28 pl-4">Weight</th></tr>
+              <tr><th className="py-1.5">Use</th><th>Set</th><th>Kind</th><th className="text-right">Points</th><th className="w-28 pl-4">Weight</th>{renderRowPicker && <th>Rows left out</th>}</tr>
             </thead>
             <tbody>
               {usable.map((d) => {
                 const c = choices[d.id];
                 const ok = fittable(d);
                 return (
-                  <tr key={d.id} className="border-b border-rule/60">
+                  <Fragment key={d.id}>
+                  <tr className="border-b border-rule/60">
                     <td className="py-1.5">
-                      <input type="checkbox" className="accent-copper" aria-label={`Use ${d.name}`} disabled={!ok} checked={c.checked && ok} onChange={(e) => setChoices({ ...choices, [d.id]: { ...c, checked: e.target.checked } })} />
+                      <input type="checkbox" className="accent-copper" aria-label={`Use ${d.name}`} disabled={!ok} checked={c.checked && ok} onChange={(e) => update(d.id, { checked: e.target.checked })} />
                     </td>
                     <td>
                       <span className="font-semibold">{d.name}</span> <span className="text-ink-faint">v{d.version}</span>
@@ -85,13 +101,38 @@ export function FitSetupForm({ substanceId, datasets, busy, error, onSubmit }: {
                     <td><KindBadge kind={d.property} /></td>
                     <td className="num text-right">{d.rowCount}</td>
                     <td className="pl-4">
-                      <Input aria-label={`Weight of ${d.name}`} inputMode="decimal" value={c.weight} disabled={!ok || !c.checked} onChange={(e) => setChoices({ ...choices, [d.id]: { ...c, weight: e.target.value } })} />
+                      <Input aria-label={`Weight of ${d.name}`} inputMode="decimal" value={c.weight} disabled={!ok || !c.checked} onChange={(e) => update(d.id, { weight: e.target.value })} />
                     </td>
+                    {renderRowPicker && (
+                      <td className="whitespace-nowrap">
+                        <Button variant="quiet" aria-expanded={c.picking} disabled={!ok || !c.checked} onClick={() => update(d.id, { picking: !c.picking })}>
+                          {c.excludeRows.length ? `${c.excludeRows.length} left out` : 'None'} · {c.picking ? 'hide rows' : 'choose'}
+                        </Button>
+                      </td>
+                    )}
                   </tr>
+                  {renderRowPicker && c.picking && ok && c.checked && (
+                    <tr className="border-b border-rule/60">
+                      <td />
+                      <td colSpan={5} className="pb-3 pt-1">
+                        <p className="mb-2 text-xs text-ink-faint">Tick the rows to leave out of this fit. They stay in the set, are predicted at the fitted values and drawn hollow, but never count in χ².</p>
+                        {renderRowPicker(d, c.excludeRows, (rows) => update(d.id, { excludeRows: rows }))}
+                        {c.excludeRows.length > 0 && (
+                          <div className="mt-2">
+                            <Field label={`Why rows ${c.excludeRows.join(', ')} are left out (optional)`} htmlFor={`exclude-reason-${d.id}`}>
+                              <Input id={`exclude-reason-${d.id}`} maxLength={500} value={c.excludeReason} onChange={(e) => update(d.id, { excludeReason: e.target.value })} />
+                            </Field>
+                          </div>
+                        )}
+                      </td>
+                    </tr>
+                  )}
+                  </Fragment>
                 );
               })}
             </tbody>
           </table>
+          </div>
         )}
         <p className="mt-3 text-xs text-ink-faint">A weight multiplies 1/u for every point of its set: residuals are weight·(model − measured)/u.</p>
       </Panel>
@@ -115,6 +156,22 @@ export function FitSetupForm({ substanceId, datasets, busy, error, onSubmit }: {
               <Input aria-label="σ upper bound (Å)" inputMode="decimal" value={sigmaBounds[1]} onChange={(e) => setSigmaBounds([sigmaBounds[0], e.target.value])} />
             </div>
           </Field>
+          <fieldset className="grid gap-2 md:col-span-2">
+            <legend className="text-sm font-semibold">Hold a parameter</legend>
+            <p className="text-xs text-ink-faint">A held parameter is exact in the result: no standard error, and one degree of freedom more. Only one of the two can be held.</p>
+            <div className="flex flex-wrap items-center gap-x-6 gap-y-2">
+              <label className="flex items-center gap-2 text-sm">
+                <input type="checkbox" role="switch" className="accent-copper" aria-label="Hold ε/k_B" checked={hold === 'epsilonK'} onChange={(e) => setHold(e.target.checked ? 'epsilonK' : 'none')} />
+                Hold ε/k_B at
+                <Input aria-label="Held ε/k_B (K)" className="!w-24" inputMode="decimal" disabled={hold !== 'epsilonK'} value={heldEps} onChange={(e) => setHeldEps(e.target.value)} /> K
+              </label>
+              <label className="flex items-center gap-2 text-sm">
+                <input type="checkbox" role="switch" className="accent-copper" aria-label="Hold σ" checked={hold === 'sigmaAngstrom'} onChange={(e) => setHold(e.target.checked ? 'sigmaAngstrom' : 'none')} />
+                Hold σ at
+                <Input aria-label="Held σ (Å)" className="!w-24" inputMode="decimal" disabled={hold !== 'sigmaAngstrom'} value={heldSigma} onChange={(e) => setHeldSigma(e.target.value)} /> Å
+              </label>
+            </div>
+          </fieldset>
           <Field label="Restarts from perturbed starts" htmlFor="restarts" hint="Guards against a poor local minimum; the lowest χ² wins.">
             <Input id="restarts" inputMode="numeric" value={restarts} onChange={(e) => setRestarts(e.target.value)} />
           </Field>
@@ -153,7 +210,7 @@ export function FitSetupForm({ substanceId, datasets, busy, error, onSubmit }: {
       {(localError || error) && (
         <div role="alert" className="rounded-md bg-changes-soft px-3 py-2 text-sm text-changes">
           <p className="font-semibold">{localError ?? error?.message}</p>
-          {serverDetails.length > 0 && <ul className="mt-1 list-disc pl-5">{serverDetails.map((d, i) => <li key={i}>{d.field ? `${d.field}: ` : ''}{d.message}</li>)}</ul>}
+          {serverDetails.length > 0 && <ul className="mt-1 list-disc pl-5">{serverDetails.map((d, i) => <li key={i}>{detailText(d)}</li>)}</ul>}
         </div>
       )}
       <div>

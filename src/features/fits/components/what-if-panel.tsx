@@ -55,14 +55,14 @@ export function WhatIfPanel({ result, names, context, weights }: { result: LjFit
           <span className="font-semibold">ε/k_B (K)</span>
           <div className="flex items-center gap-3">
             <input type="range" aria-label="What-if ε/k_B (K)" className="min-w-0 flex-1 accent-copper" min={epsRange[0]} max={epsRange[1]} step={(epsRange[1] - epsRange[0]) / 400} value={eps} onChange={(e) => setEps(Number(e.target.value))} />
-            <Input aria-label="What-if ε/k_B value (K)" className="num w-28" type="number" step="0.1" value={Number(eps.toFixed(3))} onChange={(e) => Number(e.target.value) > 0 && setEps(Number(e.target.value))} />
+            <Input aria-label="What-if ε/k_B value (K)" className="num !w-28 shrink-0" type="number" step="0.1" value={Number(eps.toFixed(3))} onChange={(e) => Number(e.target.value) > 0 && setEps(Number(e.target.value))} />
           </div>
         </label>
         <label className="grid gap-1 text-sm">
           <span className="font-semibold">σ (Å)</span>
           <div className="flex items-center gap-3">
             <input type="range" aria-label="What-if σ (Å)" className="min-w-0 flex-1 accent-copper" min={sigmaRange[0]} max={sigmaRange[1]} step={(sigmaRange[1] - sigmaRange[0]) / 400} value={sigma} onChange={(e) => setSigma(Number(e.target.value))} />
-            <Input aria-label="What-if σ value (Å)" className="num w-28" type="number" step="0.001" value={Number(sigma.toFixed(4))} onChange={(e) => Number(e.target.value) > 0 && setSigma(Number(e.target.value))} />
+            <Input aria-label="What-if σ value (Å)" className="num !w-28 shrink-0" type="number" step="0.001" value={Number(sigma.toFixed(4))} onChange={(e) => Number(e.target.value) > 0 && setSigma(Number(e.target.value))} />
           </div>
         </label>
       </div>

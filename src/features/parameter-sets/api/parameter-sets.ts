@@ -62,7 +62,25 @@ export const parameterSetKeys = {
   detail: (id: number) => [...parameterSetKeys.all, 'detail', id] as const,
   ofSubstance: (substanceId: number) => [...parameterSetKeys.all, 'substance', substanceId] as const,
   queue: () => [...parameterSetKeys.all, 'queue'] as const,
+  diff: (id: number) => [...parameterSetKeys.all, 'diff', id] as const,
+  needsAction: () => [...parameterSetKeys.all, 'needs-action'] as const,
 };
+
+export interface NeedsActionItem {
+  kind: 'changes-requested' | 'draft' | 'awaiting-my-review';
+  parameterSetId: number;
+  substanceId: number;
+  substanceName: string;
+  version: number;
+  state: ParameterSetState;
+  stateLabel?: string;
+  since: string;
+}
+
+export interface ParameterSetDiff {
+  previous: { id: number; version: number } | null;
+  changes: Array<{ field: string; label: string; before: string | number | null; after: string | number | null }>;
+}
 
 export const parameterSetQueryOptions = (id: number) =>
   queryOptions({ queryKey: parameterSetKeys.detail(id), queryFn: () => api<ParameterSetDetail>(`/parameter-sets/${id}`) });
@@ -76,6 +94,16 @@ export const substanceParameterSetsQueryOptions = (substanceId: number) =>
 export const reviewQueueQueryOptions = () =>
   queryOptions({ queryKey: parameterSetKeys.queue(), queryFn: () => api<{ parameterSets: QueueItem[] }>('/review-queue').then((r) => r.parameterSets) });
 
+/** What waits for the signed-in person: sets sent back to them, their drafts, sets awaiting their review. */
+export const needsActionQueryOptions = () =>
+  queryOptions({ queryKey: parameterSetKeys.needsAction(), queryFn: () => api<{ items: NeedsActionItem[] }>('/workbench/needs-action').then((r) => r.items) });
+
+/** The changes of a revision against the version it revises (values, scheme, validity, data). */
+export const parameterSetDiffQueryOptions = (id: number) =>
+  queryOptions({ queryKey: parameterSetKeys.diff(id), queryFn: () => api<ParameterSetDiff>(`/parameter-sets/${id}/diff`) });
+
+export const useNeedsAction = () => useQuery(needsActionQueryOptions());
+export const useParameterSetDiff = (id: number, enabled = true) => useQuery({ ...parameterSetDiffQueryOptions(id), enabled });
 export const useParameterSet = (id: number) => useQuery(parameterSetQueryOptions(id));
 export const useSubstanceParameterSets = (substanceId: number) => useQuery(substanceParameterSetsQueryOptions(substanceId));
 export const useReviewQueue = () => useQuery(reviewQueueQueryOptions());

@@ -1,5 +1,6 @@
 import { useState } from 'react';
 import { STATE_LABELS } from '@shared/parameter-sets/transitions';
+import { CUTOFF_SCHEME_LABELS, CUTOFF_SCHEMES, CUTOFF_SIGMA_RANGE, type CutoffScheme } from '@shared/schemas/parameter-sets';
 import { Button } from '@/components/ui/button';
 import { Field, Input, Select, TextArea } from '@/components/ui/field';
 import {
@@ -109,18 +110,26 @@ function ReviseForm({ set, onRevised, fitChoices }: { set: ParameterSetDetail; o
   const choices = [{ id: set.fitId, number: set.fitNumber, label: `Fit #${set.fitNumber} — this set's fit` }, ...(fitChoices ?? []).filter((f) => f.id !== set.fitId && f.number > set.fitNumber)];
   const revise = useReviseParameterSet(set.id);
   const [fitId, setFitId] = useState(String(set.fitId));
-  const [cutoff, setCutoff] = useState(set.cutoffSigma === null ? '' : String(set.cutoffSigma));
+  // The scheme the form shows is the scheme it sends: this set's own for the same fit; for another fit, that
+  // fit's own scheme unless the author picks one (the server applies the same rules as to a first draft).
+  const [scheme, setScheme] = useState<CutoffScheme | ''>(set.scheme);
+  const [cutoff, setCutoff] = useState(set.cutoffSigma === null ? '2.5' : String(set.cutoffSigma));
   const [validity, setValidity] = useState(validityInputOf(set.validity));
   const [rationale, setRationale] = useState(set.rationale);
+  const sameFit = Number(fitId) === set.fitId;
   return (
     <form
       className="grid gap-3"
       aria-label="Draft a revision"
       onSubmit={(e) => {
         e.preventDefault();
-        const sameFit = Number(fitId) === set.fitId;
         revise.mutate(
-          { rationale, ...(sameFit ? { validity: toValidity(validity) } : { fitId: Number(fitId) }), ...(set.cutoffSigma !== null ? { cutoffSigma: Number(cutoff.replace(',', '.')) } : {}) },
+          {
+            rationale,
+            ...(sameFit ? { validity: toValidity(validity) } : { fitId: Number(fitId) }),
+            ...(scheme ? { scheme } : {}),
+            ...(scheme && scheme !== 'full-potential' ? { cutoffSigma: Number(cutoff.replace(',', '.')) } : {}),
+          },
           { onSuccess: onRevised },
         );
       }}
@@ -128,12 +137,25 @@ function ReviseForm({ set, onRevised, fitChoices }: { set: ParameterSetDetail; o
       <p className="text-sm text-ink-soft">A revision is a new draft (the next version) linked to this one; this set stays as the record of its review.</p>
       <div className="grid gap-3 sm:grid-cols-2">
         <Field label="From fit" htmlFor="revise-fit" hint={`This set's fit or a newer succeeded fit of ${set.substanceName}; a different fit brings its own values and data span.`}>
-          <Select id="revise-fit" value={fitId} onChange={(e) => setFitId(e.target.value)}>
+          <Select
+            id="revise-fit"
+            value={fitId}
+            onChange={(e) => {
+              setFitId(e.target.value);
+              setScheme(Number(e.target.value) === set.fitId ? set.scheme : '');
+            }}
+          >
             {choices.map((f) => <option key={f.id} value={String(f.id)}>{f.label}</option>)}
           </Select>
         </Field>
-        {set.cutoffSigma !== null && (
-          <Field label="Cutoff r_c (σ)" htmlFor="revise-cutoff">
+        <Field label="Cutoff scheme" htmlFor="revise-scheme" hint="B2 and dilute-gas viscosity see the whole potential; density fits use their simulations’ cutoff.">
+          <Select id="revise-scheme" value={scheme} onChange={(e) => setScheme(e.target.value as CutoffScheme | '')}>
+            {!sameFit && <option value="">As the chosen fit was computed</option>}
+            {CUTOFF_SCHEMES.map((k) => <option key={k} value={k}>{CUTOFF_SCHEME_LABELS[k]}</option>)}
+          </Select>
+        </Field>
+        {scheme !== '' && scheme !== 'full-potential' && (
+          <Field label="Cutoff r_c (σ)" htmlFor="revise-cutoff" hint={`${CUTOFF_SIGMA_RANGE.min} to ${CUTOFF_SIGMA_RANGE.max} σ`}>
             <Input id="revise-cutoff" inputMode="decimal" value={cutoff} onChange={(e) => setCutoff(e.target.value)} />
           </Field>
         )}
