@@ -191,7 +191,8 @@ function validate(datasets: readonly FitDataset[], options: LjFitOptions): { all
   if (!datasets || datasets.length === 0) throw new LjFitInputError('no-data', 'no datasets to fit');
   const points: FlatPoint[] = [];
   datasets.forEach((dataset, datasetIndex) => {
-    const name = `dataset ${String(dataset.id)}`;
+    // Named as the person sees it when the caller gives a label (the API passes the measurement set's name).
+    const name = dataset.label ? `measurement set "${dataset.label}"` : `dataset ${String(dataset.id)}`;
     if (!isFitKind(dataset.kind)) {
       throw new LjFitInputError('unknown-kind', `${name}: unknown kind "${String(dataset.kind)}"; expected one of ${Object.keys(PROPERTY_MODELS).join(', ')}`);
     }

@@ -99,6 +99,9 @@ describe('leaving rows out (item 13)', () => {
     expect(res.body.error.code).toBe('unknown_row');
     expect(res.body.error.message).toContain('there is no row 15 to leave out');
     expect(res.body.error.details).toEqual([expect.objectContaining({ field: 'datasets.0.excludeRows', row: 15 })]);
+    const all = await modeller.post('/api/fits').send({ substanceId, datasets: [{ id: datasetId, excludeRows: Array.from({ length: 13 }, (_, i) => i + 1) }] });
+    expect(all.status).toBe(422);
+    expect(all.body.error).toMatchObject({ code: 'too_few_points', message: 'Leaving out these rows leaves 1 point(s) for 2 free parameter(s); the fit needs at least 2.' });
     const bad = await modeller.post('/api/fits').send({ substanceId, datasets: [{ id: datasetId, excludeRows: [0] }] });
     expect(bad.status).toBe(400);
     expect(bad.body.error.message).toMatch(/^Rows left out \(measurement set 1 of the request\): row numbers are whole numbers from 1\.$/);

@@ -101,6 +101,13 @@ export async function createFit(ctx: AppContext, actor: CurrentUser, body: Creat
       ...(excludeRows.length ? { excludeRows, ...(wanted.excludeReason ? { excludeReason: wanted.excludeReason } : {}) } : {}),
     });
   }
+  // Leaving rows out must leave enough to fit: refused here, naming the field, rather than as a failed job.
+  const counted = await Promise.all(refs.map(async (r) => Number((await findVersionRow(ctx.db, r.datasetId, r.version))!.rowCount) - (r.excludeRows?.length ?? 0)));
+  const free = body.fixed && Object.keys(body.fixed).length ? 1 : 2;
+  const left = counted.reduce((a, b) => a + b, 0);
+  if (refs.some((r) => r.excludeRows?.length) && left < Math.max(free, 2)) {
+    throw new AppError(422, 'too_few_points', `Leaving out these rows leaves ${left} point(s) for ${free} free parameter(s); the fit needs at least ${Math.max(free, 2)}.`, [{ field: 'datasets', message: 'too few rows left in the fit' }]);
+  }
   const { density, ...fitOptions } = body.options ?? {};
   const options: LjFitOptions = { ...fitOptions, ...(body.fixed && Object.keys(body.fixed).length ? { fixed: body.fixed } : {}), molarMassGPerMol: substance.molarMassGramsPerMol };
   const hasDensity = refs.some((r) => r.kind === 'density');
