@@ -23,6 +23,7 @@ import { tokenRoutes } from './features/tokens/tokens.routes';
 import { preferenceRoutes } from './features/preferences/preferences.routes';
 import { noticeRoutes } from './features/notices/notices.routes';
 import { workbenchRoutes } from './features/workbench/workbench.routes';
+import { pairSetRoutes } from './features/pair-sets/pair-sets.routes';
 
 export interface CreateAppOptions {
   /** Folder of the built client (vite build); when set, the server serves it with an SPA fallback. */
@@ -83,6 +84,7 @@ export function createApp(ctx: AppContext, options: CreateAppOptions = {}) {
   api.use(auditRoutes(ctx));
   api.use(followRoutes(ctx));
   api.use(catalogRoutes(ctx));
+  api.use(pairSetRoutes(ctx));
   api.use(tokenRoutes(ctx));
   api.use(preferenceRoutes(ctx));
   api.use(noticeRoutes(ctx));

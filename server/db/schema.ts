@@ -6,6 +6,7 @@ import type { ParameterSetCommentTable, ParameterSetTable, ParameterSetTransitio
 import type { JobTable } from '../jobs/job.table';
 import type { SimulationFramesTable } from '../features/simulations/simulation-frames.table';
 import type { NoticeTable } from '../features/notices/notices.table';
+import type { PairSetTable } from '../features/pair-sets/pair-sets.table';
 import type { MailboxMessageTable, MailOutboxTable } from '../features/mail/mail.table';
 import type { SubstanceFollowTable } from '../features/follows/follows.table';
 import type { ApiTokenTable } from '../features/tokens/tokens.table';
@@ -35,4 +36,5 @@ export interface Database {
   apiToken: ApiTokenTable;
   signInFailure: SignInFailureTable;
   notice: NoticeTable;
+  pairSet: PairSetTable;
 }

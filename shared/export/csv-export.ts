@@ -114,7 +114,7 @@ export function mixtureToCsv(sets: readonly ExportableParameterSet[], rule: Comb
     const a = sets[p.i];
     const b = sets[p.j];
     return [
-      p.i + 1, p.j + 1, a.id, a.version, b.id, b.version, a.substance.name, b.substance.name, p.kind, p.kind === 'pure' ? null : ruleName,
+      p.i + 1, p.j + 1, a.id, a.version, b.id, b.version, a.substance.name, b.substance.name, p.kind, p.kind === 'pure' ? null : p.fitted ? `pair set ${p.fitted.pairSetId} (k_ij = ${p.fitted.kij})` : ruleName,
       p.epsilonK, ...(eu ? [tidy(convertEpsilon(p.epsilonK, eu))] : []),
       p.sigmaAngstrom, ...(lu ? [tidy(convertSigma(p.sigmaAngstrom, lu))] : []),
       table.note, CAUTION_TEXT,

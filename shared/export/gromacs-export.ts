@@ -126,13 +126,18 @@ export function gromacsMixture(sets: readonly ExportableParameterSet[], rule: Co
     '',
     ...defaultsLines(),
   ];
-  const cross = table.pairs.filter((p) => p.kind === 'combining-rule-estimate');
+  const cross = table.pairs.filter((p) => p.kind !== 'pure');
   const lines = [
     ...commentBlock(';', header),
     ...ATOMTYPES_HEADER,
     ...sets.map(atomtypeLine),
     '',
-    ...commentBlock(';', [`Cross pairs: ${info.name} estimates, not fitted; they override the combination rule of [ defaults ].`]),
+    ...commentBlock(';', [
+      table.pairs.some((p) => p.kind === 'fitted-pair-set')
+        ? `Cross pairs: fitted pair sets where marked (k_ij from B12 data), otherwise ${info.name} estimates, not fitted; they override the combination rule of [ defaults ].`
+        : `Cross pairs: ${info.name} estimates, not fitted; they override the combination rule of [ defaults ].`,
+      ...cross.filter((p) => p.fitted).map((p) => `${gromacsTypeName(sets[p.i])}-${gromacsTypeName(sets[p.j])}: fitted pair set ${p.fitted!.pairSetId}, k_ij = ${engineNumber(p.fitted!.kij, 5)}`),
+    ]),
     '[ nonbond_params ]',
     '; i                 j                 func  sigma (nm)    epsilon (kJ/mol)',
     ...cross.map(

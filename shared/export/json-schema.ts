@@ -148,7 +148,7 @@ export const MIXTURE_JSON_SCHEMA: JsonSchema = {
         j: int('second component index (1-based), j ≥ i'),
         parameterSetIdI: int('parameter set of component i'),
         parameterSetIdJ: int('parameter set of component j'),
-        kind: { enum: ['pure', 'combining-rule-estimate'], description: 'pure pair from a fit, or a cross-pair estimate' },
+        kind: { enum: ['pure', 'combining-rule-estimate', 'fitted-pair-set'], description: 'pure pair from a fit, a cross-pair estimate, or a cross pair from an approved pair set (k_ij fitted to B12 data)' },
         ...energyFields('pair'),
         ...lengthFields('pair'),
       }),

@@ -117,7 +117,7 @@ export function lammpsMixture(sets: readonly ExportableParameterSet[], rule: Com
     `pair_style lj/cut ${engineNumber(rcMax)}`,
     ...table.pairs.map((p) => {
       const eps = convertEpsilon(p.epsilonK, ENERGY_UNIT[units]);
-      const what = p.kind === 'pure' ? `pure, set ${sets[p.i].id} v${sets[p.i].version}` : `${asciiText(info.name)} estimate, not fitted`;
+      const what = p.kind === 'pure' ? `pure, set ${sets[p.i].id} v${sets[p.i].version}` : p.fitted ? `fitted pair set ${p.fitted.pairSetId}, k_ij = ${engineNumber(p.fitted.kij, 5)}` : `${asciiText(info.name)} estimate, not fitted`;
       return `pair_coeff ${p.i + 1} ${p.j + 1} ${engineNumber(eps)} ${engineNumber(p.sigmaAngstrom)} ${engineNumber(cut.cutoffSigma * p.sigmaAngstrom)} # ${what}`;
     }),
     modifyLine(cut.scheme),
@@ -191,7 +191,7 @@ export function lammpsLjMixture(sets: readonly ExportableParameterSet[], rule: C
     ...sets.map((s, k) => `mass ${k + 1} ${engineNumber(s.substance.molarMassGPerMol / ref.substance.molarMassGPerMol, 12)}`),
     `pair_style lj/cut ${engineNumber(rcMax, 12)}`,
     ...table.pairs.map((p) => {
-      const what = p.kind === 'pure' ? `pure, set ${sets[p.i].id} v${sets[p.i].version}` : `${asciiText(info.name)} estimate, not fitted`;
+      const what = p.kind === 'pure' ? `pure, set ${sets[p.i].id} v${sets[p.i].version}` : p.fitted ? `fitted pair set ${p.fitted.pairSetId}, k_ij = ${engineNumber(p.fitted.kij, 5)}` : `${asciiText(info.name)} estimate, not fitted`;
       // Ratios to type 1 carry 12 digits so the reduced pair energies match the real-unit ones to rounding.
       return `pair_coeff ${p.i + 1} ${p.j + 1} ${engineNumber(e(p.epsilonK), 12)} ${engineNumber(l(p.sigmaAngstrom), 12)} ${engineNumber(cut.cutoffSigma * l(p.sigmaAngstrom), 12)} # ${what}`;
     }),

@@ -115,13 +115,30 @@ export function combine(rule: CombiningRule, a: LjParameters, b: LjParameters): 
   }
 }
 
-export type PairKind = 'pure' | 'combining-rule-estimate';
+export type PairKind = 'pure' | 'combining-rule-estimate' | 'fitted-pair-set';
+
+/**
+ * Cross parameters of an approved pair set (k_ij, optionally l_ij, fitted to B12 data with both pure sets fixed;
+ * shared/mixing/cross-virial.ts), keyed by the two parameter-set ids.
+ */
+export interface FittedPair extends LjParameters {
+  pairSetId: number;
+  setIdA: number;
+  setIdB: number;
+  kij: number;
+  kijStdErr: number | null;
+  lij: number | null;
+  epsilonStdErrK: number | null;
+  sigmaStdErrAngstrom: number | null;
+}
 
 export interface MixturePair extends LjParameters {
   /** Indices into the input list, i ≤ j. */
   i: number;
   j: number;
   kind: PairKind;
+  /** For kind 'fitted-pair-set': the pair set the values come from. */
+  fitted?: FittedPair;
 }
 
 export interface MixtureTable {
@@ -142,7 +159,14 @@ export function mixtureNote(rule: CombiningRule): string {
  * Every pair i ≤ j of the given species, in row order (1-1, 1-2, …, 1-n, 2-2, …). Pure pairs carry the
  * input values unchanged; cross pairs come from the rule.
  */
-export function mixtureTable(sets: readonly LjParameters[], rule: CombiningRule): MixtureTable {
+export function mixtureTable(
+  sets: readonly (LjParameters & { id?: number; fittedPairs?: readonly FittedPair[] })[],
+  rule: CombiningRule,
+  fittedPairs?: readonly FittedPair[],
+): MixtureTable {
+  // Approved pair sets reach every exporter on the sets themselves (catalog.service attaches them), so no export
+  // signature has to change; an explicit list wins.
+  const fitted = fittedPairs ?? sets.flatMap((s) => s.fittedPairs ?? []);
   if (!isCombiningRule(rule)) throw new RangeError(`unknown combining rule "${String(rule)}"; use one of ${COMBINING_RULES.join(', ')}`);
   if (sets.length < 1) throw new RangeError('a mixture needs at least one species');
   sets.forEach((s, k) => assertParameters(s, `species ${k + 1}`));
@@ -150,8 +174,18 @@ export function mixtureTable(sets: readonly LjParameters[], rule: CombiningRule)
   for (let i = 0; i < sets.length; i++) {
     for (let j = i; j < sets.length; j++) {
       if (i === j) pairs.push({ i, j, kind: 'pure', epsilonK: sets[i].epsilonK, sigmaAngstrom: sets[i].sigmaAngstrom });
-      else pairs.push({ i, j, kind: 'combining-rule-estimate', ...combine(rule, sets[i], sets[j]) });
+      else {
+        const f = fitted.find((p) => (p.setIdA === sets[i].id && p.setIdB === sets[j].id) || (p.setIdA === sets[j].id && p.setIdB === sets[i].id));
+        if (f) pairs.push({ i, j, kind: 'fitted-pair-set', epsilonK: f.epsilonK, sigmaAngstrom: f.sigmaAngstrom, fitted: f });
+        else pairs.push({ i, j, kind: 'combining-rule-estimate', ...combine(rule, sets[i], sets[j]) });
+      }
     }
   }
-  return { rule, pairs, note: mixtureNote(rule) };
+  const anyFitted = pairs.some((p) => p.kind === 'fitted-pair-set');
+  const note = anyFitted
+    ? `Cross pairs marked fitted come from approved pair sets: k_ij (and l_ij where fitted) in ε_ij = (1 − k_ij)√(ε_iε_j), σ_ij = (1 − l_ij)(σ_i + σ_j)/2 ` +
+      `fitted to measured cross second virial coefficients B12 with both pure sets fixed. Other cross pairs are ${COMBINING_RULE_INFO[rule].name} ` +
+      `combining-rule estimates (${COMBINING_RULE_INFO[rule].reference}), not fitted to mixture data.`
+    : mixtureNote(rule);
+  return { rule, pairs, note };
 }

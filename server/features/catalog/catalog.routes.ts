@@ -8,6 +8,7 @@ import { notFound } from '../../common/errors';
 import { idParams, validParams, validQuery } from '../../common/validate';
 import { cachedCatalogSearch, exportableSet, exportMixtureFile, exportSetFile, mixtureJson, parameterCard } from './catalog.service';
 import { openApiDocument } from './openapi';
+import { approvedPairsFor } from '../pair-sets/pair-sets.service';
 
 /** Published JSON Schemas of the export formats, by file name. */
 const SCHEMAS: Record<string, object> = {
@@ -53,6 +54,9 @@ export function catalogRoutes(ctx: AppContext): Router {
     const { sets: ids, rule, format, units } = validQuery(mixtureQuery, req);
     const sets = [];
     for (const id of ids) sets.push(await exportableSet(db, id, currentUser(res), 'sets'));
+    // Approved pair sets replace the combining rule for their pair; they travel on the sets to every exporter.
+    const fitted = await approvedPairsFor(db, ids);
+    for (const set of sets) Object.assign(set, { fittedPairs: fitted.filter((f) => f.setIdA === set.id || f.setIdB === set.id) });
     if (format) sendFile(res, exportMixtureFile(sets, rule, format, units));
     else res.json(mixtureJson(sets, rule));
   });

@@ -210,7 +210,21 @@ export function mixtureJson(sets: ExportableParameterSet[], rule: CombiningRule)
     formulas: info.formulas,
     reference: info.reference,
     components: sets.map((s, index) => ({ index, setId: s.id, version: s.version, state: s.state, substanceName: s.substance.name, scheme: s.scheme, cutoffSigma: s.cutoffSigma, epsilonK: s.epsilonK, sigmaAngstrom: s.sigmaAngstrom })),
-    pairs: table.pairs.map((p) => ({ i: p.i, j: p.j, setIdI: sets[p.i].id, setIdJ: sets[p.j].id, substanceI: sets[p.i].substance.name, substanceJ: sets[p.j].substance.name, epsilonK: p.epsilonK, sigmaAngstrom: p.sigmaAngstrom, kind: p.kind })),
+    pairs: table.pairs.map((p) => ({
+      i: p.i,
+      j: p.j,
+      setIdI: sets[p.i].id,
+      setIdJ: sets[p.j].id,
+      substanceI: sets[p.i].substance.name,
+      substanceJ: sets[p.j].substance.name,
+      epsilonK: p.epsilonK,
+      sigmaAngstrom: p.sigmaAngstrom,
+      kind: p.kind,
+      // Fitted pairs carry their pair set, k_ij (l_ij) and the standard errors of the cross parameters.
+      ...(p.fitted
+        ? { pairSetId: p.fitted.pairSetId, kij: p.fitted.kij, kijStdErr: p.fitted.kijStdErr, lij: p.fitted.lij, epsilonStdErrK: p.fitted.epsilonStdErrK, sigmaStdErrAngstrom: p.fitted.sigmaStdErrAngstrom }
+        : {}),
+    })),
     note: table.note,
     commonValidity: commonValidity(sets),
     cutoff: mixtureCutoff(sets),

@@ -1,0 +1,40 @@
+import { Router } from 'express';
+import { pairSetCreateBody, pairSetListQuery, pairSetReviewBody } from '../../../shared/schemas/pair-sets';
+import type { AppContext } from '../../app-context';
+import { currentUser, requirePolicy } from '../../common/auth-middleware';
+import { notFound } from '../../common/errors';
+import { idParams, validBody, validParams, validQuery } from '../../common/validate';
+import { createPairSet, listPairSets, pairSetView, reviewPairSet } from './pair-sets.service';
+
+/**
+ * Pair sets (fitted k_ij, l_ij of two approved sets): modellers fit and submit them, reviewers decide, everyone who
+ * reads parameter sets reads them.
+ */
+export function pairSetRoutes(ctx: AppContext): Router {
+  const router = Router();
+
+  router.get('/pair-sets', requirePolicy('parameterSet:read'), async (req, res) => {
+    const { state } = validQuery(pairSetListQuery, req);
+    res.json({ pairSets: await listPairSets(ctx.db, state) });
+  });
+
+  router.post('/pair-sets', requirePolicy('parameterSet:draft'), async (req, res) => {
+    const body = validBody(pairSetCreateBody, req);
+    res.status(201).json(await createPairSet(ctx.db, currentUser(res), body));
+  });
+
+  router.get('/pair-sets/:id', requirePolicy('parameterSet:read'), async (req, res) => {
+    const { id } = validParams(idParams, req);
+    const view = await pairSetView(ctx.db, id);
+    if (!view) throw notFound(`Pair set ${id}`);
+    res.json(view);
+  });
+
+  router.post('/pair-sets/:id/review', requirePolicy('parameterSet:review'), async (req, res) => {
+    const { id } = validParams(idParams, req);
+    const { decision, comment } = validBody(pairSetReviewBody, req);
+    res.json(await reviewPairSet(ctx.db, currentUser(res), id, decision, comment));
+  });
+
+  return router;
+}
