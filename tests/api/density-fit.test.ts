@@ -19,7 +19,7 @@ const simulationCount = async () => Number((await t.ctx.db.selectFrom('job').sel
 
 // Plumbing of the joint B2 + density fit with small, fast simulations; the physics of the simulation stage is
 // checked in shared/fitting/md-stage.test.ts and by `npm run -s bench:fit`.
-const SMALL = { atoms: 108, steps: 3000 };
+const SMALL = { atoms: 128, steps: 2000 };
 
 describe('a joint B2 + density fit through the API', () => {
   it('runs the equation-of-state stage, then simulations, and reuses every run on a second identical fit', async () => {
@@ -57,7 +57,7 @@ describe('a joint B2 + density fit through the API', () => {
     const frames = await t.ctx.db.selectFrom('simulationFrames').select(['jobId', 'frameCount']).execute();
     expect(frames.length).toBe(r.mdRunCount);
     for (const f of frames) expect(f.frameCount).toBeGreaterThan(10);
-    expect(r.mdSettings).toMatchObject({ atoms: 108, steps: 3000, cutoff: 2.5, scheme: 'truncated-tail' });
+    expect(r.mdSettings).toMatchObject({ atoms: 128, steps: 2000, cutoff: 2.5, scheme: 'truncated-tail' });
     // The invented truth behind the demo tables is 131.5 K and 3.524 Å (fixtures/demo/scenario.ts).
     expect(Math.abs(r.epsilonK - 131.5)).toBeLessThan(6);
     expect(Math.abs(r.sigmaAngstrom - 3.524)).toBeLessThan(0.08);
@@ -70,7 +70,7 @@ describe('a joint B2 + density fit through the API', () => {
     expect(again.mdRunsReused).toBe(again.mdRunCount);
     expect(again.epsilonK).toBe(r.epsilonK);
     expect(again.sigmaAngstrom).toBe(r.sigmaAngstrom);
-  });
+  }, 600_000);
 
   it('refuses engine settings out of range with 400 naming the field', async () => {
     const res = await modeller.post('/api/fits').send({ substanceId, datasets: [{ id: datasets[0].id }], options: { density: { atoms: 5, cutoff: 9 } } });
