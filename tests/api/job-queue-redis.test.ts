@@ -25,7 +25,10 @@ async function signedIn(url: string) {
   };
 }
 
-async function until<T>(what: string, read: () => Promise<T>, ok: (v: T) => boolean, timeoutMs: number): Promise<T> {
+// eslint-disable-next-line @typescript-eslint/no-explicit-any -- API answers, read loosely
+type Answer = any;
+
+async function until<T = Answer>(what: string, read: () => Promise<T>, ok: (v: T) => boolean, timeoutMs: number): Promise<T> {
   const end = Date.now() + timeoutMs;
   for (;;) {
     const v = await read();
@@ -78,10 +81,10 @@ describe('web process with WORKERS=0 and worker processes through Redis', () => 
       ids.push(res.body.id);
     }
     // Both workers busy, then one dies without warning.
-    const running = await until(
+    const running = await until<Answer[]>(
       'a run on each worker',
       async () => (await api('GET', '/simulations')).body.simulations.filter((s: { id: number; status: string }) => ids.includes(s.id) && s.status === 'running'),
-      (list: Array<{ ranOn: string }>) => new Set(list.map((s) => s.ranOn)).size === 2,
+      (list) => new Set(list.map((s) => s.ranOn)).size === 2,
       60_000,
     );
     const victim = running.find((s: { ranOn: string }) => s.ranOn === a.name)!;
@@ -94,7 +97,7 @@ describe('web process with WORKERS=0 and worker processes through Redis', () => 
     const submitted = Date.now();
     const fit = await api('POST', '/fits', { substanceId, datasets: [{ id: b2.id }] });
     expect(fit.status).toBe(202);
-    const fitDone = await until('the B2 fit', async () => (await api('GET', `/fits/${fit.body.id}`)).body, (f: { status: string }) => !['queued', 'running'].includes(f.status), 30_000);
+    const fitDone = await until<Answer>('the B2 fit', async () => (await api('GET', `/fits/${fit.body.id}`)).body, (f) => !['queued', 'running'].includes(f.status), 30_000);
     expect(fitDone.status, fitDone.error ?? '').toBe('succeeded');
     const fitSeconds = (Date.now() - submitted) / 1000;
     const stillRunning = (await api('GET', '/simulations')).body.simulations.filter((s: { id: number; status: string }) => ids.includes(s.id) && s.status !== 'succeeded');
@@ -102,10 +105,10 @@ describe('web process with WORKERS=0 and worker processes through Redis', () => 
     // The invented truth behind the demo B2 table is ε/k_B = 131.5 K (fixtures/demo/scenario.ts); B2 alone pins it to a few %.
     expect(Math.abs(fitDone.result.epsilonK - 131.5)).toBeLessThan(10);
 
-    const all = await until(
+    const all = await until<Answer[]>(
       'all four runs',
       async () => (await api('GET', '/simulations')).body.simulations.filter((s: { id: number }) => ids.includes(s.id)),
-      (list: Array<{ status: string }>) => list.every((s) => !['queued', 'running'].includes(s.status)),
+      (list) => list.every((s) => !['queued', 'running'].includes(s.status)),
       150_000,
     );
     for (const s of all) expect(s.status, `simulation ${s.id}: ${s.error}`).toBe('succeeded');
@@ -130,10 +133,10 @@ describe('web process with WORKERS=0 and worker processes through Redis', () => 
     await redis.kill();
     await redis.restart();
     workers.push(await startWorkerProcess(redis.url, { WORKERS: '1', QUEUE_LOCK_MS: LOCK_MS }));
-    const all = await until(
+    const all = await until<Answer[]>(
       'both queued runs after the restart',
       async () => (await api('GET', '/simulations')).body.simulations.filter((s: { id: number }) => ids.includes(s.id)),
-      (list: Array<{ status: string }>) => list.every((s) => !['queued', 'running'].includes(s.status)),
+      (list) => list.every((s) => !['queued', 'running'].includes(s.status)),
       90_000,
     );
     for (const s of all) {
