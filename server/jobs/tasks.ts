@@ -3,7 +3,8 @@
  * separately tested code in shared/: a payload in, a JSON-able result out, progress through a callback.
  * Nothing here opens the database: worker processes (`npm run worker`) load this file and the shared code only.
  */
-import { fitLennardJones, type FitDataset, type LjFitOptions } from '../../shared/fitting/lj-fit';
+import { type FitDataset } from '../../shared/fitting/lj-fit';
+import { gasPhaseFit, type GasFitOptions } from '../../shared/fitting/gas-fit';
 import { runNpt, type NptOptions } from '../../shared/physics/md/npt';
 
 export type ProgressReport = { fraction: number; stage: string };
@@ -11,11 +12,11 @@ export type Task = (payload: any, progress: (p: ProgressReport) => void) => unkn
 
 export interface FitTaskPayload {
   datasets: FitDataset[];
-  options: LjFitOptions;
+  options: GasFitOptions;
 }
 
 export const TASKS: Record<string, Task> = {
-  fit: (payload: FitTaskPayload, progress) => fitLennardJones(payload.datasets, payload.options, progress),
+  fit: (payload: FitTaskPayload, progress) => gasPhaseFit(payload.datasets, payload.options, progress),
   simulation: (payload: NptOptions, progress) => runNpt(payload, progress),
 };
 
@@ -32,5 +33,5 @@ export const laneOf = (task: string): Lane => TASK_LANES[task] ?? 'simulation';
  * integrator, more fields in the result): cached results of the old version are no longer reused, and a worker
  * process running other code refuses the job with a clear message instead of computing something else.
  */
-export const ENGINE_VERSIONS: Record<string, string> = { fit: 'lj-fit-1', simulation: 'npt-2' };
+export const ENGINE_VERSIONS: Record<string, string> = { fit: 'lj-fit-2', simulation: 'npt-2' };
 export const engineVersionOf = (task: string): string => ENGINE_VERSIONS[task] ?? 'unversioned';

@@ -72,7 +72,7 @@ export function parameterSetsToCsv(sets: readonly ExportableParameterSet[], opti
   const lu = options.lengthUnit && options.lengthUnit !== 'Å' ? options.lengthUnit : null;
   const header = [
     'parameter_set_id', 'version', 'state', 'approved_at', 'approved_by',
-    'substance_id', 'substance', 'formula', 'molar_mass_g_per_mol', 'model',
+    'substance_id', 'substance', 'formula', 'molar_mass_g_per_mol', 'model', 'repulsive_exponent',
     'epsilon_over_kB_K', 'epsilon_stderr_K',
     ...(eu ? [`epsilon_${ENERGY_SUFFIX[eu]}`, `epsilon_stderr_${ENERGY_SUFFIX[eu]}`] : []),
     'sigma_Angstrom', 'sigma_stderr_Angstrom',
@@ -85,7 +85,7 @@ export function parameterSetsToCsv(sets: readonly ExportableParameterSet[], opti
     const uSig = s.stdErr.sigmaAngstrom;
     return [
       s.id, s.version, s.state, s.approvedAt, s.approvedBy,
-      s.substance.id, s.substance.name, s.substance.formula ?? null, s.substance.molarMassGPerMol, s.model,
+      s.substance.id, s.substance.name, s.substance.formula ?? null, s.substance.molarMassGPerMol, s.model, s.repulsiveExponent ?? 12,
       s.epsilonK, uEps,
       ...(eu ? [tidy(convertEpsilon(s.epsilonK, eu)), uEps == null ? null : tidy(convertEpsilon(uEps, eu))] : []),
       s.sigmaAngstrom, uSig,

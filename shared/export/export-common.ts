@@ -26,7 +26,20 @@ export const SCHEME_DESCRIPTION: Record<ExportScheme, string> = {
   'truncated-shifted': 'truncated at rc and shifted to zero at rc, no tail corrections',
 };
 
-export type ExportErrorCode = 'invalid-set' | 'unknown-format' | 'too-few-sets' | 'duplicate-set' | 'unknown-rule' | 'unknown-unit';
+export type ExportErrorCode = 'invalid-set' | 'unknown-format' | 'too-few-sets' | 'duplicate-set' | 'unknown-rule' | 'unknown-unit' | 'unsupported-potential';
+
+/** True for a Mie λr-6 set (λr ≠ 12). */
+export function isMie(set: Pick<ExportableParameterSet, 'repulsiveExponent'>): boolean {
+  return set.repulsiveExponent !== undefined && set.repulsiveExponent !== 12;
+}
+
+/** "Lennard-Jones 12-6" or "Mie 16-6 (u = C eps [(sigma/r)^16 - (sigma/r)^6], C = …)". */
+export function potentialText(set: Pick<ExportableParameterSet, 'repulsiveExponent'>): string {
+  if (!isMie(set)) return 'Lennard-Jones 12-6';
+  const n = set.repulsiveExponent as number;
+  const c = (n / (n - 6)) * Math.pow(n / 6, 6 / (n - 6));
+  return `Mie ${engineNumber(n, 6)}-6 (u = C epsilon [(sigma/r)^${engineNumber(n, 6)} - (sigma/r)^6], C = ${engineNumber(c, 8)})`;
+}
 
 /** Thrown for input the exporters refuse; `code` lets the server map it to a 400 answer. */
 export class ExportError extends Error {
@@ -50,7 +63,10 @@ export function assertExportable(set: ExportableParameterSet): void {
   if (!set || typeof set !== 'object') fail('missing');
   if (!Number.isInteger(set.id) || set.id <= 0) fail('id must be a positive integer');
   if (!Number.isInteger(set.version) || set.version <= 0) fail('version must be a positive integer');
-  if (set.model !== 'lj-12-6') fail(`model must be "lj-12-6" (got "${String(set.model)}")`);
+  if (set.model !== 'lj-12-6' && set.model !== 'mie') fail(`model must be "lj-12-6" or "mie" (got "${String(set.model)}")`);
+  const n = set.repulsiveExponent ?? 12;
+  if (typeof n !== 'number' || !(n >= 8 && n <= 36)) fail(`repulsiveExponent must be a number from 8 to 36 (got ${String(set.repulsiveExponent)})`);
+  if ((set.model === 'mie') !== (n !== 12)) fail(`model "${set.model}" does not match repulsiveExponent ${n} (LJ 12-6 exactly when it is 12)`);
   if (!positiveFinite(set.epsilonK)) fail('epsilonK must be a finite number above 0');
   if (!positiveFinite(set.sigmaAngstrom)) fail('sigmaAngstrom must be a finite number above 0');
   if (!set.substance || typeof set.substance.name !== 'string') fail('substance name is missing');
@@ -216,7 +232,7 @@ export function parameterText(set: ExportableParameterSet): string {
  */
 export function setHeaderLines(set: ExportableParameterSet): string[] {
   const lines = [
-    `Epsigma parameter set ${set.id} v${set.version}: ${substanceLabel(set)}, Lennard-Jones 12-6`,
+    `Epsigma parameter set ${set.id} v${set.version}: ${substanceLabel(set)}, ${potentialText(set)}`,
     `Status: ${approvalText(set)}`,
     `Fit ${set.fitId}; ${parameterText(set)}`,
     `Valid for: ${validityText(validityOf(set))}`,

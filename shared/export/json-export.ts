@@ -8,7 +8,7 @@
 import type { ExportableParameterSet } from './parameter-set-export';
 import { COMBINING_RULE_INFO, mixtureTable, type CombiningRule, type PairKind } from '../mixing/combining-rules';
 import { convertEpsilon, convertSigma } from '../physics/parameter-units';
-import { CAUTION_TEXT, SCHEME_DESCRIPTION, tidy, commonValidity, mixtureCutoff, validityOf, type ExportScheme, type ValidityRange } from './export-common';
+import { CAUTION_TEXT, SCHEME_DESCRIPTION, tidy, commonValidity, isMie, mixtureCutoff, potentialText, validityOf, type ExportScheme, type ValidityRange } from './export-common';
 
 export const PARAMETER_SET_FORMAT_ID = 'epsigma.parameter-set/1';
 export const MIXTURE_FORMAT_ID = 'epsigma.mixture/1';
@@ -30,7 +30,9 @@ export interface ParameterSetDocument {
   format: typeof PARAMETER_SET_FORMAT_ID;
   parameterSet: { id: number; version: number; state: string; approvedAt: string | null; approvedBy: string | null };
   substance: { id: number; name: string; formula: string | null; molarMassGPerMol: number };
-  model: 'lj-12-6';
+  model: 'lj-12-6' | 'mie';
+  /** λr: 12 for LJ 12-6. */
+  repulsiveExponent: number;
   potentialForm: string;
   parameters: EnergyInAllUnits & LengthInAllUnits;
   uncertainties: {
@@ -73,8 +75,9 @@ export function parameterSetDocument(set: ExportableParameterSet): ParameterSetD
     format: PARAMETER_SET_FORMAT_ID,
     parameterSet: { id: set.id, version: set.version, state: set.state, approvedAt: set.approvedAt, approvedBy: set.approvedBy },
     substance: { id: set.substance.id, name: set.substance.name, formula: set.substance.formula ?? null, molarMassGPerMol: set.substance.molarMassGPerMol },
-    model: 'lj-12-6',
-    potentialForm: LJ_POTENTIAL_FORM,
+    model: isMie(set) ? 'mie' : 'lj-12-6',
+    repulsiveExponent: set.repulsiveExponent ?? 12,
+    potentialForm: isMie(set) ? potentialText(set) : LJ_POTENTIAL_FORM,
     parameters: { ...energyInAllUnits(set.epsilonK), ...lengthInAllUnits(set.sigmaAngstrom) },
     uncertainties: {
       kind: 'standard-error',

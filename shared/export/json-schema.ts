@@ -68,7 +68,8 @@ export const PARAMETER_SET_JSON_SCHEMA: JsonSchema = {
       formula: strOrNull('chemical formula, if known'),
       molarMassGPerMol: num('molar mass, g/mol', { minimum: 0 }),
     }),
-    model: { const: 'lj-12-6', description: 'potential model' },
+    model: { enum: ['lj-12-6', 'mie'], description: 'potential model: LJ 12-6 or Mie λr-6' },
+    repulsiveExponent: num('repulsive exponent λr of the potential (12 for LJ 12-6)', { minimum: 8, maximum: 36 }),
     potentialForm: str('the potential the parameters belong to'),
     parameters: closed({ ...energyFields('fitted'), ...lengthFields('fitted') }),
     uncertainties: closed({

@@ -23,6 +23,7 @@ import {
   commentBlock,
   commonValidity,
   engineNumber,
+  isMie,
   mixtureCutoff,
   setHeaderLines,
   substanceLabel,
@@ -81,8 +82,9 @@ export function lammpsParameterSet(set: ExportableParameterSet, units: LammpsUni
       ...schemeCommentLines(set.scheme, cutoffSigma),
     ]),
     `mass 1 ${engineNumber(set.substance.molarMassGPerMol)}`,
-    `pair_style lj/cut ${engineNumber(rcAngstrom)}`,
-    `pair_coeff 1 1 ${engineNumber(eps)} ${engineNumber(set.sigmaAngstrom)}`,
+    // A Mie set uses LAMMPS's own Mie form (https://docs.lammps.org/pair_mie.html: pair_coeff i j ε σ γrep γatt).
+    isMie(set) ? `pair_style mie/cut ${engineNumber(rcAngstrom)}` : `pair_style lj/cut ${engineNumber(rcAngstrom)}`,
+    `pair_coeff 1 1 ${engineNumber(eps)} ${engineNumber(set.sigmaAngstrom)}${isMie(set) ? ` ${engineNumber(set.repulsiveExponent as number)} 6` : ''}`,
     modifyLine(set.scheme),
   ];
   return lines.join('\n') + '\n';
@@ -155,8 +157,8 @@ export function lammpsLjParameterSet(set: ExportableParameterSet): string {
   const lines = [
     ...commentBlock('#', [...setHeaderLines(set), '', ...ljScaleLines(set), `In these units epsilon = 1, sigma = 1, mass = 1, rc = ${engineNumber(cutoffSigma, 6)} (sigma).`, ...schemeCommentLines(set.scheme, cutoffSigma)]),
     'mass 1 1.0',
-    `pair_style lj/cut ${engineNumber(cutoffSigma, 8)}`,
-    'pair_coeff 1 1 1.0 1.0',
+    isMie(set) ? `pair_style mie/cut ${engineNumber(cutoffSigma, 8)}` : `pair_style lj/cut ${engineNumber(cutoffSigma, 8)}`,
+    isMie(set) ? `pair_coeff 1 1 1.0 1.0 ${engineNumber(set.repulsiveExponent as number)} 6` : 'pair_coeff 1 1 1.0 1.0',
     modifyLine(set.scheme),
   ];
   return lines.join('\n') + '\n';

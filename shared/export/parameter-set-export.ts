@@ -9,13 +9,16 @@ import { parameterSetJsonText, mixtureJsonText } from './json-export';
 import { parameterSetsToCsv, mixtureToCsv } from './csv-export';
 import { lammpsLjMixture, lammpsLjParameterSet, lammpsParameterSet, lammpsMixture } from './lammps-export';
 import { gromacsParameterSet, gromacsMixture } from './gromacs-export';
-import { assertExportable, fileBaseName, mixtureFileBaseName, ExportError } from './export-common';
+import { assertExportable, fileBaseName, isMie, mixtureFileBaseName, ExportError } from './export-common';
 
 export interface ExportableParameterSet {
   id: number;
   version: number;
   substance: { id: number; name: string; formula?: string | null; molarMassGPerMol: number };
-  model: 'lj-12-6';
+  /** 'mie' for a Mie λr-6 set (with repulsiveExponent); 'lj-12-6' otherwise. */
+  model: 'lj-12-6' | 'mie';
+  /** λr of a Mie set (absent or 12: LJ 12-6). */
+  repulsiveExponent?: number;
   epsilonK: number;
   sigmaAngstrom: number;
   stdErr: { epsilonK: number | null; sigmaAngstrom: number | null };
@@ -106,6 +109,12 @@ function checkFormat(format: unknown): asserts format is ExportFormat {
 export function exportParameterSet(set: ExportableParameterSet, format: ExportFormat, options: ExportOptions = {}): ExportResult {
   checkFormat(format);
   assertExportable(set);
+  if (isMie(set) && format === 'gromacs') {
+    throw new ExportError(
+      'unsupported-potential',
+      `GROMACS has no Mie ${set.repulsiveExponent}-6 pair function (its non-bonded types are LJ 12-6 and Buckingham), and a tabulated potential needs table files and settings outside a topology fragment, so this set is not exported for GROMACS; use lammps-real, lammps-metal or lammps-lj (pair_style mie/cut), json or csv`,
+    );
+  }
   const filename = fileBaseName(set) + EXTENSION[format];
   let body: string;
   switch (format) {
@@ -136,6 +145,8 @@ export function exportMixture(sets: readonly ExportableParameterSet[], rule: Com
   checkFormat(format);
   if (!isCombiningRule(rule)) throw new ExportError('unknown-rule', `unknown combining rule "${String(rule)}"; use one of ${COMBINING_RULES.join(', ')}`);
   if (!Array.isArray(sets) || sets.length < 2) throw new ExportError('too-few-sets', 'a mixture needs at least two parameter sets');
+  const mie = sets.find(isMie);
+  if (mie) throw new ExportError('unsupported-potential', `parameter set ${mie.id} is a Mie ${mie.repulsiveExponent}-6 set; mixtures are built from LJ 12-6 sets only (the combining rules here are for 12-6 parameters)`);
   const ids = new Set<number>();
   for (const s of sets) {
     assertExportable(s);

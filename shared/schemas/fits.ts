@@ -44,10 +44,30 @@ export const createFitBody = z.object({
       bounds: z.object({ epsilonK: range('epsilonK', 0.1, 20000), sigmaAngstrom: range('sigmaAngstrom', 0.5, 30) }).optional(),
       restarts: z.number().int().min(0).max(10).optional(),
       maxIterations: z.number().int().min(5).max(2000).optional(),
+      /** 'lj-12-6' (default) or 'mie': a Mie λr-6 potential with repulsiveExponent held or fitRepulsiveExponent. */
+      model: z.enum(['lj-12-6', 'mie']).optional(),
+      /** λr of the Mie potential, held (8–36). */
+      repulsiveExponent: z.number().min(8, 'the repulsive exponent λr is at least 8').max(36, 'the repulsive exponent λr is at most 36').optional(),
+      /** Fit λr as a third parameter (by profiling χ² over 8–36). */
+      fitRepulsiveExponent: z.boolean().optional(),
+      /** Sample the Bayesian posterior of (ε, σ) after the fit (ensemble sampler, fixed seed). */
+      posterior: z
+        .object({
+          samples: z.number().int().min(100, 'at least 100 steps per walker').max(20000, 'at most 20000 steps per walker').optional(),
+          seed: z.number().int().min(0).max(2 ** 32 - 1).optional(),
+        })
+        .strict()
+        .optional(),
       /** Engine settings of the simulation stage of a fit with density data (reduced units). */
       density: mdSettingsSchema.strict().superRefine(withinWorkLimit).optional(),
     })
     .strict()
+    .superRefine((o, ctx) => {
+      const mie = o.model === 'mie';
+      if (!mie && (o.repulsiveExponent !== undefined || o.fitRepulsiveExponent)) ctx.addIssue({ code: 'custom', path: ['model'], message: 'a repulsive exponent needs model "mie"' });
+      if (mie && (o.repulsiveExponent === undefined) === !o.fitRepulsiveExponent) ctx.addIssue({ code: 'custom', path: ['repulsiveExponent'], message: 'a Mie fit needs either repulsiveExponent (held) or fitRepulsiveExponent: true, not both' });
+      if (mie && o.density) ctx.addIssue({ code: 'custom', path: ['model'], message: 'the simulation stage of density fits is for LJ 12-6 only in this version' });
+    })
     .optional(),
 });
 export type CreateFitBody = z.infer<typeof createFitBody>;

@@ -9,7 +9,7 @@ function catalogQuery(db: Db | Tx) {
     .innerJoin('substance', 'substance.id', 'ps.substanceId')
     .select([
       'ps.id', 'ps.substanceId', 'substance.name as substanceName', 'substance.formula', 'substance.molarMassGramsPerMol', 'ps.scheme', 'ps.cutoffSigma', 'ps.version',
-      'ps.fitId', 'ps.model', 'ps.epsilonK', 'ps.sigmaAngstrom', 'ps.epsilonStdErrK', 'ps.sigmaStdErrAngstrom', 'ps.correlation', 'ps.datasetsJson',
+      'ps.fitId', 'ps.model', 'ps.potential', 'ps.repulsiveExponent', 'ps.epsilonK', 'ps.sigmaAngstrom', 'ps.epsilonStdErrK', 'ps.sigmaStdErrAngstrom', 'ps.correlation', 'ps.datasetsJson',
       'ps.temperatureMinK', 'ps.temperatureMaxK', 'ps.pressureMinMpa', 'ps.pressureMaxMpa', 'ps.state', 'ps.createdAt',
     ])
     // The newest approve move (a set is approved once; max keeps the query safe if that ever changes).

@@ -4,6 +4,7 @@ import { exportMixture, exportOptionsFromQuery, exportParameterSet, type Exporta
 import { isVisibleTo, PUBLISHED_STATES, STATE_LABELS, type ParameterSetState } from '../../../shared/parameter-sets/transitions';
 import type { PropertyKind } from '../../../shared/measurements/property-kinds';
 import { CUTOFF_SCHEME_LABELS } from '../../../shared/schemas/parameter-sets';
+import { potentialLabel } from '../../../shared/physics/mie-potential';
 import type { CatalogQuery } from '../../../shared/schemas/catalog';
 import type { CurrentUser } from '../../common/auth-middleware';
 import { AppError, notFound } from '../../common/errors';
@@ -34,6 +35,10 @@ function toCatalogEntry(row: CatalogRow, approval: { at: string; actorName: stri
     schemeLabel: CUTOFF_SCHEME_LABELS[row.scheme],
     cutoffSigma: row.cutoffSigma,
     model: row.model,
+    /** 'lj-12-6' or 'mie', its λr and the label people read ("Mie 16-6"). */
+    potential: row.potential,
+    repulsiveExponent: row.repulsiveExponent,
+    potentialLabel: potentialLabel(row.repulsiveExponent),
     epsilonK: row.epsilonK,
     sigmaAngstrom: row.sigmaAngstrom,
     stdErr: { epsilonK: row.epsilonStdErrK, sigmaAngstrom: row.sigmaStdErrAngstrom },
@@ -166,7 +171,8 @@ export async function exportableSet(db: Db, id: number, viewer: CurrentUser, fie
     id: row.id,
     version: row.version,
     substance: { id: row.substanceId, name: row.substanceName, formula: row.formula, molarMassGPerMol: row.molarMassGramsPerMol },
-    model: row.model,
+    model: row.potential,
+    repulsiveExponent: row.repulsiveExponent,
     epsilonK: row.epsilonK,
     sigmaAngstrom: row.sigmaAngstrom,
     stdErr: { epsilonK: row.epsilonStdErrK, sigmaAngstrom: row.sigmaStdErrAngstrom },

@@ -1,5 +1,5 @@
 import type { FitDataset, LjFitOptions } from '../../../shared/fitting/lj-fit';
-import { isFitKind } from '../../../shared/fitting/property-models';
+import { isFitKind, PROPERTY_MODELS, type PropertyModel } from '../../../shared/fitting/property-models';
 import type { CreateFitBody } from '../../../shared/schemas/fits';
 import { PROPERTY_KINDS, type PropertyKind } from '../../../shared/measurements/property-kinds';
 import type { AppContext } from '../../app-context';
@@ -109,6 +109,14 @@ export async function createFit(ctx: AppContext, actor: CurrentUser, body: Creat
     throw new AppError(422, 'too_few_points', `Leaving out these rows leaves ${left} point(s) for ${free} free parameter(s); the fit needs at least ${Math.max(free, 2)}.`, [{ field: 'datasets', message: 'too few rows left in the fit' }]);
   }
   const { density, ...fitOptions } = body.options ?? {};
+  if (fitOptions.model === 'mie') {
+    // Only kinds with a Mie model (B2 today) can be fitted with a Mie potential; say which set is not.
+    refs.forEach((ref, i) => {
+      if (isFitKind(ref.kind) && !(PROPERTY_MODELS[ref.kind] as PropertyModel).supportsMie) {
+        throw new AppError(422, 'kind_not_mie', `Measurement set "${ref.name}" holds ${PROPERTY_KINDS[ref.kind].label}, which has no Mie λr-6 model yet; a Mie fit takes B2 data.`, [{ field: `datasets.${i}.id`, message: `no Mie model for ${ref.kind}` }]);
+      }
+    });
+  }
   const options: LjFitOptions = { ...fitOptions, ...(body.fixed && Object.keys(body.fixed).length ? { fixed: body.fixed } : {}), molarMassGPerMol: substance.molarMassGramsPerMol };
   const hasDensity = refs.some((r) => r.kind === 'density');
   const input: FitJobInput = { datasets: refs, options, ...(hasDensity ? { density: { ...DENSITY_FIT_DEFAULTS, ...density } } : {}), createdBy: actor.id };
@@ -119,7 +127,7 @@ export async function createFit(ctx: AppContext, actor: CurrentUser, body: Creat
     const job = await ctx.jobs.enqueue({ kind: 'fit', input, seed: 0, createdBy: actor.id }, tx);
     const fit = await tx
       .insertInto('fit')
-      .values({ substanceId: substance.id, number, jobId: job.id, model: 'lj-12-6', datasetsJson: JSON.stringify(refs), optionsJson: JSON.stringify({ ...options, ...(input.density ? { density: input.density } : {}) }), codeVersion: ctx.codeVersion, createdBy: actor.id, createdAt: now })
+      .values({ substanceId: substance.id, number, jobId: job.id, model: fitOptions.model ?? 'lj-12-6', datasetsJson: JSON.stringify(refs), optionsJson: JSON.stringify({ ...options, ...(input.density ? { density: input.density } : {}) }), codeVersion: ctx.codeVersion, createdBy: actor.id, createdAt: now })
       .returning('id')
       .executeTakeFirstOrThrow();
     await recordAudit(tx, { actor, action: 'fit.started', targetType: 'fit', targetId: fit.id, summary: `${actor.email} started Fit #${number} of ${substance.name} on ${refs.map((r) => `${r.name} v${r.version}${r.excludeRows ? ` without row${r.excludeRows.length > 1 ? 's' : ''} ${r.excludeRows.join(', ')}` : ''}`).join(', ')}${heldSummary(options.fixed)}`, after: { datasets: refs, options } });

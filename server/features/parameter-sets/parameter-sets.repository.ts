@@ -14,6 +14,8 @@ const SET_COLUMNS = [
   'fit.createdBy as fitCreatedBy',
   'parameterSet.revisionOf',
   'parameterSet.model',
+  'parameterSet.potential',
+  'parameterSet.repulsiveExponent',
   'parameterSet.epsilonK',
   'parameterSet.sigmaAngstrom',
   'parameterSet.epsilonStdErrK',
@@ -75,10 +77,12 @@ export async function nextVersion(tx: Tx, substanceId: number, scheme: CutoffSch
 }
 
 /** Approved sets of one substance and scheme (normally one), newest first. */
-export async function approvedOf(db: Db | Tx, substanceId: number, scheme: CutoffScheme) {
+/** Approved sets of a substance and scheme; with `potential`, of that potential only (a Mie set never supersedes a 12-6 one). */
+export async function approvedOf(db: Db | Tx, substanceId: number, scheme: CutoffScheme, potential?: 'lj-12-6' | 'mie') {
   return baseQuery(db)
     .where('parameterSet.substanceId', '=', substanceId)
     .where('parameterSet.scheme', '=', scheme)
+    .$if(potential !== undefined, (q) => q.where('parameterSet.potential', '=', potential!))
     .where('parameterSet.state', '=', 'approved')
     .orderBy('parameterSet.version', 'desc')
     .execute();

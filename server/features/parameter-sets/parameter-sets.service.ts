@@ -12,6 +12,7 @@ import {
   type Validity,
 } from '../../../shared/schemas/parameter-sets';
 import type { LjFitResult } from '../../../shared/fitting/lj-fit';
+import { potentialLabel } from '../../../shared/physics/mie-potential';
 import type { AppContext } from '../../app-context';
 import type { CurrentUser } from '../../common/auth-middleware';
 import { AppError, notFound } from '../../common/errors';
@@ -35,9 +36,10 @@ const AUDIT_ACTION: Record<Move, string> = {
   edit: 'edited',
 };
 
-export function setLabel(row: { substanceName: string; version: number; scheme: CutoffScheme; cutoffSigma: number | null }): string {
+export function setLabel(row: { substanceName: string; version: number; scheme: CutoffScheme; cutoffSigma: number | null; repulsiveExponent?: number }): string {
   const cutoff = row.cutoffSigma === null ? '' : `, r_c = ${row.cutoffSigma} σ`;
-  return `${row.substanceName} v${row.version} (${CUTOFF_SCHEME_LABELS[row.scheme]}${cutoff})`;
+  const potential = row.repulsiveExponent !== undefined && row.repulsiveExponent !== 12 ? `, ${potentialLabel(row.repulsiveExponent)}` : '';
+  return `${row.substanceName} v${row.version} (${CUTOFF_SCHEME_LABELS[row.scheme]}${cutoff}${potential})`;
 }
 
 /** A parameter set as every list shows it. */
@@ -51,6 +53,10 @@ export function toParameterSetSummary(row: ParameterSetRow) {
     scheme: row.scheme,
     cutoffSigma: row.cutoffSigma,
     model: row.model,
+    /** 'lj-12-6' or 'mie', with λr (12 for LJ 12-6) and the label people read ("Mie 16-6"). */
+    potential: row.potential,
+    repulsiveExponent: row.repulsiveExponent,
+    potentialLabel: potentialLabel(row.repulsiveExponent),
     state: row.state,
     stateLabel: STATE_LABELS[row.state],
     epsilonK: row.epsilonK,
@@ -77,7 +83,7 @@ export function toParameterSetSummary(row: ParameterSetRow) {
 const moveActor = (user: CurrentUser): MoveActor => ({ id: user.id, roles: user.roles });
 
 async function subjectOf(db: Db | Tx, row: ParameterSetRow): Promise<MoveSubject> {
-  const approved = await approvedOf(db, row.substanceId, row.scheme);
+  const approved = await approvedOf(db, row.substanceId, row.scheme, row.potential);
   return {
     state: row.state,
     version: row.version,
@@ -131,7 +137,7 @@ async function usableFit(db: Db | Tx, fitId: number, field = 'fitId') {
   if (fit.status !== 'succeeded' || !fit.result || fit.result.status !== 'succeeded') {
     throw new AppError(409, 'fit_not_succeeded', `Fit #${fit.number} of ${fit.substanceName} is ${fit.status}; only a succeeded fit can back a parameter set.`, [{ field, message: `fit is ${fit.status}` }]);
   }
-  if (fit.model !== 'lj-12-6') throw new AppError(409, 'unsupported_model', `Fit #${fit.number} used model ${fit.model}; parameter sets hold LJ 12-6 parameters.`);
+  if (fit.model !== 'lj-12-6' && fit.model !== 'mie') throw new AppError(409, 'unsupported_model', `Fit #${fit.number} used model ${fit.model}; parameter sets hold LJ 12-6 or Mie λr-6 parameters.`);
   return { fit, result: fit.result as LjFitResult };
 }
 
@@ -171,6 +177,8 @@ async function insertSet(
       fitId: fit.id,
       revisionOf: input.revisionOf?.id ?? null,
       model: 'lj-12-6',
+      potential: result.model === 'mie' ? 'mie' : 'lj-12-6',
+      repulsiveExponent: result.repulsiveExponent ?? 12,
       epsilonK: result.epsilonK,
       sigmaAngstrom: result.sigmaAngstrom,
       epsilonStdErrK: result.stdErr.epsilonK,
@@ -317,7 +325,7 @@ export async function reviewParameterSet(ctx: AppContext, actor: CurrentUser, id
       return;
     }
     const superseded: string[] = [];
-    for (const older of await approvedOf(tx, row.substanceId, row.scheme)) {
+    for (const older of await approvedOf(tx, row.substanceId, row.scheme, row.potential)) {
       if (older.id === row.id) continue;
       await applyMove(tx, older, 'supersede', null, `Superseded by v${row.version}`, { summary: `${setLabel(older)} superseded by v${row.version}, approved by ${actor.email}` });
       superseded.push(`v${older.version}`);
@@ -410,7 +418,7 @@ export async function addComment(ctx: AppContext, actor: CurrentUser, id: number
 /** GET /api/parameter-sets/:id: the set, its history and comments, its fit and data, the approved version it would replace. */
 export async function getParameterSetDetail(db: Db, id: number, viewer: CurrentUser) {
   const row = await requireVisibleSet(db, id, viewer);
-  const [history, comments, approved, fitRow, subject] = await Promise.all([historyOf(db, id), commentsOf(db, id), approvedOf(db, row.substanceId, row.scheme), findFit(db, row.fitId), subjectOf(db, row)]);
+  const [history, comments, approved, fitRow, subject] = await Promise.all([historyOf(db, id), commentsOf(db, id), approvedOf(db, row.substanceId, row.scheme, row.potential), findFit(db, row.fitId), subjectOf(db, row)]);
   const fit = toFitView(fitRow!);
   const result = fit.result as LjFitResult | null;
   const refs = JSON.parse(row.datasetsJson) as FitDatasetRef[];

@@ -13,6 +13,10 @@ export interface ParameterSetTable {
   fitId: number;
   revisionOf: number | null;
   model: 'lj-12-6';
+  /** The pair potential: 'lj-12-6' or 'mie' (Mie λr-6, with repulsiveExponent). */
+  potential: Generated<'lj-12-6' | 'mie'>;
+  /** λr: 12 for LJ 12-6. */
+  repulsiveExponent: Generated<number>;
   epsilonK: number;
   sigmaAngstrom: number;
   epsilonStdErrK: number | null;

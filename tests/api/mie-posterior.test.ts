@@ -1,0 +1,80 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { b2WithGradient } from '../../shared/physics/virial';
+import { newSubstance } from './approved-set';
+import { EMAIL, startTestApp, type TestApp } from './test-app';
+
+type Agent = Awaited<ReturnType<TestApp['signIn']>>;
+let t: TestApp;
+let modeller: Agent;
+let reviewer: Agent;
+let consumer: Agent;
+let substanceId: number;
+let b2Id: number;
+
+// Synthetic B2 of an invented Mie 16-6 gas (ε/k_B = 150 K, σ = 3.7 Å) from the quadrature of virial.ts (checked against
+// an independent mpmath quadrature in mie-potential.test.ts), with a small deterministic wiggle; not real data.
+function mieB2Csv(): Buffer {
+  const lines = ['T (K),B2 (cm3/mol),u(B2) (cm3/mol)'];
+  [100, 120, 145, 175, 210, 260, 330, 420, 550, 720, 950].forEach((T, i) => lines.push(`${T},${(b2WithGradient(T, 150, 3.7, undefined, { repulsiveExponent: 16 }).b2Cm3PerMol + 0.2 * Math.sin(1.7 * i)).toFixed(4)},0.4`));
+  return Buffer.from(lines.join('\n'));
+}
+
+beforeAll(async () => {
+  t = await startTestApp();
+  [modeller, reviewer, consumer] = await Promise.all([t.signIn(EMAIL.modeller), t.signIn(EMAIL.reviewer), t.signIn(EMAIL.consumer)]);
+  substanceId = await newSubstance(modeller, 'Quillgas QG-7', 58.1);
+  const up = await modeller.post('/api/datasets').field('substanceId', substanceId).field('property', 'b2').field('name', 'QG-7 B2, Fenwick cell B').field('source', 'Fenwick Thermophysics Laboratory, invented run 7').field('doi', '10.1000/epsigma.mie.7').attach('file', mieB2Csv(), { filename: 'b2.csv', contentType: 'text/csv' });
+  expect(up.status, JSON.stringify(up.body)).toBe(201);
+  b2Id = up.body.id;
+});
+afterAll(() => t.close());
+
+describe('Mie λr-6 fits with a posterior, through review and export', () => {
+  it('refuses inconsistent Mie options per field', async () => {
+    const none = await modeller.post('/api/fits').send({ substanceId, datasets: [{ id: b2Id }], options: { model: 'mie' } });
+    expect(none.status).toBe(400);
+    expect(none.body.error.details.map((d: { field: string }) => d.field)).toContain('options.repulsiveExponent');
+    const lj = await modeller.post('/api/fits').send({ substanceId, datasets: [{ id: b2Id }], options: { repulsiveExponent: 16 } });
+    expect(lj.status).toBe(400);
+    expect(lj.body.error.details.map((d: { field: string }) => d.field)).toContain('options.model');
+  });
+
+  it('fits a Mie 16-6 model with a posterior, ranks next measurements and states the criterion; the set goes through review and export', async () => {
+    const res = await modeller.post('/api/fits').send({ substanceId, datasets: [{ id: b2Id }], options: { model: 'mie', repulsiveExponent: 16, posterior: { samples: 300 } } });
+    expect(res.status, JSON.stringify(res.body)).toBe(202);
+    expect((await t.ctx.jobs.waitFor(res.body.jobId)).status).toBe('succeeded');
+    const fit = (await modeller.get(`/api/fits/${res.body.id}`)).body;
+    expect(fit.model).toBe('mie');
+    const r = fit.result;
+    expect([r.model, r.repulsiveExponent]).toEqual(['mie', 16]);
+    for (const name of ['epsilonK', 'sigmaAngstrom']) {
+      expect(r.posterior[name].lower95).toBeLessThan(r[name]);
+      expect(r.posterior[name].upper95).toBeGreaterThan(r[name]);
+    }
+    expect(r.posterior.diagnostics.seed).toBe(20261202);
+    expect(r.posterior.draws.length).toBeGreaterThan(100);
+    expect(r.nextMeasurements[0]).toMatchObject({ kind: 'b2', text: expect.stringMatching(/^B2 at /) });
+    expect(r.criterion).toMatchObject({ parameters: 2, points: 11 });
+
+    const draft = await modeller.post('/api/parameter-sets').send({ fitId: res.body.id, rationale: 'Mie 16-6 fits the QG-7 B2 table within its uncertainty.' });
+    expect(draft.status, JSON.stringify(draft.body)).toBe(201);
+    expect(draft.body).toMatchObject({ potential: 'mie', repulsiveExponent: 16, potentialLabel: 'Mie 16-6' });
+    expect(draft.body.label).toMatch(/Mie 16-6/);
+    expect((await modeller.post(`/api/parameter-sets/${draft.body.id}/submit`)).status).toBe(200);
+    const approve = await reviewer.post(`/api/parameter-sets/${draft.body.id}/review`).send({ decision: 'approve', comment: 'Mie form checked; approved.' });
+    expect(approve.status, JSON.stringify(approve.body)).toBe(200);
+
+    const lammps = await consumer.get(`/api/parameter-sets/${draft.body.id}/export?format=lammps-real`);
+    expect(lammps.status).toBe(200);
+    expect(lammps.text).toMatch(/^pair_style mie\/cut /m);
+    expect(lammps.text).toMatch(/^pair_coeff 1 1 \S+ \S+ 16 6$/m);
+    const gromacs = await consumer.get(`/api/parameter-sets/${draft.body.id}/export?format=gromacs`);
+    expect(gromacs.status).toBe(400);
+    expect(gromacs.body.error.code).toBe('unsupported_potential');
+    expect(gromacs.body.error.message).toMatch(/GROMACS has no Mie 16-6 pair function/);
+    const json = await consumer.get(`/api/parameter-sets/${draft.body.id}/export?format=json`);
+    expect(JSON.parse(json.text)).toMatchObject({ model: 'mie', repulsiveExponent: 16 });
+    const catalog = await consumer.get('/api/catalog?q=QG-7');
+    expect(catalog.body.sets[0]).toMatchObject({ potential: 'mie', repulsiveExponent: 16, potentialLabel: 'Mie 16-6' });
+  });
+});
