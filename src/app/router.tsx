@@ -31,6 +31,7 @@ export const router = createBrowserRouter([
           { path: 'catalog', lazy: () => import('./routes/catalog').then((m) => ({ Component: m.CatalogRoute })) },
           { path: 'catalog/:parameterSetId', lazy: () => import('./routes/catalog-card').then((m) => ({ Component: m.CatalogCardRoute })) },
           { path: 'mixtures', lazy: () => import('./routes/mixtures').then((m) => ({ Component: m.MixturesRoute })) },
+          { path: 'pair-sets', lazy: () => import('./routes/pair-sets').then((m) => ({ Component: m.PairSetsRoute })) },
           { path: 'account/tokens', lazy: () => import('./routes/tokens').then((m) => ({ Component: m.TokensRoute })) },
           { path: 'review', lazy: () => import('./routes/review-desk').then((m) => ({ Component: m.ReviewDeskRoute })) },
           { path: 'simulations', lazy: () => import('./routes/simulations').then((m) => ({ Component: m.SimulationsRoute })) },

@@ -1,4 +1,4 @@
-import { useSearchParams } from 'react-router-dom';
+import { Link, useSearchParams } from 'react-router-dom';
 import { COMBINING_RULE_INFO, COMBINING_RULES, type CombiningRule } from '@shared/mixing/combining-rules';
 import { EmptyState, ErrorState, LoadingState, PageHeader, Panel } from '@/components/ui/states';
 import { Field, Select } from '@/components/ui/field';
@@ -26,7 +26,15 @@ export function MixturesRoute() {
   const csvUnits = [energy, length === 'Å' ? 'A' : length].join(',');
   return (
     <>
-      <PageHeader eyebrow="Catalog" title="Mixtures" subtitle="Cross parameters from combining rules: estimates, not fitted to mixture data." />
+      <PageHeader
+        eyebrow="Catalog"
+        title="Mixtures"
+        subtitle={
+          <>
+            Cross parameters from approved <Link className="text-copper underline" to="/pair-sets">pair sets</Link> (k_ij fitted to B12 data) where one exists, otherwise from a combining rule: estimates, not fitted to mixture data.
+          </>
+        }
+      />
       <div className="grid gap-6">
         <ParameterSetCaution />
         <div className="grid gap-6 lg:grid-cols-[1fr_2fr]">
@@ -70,7 +78,7 @@ export function MixturesRoute() {
             ) : (
               <div className="grid gap-4">
                 <p role="note" className="rounded-md border border-review/40 bg-review-soft/60 px-4 py-2 text-sm">
-                  <span className="font-semibold text-review">Combining-rule estimates. </span>
+                  <span className="font-semibold text-review">{mixture.data.pairs.some((p) => p.kind === 'fitted-pair-set') ? 'Fitted pair sets and combining-rule estimates. ' : 'Combining-rule estimates. '}</span>
                   {mixture.data.note}
                 </p>
                 <MixtureTable mixture={mixture.data} energy={energy} length={length} />

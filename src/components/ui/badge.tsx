@@ -21,6 +21,11 @@ export const KIND_TAG: Record<string, { label: string; tone: BadgeTone }> = {
   b2: { label: 'B2(T)', tone: 'copper' },
   density: { label: 'ρ(T, P)', tone: 'teal' },
   viscosity: { label: 'η(T)', tone: 'slate' },
+  b3: { label: 'B3(T)', tone: 'copper' },
+  b12: { label: 'B12(T)', tone: 'copper' },
+  saturatedLiquidDensity: { label: 'ρ_liq(T)', tone: 'teal' },
+  saturatedVapourDensity: { label: 'ρ_vap(T)', tone: 'teal' },
+  vapourPressure: { label: 'p_sat(T)', tone: 'slate' },
 };
 
 export function KindBadge({ kind }: { kind: string }) {

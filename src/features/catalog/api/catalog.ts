@@ -69,7 +69,24 @@ export interface MixtureAnswer {
   formulas: string;
   reference: string;
   components: Array<{ index: number; setId: number; version: number; state: ParameterSetState; substanceName: string; scheme: CutoffScheme; cutoffSigma: number | null; epsilonK: number; sigmaAngstrom: number }>;
-  pairs: Array<{ i: number; j: number; setIdI: number; setIdJ: number; substanceI: string; substanceJ: string; epsilonK: number; sigmaAngstrom: number; kind: 'pure' | 'combining-rule-estimate' }>;
+  pairs: Array<{
+    i: number;
+    j: number;
+    setIdI: number;
+    setIdJ: number;
+    substanceI: string;
+    substanceJ: string;
+    epsilonK: number;
+    sigmaAngstrom: number;
+    kind: 'pure' | 'combining-rule-estimate' | 'fitted-pair-set';
+    /** Present on fitted pairs: the approved pair set and its k_ij (l_ij) with standard errors. */
+    pairSetId?: number;
+    kij?: number;
+    kijStdErr?: number | null;
+    lij?: number | null;
+    epsilonStdErrK?: number | null;
+    sigmaStdErrAngstrom?: number | null;
+  }>;
   note: string;
   commonValidity: { temperatureMinK: number; temperatureMaxK: number; pressureMinMPa: number | null; pressureMaxMPa: number | null } | null;
   cutoff: { scheme: CutoffScheme; cutoffSigma: number; consistent: boolean; warning: string | null };

@@ -4,7 +4,7 @@ import type { MixtureAnswer } from '../api/catalog';
 import { epsilonHeader, sigmaHeader } from './unit-text';
 import { formatSignificant } from '@shared/format/numbers';
 
-/** Pure pairs from the approved sets, cross pairs from the rule, each row saying which it is. */
+/** Pure pairs from the approved sets, cross pairs from an approved pair set or else the rule, each row saying which it is. */
 export function MixtureTable({ mixture, energy, length }: { mixture: MixtureAnswer; energy: EnergyUnit; length: LengthUnit }) {
   return (
     <div className="overflow-x-auto">
@@ -25,7 +25,18 @@ export function MixtureTable({ mixture, energy, length }: { mixture: MixtureAnsw
               <td>{p.i === p.j ? p.substanceI : `${p.substanceI} + ${p.substanceJ}`}</td>
               <td className="num text-right">{formatSignificant(convertEpsilon(p.epsilonK, energy), 6)}</td>
               <td className="num text-right">{formatSignificant(convertSigma(p.sigmaAngstrom, length), 6)}</td>
-              <td className="pl-4">{p.kind === 'pure' ? <Badge tone="approved">Approved set</Badge> : <Badge tone="review">{mixture.ruleName} estimate</Badge>}</td>
+              <td className="pl-4">
+                {p.kind === 'pure' ? (
+                  <Badge tone="approved">Approved set</Badge>
+                ) : p.kind === 'fitted-pair-set' ? (
+                  <span className="inline-flex flex-wrap items-baseline gap-1">
+                    <Badge tone="teal">Fitted pair set #{p.pairSetId}</Badge>
+                    <span className="num text-xs text-ink-faint">k_ij = {p.kij?.toFixed(4)} ± {p.kijStdErr?.toFixed(4) ?? '?'}</span>
+                  </span>
+                ) : (
+                  <Badge tone="review">{mixture.ruleName} estimate</Badge>
+                )}
+              </td>
             </tr>
           ))}
         </tbody>

@@ -19,8 +19,10 @@ const num = (s: string) => Number(s.replace(',', '.'));
 export function FitSetupForm({ substanceId, datasets, busy, error, onSubmit, renderRowPicker }: { substanceId: number; datasets: DatasetSummary[]; busy: boolean; error: Error | null; onSubmit: (body: CreateFitBody) => void; renderRowPicker?: RowPickerRenderer }) {
   const usable = datasets.filter((d) => !d.withdrawn);
   const fittable = (d: DatasetSummary) => (FIT_KINDS as string[]).includes(d.property);
-  // Gas-phase sets are ticked by default; densities add a simulation stage of minutes, so they are opt-in.
-  const [choices, setChoices] = useState<Record<number, Choice>>(() => Object.fromEntries(usable.map((d) => [d.id, { checked: fittable(d) && d.property !== 'density', weight: '1', excludeRows: [], excludeReason: '', picking: false }])));
+  // Gas-phase sets (B2, B3, viscosity) are ticked by default; densities add a simulation stage of minutes and
+  // saturation data (VLE) probe the liquid, so both are opt-in.
+  const gasPhase = (d: DatasetSummary) => d.property === 'b2' || d.property === 'b3' || d.property === 'viscosity';
+  const [choices, setChoices] = useState<Record<number, Choice>>(() => Object.fromEntries(usable.map((d) => [d.id, { checked: fittable(d) && gasPhase(d), weight: '1', excludeRows: [], excludeReason: '', picking: false }])));
   const [mdAtoms, setMdAtoms] = useState('256');
   const [mdSteps, setMdSteps] = useState('10000');
   const [mdCutoff, setMdCutoff] = useState('2.5');

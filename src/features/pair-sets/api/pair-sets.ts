@@ -1,0 +1,64 @@
+import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import type { PairSetCreateBody, PairSetView } from '@shared/schemas/pair-sets';
+import { api } from '@/lib/api-client';
+
+export type { PairSetView } from '@shared/schemas/pair-sets';
+
+/** A B12 measurement set that a pair set can be fitted to. */
+export interface B12Dataset {
+  id: number;
+  name: string;
+  substanceName: string;
+  version: number;
+  rowCount: number;
+}
+
+export const pairSetKeys = {
+  all: ['pair-sets'] as const,
+  list: () => [...pairSetKeys.all, 'list'] as const,
+  b12Datasets: () => [...pairSetKeys.all, 'b12-datasets'] as const,
+  approvedSets: () => [...pairSetKeys.all, 'approved-sets'] as const,
+};
+
+/** An approved parameter set a pair set can hold fixed. */
+export interface ApprovedSet {
+  id: number;
+  substanceName: string;
+  version: number;
+  epsilonK: number;
+  sigmaAngstrom: number;
+}
+
+export const approvedSetsQueryOptions = () =>
+  queryOptions({ queryKey: pairSetKeys.approvedSets(), queryFn: () => api<{ sets: Array<ApprovedSet & { state: string }> }>('/catalog').then((r) => r.sets.filter((x) => x.state === 'approved')) });
+export const useApprovedSets = (enabled: boolean) => useQuery({ ...approvedSetsQueryOptions(), enabled });
+
+export const pairSetsQueryOptions = () => queryOptions({ queryKey: pairSetKeys.list(), queryFn: () => api<{ pairSets: PairSetView[] }>('/pair-sets').then((r) => r.pairSets) });
+
+export const b12DatasetsQueryOptions = () =>
+  queryOptions({
+    queryKey: pairSetKeys.b12Datasets(),
+    queryFn: () => api<{ datasets: Array<B12Dataset & { property: string }> }>('/datasets').then((r) => r.datasets.filter((d) => d.property === 'b12')),
+  });
+
+export const usePairSets = () => useQuery(pairSetsQueryOptions());
+export const useB12Datasets = (enabled: boolean) => useQuery({ ...b12DatasetsQueryOptions(), enabled });
+
+/** Fits and submits a pair set; the list and every mixture answer may change. */
+export const useCreatePairSet = () => {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (body: PairSetCreateBody) => api<PairSetView>('/pair-sets', { method: 'POST', body }),
+    onSuccess: () => qc.invalidateQueries({ queryKey: pairSetKeys.all }),
+  });
+};
+
+export const useReviewPairSet = () => {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: ({ id, decision, comment }: { id: number; decision: 'approve' | 'request-changes'; comment?: string }) =>
+      api<PairSetView>(`/pair-sets/${id}/review`, { method: 'POST', body: { decision, ...(comment ? { comment } : {}) } }),
+    // The Mixtures page refetches on mount (no stale time), so an approval shows there without reaching into its cache.
+    onSuccess: () => qc.invalidateQueries({ queryKey: pairSetKeys.all }),
+  });
+};
