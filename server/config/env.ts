@@ -31,6 +31,7 @@ const envSchema = z.object({
     .string()
     .trim()
     .regex(/^$|^\d{1,2}$|^[\w.:/]+(\s*,\s*[\w.:/]+)*$/, 'TRUST_PROXY must be a hop count such as 1 or a comma-separated list of addresses or subnets (e.g. loopback, 10.0.0.0/8)')
+    .refine((v) => !/^(true|yes|all|\*)$/i.test(v), 'TRUST_PROXY=true would let any client forge its address and origin; name the proxy (e.g. loopback) or give a hop count')
     .optional(),
 });
 
