@@ -52,8 +52,16 @@ export interface JobRunEnvironment {
  * workers, so it takes no worker slot.
  */
 export type JobKind =
-  | { toPayload: (db: Db, input: any, job: { id: number; seed: number }) => Promise<unknown> | unknown; run?: undefined }
-  | { run: (env: JobRunEnvironment, input: any, job: { id: number; seed: number }) => Promise<unknown>; toPayload?: undefined };
+  | {
+      toPayload: (db: Db, input: any, job: { id: number; seed: number }) => Promise<unknown> | unknown;
+      /**
+       * Keeps what belongs beside the job (in the web process, in the transaction that stores the result) and
+       * returns what goes into job.result_json; the queue itself never looks inside a result.
+       */
+      storeResult?: (tx: Tx, jobId: number, result: unknown) => Promise<unknown>;
+      run?: undefined;
+    }
+  | { run: (env: JobRunEnvironment, input: any, job: { id: number; seed: number }) => Promise<unknown>; toPayload?: undefined; storeResult?: undefined };
 
 export interface LaneCounts {
   waiting: number;
@@ -508,9 +516,15 @@ export class JobRunner implements JobQueue {
         }
         result = await this.executor.runJob({ id, kind: kindName, ref, engineVersion: engineVersionOf(kindName) }, payload, hooks, controller.signal);
       }
-      const now = new Date().toISOString();
       // Only a job still under way takes the result: a cancelled job stays cancelled.
-      await this.ofExecution(id, ref).set({ status: 'succeeded', progress: 1, stage: 'done', resultJson: JSON.stringify(result), finishedAt: now, updatedAt: now }).execute();
+      const current = await this.db.selectFrom('job').select('id').where('id', '=', id).where('queueRef', '=', ref).where('status', 'in', ['queued', 'running']).executeTakeFirst();
+      if (current) {
+        await this.db.transaction().execute(async (tx) => {
+          const stored = kind.storeResult ? await kind.storeResult(tx, id, result) : result;
+          const now = new Date().toISOString();
+          await tx.updateTable('job').set({ status: 'succeeded', progress: 1, stage: 'done', resultJson: JSON.stringify(stored), finishedAt: now, updatedAt: now }).where('id', '=', id).where('queueRef', '=', ref).where('status', 'in', ['queued', 'running']).execute();
+        });
+      }
     } catch (err) {
       // A cancelled job is already marked (the update matches only unfinished rows of this execution); on a stop
       // the job stays as it is so the next start resumes or rejoins it.

@@ -100,6 +100,11 @@ describe.each(['sqlite', 'redis'] as const)('job queue contract, %s driver', (dr
     const direct = runNpt((req.input as SimulationInput).state);
     expect((done.result as typeof direct).reducedDensity).toBe(direct.reducedDensity);
     expect((done.result as typeof direct).stdErr).toBe(direct.stdErr);
+    // The kind's storeResult ran in the web process: the frames sit beside the job, not in its result.
+    expect((done.result as { frames?: unknown }).frames).toBeUndefined();
+    const frames = await ctx.db.selectFrom('simulationFrames').select('frameCount').where('jobId', '=', id).executeTakeFirstOrThrow();
+    expect((done.result as { framesStored: number }).framesStored).toBe(frames.frameCount);
+    expect(frames.frameCount).toBeGreaterThan(0);
     const health = await ctx.jobs.health();
     expect(health).toMatchObject({ driver, workers: 1 });
   }, 60_000);

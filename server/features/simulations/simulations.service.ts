@@ -10,6 +10,7 @@ import type { JobKind, JobView } from '../../jobs/job-runner';
 import { toJobView } from '../../jobs/job-runner';
 import { recordAudit } from '../audit/audit.service';
 import { findDataset, findVersionRow, rowsOfVersion } from '../datasets/datasets.repository';
+import { storeSimulationFrames } from './simulation-frames';
 
 /** Where a run came from, when a modeller started it from a measured density. */
 export interface SimulationOrigin {
@@ -48,6 +49,8 @@ export const simulationCacheKey = (state: SimulationInput['state']) =>
 
 export const simulationJobKind: JobKind = {
   toPayload: (_db: Db, input: SimulationInput) => input.state,
+  // The run's frames go into simulation_frames; the job row keeps the summary.
+  storeResult: storeSimulationFrames,
 };
 
 export async function createSimulation(ctx: AppContext, actor: CurrentUser, body: CreateSimulationBody, origin?: SimulationOrigin) {
