@@ -47,6 +47,8 @@ interface Ids {
   otherFit: number;
   otherDataset: number;
   consumerUser: string;
+  approvedPairSet: number;
+  pairSetInReview: number;
 }
 interface Probe {
   /** The path for ✓ and —. */
@@ -136,6 +138,10 @@ const PROBES: Record<string, Probe> = {
   'GET /api/audit/vocabulary': { path: () => '/api/audit/vocabulary' },
   'GET /api/mailbox': { path: () => '/api/mailbox' },
   'GET /api/mail/outbox': { path: () => '/api/mail/outbox' },
+  'GET /api/pair-sets': { path: () => '/api/pair-sets' },
+  'GET /api/pair-sets/:id': { path: (i) => `/api/pair-sets/${i.pairSetInReview}`, published: (i) => ({ published: `/api/pair-sets/${i.approvedPairSet}`, unpublished: `/api/pair-sets/${i.pairSetInReview}` }) },
+  'POST /api/pair-sets': { path: () => '/api/pair-sets' },
+  'POST /api/pair-sets/:id/review': { path: () => `/api/pair-sets/${NONE}/review` },
 };
 
 let t: TestApp;
@@ -164,6 +170,19 @@ beforeAll(async () => {
   const mine = await draftOf(modeller, 'Norrane B2, second run');
   const theirs = await draftOf(other, 'Norrane B2, Hollis run');
   const consumerUser = await t.ctx.db.selectFrom('user').select('id').where('email', '=', EMAIL.consumer).executeTakeFirstOrThrow();
+  // Two pair sets of the published set and a second substance's: one approved, one waiting for review.
+  const partner = await approvedSet(t, { modeller, reviewer }, { substanceId: await newSubstance(modeller, 'quillgas QG-4', 44.6), epsilonK: 150, sigmaAngstrom: 3.6 });
+  const b12 = ['T (K),B12 (cm3/mol),u(B12) (cm3/mol)', '200,-160.2,2', '260,-101.5,2', '330,-66.3,2', '420,-40.8,2', '520,-24.9,2'].join('\n');
+  const up = await modeller.post('/api/datasets').field('substanceId', substance).field('property', 'b12').field('name', 'Invented B12 of norrane and quillgas').field('source', 'Fenwick Thermophysics Laboratory, invented run').attach('file', Buffer.from(b12), { filename: 'b12.csv', contentType: 'text/csv' });
+  expect(up.status, JSON.stringify(up.body)).toBe(201);
+  const pairSet = async () => {
+    const res = await modeller.post('/api/pair-sets').send({ parameterSetIds: [published.setId, partner.setId], datasetId: up.body.id });
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    return res.body.id as number;
+  };
+  const approvedPairSet = await pairSet();
+  expect((await reviewer.post(`/api/pair-sets/${approvedPairSet}/review`).send({ decision: 'approve', comment: 'B12 residuals within uncertainty.' })).status).toBe(200);
+  const pairSetInReview = await pairSet();
   ids = {
     substance,
     publishedSet: published.setId,
@@ -175,6 +194,8 @@ beforeAll(async () => {
     otherFit: theirs.fit,
     otherDataset: theirs.dataset,
     consumerUser: consumerUser.id,
+    approvedPairSet,
+    pairSetInReview,
   };
 }, 120_000);
 afterAll(() => t.close());

@@ -1,6 +1,7 @@
 import { Router } from 'express';
 import { pairSetCreateBody, pairSetListQuery, pairSetReviewBody } from '../../../shared/schemas/pair-sets';
 import type { AppContext } from '../../app-context';
+import { hasPolicy } from '../../../shared/auth/roles';
 import { currentUser, requirePolicy } from '../../common/auth-middleware';
 import { notFound } from '../../common/errors';
 import { idParams, validBody, validParams, validQuery } from '../../common/validate';
@@ -13,9 +14,13 @@ import { createPairSet, listPairSets, pairSetView, reviewPairSet } from './pair-
 export function pairSetRoutes(ctx: AppContext): Router {
   const router = Router();
 
+  // Consumers read published work only (README roles table): approved pair sets; others do not exist for them.
+  const seesUnpublished = (res: Parameters<typeof currentUser>[0]) => hasPolicy(currentUser(res).roles, 'parameterSet:comment');
+
   router.get('/pair-sets', requirePolicy('parameterSet:read'), async (req, res) => {
     const { state } = validQuery(pairSetListQuery, req);
-    res.json({ pairSets: await listPairSets(ctx.db, state) });
+    const all = await listPairSets(ctx.db, state);
+    res.json({ pairSets: seesUnpublished(res) ? all : all.filter((p) => p.state === 'approved') });
   });
 
   router.post('/pair-sets', requirePolicy('parameterSet:draft'), async (req, res) => {
@@ -26,7 +31,7 @@ export function pairSetRoutes(ctx: AppContext): Router {
   router.get('/pair-sets/:id', requirePolicy('parameterSet:read'), async (req, res) => {
     const { id } = validParams(idParams, req);
     const view = await pairSetView(ctx.db, id);
-    if (!view) throw notFound(`Pair set ${id}`);
+    if (!view || (!seesUnpublished(res) && view.state !== 'approved')) throw notFound(`Pair set ${id}`);
     res.json(view);
   });
 
