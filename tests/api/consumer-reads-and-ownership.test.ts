@@ -50,12 +50,19 @@ describe('what a consumer may read', () => {
     }
   });
 
-  it('sees a substance without its measurement sets', async () => {
+  it('sees substances without their measurement sets or how many there are', async () => {
     const res = await consumer.get(`/api/substances/${substanceId}`);
     expect(res.status).toBe(200);
     expect(res.body.name).toBe('quillgas QG-7');
     expect(res.body).not.toHaveProperty('datasets');
     expect((await modeller.get(`/api/substances/${substanceId}`)).body.datasets).toHaveLength(2);
+    // Nor how many sets of which kinds exist.
+    const listed = (await consumer.get('/api/substances')).body.substances.find((s: { id: number }) => s.id === substanceId);
+    expect(listed.name).toBe('quillgas QG-7');
+    expect(listed).not.toHaveProperty('datasetCount');
+    expect(listed).not.toHaveProperty('kinds');
+    const forModeller = (await modeller.get('/api/substances')).body.substances.find((s: { id: number }) => s.id === substanceId);
+    expect(forModeller).toMatchObject({ datasetCount: 2, kinds: ['b2'] });
   });
 
   it('the review roles still read every fit and measurement set', async () => {

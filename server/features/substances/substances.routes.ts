@@ -27,8 +27,10 @@ export function substanceRoutes(ctx: AppContext): Router {
 
   router.get('/substances', requirePolicy('substance:read'), async (_req, res) => {
     const rows = await listSubstances(db);
+    // How many measurement sets of which kinds exist is unpublished work too: only for the roles that read them.
+    const withDatasets = hasPolicy(currentUser(res).roles, 'dataset:read');
     res.json({
-      substances: rows.map((s) => ({ ...toSubstance(s), datasetCount: Number(s.datasetCount), kinds: s.kinds ? s.kinds.split(',').sort() : [] })),
+      substances: rows.map((s) => (withDatasets ? { ...toSubstance(s), datasetCount: Number(s.datasetCount), kinds: s.kinds ? s.kinds.split(',').sort() : [] } : toSubstance(s))),
     });
   });
 
