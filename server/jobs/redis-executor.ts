@@ -143,9 +143,19 @@ export class RedisExecutor implements JobExecutor {
     else if (state === 'failed') this.settle(p, { ok: false, reason: job.failedReason, attemptsMade: job.attemptsMade });
   }
 
+  private rechecking = false;
+
   private async recheckAll() {
-    for (const p of [...this.pending.values()]) {
-      await this.check(p).catch(() => {});
+    // One pass at a time, even when a pass over many jobs takes longer than the interval.
+    if (this.rechecking) return;
+    this.rechecking = true;
+    try {
+      for (const p of [...this.pending.values()]) {
+        if (this.closed) break;
+        await this.check(p).catch(() => {});
+      }
+    } finally {
+      this.rechecking = false;
     }
   }
 
