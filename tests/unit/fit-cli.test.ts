@@ -32,7 +32,7 @@ const ARGON_ETA_CSV = [
   ...[[200, 15.9], [300, 22.7], [400, 28.6], [500, 33.9], [600, 38.8]].map(([t, eta]) => `${t},${eta},${(0.01 * eta).toFixed(3)}`),
 ].join('\n');
 
-const EXPECTED_KEYS = ['chi2', 'convergence', 'correlation', 'dof', 'epsilonK', 'reducedChi2', 'sigmaAngstrom', 'status', 'stdErr', 'warnings'];
+const EXPECTED_KEYS = ['chi2', 'convergence', 'correlation', 'deBoerParameter', 'deBoerParameterStdErr', 'dof', 'epsilonK', 'reducedChi2', 'sigmaAngstrom', 'status', 'stdErr', 'warnings'];
 
 describe('cli fit', () => {
   it('fits argon B2 from an upload-format CSV and prints the documented JSON', async () => {
@@ -43,6 +43,8 @@ describe('cli fit', () => {
     expect(Object.keys(json).sort()).toEqual(EXPECTED_KEYS);
     expect(json.status).toBe('succeeded');
     expect(json.convergence).toBe('parameter-change');
+    // Without --molar-mass there is no de Boer parameter to report.
+    expect(json.deBoerParameter).toBeNull();
     // B2-derived argon LJ parameters ε/k = 119.8 K, σ = 3.405 Å (Hirschfelder, Curtiss & Bird 1954, Table I-A, from memory).
     expect(json.epsilonK as number).toBeGreaterThan(116);
     expect(json.epsilonK as number).toBeLessThan(122);
@@ -72,6 +74,10 @@ describe('cli fit', () => {
     expect(json.epsilonK as number).toBeLessThan(130);
     expect(json.sigmaAngstrom as number).toBeGreaterThan(3.35);
     expect(json.sigmaAngstrom as number).toBeLessThan(3.5);
+    // With the molar mass the fit reports Λ* = h/(σ√(mε)); about 0.19 for argon (de Boer 1948; Hirschfelder, Curtiss &
+    // Bird 1954, §6.5, from memory), with a standard error.
+    expect(Math.abs((json.deBoerParameter as number) - 0.19)).toBeLessThan(0.01);
+    expect(json.deBoerParameterStdErr as number).toBeGreaterThan(0);
   });
 
   it('reports a bad invocation on stderr with exit code 1 and nothing on stdout', async () => {
