@@ -37,6 +37,7 @@ export function CatalogCardRoute() {
           <span className="flex flex-wrap items-center gap-2">
             <ParameterSetStateBadge state={c.state} /> {c.schemeLabel}
             {c.cutoffSigma !== null && `, r_c = ${c.cutoffSigma} σ`}
+            {c.potential === 'mie' && <span data-testid="card-potential">· {c.potentialLabel}</span>}
             {c.formula && <span className="text-ink-faint">· {c.formula}</span>}
           </span>
         }
@@ -58,7 +59,11 @@ export function CatalogCardRoute() {
             <div className="grid gap-5">
               <SchemeCheck fitted={c.scheme} cutoffSigma={c.cutoffSigma} used={prefs.data?.scheme} onChange={(scheme) => update.mutate({ scheme })} />
               {c.exportable ? (
-                <ExportLinks hrefOf={(f) => exportHref(c.id, f, f === 'csv' ? csvUnits : undefined)} note={`CSV adds columns in ${energy} and ${length}; the engine files use the engines' own units.`} />
+                <ExportLinks
+                  hrefOf={(f) => exportHref(c.id, f, f === 'csv' ? csvUnits : undefined)}
+                  omit={c.potential === 'mie' ? ['gromacs'] : []}
+                  note={`CSV adds columns in ${energy} and ${length}; the engine files use the engines' own units.${c.potential === 'mie' ? ` A ${c.potentialLabel} set goes to LAMMPS as pair_style mie/cut; GROMACS has no Mie pair function, so it is not offered.` : ''}`}
+                />
               ) : (
                 <p className="text-sm text-ink-faint">Only approved and superseded sets are exported.</p>
               )}

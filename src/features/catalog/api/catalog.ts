@@ -18,6 +18,10 @@ export interface CatalogEntry {
   schemeLabel: string;
   cutoffSigma: number | null;
   model: 'lj-12-6';
+  /** 'mie' for a Mie λr-6 set, with λr and its label ("Mie 16-6"). */
+  potential: 'lj-12-6' | 'mie';
+  repulsiveExponent: number;
+  potentialLabel: string;
   epsilonK: number;
   sigmaAngstrom: number;
   stdErr: { epsilonK: number | null; sigmaAngstrom: number | null };

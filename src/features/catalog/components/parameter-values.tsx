@@ -20,7 +20,7 @@ export function ParameterValues({ card, energy, length }: { card: ParameterCard;
       </div>
       <dl className="mt-4 grid grid-cols-[max-content_1fr] gap-x-4 gap-y-1 text-sm">
         <dt className="text-ink-faint">Model</dt>
-        <dd>Lennard-Jones 12-6, u(r) = 4ε[(σ/r)¹² − (σ/r)⁶]</dd>
+        <dd data-testid="card-model">{card.potential === 'mie' ? `${card.potentialLabel}, u(r) = Cε[(σ/r)^${card.repulsiveExponent} − (σ/r)⁶], C = ${((card.repulsiveExponent / (card.repulsiveExponent - 6)) * Math.pow(card.repulsiveExponent / 6, 6 / (card.repulsiveExponent - 6))).toFixed(4)}` : 'Lennard-Jones 12-6, u(r) = 4ε[(σ/r)¹² − (σ/r)⁶]'}</dd>
         <dt className="text-ink-faint">Fitted for</dt>
         <dd>
           {CUTOFF_SCHEME_LABELS[card.scheme]}

@@ -13,6 +13,10 @@ export interface ParameterSetSummary {
   scheme: CutoffScheme;
   cutoffSigma: number | null;
   model: 'lj-12-6';
+  /** The pair potential: 'mie' for a Mie λr-6 set, with λr and its label ("Mie 16-6"). */
+  potential: 'lj-12-6' | 'mie';
+  repulsiveExponent: number;
+  potentialLabel: string;
   state: ParameterSetState;
   stateLabel: string;
   epsilonK: number;

@@ -26,7 +26,7 @@ export function FrozenValues({ set }: { set: ParameterSetSummary }) {
       </div>
       <dl className="mt-4 grid grid-cols-[max-content_1fr] gap-x-4 gap-y-1 text-sm">
         <dt className="text-ink-faint">Model</dt>
-        <dd>Lennard-Jones 12-6</dd>
+        <dd data-testid="set-potential">{set.potential === 'mie' ? `${set.potentialLabel}: u = C ε[(σ/r)^${set.repulsiveExponent} − (σ/r)^6]` : 'Lennard-Jones 12-6'}</dd>
         <dt className="text-ink-faint">Cutoff scheme</dt>
         <dd>{schemeText(set)}</dd>
         <dt className="text-ink-faint">Valid for</dt>
