@@ -5,6 +5,7 @@
  * Starting values are automatic unless given (lj-starting-values.ts); a few seeded, perturbed restarts guard
  * against a local minimum, and the lowest χ² wins.
  */
+import type { LjEosModelId } from '../physics/eos/lj-eos-models';
 import { jointConfidenceEllipse } from './ellipse';
 import { LeastSquaresInputError, weightedLeastSquares, type Convergence, type CovarianceScaling, type LeastSquaresResult, type WeightedResidualProblem } from './least-squares';
 import { estimateLjStart, type LjBounds, type StartPoint } from './lj-starting-values';
@@ -45,6 +46,8 @@ export type LjParameter = 'epsilonK' | 'sigmaAngstrom';
 export interface LjFitOptions {
   /** Needed for viscosity and for the quantum correction to B2. */
   molarMassGPerMol?: number;
+  /** LJ equation of state behind saturation data: 'thol2016' (default), 'jzg1993' or 'kn1994' for comparison. */
+  eosModel?: LjEosModelId;
   /** First-order Wigner–Kirkwood correction to B2 (needs molarMassGPerMol). */
   quantumCorrection?: boolean;
   start?: { epsilonK: number; sigmaAngstrom: number };
@@ -269,7 +272,7 @@ function validate(datasets: readonly FitDataset[], options: LjFitOptions): { all
   }
   const restarts = options.restarts ?? DEFAULT_RESTARTS;
   if (!Number.isInteger(restarts) || restarts < 0) throw new LjFitInputError('bad-option', `restarts must be a non-negative integer, got ${restarts}`);
-  return { allPoints: points, points: included, bounds, held, context: { molarMassGPerMol: molar, quantumCorrection: options.quantumCorrection ?? false, ...(repulsiveExponent !== LJ_REPULSIVE_EXPONENT ? { repulsiveExponent } : {}) } };
+  return { allPoints: points, points: included, bounds, held, context: { molarMassGPerMol: molar, quantumCorrection: options.quantumCorrection ?? false, ...(repulsiveExponent !== LJ_REPULSIVE_EXPONENT ? { repulsiveExponent } : {}), ...(options.eosModel ? { eosModel: options.eosModel } : {}) } };
 }
 
 const modelPoint = (p: { temperatureK: number; pressureMPa?: number; value: number }) => ({ temperatureK: p.temperatureK, pressureMPa: p.pressureMPa, measured: p.value });

@@ -7,6 +7,7 @@ import { ljEosDensity } from '../physics/lj-eos';
 import { b3WithGradient } from '../physics/third-virial';
 import { b2WithGradient } from '../physics/virial';
 import { viscosityWithGradient } from '../physics/viscosity';
+import type { LjEosModelId } from '../physics/eos/lj-eos-models';
 import { saturationPrediction, saturationRangeProblem } from './saturation-properties';
 
 export interface PropertyContext {
@@ -14,6 +15,8 @@ export interface PropertyContext {
   quantumCorrection: boolean;
   /** λr of a Mie λr-6 potential (absent: LJ 12-6); only models with `supportsMie` accept it. */
   repulsiveExponent?: number;
+  /** LJ equation of state behind the saturation properties (default Thol 2016; JZG 1993 and KN 1994 for comparison). */
+  eosModel?: LjEosModelId;
 }
 
 /** Where a model is evaluated: the state point, and the measured value where the model must choose a phase. */
@@ -118,37 +121,37 @@ export const PROPERTY_MODELS = {
     },
   },
   saturatedLiquidDensity: {
-    label: 'saturated liquid density (Thol 2016 LJ equation of state)',
+    label: 'saturated liquid density (LJ equation of state, Thol 2016 by default)',
     unit: 'kg/m3',
     needsMolarMass: true,
     needsPressure: false,
     sigmaExponent: -3,
     evaluate(point, epsilonK, sigmaAngstrom, context) {
-      return saturationPrediction('liquidDensity', point.temperatureK, epsilonK, sigmaAngstrom, context.molarMassGPerMol);
+      return saturationPrediction('liquidDensity', point.temperatureK, epsilonK, sigmaAngstrom, context.molarMassGPerMol, context.eosModel);
     },
-    rangeProblem: (point, epsilonK) => saturationRangeProblem(point.temperatureK, epsilonK),
+    rangeProblem: (point, epsilonK, _sigma, context) => saturationRangeProblem(point.temperatureK, epsilonK, context.eosModel),
   },
   saturatedVapourDensity: {
-    label: 'saturated vapour density (Thol 2016 LJ equation of state)',
+    label: 'saturated vapour density (LJ equation of state, Thol 2016 by default)',
     unit: 'kg/m3',
     needsMolarMass: true,
     needsPressure: false,
     sigmaExponent: -3,
     evaluate(point, epsilonK, sigmaAngstrom, context) {
-      return saturationPrediction('vapourDensity', point.temperatureK, epsilonK, sigmaAngstrom, context.molarMassGPerMol);
+      return saturationPrediction('vapourDensity', point.temperatureK, epsilonK, sigmaAngstrom, context.molarMassGPerMol, context.eosModel);
     },
-    rangeProblem: (point, epsilonK) => saturationRangeProblem(point.temperatureK, epsilonK),
+    rangeProblem: (point, epsilonK, _sigma, context) => saturationRangeProblem(point.temperatureK, epsilonK, context.eosModel),
   },
   vapourPressure: {
-    label: 'vapour pressure (Thol 2016 LJ equation of state)',
+    label: 'vapour pressure (LJ equation of state, Thol 2016 by default)',
     unit: 'MPa',
     needsMolarMass: false,
     needsPressure: false,
     sigmaExponent: -3,
     evaluate(point, epsilonK, sigmaAngstrom, context) {
-      return saturationPrediction('vapourPressure', point.temperatureK, epsilonK, sigmaAngstrom, context.molarMassGPerMol);
+      return saturationPrediction('vapourPressure', point.temperatureK, epsilonK, sigmaAngstrom, context.molarMassGPerMol, context.eosModel);
     },
-    rangeProblem: (point, epsilonK) => saturationRangeProblem(point.temperatureK, epsilonK),
+    rangeProblem: (point, epsilonK, _sigma, context) => saturationRangeProblem(point.temperatureK, epsilonK, context.eosModel),
   },
 } satisfies Record<string, PropertyModel>;
 

@@ -38,6 +38,19 @@ describe('fits with saturation properties and B3', () => {
     expect(r.perDataset.map((d) => d.kind)).toEqual(['b2', 'saturatedLiquidDensity', 'vapourPressure', 'saturatedVapourDensity']);
   });
 
+  it('lets the fit use JZG 1993 or Kolafa–Nezbeda 1994 instead of Thol 2016 for comparison', () => {
+    // Data from the Thol equation, fitted through the other two: close (the three agree within their fit accuracy,
+    // see thol-2016.test.ts) but not identical, so the option demonstrably reaches the model.
+    const data = [synthetic('saturatedLiquidDensity', [115, 130, 145, 160], 0.002, 'liq'), synthetic('vapourPressure', [115, 130, 145, 160], 0.01, 'psat')];
+    const thol = fitLennardJones(data, { molarMassGPerMol: M, profiles: false } as Parameters<typeof fitLennardJones>[1]);
+    for (const eosModel of ['jzg1993', 'kn1994'] as const) {
+      const r = fitLennardJones(data, { molarMassGPerMol: M, profiles: false, eosModel } as Parameters<typeof fitLennardJones>[1]);
+      expect(r.status).toBe('succeeded');
+      expect(Math.abs(r.epsilonK / TRUE.epsilonK - 1)).toBeLessThan(0.03);
+      expect(Math.abs(r.epsilonK - thol.epsilonK)).toBeGreaterThan(1e-3);
+    }
+  });
+
   it('recovers ε and σ from B3 alone', () => {
     const r = fitLennardJones([synthetic('b3', [150, 200, 260, 330, 420, 600], 0.02, 'b3')], { profiles: false } as Parameters<typeof fitLennardJones>[1]);
     expect(r.status).toBe('succeeded');

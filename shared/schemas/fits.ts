@@ -40,6 +40,8 @@ export const createFitBody = z.object({
   options: z
     .object({
       quantumCorrection: z.boolean().optional(),
+      /** LJ equation of state behind saturation data (default Thol 2016); JZG 1993 and Kolafa–Nezbeda 1994 for comparison. */
+      eosModel: z.enum(['thol2016', 'jzg1993', 'kn1994']).optional(),
       start: z.object({ epsilonK: z.number().gt(0).lte(10000), sigmaAngstrom: z.number().gt(0).lte(30) }).optional(),
       bounds: z.object({ epsilonK: range('epsilonK', 0.1, 20000), sigmaAngstrom: range('sigmaAngstrom', 0.5, 30) }).optional(),
       restarts: z.number().int().min(0).max(10).optional(),
