@@ -14,6 +14,7 @@ export const TOKEN_ROUTES: ReadonlyArray<{ route: string; path: RegExp }> = [
   { route: 'GET /api/catalog/:id', path: /^\/catalog\/[^/]+\/?$/i },
   { route: 'GET /api/parameter-sets/:id/export', path: /^\/parameter-sets\/[^/]+\/export\/?$/i },
   { route: 'GET /api/mixtures', path: /^\/mixtures\/?$/i },
+  { route: 'GET /api/parameter-sets/:id/predictions', path: /^\/parameter-sets\/[^/]+\/predictions\/?$/i },
   { route: 'GET /api/schemas/:name', path: /^\/schemas\/[^/]+\/?$/i },
   { route: 'GET /api/openapi.json', path: /^\/openapi\.json\/?$/i },
 ];

@@ -39,6 +39,27 @@ export const exportQuery = z
   })
   .strict();
 
+const numberList = (name: string, unit: string) =>
+  z
+    .string({ error: `give ${name} as comma-separated numbers in ${unit}` })
+    .transform((s) => s.split(',').map((x) => x.trim()).filter(Boolean))
+    .pipe(z.array(z.coerce.number<string>({ error: `each of ${name} must be a number` }).positive(`each of ${name} must be above 0`).finite()).min(1, `give at least one of ${name}`).max(200, `at most 200 ${name}`));
+
+/** GET /api/parameter-sets/:id/predictions — a property at the consumer's own states (pressures for densities, one per temperature). */
+export const predictionQuery = z
+  .object({
+    kind: z.enum(['b2', 'viscosity', 'density'], { error: 'kind must be one of b2, viscosity, density' }),
+    temperaturesK: numberList('temperaturesK', 'K'),
+    pressuresMPa: numberList('pressuresMPa', 'MPa').optional(),
+  })
+  .strict()
+  .superRefine((v, ctx) => {
+    if (v.kind === 'density' && v.pressuresMPa?.length !== v.temperaturesK.length) ctx.addIssue({ code: 'custom', path: ['pressuresMPa'], message: 'densities need one pressure per temperature (pressuresMPa)' });
+    if (v.kind !== 'density' && v.pressuresMPa !== undefined) ctx.addIssue({ code: 'custom', path: ['pressuresMPa'], message: `pressures are only used for densities, not for ${v.kind}` });
+  });
+
+export type PredictionQuery = z.infer<typeof predictionQuery>;
+
 /** GET /api/mixtures — two or more distinct set ids, a combining rule, and a format for a file. */
 export const mixtureQuery = z
   .object({

@@ -76,5 +76,25 @@ describe('Mie λr-6 fits with a posterior, through review and export', () => {
     expect(JSON.parse(json.text)).toMatchObject({ model: 'mie', repulsiveExponent: 16 });
     const catalog = await consumer.get('/api/catalog?q=QG-7');
     expect(catalog.body.sets[0]).toMatchObject({ potential: 'mie', repulsiveExponent: 16, potentialLabel: 'Mie 16-6' });
+
+    // Predictions with an API token: B2 from the Mie model at the set's values, interval from the fit's posterior
+    // draws, and a mark outside the validity range (the data span 100–950 K).
+    const token = (await consumer.post('/api/tokens').send({ name: 'QG-7 predictions' })).body.token as string;
+    const pred = await t.client().get(`/api/parameter-sets/${draft.body.id}/predictions?kind=b2&temperaturesK=150,2000`).set({ Authorization: `Bearer ${token}` });
+    expect(pred.status, JSON.stringify(pred.body)).toBe(200);
+    const [inside, outside] = pred.body.predictions;
+    expect(inside.value).toBe(b2WithGradient(150, draft.body.epsilonK, draft.body.sigmaAngstrom, undefined, { repulsiveExponent: 16 }).b2Cm3PerMol);
+    expect(inside).toMatchObject({ unit: 'cm3/mol', intervalMethod: 'posterior draws', outsideValidity: false });
+    expect(inside.lower95).toBeLessThan(inside.value);
+    expect(inside.upper95).toBeGreaterThan(inside.value);
+    expect(inside.standardError).toBeGreaterThan(0);
+    expect(outside.outsideValidity).toBe(true);
+    expect(outside.note).toMatch(/2000 K lies outside the validity range 100–950 K/);
+    const eta = await consumer.get(`/api/parameter-sets/${draft.body.id}/predictions?kind=viscosity&temperaturesK=300`);
+    expect(eta.status).toBe(422);
+    expect(eta.body.error.code).toBe('kind_not_mie');
+    const noPressure = await consumer.get(`/api/parameter-sets/${draft.body.id}/predictions?kind=density&temperaturesK=300`);
+    expect(noPressure.status).toBe(400);
+    expect(noPressure.body.error.details[0].field).toBe('pressuresMPa');
   });
 });

@@ -84,6 +84,10 @@ const PROBES: Record<string, Probe> = {
     path: (i) => `/api/parameter-sets/${i.publishedSet}/export?format=json`,
     published: (i) => ({ published: `/api/parameter-sets/${i.publishedSet}/export?format=json`, unpublished: `/api/parameter-sets/${i.draftSet}/export?format=json` }),
   },
+  'GET /api/parameter-sets/:id/predictions': {
+    path: (i) => `/api/parameter-sets/${i.publishedSet}/predictions?kind=b2&temperaturesK=300`,
+    published: (i) => ({ published: `/api/parameter-sets/${i.publishedSet}/predictions?kind=b2&temperaturesK=300`, unpublished: `/api/parameter-sets/${i.draftSet}/predictions?kind=b2&temperaturesK=300` }),
+  },
   'GET /api/mixtures': { path: (i) => `/api/mixtures?sets=${i.publishedSet}&rule=lorentz-berthelot` },
   'GET /api/substances': { path: () => '/api/substances' },
   'GET /api/substances/:id': { path: (i) => `/api/substances/${i.substance}` },

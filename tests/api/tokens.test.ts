@@ -123,6 +123,7 @@ describe('using a token', () => {
       'GET /api/catalog/:id',
       'GET /api/parameter-sets/:id/export',
       'GET /api/mixtures',
+      'GET /api/parameter-sets/:id/predictions',
       'GET /api/schemas/:name',
       'GET /api/openapi.json',
     ]);

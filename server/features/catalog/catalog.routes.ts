@@ -1,7 +1,8 @@
 import { Router, type Response } from 'express';
 import { MIXTURE_JSON_SCHEMA, PARAMETER_SET_JSON_SCHEMA } from '../../../shared/export/json-schema';
 import type { ExportResult } from '../../../shared/export/parameter-set-export';
-import { catalogQuery, exportQuery, mixtureQuery } from '../../../shared/schemas/catalog';
+import { catalogQuery, exportQuery, mixtureQuery, predictionQuery } from '../../../shared/schemas/catalog';
+import { predictionsOfSet } from './predictions.service';
 import type { AppContext } from '../../app-context';
 import { currentUser, requirePolicy } from '../../common/auth-middleware';
 import { notFound } from '../../common/errors';
@@ -48,6 +49,13 @@ export function catalogRoutes(ctx: AppContext): Router {
     const { format, units } = validQuery(exportQuery, req);
     const set = await exportableSet(db, id, currentUser(res));
     sendFile(res, exportSetFile(set, format, units));
+  });
+
+  // Predictions with propagated uncertainty at the reader's own states; readable with an API token.
+  router.get('/parameter-sets/:id/predictions', requirePolicy('catalog:read'), async (req, res) => {
+    const { id } = validParams(idParams, req);
+    const query = validQuery(predictionQuery, req);
+    res.json(await predictionsOfSet(db, id, currentUser(res), query));
   });
 
   router.get('/mixtures', requirePolicy('catalog:export'), async (req, res) => {

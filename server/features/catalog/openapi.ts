@@ -130,6 +130,29 @@ export function openApiDocument(): OpenApiDocument {
           },
         },
       },
+      '/parameter-sets/{id}/predictions': {
+        get: {
+          operationId: 'predictParameterSet',
+          summary: 'B2, dilute-gas viscosity or density predicted by an approved or superseded set at your own states, with the propagated uncertainty and a mark outside the validity range',
+          parameters: [
+            idParameter,
+            { name: 'kind', in: 'query', required: true, description: 'property', schema: { type: 'string', enum: ['b2', 'viscosity', 'density'] } },
+            { name: 'temperaturesK', in: 'query', required: true, description: 'comma-separated temperatures in K (1–200)', schema: { type: 'string', examples: ['150,200,300'] } },
+            { name: 'pressuresMPa', in: 'query', description: 'for densities: one pressure in MPa per temperature, comma-separated', schema: { type: 'string' } },
+          ],
+          responses: {
+            '200': {
+              description: 'one prediction per state: value, standardError, lower95, upper95 (in unit), intervalMethod, outsideValidity and a note when outside',
+              content: { 'application/json': { schema: { type: 'object', required: ['parameterSetId', 'kind', 'unit', 'predictions'], properties: { parameterSetId: { type: 'integer' }, kind: { type: 'string' }, unit: { type: 'string' }, method: { type: 'string' }, predictions: { type: 'array', items: { type: 'object' } } } } } },
+            },
+            '400': errorResponse('bad query'),
+            '401': errorResponse('no session and no valid token'),
+            '404': errorResponse('no such set (or not visible to you)'),
+            '409': errorResponse('the set is not approved or superseded'),
+            '422': errorResponse('the property has no model for this set (e.g. viscosity of a Mie set) or cannot be evaluated at a state'),
+          },
+        },
+      },
       '/mixtures': {
         get: {
           operationId: 'mixture',
