@@ -134,7 +134,7 @@ describe.skipIf(!available)('what a fitter expects: hold, leave out, notices, ne
     await page.close();
   }, 150_000);
 
-  it('a measurement set without a source citation says it cannot go to review as it is', async () => {
+  it('a measurement set without a source citation says it cannot go to review as it is, and is "Not used yet" until a fit uses it', async () => {
     const page = await browser.context.newPage();
     await signIn(page, app.url, 'modeller@demo.epsigma.test');
     await page.getByRole('navigation', { name: 'Main' }).waitFor();
@@ -145,6 +145,12 @@ describe.skipIf(!available)('what a fitter expects: hold, leave out, notices, ne
     expect(((await upload.json()) as { warnings: string[] }).warnings.length).toBeGreaterThan(0);
     await page.goto(`${app.url}/datasets/${(await upload.json()).id}`);
     await page.getByText(/No source citation/).waitFor();
+    // On the substance page the new set is "Not used yet"; the B2 set the demo fits used is "In use".
+    await page.goto(`${app.url}/substances/${substanceId}`);
+    const table = page.getByRole('table', { name: /Measurement sets of/ });
+    await table.waitFor();
+    expect(await table.getByRole('row').filter({ hasText: 'QG-1 B2, uncited bench check' }).textContent()).toContain('Not used yet');
+    expect(await table.getByRole('row').filter({ hasText: 'QG-1 B2, Burnett runs 2026' }).textContent()).toContain('In use');
     await page.close();
   });
 });

@@ -48,6 +48,7 @@ describe.skipIf(!available)('screens on a phone and a wide screen', () => {
       await page.waitForLoadState('networkidle');
       expect(await menu.getAttribute('aria-expanded'), `${name}: the menu closes after a choice`).toBe('false');
       const { scrollWidth, innerWidth } = await fitsWidth(page);
+      if (scrollWidth > innerWidth) console.log('WIDE', name, await page.evaluate(() => [...document.querySelectorAll('main *')].filter((e) => e.getBoundingClientRect().right > window.innerWidth + 1 && ![...e.children].some((c) => c.getBoundingClientRect().right > window.innerWidth + 1)).slice(0, 8).map((e) => `${e.tagName}.${e.className.toString().slice(0, 60)} ${Math.round(e.getBoundingClientRect().right)} ${(e.textContent ?? '').slice(0, 40)}`)));
       expect(scrollWidth, `${name} is ${scrollWidth} px wide in a ${innerWidth} px window`).toBeLessThanOrEqual(innerWidth);
       await screenshot(page, `phone-${name.toLowerCase().replace(/ /g, '-')}`);
     }
@@ -73,11 +74,41 @@ describe.skipIf(!available)('screens on a phone and a wide screen', () => {
     await page.keyboard.press('Escape');
     expect(await menu.getAttribute('aria-expanded')).toBe('false');
     await menu.click();
+    await screenshot(page, 'phone-menu-open');
     await page.getByRole('button', { name: 'Sign out' }).click();
     await page.waitForURL(/\/sign-in$/);
     await page.getByRole('heading', { name: 'Sign in' }).waitFor();
     await page.waitForTimeout(300);
     expect(messages).toEqual([]);
+    await page.close();
+  });
+
+  it("at 390 px a modeller's pages fit too: a substance, its fits, the fit form, a fit and a parameter set", async () => {
+    const page = await browser.context.newPage();
+    await page.setViewportSize({ width: 390, height: 844 });
+    await signIn(page, app.url, 'modeller@demo.epsigma.test');
+    await page.getByRole('heading', { name: /Good to see you/ }).waitFor();
+    const { substances } = (await (await page.request.get(`${app.url}/api/substances`)).json()) as { substances: Array<{ id: number; name: string }> };
+    const id = substances.find((x) => x.name === 'Quillgas QG-1')!.id;
+    const { fits } = (await (await page.request.get(`${app.url}/api/substances/${id}/fits`)).json()) as { fits: Array<{ id: number; status: string }> };
+    const { parameterSets } = (await (await page.request.get(`${app.url}/api/substances/${id}/parameter-sets`)).json()) as { parameterSets: Array<{ id: number }> };
+    const pages: Array<[string, string]> = [
+      ['substance', `/substances/${id}`],
+      ['fits', `/substances/${id}/fits`],
+      ['fit-form', `/substances/${id}/fits/new`],
+      ...(fits.length ? [['fit', `/fits/${fits.find((f) => f.status === 'succeeded')!.id}`] as [string, string]] : []),
+      ...(parameterSets.length ? [['parameter-set', `/parameter-sets/${parameterSets[0].id}`] as [string, string]] : []),
+    ];
+    expect(pages.length).toBe(5);
+    for (const [name, path] of pages) {
+      await page.goto(`${app.url}${path}`);
+      await page.getByRole('heading', { level: 1 }).first().waitFor();
+      await page.waitForLoadState('networkidle');
+      await screenshot(page, `phone-${name}`);
+      const { scrollWidth, innerWidth } = await fitsWidth(page);
+      if (scrollWidth > innerWidth) console.log('WIDE', name, await page.evaluate(() => [...document.querySelectorAll('main *')].filter((e) => e.getBoundingClientRect().right > window.innerWidth + 1 && ![...e.children].some((c) => c.getBoundingClientRect().right > window.innerWidth + 1)).slice(0, 8).map((e) => `${e.tagName}.${e.className.toString().slice(0, 60)} ${Math.round(e.getBoundingClientRect().right)} ${(e.textContent ?? '').slice(0, 40)}`)));
+      expect(scrollWidth, `${name} is ${scrollWidth} px wide in a ${innerWidth} px window`).toBeLessThanOrEqual(innerWidth);
+    }
     await page.close();
   });
 

@@ -25,7 +25,7 @@ export function FitDetailRoute() {
   const f = fit.data;
   const { names, weights, context } = fitContext(f);
   const r = f.result;
-  const leftOut = f.datasets.filter((d) => (d as { excludeRows?: number[] }).excludeRows?.length);
+  const leftOut = f.datasets.filter((d) => d.excludeRows?.length);
   return (
     <>
       <PageHeader
@@ -57,15 +57,12 @@ export function FitDetailRoute() {
       )}
       {leftOut.length > 0 && (
         <div role="note" className="mb-6 rounded-md bg-paper-deep px-4 py-2 text-sm">
-          {leftOut.map((d) => {
-            const x = d as typeof d & { excludeRows?: number[]; excludeReason?: string | null };
-            return (
-              <p key={d.datasetId}>
-                Left out of {d.name} v{d.version}: row{x.excludeRows!.length > 1 ? 's' : ''} {x.excludeRows!.join(', ')}
-                {x.excludeReason ? ` — “${x.excludeReason}”` : ''}.
-              </p>
-            );
-          })}
+          {leftOut.map((d) => (
+            <p key={d.datasetId}>
+              Left out of {d.name} v{d.version}: row{d.excludeRows!.length > 1 ? 's' : ''} {d.excludeRows!.join(', ')}
+              {d.excludeReason ? ` — “${d.excludeReason}”` : ''}.
+            </p>
+          ))}
         </div>
       )}
       {hasEvidence(r) && (

@@ -29,9 +29,15 @@ const STYLE = {
 /** Several series of one kind (isotherms, isobars) keep their colour and differ by marker shape. */
 const SHAPES = ['circle', 'triangle', 'rect', 'rectRot', 'star', 'crossRot', 'rectRounded', 'cross'] as const;
 
+/** Points drawn open (left out of the fit) become a series of their own, so the legend names them. */
 function toDatasets(series: ChartSeries[]) {
   const counts: Record<string, number> = {};
-  return series.map((s) => toDataset(s, (counts[s.kind] = (counts[s.kind] ?? -1) + 1)));
+  return series.flatMap((s) => {
+    const index = (counts[s.kind] = (counts[s.kind] ?? -1) + 1);
+    const open = s.points.filter((p) => p.hollow);
+    if (!open.length || s.kind === 'model') return [toDataset(s, index)];
+    return [toDataset({ ...s, points: s.points.filter((p) => !p.hollow) }, index), toDataset({ ...s, label: `${s.label}, left out`, points: open }, index)];
+  });
 }
 
 function toDataset(s: ChartSeries, indexOfKind: number) {

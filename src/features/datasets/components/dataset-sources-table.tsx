@@ -21,6 +21,7 @@ export interface DatasetSourceRow {
  */
 export function DatasetSourcesTable({ rows, linkToDatasets = false, showSha = false }: { rows: DatasetSourceRow[]; linkToDatasets?: boolean; showSha?: boolean }) {
   return (
+    <div className="overflow-x-auto">
     <table className="w-full text-sm">
       <thead className="border-b border-rule text-xs tracking-wide text-ink-faint">
         <tr>
@@ -48,5 +49,6 @@ export function DatasetSourcesTable({ rows, linkToDatasets = false, showSha = fa
         ))}
       </tbody>
     </table>
+    </div>
   );
 }

@@ -13,6 +13,9 @@ export interface FitDatasetRef {
   kind: PropertyKind;
   name: string;
   weight: number;
+  /** Rows (counted from 1) left out of the fit, and why. */
+  excludeRows?: number[];
+  excludeReason?: string | null;
 }
 
 export interface Fit {
@@ -44,7 +47,10 @@ export interface FitListItem {
   createdByName: string;
   status: FitStatus;
   progress: number;
-  datasets: Array<{ datasetId: number; name: string; kind: PropertyKind; version: number }>;
+  datasets: Array<{ datasetId: number; name: string; kind: PropertyKind; version: number; excludeRows?: number[] }>;
+  /** False for a failed fit that kept its last iterate; null while queued or running. */
+  converged?: boolean | null;
+  heldParameters?: Array<'epsilonK' | 'sigmaAngstrom'>;
   epsilonK: number | null;
   sigmaAngstrom: number | null;
   stdErr: { epsilonK: number | null; sigmaAngstrom: number | null } | null;

@@ -4,6 +4,13 @@ import { CHART_COLORS } from '@/components/charts/chart-setup';
 
 /** The 95 % joint confidence region of (ε/k_B, σ) with the best estimate. */
 export function EllipseChart({ result, height = 260 }: { result: LjFitResult; height?: number }) {
+  const held = result.heldParameters ?? [];
+  if (held.length)
+    return (
+      <p className="text-sm text-ink-soft">
+        {held.includes('sigmaAngstrom') ? 'σ' : 'ε/k_B'} is held, so there is no joint region: only {held.includes('sigmaAngstrom') ? 'ε/k_B' : 'σ'} was fitted, and its standard error and profile interval say how well the data fix it at the held value.
+      </p>
+    );
   if (!result.ellipse95) return <p className="text-sm text-ink-soft">No confidence region: the covariance could not be computed (see the warnings).</p>;
   const pts = result.ellipse95.points.map((p) => ({ x: p.epsilonK, y: p.sigmaAngstrom }));
   return (

@@ -1,9 +1,9 @@
 import { Link } from 'react-router-dom';
-import { formatSignificant } from '@shared/format/numbers';
 import { ErrorState, LoadingState } from '@/components/ui/states';
 import { useParameterSetDiff } from '../api/parameter-sets';
 
-const text = (v: string | number | null) => (v === null ? '—' : typeof v === 'number' ? formatSignificant(v, 6) : v);
+/** A value as stored, without padding zeros (1, 2.5, 131.004). */
+const text = (v: string | number | null) => (v === null ? '—' : typeof v === 'number' ? String(Number(v.toPrecision(8))) : v);
 
 /** A revision against the version it revises: every value, scheme, validity and data change, before and after. */
 export function RevisionDiff({ parameterSetId }: { parameterSetId: number }) {
