@@ -167,7 +167,7 @@ export class LjFitInputError extends Error {
 export const DEFAULT_LJ_BOUNDS: LjBounds = { epsilonK: [1, 5000], sigmaAngstrom: [1, 15] };
 const DEFAULT_RESTARTS = 2;
 /** Seed of the restart perturbations: fixed so that a fit is reproducible. */
-const RESTART_SEED = 20240611;
+export const RESTART_SEED = 20240611;
 const PARAMETER_NAMES = ['epsilonK', 'sigmaAngstrom'] as const;
 /** |correlation(ε, σ)| above which the result warns that only a combination of the two is determined (common practice, no source). */
 export const STRONG_CORRELATION = 0.95;

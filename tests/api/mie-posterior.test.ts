@@ -1,4 +1,6 @@
+import { createHash } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { resultDifferences } from '../../server/features/parameter-sets/manifest.service';
 import { b2WithGradient } from '../../shared/physics/virial';
 import { newSubstance } from './approved-set';
 import { EMAIL, startTestApp, type TestApp } from './test-app';
@@ -96,5 +98,24 @@ describe('Mie λr-6 fits with a posterior, through review and export', () => {
     const noPressure = await consumer.get(`/api/parameter-sets/${draft.body.id}/predictions?kind=density&temperaturesK=300`);
     expect(noPressure.status).toBe(400);
     expect(noPressure.body.error.details[0].field).toBe('pressuresMPa');
+
+    // Reproducible by anyone: the manifest names the data by SHA-256, and a re-run repeats the fit (posterior included) to the last digit.
+    const manifest = (await consumer.get(`/api/parameter-sets/${draft.body.id}/manifest`)).body;
+    expect(manifest.datasets[0].sha256).toBe(createHash('sha256').update(mieB2Csv()).digest('hex'));
+    expect(manifest.seeds).toMatchObject({ restartPerturbations: 20240611, posterior: 20261202 });
+    expect(manifest.options).toMatchObject({ model: 'mie', repulsiveExponent: 16, posterior: { samples: 300 } });
+    const rerun = await consumer.get(`/api/parameter-sets/${draft.body.id}/rerun`);
+    expect(rerun.status, JSON.stringify(rerun.body)).toBe(200);
+    expect(rerun.body.differences).toEqual([]);
+    expect(rerun.body.reproduced).toBe(true);
+    expect(rerun.body.rerun.epsilonK).toBe(r.epsilonK);
+    expect(rerun.body.rerun['posterior.epsilonK']).toEqual(r.posterior.epsilonK);
+  });
+
+  it('the re-run comparison notices a difference in the last digit', () => {
+    const a = { epsilonK: 150.0, sigmaAngstrom: 3.7, stdErr: { epsilonK: 0.1, sigmaAngstrom: 0.001 }, chi2: 1.5 };
+    expect(resultDifferences(a, JSON.parse(JSON.stringify(a)))).toEqual([]);
+    expect(resultDifferences(a, { ...a, epsilonK: 150.00000000000003 }).map((d) => d.field)).toEqual(['epsilonK']);
+    expect(resultDifferences(a, { ...a, stdErr: { ...a.stdErr, sigmaAngstrom: 0.0010000000000000002 } }).map((d) => d.field)).toEqual(['stdErr.sigmaAngstrom']);
   });
 });

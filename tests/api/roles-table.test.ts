@@ -123,6 +123,8 @@ const PROBES: Record<string, Probe> = {
   'GET /api/substances/:id/parameter-sets': { path: (i) => `/api/substances/${i.substance}/parameter-sets` },
   'GET /api/parameter-sets/:id': { path: (i) => `/api/parameter-sets/${i.draftSet}`, published: (i) => ({ published: `/api/parameter-sets/${i.publishedSet}`, unpublished: `/api/parameter-sets/${i.draftSet}` }) },
   'GET /api/parameter-sets/:id/diff': { path: (i) => `/api/parameter-sets/${i.draftSet}/diff`, published: (i) => ({ published: `/api/parameter-sets/${i.publishedSet}/diff`, unpublished: `/api/parameter-sets/${i.draftSet}/diff` }) },
+  'GET /api/parameter-sets/:id/manifest': { path: (i) => `/api/parameter-sets/${i.draftSet}/manifest`, published: (i) => ({ published: `/api/parameter-sets/${i.publishedSet}/manifest`, unpublished: `/api/parameter-sets/${i.draftSet}/manifest` }) },
+  'GET /api/parameter-sets/:id/rerun': { path: (i) => `/api/parameter-sets/${i.draftSet}/rerun`, published: (i) => ({ published: `/api/parameter-sets/${i.publishedSet}/rerun`, unpublished: `/api/parameter-sets/${i.draftSet}/rerun` }) },
   'POST /api/parameter-sets': { path: () => '/api/parameter-sets' },
   'PATCH /api/parameter-sets/:id': {
     path: (i) => `/api/parameter-sets/${i.draftSet}`,

@@ -37,7 +37,7 @@ export interface FitJobInput {
 }
 
 /** The worker payload, read from the frozen references: rows come from the immutable versions. */
-async function fitPayload(db: Db, input: FitJobInput) {
+export async function fitPayload(db: Db, input: FitJobInput) {
   const datasets: FitDataset[] = [];
   for (const ref of input.datasets) {
     const rows = await loadVersionForFit(db, ref.versionId);

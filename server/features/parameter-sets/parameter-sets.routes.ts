@@ -14,6 +14,7 @@ import type { AppContext } from '../../app-context';
 import { currentUser, requirePolicy } from '../../common/auth-middleware';
 import { idParams, validBody, validParams, validQuery } from '../../common/validate';
 import { diffWithPrevious } from './parameter-sets.diff';
+import { manifestOf, rerunOf } from './manifest.service';
 import { listReviewQueue } from './parameter-sets.repository';
 import {
   addComment,
@@ -57,6 +58,17 @@ export function parameterSetRoutes(ctx: AppContext): Router {
   router.get('/parameter-sets/:id', requirePolicy('parameterSet:read'), async (req, res) => {
     const { id } = validParams(idParams, req);
     res.json(await getParameterSetDetail(db, id, currentUser(res)));
+  });
+
+  // Reproducible by anyone who may read the set: its manifest, and a re-run of a gas-phase fit compared to the last digit.
+  router.get('/parameter-sets/:id/manifest', requirePolicy('parameterSet:read'), async (req, res) => {
+    const { id } = validParams(idParams, req);
+    res.json(await manifestOf(db, id, currentUser(res)));
+  });
+
+  router.get('/parameter-sets/:id/rerun', requirePolicy('parameterSet:read'), async (req, res) => {
+    const { id } = validParams(idParams, req);
+    res.json(await rerunOf(db, id, currentUser(res)));
   });
 
   router.get('/parameter-sets/:id/diff', requirePolicy('parameterSet:read'), async (req, res) => {
