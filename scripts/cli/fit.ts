@@ -178,7 +178,13 @@ async function densityStage(datasets: FitDataset[], eos: LjFitResult, molarMassG
       mdRuns: cache.size,
       mdRunsReused: reused,
       mdSettings: md,
-      mdIterations: result.mdIterations.map((i) => ({ iteration: i.iteration, epsilonK: i.epsilonK, sigmaAngstrom: i.sigmaAngstrom, chi2: i.chi2, accepted: i.accepted })),
+      mdIterations: result.mdIterations.map((i) => ({ iteration: i.iteration, epsilonK: i.epsilonK, sigmaAngstrom: i.sigmaAngstrom, chi2: i.chi2, accepted: i.accepted, reason: i.reason, reweightedSteps: i.reweightedSteps })),
+      mdRounds: result.mdRounds,
+      stoppedBy: result.stoppedBy,
+      newRuns: result.newRuns,
+      reusedRuns: result.reusedRuns,
+      reweightedPoints: result.reweightedPoints,
+      effectiveSamples: result.residuals.filter((r) => r.kind === 'density').map((r) => r.effectiveSamples),
       stoppingRule: result.stoppingRule,
     });
   } finally {

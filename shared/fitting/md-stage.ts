@@ -206,10 +206,19 @@ function densityStates(points: MdStagePoint[], epsilonK: number, sigmaAngstrom: 
   return out;
 }
 
-/** Why a density point's state is not simulated at all (solid region, no fluid root), or null. */
+const regionMemo = new Map<string, string | null>();
+
+/** Why a density point's state is not simulated at all (solid region, no fluid root), or null. Remembered per state. */
 function regionProblem(state: MdStatePoint): string | null {
-  const r = ljRegionOf(state.reducedTemperature, state.reducedPressure);
-  return r.region === 'fluid' ? null : r.reason ?? r.region;
+  const key = stateKey(state);
+  let problem = regionMemo.get(key);
+  if (problem === undefined) {
+    const r = ljRegionOf(state.reducedTemperature, state.reducedPressure);
+    problem = r.region === 'fluid' ? null : r.reason ?? r.region;
+    if (regionMemo.size > 10_000) regionMemo.clear();
+    regionMemo.set(key, problem);
+  }
+  return problem;
 }
 
 function evaluate(points: MdStagePoint[], epsilonK: number, sigmaAngstrom: number, options: MdStageOptions, book: RunBook, leftOut: Map<number, string>): Evaluation {

@@ -10,7 +10,7 @@
  * below it a dense fluid is never stable. The fluid density at the state comes from the Kolafa–Nezbeda (1994)
  * equation (kolafa-nezbeda-1994.ts), its stable root by chemical potential.
  */
-import { knDensityRoots } from './kolafa-nezbeda-1994';
+import { knDensity, knDensityRoots, knPressure } from './kolafa-nezbeda-1994';
 
 export const LJ_TRIPLE_POINT_TEMPERATURE = 0.694;
 
@@ -40,9 +40,28 @@ export interface LjRegionCheck {
 /**
  * Is (T*, P*) a fluid state of the LJ model? 'no-fluid-root' when the equation of state has no root there,
  * 'solid' when its stable root is denser than the liquid at freezing, or is a dense fluid below the triple point.
+ * `reducedDensity` is given for solid states and below the triple point.
  */
 export function ljRegionOf(reducedTemperature: number, reducedPressure: number): LjRegionCheck {
   const state = `T* = ${reducedTemperature.toFixed(3)}, P* = ${reducedPressure.toFixed(3)}`;
+  if (reducedTemperature >= LJ_TRIPLE_POINT_TEMPERATURE && reducedPressure > 0) {
+    // Fast path (a fit asks this for every trial step): above the triple point the liquid at freezing is denser than
+    // the saturated liquid, and the isotherm rises monotonically beyond it, so the stable fluid root lies beyond the
+    // freezing density exactly when P* exceeds the pressure there.
+    const freeze = freezingLiquidDensity(reducedTemperature);
+    if (reducedPressure <= knPressure(freeze, reducedTemperature)) return { region: 'fluid' };
+    let rho: number | undefined;
+    try {
+      rho = knDensity(reducedTemperature, reducedPressure, { phase: 'liquid' }).reducedDensity;
+    } catch {
+      rho = undefined;
+    }
+    return {
+      region: 'solid',
+      ...(rho !== undefined ? { reducedDensity: rho } : {}),
+      reason: `${state} lies in the solid region: the fluid would have ρ* = ${rho?.toFixed(3) ?? '?'}, denser than the liquid at freezing (ρ* = ${freeze.toFixed(3)}, Mastny & de Pablo 2007)`,
+    };
+  }
   let roots;
   try {
     roots = knDensityRoots(reducedTemperature, reducedPressure);

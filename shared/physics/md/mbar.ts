@@ -61,9 +61,6 @@ export type ReweightOutcome = ({ ok: true } & ReweightPrediction) | { ok: false;
  */
 export const DEFAULT_MIN_REWEIGHT_SAMPLES = 20;
 
-/** Runs whose own frames carry fewer effective samples than this at the target are left out of the MBAR solve. */
-const MIN_SAMPLES_PER_RUN = 1;
-
 /** A run from a task result's frames (frames.ts). */
 export function reweightRunFromFrames(
   id: number,
@@ -84,27 +81,13 @@ export function reweightRunFromFrames(
 const reduced = (h: number, v: number, s: ReweightState) => (h + s.reducedPressure * v) / s.reducedTemperature;
 
 function logSumExp(values: Float64Array | number[]): number {
+  const length = values.length;
   let max = -Infinity;
-  for (const v of values) if (v > max) max = v;
+  for (let i = 0; i < length; i++) if (values[i] > max) max = values[i];
   if (!Number.isFinite(max)) return max;
   let s = 0;
-  for (const v of values) s += Math.exp(v - max);
+  for (let i = 0; i < length; i++) s += Math.exp(values[i] - max);
   return max + Math.log(s);
-}
-
-/** Kish effective samples of one run's frames reweighted alone to the target (for choosing the runs of a solve). */
-function singleRunSamples(run: ReweightRun, target: ReweightState): number {
-  const n = run.volume.length;
-  const logW = new Float64Array(n);
-  const own: ReweightState = run;
-  for (let i = 0; i < n; i++) {
-    const h = run.hamiltonianPotential[i];
-    const v = run.volume[i];
-    logW[i] = reduced(h, v, own) - reduced(h, v, target);
-  }
-  const a = logSumExp(logW);
-  const b = logSumExp(logW.map((x) => 2 * x));
-  return Math.exp(2 * a - b) / Math.max(1, run.statisticalInefficiency);
 }
 
 /**
@@ -118,7 +101,7 @@ class MbarSolve {
   readonly v: Float64Array;
 
   constructor(readonly runs: ReweightRun[]) {
-    const total = runs.reduce((s, r) => s + r.volume.length, 0);
+    let total = runs.reduce((s, r) => s + r.volume.length, 0);
     this.h = new Float64Array(total);
     this.v = new Float64Array(total);
     this.runOf = new Int32Array(total);
@@ -130,12 +113,32 @@ class MbarSolve {
       o += r.volume.length;
     });
     const K = runs.length;
+    // The free energies are solved on every ⌈g_k/2⌉-th frame of each run (nearly independent samples, Shirts & Chodera
+    // 2008, section II.C); the weights then use every frame. A run alone needs no solve (f_0 = 0): the identity at its
+    // own state is exact.
+    const fullTotal = total;
+    const pick: number[] = [];
+    const subCounts = runs.map(() => 0);
+    {
+      let start = 0;
+      runs.forEach((r, k) => {
+        const stride = K > 1 ? Math.max(1, Math.floor(r.statisticalInefficiency / 2)) : r.volume.length;
+        for (let i = 0; i < r.volume.length; i += stride) {
+          pick.push(start + i);
+          subCounts[k]++;
+        }
+        start += r.volume.length;
+      });
+    }
+    const subTotal = pick.length;
     const u = runs.map((r) => {
-      const row = new Float64Array(total);
-      for (let n = 0; n < total; n++) row[n] = reduced(this.h[n], this.v[n], r);
+      const row = new Float64Array(subTotal);
+      for (let m = 0; m < subTotal; m++) row[m] = reduced(this.h[pick[m]], this.v[pick[m]], r);
       return row;
     });
-    const logN = runs.map((r) => Math.log(r.volume.length));
+    const logN = subCounts.map((c) => Math.log(c));
+    const counts = subCounts;
+    total = subTotal;
     const f = new Float64Array(K);
     const logDen = new Float64Array(total);
     const terms = new Float64Array(K);
@@ -145,34 +148,102 @@ class MbarSolve {
         logDen[n] = logSumExp(terms);
       }
     };
-    // Self-consistent iteration (Shirts & Chodera 2008, eq. 11), f_0 = 0, until the free energies settle to 1e-9.
+    // From f = 0: a few self-consistent
+    // iterations (Shirts & Chodera 2008, eq. 11), then Newton–Raphson on Σ_n W_nk = 1 (their Appendix C), f_0 = 0.
     const work = new Float64Array(total);
-    for (let iteration = 0; iteration < 2000 && K > 1; iteration++) {
+    const selfConsistent = () => {
       computeDenominator();
-      let change = 0;
       const next = new Float64Array(K);
       for (let i = 0; i < K; i++) {
         for (let n = 0; n < total; n++) work[n] = -u[i][n] - logDen[n];
         next[i] = -logSumExp(work);
       }
-      for (let i = K - 1; i >= 0; i--) next[i] -= next[0];
+      let change = 0;
       for (let i = 0; i < K; i++) {
-        change = Math.max(change, Math.abs(next[i] - f[i]));
-        f[i] = next[i];
+        const v = next[i] - next[0];
+        change = Math.max(change, Math.abs(v - f[i]));
+        f[i] = v;
       }
-      if (change < 1e-9) break;
+      return change;
+    };
+    let change = Infinity;
+    for (let iteration = 0; iteration < 10 && K > 1 && change > 1e-9; iteration++) change = selfConsistent();
+    for (let iteration = 0; iteration < 50 && K > 1 && change > 1e-9; iteration++) {
+      computeDenominator();
+      // W_nk = exp(f_k − u_k(x_n) − logDen_n); F_i = Σ_n W_ni − 1; J_ij = δ_ij Σ_n W_ni − N_j Σ_n W_ni W_nj.
+      const sumW = new Float64Array(K);
+      const J = Array.from({ length: K }, () => new Float64Array(K));
+      const w = new Float64Array(K);
+      for (let n = 0; n < total; n++) {
+        for (let k = 0; k < K; k++) w[k] = Math.exp(f[k] - u[k][n] - logDen[n]);
+        for (let i = 0; i < K; i++) {
+          sumW[i] += w[i];
+          for (let j = 0; j < K; j++) J[i][j] -= counts[j] * w[i] * w[j];
+        }
+      }
+      for (let i = 0; i < K; i++) J[i][i] += sumW[i];
+      // Solve the (K − 1) system without f_0 by Gaussian elimination with partial pivoting.
+      const m = K - 1;
+      const A = Array.from({ length: m }, (_, r) => [...Array.from({ length: m }, (_, c) => J[r + 1][c + 1]), sumW[r + 1] - 1]);
+      let singular = false;
+      for (let c = 0; c < m; c++) {
+        let piv = c;
+        for (let r = c + 1; r < m; r++) if (Math.abs(A[r][c]) > Math.abs(A[piv][c])) piv = r;
+        if (!(Math.abs(A[piv][c]) > 1e-300)) {
+          singular = true;
+          break;
+        }
+        [A[c], A[piv]] = [A[piv], A[c]];
+        for (let r = c + 1; r < m; r++) {
+          const q = A[r][c] / A[c][c];
+          for (let k = c; k <= m; k++) A[r][k] -= q * A[c][k];
+        }
+      }
+      if (singular) {
+        change = selfConsistent();
+        continue;
+      }
+      const delta = new Float64Array(m);
+      for (let r = m - 1; r >= 0; r--) {
+        let v = A[r][m];
+        for (let k = r + 1; k < m; k++) v -= A[r][k] * delta[k];
+        delta[r] = v / A[r][r];
+      }
+      // A Newton step larger than one unit of k_BT per state is cut back (poor overlap makes J nearly singular).
+      const largest = delta.reduce((a, b) => Math.max(a, Math.abs(b)), 0);
+      const scale = largest > 1 ? 1 / largest : 1;
+      change = 0;
+      for (let i = 1; i < K; i++) {
+        f[i] -= scale * delta[i - 1];
+        change = Math.max(change, Math.abs(scale * delta[i - 1]));
+      }
+      if (!delta.every(Number.isFinite)) {
+        f.fill(0);
+        change = Infinity;
+        for (let it = 0; it < 2000 && change > 1e-9; it++) change = selfConsistent();
+        break;
+      }
     }
-    computeDenominator();
-    this.logDenominator = logDen;
+    // Denominators of every frame with the solved free energies and the full frame counts.
+    const fullLogN = runs.map((r) => Math.log(r.volume.length));
+    const full = new Float64Array(fullTotal);
+    for (let n = 0; n < fullTotal; n++) {
+      for (let k = 0; k < K; k++) terms[k] = fullLogN[k] + f[k] - reduced(this.h[n], this.v[n], runs[k]);
+      full[n] = logSumExp(terms);
+    }
+    this.logDenominator = full;
   }
+
+  /** Scratch for the weights, reused by every prediction (a fit asks for hundreds). */
+  private scratch: Float64Array = new Float64Array(0);
 
   predict(target: ReweightState): { prediction: ReweightPrediction } {
     const total = this.v.length;
-    const logW = new Float64Array(total);
-    for (let n = 0; n < total; n++) logW[n] = -reduced(this.h[n], this.v[n], target) - this.logDenominator[n];
-    const norm = logSumExp(logW);
-    const w = new Float64Array(total);
-    for (let n = 0; n < total; n++) w[n] = Math.exp(logW[n] - norm);
+    if (this.scratch.length !== total) this.scratch = new Float64Array(total);
+    const w = this.scratch;
+    for (let n = 0; n < total; n++) w[n] = -reduced(this.h[n], this.v[n], target) - this.logDenominator[n];
+    const norm = logSumExp(w);
+    for (let n = 0; n < total; n++) w[n] = Math.exp(w[n] - norm);
     const atoms = this.runs[0].atoms;
     let rho = 0;
     let hc = 0;
@@ -224,14 +295,10 @@ class MbarSolve {
   }
 }
 
-/**
- * A pool of runs of one engine setting that predicts ⟨ρ*⟩ at nearby states. Each prediction solves MBAR over the
- * runs that overlap the target (solutions are cached by the set of runs), so a pool of many runs spread over a
- * phase diagram stays cheap.
- */
+/** A pool of runs of one engine setting that predicts ⟨ρ*⟩ at nearby states (one MBAR solve over all its runs). */
 export class ReweightPool {
   private readonly runs: ReweightRun[] = [];
-  private readonly solves = new Map<string, MbarSolve>();
+  private solve: MbarSolve | null = null;
 
   constructor(runs: ReweightRun[] = [], readonly minEffectiveSamples = DEFAULT_MIN_REWEIGHT_SAMPLES) {
     for (const r of runs) this.add(r);
@@ -250,27 +317,20 @@ export class ReweightPool {
     if (this.runs.length && run.atoms !== this.runs[0].atoms) throw new RangeError(`run ${run.id} has ${run.atoms} atoms, the pool ${this.runs[0].atoms}`);
     if (run.volume.length === 0 || run.volume.length !== run.hamiltonianPotential.length) throw new RangeError(`run ${run.id} has no usable frames`);
     this.runs.push(run);
+    this.solve = null;
   }
 
-  /** ⟨ρ*⟩ and its derivatives at the target, or a refusal when the runs carry too few effective samples there. */
+  /**
+   * ⟨ρ*⟩ and its derivatives at the target, or a refusal when the runs carry too few effective samples there. MBAR is
+   * solved once over all runs of the pool (again only when a run is added); runs far from the target get no weight.
+   */
   predict(target: ReweightState): ReweightOutcome {
-    const chosen = this.runs
-      .map((r) => ({ r, samples: singleRunSamples(r, target) }))
-      .filter((x) => x.samples >= MIN_SAMPLES_PER_RUN)
-      .sort((a, b) => b.samples - a.samples)
-      .slice(0, 8)
-      .map((x) => x.r)
-      .sort((a, b) => a.id - b.id);
-    if (chosen.length === 0) {
-      return { ok: false, effectiveSamples: 0, reason: `no stored run overlaps T* = ${target.reducedTemperature.toFixed(4)}, P* = ${target.reducedPressure.toFixed(4)}` };
+    if (this.runs.length === 0) return { ok: false, effectiveSamples: 0, reason: 'no stored runs' };
+    if (!this.solve) this.solve = new MbarSolve([...this.runs].sort((a, b) => a.id - b.id));
+    const { prediction } = this.solve.predict(target);
+    if (!(prediction.effectiveSamples >= 1)) {
+      return { ok: false, effectiveSamples: prediction.effectiveSamples, reason: `no stored run overlaps T* = ${target.reducedTemperature.toFixed(4)}, P* = ${target.reducedPressure.toFixed(4)}` };
     }
-    const key = chosen.map((r) => r.id).join(',');
-    let solve = this.solves.get(key);
-    if (!solve) {
-      solve = new MbarSolve(chosen);
-      this.solves.set(key, solve);
-    }
-    const { prediction } = solve.predict(target);
     if (!(prediction.effectiveSamples >= this.minEffectiveSamples)) {
       return {
         ok: false,
