@@ -29,10 +29,19 @@ describe.skipIf(!available)('a Mie λr-6 parameter set in Chromium', () => {
       multipart: { substanceId: String(substanceId), property: 'b2', name: 'QG-9 B2', source: 'Fenwick Thermophysics Laboratory, invented run 9', doi: '10.1000/epsigma.mie.9', file: { name: 'b2.csv', mimeType: 'text/csv', buffer: mieB2Csv() } },
     });
     expect(upload.status()).toBe(201);
-    const fit = await page.request.post(`${app.url}/api/fits`, { headers, data: { substanceId, datasets: [{ id: (await upload.json()).id }], options: { model: 'mie', repulsiveExponent: 16 } } });
+    const fit = await page.request.post(`${app.url}/api/fits`, { headers, data: { substanceId, datasets: [{ id: (await upload.json()).id }], options: { model: 'mie', repulsiveExponent: 16, posterior: { samples: 200 } } } });
     expect(fit.status()).toBe(202);
     const fitId = (await fit.json()).id;
     await expect.poll(async () => (await (await page.request.get(`${app.url}/api/fits/${fitId}`)).json()).status, { timeout: 60_000 }).toBe('succeeded');
+    // The fit page shows the posterior beside the linearised intervals and the next measurements to make.
+    await page.goto(`${app.url}/fits/${fitId}`);
+    await page.getByRole('heading', { name: 'Posterior (Bayesian)' }).waitFor();
+    await page.getByText('Mie 16-6 on QG-9 B2 v1').waitFor();
+    expect(await page.getByRole('table', { name: 'Posterior against linearised intervals' }).getByRole('row').count()).toBe(3);
+    const next = page.getByRole('list', { name: 'Next measurements, best first' });
+    expect(await next.getByRole('listitem').count()).toBeGreaterThan(0);
+    expect(await next.getByRole('listitem').first().textContent()).toMatch(/^B2 at [\d.]+ K \(expected .* cm3\/mol\) would make the joint 95 % region \d+ % smaller\.$/);
+    await screenshot(page, 'mie-fit-insights');
     const draft = await page.request.post(`${app.url}/api/parameter-sets`, { headers, data: { fitId, rationale: 'Mie 16-6 fits the QG-9 B2 table within its uncertainty.' } });
     expect(draft.status()).toBe(201);
     const setId = (await draft.json()).id;

@@ -10,6 +10,7 @@ import { useCan } from '@/lib/authorization';
 import { useCancelFit, useFit } from '@/features/fits/api/fits';
 import { FitEvidence, fitContext, hasEvidence } from '@/features/fits/components/fit-evidence';
 import { FitStatusBadge } from '@/features/fits/components/fit-status-badge';
+import { FitInsights } from '@/features/fits/components/fit-insights';
 import { WhatIfPanel } from '@/features/fits/components/what-if-panel';
 import { DraftParameterSetPanel } from '@/features/parameter-sets/components/draft-panel';
 
@@ -33,7 +34,7 @@ export function FitDetailRoute() {
         title={`Fit #${f.number}`}
         subtitle={
           <span className="flex flex-wrap items-center gap-2">
-            <FitStatusBadge status={f.status} /> LJ 12-6 on {f.datasets.map((d) => `${d.name} v${d.version}${d.weight !== 1 ? ` (weight ${d.weight})` : ''}`).join(', ')}
+            <FitStatusBadge status={f.status} /> {r?.model === 'mie' && r.repulsiveExponent !== undefined ? `Mie ${Number(r.repulsiveExponent.toFixed(2))}-6` : 'LJ 12-6'} on {f.datasets.map((d) => `${d.name} v${d.version}${d.weight !== 1 ? ` (weight ${d.weight})` : ''}`).join(', ')}
           </span>
         }
         action={<Link to={`/substances/${f.substanceId}/fits`} className="text-sm font-semibold text-copper underline underline-offset-4">All fits of {f.substanceName}</Link>}
@@ -80,6 +81,7 @@ export function FitDetailRoute() {
               <WhatIfPanel result={r} names={names} context={context} weights={weights} />
             </Panel>
           )}
+          {r.status === 'succeeded' && <FitInsights result={r} />}
           {canDraft && r.status === 'succeeded' && <DraftParameterSetPanel fitId={f.id} result={r} />}
         </div>
       )}

@@ -14,7 +14,8 @@ export function fitContext(fit: Fit) {
   return {
     names: Object.fromEntries(fit.datasets.map((d) => [String(d.datasetId), `${d.name} v${d.version}`])),
     weights: Object.fromEntries(fit.datasets.map((d) => [String(d.datasetId), d.weight])),
-    context: { molarMassGPerMol: fit.options.molarMassGPerMol, quantumCorrection: !!fit.options.quantumCorrection },
+    // A Mie fit's curves and what-if values use its λr (held or fitted); absent or 12 is LJ 12-6.
+    context: { molarMassGPerMol: fit.options.molarMassGPerMol, quantumCorrection: !!fit.options.quantumCorrection, ...(fit.result?.repulsiveExponent !== undefined && fit.result.repulsiveExponent !== 12 ? { repulsiveExponent: fit.result.repulsiveExponent } : {}) },
   };
 }
 
