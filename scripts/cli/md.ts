@@ -11,7 +11,7 @@ import { errorMessage, finiteNumberFlag, parseFlags, requiredFlag } from './_fla
 
 const USAGE =
   'usage: md --reduced-temperature <T*> --reduced-pressure <P*> [--atoms N] [--steps S] [--cutoff RC] ' +
-  '[--scheme truncated-tail|truncated-shifted] [--seed K] [--trace] --json';
+  '[--scheme truncated-tail|truncated-shifted] [--seed K] [--repulsive-exponent 8–36] [--trace] --json';
 
 /** Maps the driver's option names to the flags in error messages. */
 const FLAG_OF: Record<string, string> = {
@@ -22,6 +22,7 @@ const FLAG_OF: Record<string, string> = {
   cutoff: '--cutoff',
   scheme: '--scheme',
   seed: '--seed',
+  repulsiveExponent: '--repulsive-exponent',
 };
 
 export async function run(argv: string[]): Promise<unknown> {
@@ -35,6 +36,7 @@ export async function run(argv: string[]): Promise<unknown> {
       cutoff: { type: 'string' },
       scheme: { type: 'string' },
       seed: { type: 'string' },
+      'repulsive-exponent': { type: 'string' },
       trace: { type: 'boolean' },
       json: { type: 'boolean' },
     },
@@ -52,6 +54,7 @@ export async function run(argv: string[]): Promise<unknown> {
     cutoff: finiteNumberFlag('cutoff', values.cutoff),
     scheme,
     seed: finiteNumberFlag('seed', values.seed),
+    ...(values['repulsive-exponent'] !== undefined ? { repulsiveExponent: finiteNumberFlag('repulsive-exponent', values['repulsive-exponent']) } : {}),
   };
   let result;
   try {

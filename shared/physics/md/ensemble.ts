@@ -45,6 +45,8 @@ export interface EnsembleSettings {
   volumeMoveEvery: number;
   /** Initial maximum |Δ ln V| of a volume move. */
   maxLnVolumeStep: number;
+  /** λr of a Mie λr-6 pair potential (default 12, LJ 12-6). */
+  repulsiveExponent?: number;
 }
 
 /** One row per sample; all per-atom quantities in reduced units. */
@@ -94,7 +96,7 @@ export class Ensemble {
     this.settings = settings;
     this.rng = new Xoshiro128(settings.seed);
     const lattice = fccLattice(settings.atoms, settings.initialDensity);
-    this.system = new LjSystem(lattice.positions, lattice.boxLength, settings.cutoff, settings.skin);
+    this.system = new LjSystem(lattice.positions, lattice.boxLength, settings.cutoff, settings.skin, settings.repulsiveExponent ?? 12);
     assignVelocities(this.system, settings.reducedTemperature, this.rng, 'gaussian');
     this.degreesOfFreedom = 3 * settings.atoms - 3;
     this.targetTemperature = settings.reducedTemperature;
@@ -106,9 +108,9 @@ export class Ensemble {
   /** Potential energy of the sampled Hamiltonian (total), see the module comment. */
   hamiltonianPotential(sums: PairSums, density: number): number {
     const s = this.system;
-    const shifted = sums.potentialTruncated - sums.pairsInside * ljPairEnergy(s.cutoff);
+    const shifted = sums.potentialTruncated - sums.pairsInside * ljPairEnergy(s.cutoff, s.repulsiveExponent);
     if (this.settings.scheme === 'truncated-shifted') return shifted;
-    return shifted + s.n * (tailEnergyPerAtom(density, s.cutoff) + meanFieldShiftPerAtom(density, s.cutoff));
+    return shifted + s.n * (tailEnergyPerAtom(density, s.cutoff, s.repulsiveExponent) + meanFieldShiftPerAtom(density, s.cutoff, s.repulsiveExponent));
   }
 
   /** One velocity-Verlet step followed by the CSVR thermostat; `withEnergy` also refreshes the pair sums. */
@@ -209,7 +211,7 @@ export class Ensemble {
     const k = s.kineticEnergy();
     const sums = this.sums;
     const hpot = this.hamiltonianPotential(sums, rho);
-    const shiftedTotal = sums.potentialTruncated - sums.pairsInside * ljPairEnergy(s.cutoff);
+    const shiftedTotal = sums.potentialTruncated - sums.pairsInside * ljPairEnergy(s.cutoff, s.repulsiveExponent);
     const tail = this.settings.scheme === 'truncated-tail';
     const pTrunc = (2 * k + sums.virial) / (3 * v);
     series.step.push(this.stepCount);
@@ -218,10 +220,10 @@ export class Ensemble {
     series.kinetic.push(k);
     series.temperature.push((2 * k) / this.degreesOfFreedom);
     series.potentialTruncatedPerAtom.push(sums.potentialTruncated / n);
-    series.potentialPerAtom.push(tail ? sums.potentialTruncated / n + tailEnergyPerAtom(rho, s.cutoff) : shiftedTotal / n);
+    series.potentialPerAtom.push(tail ? sums.potentialTruncated / n + tailEnergyPerAtom(rho, s.cutoff, s.repulsiveExponent) : shiftedTotal / n);
     series.hamiltonianPotential.push(hpot);
     series.pressureTruncated.push(pTrunc);
-    series.pressure.push(tail ? pTrunc + tailPressure(rho, s.cutoff) : pTrunc);
+    series.pressure.push(tail ? pTrunc + tailPressure(rho, s.cutoff, s.repulsiveExponent) : pTrunc);
     // Q6 every fifth sample (it costs about two force evaluations); the last value is carried in between.
     if (series.q6.length % 5 === 0) this.lastOrder = globalQ6(s.pos, s.box, s.nbStart, s.nbList, n);
     series.q6.push(this.lastOrder.q6);

@@ -75,6 +75,8 @@ export interface NptOptions {
   seed?: number;
   /** Starting density; default: a van der Waals estimate (density-guess.ts). */
   initialDensity?: number;
+  /** λr of a Mie λr-6 fluid, 8 … 36 (default 12, LJ 12-6); the start and density guess still use the 12-6 phase diagram. */
+  repulsiveExponent?: number;
   /** 'auto' (default): melted lattice unless the state lies in the solid region, then the fcc lattice. */
   start?: 'auto' | 'melted-lattice' | 'fcc-lattice';
   /** Extend production until this many effective samples of ρ* (default 50; 0 turns extension off). */
@@ -250,6 +252,7 @@ export function runNpt(options: NptOptions, onProgress?: ProgressCallback): NptR
   const dt = requireNumber('timestep', options.timestep ?? DEFAULT_TIMESTEP, 1e-4, 0.01);
   const seed = requireInteger('seed', options.seed ?? DEFAULT_SEED, 0, 0xffffffff);
   const initialDensity = requireNumber('initialDensity', options.initialDensity ?? guessReducedDensity(t, p), 1e-4, 1.3);
+  const repulsiveExponent = requireNumber('repulsiveExponent', options.repulsiveExponent ?? 12, 8, 36);
   const minEff = requireNumber('minEffectiveSamples', options.minEffectiveSamples ?? DEFAULT_MIN_EFFECTIVE_SAMPLES, 0, 1e6);
   const maxSteps = requireInteger('maxSteps', options.maxSteps ?? DEFAULT_MAX_STEPS_FACTOR * steps, steps, 1e9);
   const startChoice = options.start ?? 'auto';
@@ -277,6 +280,7 @@ export function runNpt(options: NptOptions, onProgress?: ProgressCallback): NptR
     sampleEvery: DEFAULT_SAMPLE_EVERY,
     volumeMoveEvery: VOLUME_MOVE_EVERY,
     maxLnVolumeStep: 0.02,
+    ...(repulsiveExponent !== 12 ? { repulsiveExponent } : {}),
   });
   const warnings: string[] = [];
   // Progress never goes back: an extension lengthens the run, so the fraction waits until the steps catch up.
