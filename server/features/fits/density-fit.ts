@@ -13,6 +13,9 @@ import { loadRunFrames, storeSimulationFrames } from '../simulations/simulation-
  */
 export const DENSITY_FIT_DEFAULTS = { atoms: 128, steps: 5000, cutoff: 2.5, scheme: 'truncated-tail' as const, seed: 20261201 };
 
+/** Equation-of-state stage results of the last fits in this process, by payload (the task is deterministic). */
+const EOS_STAGE_MEMO = new Map<string, LjFitResult>();
+
 /** Waits for a job, giving up when the fit itself is cancelled or the server stops. */
 function waitOrAbort<T>(promise: Promise<T>, signal: AbortSignal): Promise<T> {
   if (signal.aborted) return Promise.reject(signal.reason ?? new Error('aborted'));
@@ -41,7 +44,15 @@ export async function runDensityFit(env: JobRunEnvironment, payload: { datasets:
   const md = { ...DENSITY_FIT_DEFAULTS, ...settings };
   env.progress({ fraction: 0.01, stage: 'equation-of-state stage' });
   // The equation-of-state stage only starts the simulation stage: its profile-χ² curves would be discarded.
-  const eos = (await env.runTask('fit', { ...payload, options: { ...payload.options, profiles: false } }, (p) => env.progress({ fraction: 0.01 + 0.09 * p.fraction, stage: `equation-of-state stage: ${p.stage}` }))) as LjFitResult;
+  // The equation-of-state stage is a deterministic function of its payload: a repeated fit takes it from memory.
+  const eosPayload = { ...payload, options: { ...payload.options, profiles: false } };
+  const eosKey = JSON.stringify(eosPayload);
+  let eos = EOS_STAGE_MEMO.get(eosKey);
+  if (!eos) {
+    eos = (await env.runTask('fit', eosPayload, (p) => env.progress({ fraction: 0.01 + 0.09 * p.fraction, stage: `equation-of-state stage: ${p.stage}` }))) as LjFitResult;
+    if (EOS_STAGE_MEMO.size >= 32) EOS_STAGE_MEMO.delete(EOS_STAGE_MEMO.keys().next().value!);
+    EOS_STAGE_MEMO.set(eosKey, eos);
+  }
   if (eos.status !== 'succeeded') {
     return { ...eos, eosStage: eos, failureReason: `the equation-of-state stage failed, so the simulation stage did not start: ${eos.failureReason ?? 'no result'}` };
   }
