@@ -29,7 +29,8 @@ describe.skipIf(!available)('a Mie λr-6 parameter set in Chromium', () => {
       multipart: { substanceId: String(substanceId), property: 'b2', name: 'QG-9 B2', source: 'Fenwick Thermophysics Laboratory, invented run 9', doi: '10.1000/epsigma.mie.9', file: { name: 'b2.csv', mimeType: 'text/csv', buffer: mieB2Csv() } },
     });
     expect(upload.status()).toBe(201);
-    const fit = await page.request.post(`${app.url}/api/fits`, { headers, data: { substanceId, datasets: [{ id: (await upload.json()).id }], options: { model: 'mie', repulsiveExponent: 16, posterior: { samples: 200 } } } });
+    const datasetId = (await upload.json()).id;
+    const fit = await page.request.post(`${app.url}/api/fits`, { headers, data: { substanceId, datasets: [{ id: datasetId }], options: { model: 'mie', repulsiveExponent: 16, posterior: { samples: 200 } } } });
     expect(fit.status()).toBe(202);
     const fitId = (await fit.json()).id;
     await expect.poll(async () => (await (await page.request.get(`${app.url}/api/fits/${fitId}`)).json()).status, { timeout: 60_000 }).toBe('succeeded');
@@ -42,6 +43,17 @@ describe.skipIf(!available)('a Mie λr-6 parameter set in Chromium', () => {
     expect(await next.getByRole('listitem').count()).toBeGreaterThan(0);
     expect(await next.getByRole('listitem').first().textContent()).toMatch(/^B2 at [\d.]+ K \(expected .* cm3\/mol\) would make the joint 95 % region \d+ % smaller\.$/);
     await screenshot(page, 'mie-fit-insights');
+
+    // The same data fitted with LJ 12-6, compared with the Mie fit: model, AIC and BIC side by side, and a verdict.
+    const ljFit = await page.request.post(`${app.url}/api/fits`, { headers, data: { substanceId, datasets: [{ id: datasetId }] } });
+    const ljFitId = (await ljFit.json()).id;
+    await expect.poll(async () => (await (await page.request.get(`${app.url}/api/fits/${ljFitId}`)).json()).status, { timeout: 60_000 }).toBe('succeeded');
+    await page.goto(`${app.url}/fits/compare?a=${ljFitId}&b=${fitId}`);
+    await page.getByRole('heading', { name: 'Side by side' }).waitFor();
+    await page.getByRole('cell', { name: 'Mie 16-6' }).waitFor();
+    await page.getByRole('cell', { name: 'BIC' }).waitFor();
+    expect(await page.getByRole('note').filter({ hasText: /ΔBIC/ }).textContent()).toMatch(/The data (very strongly|strongly|positively) prefer Fit #\d+ over Fit #\d+ \(ΔBIC = [\d.]+|fit these data about equally well/);
+    await screenshot(page, 'mie-fit-compare');
     const draft = await page.request.post(`${app.url}/api/parameter-sets`, { headers, data: { fitId, rationale: 'Mie 16-6 fits the QG-9 B2 table within its uncertainty.' } });
     expect(draft.status()).toBe(201);
     const setId = (await draft.json()).id;

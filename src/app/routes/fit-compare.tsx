@@ -2,9 +2,17 @@ import { Link, useSearchParams } from 'react-router-dom';
 import { useQueries } from '@tanstack/react-query';
 import { formatSignificant, formatWithUncertainty } from '@shared/format/numbers';
 import type { LjFitResult } from '@shared/fitting/lj-fit';
+import type { GasFitResult } from '@shared/fitting/gas-fit';
+import { compareModels, informationCriteria } from '@shared/fitting/mie-fit';
 import { ErrorState, LoadingState, PageHeader, Panel } from '@/components/ui/states';
 import { fitQueryOptions, type Fit } from '@/features/fits/api/fits';
 import { FitCurves } from '@/features/fits/components/fit-curves';
+
+/** AIC/BIC of a fit: from its result, or from χ² and its points for results stored before the criterion existed. */
+function criterionOf(r: LjFitResult, label = '') {
+  const c = (r as GasFitResult).criterion;
+  return c ? { ...c, label: label || c.label } : informationCriteria(label, r.chi2, r.perDataset.reduce((s, d) => s + d.points, 0), 2 - r.heldParameters.length);
+}
 
 /** Two fits of one substance side by side: parameters, statistics, and both model curves over the data. */
 export function FitCompareRoute() {
@@ -23,8 +31,13 @@ export function FitCompareRoute() {
     ['Correlation', (r) => (r.correlation == null ? '—' : r.correlation.toFixed(3))],
     ['χ² / dof', (r) => `${formatSignificant(r.chi2, 4)} / ${r.dof}`],
     ['Reduced χ²', (r) => (r.reducedChi2 == null ? '—' : formatSignificant(r.reducedChi2, 4))],
+    ['Model', (r) => (r.model === 'mie' && r.repulsiveExponent !== undefined ? `Mie ${Number(r.repulsiveExponent.toFixed(2))}-6${(r as GasFitResult).criterion?.parameters === 3 ? ' (λr fitted)' : ''}` : 'LJ 12-6')],
+    ['AIC', (r) => formatSignificant(criterionOf(r).aic, 5)],
+    ['BIC', (r) => formatSignificant(criterionOf(r).bic, 5)],
     ['Warnings', (r) => String(r.warnings.length + r.hitBounds.length)],
   ];
+  const sameData = JSON.stringify(fits[0].datasets.map((d) => [d.datasetId, d.version, d.excludeRows])) === JSON.stringify(fits[1].datasets.map((d) => [d.datasetId, d.version, d.excludeRows]));
+  const verdict = compareModels(criterionOf(results[0], `Fit #${fits[0].number}`), criterionOf(results[1], `Fit #${fits[1].number}`));
   // The union of both fits' data, with the residuals of the first, carries every measured point.
   const names = Object.fromEntries(fits.flatMap((f) => f.datasets.map((d) => [String(d.datasetId), `${d.name} v${d.version}`])));
   const merged: LjFitResult = { ...results[0], residuals: [...results[0].residuals, ...results[1].residuals.filter((r) => !results[0].residuals.some((q) => q.datasetId === r.datasetId))] };
@@ -44,13 +57,16 @@ export function FitCompareRoute() {
               <tr><td className="py-1.5 text-ink-faint">Data</td>{fits.map((f) => <td key={f.id} className="text-right text-xs">{f.datasets.map((d) => `${d.name} v${d.version}`).join(', ')}</td>)}</tr>
             </tbody>
           </table>
+          <p className="mt-2 text-sm" role="note">
+            {sameData ? verdict.text : 'The two fits use different data, so their AIC and BIC cannot be compared.'}
+          </p>
         </Panel>
         <Panel title="Both models over the data">
           <FitCurves
             result={merged}
             datasetNames={names}
             context={{ molarMassGPerMol: fits[0].options.molarMassGPerMol, quantumCorrection: !!fits[0].options.quantumCorrection }}
-            curves={fits.map((f) => ({ label: `Fit #${f.number}`, epsilonK: f.result!.epsilonK, sigmaAngstrom: f.result!.sigmaAngstrom }))}
+            curves={fits.map((f) => ({ label: `Fit #${f.number}`, epsilonK: f.result!.epsilonK, sigmaAngstrom: f.result!.sigmaAngstrom, repulsiveExponent: f.result!.repulsiveExponent }))}
           />
           <p className="mt-2 text-xs text-ink-faint">Residuals underneath are those of Fit #{fits[0].number}{fits[0].options.quantumCorrection !== fits[1].options.quantumCorrection ? '; the two fits differ in the quantum correction, and both curves are drawn with the first fit’s setting' : ''}.</p>
         </Panel>

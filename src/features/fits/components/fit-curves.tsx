@@ -9,6 +9,8 @@ export interface CurveParameters {
   label: string;
   epsilonK: number;
   sigmaAngstrom: number;
+  /** λr of a Mie λr-6 curve (absent or 12: LJ 12-6). */
+  repulsiveExponent?: number;
 }
 
 /** The residual axis: what is plotted, in the order it is computed. */
@@ -38,7 +40,7 @@ export function FitCurves({ result, datasetNames, context, curves, height = 300,
           points: points.filter((p) => String(p.datasetId) === id).map((p) => ({ x: p.temperatureK, y: p.measured, u: p.uncertainty, hollow: isLeftOut(p) })),
         }));
         const temps = points.map((p) => p.temperatureK);
-        const model: ChartSeries[] = curves.map((c) => ({ label: c.label, kind: 'model', points: modelCurve(kind, temps, c.epsilonK, c.sigmaAngstrom, context) }));
+        const model: ChartSeries[] = curves.map((c) => ({ label: c.label, kind: 'model', points: modelCurve(kind, temps, c.epsilonK, c.sigmaAngstrom, c.repulsiveExponent !== undefined && c.repulsiveExponent !== 12 ? ({ ...context, repulsiveExponent: c.repulsiveExponent } as typeof context) : context) }));
         const residualSeries: ChartSeries[] = byDataset.map((id) => ({
           label: datasetNames[id] ?? `set ${id}`,
           kind: 'measured',
