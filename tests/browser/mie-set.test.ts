@@ -86,6 +86,15 @@ describe.skipIf(!available)('a Mie λr-6 parameter set in Chromium', () => {
     const downloads = page.getByRole('list', { name: 'Downloads' });
     expect(await downloads.getByRole('link', { name: /GROMACS/ }).count()).toBe(0);
     await page.getByText(/GROMACS has no Mie pair function, so it is not offered/).waitFor();
+    // Predictions at the consumer's own temperatures, one inside and one outside the validity range (100–950 K).
+    const predict = page.getByRole('form', { name: 'Predict at my states' });
+    await predict.getByLabel('Temperatures (K, comma-separated)').fill('150, 2000');
+    await predict.getByRole('button', { name: 'Predict' }).click();
+    const rows = page.getByRole('table', { name: 'Predictions' }).getByRole('row');
+    await expect.poll(() => rows.count()).toBe(3);
+    expect(await rows.nth(1).textContent()).toContain('within the validity range');
+    expect(await rows.nth(2).textContent()).toContain('2000 K lies outside the validity range 100–950 K');
+    await screenshot(page, 'mie-set-predictions');
     const [lammps] = await Promise.all([page.waitForEvent('download'), downloads.getByRole('link', { name: /LAMMPS real/ }).click()]);
     const text = readFileSync((await lammps.path())!, 'utf8');
     expect(text).toMatch(/^pair_style mie\/cut /m);

@@ -6,6 +6,7 @@ import { ErrorState, LoadingState, PageHeader, Panel } from '@/components/ui/sta
 import { UnitSwitch } from '@/components/ui/unit-switch';
 import { exportHref, useParameterCard, usePreferences, useUpdatePreferences, type ParameterCard } from '@/features/catalog/api/catalog';
 import { ExportLinks } from '@/features/catalog/components/export-links';
+import { PredictionsPanel } from '@/features/catalog/components/predictions-panel';
 import { ParameterValues } from '@/features/catalog/components/parameter-values';
 import { SchemeCheck } from '@/features/catalog/components/scheme-check';
 import { VersionHistory } from '@/features/catalog/components/version-history';
@@ -70,6 +71,11 @@ export function CatalogCardRoute() {
             </div>
           </Panel>
         </div>
+        {c.exportable && (
+          <Panel title="Predictions at your states">
+            <PredictionsPanel setId={c.id} mie={c.potential === 'mie'} />
+          </Panel>
+        )}
         <Panel title="Approval">
           <p className="text-sm">
             {c.approvedAt ? (

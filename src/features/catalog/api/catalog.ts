@@ -114,7 +114,24 @@ export const catalogKeys = {
   card: (id: number) => [...catalogKeys.all, 'card', id] as const,
   mixture: (setIds: number[], rule: CombiningRule) => [...catalogKeys.all, 'mixture', setIds.join(','), rule] as const,
   preferences: () => ['preferences'] as const,
+  predictions: (id: number, kind: string, temperaturesK: string, pressuresMPa: string) => [...catalogKeys.all, 'predictions', id, kind, temperaturesK, pressuresMPa] as const,
 };
+
+export interface PredictionAnswer {
+  kind: string;
+  unit: string;
+  method: string;
+  predictions: Array<{ temperatureK: number; pressureMPa?: number; value: number; standardError: number; lower95: number; upper95: number; intervalMethod: string; outsideValidity: boolean; note?: string }>;
+}
+
+/** GET /api/parameter-sets/:id/predictions; runs only when temperatures are given. */
+export const predictionsQueryOptions = (id: number, kind: string, temperaturesK: string, pressuresMPa: string) =>
+  queryOptions({
+    queryKey: catalogKeys.predictions(id, kind, temperaturesK, pressuresMPa),
+    queryFn: () => api<PredictionAnswer>(`/parameter-sets/${id}/predictions?kind=${kind}&temperaturesK=${encodeURIComponent(temperaturesK)}${kind === 'density' ? `&pressuresMPa=${encodeURIComponent(pressuresMPa)}` : ''}`),
+    enabled: temperaturesK.trim() !== '',
+    retry: false,
+  });
 
 export const catalogQueryOptions = (filters: CatalogFilters) => {
   const search = catalogSearch(filters);
