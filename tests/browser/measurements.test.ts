@@ -33,8 +33,9 @@ describe.skipIf(!available)('measurement upload in Chromium', () => {
     await page.getByText('version 1 of 1').waitFor();
     const rows = page.getByRole('table').filter({ hasText: 'File row' });
     const cells = async (i: number) => (await rows.getByRole('row').nth(i).getByRole('cell').allTextContents()).map((c) => c.trim());
-    expect(await cells(1)).toEqual(['3', '298.15', '1', '16', '0.02', 'file']);
-    expect(await cells(4)).toEqual(['6', '348.15', '5', '70', '0.05', 'file']);
+    // "Row" counts data rows from 1 (the number a fit's "leave rows out" uses); "File row" is the line in the file.
+    expect(await cells(1)).toEqual(['1', '3', '298.15', '1', '16', '0.02', 'file']);
+    expect(await cells(4)).toEqual(['4', '6', '348.15', '5', '70', '0.05', 'file']);
     await screenshot(page, 'dataset-detail');
     await page.close();
   });

@@ -129,6 +129,7 @@ describe.skipIf(!available)('parameter-set review in Chromium', () => {
 
     await signIn(page, app.url, 'reviewer@demo.epsigma.test');
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Review desk' }).click();
+    await page.getByRole('heading', { name: 'Review desk' }).waitFor();
     await page.getByRole('link', { name: 'Reviewite v2' }).click();
     await page.getByRole('heading', { name: 'Against the approved v1' }).waitFor();
     const table = page.getByRole('table', { name: 'Parameters against the approved version' });

@@ -54,7 +54,7 @@ export function ParameterSetDetailRoute() {
             />
           </Panel>
         </div>
-        {(s.revisionOf !== null || s.version > 1) && (
+        {s.revisionOf !== null && (
           <Panel title="Changes from the previous version">
             <RevisionDiff parameterSetId={s.id} />
           </Panel>

@@ -5,31 +5,9 @@ import { NAV_ITEMS } from '@/config/navigation';
 import { KindBadge } from '@/components/ui/badge';
 import { ErrorState, LoadingState, PageHeader, Panel } from '@/components/ui/states';
 import { useSignedIn } from '@/lib/signed-in';
-import { useReviewQueue } from '@/features/parameter-sets/api/parameter-sets';
 import { NeedsActionList } from '@/features/parameter-sets/components/needs-action';
 import { useSimulations } from '@/features/simulations/api/simulations';
 import { useSubstances } from '@/features/substances/api/substances';
-
-function ReviewWaiting() {
-  const queue = useReviewQueue();
-  if (queue.isPending) return <LoadingState />;
-  if (queue.isError) return <ErrorState error={queue.error} onRetry={() => queue.refetch()} />;
-  if (!queue.data.length) return <p className="text-ink-soft">Nothing waits for your review.</p>;
-  return (
-    <ul className="divide-y divide-rule/70">
-      {queue.data.slice(0, 6).map((s) => (
-        <li key={s.id} className="py-2">
-          <Link to={`/parameter-sets/${s.id}`} className="font-semibold underline decoration-rule underline-offset-4 hover:decoration-copper">
-            {s.substanceName} v{s.version}
-          </Link>
-          <span className="num ml-2 text-sm text-ink-soft">
-            ε/k_B = {formatWithUncertainty(s.epsilonK, s.stdErr.epsilonK, 'K')}, σ = {formatWithUncertainty(s.sigmaAngstrom, s.stdErr.sigmaAngstrom, 'Å')} · by {s.createdByName}
-          </span>
-        </li>
-      ))}
-    </ul>
-  );
-}
 
 function ModellerWork() {
   const substances = useSubstances();
@@ -63,13 +41,8 @@ export function WorkbenchRoute() {
       <PageHeader eyebrow="Workbench" title={`Good to see you, ${me.name.split(' ')[0]}`} subtitle="Lennard-Jones 12-6 parameters, fitted to measurements and checked by a second person." />
       <div className="grid gap-5 md:grid-cols-2">
         {(hasPolicy(me.roles, 'parameterSet:draft') || hasPolicy(me.roles, 'parameterSet:review')) && (
-          <Panel title="Needs my action" className="md:col-span-2">
+          <Panel title="Needs my action" className="md:col-span-2" actions={hasPolicy(me.roles, 'parameterSet:review') ? <Link to="/review" className="text-sm font-semibold text-copper underline underline-offset-4">Review desk</Link> : undefined}>
             <NeedsActionList />
-          </Panel>
-        )}
-        {hasPolicy(me.roles, 'parameterSet:review') && (
-          <Panel title="Waiting for your review">
-            <ReviewWaiting />
           </Panel>
         )}
         {hasPolicy(me.roles, 'fit:run') && (

@@ -164,12 +164,12 @@ export function FitSetupForm({ substanceId, datasets, busy, error, onSubmit, ren
             <div className="flex flex-wrap items-center gap-x-6 gap-y-2">
               <label className="flex items-center gap-2 text-sm">
                 <input type="checkbox" role="switch" className="accent-copper" aria-label="Hold ε/k_B" checked={hold === 'epsilonK'} onChange={(e) => setHold(e.target.checked ? 'epsilonK' : 'none')} />
-                Hold ε/k_B at
+                <span className="w-24">Hold ε/k_B at</span>
                 <Input aria-label="Held ε/k_B (K)" className="!w-24" inputMode="decimal" disabled={hold !== 'epsilonK'} value={heldEps} onChange={(e) => setHeldEps(e.target.value)} /> K
               </label>
               <label className="flex items-center gap-2 text-sm">
                 <input type="checkbox" role="switch" className="accent-copper" aria-label="Hold σ" checked={hold === 'sigmaAngstrom'} onChange={(e) => setHold(e.target.checked ? 'sigmaAngstrom' : 'none')} />
-                Hold σ at
+                <span className="w-24">Hold σ at</span>
                 <Input aria-label="Held σ (Å)" className="!w-24" inputMode="decimal" disabled={hold !== 'sigmaAngstrom'} value={heldSigma} onChange={(e) => setHeldSigma(e.target.value)} /> Å
               </label>
             </div>

@@ -14,7 +14,7 @@ export function ParameterTable({ result, energy, length }: { result: LjFitResult
   const notConverged = result.converged === false || result.status === 'failed';
   const rows: Array<[string, string]> = [
     ...(held.length ? [['Held', `${held.map((h) => (h === 'epsilonK' ? 'ε/k_B' : 'σ')).join(' and ')} at the given value: exact, no standard error, one degree of freedom fewer`] as [string, string]] : []),
-    ['Correlation ρ(ε, σ)', result.correlation == null ? '—' : result.correlation.toFixed(3)],
+    ['Correlation ρ(ε, σ)', result.correlation == null ? '—' : `${result.correlation.toFixed(3)}${result.strongCorrelation ? ' — strong: the data fix a combination of ε and σ (see the warning)' : ''}`],
     ['χ²', formatSignificant(result.chi2, 5)],
     ['Degrees of freedom', String(result.dof)],
     ['Reduced χ²', result.reducedChi2 == null ? '—' : formatSignificant(result.reducedChi2, 4)],

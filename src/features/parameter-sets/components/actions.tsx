@@ -123,15 +123,16 @@ function ReviseForm({ set, onRevised, fitChoices }: { set: ParameterSetDetail; o
       aria-label="Draft a revision"
       onSubmit={(e) => {
         e.preventDefault();
-        revise.mutate(
-          {
+        // Through the promise, not mutate's onSuccess: once the set is revised its page refetches and this form
+        // leaves (no "revise" move any more) before a per-call callback would run, and the page would stay put.
+        revise
+          .mutateAsync({
             rationale,
             ...(sameFit ? { validity: toValidity(validity) } : { fitId: Number(fitId) }),
             ...(scheme ? { scheme } : {}),
             ...(scheme && scheme !== 'full-potential' ? { cutoffSigma: Number(cutoff.replace(',', '.')) } : {}),
-          },
-          { onSuccess: onRevised },
-        );
+          })
+          .then(onRevised, () => undefined);
       }}
     >
       <p className="text-sm text-ink-soft">A revision is a new draft (the next version) linked to this one; this set stays as the record of its review.</p>

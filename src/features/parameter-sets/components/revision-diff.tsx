@@ -11,7 +11,7 @@ export function RevisionDiff({ parameterSetId }: { parameterSetId: number }) {
   if (diff.isPending) return <LoadingState label="Comparing with the previous version…" />;
   if (diff.isError) return <ErrorState error={diff.error} onRetry={() => diff.refetch()} />;
   const { previous, changes } = diff.data;
-  if (!previous) return <p className="text-sm text-ink-soft">This is the first version: there is nothing to compare with.</p>;
+  if (!previous) return <p className="text-sm text-ink-soft">No earlier version to compare with.</p>;
   return (
     <div className="grid gap-3">
       <p className="text-sm text-ink-soft">
