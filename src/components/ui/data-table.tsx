@@ -14,7 +14,7 @@ export type { ColumnDef } from '@tanstack/react-table';
  * A dense, calm, sortable table. Headers are buttons (keyboard sortable); columns flagged with
  * `meta: { numeric: true }` are right-aligned with tabular figures.
  */
-export function DataTable<T>({ data, columns, initialSorting = [], caption, rowKey }: { data: T[]; columns: ColumnDef<T, any>[]; initialSorting?: SortingState; caption?: string; rowKey?: (row: T) => string | number }) {
+export function DataTable<T>({ data, columns, initialSorting = [], caption, rowKey, minWidthClass = '' }: { data: T[]; columns: ColumnDef<T, any>[]; initialSorting?: SortingState; caption?: string; rowKey?: (row: T) => string | number; /** e.g. "min-w-[56rem]": on a narrow screen the table keeps readable columns and scrolls inside its card. */ minWidthClass?: string }) {
   const [sorting, setSorting] = useState<SortingState>(initialSorting);
   const table = useReactTable({
     data,
@@ -27,7 +27,7 @@ export function DataTable<T>({ data, columns, initialSorting = [], caption, rowK
   });
   return (
     <div className="overflow-x-auto">
-      <table className="w-full border-collapse text-left text-sm">
+      <table className={`w-full border-collapse text-left text-sm ${minWidthClass}`}>
         {caption && <caption className="sr-only">{caption}</caption>}
         <thead className="border-b border-rule text-xs tracking-wide text-ink-faint">
           {table.getHeaderGroups().map((hg) => (

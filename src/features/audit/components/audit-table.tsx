@@ -57,5 +57,5 @@ const columns = [
 
 /** The audit trail as a dense table, newest first. */
 export function AuditTable({ events }: { events: AuditEvent[] }) {
-  return <DataTable data={events} columns={columns} caption="Audit trail" rowKey={(e) => e.id} />;
+  return <DataTable data={events} columns={columns} caption="Audit trail" rowKey={(e) => e.id} minWidthClass="min-w-[56rem]" />;
 }
