@@ -139,8 +139,11 @@ export class RedisExecutor implements JobExecutor {
       return;
     }
     const state = await job.getState();
-    if (state === 'completed') this.settle(p, { ok: true, value: job.returnvalue });
-    else if (state === 'failed') this.settle(p, { ok: false, reason: job.failedReason, attemptsMade: job.attemptsMade });
+    if (state !== 'completed' && state !== 'failed') return;
+    // The job may have finished between the two reads above: read it again so its result or reason is the final one.
+    const done = (await Job.fromId(this.queues[p.lane], p.jobId)) ?? job;
+    if (state === 'completed') this.settle(p, { ok: true, value: done.returnvalue });
+    else this.settle(p, { ok: false, reason: done.failedReason, attemptsMade: done.attemptsMade });
   }
 
   private rechecking = false;
