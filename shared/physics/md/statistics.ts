@@ -2,7 +2,7 @@
  * Time-series statistics for correlated simulation output.
  * - Statistical inefficiency g = 2τ_int, with the integrated autocorrelation time summed over a self-consistent
  *   window: τ_int(M) = ½ + Σ_{t=1..M} ρ(t), M the smallest lag with M ≥ c·τ_int(M), c = 6 (Sokal, "Monte Carlo
- *   methods in statistical mechanics", Cargèse lectures 1996, publ. 1997, §3.2; Madras & Sokal 1988, J. Stat. Phys.
+ *   methods in statistical mechanics", in Functional Integration (Cargèse 1996), NATO ASI Series B 361, Plenum 1997, §3.2; Madras & Sokal 1988, J. Stat. Phys.
  *   50, 109), with the bias of the estimated mean removed by τ → τ(1 + (2M + 1)/T) (Wolff 2004, Comput. Phys.
  *   Commun. 156, 143, eq. 49). ρ(t) uses the 1/T-normalised autocovariance, which already carries the (1 − t/T)
  *   factor of the variance of a mean. A first-zero-crossing cut (the previous estimator) stops at the first
