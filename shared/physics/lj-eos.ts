@@ -19,6 +19,7 @@
  * polynomial extrapolates without guarantee. The EOS's own critical point (computed here, see
  * `ljEosCriticalPoint`) is T*c ≈ 1.313, ρ*c ≈ 0.31, as JZG report.
  */
+import { criticalTemperature, minimumIsothermSlope } from './eos/isotherm-slope';
 
 export const LJ_EOS_SOURCE =
   'J. K. Johnson, J. A. Zollweg, K. E. Gubbins, "The Lennard-Jones equation of state revisited", ' +
@@ -305,42 +306,9 @@ export interface LjEosCriticalPoint {
   reducedPressure: number;
 }
 
-/** Minimum of (∂P/∂ρ)_T over the density window where the van der Waals loop lives; golden-section search. */
+/** Minimum of (∂P/∂ρ)_T over the density window where the van der Waals loop lives. */
 function minimumSlope(t: number): { rho: number; slope: number } {
-  // Coarse scan first so the golden-section search starts in the right basin.
-  let best = 0.1;
-  let bestSlope = Number.POSITIVE_INFINITY;
-  for (let rho = 0.1; rho <= 0.6 + 1e-12; rho += 0.01) {
-    const s = mbwrPressure(rho, t).dPdRho;
-    if (s < bestSlope) {
-      bestSlope = s;
-      best = rho;
-    }
-  }
-  let lo = best - 0.01;
-  let hi = best + 0.01;
-  const phi = (Math.sqrt(5) - 1) / 2;
-  let c = hi - phi * (hi - lo);
-  let d = lo + phi * (hi - lo);
-  let fc = mbwrPressure(c, t).dPdRho;
-  let fd = mbwrPressure(d, t).dPdRho;
-  while (hi - lo > 1e-10) {
-    if (fc < fd) {
-      hi = d;
-      d = c;
-      fd = fc;
-      c = hi - phi * (hi - lo);
-      fc = mbwrPressure(c, t).dPdRho;
-    } else {
-      lo = c;
-      c = d;
-      fc = fd;
-      d = lo + phi * (hi - lo);
-      fd = mbwrPressure(d, t).dPdRho;
-    }
-  }
-  const rho = (lo + hi) / 2;
-  return { rho, slope: mbwrPressure(rho, t).dPdRho };
+  return minimumIsothermSlope((rho) => mbwrPressure(rho, t).dPdRho, { from: 0.1, to: 0.6, tolerance: 1e-10 });
 }
 
 let criticalPointCache: LjEosCriticalPoint | undefined;
@@ -351,14 +319,9 @@ let criticalPointCache: LjEosCriticalPoint | undefined;
  */
 export function ljEosCriticalPoint(): LjEosCriticalPoint {
   if (criticalPointCache) return criticalPointCache;
-  let lo = 1.0; // loop present
-  let hi = 2.0; // no loop
-  while (hi - lo > 1e-11) {
-    const mid = (lo + hi) / 2;
-    if (minimumSlope(mid).slope < 0) lo = mid;
-    else hi = mid;
-  }
-  const t = (lo + hi) / 2;
+  const lo = 1.0; // loop present
+  const hi = 2.0; // no loop
+  const t = criticalTemperature((temp) => minimumSlope(temp).slope, lo, hi);
   const { rho } = minimumSlope(t);
   criticalPointCache = { reducedTemperature: t, reducedDensity: rho, reducedPressure: mbwrPressure(rho, t).pressure };
   return criticalPointCache;

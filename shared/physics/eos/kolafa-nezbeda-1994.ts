@@ -27,6 +27,7 @@
  * of the phase diagram is a metastable-fluid density, and telling the two apart is the caller's business
  * (a freezing-line check sits beside this module).
  */
+import { criticalTemperature, minimumIsothermSlope } from './isotherm-slope';
 
 export const KOLAFA_NEZBEDA_1994_SOURCE =
   'J. Kolafa, I. Nezbeda, "The Lennard-Jones fluid: an accurate analytic and theoretically-based equation of state", ' +
@@ -264,41 +265,9 @@ export interface KnCriticalPoint {
   reducedPressure: number;
 }
 
-/** Minimum of (∂P/∂ρ)_T over ρ* ∈ [0.1, 0.6] (coarse scan, then golden section). */
+/** Minimum of (∂P/∂ρ)_T over ρ* ∈ [0.1, 0.6]. */
 function minimumSlope(t: number): { rho: number; slope: number } {
-  let best = 0.1;
-  let bestSlope = Number.POSITIVE_INFINITY;
-  for (let rho = 0.1; rho <= 0.6 + 1e-12; rho += 0.01) {
-    const s = pressureAndSlope(rho, t).dPdRho;
-    if (s < bestSlope) {
-      bestSlope = s;
-      best = rho;
-    }
-  }
-  let lo = best - 0.01;
-  let hi = best + 0.01;
-  const phi = (Math.sqrt(5) - 1) / 2;
-  let c = hi - phi * (hi - lo);
-  let d = lo + phi * (hi - lo);
-  let fc = pressureAndSlope(c, t).dPdRho;
-  let fd = pressureAndSlope(d, t).dPdRho;
-  while (hi - lo > 1e-10) {
-    if (fc < fd) {
-      hi = d;
-      d = c;
-      fd = fc;
-      c = hi - phi * (hi - lo);
-      fc = pressureAndSlope(c, t).dPdRho;
-    } else {
-      lo = c;
-      c = d;
-      fc = fd;
-      d = lo + phi * (hi - lo);
-      fd = pressureAndSlope(d, t).dPdRho;
-    }
-  }
-  const rho = (lo + hi) / 2;
-  return { rho, slope: pressureAndSlope(rho, t).dPdRho };
+  return minimumIsothermSlope((rho) => pressureAndSlope(rho, t).dPdRho, { from: 0.1, to: 0.6, tolerance: 1e-10 });
 }
 
 let criticalCache: KnCriticalPoint | undefined;
@@ -306,14 +275,9 @@ let criticalCache: KnCriticalPoint | undefined;
 /** Critical point of the equation: the lowest T* at which min_ρ (∂P/∂ρ)_T no longer goes below zero. */
 export function knCriticalPoint(): KnCriticalPoint {
   if (criticalCache) return criticalCache;
-  let lo = 1.0;
-  let hi = 2.0;
-  while (hi - lo > 1e-11) {
-    const mid = (lo + hi) / 2;
-    if (minimumSlope(mid).slope < 0) lo = mid;
-    else hi = mid;
-  }
-  const t = (lo + hi) / 2;
+  const lo = 1.0;
+  const hi = 2.0;
+  const t = criticalTemperature((temp) => minimumSlope(temp).slope, lo, hi);
   const { rho } = minimumSlope(t);
   criticalCache = { reducedTemperature: t, reducedDensity: rho, reducedPressure: pressure(rho, t) };
   return criticalCache;

@@ -12,6 +12,7 @@
  * near the critical point. (Common practice, no source: the "pressure-bracket" form of the Maxwell
  * construction, e.g. Span, Multiparameter Equations of State, 2000, §3.3.)
  */
+import { criticalTemperature, minimumIsothermSlope } from './isotherm-slope';
 
 export interface EosFunctions {
   /** Short id, e.g. 'thol2016'. */
@@ -68,56 +69,19 @@ export class AboveCriticalError extends RangeError {
   }
 }
 
-/** Minimum of (∂P/∂ρ)_T over ρ* ∈ [0.05, 0.7]: a coarse scan, then golden-section search. */
+/** Minimum of (∂P/∂ρ)_T over ρ* ∈ [0.05, 0.7]. */
 function minimumSlope(eos: EosFunctions, t: number): { rho: number; slope: number } {
-  let best = 0.05;
-  let bestSlope = Number.POSITIVE_INFINITY;
-  for (let rho = 0.05; rho <= 0.7 + 1e-12; rho += 0.01) {
-    const s = eos.dPdRho(rho, t);
-    if (s < bestSlope) {
-      bestSlope = s;
-      best = rho;
-    }
-  }
-  let lo = best - 0.01;
-  let hi = best + 0.01;
-  const phi = (Math.sqrt(5) - 1) / 2;
-  let c = hi - phi * (hi - lo);
-  let d = lo + phi * (hi - lo);
-  let fc = eos.dPdRho(c, t);
-  let fd = eos.dPdRho(d, t);
-  while (hi - lo > 1e-11) {
-    if (fc < fd) {
-      hi = d;
-      d = c;
-      fd = fc;
-      c = hi - phi * (hi - lo);
-      fc = eos.dPdRho(c, t);
-    } else {
-      lo = c;
-      c = d;
-      fc = fd;
-      d = lo + phi * (hi - lo);
-      fd = eos.dPdRho(d, t);
-    }
-  }
-  const rho = (lo + hi) / 2;
-  return { rho, slope: eos.dPdRho(rho, t) };
+  return minimumIsothermSlope((rho) => eos.dPdRho(rho, t), { from: 0.05, to: 0.7, tolerance: 1e-11 });
 }
 
 /** Critical point: the temperature at which min_ρ (∂P/∂ρ)_T first reaches zero, by bisection in T* on [0.9, 2]. */
 export function findCriticalPoint(eos: EosFunctions): CriticalPoint {
-  let lo = 0.9;
-  let hi = 2.0;
+  const lo = 0.9;
+  const hi = 2.0;
   if (!(minimumSlope(eos, lo).slope < 0) || !(minimumSlope(eos, hi).slope > 0)) {
     throw new Error(`the ${eos.id} isotherms do not bracket a critical point between T* = 0.9 and 2`);
   }
-  while (hi - lo > 1e-11) {
-    const mid = (lo + hi) / 2;
-    if (minimumSlope(eos, mid).slope < 0) lo = mid;
-    else hi = mid;
-  }
-  const t = (lo + hi) / 2;
+  const t = criticalTemperature((temp) => minimumSlope(eos, temp).slope, lo, hi);
   const { rho } = minimumSlope(eos, t);
   return { reducedTemperature: t, reducedDensity: rho, reducedPressure: eos.pressure(rho, t) };
 }
