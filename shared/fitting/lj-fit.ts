@@ -7,6 +7,7 @@
  */
 import type { LjEosModelId } from '../physics/eos/lj-eos-models';
 import { jointConfidenceEllipse } from './ellipse';
+import { DEFAULT_LJ_BOUNDS as FIT_DEFAULT_BOUNDS, DEFAULT_RESTARTS } from './fit-defaults';
 import { LeastSquaresInputError, weightedLeastSquares, type Convergence, type CovarianceScaling, type LeastSquaresResult, type WeightedResidualProblem } from './least-squares';
 import { estimateLjStart, type LjBounds, type StartPoint } from './lj-starting-values';
 import { PROPERTY_MODELS, isFitKind, type FitKind, type PropertyContext, type PropertyModel } from './property-models';
@@ -163,9 +164,8 @@ export class LjFitInputError extends Error {
   }
 }
 
-/** Bounds used when none are given: wide enough for helium (ε/k ≈ 10 K) to large organic molecules. */
-export const DEFAULT_LJ_BOUNDS: LjBounds = { epsilonK: [1, 5000], sigmaAngstrom: [1, 15] };
-const DEFAULT_RESTARTS = 2;
+/** Bounds used when none are given (fit-defaults.ts holds them, with the other defaults the fit form shows). */
+export const DEFAULT_LJ_BOUNDS: LjBounds = FIT_DEFAULT_BOUNDS;
 /** Seed of the restart perturbations: fixed so that a fit is reproducible. */
 export const RESTART_SEED = 20240611;
 const PARAMETER_NAMES = ['epsilonK', 'sigmaAngstrom'] as const;

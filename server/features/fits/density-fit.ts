@@ -1,3 +1,4 @@
+import { DENSITY_FIT_DEFAULTS } from '../../../shared/fitting/fit-defaults';
 import type { FitDataset, LjFitOptions, LjFitResult } from '../../../shared/fitting/lj-fit';
 import { mdStageFit, type MdRunSummary, type MdStagePoint, type MdStatePoint } from '../../../shared/fitting/md-stage';
 import type { MdSettings } from '../../../shared/schemas/simulations';
@@ -5,13 +6,8 @@ import type { JobRunEnvironment } from '../../jobs/job-runner';
 import { normaliseState, simulationCacheKey, type SimulationInput } from '../simulations/simulations.service';
 import { loadRunFrames, storeSimulationFrames } from '../simulations/simulation-frames';
 
-/**
- * Engine settings of the density fit's simulations when the request names none: 128 atoms (the smallest box that
- * holds rc = 2.5σ twice at liquid densities) and 5000 steps, which every run extends by itself towards 50 effectively
- * independent samples (up to 20 000 steps): ρ* to about 0.5–1 % per run with an honest error, about a second of one
- * core each. Reweighting pools the runs, so the fit's predictions hold more samples than any one run.
- */
-export const DENSITY_FIT_DEFAULTS = { atoms: 128, steps: 5000, cutoff: 2.5, scheme: 'truncated-tail' as const, seed: 20261201 };
+/** Engine settings of the density fit's simulations when the request names none (shared with the fit form and the CLI). */
+export { DENSITY_FIT_DEFAULTS };
 
 /** Equation-of-state stage results of the last fits in this process, by payload (the task is deterministic). */
 const EOS_STAGE_MEMO = new Map<string, LjFitResult>();
