@@ -13,8 +13,8 @@ async function json<T>(page: Page, url: string): Promise<T> {
 async function qg1(page: Page, url: string) {
   const { substances } = await json<{ substances: Array<{ id: number; name: string }> }>(page, `${url}/api/substances`);
   const substanceId = substances.find((s) => s.name === 'Quillgas QG-1')!.id;
-  const { datasets } = await json<{ datasets: Array<{ id: number; property: string; name: string }> }>(page, `${url}/api/datasets?substanceId=${substanceId}`);
-  return { substanceId, b2: datasets.find((d) => d.property === 'b2')! };
+  const { measurementSets } = await json<{ measurementSets: Array<{ id: number; property: string; name: string }> }>(page, `${url}/api/measurement-sets?substanceId=${substanceId}`);
+  return { substanceId, b2: measurementSets.find((d) => d.property === 'b2')! };
 }
 
 describe.skipIf(!available)('what a fitter expects: hold, leave out, notices, needs-my-action, revision diff', () => {
@@ -39,7 +39,7 @@ describe.skipIf(!available)('what a fitter expects: hold, leave out, notices, ne
     await page.getByLabel('Why rows 1, 2 are left out (optional)').fill('Gauge drift in the first two runs');
     // Hold σ at 3.52 Å.
     await page.getByRole('switch', { name: 'Hold σ' }).check();
-    await page.getByLabel('Held σ (Å)').fill('3.52');
+    await page.getByLabel('Hold σ (Å)').fill('3.52');
     await screenshot(page, 'fit-form-hold-and-leave-out');
     await page.getByRole('button', { name: 'Run fit' }).click();
     await page.waitForURL(/\/fits\/\d+$/);
@@ -88,7 +88,7 @@ describe.skipIf(!available)('what a fitter expects: hold, leave out, notices, ne
     await page.getByRole('navigation', { name: 'Main' }).waitFor();
     const headers = { Origin: app.url };
     const { substanceId, b2 } = await qg1(page, app.url);
-    const started = await page.request.post(`${app.url}/api/fits`, { headers, data: { substanceId, datasets: [{ id: b2.id }] } });
+    const started = await page.request.post(`${app.url}/api/fits`, { headers, data: { substanceId, measurementSets: [{ id: b2.id }] } });
     expect(started.status()).toBe(202);
     const fitId = (await started.json()).id as number;
     for (let i = 0; i < 120 && (await json<{ status: string }>(page, `${app.url}/api/fits/${fitId}`)).status !== 'succeeded'; i++) await page.waitForTimeout(500);
@@ -140,10 +140,10 @@ describe.skipIf(!available)('what a fitter expects: hold, leave out, notices, ne
     await page.getByRole('navigation', { name: 'Main' }).waitFor();
     const { substanceId } = await qg1(page, app.url);
     const csv = Buffer.from(['T (K),B2 (cm3/mol),u(B2) (cm3/mol)', '300,-20.1,0.5', '400,-5.2,0.5', '500,3.3,0.5'].join('\n'));
-    const upload = await page.request.post(`${app.url}/api/datasets`, { headers: { Origin: app.url }, multipart: { substanceId: String(substanceId), property: 'b2', name: 'QG-1 B2, uncited bench check', file: { name: 'b2.csv', mimeType: 'text/csv', buffer: csv } } });
+    const upload = await page.request.post(`${app.url}/api/measurement-sets`, { headers: { Origin: app.url }, multipart: { substanceId: String(substanceId), property: 'b2', name: 'QG-1 B2, uncited bench check', file: { name: 'b2.csv', mimeType: 'text/csv', buffer: csv } } });
     expect(upload.status()).toBe(201);
     expect(((await upload.json()) as { warnings: string[] }).warnings.length).toBeGreaterThan(0);
-    await page.goto(`${app.url}/datasets/${(await upload.json()).id}`);
+    await page.goto(`${app.url}/measurement-sets/${(await upload.json()).id}`);
     await page.getByText(/No source citation/).waitFor();
     // On the substance page the new set is "Not used yet"; the B2 set the demo fits used is "In use".
     await page.goto(`${app.url}/substances/${substanceId}`);
