@@ -1,28 +1,17 @@
 import { describe, expect, it } from 'vitest';
 import { b3WithGradient, ljMayerFunction, reducedB3, reducedB3OfMayer, reducedB3WithDerivative } from './third-virial';
 import { b2ZeroCm3PerMol } from './virial';
+import { B3_CHECKS } from '../validation/checks/virial-checks';
+import { itPassesReferenceChecks } from '../validation/reference-check-tests';
 
 describe('third virial coefficient B3', () => {
-  it('gives the hard-sphere value B3 = (5/8) b0² for f = −1 inside σ', () => {
-    // Exact for hard spheres, B3 = 5π²σ⁶N_A²/18 = (5/8) b0² (Boltzmann 1899; common practice, no source).
-    const breakpoints = Array.from({ length: 41 }, (_, i) => i * 0.025);
-    const [b3] = reducedB3OfMayer({ f: (x) => (x < 1 ? -1 : 0) }, { breakpoints, pointsPerPanel: 8 });
-    expect(b3).toBeCloseTo(0.625, 5);
-  });
+  // The hard-sphere value (5/8) b0² (Boltzmann 1899), C*(1.00) = 0.4297 and the maximum of 0.59–0.60 between T* = 1.2
+  // and 1.3 (Hirschfelder, Curtiss & Bird 1954, Appendix Table I-C, from memory): registry entries b3.*
+  // (shared/validation/checks/virial-checks.ts).
+  itPassesReferenceChecks(B3_CHECKS);
 
-  it('matches the tabulated LJ 12-6 value at T* = 1', () => {
-    // Hirschfelder, Curtiss & Bird 1954, Appendix Table I-C (C*(T*) = B3/b0² of the 6-12 potential): C*(1.00) = 0.4297 (from memory).
-    expect(reducedB3(1)).toBeCloseTo(0.4297, 3);
-  });
-
-  it('has its maximum of about 0.59 near T* = 1.25 and turns negative below T* ≈ 0.9', () => {
-    // Same table (from memory): C* peaks at ≈ 0.59–0.60 between T* = 1.2 and 1.3 and is negative at T* = 0.8.
-    const grid = [1.1, 1.15, 1.2, 1.25, 1.3, 1.35, 1.4].map((t) => [t, reducedB3(t)] as const);
-    const best = grid.reduce((a, b) => (b[1] > a[1] ? b : a));
-    expect(best[0]).toBeGreaterThanOrEqual(1.2);
-    expect(best[0]).toBeLessThanOrEqual(1.3);
-    expect(best[1]).toBeGreaterThan(0.585);
-    expect(best[1]).toBeLessThan(0.61);
+  it('turns negative below T* ≈ 0.9', () => {
+    // Same table (from memory): C* is negative at T* = 0.8.
     expect(reducedB3(0.8)).toBeLessThan(0);
   });
 
