@@ -13,6 +13,10 @@ import {
 } from './lj-eos';
 import { integrateToInfinity } from './quadrature';
 import { reducedB2 } from './virial';
+import { JZG_CHECKS } from '../validation/checks/eos-checks';
+import { MD_CHECKS } from '../validation/checks/md-checks';
+import { expectReferenceCheck, itPassesReferenceChecks } from '../validation/reference-check-tests';
+import { referenceCheckById } from '../validation/reference-checks';
 
 /** Relative difference, for checks stated as a fraction. */
 const rel = (a: number, b: number) => Math.abs(a - b) / Math.abs(b);
@@ -30,50 +34,20 @@ describe('values published with the JZG equation', () => {
     // Johnson, Zollweg & Gubbins 1993, Mol. Phys. 78, 591 (abstract and Section 5): the fitted
     // equation has T*c = 1.313, rho*c = 0.310, P*c = 0.13 (from memory). Checked to the digits given.
     // A single wrong digit among the 32 coefficients moves this point, so it also guards the table.
+    // Registry entries jzg.critical.* (shared/validation/checks/eos-checks.ts).
+    for (const id of ['t', 'rho', 'p']) expectReferenceCheck(referenceCheckById(`jzg.critical.${id}`));
     const c = ljEosCriticalPoint();
-    expect(Math.abs(c.reducedTemperature - 1.313)).toBeLessThan(0.0005);
-    expect(Math.abs(c.reducedDensity - 0.31)).toBeLessThan(0.0005);
-    expect(Math.abs(c.reducedPressure - 0.13)).toBeLessThan(0.005);
     // At the critical point the isotherm is flat: dP/drho = 0 (common practice, no source).
     expect(Math.abs(ljEosCompressibilityDerivative(c.reducedDensity, c.reducedTemperature))).toBeLessThan(1e-7);
   });
 });
 
 describe('against published simulation data', () => {
-  // NIST Standard Reference Simulation Website, Lennard-Jones fluid, "MC: NVT Monte Carlo",
-  // https://mmlapps.nist.gov/srs/LJ_PURE/mc.htm (cut-off 3 sigma with analytic long-range corrections,
-  // which approximates the full potential the EOS describes). Values: mean U*/N and P*.
-  const densities = [0.001, 0.003, 0.005, 0.007, 0.009, 0.776, 0.78, 0.82, 0.86, 0.9];
-  const nist: Record<string, { energy: number[]; pressure: number[] }> = {
-    '0.85': {
-      energy: [-1.0317e-2, -3.1019e-2, -5.1901e-2, -7.2834e-2, -9.3973e-2, -5.5121, -5.5386, -5.7947, -6.0305, -6.2391],
-      pressure: [8.4402e-4, 2.4965e-3, 4.1003e-3, 5.6565e-3, 7.1641e-3, 6.7714e-3, 4.7924e-2, 5.5355e-1, 1.266, 2.2314],
-    },
-    '0.90': {
-      energy: [-9.9165e-3, -2.9787e-2, -4.9771e-2, -6.9805e-2, -8.9936e-2, -5.4689, -5.4956, -5.7456, -5.9753, -6.1773],
-      pressure: [8.9429e-4, 2.6485e-3, 4.3569e-3, 6.0193e-3, 7.6363e-3, 2.4056e-1, 2.7851e-1, 8.2386e-1, 1.5781, 2.5848],
-    },
-  };
-  // Tolerances: JZG fitted their own full-potential MD data with rms deviations of order 0.01-0.02
-  // in P* at liquid densities and below 1 % in U* (JZG 1993, Section 4, from memory); the NIST runs
-  // truncate at 3 sigma and add a mean-field tail, which shifts liquid values by a few thousandths.
-  for (const [tKey, data] of Object.entries(nist)) {
-    const t = Number(tKey);
-    densities.forEach((rho, i) => {
-      const vapour = rho < 0.1;
-      it(`T* = ${tKey}, rho* = ${rho}: pressure and energy`, () => {
-        const p = ljEosPressure(rho, t);
-        const u = ljEosInternalEnergy(rho, t);
-        if (vapour) {
-          expect(rel(p, data.pressure[i])).toBeLessThan(1e-3);
-          expect(rel(u, data.energy[i])).toBeLessThan(1e-2);
-        } else {
-          expect(Math.abs(p - data.pressure[i])).toBeLessThan(0.015);
-          expect(rel(u, data.energy[i])).toBeLessThan(5e-3);
-        }
-      });
-    });
-  }
+  // NIST SRSW NVT Monte Carlo, T* = 0.85 and 0.90, ten densities (mmlapps.nist.gov/srs/LJ_PURE/mc.htm, cut-off 3σ with
+  // analytic long-range corrections): P* and U*/N. Tolerances: JZG fitted their own full-potential MD data with rms
+  // deviations of order 0.01–0.02 in P* at liquid densities and below 1 % in U* (JZG 1993, Section 4, from memory), so
+  // 0.015 in P* and 0.5 % in U* there; dilute states 0.1 % (P) and 1 % (U). Registry entries jzg.nist-mc.*.
+  itPassesReferenceChecks(JZG_CHECKS.filter((c) => c.id.startsWith('jzg.nist-mc.')));
 });
 
 describe('thermodynamic consistency (common practice, no source)', () => {
@@ -140,9 +114,8 @@ describe('ljEosDensity', () => {
     const r = ljEosDensity(1.0, 0.1);
     expect(r.phase).toBe('liquid');
     // The saturated liquid at T* = 1.0 has rho* ~ 0.70 (NIST SRSW SAT-TMMC, cut-off 3 sigma + LRC,
-    // from memory); a small overpressure compresses it slightly.
-    expect(r.reducedDensity).toBeGreaterThan(0.7);
-    expect(r.reducedDensity).toBeLessThan(0.73);
+    // from memory); a small overpressure compresses it slightly: registry entry jzg.liquid-density.t1.p0.1.
+    expect(expectReferenceCheck(referenceCheckById('jzg.liquid-density.t1.p0.1'))).toBe(r.reducedDensity);
   });
 
   it('returns the liquid root by default and the vapour root on request when both exist', () => {
@@ -286,25 +259,13 @@ describe('input validation of the property functions', () => {
 });
 
 describe('tail corrections for a cut-off potential', () => {
-  it('matches hand values at rho* = 0.8, r*c = 2.5', () => {
-    // Allen & Tildesley 2017, §2.8 (common formulas), evaluated by hand:
-    // rc^-3 = 0.064, rc^-9 = 2.62144e-4;
-    // u_tail = (8/3) pi 0.8 (8.73813e-5 - 0.064) = -0.428346;
-    // p_tail = (16/3) pi 0.64 (1.74763e-4 - 0.064) = -0.684417;
-    // u(rc) = 4 (1.67772e-5 - 4.096e-3) = -0.0163169.
-    const tail = ljTailCorrections(0.8, 2.5);
-    expect(tail.energyPerParticle).toBeCloseTo(-0.428346, 6);
-    expect(tail.pressure).toBeCloseTo(-0.684417, 5);
-    expect(tail.potentialAtCutoff).toBeCloseTo(-0.0163169, 7);
-  });
-
-  it('matches hand values at rho* = 0.5, r*c = 3', () => {
-    // rc^-3 = 1/27, rc^-9 = 1/19683: u_tail = (8/3) pi 0.5 (1/59049 - 1/27) = -0.155069,
-    // p_tail = (16/3) pi 0.25 (2/59049 - 1/27) = -0.154999 (hand values, same formulas).
-    const tail = ljTailCorrections(0.5, 3);
-    expect(tail.energyPerParticle).toBeCloseTo(-0.155069, 5);
-    expect(tail.pressure).toBeCloseTo(-0.154999, 5);
-  });
+  // Hand values of Allen & Tildesley 2017, §2.8 (common formulas), registry entries md.tail.*:
+  // rho* = 0.8, r*c = 2.5: rc^-3 = 0.064, rc^-9 = 2.62144e-4;
+  //   u_tail = (8/3) pi 0.8 (8.73813e-5 - 0.064) = -0.428346; p_tail = (16/3) pi 0.64 (1.74763e-4 - 0.064) = -0.684417;
+  //   u(rc) = 4 (1.67772e-5 - 4.096e-3) = -0.0163169.
+  // rho* = 0.5, r*c = 3: rc^-3 = 1/27, rc^-9 = 1/19683: u_tail = (8/3) pi 0.5 (1/59049 - 1/27) = -0.155069,
+  //   p_tail = (16/3) pi 0.25 (2/59049 - 1/27) = -0.154999.
+  itPassesReferenceChecks(MD_CHECKS.filter((c) => c.id.startsWith('md.tail.')));
 
   it.each([
     [0.3, 2.5],

@@ -11,6 +11,9 @@ import {
   knResidualHelmholtz,
 } from './kolafa-nezbeda-1994';
 import { reducedB2 } from '../virial';
+import { KOLAFA_NEZBEDA_CHECKS } from '../../validation/checks/eos-checks';
+import { expectReferenceCheck, itPassesReferenceChecks } from '../../validation/reference-check-tests';
+import { referenceCheckById } from '../../validation/reference-checks';
 
 const rel = (a: number, b: number) => Math.abs(a - b) / Math.abs(b);
 
@@ -26,10 +29,9 @@ describe('critical point', () => {
     // Kolafa & Nezbeda 1994 give T*c = 1.3396, rho*c = 0.3108, P*c = 0.1405 for their equation (from memory); NIST's teqp
     // test suite checks the same equation's critical point at T*c = 1.3396478, rho*c = 0.3108039
     // (teqp, src/tests/catch_test_LJ126.cxx, "Check virial coefficients"). A wrong digit in Tables 2-3 moves it.
+    // Registry entries kn.critical.* (shared/validation/checks/eos-checks.ts).
+    for (const id of ['t', 'rho', 'p']) expectReferenceCheck(referenceCheckById(`kn.critical.${id}`));
     const c = knCriticalPoint();
-    expect(Math.abs(c.reducedTemperature - 1.3396478)).toBeLessThan(2e-5);
-    expect(Math.abs(c.reducedDensity - 0.3108039)).toBeLessThan(5e-4);
-    expect(Math.abs(c.reducedPressure - 0.1405)).toBeLessThan(1e-4);
     expect(Math.abs(knPressureDerivatives(c.reducedDensity, c.reducedTemperature).dPdRho)).toBeLessThan(1e-7);
   });
 });
@@ -45,47 +47,17 @@ describe('low-density limit: the exact second virial coefficient', () => {
     const b2FromEos = (z - 1) / rho / ((2 * Math.PI) / 3);
     expect(Math.abs(b2FromEos - reducedB2(t))).toBeLessThan(3e-4);
   });
-  it('B2(T* = 0.8) in sigma^3 matches the value checked by teqp', () => {
-    const rho = 1e-8;
-    const b2 = (knPressure(rho, 0.8) / (rho * 0.8) - 1) / rho;
-    expect(Math.abs(b2 - -7.821026827)).toBeLessThan(5e-4);
+  it('B2(T* = 0.8) in sigma^3 matches the value checked by teqp (registry entry kn.b2.t0.8)', () => {
+    expectReferenceCheck(referenceCheckById('kn.b2.t0.8'));
   });
 });
 
 describe('against published simulation data', () => {
-  // NIST Standard Reference Simulation Website, Lennard-Jones fluid, "MC: NVT Monte Carlo",
-  // https://mmlapps.nist.gov/srs/LJ_PURE/mc.htm (cut-off 3 sigma + analytic long-range corrections):
-  // mean U*/N and P* (same table as shared/physics/lj-eos.test.ts).
-  const densities = [0.001, 0.003, 0.005, 0.007, 0.009, 0.776, 0.78, 0.82, 0.86, 0.9];
-  const nist: Record<string, { energy: number[]; pressure: number[] }> = {
-    '0.85': {
-      energy: [-1.0317e-2, -3.1019e-2, -5.1901e-2, -7.2834e-2, -9.3973e-2, -5.5121, -5.5386, -5.7947, -6.0305, -6.2391],
-      pressure: [8.4402e-4, 2.4965e-3, 4.1003e-3, 5.6565e-3, 7.1641e-3, 6.7714e-3, 4.7924e-2, 5.5355e-1, 1.266, 2.2314],
-    },
-    '0.90': {
-      energy: [-9.9165e-3, -2.9787e-2, -4.9771e-2, -6.9805e-2, -8.9936e-2, -5.4689, -5.4956, -5.7456, -5.9753, -6.1773],
-      pressure: [8.9429e-4, 2.6485e-3, 4.3569e-3, 6.0193e-3, 7.6363e-3, 2.4056e-1, 2.7851e-1, 8.2386e-1, 1.5781, 2.5848],
-    },
-  };
-  // KN report deviations from their simulation data of about 0.01-0.02 in P* in the dense liquid and
-  // a few thousandths in U*/N (KN 1994, section 5, from memory); the NIST runs add a mean-field tail
-  // beyond 3 sigma. Tolerances: 0.02 in P*, 0.3 % in U*; dilute states 0.1 % (P) and 1 % (U).
-  for (const [tKey, data] of Object.entries(nist)) {
-    const t = Number(tKey);
-    densities.forEach((rho, i) => {
-      it(`T* = ${tKey}, rho* = ${rho}`, () => {
-        const p = knPressure(rho, t);
-        const u = knInternalEnergy(rho, t);
-        if (rho < 0.1) {
-          expect(rel(p, data.pressure[i])).toBeLessThan(1e-3);
-          expect(rel(u, data.energy[i])).toBeLessThan(1e-2);
-        } else {
-          expect(Math.abs(p - data.pressure[i])).toBeLessThan(0.02);
-          expect(rel(u, data.energy[i])).toBeLessThan(3e-3);
-        }
-      });
-    });
-  }
+  // NIST SRSW NVT Monte Carlo (mmlapps.nist.gov/srs/LJ_PURE/mc.htm, cut-off 3σ + analytic long-range corrections),
+  // the table of lj-eos.test.ts. KN report deviations from their simulation data of about 0.01–0.02 in P* in the dense
+  // liquid and a few thousandths in U*/N (KN 1994, section 5, from memory): 0.02 in P*, 0.3 % in U*; dilute states 0.1 %
+  // (P) and 1 % (U). Registry entries kn.nist-mc.*.
+  itPassesReferenceChecks(KOLAFA_NEZBEDA_CHECKS.filter((c) => c.id.startsWith('kn.nist-mc.')));
 });
 
 describe('thermodynamic consistency (common practice, no source)', () => {
@@ -154,9 +126,9 @@ describe('density roots', () => {
   it('finds the liquid near the triple line where NIST data place it', () => {
     // NIST SRSW NVT MC (table above): at T* = 0.85, rho* = 0.78 the pressure is 0.0479, at 0.82 it is 0.554,
     // so the liquid at P* = 0.1 lies between (linear interpolation: 0.7842).
+    // Registry entry kn.liquid-density.t0.85.p0.1.
     const r = knDensity(0.85, 0.1, { phase: 'liquid' });
-    expect(r.reducedDensity).toBeGreaterThan(0.78);
-    expect(r.reducedDensity).toBeLessThan(0.79);
+    expect(expectReferenceCheck(referenceCheckById('kn.liquid-density.t0.85.p0.1'))).toBe(r.reducedDensity);
     expect(r.stableAmongFluidRoots).toBe(true);
   });
 

@@ -1,11 +1,13 @@
 import { describe, expect, it } from 'vitest';
-import { LJ_TRIPLE_POINT_TEMPERATURE, freezingLiquidDensity, ljRegionOf } from './lj-freezing';
+import { freezingLiquidDensity, ljRegionOf } from './lj-freezing';
+import { expectReferenceCheck } from '../../validation/reference-check-tests';
+import { referenceCheckById } from '../../validation/reference-checks';
 
 describe('LJ freezing line (Mastny & de Pablo 2007, eq. 21)', () => {
   it('puts the liquid at the triple point where simulations find it', () => {
     // Liquid density at the triple point: ρ*_l ≈ 0.845 at T*_tp ≈ 0.69 (Agrawal & Kofke 1995, Mol. Phys. 85, 43, and
-    // Mastny & de Pablo 2007 alike, from memory).
-    expect(Math.abs(freezingLiquidDensity(LJ_TRIPLE_POINT_TEMPERATURE) - 0.845)).toBeLessThan(0.005);
+    // Mastny & de Pablo 2007 alike, from memory): registry entry freezing.triple-point-liquid.
+    expectReferenceCheck(referenceCheckById('freezing.triple-point-liquid'));
     // Along the freezing line the liquid gets denser with temperature (common practice, no source).
     expect(freezingLiquidDensity(1.0)).toBeGreaterThan(freezingLiquidDensity(0.8));
     expect(freezingLiquidDensity(2.0)).toBeGreaterThan(freezingLiquidDensity(1.0));

@@ -1,18 +1,15 @@
 import { describe, expect, it } from 'vitest';
 import { reducedB2 } from '../virial';
-import { LJ_EOS_MODEL_IDS, ljCoexistence, ljCriticalPoint, ljStableDensity } from './lj-eos-models';
+import { LJ_EOS_MODEL_IDS, ljCoexistence, ljStableDensity } from './lj-eos-models';
 import { AboveCriticalError } from './phase-equilibrium';
 import { THOL_2016, tholCoexistence, tholCriticalPoint, tholDensity, tholPressure } from './thol-2016';
+import { COEXISTENCE_CHECKS, THOL_CHECKS } from '../../validation/checks/eos-checks';
+import { itPassesReferenceChecks } from '../../validation/reference-check-tests';
 
 describe('Thol et al. (2016) LJ equation of state', () => {
-  it('has the critical point Thol state', () => {
-    // Thol et al., J. Phys. Chem. Ref. Data 45, 023101 (2016) state the critical point of their equation as
-    // T*c = 1.32, ρ*c = 0.31, p*c = 0.13 (the reducing values of eq. 3 are set to it).
-    const c = tholCriticalPoint();
-    expect(c.reducedTemperature).toBeCloseTo(1.32, 3);
-    expect(Math.abs(c.reducedDensity - 0.31)).toBeLessThan(0.006);
-    expect(c.reducedPressure).toBeCloseTo(0.13, 2);
-  });
+  // Thol et al., J. Phys. Chem. Ref. Data 45, 023101 (2016) state the critical point of their equation as
+  // T*c = 1.32, ρ*c = 0.31, p*c = 0.13 (the reducing values of eq. 3 are set to it): registry entries thol.critical.*.
+  itPassesReferenceChecks(THOL_CHECKS);
 
   it('reproduces the exact B2 of the LJ potential in the dilute limit', () => {
     // Z − 1 → b0 B2* ρ as ρ → 0 (Hirschfelder, Curtiss & Bird 1954, eq. 3.1-2); B2* by quadrature (virial.ts).
@@ -23,19 +20,12 @@ describe('Thol et al. (2016) LJ equation of state', () => {
     }
   });
 
-  it('matches NIST SRSW vapour–liquid coexistence of the LJ fluid', () => {
+  describe('matches NIST SRSW vapour–liquid coexistence of the LJ fluid', () => {
     // NIST Standard Reference Simulation Website, Lennard-Jones fluid, TMMC vapour–liquid coexistence with the
     // potential cut at 3σ plus analytic long-range corrections (close to the full potential Thol describe), T* = 0.70:
-    // ρ*vap = 1.996e-3, ρ*liq = 0.8437, p*sat = 1.370e-3 (from memory).
-    const c = tholCoexistence(0.7);
-    expect(Math.abs(c.liquidDensity - 0.8437) / 0.8437).toBeLessThan(0.004);
-    expect(Math.abs(c.vapourDensity - 1.996e-3) / 1.996e-3).toBeLessThan(0.03);
-    expect(Math.abs(c.saturationPressure - 1.37e-3) / 1.37e-3).toBeLessThan(0.03);
-    // Same site, T* = 1.0: ρ*liq ≈ 0.70 and p*sat ≈ 0.025 (from memory, as in lj-eos.test.ts).
-    const d = tholCoexistence(1.0);
-    expect(d.liquidDensity).toBeGreaterThan(0.695);
-    expect(d.liquidDensity).toBeLessThan(0.71);
-    expect(Math.abs(d.saturationPressure - 0.025) / 0.025).toBeLessThan(0.04);
+    // ρ*vap = 1.996e-3, ρ*liq = 0.8437, p*sat = 1.370e-3; T* = 1.0: ρ*liq ≈ 0.70 and p*sat ≈ 0.025 (from memory).
+    // Registry entries coexistence.thol.*.
+    itPassesReferenceChecks(COEXISTENCE_CHECKS.filter((c) => c.id.startsWith('coexistence.thol.')));
   });
 
   it('solves equal pressure and chemical potential right up to the critical point without the trivial root', () => {
@@ -87,10 +77,10 @@ describe('Thol et al. (2016) LJ equation of state', () => {
 });
 
 describe('LJ equation-of-state selector', () => {
-  it('finds each model’s own critical point', () => {
+  describe('finds each model’s own critical point', () => {
     // JZG 1993 report T*c = 1.313, ρ*c = 0.310 for their equation; KN 1994 report T*c ≈ 1.34 (both from memory).
-    expect(ljCriticalPoint('jzg1993').reducedTemperature).toBeCloseTo(1.313, 3);
-    expect(Math.abs(ljCriticalPoint('kn1994').reducedTemperature - 1.34)).toBeLessThan(0.01);
+    // Registry entries coexistence.selector.*.
+    itPassesReferenceChecks(COEXISTENCE_CHECKS.filter((c) => c.id.startsWith('coexistence.selector.')));
   });
 
   it('gives coexistence from all three equations that agree within their fit accuracy at T* = 0.9', () => {
