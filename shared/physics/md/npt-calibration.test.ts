@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { runNpt } from './npt';
-import { chiSquareQuantile } from '../../fitting/statistics';
+import { STATISTICS_CHECKS } from '../../validation/checks/statistics-checks';
+import { itPassesReferenceChecks } from '../../validation/reference-check-tests';
 
 /**
  * Are the reported standard errors honest? At two fluid states, 20 independent runs (seeds 1–20) each report ρ* with
@@ -16,11 +17,14 @@ const DOF = SEEDS.length - 1;
 const BAND = [6.844, 38.582];
 
 describe('calibration of the reported standard errors', () => {
-  it('uses the 99 % band of χ² with 19 degrees of freedom', () => {
-    // Quantiles from the regularised incomplete gamma function (shared/fitting/statistics.ts); the tabulated values
-    // χ²₁₉(0.005) = 6.844 and χ²₁₉(0.995) = 38.582 (e.g. NIST/SEMATECH e-Handbook, table 1.3.6.7.4, from memory).
-    expect(chiSquareQuantile(0.005, DOF)).toBeCloseTo(BAND[0], 3);
-    expect(chiSquareQuantile(0.995, DOF)).toBeCloseTo(BAND[1], 3);
+  // The 99 % band of χ² with 19 degrees of freedom: quantiles from the regularised incomplete gamma function
+  // (shared/fitting/statistics.ts) against the tabulated χ²₁₉(0.005) = 6.844 and χ²₁₉(0.995) = 38.582 (NIST/SEMATECH
+  // e-Handbook, table 1.3.6.7.4, from memory): registry entries statistics.chi2-19.*, whose references are the band.
+  const bandChecks = STATISTICS_CHECKS.filter((c) => c.id.startsWith('statistics.chi2-19.'));
+  itPassesReferenceChecks(bandChecks);
+  it('takes its band from those checks', () => {
+    expect(bandChecks.map((c) => c.reference)).toEqual(BAND);
+    expect(bandChecks.every((c) => c.degreesOfFreedom[0] === DOF)).toBe(true);
   });
 
   for (const [t, p] of [
