@@ -10,7 +10,7 @@
  */
 import { b2Interpolated } from '../physics/virial-interpolant';
 import { DEFAULT_POSTERIOR_SAMPLES } from './fit-defaults';
-import { type FitDataset, type LjFitOptions, type LjFitResult, type LjParameter } from './lj-fit';
+import { type FitMeasurementSet, type LjFitOptions, type LjFitResult, type LjParameter } from './lj-fit';
 import {
   credibleRegionOutline,
   intervalDisagreement,
@@ -239,11 +239,11 @@ export function modelValue(kind: FitKind, point: { temperatureK: number; pressur
   return PROPERTY_MODELS[kind].evaluate(point, epsilonK, sigmaAngstrom, context).value;
 }
 
-/** χ² of the included rows of the datasets at (ε, σ), as lj-fit.ts defines it. */
-export function chi2Function(datasets: readonly FitDataset[], options: Pick<LjFitOptions, 'molarMassGPerMol' | 'quantumCorrection' | 'repulsiveExponent'>): (epsilonK: number, sigmaAngstrom: number) => number {
+/** χ² of the included rows of the measurement sets at (ε, σ), as lj-fit.ts defines it. */
+export function chi2Function(measurementSets: readonly FitMeasurementSet[], options: Pick<LjFitOptions, 'molarMassGPerMol' | 'quantumCorrection' | 'repulsiveExponent'>): (epsilonK: number, sigmaAngstrom: number) => number {
   const context: PropertyContext = { molarMassGPerMol: options.molarMassGPerMol, quantumCorrection: options.quantumCorrection ?? false, ...(options.repulsiveExponent !== undefined && options.repulsiveExponent !== 12 ? { repulsiveExponent: options.repulsiveExponent } : {}) };
   const points: Point[] = [];
-  for (const d of datasets) {
+  for (const d of measurementSets) {
     const excluded = new Set(d.excludeRows ?? []);
     d.rows.forEach((row, i) => {
       if (excluded.has(i + 1)) return;
@@ -261,9 +261,9 @@ export function chi2Function(datasets: readonly FitDataset[], options: Pick<LjFi
 }
 
 /** Samples the posterior of a succeeded fit (see file header). Throws when the fit did not succeed. */
-export function ljPosterior(datasets: readonly FitDataset[], fitOptions: LjFitOptions, fit: LjFitResult, options: LjPosteriorOptions = {}): LjPosterior {
+export function ljPosterior(measurementSets: readonly FitMeasurementSet[], fitOptions: LjFitOptions, fit: LjFitResult, options: LjPosteriorOptions = {}): LjPosterior {
   if (fit.status !== 'succeeded') throw new Error('a posterior needs a succeeded fit to start from');
-  const chi2 = chi2Function(datasets, fitOptions);
+  const chi2 = chi2Function(measurementSets, fitOptions);
   const noise = options.noise ?? 'as-fit';
   const s2 = noise === 'as-fit' && fit.covarianceScaling === 'reduced-chi2' && fit.reducedChi2 !== null && fit.reducedChi2 > 0 ? fit.reducedChi2 : 1;
   const free = NAMES.filter((n) => !fit.heldParameters.includes(n));

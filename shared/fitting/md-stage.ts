@@ -16,14 +16,18 @@
  * quadrature to the measurement uncertainty. Runs without stored frames (a test double, an old cached result) still
  * work: their own fluctuation derivatives give one Levenberg–Marquardt step per round.
  * Runs are asked for through an injected `simulate`, so the same code runs against the job queue or a test double.
+ * With `posterior`, the converged stage samples the Bayesian posterior of (ε, σ) on the reweighted predictions of its
+ * runs (density-posterior.ts), with a short extra round of runs where the sampler's proposals leave their reach.
  */
-import { densityWithGradient, reducedStateOf } from '../physics/corresponding-states';
+import { densityWithGradient, massDensityKgPerM3, reducedStateOf } from '../physics/corresponding-states';
 import { ljRegionOf } from '../physics/eos/lj-freezing';
 import type { RunFrames } from '../physics/md/frames';
 import { DEFAULT_MIN_REWEIGHT_SAMPLES, ReweightPool, reweightRunFromFrames, type ReweightRun } from '../physics/md/mbar';
 import { covarianceFromJacobian, correlationFromCovariance, standardErrorsFromCovariance } from './covariance';
+import { densityPosterior, type DensityPosterior, type DensityPosteriorOptions, type ProposalOutcome } from './density-posterior';
 import { jointConfidenceEllipse } from './ellipse';
-import { STRONG_CORRELATION, strongCorrelationWarning, type LjDatasetSummary, type LjFitResult, type LjResidual } from './lj-fit';
+import { STRONG_CORRELATION, strongCorrelationWarning, type LjMeasurementSetSummary, type LjFitResult, type LjParameter, type LjResidual } from './lj-fit';
+import { modelValue } from './lj-posterior';
 import { PROPERTY_MODELS, type FitKind, type PropertyContext } from './property-models';
 
 export interface MdStatePoint {
@@ -54,10 +58,10 @@ export interface MdRunSummary {
 }
 
 export interface MdStagePoint {
-  datasetId: string | number;
-  datasetIndex: number;
+  measurementSetId: string | number;
+  measurementSetIndex: number;
   kind: FitKind;
-  /** Row number within its dataset (1-based). */
+  /** Row number within its measurement set (1-based). */
   rowNumber?: number;
   /** Left out by the modeller: still simulated and predicted, never counted in χ². */
   excluded?: boolean;
@@ -85,6 +89,10 @@ export interface MdStageOptions {
   /** Runs the states; `onRunFinished` is called as each run ends, for progress. */
   simulate: (states: MdStatePoint[], onRunFinished?: () => void) => Promise<MdRunSummary[]>;
   onProgress?: (p: { fraction: number; stage: string }) => void;
+  /** How the start was found, for the result (default 'equation-of-state stage'). */
+  startMethod?: string;
+  /** Sample the Bayesian posterior of (ε, σ) on the reweighted predictions once the stage has its answer. */
+  posterior?: DensityPosteriorOptions;
 }
 
 export interface MdIteration {
@@ -116,7 +124,7 @@ export interface MdResidual extends LjResidual {
 export interface MdStageResult extends LjFitResult {
   residuals: MdResidual[];
   mdIterations: MdIteration[];
-  mdRuns: Array<{ id: number; reused: boolean; temperatureK: number; pressureMPa: number; reducedTemperature: number; reducedPressure: number; reducedDensity: number; stdErr: number; phase: string; iteration: number; effectiveSamples: number | null; startedFrom: string | null }>;
+  mdRuns: Array<{ id: number; reused: boolean; temperatureK: number; pressureMPa: number; reducedTemperature: number; reducedPressure: number; reducedDensity: number; stdErr: number; phase: string; iteration: number; effectiveSamples: number | null; startedFrom: string | null; purpose?: 'posterior' }>;
   /** Rounds of simulations (a round: the runs asked for at one point of (ε, σ), then the steps on reweighted predictions). */
   mdRounds: number;
   stoppedBy: 'converged' | 'round-limit';
@@ -126,6 +134,8 @@ export interface MdStageResult extends LjFitResult {
   reweightedPoints: number;
   phaseWarnings: string[];
   stoppingRule: string;
+  /** The Bayesian posterior on the reweighted predictions, when asked for. */
+  posterior?: DensityPosterior;
 }
 
 interface Prediction {
@@ -165,9 +175,12 @@ class RunBook {
   readonly pool: ReweightPool;
   readonly direct = new Map<string, MdRunSummary>();
   readonly frozen = new Map<string, MdRunSummary>();
+  /** Every run with frames, by id (the pool's own list is private). */
+  readonly reweightRuns = new Map<number, ReweightRun>();
 
-  constructor(stored: ReweightRun[], minEffectiveSamples: number) {
+  constructor(stored: ReweightRun[], readonly minEffectiveSamples: number) {
     this.pool = new ReweightPool(stored, minEffectiveSamples);
+    for (const r of stored) this.reweightRuns.set(r.id, r);
   }
 
   add(state: MdStatePoint, run: MdRunSummary): void {
@@ -177,9 +190,14 @@ class RunBook {
       return;
     }
     this.direct.set(key, run);
-    if (run.reweightRun && run.reweightRun.volume.length > 0 && !this.pool.has(run.id)) this.pool.add(run.reweightRun);
-    else if (run.frames && run.frames.count > 0 && !this.pool.has(run.id)) {
-      this.pool.add(reweightRunFromFrames(run.id, { reducedTemperature: run.reducedTemperature ?? state.reducedTemperature, reducedPressure: run.reducedPressure ?? state.reducedPressure, atoms: run.atoms ?? 0 }, run.frames));
+    let reweightRun: ReweightRun | null = null;
+    if (run.reweightRun && run.reweightRun.volume.length > 0) reweightRun = run.reweightRun;
+    else if (run.frames && run.frames.count > 0) {
+      reweightRun = reweightRunFromFrames(run.id, { reducedTemperature: run.reducedTemperature ?? state.reducedTemperature, reducedPressure: run.reducedPressure ?? state.reducedPressure, atoms: run.atoms ?? 0 }, run.frames);
+    }
+    if (reweightRun && !this.pool.has(run.id)) {
+      this.pool.add(reweightRun);
+      this.reweightRuns.set(run.id, reweightRun);
     }
   }
 
@@ -292,6 +310,80 @@ function evaluate(points: MdStagePoint[], epsilonK: number, sigmaAngstrom: numbe
   return { epsilonK, sigmaAngstrom, residuals, jacobian, predicted, modelUncertainty, included, runIds, effectiveSamples, predictedBy, chi2, excluded, uncovered, reweightedOnly };
 }
 
+/**
+ * The log likelihood of density-posterior.ts at (ε, σ) from the pool alone: the points the fit counted, each density
+ * with the variance of its measurement plus that of its reweighted prediction (and ln v, since that one varies), the
+ * other kinds with their models (interpolated B2 as in the gas-phase posterior). Refused where a state is out of reach
+ * or an included point leaves the fluid or the sample's phase.
+ */
+function posteriorOutcome(
+  points: MdStagePoint[],
+  epsilonK: number,
+  sigmaAngstrom: number,
+  options: MdStageOptions,
+  book: RunBook,
+  pools: PointPools,
+  includedAtFit: readonly boolean[],
+  s2: number,
+): ProposalOutcome {
+  let sum = 0;
+  const M = options.context.molarMassGPerMol;
+  for (let i = 0; i < points.length; i++) {
+    if (!includedAtFit[i]) continue;
+    const p = points[i];
+    if (p.kind !== 'density') {
+      const r = ((modelValue(p.kind, { temperatureK: p.temperatureK, pressureMPa: p.pressureMPa, measured: p.value }, epsilonK, sigmaAngstrom, options.context) - p.value) * p.weight) / p.uncertainty;
+      sum += (r * r) / s2;
+      continue;
+    }
+    const state = reducedStateOf({ temperatureK: p.temperatureK, pressureMPa: p.pressureMPa!, epsilonK, sigmaAngstrom });
+    if (regionProblem(state) || book.frozen.has(stateKey(state))) return { refused: 'phase' };
+    const pred = pools.predict(i, state);
+    if (!pred.ok) return { refused: 'uncovered' };
+    const rho = massDensityKgPerM3(pred.reducedDensity, M, sigmaAngstrom);
+    const ratio = rho / p.value;
+    if (ratio < 0.5 || ratio > 2) return { refused: 'phase' };
+    const uModel = massDensityKgPerM3(pred.stdErr, M, sigmaAngstrom);
+    const v = (p.uncertainty * p.uncertainty + uModel * uModel) / (p.weight * p.weight);
+    sum += (rho - p.value) ** 2 / (s2 * v) + Math.log(v);
+  }
+  return Number.isFinite(sum) ? { logLikelihood: -0.5 * sum } : { refused: 'uncovered' };
+}
+
+/**
+ * One MBAR pool per density point for the sampler, which asks for tens of thousands of predictions: the runs made for
+ * that point plus every run carrying weight (share > 10⁻³) at its state at the fit's answer. Runs of the other points'
+ * states carry no weight there, so the estimate is the same MBAR estimate over the runs that matter, at a fraction of
+ * the cost of weighting every frame of the stage.
+ */
+class PointPools {
+  private readonly pools = new Map<number, ReweightPool>();
+
+  constructor(
+    private readonly book: RunBook,
+    private readonly runsOfPoint: Map<number, Set<number>>,
+    private readonly finalStates: Map<number, MdStatePoint>,
+  ) {}
+
+  /** Forget the pools (after new runs). */
+  reset(): void {
+    this.pools.clear();
+  }
+
+  predict(i: number, state: MdStatePoint): ReturnType<ReweightPool['predict']> {
+    let pool = this.pools.get(i);
+    if (!pool) {
+      const ids = new Set(this.runsOfPoint.get(i) ?? []);
+      const at = this.finalStates.get(i);
+      const whole = at && this.book.pool.size ? this.book.pool.predict(at) : null;
+      if (whole && 'runs' in whole) for (const r of whole.runs) ids.add(r.id);
+      pool = new ReweightPool([...ids].map((id) => this.book.reweightRuns.get(id)).filter((r): r is ReweightRun => !!r), this.book.minEffectiveSamples);
+      this.pools.set(i, pool);
+    }
+    return pool.predict(state);
+  }
+}
+
 const PARAMETER_NAMES = ['epsilonK', 'sigmaAngstrom'] as const;
 
 /** The Jacobian's columns of the free parameters. */
@@ -335,7 +427,7 @@ function lmStep(e: Evaluation, lambda: number, heldIndex: number | null = null):
 
 const clamp = (x: number, [lo, hi]: [number, number]) => Math.min(Math.max(x, lo), hi);
 
-export async function mdStageFit(points: MdStagePoint[], datasets: Array<{ id: string | number; kind: FitKind }>, options: MdStageOptions): Promise<MdStageResult> {
+export async function mdStageFit(points: MdStagePoint[], measurementSets: Array<{ id: string | number; kind: FitKind }>, options: MdStageOptions): Promise<MdStageResult> {
   const maxIterations = options.maxIterations ?? 6;
   const heldIndex = options.held ? PARAMETER_NAMES.indexOf(options.held) : null;
   const freeCount = heldIndex === null ? 2 : 1;
@@ -358,6 +450,24 @@ export async function mdStageFit(points: MdStagePoint[], datasets: Array<{ id: s
   // Progress: round r fills [start(r), start(r + 1)), halves that shrink, so the bar never waits for a round limit.
   const roundStart = (r: number) => 0.05 + 0.9 * (1 - 0.5 ** (r - 1));
   const describe = (t: { epsilonK: number; sigmaAngstrom: number }) => `ε/k_B = ${t.epsilonK.toFixed(2)} K, σ = ${t.sigmaAngstrom.toFixed(4)} Å`;
+  const runsOfPoint = new Map<number, Set<number>>();
+  /** Runs the wanted states, adds them to the book and the record; a run that froze or split leaves its point out (not for the posterior's runs). */
+  const runAt = async (wanted: Array<[number, MdStatePoint]>, iteration: number, onFinished: (finished: number) => void, purpose?: 'posterior'): Promise<MdRunSummary[]> => {
+    let finished = 0;
+    const runs = wanted.length ? await options.simulate(wanted.map(([, st]) => st), () => onFinished(++finished)) : [];
+    runs.forEach((r, k) => {
+      const [i, st] = wanted[k];
+      book.add(st, r);
+      if (r.phase !== 'fluid' && !purpose) leftOut.set(i, r.phase === 'solid' ? 'the run froze into an ordered solid' : 'the run split into vapour and liquid');
+      if (r.reused) reusedRuns++;
+      else newRuns++;
+      if (!runsOfPoint.has(i)) runsOfPoint.set(i, new Set());
+      runsOfPoint.get(i)!.add(r.id);
+      const p = points[i];
+      allRuns.push({ id: r.id, reused: r.reused, temperatureK: p.temperatureK, pressureMPa: p.pressureMPa!, ...st, reducedDensity: r.reducedDensity, stdErr: r.stdErr, phase: r.phase, iteration, effectiveSamples: r.effectiveSamples ?? null, startedFrom: r.startedFrom ?? null, ...(purpose ? { purpose } : {}) });
+    });
+    return runs;
+  };
   const stepAndErrors = (e: Evaluation) => {
     const [d0, d1] = lmStep(e, lambda, heldIndex);
     const cov = covarianceFromJacobian(freeColumns(e.jacobian, heldIndex), e.chi2, Math.max(1, e.included.filter(Boolean).length - freeCount));
@@ -382,24 +492,8 @@ export async function mdStageFit(points: MdStagePoint[], datasets: Array<{ id: s
     }
     const why = { start: 'first runs', uncovered: 'states beyond the reach of the stored runs', confirm: 'confirming the final point' }[reason];
     report(lo, `simulation round ${round} (${why}): ${wanted.length} NPT run(s) at ${describe(theta)}`);
-    let finished = 0;
-    const runs = wanted.length
-      ? await options.simulate(
-          wanted.map(([, st]) => st),
-          () => {
-            finished++;
-            report(lo + ((hi - lo) * 0.8 * finished) / wanted.length, `simulation round ${round} (${why}): ${finished} of ${wanted.length} run(s) finished`);
-          },
-        )
-      : [];
-    runs.forEach((r, k) => {
-      const [i, st] = wanted[k];
-      book.add(st, r);
-      if (r.phase !== 'fluid') leftOut.set(i, r.phase === 'solid' ? 'the run froze into an ordered solid' : 'the run split into vapour and liquid');
-      if (r.reused) reusedRuns++;
-      else newRuns++;
-      const p = points[i];
-      allRuns.push({ id: r.id, reused: r.reused, temperatureK: p.temperatureK, pressureMPa: p.pressureMPa!, ...st, reducedDensity: r.reducedDensity, stdErr: r.stdErr, phase: r.phase, iteration: round, effectiveSamples: r.effectiveSamples ?? null, startedFrom: r.startedFrom ?? null });
+    const runs = await runAt(wanted, round, (finished) => {
+      report(lo + ((hi - lo) * 0.8 * finished) / wanted.length, `simulation round ${round} (${why}): ${finished} of ${wanted.length} run(s) finished`);
     });
     const roundReason = reason;
     // 2. Levenberg–Marquardt on the predictions the stored runs give, while its trial points stay within their reach.
@@ -458,8 +552,8 @@ export async function mdStageFit(points: MdStagePoint[], datasets: Array<{ id: s
   const stdErr: Array<number | null> = covariance ? standardErrorsFromCovariance(covariance) : [null, null];
   if (heldIndex !== null) stdErr[heldIndex] = null;
   const residuals: MdResidual[] = points.map((p, i) => ({
-    datasetIndex: p.datasetIndex,
-    datasetId: p.datasetId,
+    measurementSetIndex: p.measurementSetIndex,
+    measurementSetId: p.measurementSetId,
     kind: p.kind,
     temperatureK: p.temperatureK,
     ...(p.pressureMPa !== undefined ? { pressureMPa: p.pressureMPa } : {}),
@@ -477,14 +571,14 @@ export async function mdStageFit(points: MdStagePoint[], datasets: Array<{ id: s
     effectiveSamples: final.effectiveSamples[i],
     predictedBy: final.predictedBy[i],
   }));
-  const perDataset: LjDatasetSummary[] = datasets.map((d, index) => {
-    const mine = residuals.filter((r) => r.datasetIndex === index && r.included);
+  const perMeasurementSet: LjMeasurementSetSummary[] = measurementSets.map((d, index) => {
+    const mine = residuals.filter((r) => r.measurementSetIndex === index && r.included);
     const rel = mine.filter((r) => r.relativeDeviationPercent !== null);
     return {
-      datasetId: d.id,
+      measurementSetId: d.id,
       kind: d.kind,
-      points: residuals.filter((r) => r.datasetIndex === index && !r.excluded).length,
-      excludedPoints: residuals.filter((r) => r.datasetIndex === index && r.excluded).length,
+      points: residuals.filter((r) => r.measurementSetIndex === index && !r.excluded).length,
+      excludedPoints: residuals.filter((r) => r.measurementSetIndex === index && r.excluded).length,
       rms: mine.length ? Math.sqrt(mine.reduce((s, r) => s + (r.predicted - r.measured) ** 2, 0) / mine.length) : NaN,
       aadPercent: rel.length ? rel.reduce((s, r) => s + Math.abs(r.relativeDeviationPercent!), 0) / rel.length : null,
       chi2: mine.reduce((s, r) => s + r.residual * r.residual, 0),
@@ -509,8 +603,7 @@ export async function mdStageFit(points: MdStagePoint[], datasets: Array<{ id: s
   const excludedByModeller = points.filter((p) => p.excluded).length;
   if (excludedByModeller) warnings.push(`${excludedByModeller} point(s) were left out by the modeller: they are shown with their predictions but not counted in χ²`);
   warnings.push('No profile-χ² curves for the simulation stage: every point of a curve would need its own rounds of simulations; the intervals are the linearised ones.');
-  report(1, 'done');
-  return {
+  const result: MdStageResult = {
     status: dof >= 0 ? 'succeeded' : 'failed',
     converged: dof >= 0,
     heldParameters: heldIndex === null ? [] : [PARAMETER_NAMES[heldIndex]],
@@ -531,10 +624,10 @@ export async function mdStageFit(points: MdStagePoint[], datasets: Array<{ id: s
     convergence: stoppedBy === 'converged' ? 'parameter-change' : 'max-iterations',
     warnings,
     hitBounds,
-    start: { ...options.start, method: 'equation-of-state stage' },
+    start: { ...options.start, method: options.startMethod ?? 'equation-of-state stage' },
     bounds: options.bounds,
     residuals,
-    perDataset,
+    perMeasurementSet,
     ellipse95,
     restartsTried: 0,
     quantumCorrection: options.context.quantumCorrection,
@@ -547,5 +640,52 @@ export async function mdStageFit(points: MdStagePoint[], datasets: Array<{ id: s
     mdRuns: allRuns,
     phaseWarnings,
     stoppingRule,
+    ...(options.context.repulsiveExponent !== undefined && options.context.repulsiveExponent !== 12 ? { model: 'mie' as const, repulsiveExponent: options.context.repulsiveExponent } : {}),
   };
+  if (options.posterior && result.status === 'succeeded' && covariance) {
+    report(0.97, 'sampling the posterior on the reweighted predictions');
+    const free = PARAMETER_NAMES.filter((_, k) => k !== heldIndex);
+    const s2 = cov.scaled && dof > 0 && final.chi2 > 0 ? final.chi2 / dof : 1;
+    const includedAtFit = [...final.included];
+    const pools = new PointPools(book, runsOfPoint, densityStates(points, final.epsilonK, final.sigmaAngstrom));
+    let extraRound = iterations.length;
+    try {
+      result.posterior = await densityPosterior(
+        {
+          free,
+          estimate: { epsilonK: final.epsilonK, sigmaAngstrom: final.sigmaAngstrom },
+          stdErr: result.stdErr,
+          covariance: cov.scaled ?? cov.unscaled,
+          bounds: options.bounds,
+          noiseScale: s2,
+          evaluate: (epsilonK, sigmaAngstrom) => posteriorOutcome(points, epsilonK, sigmaAngstrom, options, book, pools, includedAtFit, s2),
+          extend: async (at) => {
+            extraRound++;
+            const wanted: Array<[number, MdStatePoint]> = [];
+            const seen = new Set<string>();
+            for (const t of at) {
+              for (const [i, st] of densityStates(points, t.epsilonK, t.sigmaAngstrom)) {
+                const key = stateKey(st);
+                if (!includedAtFit[i] || seen.has(key) || book.direct.has(key) || book.frozen.has(key) || regionProblem(st)) continue;
+                seen.add(key);
+                wanted.push([i, st]);
+              }
+            }
+            report(0.97, `posterior: ${wanted.length} extra NPT run(s) where the sampler's proposals left the reach of the runs`);
+            const runs = await runAt(wanted, extraRound, (n) => report(0.97, `posterior: ${n} of ${wanted.length} extra run(s) finished`), 'posterior');
+            pools.reset();
+            return runs.length;
+          },
+        },
+        options.posterior,
+      );
+      if (stoppedBy !== 'converged') result.posterior.messages.push('The simulation stage stopped at its round limit, not converged: the posterior was sampled around its last point, which may not be the optimum.');
+      result.newRuns = newRuns;
+      result.reusedRuns = reusedRuns;
+    } catch (err) {
+      warnings.push(`the posterior could not be computed: ${(err as Error).message}`);
+    }
+  }
+  report(1, 'done');
+  return result;
 }

@@ -11,7 +11,8 @@
  *   PASP 125, 306, 2013);
  * - R-hat across walkers (Gelman & Rubin, Stat. Sci. 7, 457, 1992, eq. 3 without the degrees-of-freedom factor).
  *   Walkers of one ensemble are not independent chains, so R-hat is a sanity check, τ the main criterion.
- * Priors: flat within the bounds (zero outside), optionally times an independent Gaussian per parameter.
+ * Priors: flat within the bounds (zero outside), optionally times an independent Gaussian per parameter and/or a
+ * correlated multivariate Gaussian (e.g. the mean and covariance of a previous approved parameter set).
  * Reproducible: the same seed, options and log-likelihood give the same samples to the last digit.
  */
 import { gaussianGenerator, mulberry32 } from './random';
@@ -32,6 +33,12 @@ export interface GaussianPrior {
   standardDeviation: number;
 }
 
+/** A correlated Gaussian prior over all sampled parameters: mean and covariance (symmetric positive definite). */
+export interface MultivariateGaussianPrior {
+  mean: readonly number[];
+  covariance: ReadonlyArray<readonly number[]>;
+}
+
 export interface EnsembleSamplerOptions {
   /** [lower, upper] per parameter: the flat prior's support. */
   bounds: ReadonlyArray<readonly [number, number]>;
@@ -41,6 +48,8 @@ export interface EnsembleSamplerOptions {
   initialSpread: readonly number[];
   /** Optional Gaussian prior per parameter (null or missing: flat). */
   gaussianPriors?: ReadonlyArray<GaussianPrior | null>;
+  /** Optional correlated Gaussian prior over all parameters (multiplies the others). */
+  multivariatePrior?: MultivariateGaussianPrior;
   /** Walkers (even, at least 2·p + 2; default max(16, 4·p)). */
   walkers?: number;
   /** Steps per walker kept after the burn-in (default 1000). */
@@ -102,6 +111,11 @@ function validate(options: EnsembleSamplerOptions): { p: number; walkers: number
       throw new PosteriorInputError(`the Gaussian prior of parameter ${k + 1} needs a finite mean and a positive standard deviation`);
     }
   });
+  if (options.multivariatePrior) {
+    const { mean, covariance } = options.multivariatePrior;
+    if (mean.length !== p || covariance.length !== p || covariance.some((row) => row.length !== p)) throw new PosteriorInputError(`the multivariate prior needs a mean of ${p} entries and a ${p}×${p} covariance`);
+    if (!mean.every(Number.isFinite) || !choleskyLower(covariance)) throw new PosteriorInputError('the multivariate prior needs a finite mean and a symmetric positive-definite covariance');
+  }
   const walkers = options.walkers ?? Math.max(16, 4 * p);
   if (!Number.isInteger(walkers) || walkers < 2 * p + 2 || walkers % 2 !== 0) throw new PosteriorInputError(`walkers must be an even integer of at least ${2 * p + 2}, got ${walkers}`);
   const steps = options.steps ?? 1000;
@@ -113,14 +127,55 @@ function validate(options: EnsembleSamplerOptions): { p: number; walkers: number
   return { p, walkers, steps, burnIn, seed };
 }
 
+/** Lower Cholesky factor L (C = L Lᵀ) of a symmetric matrix, or null when it is not positive definite. */
+export function choleskyLower(c: ReadonlyArray<readonly number[]>): number[][] | null {
+  const n = c.length;
+  const l = Array.from({ length: n }, () => new Array<number>(n).fill(0));
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j <= i; j++) {
+      if (!(Math.abs(c[i][j] - c[j][i]) <= 1e-9 * Math.max(Math.abs(c[i][j]), Math.abs(c[j][i]), Number.MIN_VALUE))) return null;
+      let sum = c[i][j];
+      for (let k = 0; k < j; k++) sum -= l[i][k] * l[j][k];
+      if (i === j) {
+        if (!(sum > 0) || !Number.isFinite(sum)) return null;
+        l[i][i] = Math.sqrt(sum);
+      } else l[i][j] = sum / l[j][j];
+    }
+  }
+  return l;
+}
+
+/** −½ (x − μ)ᵀ C⁻¹ (x − μ) by forward substitution with the Cholesky factor (no explicit inverse). */
+function multivariateGaussianLog(x: readonly number[], prior: MultivariateGaussianPrior, l: number[][]): number {
+  const z: number[] = [];
+  let q = 0;
+  for (let i = 0; i < x.length; i++) {
+    let v = x[i] - prior.mean[i];
+    for (let k = 0; k < i; k++) v -= l[i][k] * z[k];
+    z.push(v / l[i][i]);
+    q += z[i] * z[i];
+  }
+  return -0.5 * q;
+}
+
 /** Log prior: flat within the bounds, −∞ outside, plus the Gaussian terms where given. */
-export function logPrior(parameters: readonly number[], bounds: EnsembleSamplerOptions['bounds'], gaussianPriors?: EnsembleSamplerOptions['gaussianPriors']): number {
+export function logPrior(
+  parameters: readonly number[],
+  bounds: EnsembleSamplerOptions['bounds'],
+  gaussianPriors?: EnsembleSamplerOptions['gaussianPriors'],
+  multivariatePrior?: MultivariateGaussianPrior,
+): number {
   let lp = 0;
   for (let k = 0; k < parameters.length; k++) {
     const [lo, hi] = bounds[k];
     if (!(parameters[k] >= lo && parameters[k] <= hi)) return -Infinity;
     const prior = gaussianPriors?.[k];
     if (prior) lp -= 0.5 * ((parameters[k] - prior.mean) / prior.standardDeviation) ** 2;
+  }
+  if (multivariatePrior) {
+    const l = choleskyLower(multivariatePrior.covariance);
+    if (!l) return -Infinity;
+    lp += multivariateGaussianLog(parameters, multivariatePrior, l);
   }
   return lp;
 }
@@ -133,8 +188,9 @@ export function sampleEnsemble(logLikelihood: (parameters: readonly number[]) =>
   const { p, walkers, steps, burnIn, seed } = validate(options);
   const uniform = mulberry32(seed);
   const gaussian = gaussianGenerator(mulberry32(seed ^ 0x5bd1e995));
+  const mvFactor = options.multivariatePrior ? choleskyLower(options.multivariatePrior.covariance)! : null;
   const logPosteriorOf = (x: readonly number[]): number => {
-    const prior = logPrior(x, options.bounds, options.gaussianPriors);
+    const prior = logPrior(x, options.bounds, options.gaussianPriors) + (mvFactor ? multivariateGaussianLog(x, options.multivariatePrior!, mvFactor) : 0);
     if (prior === -Infinity) return -Infinity;
     let like: number;
     try {
