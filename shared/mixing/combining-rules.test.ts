@@ -1,6 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { COMBINING_RULES, combine, mixtureTable, type CombiningRule, type LjParameters } from './combining-rules';
 import { convertEpsilon, convertSigma } from '../physics/parameter-units';
+import { COMBINING_RULE_CHECKS } from '../validation/checks/material-checks';
+import { itPassesReferenceChecks } from '../validation/reference-check-tests';
 
 // Argon and krypton LJ parameters from second-virial data: Ar ε/k_B = 119.8 K, σ = 3.405 Å;
 // Kr ε/k_B = 171 K, σ = 3.60 Å (Hirschfelder, Curtiss & Bird 1954, Table I-A; from memory).
@@ -49,28 +51,17 @@ describe('combine: identities every rule must satisfy', () => {
 });
 
 describe('combine: Lorentz–Berthelot', () => {
-  it('argon–krypton worked example', () => {
-    // σ_12 = (3.405 + 3.60)/2 = 3.5025 Å, ε_12 = √(119.8·171) = 143.13 K
-    // (worked by hand from the Ar and Kr values above, from memory; rule as in the GROMACS reference manual,
-    // "Parameter files", combination rule 2).
-    const r = combine('lorentz-berthelot', argon, krypton);
-    expect(r.sigmaAngstrom).toBeCloseTo(3.5025, 10);
-    expect(r.epsilonK).toBeCloseTo(143.13, 2);
-  });
+  // Argon–krypton worked example: σ_12 = (3.405 + 3.60)/2 = 3.5025 Å, ε_12 = √(119.8·171) = 143.13 K (worked by hand,
+  // rule as in the GROMACS reference manual, "Parameter files", combination rule 2): registry entries.
+  itPassesReferenceChecks(COMBINING_RULE_CHECKS.filter((c) => c.id.startsWith('combining.lorentz-berthelot.')));
 });
 
 describe('combine: Waldman–Hagler', () => {
-  it('matches the LAMMPS pair_modify mix sixthpower formulas', () => {
-    // LAMMPS documentation, pair_modify, "mix sixthpower":
-    //   epsilon_ij = (2 * sqrt(epsilon_i*epsilon_j) * sigma_i^3 * sigma_j^3) / (sigma_i^6 + sigma_j^6)
-    //   sigma_ij = ((sigma_i**6 + sigma_j**6) / 2) ^ (1/6)
-    const [ei, si, ej, sj] = [small.epsilonK, small.sigmaAngstrom, large.epsilonK, large.sigmaAngstrom];
-    const lammpsEps = (2 * Math.sqrt(ei * ej) * si ** 3 * sj ** 3) / (si ** 6 + sj ** 6);
-    const lammpsSigma = ((si ** 6 + sj ** 6) / 2) ** (1 / 6);
-    const r = combine('waldman-hagler', small, large);
-    expect(r.epsilonK).toBeCloseTo(lammpsEps, 10);
-    expect(r.sigmaAngstrom).toBeCloseTo(lammpsSigma, 12);
-  });
+  // The LAMMPS pair_modify "mix sixthpower" formulas (LAMMPS documentation):
+  //   epsilon_ij = (2 * sqrt(epsilon_i*epsilon_j) * sigma_i^3 * sigma_j^3) / (sigma_i^6 + sigma_j^6)
+  //   sigma_ij = ((sigma_i**6 + sigma_j**6) / 2) ^ (1/6)
+  // registry entries combining.waldman-hagler.*.
+  itPassesReferenceChecks(COMBINING_RULE_CHECKS.filter((c) => c.id.startsWith('combining.waldman-hagler.')));
 
   it('keeps the dispersion coefficient εσ⁶ at the geometric mean', () => {
     // Waldman & Hagler (1993) build ε_ij so that the C6 term is the geometric mean of the pure ones.
@@ -90,17 +81,9 @@ describe('combine: Waldman–Hagler', () => {
 });
 
 describe('combine: Kong', () => {
-  it('keeps εσ⁶ at the geometric mean and εσ¹² at the 1/13-power mean', () => {
-    // Kong (1973), Table I, LJ 12-6 rules (as reproduced on SklogWiki, "Combining rules", Kong rules).
-    const r = combine('kong', small, large);
-    const c6 = r.epsilonK * r.sigmaAngstrom ** 6;
-    const c12 = r.epsilonK * r.sigmaAngstrom ** 12;
-    const c6Expected = Math.sqrt(small.epsilonK * small.sigmaAngstrom ** 6 * large.epsilonK * large.sigmaAngstrom ** 6);
-    const c12Kong = ((small.epsilonK * small.sigmaAngstrom ** 12) / 2 ** 13) *
-      (1 + ((large.epsilonK * large.sigmaAngstrom ** 12) / (small.epsilonK * small.sigmaAngstrom ** 12)) ** (1 / 13)) ** 13;
-    expect(c6 / c6Expected).toBeCloseTo(1, 12);
-    expect(c12 / c12Kong).toBeCloseTo(1, 12);
-  });
+  // εσ⁶ at the geometric mean and εσ¹² at the 1/13-power mean (Kong 1973, Table I, LJ 12-6 rules, as reproduced on
+  // SklogWiki, "Combining rules"), and the equal-size case worked by hand: registry entries combining.kong.*.
+  itPassesReferenceChecks(COMBINING_RULE_CHECKS.filter((c) => c.id.startsWith('combining.kong.')));
 
   it('reduces to the 1/13-power mean of ε when the sizes are equal', () => {
     // With σ_i = σ_j = σ the Kong rules give σ_ij⁶ = σ⁶·M13/G and ε_ij = G²/M13 with G = √(ε_iε_j) and
@@ -113,9 +96,8 @@ describe('combine: Kong', () => {
     expect(r.epsilonK).toBeCloseTo((g * g) / m13, 9);
     expect(r.sigmaAngstrom).toBeCloseTo(3.5 * (m13 / g) ** (1 / 6), 12);
     // Numbers for this case, by hand with logarithms: 100^(1/13) = 1.42510, 200^(1/13) = 1.50317,
-    // M13 = 1.464135^13 = 142.07 K, G = 141.42 K, so ε_ij = 20000/142.07 ≈ 140.77 K and σ_ij ≈ 3.5027 Å.
-    expect(r.epsilonK).toBeCloseTo(140.77, 1);
-    expect(r.sigmaAngstrom).toBeCloseTo(3.5027, 3);
+    // M13 = 1.464135^13 = 142.07 K, G = 141.42 K, so ε_ij = 20000/142.07 ≈ 140.77 K and σ_ij ≈ 3.5027 Å
+    // (registry entries combining.kong.equal-size.*, run above).
   });
 
   it('differs from Lorentz–Berthelot for unequal species', () => {

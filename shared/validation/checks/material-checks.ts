@@ -1,5 +1,5 @@
 /** Reference checks of combining rules, unit conversions and constants, and LJ fits to real argon data. */
-import { fitLennardJones, type FitDataset } from '../../fitting/lj-fit';
+import { fitLennardJones, type FitMeasurementSet } from '../../fitting/lj-fit';
 import { boyleTemperatureFromB2 } from '../../fitting/lj-starting-values';
 import { convertToCanonical } from '../../measurements/units';
 import { combine, type LjParameters } from '../../mixing/combining-rules';
@@ -192,14 +192,14 @@ export const ARGON_B2_CRC: Array<[number, number]> = [
   [100, -184], [120, -131], [140, -98], [160, -76], [180, -60], [200, -48], [300, -16],
   [400, -1], [500, 7], [600, 12], [700, 15], [800, 18], [900, 20], [1000, 22],
 ];
-export const argonB2Dataset = (): FitDataset => ({
+export const argonB2MeasurementSet = (): FitMeasurementSet => ({
   id: 'argon-crc',
   kind: 'b2',
   rows: ARGON_B2_CRC.map(([temperatureK, value]) => ({ temperatureK, value, uncertainty: Math.max(2, 0.02 * Math.abs(value)) })),
 });
 // CRC Handbook, "Viscosity of Gases", argon, low-pressure limiting values in µPa·s (retrieved with the search tool);
 // the table quotes uncertainties "usually less than 3 %", we use 1 %.
-export const argonViscosityDataset = (): FitDataset => ({
+export const argonViscosityMeasurementSet = (): FitMeasurementSet => ({
   id: 'argon-crc-eta',
   kind: 'viscosity',
   rows: [[200, 15.9], [300, 22.7], [400, 28.6], [500, 33.9], [600, 38.8]].map(([temperatureK, value]) => ({ temperatureK, value, uncertainty: 0.01 * value })),
@@ -209,8 +209,8 @@ export const ARGON_MOLAR_MASS_G_PER_MOL = 39.948; // IUPAC standard atomic weigh
 const HCB_TABLE_IA = 'Hirschfelder, Curtiss & Bird 1954, Table I-A (from memory)';
 const ARGON_B2_DATA = 'argon B2, CRC Handbook (Dymond & Smith 1980), 14 points 100–1000 K';
 const ARGON_ETA_DATA = 'argon viscosity, CRC Handbook, 5 points 200–600 K';
-const argonB2Fit = () => fitLennardJones([argonB2Dataset()], { molarMassGPerMol: ARGON_MOLAR_MASS_G_PER_MOL });
-const argonEtaFit = () => fitLennardJones([argonViscosityDataset()], { molarMassGPerMol: ARGON_MOLAR_MASS_G_PER_MOL });
+const argonB2Fit = () => fitLennardJones([argonB2MeasurementSet()], { molarMassGPerMol: ARGON_MOLAR_MASS_G_PER_MOL });
+const argonEtaFit = () => fitLennardJones([argonViscosityMeasurementSet()], { molarMassGPerMol: ARGON_MOLAR_MASS_G_PER_MOL });
 
 export const REAL_DATA_FIT_CHECKS: ReferenceCheck[] = [
   {
@@ -223,7 +223,7 @@ export const REAL_DATA_FIT_CHECKS: ReferenceCheck[] = [
     reference: 410,
     tolerance: range(400, 420),
     testFile: LJ_FIT_TEST,
-    compute: () => boyleTemperatureFromB2(argonB2Dataset().rows.map((r) => ({ kind: 'b2' as const, ...r }))) ?? Number.NaN,
+    compute: () => boyleTemperatureFromB2(argonB2MeasurementSet().rows.map((r) => ({ kind: 'b2' as const, ...r }))) ?? Number.NaN,
   },
   {
     id: 'fit.argon-b2.epsilon',
@@ -259,7 +259,7 @@ export const REAL_DATA_FIT_CHECKS: ReferenceCheck[] = [
     reference: 0,
     tolerance: absolute(0.5),
     testFile: LJ_FIT_TEST,
-    compute: () => argonEtaFit().perDataset[0].aadPercent as number,
+    compute: () => argonEtaFit().perMeasurementSet[0].aadPercent as number,
   },
   {
     id: 'fit.argon-viscosity.epsilon',
