@@ -11,6 +11,7 @@
  * With a repulsive exponent λr ≠ 12 the pair potential is the Mie λr-6 form (mie-potential.ts).
  */
 import { LJ_REPULSIVE_EXPONENT, miePrefactor } from '../mie-potential';
+import { mieKernelFor, type MieKernel } from './mie-kernels';
 
 /** u(r) = 4(r⁻¹² − r⁻⁶); with a repulsive exponent λr ≠ 12 the Mie form C(r^−λr − r⁻⁶) (mie-potential.ts). */
 export function ljPairEnergy(r: number, repulsiveExponent = LJ_REPULSIVE_EXPONENT): number {
@@ -112,7 +113,7 @@ export class LjSystem {
   constructor(positions: Float64Array, box: number, cutoff: number, skin: number, repulsiveExponent = LJ_REPULSIVE_EXPONENT) {
     this.n = positions.length / 3;
     this.repulsiveExponent = repulsiveExponent;
-    this.mieC = miePrefactor(repulsiveExponent);
+    this.mieKernel = repulsiveExponent === LJ_REPULSIVE_EXPONENT ? null : mieKernelFor(repulsiveExponent);
     this.cutoff = cutoff;
     this.skin = skin;
     this.rc2 = cutoff * cutoff;
@@ -576,233 +577,17 @@ export class LjSystem {
     return { potentialTruncated: u, virial: w, pairsInside: pairs };
   }
 
-  /** C(λr) of the Mie kernel. */
-  private readonly mieC: number;
+  /** The Mie λr-6 loops (mie-kernels.ts), chosen once here; null for λr = 12, which runs the 12-6 loops above. */
+  private readonly mieKernel: MieKernel | null;
 
-  /**
-   * The Mie λr-6 kernel, u = C(r^−λr − r⁻⁶), r·F = C(λr r^−λr − 6 r⁻⁶), written out like the 12-6 one (two list
-   * segments, branch-free cut, forces alone or with the pair sums) and kept separate so the 12-6 loops stay exactly
-   * as they were. Integer λr runs at close to the 12-6 speed; a non-integer λr needs Math.pow and is several times
-   * slower (README, benchmarks).
-   */
   /** Mie forces only. */
   private mieForces(): void {
-    const n = this.n;
-    const x = this.pos;
-    const f = this.force;
-    const list = this.nbList;
-    const start = this.nbStart;
-    const mid = this.nbMid;
-    const rc2 = this.rc2;
-    const L = this.box;
-    const h = this.halfBox;
-    const c = this.mieC;
-    const lr = this.repulsiveExponent;
-    // r^−λr for an integer λr: (r⁻²)^⌊λr/2⌋ from the binary digits of ⌊λr/2⌋ ≤ 18 (the flags are the same for every
-    // pair, so the branches predict perfectly), times r⁻¹ when λr is odd; otherwise Math.pow.
-    const integer = Number.isInteger(lr);
-    const halfPower = Math.floor(lr / 2);
-    const odd = integer && lr % 2 === 1;
-    const bit1 = (halfPower & 1) !== 0;
-    const bit2 = (halfPower & 2) !== 0;
-    const bit4 = (halfPower & 4) !== 0;
-    const bit8 = (halfPower & 8) !== 0;
-    const bit16 = (halfPower & 16) !== 0;
-    const halfExp = -0.5 * lr;
-    f.fill(0);
-    for (let i = 0; i < n; i++) {
-      const i3 = 3 * i;
-      const xi = x[i3];
-      const yi = x[i3 + 1];
-      const zi = x[i3 + 2];
-      let fxi = 0;
-      let fyi = 0;
-      let fzi = 0;
-      const kMid = mid[i];
-      const kEnd = start[i + 1];
-      for (let k = start[i]; k < kMid; k++) {
-        const j3 = 3 * list[k];
-        const dx = xi - x[j3];
-        const dy = yi - x[j3 + 1];
-        const dz = zi - x[j3 + 2];
-        const r2 = dx * dx + dy * dy + dz * dz;
-        const inside = +(r2 < rc2);
-        const ir2 = 1 / r2;
-        const ir6 = ir2 * ir2 * ir2;
-        let irn: number;
-        if (integer) {
-          const p2 = ir2 * ir2;
-          const p4 = p2 * p2;
-          const p8 = p4 * p4;
-          irn = (bit1 ? ir2 : 1) * (bit2 ? p2 : 1) * (bit4 ? p4 : 1) * (bit8 ? p8 : 1) * (bit16 ? p8 * p8 : 1);
-          if (odd) irn *= Math.sqrt(ir2);
-        } else {
-          irn = Math.pow(r2, halfExp);
-        }
-        const ff = inside * c * ir2 * (lr * irn - 6 * ir6);
-        const fx = ff * dx;
-        const fy = ff * dy;
-        const fz = ff * dz;
-        fxi += fx;
-        fyi += fy;
-        fzi += fz;
-        f[j3] -= fx;
-        f[j3 + 1] -= fy;
-        f[j3 + 2] -= fz;
-      }
-      // Partners found across a box face: minimum image.
-      for (let k = kMid; k < kEnd; k++) {
-        const j3 = 3 * list[k];
-        let dx = xi - x[j3];
-        let dy = yi - x[j3 + 1];
-        let dz = zi - x[j3 + 2];
-        dx -= L * (+(dx > h) - +(dx < -h));
-        dy -= L * (+(dy > h) - +(dy < -h));
-        dz -= L * (+(dz > h) - +(dz < -h));
-        const r2 = dx * dx + dy * dy + dz * dz;
-        const inside = +(r2 < rc2);
-        const ir2 = 1 / r2;
-        const ir6 = ir2 * ir2 * ir2;
-        let irn: number;
-        if (integer) {
-          const p2 = ir2 * ir2;
-          const p4 = p2 * p2;
-          const p8 = p4 * p4;
-          irn = (bit1 ? ir2 : 1) * (bit2 ? p2 : 1) * (bit4 ? p4 : 1) * (bit8 ? p8 : 1) * (bit16 ? p8 * p8 : 1);
-          if (odd) irn *= Math.sqrt(ir2);
-        } else {
-          irn = Math.pow(r2, halfExp);
-        }
-        const ff = inside * c * ir2 * (lr * irn - 6 * ir6);
-        const fx = ff * dx;
-        const fy = ff * dy;
-        const fz = ff * dz;
-        fxi += fx;
-        fyi += fy;
-        fzi += fz;
-        f[j3] -= fx;
-        f[j3 + 1] -= fy;
-        f[j3 + 2] -= fz;
-      }
-      f[i3] += fxi;
-      f[i3 + 1] += fyi;
-      f[i3 + 2] += fzi;
-    }
+    this.mieKernel!.forces(this);
   }
 
   /** Mie forces and pair sums. */
   private mieForcesAndEnergy(): PairSums {
-    const n = this.n;
-    const x = this.pos;
-    const f = this.force;
-    const list = this.nbList;
-    const start = this.nbStart;
-    const mid = this.nbMid;
-    const rc2 = this.rc2;
-    const L = this.box;
-    const h = this.halfBox;
-    const c = this.mieC;
-    const lr = this.repulsiveExponent;
-    // r^−λr for an integer λr: (r⁻²)^⌊λr/2⌋ from the binary digits of ⌊λr/2⌋ ≤ 18 (the flags are the same for every
-    // pair, so the branches predict perfectly), times r⁻¹ when λr is odd; otherwise Math.pow.
-    const integer = Number.isInteger(lr);
-    const halfPower = Math.floor(lr / 2);
-    const odd = integer && lr % 2 === 1;
-    const bit1 = (halfPower & 1) !== 0;
-    const bit2 = (halfPower & 2) !== 0;
-    const bit4 = (halfPower & 4) !== 0;
-    const bit8 = (halfPower & 8) !== 0;
-    const bit16 = (halfPower & 16) !== 0;
-    const halfExp = -0.5 * lr;
-    let u = 0;
-    let w = 0;
-    let pairs = 0;
-    f.fill(0);
-    for (let i = 0; i < n; i++) {
-      const i3 = 3 * i;
-      const xi = x[i3];
-      const yi = x[i3 + 1];
-      const zi = x[i3 + 2];
-      let fxi = 0;
-      let fyi = 0;
-      let fzi = 0;
-      const kMid = mid[i];
-      const kEnd = start[i + 1];
-      for (let k = start[i]; k < kMid; k++) {
-        const j3 = 3 * list[k];
-        const dx = xi - x[j3];
-        const dy = yi - x[j3 + 1];
-        const dz = zi - x[j3 + 2];
-        const r2 = dx * dx + dy * dy + dz * dz;
-        const inside = +(r2 < rc2);
-        const ir2 = 1 / r2;
-        const ir6 = ir2 * ir2 * ir2;
-        let irn: number;
-        if (integer) {
-          const p2 = ir2 * ir2;
-          const p4 = p2 * p2;
-          const p8 = p4 * p4;
-          irn = (bit1 ? ir2 : 1) * (bit2 ? p2 : 1) * (bit4 ? p4 : 1) * (bit8 ? p8 : 1) * (bit16 ? p8 * p8 : 1);
-          if (odd) irn *= Math.sqrt(ir2);
-        } else {
-          irn = Math.pow(r2, halfExp);
-        }
-        const ff = inside * c * ir2 * (lr * irn - 6 * ir6);
-        u += inside * c * (irn - ir6);
-        w += ff * r2;
-        pairs += inside;
-        const fx = ff * dx;
-        const fy = ff * dy;
-        const fz = ff * dz;
-        fxi += fx;
-        fyi += fy;
-        fzi += fz;
-        f[j3] -= fx;
-        f[j3 + 1] -= fy;
-        f[j3 + 2] -= fz;
-      }
-      // Partners found across a box face: minimum image.
-      for (let k = kMid; k < kEnd; k++) {
-        const j3 = 3 * list[k];
-        let dx = xi - x[j3];
-        let dy = yi - x[j3 + 1];
-        let dz = zi - x[j3 + 2];
-        dx -= L * (+(dx > h) - +(dx < -h));
-        dy -= L * (+(dy > h) - +(dy < -h));
-        dz -= L * (+(dz > h) - +(dz < -h));
-        const r2 = dx * dx + dy * dy + dz * dz;
-        const inside = +(r2 < rc2);
-        const ir2 = 1 / r2;
-        const ir6 = ir2 * ir2 * ir2;
-        let irn: number;
-        if (integer) {
-          const p2 = ir2 * ir2;
-          const p4 = p2 * p2;
-          const p8 = p4 * p4;
-          irn = (bit1 ? ir2 : 1) * (bit2 ? p2 : 1) * (bit4 ? p4 : 1) * (bit8 ? p8 : 1) * (bit16 ? p8 * p8 : 1);
-          if (odd) irn *= Math.sqrt(ir2);
-        } else {
-          irn = Math.pow(r2, halfExp);
-        }
-        const ff = inside * c * ir2 * (lr * irn - 6 * ir6);
-        u += inside * c * (irn - ir6);
-        w += ff * r2;
-        pairs += inside;
-        const fx = ff * dx;
-        const fy = ff * dy;
-        const fz = ff * dz;
-        fxi += fx;
-        fyi += fy;
-        fzi += fz;
-        f[j3] -= fx;
-        f[j3 + 1] -= fy;
-        f[j3 + 2] -= fz;
-      }
-      f[i3] += fxi;
-      f[i3 + 1] += fyi;
-      f[i3 + 2] += fzi;
-    }
-    return { potentialTruncated: u, virial: w, pairsInside: pairs };
+    return this.mieKernel!.forcesAndSums(this);
   }
 
   /** Σ ½v² (m = 1). */
