@@ -1,12 +1,18 @@
 import { describe, expect, it } from 'vitest';
-import { DEFAULT_LJ_BOUNDS, DEFAULT_POSTERIOR_SAMPLES, DEFAULT_RESTARTS, DENSITY_FIT_DEFAULTS, POSTERIOR_SEED } from '../../shared/fitting/fit-defaults';
+import {
+  DEFAULT_LJ_BOUNDS,
+  DEFAULT_POSTERIOR_SAMPLES,
+  DEFAULT_RESTARTS,
+  DENSITY_FIT_DEFAULTS,
+  POSTERIOR_SEED,
+} from '../../shared/fitting/fit-defaults';
 import { fitFormDefaults, fitFormSchema, formPathOf, type FitSetChoice } from '../../src/features/fits/components/fit-form-schema';
 
 // The fit form's values → request body step, which the form runs through react-hook-form's zod resolver.
 const sets: FitSetChoice[] = [
-  { id: 7, name: 'QG-1 B2', version: 1, property: 'b2', rowCount: 12, withdrawn: false },
-  { id: 8, name: 'QG-1 densities', version: 2, property: 'density', rowCount: 20, withdrawn: false },
-  { id: 9, name: 'QG-1 viscosity', version: 1, property: 'viscosity', rowCount: 9, withdrawn: false },
+  { id: 7, name: 'QG-1 B2', version: 1, kind: 'b2', rowCount: 12, withdrawn: false },
+  { id: 8, name: 'QG-1 densities', version: 2, kind: 'density', rowCount: 20, withdrawn: false },
+  { id: 9, name: 'QG-1 viscosity', version: 1, kind: 'viscosity', rowCount: 9, withdrawn: false },
 ];
 
 describe('fit form schema', () => {
@@ -14,7 +20,10 @@ describe('fit form schema', () => {
     const body = fitFormSchema(3, sets).parse(fitFormDefaults(sets));
     expect(body).toEqual({
       substanceId: 3,
-      measurementSets: [{ id: 7, weight: 1 }, { id: 9, weight: 1 }],
+      measurementSets: [
+        { id: 7, weight: 1 },
+        { id: 9, weight: 1 },
+      ],
       options: { quantumCorrection: false, bounds: DEFAULT_LJ_BOUNDS, restarts: DEFAULT_RESTARTS },
     });
   });
@@ -26,18 +35,30 @@ describe('fit form schema', () => {
     v.options.model = 'mie';
     v.options.repulsiveExponent = '16';
     v.options.posteriorOn = true;
+    v.options.posterior.priorSetId = '4';
+    v.options.exponent = 'fitted';
     const body = fitFormSchema(3, sets).safeParse(v);
-    // Mie and a simulation stage do not go together in this version: the refusal lands on the model field.
+    // The simulation stage holds λr: fitting it with densities is refused, on the λr choice.
     expect(body.success).toBe(false);
-    expect(body.error!.issues.map((i) => i.path.join('.'))).toEqual(['options.model']);
+    expect(body.error!.issues.map((i) => i.path.join('.'))).toEqual(['options.exponent']);
+    v.options.exponent = 'held';
     v.sets[1].use = false;
     const ok = fitFormSchema(3, sets).parse(v);
     expect(ok.measurementSets[0]).toEqual({ id: 7, weight: 2.5 });
-    expect(ok.options).toMatchObject({ model: 'mie', repulsiveExponent: 16, posterior: { samples: DEFAULT_POSTERIOR_SAMPLES, seed: POSTERIOR_SEED } });
+    expect(ok.options).toMatchObject({
+      model: 'mie',
+      repulsiveExponent: 16,
+      posterior: { samples: DEFAULT_POSTERIOR_SAMPLES, seed: POSTERIOR_SEED, prior: { parameterSetId: 4 } },
+    });
     v.sets[1].use = true;
     v.options.model = 'lj-12-6';
     const withDensity = fitFormSchema(3, sets).parse(v);
-    expect(withDensity.options!.density).toEqual({ atoms: DENSITY_FIT_DEFAULTS.atoms, steps: DENSITY_FIT_DEFAULTS.steps, cutoff: DENSITY_FIT_DEFAULTS.cutoff, scheme: DENSITY_FIT_DEFAULTS.scheme });
+    expect(withDensity.options!.density).toEqual({
+      atoms: DENSITY_FIT_DEFAULTS.atoms,
+      steps: DENSITY_FIT_DEFAULTS.steps,
+      cutoff: DENSITY_FIT_DEFAULTS.cutoff,
+      scheme: DENSITY_FIT_DEFAULTS.scheme,
+    });
   });
 
   it('puts every complaint on the field it concerns, the request schema’s too', () => {
@@ -65,7 +86,11 @@ describe('fit form schema', () => {
     ]);
     const none = fitFormDefaults(sets);
     none.sets.forEach((s) => (s.use = false));
-    expect(fitFormSchema(3, sets).safeParse(none).error!.issues.map((i) => i.path.join('.'))).toEqual(['sets']);
+    expect(
+      fitFormSchema(3, sets)
+        .safeParse(none)
+        .error!.issues.map((i) => i.path.join('.')),
+    ).toEqual(['sets']);
   });
 
   it('maps the server’s detail fields to the form’s', () => {

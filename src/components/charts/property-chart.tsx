@@ -8,11 +8,14 @@ export interface SeriesPoint {
   u?: number;
   /** Drawn as an open marker: a point left out of the fit. */
   hollow?: boolean;
+  /** A band's lower edge at x (its upper edge is y). */
+  lower?: number;
 }
 
 export interface ChartSeries {
   label: string;
-  kind: 'measured' | 'model' | 'simulated';
+  /** 'band': a shaded region from each point's `lower` to its y (e.g. a posterior-predictive 95 % band). */
+  kind: 'measured' | 'model' | 'simulated' | 'band';
   points: SeriesPoint[];
   /** Leave out of the legend (e.g. one model curve per isobar, named at its end instead). */
   inLegend?: boolean;
@@ -24,7 +27,19 @@ const STYLE = {
   measured: { color: CHART_COLORS.ink, pointStyle: 'circle' as const, radius: 3.5 },
   simulated: { color: CHART_COLORS.teal, pointStyle: 'rectRot' as const, radius: 4.5 },
   model: { color: CHART_COLORS.copper, pointStyle: 'circle' as const, radius: 0 },
+  band: { color: CHART_COLORS.copper, pointStyle: 'rect' as const, radius: 0 },
 };
+
+/** A band is two line datasets, the lower one filled up to the upper one ('-1': the dataset before it). */
+type ScatterDataset = ChartData<'scatter'>['datasets'][number];
+
+function toBandDatasets(s: ChartSeries): ScatterDataset[] {
+  type Dataset = ScatterDataset & { inLegend: boolean };
+  const edge = { showLine: true, pointRadius: 0, pointHoverRadius: 0, borderWidth: 0.75, borderColor: 'rgba(168,90,42,0.45)', backgroundColor: 'rgba(168,90,42,0.16)', tension: 0, spanGaps: false };
+  const upper: Dataset = { ...edge, label: `${s.label} (upper)`, data: s.points.map((p) => ({ x: p.x, y: p.y })), inLegend: false, fill: false };
+  const lower: Dataset = { ...edge, label: s.label, data: s.points.map((p) => ({ x: p.x, y: p.lower ?? p.y })), pointStyle: 'rect', inLegend: s.inLegend ?? true, fill: '-1' };
+  return [upper, lower];
+}
 
 /** Several series of one kind (isotherms, isobars) keep their colour and differ by marker shape. */
 const SHAPES = ['circle', 'triangle', 'rect', 'rectRot', 'star', 'crossRot', 'rectRounded', 'cross'] as const;
@@ -32,7 +47,8 @@ const SHAPES = ['circle', 'triangle', 'rect', 'rectRot', 'star', 'crossRot', 're
 /** Points drawn open (left out of the fit) become a series of their own, so the legend names them. */
 function toDatasets(series: ChartSeries[]) {
   const counts: Record<string, number> = {};
-  return series.flatMap((s) => {
+  return series.flatMap((s): ScatterDataset[] => {
+    if (s.kind === 'band') return toBandDatasets(s);
     const index = (counts[s.kind] = (counts[s.kind] ?? -1) + 1);
     const open = s.points.filter((p) => p.hollow);
     if (!open.length || s.kind === 'model') return [toDataset(s, index)];

@@ -1,11 +1,15 @@
+import { useMemo } from 'react';
 import { Link } from 'react-router-dom';
+import type { GasFitResult } from '@shared/fitting/gas-fit';
 import type { LjFitResult, LjResidual } from '@shared/fitting/lj-fit';
+import { summarise } from '@shared/fitting/posterior';
 import { PROPERTY_MODELS } from '@shared/fitting/property-models';
 import { formatSignificant, formatWithUncertainty } from '@shared/format/numbers';
 import { CUTOFF_SCHEME_LABELS, type CutoffScheme } from '@shared/schemas/parameter-sets';
 import { PropertyChart, type ChartSeries } from '@/components/charts/property-chart';
 import { Badge } from '@/components/ui/badge';
 import { isLeftOut, RESIDUAL_AXIS_TITLE, type CurveParameters } from './fit-curves';
+import { temperatureGrid, thinDraws } from './model-curves';
 
 type DensityResidual = LjResidual & { modelUncertainty?: number; simulationId?: number | null; included?: boolean };
 
@@ -57,12 +61,50 @@ function eosIsobar(pressureMPa: number, temperaturesK: number[], p: CurveParamet
 }
 
 /**
+ * The central 95 % of the equation-of-state density over posterior draws along one isobar (posterior-predictive band,
+ * model only); a temperature where fewer than 9 in 10 draws give a density (a phase change) is left out.
+ */
+function eosBand(pressureMPa: number, temperaturesK: number[], draws: ReadonlyArray<{ epsilonK: number; sigmaAngstrom: number }>, context: { molarMassGPerMol?: number; quantumCorrection: boolean }, steps = 24) {
+  if (context.molarMassGPerMol === undefined) return [];
+  const out: Array<{ x: number; y: number; lower: number }> = [];
+  for (const t of temperatureGrid(temperaturesK, steps)) {
+    const values: number[] = [];
+    for (const d of draws) {
+      try {
+        const y = PROPERTY_MODELS.density.evaluate({ temperatureK: t, pressureMPa }, d.epsilonK, d.sigmaAngstrom, context).value;
+        if (Number.isFinite(y)) values.push(y);
+      } catch {
+        // no density of this draw here: counted as missing below
+      }
+    }
+    if (values.length < 0.9 * draws.length) continue;
+    const s = summarise(values);
+    out.push({ x: t, y: s.upper95, lower: s.lower95 });
+  }
+  return out;
+}
+
+/** Draws the density bands are computed from: each is a solve of the equation of state per grid point. */
+const DENSITY_BAND_DRAWS = 100;
+
+/**
  * Densities two ways: ρ against P per isotherm with the predicted values (the fit's simulations, or the
  * equation of state in "What if?") and their deviation in %; and ρ against T per isobar with the
  * equation-of-state curve at the given parameters, residuals (model − meas.)/u underneath. Left-out points are hollow.
  */
-export function DensityCharts({ result, context, curves, predictions, predictedLabel = 'simulated', residualsLabel = 'of the fit (simulations)', height = 300 }: { result: LjFitResult; context: { molarMassGPerMol?: number; quantumCorrection: boolean }; curves: CurveParameters[]; predictions?: LjResidual[]; predictedLabel?: string; residualsLabel?: string; height?: number }) {
+export function DensityCharts({ result, context, curves, predictions, predictedLabel = 'simulated', residualsLabel = 'of the fit (simulations)', height = 300, posteriorBand = true }: { result: LjFitResult; context: { molarMassGPerMol?: number; quantumCorrection: boolean }; curves: CurveParameters[]; predictions?: LjResidual[]; predictedLabel?: string; residualsLabel?: string; height?: number; posteriorBand?: boolean }) {
   const rows = result.residuals.filter((r) => r.kind === 'density') as DensityResidual[];
+  const draws = posteriorBand ? (result as GasFitResult).posterior?.draws : undefined;
+  const { molarMassGPerMol, quantumCorrection } = context;
+  // Posterior-predictive bands per isobar, when the result has posterior draws (computed once per result).
+  const bands = useMemo(() => {
+    const densities = result.residuals.filter((r) => r.kind === 'density');
+    if (!draws?.length || !densities.length) return new Map<number, Array<{ x: number; y: number; lower: number }>>();
+    const used = thinDraws(draws, DENSITY_BAND_DRAWS);
+    const temps = densities.map((r) => r.temperatureK);
+    const pressures = [...new Set(densities.map((r) => round(r.pressureMPa ?? 0, 3)))];
+    return new Map(pressures.map((p) => [p, eosBand(p, temps, used, { molarMassGPerMol, quantumCorrection })]));
+  }, [result, draws, molarMassGPerMol, quantumCorrection]);
   if (!rows.length) return null;
   const predicted = ((predictions ?? result.residuals).filter((r) => r.kind === 'density') as DensityResidual[]).map((r, i) => ({ ...rows[i], ...r }));
   const isotherms = [...new Set(rows.map((r) => round(r.temperatureK, 2)))].sort((a, b) => a - b);
@@ -76,6 +118,7 @@ export function DensityCharts({ result, context, curves, predictions, predictedL
   const percentSeries: ChartSeries[] = isotherms.map((t) => ({ label: `${t} K`, kind: 'simulated' as const, points: atT(predicted, t).map((r) => ({ x: r.pressureMPa ?? 0, y: percent(r), hollow: isLeftOut(r) })) }));
   const temps = rows.map((r) => r.temperatureK);
   const byTemperature: ChartSeries[] = [
+    ...isobars.flatMap((p, i) => (bands.get(p)?.length ? [{ label: 'posterior 95 % band', kind: 'band' as const, points: bands.get(p)!, inLegend: i === 0 }] : [])),
     ...isobars.map((p) => ({ label: `measured, ${p} MPa`, kind: 'measured' as const, points: atP(rows, p).map((r) => ({ x: r.temperatureK, y: r.measured, u: r.uncertainty, hollow: isLeftOut(r) })) })),
     ...curves.flatMap((c) => isobars.map((p, i) => ({ label: i === 0 ? `equation of state (${c.label})` : `equation of state (${c.label}), ${p} MPa`, kind: 'model' as const, points: eosIsobar(p, temps, c, context), inLegend: i === 0, endLabel: `${p} MPa` }))),
   ];
@@ -93,6 +136,7 @@ export function DensityCharts({ result, context, curves, predictions, predictedL
         <PropertyChart ariaLabel="density against temperature" series={byTemperature} xTitle="T (K)" yTitle="ρ (kg/m³)" residuals={{ title: RESIDUAL_AXIS_TITLE, series: residualSeries }} height={height} />
         <p className="mt-1 text-xs text-ink-faint">
           Curves: the LJ equation of state (Johnson, Zollweg & Gubbins 1993), one per measured pressure (named at its end), at {curves.map((c) => `${c.label} ε/k_B = ${formatSignificant(c.epsilonK, 5)} K, σ = ${formatSignificant(c.sigmaAngstrom, 5)} Å`).join('; ')}. Lower panel: residuals {residualsLabel}, (model − measured)/u.
+          {bands.size > 0 && [...bands.values()].some((b) => b.length) ? ' Shaded: the central 95 % of the equation-of-state density over the posterior draws (posterior-predictive band, without measurement noise).' : ''}
         </p>
       </div>
     </div>

@@ -1,4 +1,5 @@
 import type { ReactNode } from 'react';
+import type { GasFitResult } from '@shared/fitting/gas-fit';
 import type { LjFitResult } from '@shared/fitting/lj-fit';
 import type { EnergyUnit, LengthUnit } from '@shared/physics/parameter-units';
 import { Panel } from '@/components/ui/states';
@@ -6,14 +7,14 @@ import type { Fit } from '../api/fits';
 import { DensityCharts, SimulationStage, type DensityFitResult } from './density-panel';
 import { EllipseChart } from './ellipse-chart';
 import { FitCurves, type CurveParameters } from './fit-curves';
-import { DatasetStatsTable, ParameterTable } from './parameter-table';
+import { MeasurementSetStatsTable, ParameterTable } from './parameter-table';
 import { ProfileCharts } from './profile-charts';
 
 /** Names, weights and model context of a fit's data, as its result's residuals refer to them. */
 export function fitContext(fit: Fit) {
   return {
-    names: Object.fromEntries(fit.datasets.map((d) => [String(d.datasetId), `${d.name} v${d.version}`])),
-    weights: Object.fromEntries(fit.datasets.map((d) => [String(d.datasetId), d.weight])),
+    names: Object.fromEntries(fit.measurementSets.map((d) => [String(d.measurementSetId), `${d.name} v${d.version}`])),
+    weights: Object.fromEntries(fit.measurementSets.map((d) => [String(d.measurementSetId), d.weight])),
     // A Mie fit's curves and what-if values use its λr (held or fitted); absent or 12 is LJ 12-6.
     context: { molarMassGPerMol: fit.options.molarMassGPerMol, quantumCorrection: !!fit.options.quantumCorrection, ...(fit.result?.repulsiveExponent !== undefined && fit.result.repulsiveExponent !== 12 ? { repulsiveExponent: fit.result.repulsiveExponent } : {}) },
   };
@@ -50,14 +51,14 @@ export function FitEvidence({ fit, result, curves, energy = 'K', length = 'Å', 
         <Panel title={parametersTitle} actions={unitSwitch} className="min-w-0">
           <ParameterTable result={result} energy={energy} length={length} />
         </Panel>
-        <Panel title="95 % joint confidence region" className="min-w-0">
+        <Panel title={(result as GasFitResult).posterior || (result as GasFitResult).tension ? '95 % regions of ε/k_B and σ' : '95 % joint confidence region'} className="min-w-0">
           <EllipseChart result={result} />
         </Panel>
       </div>
       {comparison}
       <Panel title={dataTitle} className="min-w-0">
         <div className="grid gap-8">
-          <FitCurves result={result} datasetNames={names} context={context} curves={curves} />
+          <FitCurves result={result} measurementSetNames={names} context={context} curves={curves} />
           {curves.length > 1 && <p className="-mt-6 text-xs text-ink-faint">Residuals underneath are those of the fit behind {curves[0].label.toLowerCase()}.</p>}
           <DensityCharts result={result} context={context} curves={curves.slice(0, 1)} predictedLabel={density.mdRuns ? 'simulated' : 'equation of state'} residualsLabel={density.mdRuns ? 'of the fit (simulated densities)' : 'of the fit'} />
         </div>
@@ -71,7 +72,7 @@ export function FitEvidence({ fit, result, curves, energy = 'K', length = 'Å', 
         <ProfileCharts result={result} />
       </Panel>
       <Panel title="Per measurement set" className="min-w-0">
-        <DatasetStatsTable result={result} names={names} />
+        <MeasurementSetStatsTable result={result} names={names} />
       </Panel>
     </div>
   );

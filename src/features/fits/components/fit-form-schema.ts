@@ -1,6 +1,13 @@
 import { z } from 'zod';
 import { FIT_KINDS } from '@shared/fitting/property-models';
-import { DEFAULT_LJ_BOUNDS, DEFAULT_POSTERIOR_SAMPLES, DEFAULT_RESTARTS, DENSITY_FIT_DEFAULTS, POSTERIOR_SEED, SUGGESTED_REPULSIVE_EXPONENT } from '@shared/fitting/fit-defaults';
+import {
+  DEFAULT_LJ_BOUNDS,
+  DEFAULT_POSTERIOR_SAMPLES,
+  DEFAULT_RESTARTS,
+  DENSITY_FIT_DEFAULTS,
+  POSTERIOR_SEED,
+  SUGGESTED_REPULSIVE_EXPONENT,
+} from '@shared/fitting/fit-defaults';
 import type { PropertyKind } from '@shared/measurements/property-kinds';
 import { createFitBody, type CreateFitBody } from '@shared/schemas/fits';
 
@@ -9,7 +16,7 @@ export interface FitSetChoice {
   id: number;
   name: string;
   version: number;
-  property: PropertyKind;
+  kind: PropertyKind;
   rowCount: number;
   withdrawn: boolean;
 }
@@ -18,6 +25,8 @@ export interface FitSetChoice {
 export interface PriorSetChoice {
   id: number;
   version: number;
+  /** The pair potential of the set: a prior is offered only for a fit of the same potential. */
+  potential: 'lj-12-6' | 'mie';
   potentialLabel: string;
   epsilonK: number;
   sigmaAngstrom: number;
@@ -48,16 +57,23 @@ export interface FitFormValues {
   };
 }
 
-export const isFittable = (d: FitSetChoice) => (FIT_KINDS as string[]).includes(d.property);
+export const isFittable = (d: FitSetChoice) => (FIT_KINDS as string[]).includes(d.kind);
 // Gas-phase sets (B2, B3, viscosity) are ticked by default; densities add a simulation stage of minutes and
 // saturation data (VLE) probe the liquid, so both are opt-in.
-const isGasPhase = (d: FitSetChoice) => d.property === 'b2' || d.property === 'b3' || d.property === 'viscosity';
+const isGasPhase = (d: FitSetChoice) => d.kind === 'b2' || d.kind === 'b3' || d.kind === 'viscosity';
 
 /** The form's starting values: the server's own defaults (shared/fitting/fit-defaults.ts), written as text. */
 export function fitFormDefaults(sets: FitSetChoice[]): FitFormValues {
   const t = (x: number) => String(x);
   return {
-    sets: sets.map((d) => ({ id: d.id, use: isFittable(d) && isGasPhase(d), weight: '1', excludeRows: [], excludeReason: '', picking: false })),
+    sets: sets.map((d) => ({
+      id: d.id,
+      use: isFittable(d) && isGasPhase(d),
+      weight: '1',
+      excludeRows: [],
+      excludeReason: '',
+      picking: false,
+    })),
     hold: 'none',
     fixed: { epsilonK: '', sigmaAngstrom: '' },
     options: {
@@ -65,20 +81,37 @@ export function fitFormDefaults(sets: FitSetChoice[]): FitFormValues {
       exponent: 'held',
       repulsiveExponent: t(SUGGESTED_REPULSIVE_EXPONENT),
       quantumCorrection: false,
-      bounds: { epsilonK: [t(DEFAULT_LJ_BOUNDS.epsilonK[0]), t(DEFAULT_LJ_BOUNDS.epsilonK[1])], sigmaAngstrom: [t(DEFAULT_LJ_BOUNDS.sigmaAngstrom[0]), t(DEFAULT_LJ_BOUNDS.sigmaAngstrom[1])] },
+      bounds: {
+        epsilonK: [t(DEFAULT_LJ_BOUNDS.epsilonK[0]), t(DEFAULT_LJ_BOUNDS.epsilonK[1])],
+        sigmaAngstrom: [t(DEFAULT_LJ_BOUNDS.sigmaAngstrom[0]), t(DEFAULT_LJ_BOUNDS.sigmaAngstrom[1])],
+      },
       restarts: t(DEFAULT_RESTARTS),
       manualStart: false,
       start: { epsilonK: '', sigmaAngstrom: '' },
       posteriorOn: false,
       posterior: { samples: t(DEFAULT_POSTERIOR_SAMPLES), seed: t(POSTERIOR_SEED), priorSetId: '' },
-      density: { atoms: t(DENSITY_FIT_DEFAULTS.atoms), steps: t(DENSITY_FIT_DEFAULTS.steps), cutoff: t(DENSITY_FIT_DEFAULTS.cutoff), scheme: DENSITY_FIT_DEFAULTS.scheme },
+      density: {
+        atoms: t(DENSITY_FIT_DEFAULTS.atoms),
+        steps: t(DENSITY_FIT_DEFAULTS.steps),
+        cutoff: t(DENSITY_FIT_DEFAULTS.cutoff),
+        scheme: DENSITY_FIT_DEFAULTS.scheme,
+      },
     },
   };
 }
 
 const text = z.string();
 const formShape = z.object({
-  sets: z.array(z.object({ id: z.number(), use: z.boolean(), weight: text, excludeRows: z.array(z.number()), excludeReason: text, picking: z.boolean() })),
+  sets: z.array(
+    z.object({
+      id: z.number(),
+      use: z.boolean(),
+      weight: text,
+      excludeRows: z.array(z.number()),
+      excludeReason: text,
+      picking: z.boolean(),
+    }),
+  ),
   hold: z.enum(['none', 'epsilonK', 'sigmaAngstrom']),
   fixed: z.object({ epsilonK: text, sigmaAngstrom: text }),
   options: z.object({
@@ -116,10 +149,17 @@ export function formPathOf(path: Path | string, chosen: readonly number[]): stri
   if (parts[0] === 'options') {
     const [, group, field] = parts;
     if (group === undefined) return null;
-    if (group === 'posterior') return field === 'prior' ? 'options.posterior.priorSetId' : field === 'samples' || field === 'seed' ? `options.posterior.${field}` : 'options.posteriorOn';
+    if (group === 'posterior')
+      return field === 'prior'
+        ? 'options.posterior.priorSetId'
+        : field === 'samples' || field === 'seed'
+          ? `options.posterior.${field}`
+          : 'options.posteriorOn';
     if (group === 'fitRepulsiveExponent') return 'options.exponent';
-    if (group === 'bounds' || group === 'start') return field === 'epsilonK' || field === 'sigmaAngstrom' ? `options.${group}.${field}` : `options.${group}.epsilonK`;
-    if (group === 'density') return field && ['atoms', 'steps', 'cutoff', 'scheme'].includes(field) ? `options.density.${field}` : 'options.density.atoms';
+    if (group === 'bounds' || group === 'start')
+      return field === 'epsilonK' || field === 'sigmaAngstrom' ? `options.${group}.${field}` : `options.${group}.epsilonK`;
+    if (group === 'density')
+      return field && ['atoms', 'steps', 'cutoff', 'scheme'].includes(field) ? `options.density.${field}` : 'options.density.atoms';
     if (['model', 'repulsiveExponent', 'quantumCorrection', 'restarts'].includes(group)) return `options.${group}`;
     return null;
   }
@@ -158,14 +198,22 @@ export function fitFormSchema(substanceId: number, sets: FitSetChoice[]) {
     const measurementSets = chosen.map((i) => {
       const s = v.sets[i];
       const d = sets.find((x) => x.id === s.id)!;
-      if (s.excludeRows.length >= d.rowCount) complain(`sets.${i}.excludeRows`, `every row of ${d.name} is left out: untick the set instead`);
+      if (s.excludeRows.length >= d.rowCount)
+        complain(`sets.${i}.excludeRows`, `every row of ${d.name} is left out: untick the set instead`);
       const reason = s.excludeReason.trim();
-      return { id: s.id, weight: number(`sets.${i}.weight`, s.weight, 'a weight'), ...(s.excludeRows.length ? { excludeRows: s.excludeRows, ...(reason ? { excludeReason: reason } : {}) } : {}) };
+      return {
+        id: s.id,
+        weight: number(`sets.${i}.weight`, s.weight, 'a weight'),
+        ...(s.excludeRows.length ? { excludeRows: s.excludeRows, ...(reason ? { excludeReason: reason } : {}) } : {}),
+      };
     });
     const o = v.options;
     const mie = o.model === 'mie';
-    const density = chosen.some((i) => sets.find((x) => x.id === v.sets[i].id)?.property === 'density');
-    const held = v.hold === 'none' ? null : number(`fixed.${v.hold}`, v.fixed[v.hold], v.hold === 'epsilonK' ? 'the ε/k_B to hold, in K' : 'the σ to hold, in Å');
+    const density = chosen.some((i) => sets.find((x) => x.id === v.sets[i].id)?.kind === 'density');
+    const held =
+      v.hold === 'none'
+        ? null
+        : number(`fixed.${v.hold}`, v.fixed[v.hold], v.hold === 'epsilonK' ? 'the ε/k_B to hold, in K' : 'the σ to hold, in Å');
     const priorSetId = o.posterior.priorSetId === '' ? null : Number(o.posterior.priorSetId);
     const body: CreateFitBody = {
       substanceId,
@@ -175,22 +223,47 @@ export function fitFormSchema(substanceId: number, sets: FitSetChoice[]) {
         quantumCorrection: o.quantumCorrection,
         bounds: {
           epsilonK: [number('options.bounds.epsilonK', o.bounds.epsilonK[0]), number('options.bounds.epsilonK', o.bounds.epsilonK[1])],
-          sigmaAngstrom: [number('options.bounds.sigmaAngstrom', o.bounds.sigmaAngstrom[0]), number('options.bounds.sigmaAngstrom', o.bounds.sigmaAngstrom[1])],
+          sigmaAngstrom: [
+            number('options.bounds.sigmaAngstrom', o.bounds.sigmaAngstrom[0]),
+            number('options.bounds.sigmaAngstrom', o.bounds.sigmaAngstrom[1]),
+          ],
         },
         restarts: whole('options.restarts', o.restarts),
-        ...(o.manualStart ? { start: { epsilonK: number('options.start.epsilonK', o.start.epsilonK), sigmaAngstrom: number('options.start.sigmaAngstrom', o.start.sigmaAngstrom) } } : {}),
-        ...(mie ? { model: 'mie' as const, ...(o.exponent === 'fitted' ? { fitRepulsiveExponent: true } : { repulsiveExponent: number('options.repulsiveExponent', o.repulsiveExponent, 'a number from 8 to 36') }) } : {}),
+        ...(o.manualStart
+          ? {
+              start: {
+                epsilonK: number('options.start.epsilonK', o.start.epsilonK),
+                sigmaAngstrom: number('options.start.sigmaAngstrom', o.start.sigmaAngstrom),
+              },
+            }
+          : {}),
+        ...(mie
+          ? {
+              model: 'mie' as const,
+              ...(o.exponent === 'fitted'
+                ? { fitRepulsiveExponent: true }
+                : { repulsiveExponent: number('options.repulsiveExponent', o.repulsiveExponent, 'a number from 8 to 36') }),
+            }
+          : {}),
         ...(o.posteriorOn
           ? {
               posterior: {
                 samples: whole('options.posterior.samples', o.posterior.samples),
                 seed: whole('options.posterior.seed', o.posterior.seed),
-                // The prior's request field is new on the server; the schema below judges whether it is there yet.
-                ...(priorSetId !== null ? ({ prior: { parameterSetId: priorSetId } } as object) : {}),
+                ...(priorSetId !== null ? { prior: { parameterSetId: priorSetId } } : {}),
               },
             }
           : {}),
-        ...(density ? { density: { atoms: whole('options.density.atoms', o.density.atoms), steps: whole('options.density.steps', o.density.steps), cutoff: number('options.density.cutoff', o.density.cutoff), scheme: o.density.scheme } } : {}),
+        ...(density
+          ? {
+              density: {
+                atoms: whole('options.density.atoms', o.density.atoms),
+                steps: whole('options.density.steps', o.density.steps),
+                cutoff: number('options.density.cutoff', o.density.cutoff),
+                scheme: o.density.scheme,
+              },
+            }
+          : {}),
       },
     };
     if (complaints) return z.NEVER;
