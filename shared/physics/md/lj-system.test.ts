@@ -2,6 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { LjSystem, ljPairEnergy, tailEnergyPerAtom, tailPressure } from './lj-system';
 import { fccLattice } from './lattice';
 import { Xoshiro128 } from './rng';
+import { MD_CHECKS } from '../../validation/checks/md-checks';
+import { itPassesReferenceChecks } from '../../validation/reference-check-tests';
 
 /** Direct O(N²) minimum-image sums: the definition the list-based code must reproduce. */
 function bruteForce(pos: Float64Array, box: number, rc: number): { f: Float64Array; u: number; w: number } {
@@ -51,18 +53,11 @@ function expectForcesMatch(s: LjSystem, rc: number): void {
 }
 
 describe('LjSystem', () => {
-  it('reproduces the LAMMPS LJ-melt step-0 potential energy and pressure', () => {
-    // LAMMPS bench/in.lj log (fcc ρ* = 0.8442, rc = 2.5, no tail): PE = −6.7733681, P = −5.0197073 for 32000
-    // atoms at T* = 1.44 (3N − 3 degrees of freedom). The lattice sums are per atom and independent of N; the
-    // kinetic part of P is ρT(1 − 1/N), so for N = 500 subtract ρT(1/500 − 1/32000).
-    const lat = fccLattice(500, 0.8442);
-    const s = new LjSystem(lat.positions, lat.boxLength, 2.5, 0.3);
-    s.buildList();
-    const sums = s.computeForcesAndEnergy();
-    expect(sums.potentialTruncated / 500).toBeCloseTo(-6.7733681, 7);
-    const p = 0.8442 * 1.44 * (1 - 1 / 500) + sums.virial / (3 * s.volume);
-    expect(p).toBeCloseTo(-5.0197073 - 0.8442 * 1.44 * (1 / 500 - 1 / 32000), 6);
-  });
+  // The LAMMPS LJ-melt step-0 potential energy and pressure (bench/in.lj log: fcc ρ* = 0.8442, rc = 2.5, no tail:
+  // PE = −6.7733681, P = −5.0197073 for 32000 atoms at T* = 1.44, 3N − 3 degrees of freedom). The lattice sums are per
+  // atom and independent of N; the kinetic part of P is ρT(1 − 1/N), so for N = 500 subtract ρT(1/500 − 1/32000).
+  // Registry entries md.lammps-melt.*.
+  itPassesReferenceChecks(MD_CHECKS.filter((c) => c.id.startsWith('md.lammps-melt.')));
 
   it('matches direct minimum-image sums with the cell-list build (N = 4000) and the all-pairs build (N = 256)', () => {
     for (const [atoms, rc] of [

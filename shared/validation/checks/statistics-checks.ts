@@ -88,7 +88,7 @@ export const exponentialRise: CurveModel = (x, b) => {
   return { value: b[0] * (1 - e), gradient: [1 - e, b[0] * x * e] };
 };
 
-// NIST Statistical Reference Measurement sets, Nonlinear Regression, Misra1a (lower difficulty; Misra, NIST 1978).
+// NIST StRD (Statistical Reference Data sets), Nonlinear Regression, Misra1a (lower difficulty; Misra, NIST 1978).
 // Data, starting values and certified values as in the NIST file Misra1a.dat (retrieved with the search tool).
 export const MISRA1A = {
   name: 'Misra1a',
@@ -105,7 +105,7 @@ export const MISRA1A = {
   source: 'NIST StRD Nonlinear Regression, Misra1a.dat, certified values (retrieved with the search tool)',
 };
 
-// NIST Statistical Reference Measurement sets, Nonlinear Regression, BoxBOD (higher difficulty; Box, Hunter & Hunter 1978,
+// NIST StRD (Statistical Reference Data sets), Nonlinear Regression, BoxBOD (higher difficulty; Box, Hunter & Hunter 1978,
 // pp. 483–487). Values as in the NIST file BoxBOD.dat (retrieved with the search tool).
 export const BOXBOD = {
   name: 'BoxBOD',
