@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { mdSettingsSchema, withinWorkLimit } from './simulations';
+import { acceptOldFields } from './old-names';
 
 const range = (name: string, lo: number, hi: number) =>
   z
@@ -10,15 +11,15 @@ const range = (name: string, lo: number, hi: number) =>
 /** POST /api/fits body. Units are in the names: ε/k_B in K, σ in Å. */
 export const createFitBody = z.object({
   substanceId: z.number().int().positive(),
-  datasets: z
+  measurementSets: z
     .array(
       z.object({
         id: z.number().int().positive(),
         /** Pin a version; the newest version is used when absent (and recorded). */
         version: z.number().int().positive().optional(),
-        /** Multiplies 1/u of every point of the dataset (default 1). */
+        /** Multiplies 1/u of every point of the measurement set (default 1). */
         weight: z.number().gt(0, 'weight must be greater than 0').lte(100, 'weight must be at most 100').optional(),
-        /** Row numbers (1-based, as the dataset page shows them) left out of the fit; predicted, never counted. */
+        /** Row numbers (1-based, as the measurement set page shows them) left out of the fit; predicted, never counted. */
         excludeRows: z
           .array(z.number({ error: 'row numbers are whole numbers from 1' }).int('row numbers are whole numbers from 1').positive('row numbers are whole numbers from 1'))
           .max(10000)
@@ -57,6 +58,8 @@ export const createFitBody = z.object({
         .object({
           samples: z.number().int().min(100, 'at least 100 steps per walker').max(20000, 'at most 20000 steps per walker').optional(),
           seed: z.number().int().min(0).max(2 ** 32 - 1).optional(),
+          /** A bivariate Gaussian prior on (ε, σ): the values and covariance of a previous approved (or superseded) set of the same model. */
+          prior: z.object({ parameterSetId: z.number({ error: 'choose a parameter set' }).int().positive() }).strict().optional(),
         })
         .strict()
         .optional(),
@@ -68,8 +71,10 @@ export const createFitBody = z.object({
       const mie = o.model === 'mie';
       if (!mie && (o.repulsiveExponent !== undefined || o.fitRepulsiveExponent)) ctx.addIssue({ code: 'custom', path: ['model'], message: 'a repulsive exponent needs model "mie"' });
       if (mie && (o.repulsiveExponent === undefined) === !o.fitRepulsiveExponent) ctx.addIssue({ code: 'custom', path: ['repulsiveExponent'], message: 'a Mie fit needs either repulsiveExponent (held) or fitRepulsiveExponent: true, not both' });
-      if (mie && o.density) ctx.addIssue({ code: 'custom', path: ['model'], message: 'the simulation stage of density fits is for LJ 12-6 only in this version' });
+      // A Mie fit with density data runs the simulation stage with λr held; fitting λr would need rounds of runs per λr.
+      if (mie && o.density && o.fitRepulsiveExponent) ctx.addIssue({ code: 'custom', path: ['fitRepulsiveExponent'], message: 'the simulation stage of a density fit holds λr: give repulsiveExponent instead of fitting it' });
     })
     .optional(),
 });
+acceptOldFields(createFitBody, [['datasets', 'measurementSets']]); // vocabulary: keep (the old name, still accepted)
 export type CreateFitBody = z.infer<typeof createFitBody>;

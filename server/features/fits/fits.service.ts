@@ -1,5 +1,5 @@
-import type { FitDataset, LjFitOptions } from '../../../shared/fitting/lj-fit';
-import { isFitKind, PROPERTY_MODELS, type PropertyModel } from '../../../shared/fitting/property-models';
+import type { FitMeasurementSet, LjFitOptions } from '../../../shared/fitting/lj-fit';
+import { isFitKind, MIE_KINDS_TEXT, PROPERTY_MODELS, type PropertyModel } from '../../../shared/fitting/property-models';
 import type { CreateFitBody } from '../../../shared/schemas/fits';
 import { PROPERTY_KINDS, type PropertyKind } from '../../../shared/measurements/property-kinds';
 import type { AppContext } from '../../app-context';
@@ -8,28 +8,30 @@ import { AppError, notFound } from '../../common/errors';
 import type { Db } from '../../db/database';
 import type { JobKind } from '../../jobs/job-runner';
 import { recordAudit } from '../audit/audit.service';
-import { findDataset, findVersionRow } from '../datasets/datasets.repository';
-import { loadVersionForFit } from '../datasets/datasets.service';
+import { findMeasurementSet, findVersionRow } from '../measurement-sets/measurement-sets.repository';
+import { loadVersionForFit } from '../measurement-sets/measurement-sets.service';
 import { findSubstance } from '../substances/substances.repository';
 import type { MdSettings } from '../../../shared/schemas/simulations';
 import { DENSITY_FIT_DEFAULTS, runDensityFit } from './density-fit';
 import { recordFitOutcome } from './fit-outcome';
+import { resolvePosteriorPrior } from './posterior-prior';
+import { readStoredJson } from '../../../shared/schemas/old-names';
 
-/** The exact dataset versions a fit used, frozen on the fit row. */
-export interface FitDatasetRef {
-  datasetId: number;
+/** The exact measurement set versions a fit used, frozen on the fit row. */
+export interface FitMeasurementSetRef {
+  measurementSetId: number;
   version: number;
   versionId: number;
   kind: PropertyKind;
   name: string;
   weight: number;
-  /** Rows left out (1-based, as the dataset page numbers them) and why. */
+  /** Rows left out (1-based, as the measurement set page numbers them) and why. */
   excludeRows?: number[];
   excludeReason?: string;
 }
 
 export interface FitJobInput {
-  datasets: FitDatasetRef[];
+  measurementSets: FitMeasurementSetRef[];
   options: LjFitOptions;
   /** Engine settings of the simulation stage; present when the fit has density data. */
   density?: MdSettings;
@@ -38,20 +40,20 @@ export interface FitJobInput {
 
 /** The worker payload, read from the frozen references: rows come from the immutable versions. */
 export async function fitPayload(db: Db, input: FitJobInput) {
-  const datasets: FitDataset[] = [];
-  for (const ref of input.datasets) {
+  const measurementSets: FitMeasurementSet[] = [];
+  for (const ref of input.measurementSets) {
     const rows = await loadVersionForFit(db, ref.versionId);
-    datasets.push({
-      id: ref.datasetId,
+    measurementSets.push({
+      id: ref.measurementSetId,
       version: ref.version,
-      kind: ref.kind as FitDataset['kind'],
+      kind: ref.kind as FitMeasurementSet['kind'],
       weight: ref.weight,
       label: ref.name,
       ...(ref.excludeRows?.length ? { excludeRows: ref.excludeRows } : {}),
       rows: rows.map((r) => ({ temperatureK: r.temperatureK, ...(r.pressureMPa !== null ? { pressureMPa: r.pressureMPa } : {}), value: r.value, uncertainty: r.uncertainty })),
     });
   }
-  return { datasets, options: input.options };
+  return { measurementSets, options: input.options };
 }
 
 /**
@@ -62,7 +64,7 @@ export const fitJobKind: JobKind = {
   async run(env, input: FitJobInput, job) {
     try {
       const payload = await fitPayload(env.db, input);
-      const result = !input.datasets.some((d) => d.kind === 'density') ? await env.runTask('fit', payload, env.progress) : await runDensityFit(env, payload, input.density ?? {}, input.createdBy ?? null);
+      const result = !input.measurementSets.some((d) => d.kind === 'density') ? await env.runTask('fit', payload, env.progress) : await runDensityFit(env, payload, input.density ?? {}, input.createdBy ?? null);
       await recordFitOutcome(env.db, job.id, result as { status?: string; failureReason?: string }, null);
       return result;
     } catch (err) {
@@ -73,53 +75,62 @@ export const fitJobKind: JobKind = {
   },
 };
 
-/** Checks the request against the database, freezes the dataset versions and queues the fit. */
+/** Checks the request against the database, freezes the measurement set versions and queues the fit. */
 export async function createFit(ctx: AppContext, actor: CurrentUser, body: CreateFitBody) {
   const substance = await findSubstance(ctx.db, body.substanceId);
   if (!substance) throw new AppError(422, 'unknown_substance', `Substance ${body.substanceId} does not exist.`, [{ field: 'substanceId', message: 'no such substance' }]);
-  const refs: FitDatasetRef[] = [];
-  for (const [i, wanted] of body.datasets.entries()) {
-    const field = `datasets.${i}.id`;
-    const dataset = await findDataset(ctx.db, wanted.id);
-    if (!dataset || dataset.substanceId !== substance.id) throw new AppError(422, 'unknown_dataset', `Measurement set ${wanted.id} does not belong to ${substance.name}.`, [{ field, message: 'not a measurement set of this substance' }]);
-    if (dataset.withdrawnAt) throw new AppError(422, 'dataset_withdrawn', `Measurement set "${dataset.name}" was withdrawn and cannot be fitted.`, [{ field, message: 'withdrawn' }]);
+  const refs: FitMeasurementSetRef[] = [];
+  for (const [i, wanted] of body.measurementSets.entries()) {
+    const field = `measurementSets.${i}.id`;
+    const measurementSet = await findMeasurementSet(ctx.db, wanted.id);
+    if (!measurementSet || measurementSet.substanceId !== substance.id) throw new AppError(422, 'unknown_measurement_set', `Measurement set ${wanted.id} does not belong to ${substance.name}.`, [{ field, message: 'not a measurement set of this substance' }]);
+    if (measurementSet.withdrawnAt) throw new AppError(422, 'measurement_set_withdrawn', `Measurement set "${measurementSet.name}" was withdrawn and cannot be fitted.`, [{ field, message: 'withdrawn' }]);
     // Every stored kind has a model today; a kind added to the upload before the fit learns it is refused here.
-    const kind: string = dataset.property;
+    const kind: string = measurementSet.kind;
     if (!isFitKind(kind)) {
-      throw new AppError(422, 'kind_not_fittable', `Measurement set "${dataset.name}" holds ${PROPERTY_KINDS[kind as PropertyKind].label}, which this fit does not take.`, [{ field, message: `kind ${kind} not supported by the fit` }]);
+      throw new AppError(422, 'kind_not_fittable', `Measurement set "${measurementSet.name}" holds ${PROPERTY_KINDS[kind as PropertyKind].label}, which this fit does not take.`, [{ field, message: `kind ${kind} not supported by the fit` }]);
     }
-    const version = wanted.version ?? (await ctx.db.selectFrom('datasetVersion').select((eb) => eb.fn.max('version').as('v')).where('datasetId', '=', dataset.id).executeTakeFirstOrThrow()).v;
-    const versionRow = await findVersionRow(ctx.db, dataset.id, Number(version));
-    if (!versionRow) throw new AppError(422, 'unknown_version', `Measurement set "${dataset.name}" has no version ${version}.`, [{ field: `datasets.${i}.version`, message: 'no such version' }]);
+    const version = wanted.version ?? (await ctx.db.selectFrom('measurementSetVersion').select((eb) => eb.fn.max('version').as('v')).where('measurementSetId', '=', measurementSet.id).executeTakeFirstOrThrow()).v;
+    const versionRow = await findVersionRow(ctx.db, measurementSet.id, Number(version));
+    if (!versionRow) throw new AppError(422, 'unknown_version', `Measurement set "${measurementSet.name}" has no version ${version}.`, [{ field: `measurementSets.${i}.version`, message: 'no such version' }]);
     const unknownRows = (wanted.excludeRows ?? []).filter((r) => r > versionRow.rowCount);
     if (unknownRows.length) {
-      throw new AppError(422, 'unknown_row', `Measurement set "${dataset.name}" v${versionRow.version} has rows 1 to ${versionRow.rowCount}; there is no row ${unknownRows.join(', ')} to leave out.`, unknownRows.map((r) => ({ field: `datasets.${i}.excludeRows`, row: r, message: `no row ${r} (rows 1 to ${versionRow.rowCount})` })));
+      throw new AppError(422, 'unknown_row', `Measurement set "${measurementSet.name}" v${versionRow.version} has rows 1 to ${versionRow.rowCount}; there is no row ${unknownRows.join(', ')} to leave out.`, unknownRows.map((r) => ({ field: `measurementSets.${i}.excludeRows`, row: r, message: `no row ${r} (rows 1 to ${versionRow.rowCount})` })));
     }
     const excludeRows = [...(wanted.excludeRows ?? [])].sort((a, b) => a - b);
     refs.push({
-      datasetId: dataset.id, version: versionRow.version, versionId: versionRow.id, kind: dataset.property, name: dataset.name, weight: wanted.weight ?? 1,
+      measurementSetId: measurementSet.id, version: versionRow.version, versionId: versionRow.id, kind: measurementSet.kind, name: measurementSet.name, weight: wanted.weight ?? 1,
       ...(excludeRows.length ? { excludeRows, ...(wanted.excludeReason ? { excludeReason: wanted.excludeReason } : {}) } : {}),
     });
   }
   // Leaving rows out must leave enough to fit: refused here, naming the field, rather than as a failed job.
-  const counted = await Promise.all(refs.map(async (r) => Number((await findVersionRow(ctx.db, r.datasetId, r.version))!.rowCount) - (r.excludeRows?.length ?? 0)));
+  const counted = await Promise.all(refs.map(async (r) => Number((await findVersionRow(ctx.db, r.measurementSetId, r.version))!.rowCount) - (r.excludeRows?.length ?? 0)));
   const free = body.fixed && Object.keys(body.fixed).length ? 1 : 2;
   const left = counted.reduce((a, b) => a + b, 0);
   if (refs.some((r) => r.excludeRows?.length) && left < Math.max(free, 2)) {
-    throw new AppError(422, 'too_few_points', `Leaving out these rows leaves ${left} point(s) for ${free} free parameter(s); the fit needs at least ${Math.max(free, 2)}.`, [{ field: 'datasets', message: 'too few rows left in the fit' }]);
+    throw new AppError(422, 'too_few_points', `Leaving out these rows leaves ${left} point(s) for ${free} free parameter(s); the fit needs at least ${Math.max(free, 2)}.`, [{ field: 'measurementSets', message: 'too few rows left in the fit' }]);
   }
   const { density, ...fitOptions } = body.options ?? {};
   if (fitOptions.model === 'mie') {
-    // Only kinds with a Mie model (B2 today) can be fitted with a Mie potential; say which set is not.
+    // Only kinds with a Mie model (B2 and viscosity today) can be fitted with a Mie potential; say which set is not.
     refs.forEach((ref, i) => {
+      // Densities go through the simulation stage with the Mie kernel at the held λr; fitting λr there is refused.
+      if (ref.kind === 'density') {
+        if (fitOptions.fitRepulsiveExponent) {
+          throw new AppError(422, 'mie_density_needs_held_exponent', `Measurement set "${ref.name}" holds densities, which a Mie fit takes only with λr held: the simulation stage runs at one λr. Give repulsiveExponent instead of fitRepulsiveExponent.`, [{ field: 'options.fitRepulsiveExponent', message: 'λr cannot be fitted with density data; hold it' }]);
+        }
+        return;
+      }
       if (isFitKind(ref.kind) && !(PROPERTY_MODELS[ref.kind] as PropertyModel).supportsMie) {
-        throw new AppError(422, 'kind_not_mie', `Measurement set "${ref.name}" holds ${PROPERTY_KINDS[ref.kind].label}, which has no Mie λr-6 model yet; a Mie fit takes B2 data.`, [{ field: `datasets.${i}.id`, message: `no Mie model for ${ref.kind}` }]);
+        throw new AppError(422, 'kind_not_mie', `Measurement set "${ref.name}" holds ${PROPERTY_KINDS[ref.kind].label}, which has no Mie λr-6 model yet; a Mie fit takes ${MIE_KINDS_TEXT} data.`, [{ field: `measurementSets.${i}.id`, message: `no Mie model for ${ref.kind}` }]);
       }
     });
   }
+  // A prior from a previous set is resolved now and frozen with the options (values and covariance), so a re-run uses the same numbers.
+  if (fitOptions.posterior?.prior) fitOptions.posterior = { ...fitOptions.posterior, prior: await resolvePosteriorPrior(ctx.db, fitOptions.posterior.prior.parameterSetId, fitOptions) };
   const options: LjFitOptions = { ...fitOptions, ...(body.fixed && Object.keys(body.fixed).length ? { fixed: body.fixed } : {}), molarMassGPerMol: substance.molarMassGramsPerMol };
   const hasDensity = refs.some((r) => r.kind === 'density');
-  const input: FitJobInput = { datasets: refs, options, ...(hasDensity ? { density: { ...DENSITY_FIT_DEFAULTS, ...density } } : {}), createdBy: actor.id };
+  const input: FitJobInput = { measurementSets: refs, options, ...(hasDensity ? { density: { ...DENSITY_FIT_DEFAULTS, ...density } } : {}), createdBy: actor.id };
   const now = new Date().toISOString();
   return ctx.db.transaction().execute(async (tx) => {
     const last = await tx.selectFrom('fit').select((eb) => eb.fn.max('number').as('n')).where('substanceId', '=', substance.id).executeTakeFirst();
@@ -127,10 +138,10 @@ export async function createFit(ctx: AppContext, actor: CurrentUser, body: Creat
     const job = await ctx.jobs.enqueue({ kind: 'fit', input, seed: 0, createdBy: actor.id }, tx);
     const fit = await tx
       .insertInto('fit')
-      .values({ substanceId: substance.id, number, jobId: job.id, model: fitOptions.model ?? 'lj-12-6', datasetsJson: JSON.stringify(refs), optionsJson: JSON.stringify({ ...options, ...(input.density ? { density: input.density } : {}) }), codeVersion: ctx.codeVersion, createdBy: actor.id, createdAt: now })
+      .values({ substanceId: substance.id, number, jobId: job.id, model: fitOptions.model ?? 'lj-12-6', measurementSetsJson: JSON.stringify(refs), optionsJson: JSON.stringify({ ...options, ...(input.density ? { density: input.density } : {}) }), codeVersion: ctx.codeVersion, createdBy: actor.id, createdAt: now })
       .returning('id')
       .executeTakeFirstOrThrow();
-    await recordAudit(tx, { actor, action: 'fit.started', targetType: 'fit', targetId: fit.id, summary: `${actor.email} started Fit #${number} of ${substance.name} on ${refs.map((r) => `${r.name} v${r.version}${r.excludeRows ? ` without row${r.excludeRows.length > 1 ? 's' : ''} ${r.excludeRows.join(', ')}` : ''}`).join(', ')}${heldSummary(options.fixed)}`, after: { datasets: refs, options } });
+    await recordAudit(tx, { actor, action: 'fit.started', targetType: 'fit', targetId: fit.id, summary: `${actor.email} started Fit #${number} of ${substance.name} on ${refs.map((r) => `${r.name} v${r.version}${r.excludeRows ? ` without row${r.excludeRows.length > 1 ? 's' : ''} ${r.excludeRows.join(', ')}` : ''}`).join(', ')}${heldSummary(options.fixed)}`, after: { measurementSets: refs, options } });
     return { id: fit.id, number, jobId: job.id };
   });
 }
@@ -145,7 +156,7 @@ export async function findFit(db: Db, id: number) {
     .innerJoin('substance', 'substance.id', 'fit.substanceId')
     .innerJoin('user', 'user.id', 'fit.createdBy')
     .select([
-      'fit.id', 'fit.number', 'fit.substanceId', 'substance.name as substanceName', 'fit.model', 'fit.datasetsJson', 'fit.optionsJson', 'fit.codeVersion', 'fit.createdAt', 'fit.createdBy', 'user.name as createdByName',
+      'fit.id', 'fit.number', 'fit.substanceId', 'substance.name as substanceName', 'fit.model', 'fit.measurementSetsJson', 'fit.optionsJson', 'fit.codeVersion', 'fit.createdAt', 'fit.createdBy', 'user.name as createdByName',
       'job.id as jobId', 'job.status', 'job.progress', 'job.stage', 'job.resultJson', 'job.error', 'job.startedAt', 'job.finishedAt', 'job.seed',
     ])
     .where('fit.id', '=', id)
@@ -153,7 +164,7 @@ export async function findFit(db: Db, id: number) {
 }
 
 export function toFitView(row: NonNullable<Awaited<ReturnType<typeof findFit>>>) {
-  const result = row.resultJson ? JSON.parse(row.resultJson) : null;
+  const result = row.resultJson ? readStoredJson(row.resultJson) : null;
   // The fit record says succeeded only when the computation ran and the least squares converged to an answer.
   const status = row.status === 'succeeded' && result?.status === 'failed' ? 'failed' : row.status;
   return {
@@ -165,7 +176,7 @@ export function toFitView(row: NonNullable<Awaited<ReturnType<typeof findFit>>>)
     status,
     progress: row.progress,
     stage: row.stage,
-    datasets: (JSON.parse(row.datasetsJson) as FitDatasetRef[]).map((d) => ({ ...d, excludeRows: d.excludeRows ?? [], excludeReason: d.excludeReason ?? null })),
+    measurementSets: (readStoredJson(row.measurementSetsJson) as FitMeasurementSetRef[]).map((d) => ({ ...d, excludeRows: d.excludeRows ?? [], excludeReason: d.excludeReason ?? null })),
     options: JSON.parse(row.optionsJson) as LjFitOptions,
     codeVersion: row.codeVersion,
     createdAt: row.createdAt,
@@ -185,12 +196,12 @@ export async function listFitsOfSubstance(db: Db, substanceId: number) {
     .selectFrom('fit')
     .innerJoin('job', 'job.id', 'fit.jobId')
     .innerJoin('user', 'user.id', 'fit.createdBy')
-    .select(['fit.id', 'fit.number', 'fit.createdAt', 'user.name as createdByName', 'fit.datasetsJson', 'job.status', 'job.progress', 'job.resultJson'])
+    .select(['fit.id', 'fit.number', 'fit.createdAt', 'user.name as createdByName', 'fit.measurementSetsJson', 'job.status', 'job.progress', 'job.resultJson'])
     .where('fit.substanceId', '=', substanceId)
     .orderBy('fit.number', 'desc')
     .execute();
   return rows.map((r) => {
-    const result = r.resultJson ? JSON.parse(r.resultJson) : null;
+    const result = r.resultJson ? readStoredJson(r.resultJson) : null;
     return {
       id: r.id,
       number: r.number,
@@ -198,7 +209,7 @@ export async function listFitsOfSubstance(db: Db, substanceId: number) {
       createdByName: r.createdByName,
       status: r.status === 'succeeded' && result?.status === 'failed' ? 'failed' : r.status,
       progress: r.progress,
-      datasets: (JSON.parse(r.datasetsJson) as FitDatasetRef[]).map((d) => ({ datasetId: d.datasetId, name: d.name, kind: d.kind, version: d.version, excludeRows: d.excludeRows ?? [] })),
+      measurementSets: (readStoredJson(r.measurementSetsJson) as FitMeasurementSetRef[]).map((d) => ({ measurementSetId: d.measurementSetId, name: d.name, kind: d.kind, version: d.version, excludeRows: d.excludeRows ?? [] })),
       // As on the fit page: a failed fit shows its last iterate, marked not converged, without standard errors.
       epsilonK: result?.epsilonK ?? null,
       sigmaAngstrom: result?.sigmaAngstrom ?? null,
