@@ -24,6 +24,7 @@ import { preferenceRoutes } from './features/preferences/preferences.routes';
 import { noticeRoutes } from './features/notices/notices.routes';
 import { workbenchRoutes } from './features/workbench/workbench.routes';
 import { pairSetRoutes } from './features/pair-sets/pair-sets.routes';
+import { validationSuiteRoutes } from './features/validation-suite/validation-suite.routes';
 
 export interface CreateAppOptions {
   /** Folder of the built client (vite build); when set, the server serves it with an SPA fallback. */
@@ -89,6 +90,7 @@ export function createApp(ctx: AppContext, options: CreateAppOptions = {}) {
   api.use(preferenceRoutes(ctx));
   api.use(noticeRoutes(ctx));
   api.use(workbenchRoutes(ctx));
+  api.use(validationSuiteRoutes(ctx));
   api.use(apiNotFound);
   app.use('/api', api);
 

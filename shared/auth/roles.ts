@@ -24,6 +24,8 @@ export const POLICIES = {
   'people:manage': ['admin'],
   'audit:read': ['admin'],
   'mailbox:read': ['admin'],
+  // Running the validation suite costs seconds of CPU on the server, so it is kept to admins.
+  'validation:read': ['admin'],
   'substance:read': ['admin', 'modeller', 'reviewer', 'consumer'],
   'substance:write': ['modeller'],
   'measurements:browse': ['admin', 'modeller', 'reviewer'],
@@ -63,6 +65,7 @@ export const POLICY_ACTIONS: Record<Policy, string> = {
   'people:manage': 'manage people and their roles',
   'audit:read': 'read the audit trail',
   'mailbox:read': 'read the mailbox',
+  'validation:read': 'run the validation suite',
   'substance:read': 'see substances',
   'substance:write': 'add or change substances',
   'measurements:browse': 'browse measurements',

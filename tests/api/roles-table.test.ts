@@ -144,6 +144,7 @@ const PROBES: Record<string, Probe> = {
   'GET /api/audit/vocabulary': { path: () => '/api/audit/vocabulary' },
   'GET /api/mailbox': { path: () => '/api/mailbox' },
   'GET /api/mail/outbox': { path: () => '/api/mail/outbox' },
+  'GET /api/admin/validation-suite': { path: () => '/api/admin/validation-suite' },
   'GET /api/pair-sets': { path: () => '/api/pair-sets' },
   'GET /api/pair-sets/:id': { path: (i) => `/api/pair-sets/${i.pairSetInReview}`, published: (i) => ({ published: `/api/pair-sets/${i.approvedPairSet}`, unpublished: `/api/pair-sets/${i.pairSetInReview}` }) },
   'POST /api/pair-sets': { path: () => '/api/pair-sets' },
