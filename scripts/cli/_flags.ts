@@ -17,7 +17,7 @@ export function parseFlags<const O extends FlagOptions>(argv: string[], options:
   try {
     return parseArgs<StrictConfig<O>>({ args: argv, options, strict: true, allowPositionals: false }).values;
   } catch (err) {
-    throw new Error(`${errorMessage(err)}; ${usage}`);
+    throw new Error(`${errorMessage(err)}; ${usage}`, { cause: err });
   }
 }
 
@@ -77,7 +77,7 @@ export function mapListFlag<T>(name: string, values: number[], fn: (value: numbe
     try {
       return fn(value);
     } catch (err) {
-      throw new Error(`--${name} ${value}: ${errorMessage(err)}`);
+      throw new Error(`--${name} ${value}: ${errorMessage(err)}`, { cause: err });
     }
   });
 }

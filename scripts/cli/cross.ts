@@ -37,7 +37,7 @@ export async function run(argv: string[]): Promise<unknown> {
   try {
     text = readFileSync(path, 'utf8');
   } catch (err) {
-    throw new Error(`cannot read --data ${path}: ${errorMessage(err)}`);
+    throw new Error(`cannot read --data ${path}: ${errorMessage(err)}`, { cause: err });
   }
   const parsed = parseMeasurementCsv(text, { kind: 'b12' });
   if (!parsed.ok) throw new Error(`${path}: ${parsed.problems.map((p) => p.message).join(' | ')}`);

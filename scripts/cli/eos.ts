@@ -49,7 +49,7 @@ export async function run(argv: string[]): Promise<unknown> {
     try {
       s = ljCoexistence(reducedTemperature, model);
     } catch (err) {
-      throw new Error(`--reduced-temperature ${reducedTemperature}: ${errorMessage(err)}`);
+      throw new Error(`--reduced-temperature ${reducedTemperature}: ${errorMessage(err)}`, { cause: err });
     }
     return {
       reducedTemperature,
@@ -75,7 +75,7 @@ export async function run(argv: string[]): Promise<unknown> {
   try {
     r = ljStableDensity(reducedTemperature, reducedPressure, model, prefer);
   } catch (err) {
-    throw new Error(errorMessage(err));
+    throw new Error(errorMessage(err), { cause: err });
   }
   return {
     reducedDensity: r.reducedDensity,

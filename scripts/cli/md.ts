@@ -62,7 +62,7 @@ export async function run(argv: string[]): Promise<unknown> {
   } catch (err) {
     const message = errorMessage(err);
     const param = /^(\w+)/.exec(message)?.[1] ?? '';
-    throw new Error(FLAG_OF[param] ? message.replace(param, FLAG_OF[param]) : message);
+    throw new Error(FLAG_OF[param] ? message.replace(param, FLAG_OF[param]) : message, { cause: err });
   }
   const { frames: _frames, ...withTrace } = result;
   if (values.trace) return withTrace;

@@ -40,7 +40,7 @@ export function openDatabase(databasePath: string): DatabaseHandle {
 }
 
 /** Runs every pending migration in migrations/; throws with the failing migration's name. */
-export async function migrateToLatest(db: Kysely<any>): Promise<string[]> {
+export async function migrateToLatest(db: Db): Promise<string[]> {
   const migrator = new Migrator({
     db,
     provider: { getMigrations: async () => MIGRATIONS },

@@ -3,6 +3,7 @@ import type { Db, Tx } from '../db/database';
 import type { JobStatus } from './job.table';
 import { engineVersionOf, laneOf, type Lane, type ProgressReport } from './tasks';
 import { CancelledError, TaskError, type TaskPool } from './worker-pool';
+import { readStoredJson } from '../../shared/schemas/old-names';
 
 export interface JobRequest {
   kind: string;
@@ -49,11 +50,12 @@ export interface JobRunEnvironment {
  * What a job kind needs from the runner. A compute kind turns the stored input into a worker payload
  * (in the web process, where the database is) and runs on a worker, one thread per job. An orchestrating
  * kind (`run`) runs on the web process's main thread and spends its time waiting for work it hands to
- * workers, so it takes no worker slot.
+ * workers, so it takes no worker slot. `input` is the job's stored input_json, parsed; each kind names its own
+ * input type in its methods (method parameters are compared bivariantly, so a kind may declare it).
  */
 export type JobKind =
   | {
-      toPayload: (db: Db, input: any, job: { id: number; seed: number }) => Promise<unknown> | unknown;
+      toPayload(db: Db, input: unknown, job: { id: number; seed: number }): Promise<unknown> | unknown;
       /**
        * Keeps what belongs beside the job (in the web process, in the transaction that stores the result) and
        * returns what goes into job.result_json; the queue itself never looks inside a result.
@@ -61,7 +63,7 @@ export type JobKind =
       storeResult?: (tx: Tx, jobId: number, result: unknown) => Promise<unknown>;
       run?: undefined;
     }
-  | { run: (env: JobRunEnvironment, input: any, job: { id: number; seed: number }) => Promise<unknown>; toPayload?: undefined; storeResult?: undefined };
+  | { run(env: JobRunEnvironment, input: unknown, job: { id: number; seed: number }): Promise<unknown>; toPayload?: undefined; storeResult?: undefined };
 
 export interface LaneCounts {
   waiting: number;
@@ -161,7 +163,7 @@ export function toJobView(row: {
     status: row.status,
     progress: row.progress,
     stage: row.stage,
-    result: row.resultJson ? JSON.parse(row.resultJson) : null,
+    result: row.resultJson ? readStoredJson(row.resultJson) : null,
     error: row.error,
     retryable: row.retryable === 1,
     attempts: row.attempts,
@@ -220,7 +222,7 @@ export class LocalExecutor implements JobExecutor {
       } catch (err) {
         if (err instanceof TaskError || err instanceof CancelledError || signal.aborted || attempt >= MAX_ATTEMPTS) {
           if (err instanceof TaskError || err instanceof CancelledError || signal.aborted) throw err;
-          throw new Error(`failed after ${attempt} attempts: ${messageOf(err)}`);
+          throw new Error(`failed after ${attempt} attempts: ${messageOf(err)}`, { cause: err });
         }
         const delayMs = RETRY_BACKOFF_MS * 2 ** (attempt - 1);
         hooks.onRetry({ reason: messageOf(err), delayMs, attempt });
@@ -304,7 +306,7 @@ export class JobRunner implements JobQueue {
       const row = await this.db.selectFrom('job').select(['id', 'kind', 'inputJson', 'seed', 'queueRef']).where('id', '=', id).executeTakeFirstOrThrow();
       // The queue counts the starts of this execution itself.
       this.executor.reserve(laneOf(row.kind));
-      this.launch(row.id, row.kind, JSON.parse(row.inputJson), row.seed, row.queueRef!, 0);
+      this.launch(row.id, row.kind, readStoredJson(row.inputJson), row.seed, row.queueRef!, 0);
     }
     void this.pump();
   }
@@ -454,7 +456,7 @@ export class JobRunner implements JobQueue {
             if (!kind.run) this.executor.release(laneOf(next.kind));
             continue;
           }
-          this.launch(next.id, next.kind, JSON.parse(next.inputJson), next.seed, ref, next.attempts);
+          this.launch(next.id, next.kind, readStoredJson(next.inputJson), next.seed, ref, next.attempts);
         }
       } while (this.pumpAgain && !this.stopped);
     } finally {

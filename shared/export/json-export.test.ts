@@ -98,7 +98,7 @@ describe('the published schemas', () => {
 
   it('reject documents that break it, each with a pointer to the value', () => {
     const base = () => JSON.parse(parameterSetJsonText(brindleShifted));
-    const cases: Array<[string, (d: any) => void, { path: string; message: string }]> = [
+    const cases: Array<[string, (d: ReturnType<typeof base>) => void, { path: string; message: string }]> = [
       ['missing field', (d) => delete d.caution, { path: '', message: 'missing required property "caution"' }],
       ['changed caution', (d) => (d.caution = 'use freely'), { path: '/caution', message: `must equal ${JSON.stringify(CAUTION)}` }],
       ['other format version', (d) => (d.format = 'epsigma.parameter-set/2'), { path: '/format', message: 'must equal "epsigma.parameter-set/1"' }],

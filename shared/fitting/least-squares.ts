@@ -155,7 +155,7 @@ export function weightedLeastSquares(problem: WeightedResidualProblem, options: 
   const evaluateInternal = (q: readonly number[]): ResidualEvaluation | null => {
     const key = q.join(',');
     if (cache.has(key)) return cache.get(key) ?? null;
-    let evaluation: ResidualEvaluation | null = null;
+    let evaluation: ResidualEvaluation | null;
     try {
       evaluation = problem.evaluate(toExternal(q));
     } catch {
@@ -199,7 +199,7 @@ export function weightedLeastSquares(problem: WeightedResidualProblem, options: 
   const xs = Array.from({ length: n }, (_, i) => i);
   const zeros = new Array<number>(n).fill(0);
   let convergence: Convergence = 'max-iterations';
-  let iterations = 0;
+  let iterations: number;
   let lastEvaluated: number[] = q;
 
   for (iterations = 1; iterations <= maxIterations; iterations++) {

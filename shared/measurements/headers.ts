@@ -35,7 +35,7 @@ export interface ColumnMappingEntry {
 export type ColumnMapping = Record<number, ColumnMappingEntry>;
 
 function nameKey(s: string): string {
-  return s.normalize('NFKC').toLowerCase().replace(/[\s_\-]+/g, '');
+  return s.normalize('NFKC').toLowerCase().replace(/[\s_-]+/g, '');
 }
 
 const ALIAS_INDEX: Map<string, QuantityKey> = (() => {

@@ -12,7 +12,7 @@ describe('cli md', () => {
     );
     expect(out.stderr).toBe('');
     expect(out.code).toBe(0);
-    const json = JSON.parse(out.stdout) as Record<string, any>;
+    const json = JSON.parse(out.stdout) as Record<string, unknown>;
     for (const key of ['reducedDensity', 'stdErr', 'phase', 'reducedPotentialEnergy', 'dRhoDT', 'dRhoDP']) expect(json).toHaveProperty(key);
     expect(json.trace).toBeUndefined();
     expect(json.frames).toBeUndefined();
@@ -24,7 +24,7 @@ describe('cli md', () => {
     expect(json.phase).toBe('fluid');
     // Supercritical fluid: JZG 1993 EOS density at T* = 2, P* = 5; a short run, so 3 % tolerance.
     const eos = ljEosDensity(2, 5).reducedDensity;
-    expect(Math.abs(json.reducedDensity - eos) / eos).toBeLessThan(0.03);
+    expect(Math.abs((json.reducedDensity as number) - eos) / eos).toBeLessThan(0.03);
   });
 
   it('names the offending flag in errors', async () => {

@@ -1,4 +1,4 @@
-import { useRef } from 'react';
+import { useState } from 'react';
 import { Navigate, useLocation } from 'react-router-dom';
 import { AppShell } from '@/components/layouts/app-shell';
 import { ErrorState, LoadingState } from '@/components/ui/states';
@@ -12,7 +12,7 @@ export function ProtectedRoute() {
   const me = useMe();
   const signOut = useSignOut();
   const location = useLocation();
-  const signingOut = useRef(false);
+  const [signingOut, setSigningOut] = useState(false);
   if (me.isPending) return <LoadingState label="Checking your session…" />;
   if (me.isError)
     return (
@@ -22,7 +22,7 @@ export function ProtectedRoute() {
     );
   if (!me.data) {
     // After "Sign out" go to the plain sign-in page; a lapsed session comes back here after signing in again.
-    if (signingOut.current) return <Navigate to="/sign-in" replace />;
+    if (signingOut) return <Navigate to="/sign-in" replace />;
     return <Navigate to={`/sign-in?next=${encodeURIComponent(location.pathname + location.search)}`} replace />;
   }
   return (
@@ -32,7 +32,7 @@ export function ProtectedRoute() {
         signingOut={signOut.isPending}
         notices={<NoticeBell />}
         onSignOut={() => {
-          signingOut.current = true;
+          setSigningOut(true);
           signOut.mutate();
         }}
       />

@@ -1,6 +1,5 @@
 import { Link } from 'react-router-dom';
 import { hasPolicy, ROLE_DESCRIPTIONS, ROLE_LABELS } from '@shared/auth/roles';
-import { formatWithUncertainty } from '@shared/format/numbers';
 import { NAV_ITEMS } from '@/config/navigation';
 import { KindBadge } from '@/components/ui/badge';
 import { ErrorState, LoadingState, PageHeader, Panel } from '@/components/ui/states';

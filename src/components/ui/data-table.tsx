@@ -10,11 +10,15 @@ import {
 
 export type { ColumnDef } from '@tanstack/react-table';
 
+/** A table's columns, each with its own value type (TanStack Table's ColumnDef is invariant in it, so mixed columns take any). */
+// eslint-disable-next-line @typescript-eslint/no-explicit-any -- TanStack Table's documented way to type mixed columns; unknown refuses typed accessors
+export type TableColumns<T> = ColumnDef<T, any>[];
+
 /**
  * A dense, calm, sortable table. Headers are buttons (keyboard sortable); columns flagged with
  * `meta: { numeric: true }` are right-aligned with tabular figures.
  */
-export function DataTable<T>({ data, columns, initialSorting = [], caption, rowKey, minWidthClass = '' }: { data: T[]; columns: ColumnDef<T, any>[]; initialSorting?: SortingState; caption?: string; rowKey?: (row: T) => string | number; /** e.g. "min-w-[56rem]": on a narrow screen the table keeps readable columns and scrolls inside its card. */ minWidthClass?: string }) {
+export function DataTable<T>({ data, columns, initialSorting = [], caption, rowKey, minWidthClass = '' }: { data: T[]; columns: TableColumns<T>; initialSorting?: SortingState; caption?: string; rowKey?: (row: T) => string | number; /** e.g. "min-w-[56rem]": on a narrow screen the table keeps readable columns and scrolls inside its card. */ minWidthClass?: string }) {
   const [sorting, setSorting] = useState<SortingState>(initialSorting);
   const table = useReactTable({
     data,

@@ -1,3 +1,4 @@
+import type { ChartDataset } from 'chart.js';
 import { Scatter } from 'react-chartjs-2';
 import { CHART_COLORS } from '@/components/charts/chart-setup';
 
@@ -7,7 +8,7 @@ export function TraceChart({ steps, values, label, yTitle, equilibrationStep, he
   const ys = values.filter(Number.isFinite);
   const lo = Math.min(...ys, threshold?.value ?? Infinity);
   const hi = Math.max(...ys, threshold?.value ?? -Infinity);
-  const datasets: any[] = [{ label, data, showLine: true, pointRadius: 0, borderColor: CHART_COLORS.teal, borderWidth: 1.2 }];
+  const datasets: ChartDataset<'scatter'>[] = [{ label, data, showLine: true, pointRadius: 0, borderColor: CHART_COLORS.teal, borderWidth: 1.2 }];
   if (equilibrationStep !== undefined) datasets.push({ label: 'production starts', data: [{ x: equilibrationStep, y: lo }, { x: equilibrationStep, y: hi }], showLine: true, pointRadius: 0, borderColor: CHART_COLORS.copper, borderDash: [5, 4], borderWidth: 1.5 });
   if (threshold) datasets.push({ label: threshold.label, data: [{ x: steps[0], y: threshold.value }, { x: steps[steps.length - 1], y: threshold.value }], showLine: true, pointRadius: 0, borderColor: CHART_COLORS.changes, borderDash: [2, 3], borderWidth: 1 });
   return (
