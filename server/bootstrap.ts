@@ -4,10 +4,20 @@ import type { Env } from './config/env';
 import { migrateToLatest, openDatabase } from './db/database';
 import { createAuth } from './features/auth/auth';
 import { startMail } from './features/mail/mail.runtime';
-import { JOB_KINDS } from './jobs/job-kinds';
-import { JobRunner, LocalExecutor, type JobExecutor } from './jobs/job-runner';
+import { fitJobKind } from './features/fits/fits.service';
+import { simulationJobKind } from './features/simulations/simulations.service';
+import { JobRunner, LocalExecutor, type JobExecutor, type JobKind } from './jobs/job-runner';
 import { createWorkerPool } from './jobs/worker-pool';
 import pkg from '../package.json' with { type: 'json' };
+
+/**
+ * Every kind of long job, by name, registered by its feature; the worker side lives in server/jobs/tasks.ts under the
+ * same names. The job runner (infrastructure) knows kinds only through this table.
+ */
+export const JOB_KINDS: Record<string, JobKind> = {
+  fit: fitJobKind,
+  simulation: simulationJobKind,
+};
 
 /** Package version plus the commit when the code runs from a git checkout. */
 function readCodeVersion(): string {
