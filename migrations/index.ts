@@ -11,6 +11,7 @@ import * as m20261202_0009 from './20261202_0009_job_queue_dispatch';
 import * as m20261202_0010 from './20261202_0010_notices';
 import * as m20261202_0012 from './20261202_0012_pair_sets';
 import * as m20261202_0013 from './20261202_0013_mie_parameter_sets';
+import * as m20261202_0014 from './20261202_0014_measurement_set_vocabulary';
 
 /**
  * Every migration, by name, in the order they run. Listed statically so the same code runs under
@@ -29,4 +30,5 @@ export const MIGRATIONS: Record<string, Migration> = {
   '20261202_0010_notices': m20261202_0010,
   '20261202_0012_pair_sets': m20261202_0012,
   '20261202_0013_mie_parameter_sets': m20261202_0013,
+  '20261202_0014_measurement_set_vocabulary': m20261202_0014,
 };

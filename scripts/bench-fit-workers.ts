@@ -14,7 +14,7 @@ import { createContext } from '../server/bootstrap';
 import { loadEnv } from '../server/config/env';
 import { seedDemo } from '../server/db/seed';
 import { createFit, findFit } from '../server/features/fits/fits.service';
-import { rolesOf } from '../server/features/users/users.repository';
+import { rolesOf } from '../server/features/people/people.repository';
 
 const root = fileURLToPath(new URL('..', import.meta.url));
 
@@ -49,9 +49,9 @@ async function coldFit(redisUrl: string, count: number) {
     const user = await ctx.db.selectFrom('user').select(['id', 'email', 'name']).where('email', '=', 'modeller@demo.epsigma.test').executeTakeFirstOrThrow();
     const actor = { ...user, roles: await rolesOf(ctx.db, user.id) };
     const substance = await ctx.db.selectFrom('substance').select('id').where('name', '=', 'Quillgas QG-1').executeTakeFirstOrThrow();
-    const datasets = await ctx.db.selectFrom('dataset').select(['id', 'property']).where('substanceId', '=', substance.id).where('property', 'in', ['b2', 'density']).execute();
+    const measurementSets = await ctx.db.selectFrom('measurementSet').select(['id', 'kind']).where('substanceId', '=', substance.id).where('kind', 'in', ['b2', 'density']).execute();
     const started = performance.now();
-    const { id, jobId } = await createFit(ctx, actor, { substanceId: substance.id, datasets: datasets.map((d) => ({ id: d.id })) });
+    const { id, jobId } = await createFit(ctx, actor, { substanceId: substance.id, measurementSets: measurementSets.map((d) => ({ id: d.id })) });
     const job = await ctx.jobs.waitFor(jobId);
     const wallSeconds = Number(((performance.now() - started) / 1000).toFixed(2));
     const result = JSON.parse((await findFit(ctx.db, id))!.resultJson ?? '{}');

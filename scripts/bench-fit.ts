@@ -15,7 +15,7 @@ import { createContext } from '../server/bootstrap';
 import { loadEnv } from '../server/config/env';
 import { seedDemo } from '../server/db/seed';
 import { createFit, findFit } from '../server/features/fits/fits.service';
-import { rolesOf } from '../server/features/users/users.repository';
+import { rolesOf } from '../server/features/people/people.repository';
 
 const { values } = parseArgs({ options: { json: { type: 'boolean' }, redis: { type: 'string' }, 'worker-processes': { type: 'string' } } });
 if (values.redis) {
@@ -32,21 +32,21 @@ try {
   const user = await ctx.db.selectFrom('user').select(['id', 'email', 'name']).where('email', '=', 'modeller@demo.epsigma.test').executeTakeFirstOrThrow();
   const actor = { ...user, roles: await rolesOf(ctx.db, user.id) };
   const substance = await ctx.db.selectFrom('substance').select('id').where('name', '=', 'Quillgas QG-1').executeTakeFirstOrThrow();
-  const datasets = await ctx.db.selectFrom('dataset').select(['id', 'property']).where('substanceId', '=', substance.id).where('property', 'in', ['b2', 'density']).execute();
+  const measurementSets = await ctx.db.selectFrom('measurementSet').select(['id', 'kind']).where('substanceId', '=', substance.id).where('kind', 'in', ['b2', 'density']).execute();
   const densityPoints = await ctx.db
     .selectFrom('measurementRow')
-    .innerJoin('datasetVersion', 'datasetVersion.id', 'measurementRow.datasetVersionId')
-    .innerJoin('dataset', 'dataset.id', 'datasetVersion.datasetId')
+    .innerJoin('measurementSetVersion', 'measurementSetVersion.id', 'measurementRow.measurementSetVersionId')
+    .innerJoin('measurementSet', 'measurementSet.id', 'measurementSetVersion.measurementSetId')
     .select(['measurementRow.temperatureK'])
-    .where('dataset.substanceId', '=', substance.id)
-    .where('dataset.property', '=', 'density')
+    .where('measurementSet.substanceId', '=', substance.id)
+    .where('measurementSet.kind', '=', 'density')
     .execute();
   const countRuns = async () => Number((await ctx.db.selectFrom('job').select((eb) => eb.fn.countAll<number>().as('n')).where('kind', '=', 'simulation').executeTakeFirstOrThrow()).n);
 
   const runOnce = async () => {
     const before = await countRuns();
     const started = performance.now();
-    const { id, jobId } = await createFit(ctx, actor, { substanceId: substance.id, datasets: datasets.map((d) => ({ id: d.id })) });
+    const { id, jobId } = await createFit(ctx, actor, { substanceId: substance.id, measurementSets: measurementSets.map((d) => ({ id: d.id })) });
     const job = await ctx.jobs.waitFor(jobId);
     const seconds = (performance.now() - started) / 1000;
     const fit = await findFit(ctx.db, id);

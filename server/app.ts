@@ -5,13 +5,14 @@ import helmet from 'helmet';
 import type { AppContext } from './app-context';
 import { originCheck, sessionMiddleware } from './common/auth-middleware';
 import { bearerTokenMiddleware } from './common/bearer-token';
+import { oldRouteAliases } from './common/old-routes';
 import { apiNotFound, createErrorHandler } from './common/error-handler';
 import { trustProxySetting } from './config/env';
 import { authRoutes } from './features/auth/auth.routes';
 import { healthRoutes } from './features/health/health.routes';
-import { userRoutes } from './features/users/users.routes';
+import { peopleRoutes } from './features/people/people.routes';
 import { substanceRoutes } from './features/substances/substances.routes';
-import { datasetRoutes } from './features/datasets/datasets.routes';
+import { measurementSetRoutes } from './features/measurement-sets/measurement-sets.routes';
 import { fitRoutes } from './features/fits/fits.routes';
 import { mailRoutes } from './features/mail/mail.routes';
 import { auditRoutes } from './features/audit/audit.routes';
@@ -20,6 +21,8 @@ import { parameterSetRoutes } from './features/parameter-sets/parameter-sets.rou
 import { simulationRoutes } from './features/simulations/simulations.routes';
 import { catalogRoutes } from './features/catalog/catalog.routes';
 import { tokenRoutes } from './features/tokens/tokens.routes';
+import { TOKEN_ROUTES } from './features/tokens/token-routes';
+import { authenticateToken } from './features/tokens/tokens.service';
 import { preferenceRoutes } from './features/preferences/preferences.routes';
 import { noticeRoutes } from './features/notices/notices.routes';
 import { workbenchRoutes } from './features/workbench/workbench.routes';
@@ -63,6 +66,8 @@ export function createApp(ctx: AppContext, options: CreateAppOptions = {}) {
   }
 
   const api = express.Router();
+  // Paths from before the vocabulary rename are re-addressed to their new names before anything else runs (old-routes.ts).
+  api.use(oldRouteAliases);
   // API answers hold personal data and change with every move: no browser or proxy may keep them.
   api.use((_req, res, next) => {
     res.set('Cache-Control', 'no-store');
@@ -70,14 +75,14 @@ export function createApp(ctx: AppContext, options: CreateAppOptions = {}) {
   });
   api.use(express.json({ limit: '1mb' }));
   // Before the Origin check: a token request that is not a read of an allowed route stops here (403).
-  api.use(bearerTokenMiddleware(ctx.db));
+  api.use(bearerTokenMiddleware({ routes: TOKEN_ROUTES, authenticate: (secret) => authenticateToken(ctx.db, secret) }));
   api.use(originCheck);
   api.use(sessionMiddleware(ctx.auth, ctx.db));
   api.use(healthRoutes(ctx));
   api.use(authRoutes(ctx));
-  api.use(userRoutes(ctx));
+  api.use(peopleRoutes(ctx));
   api.use(substanceRoutes(ctx));
-  api.use(datasetRoutes(ctx));
+  api.use(measurementSetRoutes(ctx));
   api.use(fitRoutes(ctx));
   api.use(parameterSetRoutes(ctx));
   api.use(simulationRoutes(ctx));

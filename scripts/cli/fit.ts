@@ -10,11 +10,12 @@
  * Mie λr-6 (B2 data): `--model mie --repulsive-exponent 16` holds λr, `--model mie --fit-repulsive-exponent` fits it
  * (adds { model, repulsiveExponent[, repulsiveExponentProfile] }). `--posterior [--samples N]` adds
  * { posterior: { epsilonK: { median, lower95, upper95 }, sigmaAngstrom: {…}, correlation, diagnostics, messages } }
- * (gas-phase fits; ensemble sampler with a fixed seed, shared/fitting/lj-posterior.ts).
+ * (ensemble sampler with a fixed seed, shared/fitting/lj-posterior.ts; with density data, on the simulation stage's reweighted
+ * runs with `coverage`, shared/fitting/density-posterior.ts).
  */
 import { readFileSync } from 'node:fs';
 import os from 'node:os';
-import { fitLennardJones, type FitDataset, type LjFitResult } from '../../shared/fitting/lj-fit';
+import { fitLennardJones, type FitMeasurementSet, type LjFitResult } from '../../shared/fitting/lj-fit';
 import { mdStageFit, type MdRunSummary, type MdStatePoint } from '../../shared/fitting/md-stage';
 import { DENSITY_FIT_DEFAULTS } from '../../server/features/fits/density-fit';
 import { normaliseState, simulationCacheKey } from '../../server/features/simulations/simulations.service';
@@ -31,7 +32,7 @@ const USAGE =
   'usage: fit --data <file.csv> [--data <file2.csv> ...] [--molar-mass <g/mol>] [--quantum] [--restarts <n>] [--model lj-12-6|mie [--repulsive-exponent <8–36> | --fit-repulsive-exponent]] [--posterior [--samples <n>]] [--atoms <n> --steps <n> --cutoff <rc/σ> --scheme truncated-tail|truncated-shifted --seed <k>] --json';
 
 /** Reads one CSV through the shared upload parser; throws with every problem it reports. */
-function loadDataset(path: string, molarMassGPerMol: number | undefined): FitDataset {
+function loadMeasurementSet(path: string, molarMassGPerMol: number | undefined): FitMeasurementSet {
   let text: string;
   try {
     text = readFileSync(path, 'utf8');
@@ -85,12 +86,12 @@ export async function run(argv: string[]): Promise<unknown> {
     restarts = Number(values.restarts);
     if (!Number.isInteger(restarts) || restarts < 0) throw new Error(`--restarts must be a non-negative integer, got "${values.restarts}"`);
   }
-  const datasets = files.map((file) => loadDataset(file, molarMassGPerMol));
+  const measurementSets = files.map((file) => loadMeasurementSet(file, molarMassGPerMol));
   if (values.quantum && molarMassGPerMol === undefined) throw new Error('--quantum needs --molar-mass (the quantum correction depends on the molecular mass)');
-  if (datasets.some((d) => d.kind === 'viscosity') && molarMassGPerMol === undefined) {
+  if (measurementSets.some((d) => d.kind === 'viscosity') && molarMassGPerMol === undefined) {
     throw new Error('viscosity data need --molar-mass (the Chapman–Enskog viscosity depends on the molecular mass)');
   }
-  if (datasets.some((d) => d.kind === 'density') && molarMassGPerMol === undefined) {
+  if (measurementSets.some((d) => d.kind === 'density') && molarMassGPerMol === undefined) {
     throw new Error('density data need --molar-mass (mass density = reduced density × M / (N_A σ³))');
   }
   const model = values.model ?? 'lj-12-6';
@@ -105,10 +106,10 @@ export async function run(argv: string[]): Promise<unknown> {
     if (!values.posterior) throw new Error('--samples is only used with --posterior');
     if (!Number.isInteger(samples) || samples < 100 || samples > 100000) throw new Error(`--samples must be a whole number from 100 to 100000, got "${values.samples}"`);
   }
-  const hasDensity = datasets.some((d) => d.kind === 'density');
-  if (values.posterior && hasDensity) throw new Error('--posterior is for gas-phase fits (B2, viscosity and other non-simulated kinds) in this version; leave out the density data or --posterior');
+  const hasDensity = measurementSets.some((d) => d.kind === 'density');
+  if (model === 'mie' && hasDensity) throw new Error('the command line runs density fits with LJ 12-6 only; a Mie density fit runs through the API (POST /api/fits)');
   const options = { molarMassGPerMol, quantumCorrection: values.quantum ?? false, ...(restarts !== undefined ? { restarts } : {}), ...(model === 'mie' && !fitExponent ? { repulsiveExponent } : {}) };
-  const fit = model === 'mie' && fitExponent ? fitMieWithExponent(datasets, options) : fitLennardJones(datasets, options);
+  const fit = model === 'mie' && fitExponent ? fitMieWithExponent(measurementSets, options) : fitLennardJones(measurementSets, options);
   if (!hasDensity) {
     const extra: Record<string, unknown> = {};
     if (model === 'mie') {
@@ -117,18 +118,24 @@ export async function run(argv: string[]): Promise<unknown> {
       if ('repulsiveExponentProfile' in fit) extra.repulsiveExponentProfile = fit.repulsiveExponentProfile;
     }
     if (values.posterior && fit.status === 'succeeded') {
-      const post = ljPosterior(datasets, { ...options, repulsiveExponent: fit.repulsiveExponent }, fit, { ...(samples !== undefined ? { samples } : {}), drawsReturned: 0 });
+      const post = ljPosterior(measurementSets, { ...options, repulsiveExponent: fit.repulsiveExponent }, fit, { ...(samples !== undefined ? { samples } : {}), drawsReturned: 0 });
       const pick = (p: typeof post.epsilonK) => ({ median: p.median, lower95: p.lower95, upper95: p.upper95 });
       extra.posterior = { epsilonK: pick(post.epsilonK), sigmaAngstrom: pick(post.sigmaAngstrom), correlation: post.correlation, linearised: post.linearised, diagnostics: post.diagnostics, likelihood: post.likelihood, priors: post.priors, messages: 'repulsiveExponentProfile' in fit ? [...post.messages, `ε and σ were sampled at the best λr = ${fit.repulsiveExponent?.toFixed(2)}; λr itself is not sampled, so these intervals do not include its uncertainty.`] : post.messages };
     }
     return summary(fit, extra);
   }
-  if (!datasets.some((d) => d.kind === 'density') || fit.status !== 'succeeded') return summary(fit, datasets.some((d) => d.kind === 'density') ? { eosStage: summary(fit) } : {});
-  return densityStage(datasets, fit, molarMassGPerMol!, values);
+  if (!measurementSets.some((d) => d.kind === 'density') || fit.status !== 'succeeded') return summary(fit, measurementSets.some((d) => d.kind === 'density') ? { eosStage: summary(fit) } : {});
+  return densityStage(measurementSets, fit, molarMassGPerMol!, values, values.posterior ? { ...(samples !== undefined ? { samples } : {}) } : undefined);
 }
 
 /** The simulation stage, with the worker pool and an in-command cache of runs by reduced state and settings. */
-async function densityStage(datasets: FitDataset[], eos: LjFitResult, molarMassGPerMol: number, values: { atoms?: string; steps?: string; cutoff?: string; scheme?: string; seed?: string }) {
+async function densityStage(
+  measurementSets: FitMeasurementSet[],
+  eos: LjFitResult,
+  molarMassGPerMol: number,
+  values: { atoms?: string; steps?: string; cutoff?: string; scheme?: string; seed?: string },
+  posterior?: { samples?: number },
+) {
   const intFlag = (name: string, raw: string | undefined, lo: number, hi: number) => {
     if (raw === undefined) return undefined;
     const v = Number(raw);
@@ -166,13 +173,17 @@ async function densityStage(datasets: FitDataset[], eos: LjFitResult, molarMassG
           return { id: runs, reused: hit, reducedDensity: r.reducedDensity, stdErr: r.stdErr, dRhoDT: r.dRhoDT, dRhoDP: r.dRhoDP, phase: r.phase, ...r.settings, effectiveSamples: r.effectiveSamples, startedFrom: r.startedFrom, frames: r.frames };
         }),
       );
-    const points = datasets.flatMap((d, datasetIndex) => d.rows.map((r) => ({ datasetId: d.id, datasetIndex, kind: d.kind, temperatureK: r.temperatureK, pressureMPa: r.pressureMPa, value: r.value, uncertainty: r.uncertainty, weight: d.weight ?? 1 })));
-    const result = await mdStageFit(points, datasets.map((d) => ({ id: d.id, kind: d.kind })), {
+    const points = measurementSets.flatMap((d, measurementSetIndex) => d.rows.map((r) => ({ measurementSetId: d.id, measurementSetIndex, kind: d.kind, temperatureK: r.temperatureK, pressureMPa: r.pressureMPa, value: r.value, uncertainty: r.uncertainty, weight: d.weight ?? 1 })));
+    const result = await mdStageFit(points, measurementSets.map((d) => ({ id: d.id, kind: d.kind })), {
       start: { epsilonK: eos.epsilonK, sigmaAngstrom: eos.sigmaAngstrom },
       bounds: eos.bounds,
       context: { molarMassGPerMol, quantumCorrection: eos.quantumCorrection },
       simulate,
+      // The posterior on the reweighted predictions of the stage's runs (shared/fitting/density-posterior.ts).
+      ...(posterior ? { posterior: { ...posterior, drawsReturned: 0 } } : {}),
     });
+    const post = result.posterior;
+    const pick = (p: NonNullable<typeof post>['epsilonK']) => ({ median: p.median, lower95: p.lower95, upper95: p.upper95 });
     return summary(result, {
       eosStage: summary(eos),
       mdRuns: cache.size,
@@ -186,6 +197,9 @@ async function densityStage(datasets: FitDataset[], eos: LjFitResult, molarMassG
       reweightedPoints: result.reweightedPoints,
       effectiveSamples: result.residuals.filter((r) => r.kind === 'density').map((r) => r.effectiveSamples),
       stoppingRule: result.stoppingRule,
+      ...(post
+        ? { posterior: { epsilonK: pick(post.epsilonK), sigmaAngstrom: pick(post.sigmaAngstrom), correlation: post.correlation, linearised: post.linearised, diagnostics: post.diagnostics, coverage: post.coverage, likelihood: post.likelihood, priors: post.priors, messages: post.messages } }
+        : {}),
     });
   } finally {
     await pool.close();

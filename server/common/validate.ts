@@ -1,6 +1,7 @@
 import type { Request } from 'express';
 import { z } from 'zod';
 import { fieldLabel } from '../../shared/schemas/field-labels';
+import { withNewFieldNames } from '../../shared/schemas/old-names';
 import { AppError } from './errors';
 
 /** zod's own wording ("Invalid input: expected number, received string") made plain; our own messages pass through. */
@@ -29,7 +30,8 @@ function parsePart<S extends z.ZodType>(schema: S, value: unknown, part: 'body' 
   throw new AppError(400, 'validation_failed', `${where}: ${plainMessage(first.message)}${more}.`, details.map((d) => ({ ...d, label: d.field === part ? null : fieldLabel(d.field) })));
 }
 
-export const validBody = <S extends z.ZodType>(schema: S, req: Request) => parsePart(schema, req.body, 'body');
+/** Old field names the schema declares (shared/schemas/old-names.ts) are read as their new names. */
+export const validBody = <S extends z.ZodType>(schema: S, req: Request) => parsePart(schema, withNewFieldNames(schema, req.body), 'body');
 export const validQuery = <S extends z.ZodType>(schema: S, req: Request) => parsePart(schema, req.query, 'query');
 export const validParams = <S extends z.ZodType>(schema: S, req: Request) => parsePart(schema, req.params, 'params');
 

@@ -1,5 +1,5 @@
 import type { AuditEventTable } from '../features/audit/audit.table';
-import type { DatasetTable, DatasetVersionTable, DatasetWithdrawalTable, MeasurementRowTable } from '../features/datasets/datasets.table';
+import type { MeasurementSetTable, MeasurementSetVersionTable, MeasurementSetWithdrawalTable, MeasurementRowTable } from '../features/measurement-sets/measurement-sets.table';
 import type { SubstanceTable } from '../features/substances/substances.table';
 import type { FitTable } from '../features/fits/fits.table';
 import type { ParameterSetCommentTable, ParameterSetTable, ParameterSetTransitionTable } from '../features/parameter-sets/parameter-sets.table';
@@ -10,7 +10,7 @@ import type { PairSetTable } from '../features/pair-sets/pair-sets.table';
 import type { MailboxMessageTable, MailOutboxTable } from '../features/mail/mail.table';
 import type { SubstanceFollowTable } from '../features/follows/follows.table';
 import type { ApiTokenTable } from '../features/tokens/tokens.table';
-import type { SessionTable, UserRoleTable, UserTable } from '../features/users/users.table';
+import type { SessionTable, UserRoleTable, UserTable } from '../features/people/people.table';
 import type { SignInFailureTable } from '../features/auth/sign-in-failure.table';
 
 /** The typed database: one entry per table, fed by each feature's *.table.ts (columns in camelCase). */
@@ -20,10 +20,10 @@ export interface Database {
   session: SessionTable;
   auditEvent: AuditEventTable;
   substance: SubstanceTable;
-  dataset: DatasetTable;
-  datasetVersion: DatasetVersionTable;
+  measurementSet: MeasurementSetTable;
+  measurementSetVersion: MeasurementSetVersionTable;
   measurementRow: MeasurementRowTable;
-  datasetWithdrawal: DatasetWithdrawalTable;
+  measurementSetWithdrawal: MeasurementSetWithdrawalTable;
   job: JobTable;
   simulationFrames: SimulationFramesTable;
   fit: FitTable;

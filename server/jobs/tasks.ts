@@ -3,7 +3,7 @@
  * separately tested code in shared/: a payload in, a JSON-able result out, progress through a callback.
  * Nothing here opens the database: worker processes (`npm run worker`) load this file and the shared code only.
  */
-import { type FitDataset } from '../../shared/fitting/lj-fit';
+import { type FitMeasurementSet } from '../../shared/fitting/lj-fit';
 import { gasPhaseFit, type GasFitOptions } from '../../shared/fitting/gas-fit';
 import { runNpt, type NptOptions } from '../../shared/physics/md/npt';
 
@@ -11,12 +11,12 @@ export type ProgressReport = { fraction: number; stage: string };
 export type Task = (payload: any, progress: (p: ProgressReport) => void) => unknown | Promise<unknown>;
 
 export interface FitTaskPayload {
-  datasets: FitDataset[];
+  measurementSets: FitMeasurementSet[];
   options: GasFitOptions;
 }
 
 export const TASKS: Record<string, Task> = {
-  fit: (payload: FitTaskPayload, progress) => gasPhaseFit(payload.datasets, payload.options, progress),
+  fit: (payload: FitTaskPayload, progress) => gasPhaseFit(payload.measurementSets, payload.options, progress),
   simulation: (payload: NptOptions, progress) => runNpt(payload, progress),
 };
 

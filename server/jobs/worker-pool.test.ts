@@ -48,7 +48,7 @@ describe('worker pool', () => {
     const controller = new AbortController();
     const long = pool.run('simulation', LONG, () => {}, controller.signal);
     // An empty data set: the fit refuses it itself (a deterministic error, not a crash).
-    await expect(pool.run('fit', { datasets: [], options: {} }, () => {})).rejects.toBeInstanceOf(TaskError);
+    await expect(pool.run('fit', { measurementSets: [], options: {} }, () => {})).rejects.toBeInstanceOf(TaskError);
     expect(pool.busy('simulation')).toBe(1);
     controller.abort();
     await expect(long).rejects.toBeInstanceOf(CancelledError);

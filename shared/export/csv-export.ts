@@ -54,8 +54,8 @@ export function csvDocument(header: readonly string[], rows: readonly (readonly 
 const ENERGY_SUFFIX: Record<EnergyUnit, string> = { K: 'K', 'kJ/mol': 'kJ_per_mol', 'kcal/mol': 'kcal_per_mol', eV: 'eV' };
 const LENGTH_SUFFIX: Record<LengthUnit, string> = { 'Å': 'Angstrom', nm: 'nm' };
 
-function datasetsText(set: ExportableParameterSet): string {
-  return set.datasets
+function measurementSetsText(set: ExportableParameterSet): string {
+  return set.measurementSets
     .map((d) => {
       const extra = [`id ${d.id}`, d.doi ? `doi ${d.doi}` : null, d.source ? `source ${d.source}` : null].filter(Boolean).join(', ');
       return `${d.kind}: ${d.name} v${d.version} (${extra})`;
@@ -92,7 +92,7 @@ export function parameterSetsToCsv(sets: readonly ExportableParameterSet[], opti
       ...(lu ? [tidy(convertSigma(s.sigmaAngstrom, lu)), uSig == null ? null : tidy(convertSigma(uSig, lu))] : []),
       s.correlation, s.scheme, s.cutoffSigma, s.cutoffSigma == null ? null : tidy(s.cutoffSigma * s.sigmaAngstrom),
       ...((v) => [v.temperatureMinK, v.temperatureMaxK, v.pressureMinMPa, v.pressureMaxMPa])(validityOf(s)),
-      s.fitId, datasetsText(s), CAUTION_TEXT,
+      s.fitId, measurementSetsText(s), CAUTION_TEXT,
     ];
   });
   return csvDocument(header, rows);

@@ -133,7 +133,7 @@ describe('LAMMPS fragments', () => {
       ...brindleShifted,
       substance: { ...brindleShifted.substance, name: 'Brindle gas\npair_style zero 1.0\rshell rm -rf x', formula: 'Bd &' },
       approvedBy: 'someone """ &',
-      datasets: [{ id: 1, version: 1, kind: 'b2', name: 'ends with &', source: 'trailing backslash \\', doi: null }],
+      measurementSets: [{ id: 1, version: 1, kind: 'b2', name: 'ends with &', source: 'trailing backslash \\', doi: null }],
     };
     const cmds = lammpsCommands(lammpsParameterSet(evil, 'real'));
     expect(cmds.map((c) => c[0])).toEqual(['mass', 'pair_style', 'pair_coeff', 'pair_modify']);

@@ -85,7 +85,7 @@ export function assertExportable(set: ExportableParameterSet): void {
     fail('validity needs 0 ≤ pressureMinMPa < pressureMaxMPa');
   }
   if (!Number.isInteger(set.fitId) || set.fitId <= 0) fail('fitId must be a positive integer');
-  if (!Array.isArray(set.datasets)) fail('datasets must be a list');
+  if (!Array.isArray(set.measurementSets)) fail('measurement sets must be a list');
 }
 
 /** Lower-case ASCII slug for file names: "Norrane (Nr2)" → "norrane-nr2". */
@@ -238,7 +238,7 @@ export function setHeaderLines(set: ExportableParameterSet): string[] {
     `Valid for: ${validityText(validityOf(set))}`,
     `Fitted for: ${SCHEME_DESCRIPTION[set.scheme]}${set.cutoffSigma != null ? `, rc = ${engineNumber(set.cutoffSigma, 6)} sigma` : ''}`,
   ];
-  for (const d of set.datasets) {
+  for (const d of set.measurementSets) {
     const extra = [d.doi ? `doi ${oneLine(d.doi)}` : '', d.source ? oneLine(d.source) : ''].filter(Boolean).join('; ');
     lines.push(`Measurement set ${d.id} v${d.version} (${oneLine(d.kind)}): ${oneLine(d.name)}${extra ? ` [${extra}]` : ''}`);
   }

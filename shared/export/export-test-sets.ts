@@ -20,7 +20,7 @@ export const brindleShifted: ExportableParameterSet = {
   approvedBy: 'R. Ostrova',
   state: 'approved',
   fitId: 7,
-  datasets: [
+  measurementSets: [
     { id: 4, version: 2, kind: 'b2', name: 'Brindle gas B2, Quillmoor cell A', source: 'Quillmoor lab notebook 3', doi: null },
     { id: 5, version: 1, kind: 'viscosity', name: 'Brindle gas dilute-gas viscosity', source: null, doi: '10.0000/quillmoor.example.5' },
   ],
@@ -39,7 +39,7 @@ export const oskaneTail: ExportableParameterSet = {
   cutoffSigma: 3,
   validity: { temperatureMinK: 120, temperatureMaxK: 400 },
   fitId: 9,
-  datasets: [],
+  measurementSets: [],
 };
 
 export const tarrowFull: ExportableParameterSet = {
@@ -53,7 +53,7 @@ export const tarrowFull: ExportableParameterSet = {
   cutoffSigma: null,
   validity: { temperatureMinK: 200, temperatureMaxK: 500, pressureMinMPa: null, pressureMaxMPa: null },
   fitId: 11,
-  datasets: [{ id: 8, version: 1, kind: 'b2', name: 'Tarrow bead B2, Quillmoor cell B', source: 'Quillmoor lab notebook 5', doi: null }],
+  measurementSets: [{ id: 8, version: 1, kind: 'b2', name: 'Tarrow bead B2, Quillmoor cell B', source: 'Quillmoor lab notebook 5', doi: null }],
 };
 
 /** Same scheme and cutoff as brindleShifted, so a mixture of the two is consistent. */

@@ -49,7 +49,7 @@ export interface ParameterSetDocument {
   validity: ValidityRange;
   provenance: {
     fitId: number;
-    datasets: Array<{ id: number; version: number; kind: string; name: string; source: string | null; doi: string | null }>;
+    datasets: Array<{ id: number; version: number; kind: string; name: string; source: string | null; doi: string | null }>; // vocabulary: keep (export format v1)
   };
   caution: typeof CAUTION_TEXT;
 }
@@ -99,7 +99,8 @@ export function parameterSetDocument(set: ExportableParameterSet): ParameterSetD
     validity: validityOf(set),
     provenance: {
       fitId: set.fitId,
-      datasets: set.datasets.map((d) => ({ id: d.id, version: d.version, kind: d.kind, name: d.name, source: d.source ?? null, doi: d.doi ?? null })),
+      // The published format v1 keeps its old provenance key (vocabulary: keep: "datasets"); a rename needs a format version 2.
+      datasets: set.measurementSets.map((d) => ({ id: d.id, version: d.version, kind: d.kind, name: d.name, source: d.source ?? null, doi: d.doi ?? null })), // vocabulary: keep
     },
     caution: CAUTION_TEXT,
   };

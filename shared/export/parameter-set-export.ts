@@ -32,7 +32,7 @@ export interface ExportableParameterSet {
   approvedBy: string | null;
   state: string;
   fitId: number;
-  datasets: Array<{ id: number; version: number; kind: string; name: string; source?: string | null; doi?: string | null }>;
+  measurementSets: Array<{ id: number; version: number; kind: string; name: string; source?: string | null; doi?: string | null }>;
 }
 
 export const EXPORT_FORMATS = ['json', 'csv', 'lammps-real', 'lammps-metal', 'lammps-lj', 'gromacs'] as const;

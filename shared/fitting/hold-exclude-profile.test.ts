@@ -5,14 +5,14 @@
  */
 import { describe, expect, it } from 'vitest';
 import { b2WithGradient } from '../physics/virial';
-import { fitLennardJones, LjFitInputError, type FitDataset } from './lj-fit';
+import { fitLennardJones, LjFitInputError, type FitMeasurementSet } from './lj-fit';
 import { profileChi2 } from './profile-chi2';
 import { gaussianGenerator, mulberry32 } from './random';
 
 const TEMPERATURES = [150, 180, 220, 260, 300, 360, 420, 500, 600, 750];
 
 /** B2 of invented parameters with seeded Gaussian noise of u per point. */
-function dataset(u: (b2: number) => number, seed = 7, epsilonK = 210, sigmaAngstrom = 3.9): FitDataset {
+function measurementSet(u: (b2: number) => number, seed = 7, epsilonK = 210, sigmaAngstrom = 3.9): FitMeasurementSet {
   const gauss = gaussianGenerator(mulberry32(seed));
   return {
     id: 'invented-b2',
@@ -25,10 +25,10 @@ function dataset(u: (b2: number) => number, seed = 7, epsilonK = 210, sigmaAngst
   };
 }
 
-const chi2Of = (d: FitDataset, eps: number, sigma: number) => d.rows.reduce((s, r) => s + ((b2WithGradient(r.temperatureK, eps, sigma).b2Cm3PerMol - r.value) / r.uncertainty) ** 2, 0);
+const chi2Of = (d: FitMeasurementSet, eps: number, sigma: number) => d.rows.reduce((s, r) => s + ((b2WithGradient(r.temperatureK, eps, sigma).b2Cm3PerMol - r.value) / r.uncertainty) ** 2, 0);
 
 describe('holding a parameter', () => {
-  const data = dataset(() => 2);
+  const data = measurementSet(() => 2);
   const free = fitLennardJones([data], { profiles: false });
 
   it('keeps the held value exact, gives it no standard error, and counts one parameter fewer in the degrees of freedom', () => {
@@ -71,7 +71,7 @@ describe('holding a parameter', () => {
 });
 
 describe('leaving rows out', () => {
-  const data = dataset(() => 2, 11);
+  const data = measurementSet(() => 2, 11);
   // Two rows pushed far off, as a bad reading would be.
   data.rows[1] = { ...data.rows[1], value: data.rows[1].value + 40 };
   data.rows[6] = { ...data.rows[6], value: data.rows[6].value - 30 };
@@ -90,8 +90,8 @@ describe('leaving rows out', () => {
     // χ² is the sum over the counted rows only.
     const counted = leftOut.residuals.filter((r) => !r.excluded).reduce((s, r) => s + r.residual ** 2, 0);
     expect(counted).toBeCloseTo(leftOut.chi2, 8);
-    expect(leftOut.perDataset[0]).toMatchObject({ points: TEMPERATURES.length - 2, excludedPoints: 2 });
-    expect(leftOut.perDataset[0].chi2).toBeCloseTo(leftOut.chi2, 8);
+    expect(leftOut.perMeasurementSet[0]).toMatchObject({ points: TEMPERATURES.length - 2, excludedPoints: 2 });
+    expect(leftOut.perMeasurementSet[0].chi2).toBeCloseTo(leftOut.chi2, 8);
     // Without leaving them out, the two bad rows pull the fit away.
     const all = fitLennardJones([data], { profiles: false });
     expect(all.chi2).toBeGreaterThan(leftOut.chi2 + 100);
@@ -131,7 +131,7 @@ describe('profile χ²', () => {
 
   it('on a nearly linear B2 fit agrees with the linearised ±1 standard error', () => {
     // Tight data make the model linear over the width of the interval; the threshold carries the χ²/ν scaling.
-    const fit = fitLennardJones([dataset((b) => 0.002 + 0.0002 * Math.abs(b), 3)], {});
+    const fit = fitLennardJones([measurementSet((b) => 0.002 + 0.0002 * Math.abs(b), 3)], {});
     for (const name of ['epsilonK', 'sigmaAngstrom'] as const) {
       const p = fit.profiles[name]!;
       const se = fit.stdErr[name]!;
@@ -143,7 +143,7 @@ describe('profile χ²', () => {
   });
 
   it('on loose data the profile interval is asymmetric where the linearised one cannot be', () => {
-    const fit = fitLennardJones([dataset((b) => 3 + 0.05 * Math.abs(b), 5)], {});
+    const fit = fitLennardJones([measurementSet((b) => 3 + 0.05 * Math.abs(b), 5)], {});
     const p = fit.profiles.epsilonK!;
     const below = fit.epsilonK - p.lower!;
     const above = p.upper! - fit.epsilonK;
@@ -154,14 +154,14 @@ describe('profile χ²', () => {
 describe('strong correlation and failed fits', () => {
   it('warns in plain words when |correlation(ε, σ)| exceeds 0.95', () => {
     // B2 alone constrains ε and σ along a narrow valley (correlation near −1; common practice, no source).
-    const fit = fitLennardJones([dataset(() => 2)], { profiles: false });
+    const fit = fitLennardJones([measurementSet(() => 2)], { profiles: false });
     expect(Math.abs(fit.correlation!)).toBeGreaterThan(0.95);
     expect(fit.strongCorrelation).toBe(true);
     expect(fit.warnings.join(' ')).toMatch(/strongly correlated .* the data pin down a combination of the two/);
   });
 
   it('a fit that does not converge keeps its last iterate, marked not converged, with residuals and no standard errors', () => {
-    const fit = fitLennardJones([dataset(() => 2)], { start: { epsilonK: 60, sigmaAngstrom: 5.5 }, restarts: 0, maxIterations: 5 });
+    const fit = fitLennardJones([measurementSet(() => 2)], { start: { epsilonK: 60, sigmaAngstrom: 5.5 }, restarts: 0, maxIterations: 5 });
     expect(fit.status).toBe('failed');
     expect(fit.converged).toBe(false);
     expect(Number.isFinite(fit.epsilonK) && Number.isFinite(fit.sigmaAngstrom)).toBe(true);

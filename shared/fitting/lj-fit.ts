@@ -1,7 +1,7 @@
 /**
- * Lennard-Jones 12-6 parameters (ε/k_B in K, σ in Å) fitted to any mix of property datasets by weighted
+ * Lennard-Jones 12-6 parameters (ε/k_B in K, σ in Å) fitted to any mix of property measurement sets by weighted
  * nonlinear least squares (least-squares.ts): χ² = Σ [w_d (model_i − measured_i)/u_i]², where w_d is the
- * dataset weight. Property models come from the registry in property-models.ts.
+ * measurement set weight. Property models come from the registry in property-models.ts.
  * Starting values are automatic unless given (lj-starting-values.ts); a few seeded, perturbed restarts guard
  * against a local minimum, and the lowest χ² wins.
  */
@@ -10,7 +10,7 @@ import { jointConfidenceEllipse } from './ellipse';
 import { DEFAULT_LJ_BOUNDS as FIT_DEFAULT_BOUNDS, DEFAULT_RESTARTS } from './fit-defaults';
 import { LeastSquaresInputError, weightedLeastSquares, type Convergence, type CovarianceScaling, type LeastSquaresResult, type WeightedResidualProblem } from './least-squares';
 import { estimateLjStart, type LjBounds, type StartPoint } from './lj-starting-values';
-import { PROPERTY_MODELS, isFitKind, type FitKind, type PropertyContext, type PropertyModel } from './property-models';
+import { MIE_KINDS_TEXT, PROPERTY_MODELS, isFitKind, type FitKind, type PropertyContext, type PropertyModel } from './property-models';
 import { profileChi2, type ProfileCurve } from './profile-chi2';
 import { quantumDiagnostics } from './quantum-diagnostics';
 import { gaussianGenerator, mulberry32 } from './random';
@@ -30,15 +30,15 @@ export interface FitRow {
   uncertainty: number;
 }
 
-export interface FitDataset {
+export interface FitMeasurementSet {
   id: string | number;
   version?: number;
   kind: FitKind;
-  /** Multiplies 1/u for every row of the dataset (default 1). */
+  /** Multiplies 1/u for every row of the measurement set (default 1). */
   weight?: number;
   label?: string;
   rows: FitRow[];
-  /** Row numbers (1-based, as the dataset page shows them) left out of χ²; their predictions are still reported. */
+  /** Row numbers (1-based, as the measurement set page shows them) left out of χ²; their predictions are still reported. */
   excludeRows?: number[];
 }
 
@@ -66,11 +66,11 @@ export interface LjFitOptions {
 }
 
 export interface LjResidual {
-  /** Position of the dataset in the input array. */
-  datasetIndex: number;
-  datasetId: string | number;
+  /** Position of the measurement set in the input array. */
+  measurementSetIndex: number;
+  measurementSetId: string | number;
   kind: FitKind;
-  /** Row number within its dataset (1-based, as the dataset page shows it). */
+  /** Row number within its measurement set (1-based, as the measurement set page shows it). */
   rowNumber: number;
   /** Left out by the modeller: predicted at the final parameters, never counted in χ², dof or statistics. */
   excluded: boolean;
@@ -86,14 +86,14 @@ export interface LjResidual {
   relativeDeviationPercent: number | null;
 }
 
-export interface LjDatasetSummary {
-  datasetId: string | number;
+export interface LjMeasurementSetSummary {
+  measurementSetId: string | number;
   kind: FitKind;
   /** Points counted in χ² (left-out rows not included). */
   points: number;
   /** Rows left out by the modeller. */
   excludedPoints: number;
-  /** Root-mean-square of predicted − measured, in the dataset's unit. */
+  /** Root-mean-square of predicted − measured, in the measurement set's unit. */
   rms: number;
   /** Mean |predicted − measured|/|measured| in percent (points with measured = 0 left out); null if none remain. */
   aadPercent: number | null;
@@ -130,7 +130,7 @@ export interface LjFitResult {
   start: { epsilonK: number; sigmaAngstrom: number; method: string };
   bounds: LjBounds;
   residuals: LjResidual[];
-  perDataset: LjDatasetSummary[];
+  perMeasurementSet: LjMeasurementSetSummary[];
   ellipse95: { points: Array<{ epsilonK: number; sigmaAngstrom: number }>; method: string; description: string } | null;
   restartsTried: number;
   quantumCorrection: boolean;
@@ -178,8 +178,8 @@ export function strongCorrelationWarning(correlation: number): string {
 }
 
 interface FlatPoint {
-  datasetIndex: number;
-  datasetId: string | number;
+  measurementSetIndex: number;
+  measurementSetId: string | number;
   kind: FitKind;
   rowNumber: number;
   excluded: boolean;
@@ -190,26 +190,26 @@ interface FlatPoint {
   weight: number;
 }
 
-function validate(datasets: readonly FitDataset[], options: LjFitOptions): { allPoints: FlatPoint[]; points: FlatPoint[]; bounds: LjBounds; context: PropertyContext; held: Array<{ index: number; value: number }> } {
-  if (!datasets || datasets.length === 0) throw new LjFitInputError('no-data', 'no datasets to fit');
+function validate(measurementSets: readonly FitMeasurementSet[], options: LjFitOptions): { allPoints: FlatPoint[]; points: FlatPoint[]; bounds: LjBounds; context: PropertyContext; held: Array<{ index: number; value: number }> } {
+  if (!measurementSets || measurementSets.length === 0) throw new LjFitInputError('no-data', 'no measurement sets to fit');
   const points: FlatPoint[] = [];
-  datasets.forEach((dataset, datasetIndex) => {
+  measurementSets.forEach((measurementSet, measurementSetIndex) => {
     // Named as the person sees it when the caller gives a label (the API passes the measurement set's name).
-    const name = dataset.label ? `measurement set "${dataset.label}"` : `dataset ${String(dataset.id)}`;
-    if (!isFitKind(dataset.kind)) {
-      throw new LjFitInputError('unknown-kind', `${name}: unknown kind "${String(dataset.kind)}"; expected one of ${Object.keys(PROPERTY_MODELS).join(', ')}`);
+    const name = measurementSet.label ? `measurement set "${measurementSet.label}"` : `measurement set ${String(measurementSet.id)}`;
+    if (!isFitKind(measurementSet.kind)) {
+      throw new LjFitInputError('unknown-kind', `${name}: unknown kind "${String(measurementSet.kind)}"; expected one of ${Object.keys(PROPERTY_MODELS).join(', ')}`);
     }
-    const model = PROPERTY_MODELS[dataset.kind];
+    const model = PROPERTY_MODELS[measurementSet.kind];
     if (model.needsMolarMass && options.molarMassGPerMol === undefined) {
       throw new LjFitInputError('missing-molar-mass', `${name}: fitting the ${model.label} needs the molar mass (molarMassGPerMol)`);
     }
-    const weight = dataset.weight ?? 1;
+    const weight = measurementSet.weight ?? 1;
     if (!(weight > 0) || !Number.isFinite(weight)) throw new LjFitInputError('bad-weight', `${name}: weight must be a positive finite number, got ${weight}`);
-    const excludeRows = new Set(dataset.excludeRows ?? []);
+    const excludeRows = new Set(measurementSet.excludeRows ?? []);
     for (const r of excludeRows) {
-      if (!Number.isInteger(r) || r < 1 || r > dataset.rows.length) throw new LjFitInputError('bad-value', `${name}: row ${r} cannot be left out: the rows are numbered 1 to ${dataset.rows.length}`);
+      if (!Number.isInteger(r) || r < 1 || r > measurementSet.rows.length) throw new LjFitInputError('bad-value', `${name}: row ${r} cannot be left out: the rows are numbered 1 to ${measurementSet.rows.length}`);
     }
-    dataset.rows.forEach((row, i) => {
+    measurementSet.rows.forEach((row, i) => {
       if (!(row.temperatureK > 0) || !Number.isFinite(row.temperatureK)) {
         throw new LjFitInputError('bad-value', `${name}, row ${i + 1}: temperatureK must be a positive finite number, got ${row.temperatureK}`);
       }
@@ -220,7 +220,7 @@ function validate(datasets: readonly FitDataset[], options: LjFitOptions): { all
       if (model.needsPressure && !(Number(row.pressureMPa) > 0)) {
         throw new LjFitInputError('bad-value', `${name}, row ${i + 1}: the ${model.label} needs a positive pressureMPa, got ${row.pressureMPa}`);
       }
-      points.push({ datasetIndex, datasetId: dataset.id, kind: dataset.kind, rowNumber: i + 1, excluded: excludeRows.has(i + 1), temperatureK: row.temperatureK, ...(row.pressureMPa !== undefined ? { pressureMPa: row.pressureMPa } : {}), value: row.value, uncertainty: row.uncertainty, weight });
+      points.push({ measurementSetIndex, measurementSetId: measurementSet.id, kind: measurementSet.kind, rowNumber: i + 1, excluded: excludeRows.has(i + 1), temperatureK: row.temperatureK, ...(row.pressureMPa !== undefined ? { pressureMPa: row.pressureMPa } : {}), value: row.value, uncertainty: row.uncertainty, weight });
     });
   });
   const held: Array<{ index: number; value: number }> = [];
@@ -254,9 +254,9 @@ function validate(datasets: readonly FitDataset[], options: LjFitOptions): { all
     throw new LjFitInputError('bad-option', (err as Error).message);
   }
   if (repulsiveExponent !== LJ_REPULSIVE_EXPONENT) {
-    for (const dataset of datasets) {
-      const model: PropertyModel = PROPERTY_MODELS[dataset.kind];
-      if (!model.supportsMie) throw new LjFitInputError('bad-option', `dataset ${String(dataset.id)}: the ${model.label} model is for the LJ 12-6 potential only; a ${potentialLabel(repulsiveExponent)} fit takes B2 data today`);
+    for (const measurementSet of measurementSets) {
+      const model: PropertyModel = PROPERTY_MODELS[measurementSet.kind];
+      if (!model.supportsMie) throw new LjFitInputError('bad-option', `measurement set ${String(measurementSet.id)}: the ${model.label} model is for the LJ 12-6 potential only; a ${potentialLabel(repulsiveExponent)} fit takes ${MIE_KINDS_TEXT} data today`);
     }
   }
   const bounds = options.bounds ?? DEFAULT_LJ_BOUNDS;
@@ -315,26 +315,26 @@ const sumSquares = (r: ArrayLike<number>) => {
   return s;
 };
 
-/** Messages for the points a model cannot predict at (ε, σ), each naming its dataset and row. */
+/** Messages for the points a model cannot predict at (ε, σ), each naming its measurement set and row. */
 function rangeProblemsAt(points: readonly FlatPoint[], [epsilonK, sigmaAngstrom]: number[], context: PropertyContext): string[] {
   const out: string[] = [];
   for (const point of points) {
     const model: PropertyModel = PROPERTY_MODELS[point.kind];
     const problem = model.rangeProblem?.(modelPoint(point), epsilonK, sigmaAngstrom, context);
-    if (problem) out.push(`dataset ${String(point.datasetId)}, row ${point.rowNumber}: ${problem}`);
+    if (problem) out.push(`measurement set ${String(point.measurementSetId)}, row ${point.rowNumber}: ${problem}`);
   }
   return out;
 }
 
-/** Fits (ε/k_B, σ) to the datasets. Throws LjFitInputError on invalid input; fit trouble is reported in the result. */
+/** Fits (ε/k_B, σ) to the measurement sets. Throws LjFitInputError on invalid input; fit trouble is reported in the result. */
 export function fitLennardJones(
-  datasets: FitDataset[],
+  measurementSets: FitMeasurementSet[],
   options: LjFitOptions,
   onProgress?: (progress: { fraction: number; stage: string }) => void,
 ): LjFitResult {
   const report = (fraction: number, stage: string) => onProgress?.({ fraction, stage });
   report(0, 'validating input');
-  const { allPoints, points, bounds, context, held } = validate(datasets, options);
+  const { allPoints, points, bounds, context, held } = validate(measurementSets, options);
   const restarts = options.restarts ?? DEFAULT_RESTARTS;
   const warnings: string[] = [];
   const heldIndex = held.length ? held[0].index : null;
@@ -413,8 +413,8 @@ export function fitLennardJones(
     allPoints.forEach((point) => {
       const predicted = PROPERTY_MODELS[point.kind].evaluate(modelPoint(point), epsilonK, sigmaAngstrom, context).value;
       residuals.push({
-        datasetIndex: point.datasetIndex,
-        datasetId: point.datasetId,
+        measurementSetIndex: point.measurementSetIndex,
+        measurementSetId: point.measurementSetId,
         kind: point.kind,
         rowNumber: point.rowNumber,
         excluded: point.excluded,
@@ -431,14 +431,14 @@ export function fitLennardJones(
     residuals.length = 0;
     warnings.push('the model cannot be evaluated at the last iterate, so no per-point misfit is given');
   }
-  const perDataset: LjDatasetSummary[] = datasets.map((dataset, datasetIndex) => {
-    const mine = residuals.filter((r) => r.datasetIndex === datasetIndex && !r.excluded);
+  const perMeasurementSet: LjMeasurementSetSummary[] = measurementSets.map((measurementSet, measurementSetIndex) => {
+    const mine = residuals.filter((r) => r.measurementSetIndex === measurementSetIndex && !r.excluded);
     const relative = mine.filter((r) => r.relativeDeviationPercent !== null);
     return {
-      datasetId: dataset.id,
-      kind: dataset.kind,
-      points: allPoints.filter((p) => p.datasetIndex === datasetIndex && !p.excluded).length,
-      excludedPoints: allPoints.filter((p) => p.datasetIndex === datasetIndex && p.excluded).length,
+      measurementSetId: measurementSet.id,
+      kind: measurementSet.kind,
+      points: allPoints.filter((p) => p.measurementSetIndex === measurementSetIndex && !p.excluded).length,
+      excludedPoints: allPoints.filter((p) => p.measurementSetIndex === measurementSetIndex && p.excluded).length,
       rms: mine.length ? Math.sqrt(mine.reduce((s, r) => s + (r.predicted - r.measured) ** 2, 0) / mine.length) : NaN,
       aadPercent: relative.length ? relative.reduce((s, r) => s + Math.abs(r.relativeDeviationPercent as number), 0) / relative.length : null,
       chi2: mine.reduce((s, r) => s + r.residual * r.residual, 0),
@@ -537,7 +537,7 @@ export function fitLennardJones(
     start,
     bounds,
     residuals,
-    perDataset,
+    perMeasurementSet,
     ellipse95,
     restartsTried: starts.length - 1,
     quantumCorrection: context.quantumCorrection,

@@ -1,12 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import { b2WithGradient } from '../physics/virial';
-import { fitLennardJones, type FitDataset } from './lj-fit';
+import { fitLennardJones, type FitMeasurementSet } from './lj-fit';
 import { chi2Function, ljPosterior, posteriorPredictiveBand } from './lj-posterior';
 import { gaussianGenerator, mulberry32 } from './random';
 
 // Synthetic B2 tables from the exact quadrature (virial.ts) at a known truth, with Gaussian noise of the stated size.
 const TRUTH = { epsilonK: 150, sigmaAngstrom: 3.7 };
-function table(temperatures: number[], u: (b2: number) => number, gauss: () => number, truth = TRUTH): FitDataset {
+function table(temperatures: number[], u: (b2: number) => number, gauss: () => number, truth = TRUTH): FitMeasurementSet {
   return {
     id: 'synthetic',
     kind: 'b2',

@@ -19,7 +19,7 @@ function points(): MdStagePoint[] {
     const rho = massDensityKgPerM3(ljEosDensity(s.reducedTemperature, s.reducedPressure).reducedDensity, M, TRUE.sigmaAngstrom);
     // A small deterministic scatter (±0.5 %) so χ² is not zero.
     const value = rho * (1 + 0.005 * Math.sin(1.3 * i + 0.4));
-    return { datasetId: 1, datasetIndex: 0, kind: 'density' as const, rowNumber: i + 1, temperatureK: T, pressureMPa: P, value, uncertainty: 0.01 * rho, weight: 1 };
+    return { measurementSetId: 1, measurementSetIndex: 0, kind: 'density' as const, rowNumber: i + 1, temperatureK: T, pressureMPa: P, value, uncertainty: 0.01 * rho, weight: 1 };
   });
 }
 
@@ -58,6 +58,6 @@ describe('simulation stage: held parameter and rows left out', () => {
     // The left-out point shows its misfit (20 % high) but does not pull the fit: the answer is that of the other rows.
     expect(result.residuals[2].relativeDeviationPercent!).toBeLessThan(-10);
     expect(Math.abs(result.epsilonK - clean.epsilonK)).toBeLessThan(0.25 * clean.stdErr.epsilonK!);
-    expect(result.perDataset[0]).toMatchObject({ points: STATES.length - 1, excludedPoints: 1 });
+    expect(result.perMeasurementSet[0]).toMatchObject({ points: STATES.length - 1, excludedPoints: 1 });
   });
 });

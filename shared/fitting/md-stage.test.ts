@@ -16,7 +16,7 @@ function syntheticPoints(): MdStagePoint[] {
   return STATES.map(([T, P]) => {
     const s = reducedStateOf({ temperatureK: T, pressureMPa: P, ...TRUE });
     const rho = massDensityKgPerM3(ljEosDensity(s.reducedTemperature, s.reducedPressure).reducedDensity, M, TRUE.sigmaAngstrom);
-    return { datasetId: 1, datasetIndex: 0, kind: 'density' as const, temperatureK: T, pressureMPa: P, value: rho, uncertainty: RELATIVE_U * rho, weight: 1 };
+    return { measurementSetId: 1, measurementSetIndex: 0, kind: 'density' as const, temperatureK: T, pressureMPa: P, value: rho, uncertainty: RELATIVE_U * rho, weight: 1 };
   });
 }
 
@@ -97,7 +97,7 @@ describe('simulation stage of a density fit', () => {
   it('says so instead of simulating a point the equation of state puts in the solid region', async () => {
     // 100 K at 600 MPa for ε/k_B = 150 K, σ = 3.6 Å is T* = 0.67, P* = 18.9: below the triple-point temperature and
     // far beyond the liquid at freezing (Mastny & de Pablo 2007; ../physics/eos/lj-freezing.ts).
-    const points = [...syntheticPoints(), { datasetId: 1, datasetIndex: 0, kind: 'density' as const, temperatureK: 100, pressureMPa: 600, value: 1500, uncertainty: 15, weight: 1 }];
+    const points = [...syntheticPoints(), { measurementSetId: 1, measurementSetIndex: 0, kind: 'density' as const, temperatureK: 100, pressureMPa: 600, value: 1500, uncertainty: 15, weight: 1 }];
     const asked: MdStatePoint[] = [];
     const predictor = async (states: MdStatePoint[]): Promise<MdRunSummary[]> =>
       states.map((s, i) => {

@@ -1,12 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import { b2WithGradient } from '../physics/virial';
-import { fitLennardJones, type FitDataset } from './lj-fit';
+import { fitLennardJones, type FitMeasurementSet } from './lj-fit';
 import { compareModels, fitMieWithExponent, informationCriteria } from './mie-fit';
 import { gaussianGenerator, mulberry32 } from './random';
 
 // Synthetic B2 tables from the Mie quadrature (virial.ts, checked against an independent mpmath quadrature in
 // mie-potential.test.ts) at a known truth, 0.3 cm³/mol noise over a wide range of T*.
-function table(repulsiveExponent: number, seed: number): FitDataset {
+function table(repulsiveExponent: number, seed: number): FitMeasurementSet {
   const g = gaussianGenerator(mulberry32(seed));
   const temps = [90, 105, 120, 140, 165, 200, 250, 320, 420, 560, 750, 1000, 1400];
   return { id: `mie-${repulsiveExponent}`, kind: 'b2', rows: temps.map((t) => ({ temperatureK: t, value: b2WithGradient(t, 150, 3.7, undefined, { repulsiveExponent }).b2Cm3PerMol + 0.3 * g(), uncertainty: 0.3 })) };
@@ -48,9 +48,12 @@ describe('Mie λr-6 fits', () => {
     expect(cmp.preferred).not.toBe('Mie λr-6');
   });
 
-  it('refuses a Mie fit of a kind without a Mie model, naming the dataset', () => {
-    const eta: FitDataset = { id: 'eta-1', kind: 'viscosity', rows: [{ temperatureK: 300, value: 20, uncertainty: 0.1 }, { temperatureK: 400, value: 25, uncertainty: 0.1 }, { temperatureK: 500, value: 29, uncertainty: 0.1 }] };
-    expect(() => fitLennardJones([eta], { repulsiveExponent: 16, molarMassGPerMol: 58.1 })).toThrow(/dataset eta-1: the dilute-gas viscosity model is for the LJ 12-6 potential only; a Mie 16-6 fit takes B2 data today/);
+  it('refuses a Mie fit of a kind without a Mie model, naming the measurement set', () => {
+    // Viscosity has a Mie model now (mie-viscosity-fit.test.ts); B3 still has none.
+    const b3: FitMeasurementSet = { id: 'b3-1', kind: 'b3', rows: [{ temperatureK: 300, value: 2000, uncertainty: 100 }, { temperatureK: 400, value: 1800, uncertainty: 100 }, { temperatureK: 500, value: 1600, uncertainty: 100 }] };
+    expect(() => fitLennardJones([b3], { repulsiveExponent: 16, molarMassGPerMol: 58.1 })).toThrow(
+      /b3-1: the third virial coefficient B3 model is for the LJ 12-6 potential only; a Mie 16-6 fit takes B2 and dilute-gas viscosity data today/,
+    );
     expect(() => fitLennardJones([table(12, 1)], { repulsiveExponent: 40 })).toThrow(/from 8 to 36, got 40/);
   });
 });

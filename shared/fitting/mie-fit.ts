@@ -9,7 +9,7 @@
  * Gaussian errors with the stated uncertainties; Akaike 1974, Schwarz 1978).
  */
 import { REPULSIVE_EXPONENT_RANGE, potentialLabel } from '../physics/mie-potential';
-import { fitLennardJones, type FitDataset, type LjFitOptions, type LjFitResult } from './lj-fit';
+import { fitLennardJones, type FitMeasurementSet, type LjFitOptions, type LjFitResult } from './lj-fit';
 
 export interface RepulsiveExponentProfile {
   values: number[];
@@ -32,14 +32,14 @@ const GRID = [8, 9, 10, 11, 12, 13, 14, 15, 16, 17, 18, 20, 22, 24, 27, 30, 33, 
 const GOLDEN = (Math.sqrt(5) - 1) / 2;
 
 /** Fits (ε, σ, λr): see the file header. Throws LjFitInputError on bad input like fitLennardJones. */
-export function fitMieWithExponent(datasets: FitDataset[], options: LjFitOptions, onProgress?: (p: { fraction: number; stage: string }) => void): MieFitResult {
+export function fitMieWithExponent(measurementSets: FitMeasurementSet[], options: LjFitOptions, onProgress?: (p: { fraction: number; stage: string }) => void): MieFitResult {
   const cache = new Map<number, LjFitResult>();
   let warm = options.start;
   const at = (n: number): LjFitResult => {
     const key = Number(n.toPrecision(12));
     let fit = cache.get(key);
     if (!fit) {
-      fit = fitLennardJones(datasets, { ...options, repulsiveExponent: key, profiles: false, restarts: warm ? 0 : options.restarts, ...(warm ? { start: warm } : {}) });
+      fit = fitLennardJones(measurementSets, { ...options, repulsiveExponent: key, profiles: false, restarts: warm ? 0 : options.restarts, ...(warm ? { start: warm } : {}) });
       if (fit.status === 'succeeded') warm = { epsilonK: fit.epsilonK, sigmaAngstrom: fit.sigmaAngstrom };
       cache.set(key, fit);
     }
@@ -76,7 +76,7 @@ export function fitMieWithExponent(datasets: FitDataset[], options: LjFitOptions
   let best = (a + b) / 2;
   if (chi2(GRID[k]) < chi2(best)) best = GRID[k];
   onProgress?.({ fraction: 0.8, stage: `final fit at λr = ${best.toFixed(3)}` });
-  const final = fitLennardJones(datasets, { ...options, repulsiveExponent: Number(best.toPrecision(12)), ...(warm ? { start: warm } : {}) });
+  const final = fitLennardJones(measurementSets, { ...options, repulsiveExponent: Number(best.toPrecision(12)), ...(warm ? { start: warm } : {}) });
   const s2 = final.covarianceScaling === 'reduced-chi2' && final.reducedChi2 !== null && final.reducedChi2 > 0 ? final.reducedChi2 : 1;
   const chiMin = final.chi2;
   // Where the profile crosses chiMin + level, by bisection between the best λr and each end of the range.

@@ -1,12 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import { b2WithGradient } from '../physics/virial';
 import { covarianceFromJacobian } from './covariance';
-import { fitLennardJones, type FitDataset } from './lj-fit';
+import { fitLennardJones, type FitMeasurementSet } from './lj-fit';
 import { rankNextMeasurements } from './next-measurement';
 import { gaussianGenerator, mulberry32 } from './random';
 
 const TRUTH = { epsilonK: 150, sigmaAngstrom: 3.7 };
-function b2Table(temperatures: number[], seed: number): FitDataset {
+function b2Table(temperatures: number[], seed: number): FitMeasurementSet {
   const g = gaussianGenerator(mulberry32(seed));
   return {
     id: 'b2-high-t',

@@ -5,7 +5,7 @@
  * lemma, det C' / det C = 1 / (1 + gᵀ C g / u²), where C is the unscaled covariance (JᵀWJ)⁻¹ and u the kind's
  * typical standard uncertainty at that point. The area of the joint confidence region scales as √det C.
  */
-import type { FitDataset, LjFitResult, LjParameter } from './lj-fit';
+import type { FitMeasurementSet, LjFitResult, LjParameter } from './lj-fit';
 import { PROPERTY_MODELS, type FitKind, type PropertyContext } from './property-models';
 
 /** u(value) = max(floor, relative·|value|), in the kind's unit. */
@@ -69,8 +69,8 @@ const median = (values: number[]): number => {
  * relative part is the median u/|value| of the rows above that floor (rows at the floor say nothing about it, so
  * when every row is at the floor the kind's default relative part is used).
  */
-export function typicalUncertaintyFromData(datasets: readonly FitDataset[], kind: FitKind): TypicalUncertainty {
-  const rows = datasets.filter((d) => d.kind === kind).flatMap((d) => d.rows);
+export function typicalUncertaintyFromData(measurementSets: readonly FitMeasurementSet[], kind: FitKind): TypicalUncertainty {
+  const rows = measurementSets.filter((d) => d.kind === kind).flatMap((d) => d.rows);
   // A kind without a default here (a kind added later) is taken at 1 % (common practice, no source).
   const fallback = DEFAULT_TYPICAL_UNCERTAINTY[kind] ?? { floor: 0, relative: 0.01 };
   if (rows.length === 0) return fallback;
@@ -98,16 +98,16 @@ const KIND_WORDS: Partial<Record<FitKind, string>> = { b2: 'B2', viscosity: 'a v
  * Ranks candidate measurements for a succeeded fit (best first). Candidates where the model cannot be evaluated are
  * skipped. Held parameters are left out of the determinant (only the free ones are uncertain).
  */
-export function rankNextMeasurements(fit: LjFitResult, datasets: readonly FitDataset[], context: PropertyContext, options: NextMeasurementOptions = {}): Suggestion[] {
+export function rankNextMeasurements(fit: LjFitResult, measurementSets: readonly FitMeasurementSet[], context: PropertyContext, options: NextMeasurementOptions = {}): Suggestion[] {
   if (fit.status !== 'succeeded' || !fit.covarianceUnscaled) throw new Error('ranking next measurements needs a succeeded fit with a covariance');
   const names: LjParameter[] = ['epsilonK', 'sigmaAngstrom'];
   const free = [0, 1].filter((k) => !fit.heldParameters.includes(names[k]));
   const c = fit.covarianceUnscaled;
   const kinds = options.kinds ?? (Object.keys(PROPERTY_MODELS) as FitKind[]).filter((k) => !PROPERTY_MODELS[k].needsMolarMass || context.molarMassGPerMol !== undefined);
-  const fitPressures = [...new Set(datasets.filter((d) => d.kind === 'density').flatMap((d) => d.rows.map((r) => r.pressureMPa).filter((p): p is number => p !== undefined)))];
+  const fitPressures = [...new Set(measurementSets.filter((d) => d.kind === 'density').flatMap((d) => d.rows.map((r) => r.pressureMPa).filter((p): p is number => p !== undefined)))];
   const pressures = options.densityPressuresMPa ?? (fitPressures.length ? [Math.min(...fitPressures), median(fitPressures), Math.max(...fitPressures)].filter((p, i, a) => a.indexOf(p) === i) : [1, 10, 50]);
   const candidates = options.candidates ?? defaultCandidates(fit, kinds, pressures);
-  const uncertaintyOf = (kind: FitKind) => options.typicalUncertainty?.[kind] ?? typicalUncertaintyFromData(datasets, kind);
+  const uncertaintyOf = (kind: FitKind) => options.typicalUncertainty?.[kind] ?? typicalUncertaintyFromData(measurementSets, kind);
   const suggestions: Suggestion[] = [];
   for (const cand of candidates) {
     const model = PROPERTY_MODELS[cand.kind];

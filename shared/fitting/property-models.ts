@@ -1,5 +1,5 @@
 /**
- * Registry of the measured properties the Lennard-Jones fit understands, keyed by dataset kind.
+ * Registry of the measured properties the Lennard-Jones fit understands, keyed by measurement set kind.
  * Adding a property is one entry here: its model with the analytic gradient in (ε/k_B, σ).
  */
 import { densityWithGradient, reducedDensityOf, reducedStateOf } from '../physics/corresponding-states';
@@ -78,9 +78,11 @@ export const PROPERTY_MODELS = {
     needsMolarMass: true,
     needsPressure: false,
     sigmaExponent: -2,
+    supportsMie: true,
     evaluate(point, epsilonK, sigmaAngstrom, context) {
       if (context.molarMassGPerMol === undefined) throw new Error('the viscosity model needs the molar mass');
-      const p = viscosityWithGradient(point.temperatureK, epsilonK, sigmaAngstrom, context.molarMassGPerMol);
+      const mie = context.repulsiveExponent === undefined ? {} : { repulsiveExponent: context.repulsiveExponent };
+      const p = viscosityWithGradient(point.temperatureK, epsilonK, sigmaAngstrom, context.molarMassGPerMol, mie);
       return { value: p.viscosityMicroPaS, dEpsilonK: p.dEtadEpsilonK, dSigmaAngstrom: p.dEtadSigmaAngstrom };
     },
   },
@@ -156,6 +158,9 @@ export const PROPERTY_MODELS = {
 } satisfies Record<string, PropertyModel>;
 
 export type FitKind = keyof typeof PROPERTY_MODELS;
+
+/** The kinds with a Mie λr-6 model, in words for messages: "B2 and dilute-gas viscosity". */
+export const MIE_KINDS_TEXT = 'B2 and dilute-gas viscosity';
 
 export const FIT_KINDS = Object.keys(PROPERTY_MODELS) as FitKind[];
 

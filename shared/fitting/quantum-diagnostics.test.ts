@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { quantumB2 } from '../physics/quantum-b2';
-import { fitLennardJones, type FitDataset } from './lj-fit';
+import { fitLennardJones, type FitMeasurementSet } from './lj-fit';
 import { quantumDiagnostics } from './quantum-diagnostics';
 
 // Neon-like and helium-like LJ constants (Hirschfelder, Curtiss & Bird 1954, Table I-A, from memory).
@@ -23,7 +23,7 @@ describe('quantum diagnostics of a fit', () => {
 
   it('flags a classical fit to neon-like B2 as biased and reports Λ* with its standard error', () => {
     // Synthetic data: Feynman–Hibbs B2 of the neon-like gas at 45–200 K with u = 0.2 cm³/mol.
-    const data: FitDataset[] = [{ id: 'ne', kind: 'b2', rows: [45, 60, 80, 110, 150, 200].map((t) => ({ temperatureK: t, value: quantumB2(t, NE.epsilonK, NE.sigmaAngstrom, NE.molarMass).feynmanHibbsCm3PerMol, uncertainty: 0.2 })) }];
+    const data: FitMeasurementSet[] = [{ id: 'ne', kind: 'b2', rows: [45, 60, 80, 110, 150, 200].map((t) => ({ temperatureK: t, value: quantumB2(t, NE.epsilonK, NE.sigmaAngstrom, NE.molarMass).feynmanHibbsCm3PerMol, uncertainty: 0.2 })) }];
     const classical = fitLennardJones(data, { molarMassGPerMol: NE.molarMass, profiles: false } as Parameters<typeof fitLennardJones>[1]);
     expect(classical.status).toBe('succeeded');
     expect(classical.deBoerParameter).toBeGreaterThan(0.55);

@@ -1,16 +1,16 @@
 import { describe, expect, it } from 'vitest';
 import { b2WithGradient } from '../physics/virial';
 import { viscosityWithGradient } from '../physics/viscosity';
-import type { FitDataset } from './lj-fit';
+import type { FitMeasurementSet } from './lj-fit';
 import { gaussianGenerator, mulberry32 } from './random';
 import { kindTension, regionsOverlap } from './tension';
 
 const M = 58.1; // g/mol, an invented molar mass
-function b2(truth: { epsilonK: number; sigmaAngstrom: number }, seed: number): FitDataset {
+function b2(truth: { epsilonK: number; sigmaAngstrom: number }, seed: number): FitMeasurementSet {
   const g = gaussianGenerator(mulberry32(seed));
   return { id: 'b2', kind: 'b2', rows: [120, 150, 190, 240, 320, 450, 650].map((t) => ({ temperatureK: t, value: b2WithGradient(t, truth.epsilonK, truth.sigmaAngstrom).b2Cm3PerMol + 0.5 * g(), uncertainty: 0.5 })) };
 }
-function eta(truth: { epsilonK: number; sigmaAngstrom: number }, seed: number): FitDataset {
+function eta(truth: { epsilonK: number; sigmaAngstrom: number }, seed: number): FitMeasurementSet {
   const g = gaussianGenerator(mulberry32(seed));
   return {
     id: 'eta',
@@ -51,7 +51,7 @@ describe('tension between kinds of data', () => {
   });
 
   it('a kind with too few points to fix both parameters is named, not compared', () => {
-    const few: FitDataset = { ...b2({ epsilonK: 150, sigmaAngstrom: 3.7 }, 3), rows: b2({ epsilonK: 150, sigmaAngstrom: 3.7 }, 3).rows.slice(0, 2) };
+    const few: FitMeasurementSet = { ...b2({ epsilonK: 150, sigmaAngstrom: 3.7 }, 3), rows: b2({ epsilonK: 150, sigmaAngstrom: 3.7 }, 3).rows.slice(0, 2) };
     const t = kindTension([few, eta({ epsilonK: 150, sigmaAngstrom: 3.7 }, 2)], { molarMassGPerMol: M, restarts: 0 });
     expect(t.regions[0]).toMatchObject({ kind: 'b2', constrainsBoth: false });
     expect(t.regions[0].reason).toMatch(/2 point\(s\) of the second virial coefficient B2 alone cannot fix two parameters/);

@@ -6,7 +6,7 @@
  * found here by bisection in t (common practice in convex analysis, no source).
  */
 import { jointConfidenceEllipse } from './ellipse';
-import { fitLennardJones, type FitDataset, type LjFitOptions, type LjFitResult } from './lj-fit';
+import { fitLennardJones, type FitMeasurementSet, type LjFitOptions, type LjFitResult } from './lj-fit';
 import { PROPERTY_MODELS, type FitKind } from './property-models';
 
 export interface Region {
@@ -81,13 +81,13 @@ function regionOf(fit: LjFitResult, points: number): Region | null {
 
 const LABEL = (kind: FitKind) => PROPERTY_MODELS[kind].label;
 
-/** Fits each kind of the datasets alone and says where their 95 % regions do not overlap. */
-export function kindTension(datasets: readonly FitDataset[], options: LjFitOptions): KindTension {
-  const kinds = [...new Set(datasets.map((d) => d.kind))];
+/** Fits each kind of the measurement sets alone and says where their 95 % regions do not overlap. */
+export function kindTension(measurementSets: readonly FitMeasurementSet[], options: LjFitOptions): KindTension {
+  const kinds = [...new Set(measurementSets.map((d) => d.kind))];
   const regions: KindRegion[] = [];
   const shapes = new Map<FitKind, Region>();
   for (const kind of kinds) {
-    const mine = datasets.filter((d) => d.kind === kind);
+    const mine = measurementSets.filter((d) => d.kind === kind);
     const points = mine.reduce((s, d) => s + d.rows.length - (d.excludeRows?.length ?? 0), 0);
     if (points < 3) {
       regions.push({ kind, constrainsBoth: false, reason: `${points} point(s) of the ${LABEL(kind)} alone cannot fix two parameters with an uncertainty (3 are needed)` });

@@ -5,13 +5,13 @@
  * shared/physics/third-virial.test.ts and shared/physics/eos/thol-2016.test.ts.
  */
 import { describe, expect, it } from 'vitest';
-import { fitLennardJones, type FitDataset } from './lj-fit';
+import { fitLennardJones, type FitMeasurementSet } from './lj-fit';
 import { PROPERTY_MODELS, type FitKind } from './property-models';
 
 const TRUE = { epsilonK: 160, sigmaAngstrom: 3.6 };
 const M = 44; // g/mol, invented
 
-function synthetic(kind: FitKind, temperatures: number[], relative: number, id: string): FitDataset {
+function synthetic(kind: FitKind, temperatures: number[], relative: number, id: string): FitMeasurementSet {
   return {
     id,
     kind,
@@ -35,7 +35,7 @@ describe('fits with saturation properties and B3', () => {
     expect(r.epsilonK).toBeCloseTo(TRUE.epsilonK, 3);
     expect(r.sigmaAngstrom).toBeCloseTo(TRUE.sigmaAngstrom, 5);
     expect(r.chi2).toBeLessThan(1e-6);
-    expect(r.perDataset.map((d) => d.kind)).toEqual(['b2', 'saturatedLiquidDensity', 'vapourPressure', 'saturatedVapourDensity']);
+    expect(r.perMeasurementSet.map((d) => d.kind)).toEqual(['b2', 'saturatedLiquidDensity', 'vapourPressure', 'saturatedVapourDensity']);
   });
 
   it('lets the fit use JZG 1993 or Kolafa–Nezbeda 1994 instead of Thol 2016 for comparison', () => {
@@ -64,6 +64,6 @@ describe('fits with saturation properties and B3', () => {
     liquid.rows.push({ temperatureK: 240, value: 600, uncertainty: 50 });
     const r = fitLennardJones([synthetic('b2', [200, 260, 320, 400, 500], 0.005, 'b2'), liquid], { molarMassGPerMol: M, profiles: false } as Parameters<typeof fitLennardJones>[1]);
     expect(r.status).toBe('failed');
-    expect(r.failureReason).toMatch(/dataset liq, row 5: T = 240 K is at or above the critical temperature of the Thol et al\. \(2016\) equation/);
+    expect(r.failureReason).toMatch(/measurement-set liq, row 5: T = 240 K is at or above the critical temperature of the Thol et al\. \(2016\) equation/);
   });
 });

@@ -325,7 +325,7 @@ export function parseMeasurementCsv(text: string, options: ParseOptions = {}): P
   if (dataRecords.length > maxRows) {
     problems.add({
       code: 'too-many-rows',
-      message: `The file has ${dataRecords.length} data rows; at most ${maxRows} are accepted per upload. Split it into several datasets.`,
+      message: `The file has ${dataRecords.length} data rows; at most ${maxRows} are accepted per upload. Split it into several measurement sets.`,
     });
     return result({ kind, decimal, columns, unmappedColumns });
   }

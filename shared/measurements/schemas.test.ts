@@ -4,8 +4,8 @@ import {
   apiRowSchemas,
   canonicalRowSchema,
   createSubstanceBody,
-  datasetUploadFields,
-  datasetVersionFields,
+  measurementSetUploadFields,
+  measurementSetVersionFields,
   updateSubstanceBody,
 } from '../schemas/measurements';
 import { parseMeasurementCsv } from './parse-measurement-csv';
@@ -34,36 +34,36 @@ describe('substance bodies', () => {
   });
 });
 
-describe('dataset upload fields (multipart strings)', () => {
-  const base = { substanceId: '3', property: 'density', name: 'Isotherms 2026' };
+describe('measurement set upload fields (multipart strings)', () => {
+  const base = { substanceId: '3', kind: 'density', name: 'Isotherms 2026' };
   test('coerces ids and the default relative uncertainty, drops blank optional fields', () => {
-    const f = datasetUploadFields.parse({ ...base, defaultRelativeUncertainty: '0.005', source: '', doi: '', mapping: '' });
-    expect(f).toEqual({ substanceId: 3, property: 'density', name: 'Isotherms 2026', defaultRelativeUncertainty: 0.005 });
+    const f = measurementSetUploadFields.parse({ ...base, defaultRelativeUncertainty: '0.005', source: '', doi: '', mapping: '' });
+    expect(f).toEqual({ substanceId: 3, kind: 'density', name: 'Isotherms 2026', defaultRelativeUncertainty: 0.005 });
   });
   test('defaultRelativeUncertainty must satisfy 0 < x ≤ 1', () => {
-    for (const bad of ['0', '-0.1', '1.5', 'abc']) expect(datasetVersionFields.safeParse({ defaultRelativeUncertainty: bad }).success).toBe(false);
-    expect(datasetVersionFields.parse({ defaultRelativeUncertainty: '1' }).defaultRelativeUncertainty).toBe(1);
+    for (const bad of ['0', '-0.1', '1.5', 'abc']) expect(measurementSetVersionFields.safeParse({ defaultRelativeUncertainty: bad }).success).toBe(false);
+    expect(measurementSetVersionFields.parse({ defaultRelativeUncertainty: '1' }).defaultRelativeUncertainty).toBe(1);
   });
   test('DOI: pattern 10.<registrant>/<suffix> (DOI Handbook, sec. 2.2, from memory); resolver prefixes stripped', () => {
-    expect(datasetVersionFields.parse({ doi: '10.1063/1.555555' }).doi).toBe('10.1063/1.555555');
-    expect(datasetVersionFields.parse({ doi: 'https://doi.org/10.1021/je0000000' }).doi).toBe('10.1021/je0000000');
-    expect(datasetVersionFields.parse({ doi: 'doi:10.1016/j.fluid.2020.112345' }).doi).toBe('10.1016/j.fluid.2020.112345');
-    for (const bad of ['1063/1.555', '10.12/abc', '10.1063/', 'not a doi']) expect(datasetVersionFields.safeParse({ doi: bad }).success).toBe(false);
+    expect(measurementSetVersionFields.parse({ doi: '10.1063/1.555555' }).doi).toBe('10.1063/1.555555');
+    expect(measurementSetVersionFields.parse({ doi: 'https://doi.org/10.1021/je0000000' }).doi).toBe('10.1021/je0000000');
+    expect(measurementSetVersionFields.parse({ doi: 'doi:10.1016/j.fluid.2020.112345' }).doi).toBe('10.1016/j.fluid.2020.112345');
+    for (const bad of ['1063/1.555', '10.12/abc', '10.1063/', 'not a doi']) expect(measurementSetVersionFields.safeParse({ doi: bad }).success).toBe(false);
   });
-  test('property enum, delimiter and decimal names', () => {
-    expect(datasetUploadFields.safeParse({ ...base, property: 'enthalpy' }).success).toBe(false);
-    expect(datasetVersionFields.parse({ delimiter: 'tab', decimal: 'comma' })).toEqual({ delimiter: '\t', decimal: ',' });
-    expect(datasetVersionFields.parse({ delimiter: ';', decimal: '.' })).toEqual({ delimiter: ';', decimal: '.' });
-    expect(datasetVersionFields.safeParse({ delimiter: '|' }).success).toBe(false);
+  test('kind enum, delimiter and decimal names', () => {
+    expect(measurementSetUploadFields.safeParse({ ...base, kind: 'enthalpy' }).success).toBe(false);
+    expect(measurementSetVersionFields.parse({ delimiter: 'tab', decimal: 'comma' })).toEqual({ delimiter: '\t', decimal: ',' });
+    expect(measurementSetVersionFields.parse({ delimiter: ';', decimal: '.' })).toEqual({ delimiter: ';', decimal: '.' });
+    expect(measurementSetVersionFields.safeParse({ delimiter: '|' }).success).toBe(false);
   });
   test('mapping: a JSON string parsed and validated', () => {
     const mapping = '{"0":{"quantity":"temperature","unit":"degC"},"2":{"quantity":"ignore"}}';
-    expect(datasetVersionFields.parse({ mapping }).mapping).toEqual({ 0: { quantity: 'temperature', unit: 'degC' }, 2: { quantity: 'ignore' } });
-    const bad = datasetVersionFields.safeParse({ mapping: '{not json' });
+    expect(measurementSetVersionFields.parse({ mapping }).mapping).toEqual({ 0: { quantity: 'temperature', unit: 'degC' }, 2: { quantity: 'ignore' } });
+    const bad = measurementSetVersionFields.safeParse({ mapping: '{not json' });
     expect(bad.success).toBe(false);
     expect(bad.error?.issues[0].message).toMatch(/mapping must be JSON/);
-    expect(datasetVersionFields.safeParse({ mapping: '{"0":{"quantity":"entropy"}}' }).success).toBe(false);
-    expect(datasetVersionFields.safeParse({ mapping: '{"a":{"quantity":"temperature"}}' }).success).toBe(false);
+    expect(measurementSetVersionFields.safeParse({ mapping: '{"0":{"quantity":"entropy"}}' }).success).toBe(false);
+    expect(measurementSetVersionFields.safeParse({ mapping: '{"a":{"quantity":"temperature"}}' }).success).toBe(false);
   });
 });
 

@@ -7,8 +7,8 @@
 import type { LjResidual } from '../fitting/lj-fit';
 import { PROPERTY_MODELS, type FitKind, type PropertyContext } from '../fitting/property-models';
 
-export interface DatasetDeviation {
-  datasetId: string | number;
+export interface MeasurementSetDeviation {
+  measurementSetId: string | number;
   kind: FitKind;
   points: number;
   /** √(mean (model − measured)²), in the set's unit (cm³/mol for B2, µPa·s for viscosity, kg/m³ for density). */
@@ -19,15 +19,15 @@ export interface DatasetDeviation {
   skipped: number;
 }
 
-export function datasetDeviations(
-  points: ReadonlyArray<Pick<LjResidual, 'datasetId' | 'kind' | 'temperatureK' | 'measured'> & { pressureMPa?: number }>,
+export function measurementSetDeviations(
+  points: ReadonlyArray<Pick<LjResidual, 'measurementSetId' | 'kind' | 'temperatureK' | 'measured'> & { pressureMPa?: number }>,
   epsilonK: number,
   sigmaAngstrom: number,
   context: PropertyContext,
-): DatasetDeviation[] {
-  const ids = [...new Set(points.map((p) => String(p.datasetId)))];
+): MeasurementSetDeviation[] {
+  const ids = [...new Set(points.map((p) => String(p.measurementSetId)))];
   return ids.map((id) => {
-    const mine = points.filter((p) => String(p.datasetId) === id);
+    const mine = points.filter((p) => String(p.measurementSetId) === id);
     let sumSq = 0;
     let n = 0;
     let sumRel = 0;
@@ -46,6 +46,6 @@ export function datasetDeviations(
         nRel += 1;
       }
     }
-    return { datasetId: mine[0].datasetId, kind: mine[0].kind, points: mine.length, rms: n ? Math.sqrt(sumSq / n) : NaN, aadPercent: nRel ? sumRel / nRel : null, skipped: mine.length - n };
+    return { measurementSetId: mine[0].measurementSetId, kind: mine[0].kind, points: mine.length, rms: n ? Math.sqrt(sumSq / n) : NaN, aadPercent: nRel ? sumRel / nRel : null, skipped: mine.length - n };
   });
 }

@@ -18,13 +18,13 @@ export const FIELD_LABELS: Record<string, string> = {
   reason: 'Reason',
   body: 'Comment',
   substanceId: 'Substance',
-  datasets: 'Measurement sets',
-  'datasets.*.id': 'Measurement set',
-  'datasets.*.version': 'Version of the measurement set',
-  'datasets.*.weight': 'Weight of the measurement set',
-  'datasets.*.excludeRows': 'Rows left out',
-  'datasets.*.excludeRows.*': 'Rows left out',
-  'datasets.*.excludeReason': 'Reason for leaving rows out',
+  measurementSets: 'Measurement sets',
+  'measurementSets.*.id': 'Measurement set',
+  'measurementSets.*.version': 'Version of the measurement set',
+  'measurementSets.*.weight': 'Weight of the measurement set',
+  'measurementSets.*.excludeRows': 'Rows left out',
+  'measurementSets.*.excludeRows.*': 'Rows left out',
+  'measurementSets.*.excludeReason': 'Reason for leaving rows out',
   fixed: 'Hold a parameter',
   'fixed.epsilonK': 'Hold ε/k_B (K)',
   'fixed.sigmaAngstrom': 'Hold σ (Å)',
@@ -62,8 +62,8 @@ export const FIELD_LABELS: Record<string, string> = {
   roles: 'Roles',
   formula: 'Formula',
   description: 'Description',
-  molarMassGramsPerMol: 'Molar mass (g/mol)',
-  property: 'Property',
+  molarMassGPerMol: 'Molar mass (g/mol)',
+  kind: 'Kind',
   source: 'Source (citation)',
   doi: 'DOI',
   method: 'Measurement method',
@@ -74,11 +74,11 @@ export const FIELD_LABELS: Record<string, string> = {
   id: 'Number in the address',
 };
 
-/** The form label of a request field path such as `validity.temperatureMaxK` or `datasets.0.excludeRows.2`. */
+/** The form label of a request field path such as `validity.temperatureMaxK` or `measurementSets.0.excludeRows.2`. */
 export function fieldLabel(path: string): string {
   const pattern = path.replace(/\.\d+(?=\.|$)/g, '.*');
   const direct = FIELD_LABELS[pattern];
-  const index = /^datasets\.(\d+)/.exec(path);
+  const index = /^measurementSets\.(\d+)/.exec(path);
   const which = index ? ` (measurement set ${Number(index[1]) + 1} of the request)` : '';
   if (direct) return `${direct}${which}`;
   const last = pattern.split('.').filter((p) => p !== '*').pop() ?? path;

@@ -6,6 +6,7 @@
 import { z } from 'zod';
 import { PROPERTY_KIND_IDS, QUANTITIES, type PropertyKind, type QuantityKey } from '../measurements/property-kinds';
 import type { ColumnMapping } from '../measurements/headers';
+import { acceptOldFields } from './old-names';
 
 /** Multipart and HTML forms send "" for an empty optional field: treat it as absent. */
 const blankToUndefined = (v: unknown) => (typeof v === 'string' && v.trim() === '' ? undefined : v);
@@ -114,8 +115,8 @@ export const relativeUncertaintySchema = z.coerce
   .gt(0, 'default relative uncertainty must be greater than 0')
   .lte(1, 'default relative uncertainty must be at most 1 (100 %)');
 
-/** Fields of a new version of an existing dataset (multipart, with the file in "file"). */
-export const datasetVersionFields = z.object({
+/** Fields of a new version of an existing measurement set (multipart, with the file in "file"). */
+export const measurementSetVersionFields = z.object({
   source: optionalText(500),
   doi: z.preprocess(blankToUndefined, doiSchema.optional()),
   method: optionalText(500),
@@ -125,15 +126,18 @@ export const datasetVersionFields = z.object({
   decimal: z.preprocess(blankToUndefined, decimalSchema.optional()),
   mapping: z.preprocess(blankToUndefined, mappingFieldSchema.optional()),
 });
-export type DatasetVersionFields = z.infer<typeof datasetVersionFields>;
+export type MeasurementSetVersionFields = z.infer<typeof measurementSetVersionFields>;
 
-/** Fields of a new dataset upload (multipart, with the file in "file"). */
-export const datasetUploadFields = datasetVersionFields.extend({
-  substanceId: z.coerce.number({ error: 'substanceId must be a number' }).int().positive(),
-  property: propertyKindSchema,
-  name: z.string().trim().min(1, 'name is required').max(200, 'at most 200 characters'),
-});
-export type DatasetUploadFields = z.infer<typeof datasetUploadFields>;
+/** Fields of a new measurement set upload (multipart, with the file in "file"). */
+export const measurementSetUploadFields = acceptOldFields(
+  measurementSetVersionFields.extend({
+    substanceId: z.coerce.number({ error: 'substanceId must be a number' }).int().positive(),
+    kind: propertyKindSchema,
+    name: z.string().trim().min(1, 'name is required').max(200, 'at most 200 characters'),
+  }),
+  [['property', 'kind']],
+);
+export type MeasurementSetUploadFields = z.infer<typeof measurementSetUploadFields>;
 
 /** Canonical rows as the API returns them (units in field names). */
 const rowCommon = {
@@ -212,7 +216,7 @@ export const canonicalRowSchema = z.discriminatedUnion('kind', [
 ]);
 export type CanonicalRowSchema = z.infer<typeof canonicalRowSchema>;
 
-/** Rows as GET /datasets/:id returns them (the kind is given once for the dataset), by kind. */
+/** Rows as GET /measurement-sets/:id returns them (the kind is given once for the measurement set), by kind. */
 export const apiRowSchemas = {
   b2: b2RowSchema.omit({ kind: true }),
   density: densityRowSchema.omit({ kind: true }),

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { acceptOldFields } from './old-names';
 
 /** POST /api/pair-sets: fit k_ij (and l_ij with fitLij) to a B12 measurement set with two approved parameter sets fixed. */
 export const pairSetCreateBody = z.object({
@@ -6,9 +7,10 @@ export const pairSetCreateBody = z.object({
     .array(z.number().int().positive())
     .length(2, 'give exactly two approved parameter sets')
     .refine((ids) => ids[0] !== ids[1], 'the two parameter sets must differ'),
-  datasetId: z.number().int().positive(),
+  measurementSetId: z.number().int().positive(),
   fitLij: z.boolean().optional(),
 });
+acceptOldFields(pairSetCreateBody, [['datasetId', 'measurementSetId']]); // vocabulary: keep (the old name, still accepted)
 export type PairSetCreateBody = z.infer<typeof pairSetCreateBody>;
 
 export const pairSetReviewBody = z.object({
@@ -28,7 +30,7 @@ export interface PairSetView {
   state: PairSetState;
   setA: { id: number; version: number; substanceId: number; substanceName: string; epsilonK: number; sigmaAngstrom: number };
   setB: { id: number; version: number; substanceId: number; substanceName: string; epsilonK: number; sigmaAngstrom: number };
-  dataset: { id: number; name: string; version: number; versionId: number };
+  measurementSet: { id: number; name: string; version: number; versionId: number };
   fitLij: boolean;
   kij: number;
   kijStdErr: number | null;

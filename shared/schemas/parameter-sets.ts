@@ -3,6 +3,7 @@
  * Units in names: K for ε/k_B and temperatures, Å for σ, MPa for pressures, cutoffs in units of σ.
  */
 import { z } from 'zod';
+import { acceptOldFields } from './old-names';
 
 /**
  * The cutoff treatment the parameters are meant for. B2 and dilute-gas viscosity see the whole pair
@@ -88,10 +89,11 @@ export const updateParameterSetBody = z
   .object({ rationale: rationale.optional(), validity: validitySchema.optional() })
   .strict()
   .refine((v) => v.rationale !== undefined || v.validity !== undefined, { message: 'give rationale or validity' });
+acceptOldFields(updateParameterSetBody, [['datasets', 'measurementSets']]); // vocabulary: keep (a frozen field, refused by its old name too)
 export type UpdateParameterSetBody = z.infer<typeof updateParameterSetBody>;
 
 /** Fields a PATCH can never change: they are frozen at creation (answered 409, not 400). */
-export const FROZEN_FIELDS = ['epsilonK', 'sigmaAngstrom', 'stdErr', 'correlation', 'scheme', 'cutoffSigma', 'version', 'fitId', 'substanceId', 'model', 'datasets', 'state'] as const;
+export const FROZEN_FIELDS = ['epsilonK', 'sigmaAngstrom', 'stdErr', 'correlation', 'scheme', 'cutoffSigma', 'version', 'fitId', 'substanceId', 'model', 'measurementSets', 'state'] as const;
 
 /** POST /api/parameter-sets/:id/review */
 export const reviewParameterSetBody = z

@@ -16,22 +16,22 @@ export const signInBody = z.object({
 });
 export type SignInBody = z.infer<typeof signInBody>;
 
-export const createUserBody = z.object({
+export const createPersonBody = z.object({
   email: emailSchema,
   name: z.string().trim().min(1, 'is required').max(120),
   roles: z.array(roleSchema).min(1, 'give at least one role'),
   password: passwordSchema,
 });
-export type CreateUserBody = z.infer<typeof createUserBody>;
+export type CreatePersonBody = z.infer<typeof createPersonBody>;
 
-export const updateUserBody = z
+export const updatePersonBody = z
   .object({
     name: z.string().trim().min(1).max(120).optional(),
     roles: z.array(roleSchema).min(1, 'give at least one role').optional(),
     active: z.boolean().optional(),
   })
   .refine((v) => Object.keys(v).length > 0, { message: 'give at least one of name, roles, active' });
-export type UpdateUserBody = z.infer<typeof updateUserBody>;
+export type UpdatePersonBody = z.infer<typeof updatePersonBody>;
 
 export const changePasswordBody = z.object({
   currentPassword: z.string().min(1, 'is required'),

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { acceptOldFields } from './old-names';
 
 /**
  * Per-request limits of one NPT run. A density fit needs 256 atoms × 10 000 steps (seconds); the caps keep one
@@ -35,13 +36,14 @@ export const createSimulationBody = mdSettingsSchema
   .superRefine(withinWorkLimit);
 export type CreateSimulationBody = z.infer<typeof createSimulationBody>;
 
-/** POST /api/simulations/from-dataset: state points of a density set, mapped to reduced units with trial ε and σ. */
-export const simulationsFromDatasetBody = mdSettingsSchema.extend({
-  datasetId: z.number().int().positive(),
+/** POST /api/simulations/from-measurement-set: state points of a density set, mapped to reduced units with trial ε and σ. */
+export const simulationsFromMeasurementSetBody = mdSettingsSchema.extend({
+  measurementSetId: z.number().int().positive(),
   version: z.number().int().positive().optional(),
-  /** File rows (as shown on the dataset page) to simulate; all rows when absent. */
+  /** File rows (as shown on the measurement set page) to simulate; all rows when absent. */
   rows: z.array(z.number().int().positive()).max(200).optional(),
   epsilonK: z.number().gt(0).max(10000),
   sigmaAngstrom: z.number().gt(0).max(30),
 }).superRefine(withinWorkLimit);
-export type SimulationsFromDatasetBody = z.infer<typeof simulationsFromDatasetBody>;
+acceptOldFields(simulationsFromMeasurementSetBody, [['datasetId', 'measurementSetId']]); // vocabulary: keep (the old name, still accepted)
+export type SimulationsFromMeasurementSetBody = z.infer<typeof simulationsFromMeasurementSetBody>;

@@ -1,5 +1,5 @@
 import { createContext, useContext, type ReactNode } from 'react';
-import type { Me } from '@shared/schemas/users';
+import type { Me } from '@shared/schemas/people';
 
 const SignedInContext = createContext<Me | null>(null);
 

@@ -25,18 +25,18 @@ export async function approvedSet(
   t: TestApp,
   people: { modeller: Agent; reviewer: Agent },
   input: { substanceId: number; epsilonK: number; sigmaAngstrom: number; shift?: number; temperaturesK?: number[]; doi?: string; scheme?: 'truncated-shifted'; cutoffSigma?: number },
-): Promise<{ setId: number; fitId: number; datasetId: number }> {
+): Promise<{ setId: number; fitId: number; measurementSetId: number }> {
   const { modeller, reviewer } = people;
   const up = await modeller
-    .post('/api/datasets')
+    .post('/api/measurement-sets')
     .field('substanceId', input.substanceId)
-    .field('property', 'b2')
+    .field('kind', 'b2')
     .field('name', `Synthetic B2 ${input.epsilonK} K`)
     .field('source', 'Fenwick Thermophysics Laboratory, invented catalog run')
     .field('doi', input.doi ?? '10.1000/epsigma.catalog.1')
     .attach('file', syntheticB2Csv(input.epsilonK, input.sigmaAngstrom, input.shift, input.temperaturesK), { filename: 'b2.csv', contentType: 'text/csv' });
   expect(up.status, JSON.stringify(up.body)).toBe(201);
-  const fit = await modeller.post('/api/fits').send({ substanceId: input.substanceId, datasets: [{ id: up.body.id }] });
+  const fit = await modeller.post('/api/fits').send({ substanceId: input.substanceId, measurementSets: [{ id: up.body.id }] });
   expect(fit.status).toBe(202);
   const job = await t.ctx.jobs.waitFor(fit.body.jobId);
   expect(job.status).toBe('succeeded');
@@ -49,5 +49,5 @@ export async function approvedSet(
   expect((await modeller.post(`/api/parameter-sets/${draft.body.id}/submit`)).status).toBe(200);
   const approve = await reviewer.post(`/api/parameter-sets/${draft.body.id}/review`).send({ decision: 'approve', comment: 'Checked against the data; approved.' });
   expect(approve.status, JSON.stringify(approve.body)).toBe(200);
-  return { setId: draft.body.id, fitId: fit.body.id, datasetId: up.body.id };
+  return { setId: draft.body.id, fitId: fit.body.id, measurementSetId: up.body.id };
 }

@@ -1,7 +1,7 @@
 import Papa from 'papaparse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { checkJsonSchema } from '../../shared/export/json-schema-check';
-import { TOKEN_ROUTES } from '../../server/common/bearer-token';
+import { TOKEN_ROUTES } from '../../server/features/tokens/token-routes';
 import { approvedSet, newSubstance } from './approved-set';
 import { EMAIL, startTestApp, type TestApp } from './test-app';
 
@@ -112,7 +112,7 @@ describe('catalog', () => {
   it('the card shows approval, sources, fit statistics and the versions with what changed', async () => {
     const card = (await consumer.get(`/api/catalog/${v1}`)).body;
     expect(card).toMatchObject({ id: v1, state: 'superseded', exportable: true, currentApprovedId: v2 });
-    expect(card.datasets[0]).toMatchObject({ kind: 'b2', doi: '10.1000/epsigma.catalog.1', source: expect.stringContaining('Fenwick') });
+    expect(card.measurementSets[0]).toMatchObject({ kind: 'b2', doi: '10.1000/epsigma.catalog.1', source: expect.stringContaining('Fenwick') });
     expect(card.fit.reducedChi2).toEqual(expect.any(Number));
     expect(card.versions.map((v: { id: number }) => v.id)).toEqual([v1, v2]);
     const [first, second] = card.versions;
@@ -156,7 +156,7 @@ describe('export', () => {
     // One known figure: 1 K × R = 8.314462618 J/mol (CODATA 2018 R, to the digits published).
     expect(R_J_PER_MOL_K).toBeCloseTo(8.314462618, 9);
     expect(doc.parameterSet).toMatchObject({ id: v2, version: 2, state: 'approved', approvedBy: card.approvedByName });
-    expect(doc.provenance.datasets[0].doi).toBe('10.1000/epsigma.catalog.1');
+    expect(doc.provenance.measurementSets[0].doi).toBe('10.1000/epsigma.catalog.1');
   });
 
   it('CSV carries the chosen units and the engine fragments the engines’ own units', async () => {

@@ -4,14 +4,14 @@ import { EMAIL, startTestApp, type TestApp } from './test-app';
 let t: TestApp;
 let modeller: Awaited<ReturnType<TestApp['signIn']>>;
 let substanceId: number;
-let datasets: Array<{ id: number; property: string }>;
+let measurementSets: Array<{ id: number; kind: string }>;
 
 beforeAll(async () => {
   t = await startTestApp({ WORKERS: '2' });
   modeller = await t.signIn(EMAIL.modeller);
   const list = await modeller.get('/api/substances');
   substanceId = list.body.substances.find((s: { name: string }) => s.name === 'Quillgas QG-1').id;
-  datasets = (await modeller.get(`/api/datasets?substanceId=${substanceId}`)).body.datasets;
+  measurementSets = (await modeller.get(`/api/measurement-sets?substanceId=${substanceId}`)).body.measurementSets;
 });
 afterAll(() => t.close());
 
@@ -25,7 +25,7 @@ describe('a joint B2 + density fit through the API', () => {
   it('runs the equation-of-state stage, then simulations, and reuses every run on a second identical fit', async () => {
     const body = {
       substanceId,
-      datasets: datasets.filter((d) => d.property === 'b2' || d.property === 'density').map((d) => ({ id: d.id })),
+      measurementSets: measurementSets.filter((d) => d.kind === 'b2' || d.kind === 'density').map((d) => ({ id: d.id })),
       options: { density: SMALL, restarts: 0 },
     };
     const first = await modeller.post('/api/fits').send(body);
@@ -73,7 +73,7 @@ describe('a joint B2 + density fit through the API', () => {
   }, 600_000);
 
   it('refuses engine settings out of range with 400 naming the field', async () => {
-    const res = await modeller.post('/api/fits').send({ substanceId, datasets: [{ id: datasets[0].id }], options: { density: { atoms: 5, cutoff: 9 } } });
+    const res = await modeller.post('/api/fits').send({ substanceId, measurementSets: [{ id: measurementSets[0].id }], options: { density: { atoms: 5, cutoff: 9 } } });
     expect(res.status).toBe(400);
     expect(res.body.error.details.map((d: { field: string }) => d.field)).toEqual(expect.arrayContaining(['options.density.atoms', 'options.density.cutoff']));
   });

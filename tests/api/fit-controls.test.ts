@@ -14,7 +14,7 @@ let modeller: Agent;
 let reviewer: Agent;
 let admin: Agent;
 let substanceId: number;
-let datasetId: number;
+let measurementSetId: number;
 
 const TRUE = { epsilonK: 180, sigmaAngstrom: 3.7 };
 /** 14 rows; temperatures in °C so that the K values carry the 273.15 offset (−30 °C → 243.15 K). */
@@ -29,7 +29,7 @@ function b2CsvCelsius(): Buffer {
 }
 
 async function upload(name: string, source: string | null) {
-  let req = modeller.post('/api/datasets').field('substanceId', substanceId).field('property', 'b2').field('name', name);
+  let req = modeller.post('/api/measurement-sets').field('substanceId', substanceId).field('kind', 'b2').field('name', name);
   if (source) req = req.field('source', source);
   return req.attach('file', b2CsvCelsius(), { filename: 'b2.csv', contentType: 'text/csv' });
 }
@@ -51,13 +51,13 @@ beforeAll(async () => {
   const up = await upload('Halvane B2, invented', 'Fenwick Thermophysics Laboratory, invented run 14');
   expect(up.status).toBe(201);
   expect(up.body.warnings).toEqual([]);
-  datasetId = up.body.id;
+  measurementSetId = up.body.id;
 }, 60_000);
 afterAll(() => t.close());
 
 describe('holding a parameter (item 12)', () => {
   it('keeps the held σ exact, gives it no standard error and counts one parameter fewer', async () => {
-    const { body } = await runFit({ datasets: [{ id: datasetId }], fixed: { sigmaAngstrom: 3.65 } });
+    const { body } = await runFit({ measurementSets: [{ id: measurementSetId }], fixed: { sigmaAngstrom: 3.65 } });
     expect(body.status).toBe('succeeded');
     const r = body.result;
     expect(r.sigmaAngstrom).toBe(3.65);
@@ -71,7 +71,7 @@ describe('holding a parameter (item 12)', () => {
   });
 
   it('refuses holding both, naming the field as the form labels it', async () => {
-    const res = await modeller.post('/api/fits').send({ substanceId, datasets: [{ id: datasetId }], fixed: { epsilonK: 180, sigmaAngstrom: 3.7 } });
+    const res = await modeller.post('/api/fits').send({ substanceId, measurementSets: [{ id: measurementSetId }], fixed: { epsilonK: 180, sigmaAngstrom: 3.7 } });
     expect(res.status).toBe(400);
     expect(res.body.error.details[0]).toMatchObject({ field: 'fixed.sigmaAngstrom', label: 'Hold σ (Å)' });
     expect(res.body.error.message).toBe('Hold σ (Å): hold ε or σ, not both: with both held there is nothing to fit.');
@@ -80,29 +80,29 @@ describe('holding a parameter (item 12)', () => {
 
 describe('leaving rows out (item 13)', () => {
   it('records the rows and the reason, flags them in the residuals and leaves them out of χ² and ν', async () => {
-    const { body } = await runFit({ datasets: [{ id: datasetId, excludeRows: [5, 2], excludeReason: 'Readings after the pump fault' }] });
-    expect(body.datasets[0]).toMatchObject({ excludeRows: [2, 5], excludeReason: 'Readings after the pump fault' });
+    const { body } = await runFit({ measurementSets: [{ id: measurementSetId, excludeRows: [5, 2], excludeReason: 'Readings after the pump fault' }] });
+    expect(body.measurementSets[0]).toMatchObject({ excludeRows: [2, 5], excludeReason: 'Readings after the pump fault' });
     const r = body.result;
     expect(r.dof).toBe(10);
     expect(r.residuals).toHaveLength(14);
     expect(r.residuals.filter((x: { excluded: boolean }) => x.excluded).map((x: { rowNumber: number }) => x.rowNumber)).toEqual([2, 5]);
     const counted = r.residuals.filter((x: { excluded: boolean }) => !x.excluded).reduce((s: number, x: { residual: number }) => s + x.residual ** 2, 0);
     expect(counted).toBeCloseTo(r.chi2, 8);
-    expect(r.perDataset[0]).toMatchObject({ points: 12, excludedPoints: 2 });
+    expect(r.perMeasurementSet[0]).toMatchObject({ points: 12, excludedPoints: 2 });
     const list = await modeller.get(`/api/substances/${substanceId}/fits`);
-    expect(list.body.fits.find((f: { id: number }) => f.id === body.id).datasets[0].excludeRows).toEqual([2, 5]);
+    expect(list.body.fits.find((f: { id: number }) => f.id === body.id).measurementSets[0].excludeRows).toEqual([2, 5]);
   });
 
   it('answers 422 naming a row the measurement set does not have, and 400 for a row that is not a number from 1', async () => {
-    const res = await modeller.post('/api/fits').send({ substanceId, datasets: [{ id: datasetId, excludeRows: [3, 15] }] });
+    const res = await modeller.post('/api/fits').send({ substanceId, measurementSets: [{ id: measurementSetId, excludeRows: [3, 15] }] });
     expect(res.status).toBe(422);
     expect(res.body.error.code).toBe('unknown_row');
     expect(res.body.error.message).toContain('there is no row 15 to leave out');
-    expect(res.body.error.details).toEqual([expect.objectContaining({ field: 'datasets.0.excludeRows', row: 15 })]);
-    const all = await modeller.post('/api/fits').send({ substanceId, datasets: [{ id: datasetId, excludeRows: Array.from({ length: 13 }, (_, i) => i + 1) }] });
+    expect(res.body.error.details).toEqual([expect.objectContaining({ field: 'measurementSets.0.excludeRows', row: 15 })]);
+    const all = await modeller.post('/api/fits').send({ substanceId, measurementSets: [{ id: measurementSetId, excludeRows: Array.from({ length: 13 }, (_, i) => i + 1) }] });
     expect(all.status).toBe(422);
     expect(all.body.error).toMatchObject({ code: 'too_few_points', message: 'Leaving out these rows leaves 1 point(s) for 2 free parameter(s); the fit needs at least 2.' });
-    const bad = await modeller.post('/api/fits').send({ substanceId, datasets: [{ id: datasetId, excludeRows: [0] }] });
+    const bad = await modeller.post('/api/fits').send({ substanceId, measurementSets: [{ id: measurementSetId, excludeRows: [0] }] });
     expect(bad.status).toBe(400);
     expect(bad.body.error.message).toMatch(/^Rows left out \(measurement set 1 of the request\): row numbers are whole numbers from 1\.$/);
   });
@@ -112,11 +112,11 @@ describe('correlation and profiles (item 14), failed fits (item 4)', () => {
   it('warns in plain words when |corr(ε, σ)| > 0.95 and gives profile-χ² intervals around the best values', async () => {
     // B2 over a narrow range of T* constrains mainly one combination of ε and σ (common practice, no source):
     // the six lowest isotherms alone give |corr| > 0.95; all fourteen do not.
-    const narrow = (await runFit({ datasets: [{ id: datasetId, excludeRows: [7, 8, 9, 10, 11, 12, 13, 14] }], options: { restarts: 0 } })).body.result;
+    const narrow = (await runFit({ measurementSets: [{ id: measurementSetId, excludeRows: [7, 8, 9, 10, 11, 12, 13, 14] }], options: { restarts: 0 } })).body.result;
     expect(Math.abs(narrow.correlation)).toBeGreaterThan(0.95);
     expect(narrow.strongCorrelation).toBe(true);
     expect(narrow.warnings.join(' ')).toContain('the data pin down a combination of the two');
-    const { body } = await runFit({ datasets: [{ id: datasetId }] });
+    const { body } = await runFit({ measurementSets: [{ id: measurementSetId }] });
     const r = body.result;
     expect(Math.abs(r.correlation)).toBeLessThan(0.95);
     expect(r.strongCorrelation).toBe(false);
@@ -134,7 +134,7 @@ describe('correlation and profiles (item 14), failed fits (item 4)', () => {
   });
 
   it('a fit that does not converge shows its last iterate, not converged, the same in the list and on its page', async () => {
-    const { id, body } = await runFit({ datasets: [{ id: datasetId }], options: { start: { epsilonK: 40, sigmaAngstrom: 6 }, restarts: 0, maxIterations: 5 } });
+    const { id, body } = await runFit({ measurementSets: [{ id: measurementSetId }], options: { start: { epsilonK: 40, sigmaAngstrom: 6 }, restarts: 0, maxIterations: 5 } });
     expect(body.status).toBe('failed');
     const r = body.result;
     expect(r.converged).toBe(false);
@@ -148,8 +148,8 @@ describe('correlation and profiles (item 14), failed fits (item 4)', () => {
 
 describe('audit and notices of fits (items 9 and 16)', () => {
   it('audits completion and failure, naming the fit as the screens do, and tells its author in-app and by mail', async () => {
-    const ok = await runFit({ datasets: [{ id: datasetId }], options: { restarts: 0 } });
-    const failed = await runFit({ datasets: [{ id: datasetId }], options: { start: { epsilonK: 40, sigmaAngstrom: 6 }, restarts: 0, maxIterations: 5 } });
+    const ok = await runFit({ measurementSets: [{ id: measurementSetId }], options: { restarts: 0 } });
+    const failed = await runFit({ measurementSets: [{ id: measurementSetId }], options: { start: { epsilonK: 40, sigmaAngstrom: 6 }, restarts: 0, maxIterations: 5 } });
     const audit = (await admin.get('/api/audit?targetType=fit&limit=500')).body.events as Array<{ action: string; targetId: string; targetLabel: string; summary: string }>;
     const done = audit.find((e) => e.action === 'fit.succeeded' && e.targetId === String(ok.id))!;
     expect(done.targetLabel).toBe(`Fit #${ok.number} of Halvane`);
@@ -181,7 +181,7 @@ describe('parameter sets (items 2, 5, 7, 9, 16)', () => {
   let v2: number;
 
   it('rounds the proposed validity to 0.01 K where it is made, and the exports repeat it', async () => {
-    fitId = (await runFit({ datasets: [{ id: datasetId }], options: { restarts: 0 } })).id;
+    fitId = (await runFit({ measurementSets: [{ id: measurementSetId }], options: { restarts: 0 } })).id;
     const draft = await modeller.post('/api/parameter-sets').send({ fitId, rationale: 'Fits the invented B2 table.' });
     expect(draft.status, JSON.stringify(draft.body)).toBe(201);
     v1 = draft.body.id;
@@ -265,7 +265,7 @@ describe('parameter sets (items 2, 5, 7, 9, 16)', () => {
     const up = await upload('Halvane B2, uncited', null);
     expect(up.status).toBe(201);
     expect(up.body.warnings).toEqual([expect.stringContaining('cannot be submitted for review until a version that cites its source is uploaded')]);
-    const fit = await runFit({ datasets: [{ id: up.body.id }], options: { restarts: 0 } });
+    const fit = await runFit({ measurementSets: [{ id: up.body.id }], options: { restarts: 0 } });
     const draft = await modeller.post('/api/parameter-sets').send({ fitId: fit.id, rationale: 'Uncited data.' });
     const res = await modeller.post(`/api/parameter-sets/${draft.body.id}/submit`);
     expect(res.status).toBe(422);

@@ -5,7 +5,7 @@ import { EMAIL, startTestApp, type TestApp } from './test-app';
 let t: TestApp;
 let modeller: Awaited<ReturnType<TestApp['signIn']>>;
 let substanceId: number;
-let b2DatasetId: number;
+let b2MeasurementSetId: number;
 
 // Synthetic B2 table from known, invented parameters with a small deterministic wiggle (not real data).
 const TRUE = { epsilonK: 150, sigmaAngstrom: 3.6 };
@@ -24,34 +24,34 @@ beforeAll(async () => {
   t = await startTestApp();
   modeller = await t.signIn(EMAIL.modeller);
   substanceId = (await modeller.post('/api/substances').send({ name: 'Fittium', molarMass: 83.8 })).body.id;
-  const up = await modeller.post('/api/datasets').field('substanceId', substanceId).field('property', 'b2').field('name', 'Synthetic B2').attach('file', syntheticB2Csv(), { filename: 'b2.csv', contentType: 'text/csv' });
+  const up = await modeller.post('/api/measurement-sets').field('substanceId', substanceId).field('kind', 'b2').field('name', 'Synthetic B2').attach('file', syntheticB2Csv(), { filename: 'b2.csv', contentType: 'text/csv' });
   expect(up.status).toBe(201);
-  b2DatasetId = up.body.id;
+  b2MeasurementSetId = up.body.id;
 });
 afterAll(() => t.close());
 
 describe('fits', () => {
   it('route family: 401 without session, 403 for roles that may not run fits, 400 per field', async () => {
-    expect((await t.client().post('/api/fits').send({ substanceId, datasets: [{ id: b2DatasetId }] })).status).toBe(401);
+    expect((await t.client().post('/api/fits').send({ substanceId, measurementSets: [{ id: b2MeasurementSetId }] })).status).toBe(401);
     for (const email of [EMAIL.consumer, EMAIL.reviewer, EMAIL.admin]) {
       const agent = await t.signIn(email);
-      expect((await agent.post('/api/fits').send({ substanceId, datasets: [{ id: b2DatasetId }] })).status).toBe(403);
+      expect((await agent.post('/api/fits').send({ substanceId, measurementSets: [{ id: b2MeasurementSetId }] })).status).toBe(403);
     }
-    const bad = await modeller.post('/api/fits').send({ substanceId: 'x', datasets: [], options: { bounds: { epsilonK: [10, 5], sigmaAngstrom: [1, 9] }, colour: 'red' } });
+    const bad = await modeller.post('/api/fits').send({ substanceId: 'x', measurementSets: [], options: { bounds: { epsilonK: [10, 5], sigmaAngstrom: [1, 9] }, colour: 'red' } });
     expect(bad.status).toBe(400);
     const fields = bad.body.error.details.map((d: { field: string }) => d.field);
-    expect(fields).toEqual(expect.arrayContaining(['substanceId', 'datasets', 'options.bounds.epsilonK']));
+    expect(fields).toEqual(expect.arrayContaining(['substanceId', 'measurementSets', 'options.bounds.epsilonK']));
   });
 
   it('refuses a measurement set of another substance with 422 naming the field', async () => {
     const other = (await modeller.post('/api/substances').send({ name: 'Otherium', molarMass: 20 })).body.id;
-    const res = await modeller.post('/api/fits').send({ substanceId: other, datasets: [{ id: b2DatasetId }] });
+    const res = await modeller.post('/api/fits').send({ substanceId: other, measurementSets: [{ id: b2MeasurementSetId }] });
     expect(res.status).toBe(422);
-    expect(res.body.error.details[0].field).toBe('datasets.0.id');
+    expect(res.body.error.details[0].field).toBe('measurementSets.0.id');
   });
 
   it('answers 202 at once, runs in the background and recovers the parameters', async () => {
-    const res = await modeller.post('/api/fits').send({ substanceId, datasets: [{ id: b2DatasetId, weight: 1 }] });
+    const res = await modeller.post('/api/fits').send({ substanceId, measurementSets: [{ id: b2MeasurementSetId, weight: 1 }] });
     expect(res.status).toBe(202);
     expect(res.body).toMatchObject({ id: expect.any(Number), number: 1 });
     const done = await t.ctx.jobs.waitFor(res.body.jobId);
@@ -65,13 +65,13 @@ describe('fits', () => {
     expect(Math.abs(r.sigmaAngstrom - TRUE.sigmaAngstrom)).toBeLessThan(4 * r.stdErr.sigmaAngstrom + 0.005);
     expect(r).toMatchObject({ dof: 12, covarianceScaling: 'reduced-chi2' });
     expect(r.residuals).toHaveLength(14);
-    expect(r.perDataset[0]).toMatchObject({ datasetId: b2DatasetId, points: 14 });
-    expect(fit.body.datasets).toEqual([{ datasetId: b2DatasetId, version: 1, versionId: expect.any(Number), kind: 'b2', name: 'Synthetic B2', weight: 1, excludeRows: [], excludeReason: null }]);
+    expect(r.perMeasurementSet[0]).toMatchObject({ measurementSetId: b2MeasurementSetId, points: 14 });
+    expect(fit.body.measurementSets).toEqual([{ measurementSetId: b2MeasurementSetId, version: 1, versionId: expect.any(Number), kind: 'b2', name: 'Synthetic B2', weight: 1, excludeRows: [], excludeReason: null }]);
     expect(fit.body.codeVersion).toMatch(/^\d+\.\d+\.\d+/);
   });
 
   it('numbers fits per substance and lists them', async () => {
-    const res = await modeller.post('/api/fits').send({ substanceId, datasets: [{ id: b2DatasetId }], options: { restarts: 0 } });
+    const res = await modeller.post('/api/fits').send({ substanceId, measurementSets: [{ id: b2MeasurementSetId }], options: { restarts: 0 } });
     expect(res.body.number).toBe(2);
     await t.ctx.jobs.waitFor(res.body.jobId);
     const list = await modeller.get(`/api/substances/${substanceId}/fits`);
@@ -84,7 +84,7 @@ describe('fits', () => {
   });
 
   it('says plainly when the fit ended on a bound', async () => {
-    const res = await modeller.post('/api/fits').send({ substanceId, datasets: [{ id: b2DatasetId }], options: { bounds: { epsilonK: [10, 120], sigmaAngstrom: [2, 6] }, restarts: 0 } });
+    const res = await modeller.post('/api/fits').send({ substanceId, measurementSets: [{ id: b2MeasurementSetId }], options: { bounds: { epsilonK: [10, 120], sigmaAngstrom: [2, 6] }, restarts: 0 } });
     await t.ctx.jobs.waitFor(res.body.jobId);
     const fit = await modeller.get(`/api/fits/${res.body.id}`);
     expect(fit.body.result.hitBounds).toContain('epsilonK');

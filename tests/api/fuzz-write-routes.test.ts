@@ -27,7 +27,7 @@ const CASES: Case[] = [
   { name: 'a JSON array', contentType: 'application/json', body: '[1,2,3]' },
   { name: 'JSON null', contentType: 'application/json', body: 'null' },
   { name: 'prototype keys', contentType: 'application/json', body: '{"__proto__":{"admin":true},"constructor":{"prototype":{}}}' },
-  { name: 'every field the wrong type', contentType: 'application/json', body: '{"id":"x","name":{},"email":[],"password":1,"reason":null,"roles":"admin","datasets":{"0":1},"fitId":"1","sets":true,"substanceId":-1,"molarMass":"1e999"}' },
+  { name: 'every field the wrong type', contentType: 'application/json', body: '{"id":"x","name":{},"email":[],"password":1,"reason":null,"roles":"admin","measurementSets":{"0":1},"fitId":"1","sets":true,"substanceId":-1,"molarMass":"1e999"}' },
   { name: 'huge numbers and strings', contentType: 'application/json', body: JSON.stringify({ name: 'x'.repeat(100_000), molarMass: 1e308, epsilonK: -1e308, fitId: 2 ** 60 }) },
   { name: 'deeply nested JSON', contentType: 'application/json', body: deep },
   { name: 'invalid UTF-8', contentType: 'application/json', body: Buffer.from([0x7b, 0x22, 0x6e, 0x22, 0x3a, 0x22, 0xff, 0xfe, 0x22, 0x7d]) },
@@ -47,7 +47,7 @@ let writeRoutes: Array<{ method: string; path: string }> = [];
 beforeAll(async () => {
   t = await startTestApp();
   const admin = await t.signIn(EMAIL.admin);
-  const made = await admin.post('/api/users').send({ email: ALL_ROLES, name: 'Fuzz All-Roles', roles: ['admin', 'modeller', 'reviewer', 'consumer'], password: TEST_PASSWORD });
+  const made = await admin.post('/api/people').send({ email: ALL_ROLES, name: 'Fuzz All-Roles', roles: ['admin', 'modeller', 'reviewer', 'consumer'], password: TEST_PASSWORD });
   expect(made.status).toBe(201);
   agent = await t.signIn(ALL_ROLES);
   const found: Array<{ method: string; path: string }> = [];
@@ -69,7 +69,7 @@ afterAll(() => t.close());
 describe('malformed requests to every write route', () => {
   it('finds the write routes', () => {
     expect(writeRoutes.length).toBeGreaterThan(25);
-    expect(writeRoutes).toContainEqual({ method: 'post', path: '/api/datasets' });
+    expect(writeRoutes).toContainEqual({ method: 'post', path: '/api/measurement-sets' });
   });
 
   it.each(CASES.map((c) => [c.name, c] as const))('%s: never 5xx, always the error shape', async (_name, c) => {

@@ -34,17 +34,17 @@ const LONG = { reducedTemperature: 1.5, reducedPressure: 0.5, atoms: 108, steps:
 async function seedB2Fit(ctx: Ctx) {
   await ctx.db.insertInto('user').values({ id: 'u1', email: 'queue@test', name: 'Queue', passwordHash: 'x', createdAt: new Date().toISOString() }).execute();
   const s = await ctx.db.insertInto('substance').values({ name: 'Quillgas QG-1', molarMassGramsPerMol: 44.62, createdBy: 'u1', createdAt: '', updatedAt: '' }).returning('id').executeTakeFirstOrThrow();
-  const d = await ctx.db.insertInto('dataset').values({ substanceId: s.id, property: 'b2', name: 'b2', createdBy: 'u1', createdAt: '' }).returning('id').executeTakeFirstOrThrow();
+  const d = await ctx.db.insertInto('measurementSet').values({ substanceId: s.id, kind: 'b2', name: 'b2', createdBy: 'u1', createdAt: '' }).returning('id').executeTakeFirstOrThrow();
   const v = await ctx.db
-    .insertInto('datasetVersion')
-    .values({ datasetId: d.id, version: 1, sha256: 'x', originalFilename: 'x.csv', originalBytes: Buffer.from('x'), defaultRelativeUncertainty: 0.01, delimiter: ',', decimal: '.', columnsJson: '[]', rowCount: 10, uploadedBy: 'u1', uploadedAt: '' })
+    .insertInto('measurementSetVersion')
+    .values({ measurementSetId: d.id, version: 1, sha256: 'x', originalFilename: 'x.csv', originalBytes: Buffer.from('x'), defaultRelativeUncertainty: 0.01, delimiter: ',', decimal: '.', columnsJson: '[]', rowCount: 10, uploadedBy: 'u1', uploadedAt: '' })
     .returning('id')
     .executeTakeFirstOrThrow();
   for (let i = 0; i < 10; i++) {
     const T = 160 + 50 * i;
-    await ctx.db.insertInto('measurementRow').values({ datasetVersionId: v.id, position: i, fileRow: i + 2, temperatureK: T, pressureMpa: null, value: b2WithGradient(T, 131.5, 3.524).b2Cm3PerMol, uncertainty: 0.5, uncertaintySource: 'measured', rawJson: '{}' }).execute();
+    await ctx.db.insertInto('measurementRow').values({ measurementSetVersionId: v.id, position: i, fileRow: i + 2, temperatureK: T, pressureMpa: null, value: b2WithGradient(T, 131.5, 3.524).b2Cm3PerMol, uncertainty: 0.5, uncertaintySource: 'measured', rawJson: '{}' }).execute();
   }
-  return { kind: 'fit', seed: 0, input: { datasets: [{ datasetId: d.id, version: 1, versionId: v.id, kind: 'b2', name: 'b2', weight: 1 }], options: { restarts: 4, maxIterations: 400 } } };
+  return { kind: 'fit', seed: 0, input: { measurementSets: [{ measurementSetId: d.id, version: 1, versionId: v.id, kind: 'b2', name: 'b2', weight: 1 }], options: { restarts: 4, maxIterations: 400 } } };
 }
 
 async function until<T>(what: string, read: () => Promise<T>, ok: (v: T) => boolean, timeoutMs = 30_000): Promise<T> {

@@ -93,9 +93,9 @@ describe('web process with WORKERS=0 and worker processes through Redis', () => 
     // A B2 fit now: the fast lane of the surviving worker takes it at once, beside its simulation.
     const substances = (await api('GET', '/substances')).body.substances;
     const substanceId = substances.find((s: { name: string }) => s.name === 'Quillgas QG-1').id;
-    const b2 = (await api('GET', `/datasets?substanceId=${substanceId}`)).body.datasets.find((d: { property: string }) => d.property === 'b2');
+    const b2 = (await api('GET', `/measurement-sets?substanceId=${substanceId}`)).body.measurementSets.find((d: { kind: string }) => d.kind === 'b2');
     const submitted = Date.now();
-    const fit = await api('POST', '/fits', { substanceId, datasets: [{ id: b2.id }] });
+    const fit = await api('POST', '/fits', { substanceId, measurementSets: [{ id: b2.id }] });
     expect(fit.status).toBe(202);
     const fitDone = await until<Answer>('the B2 fit', async () => (await api('GET', `/fits/${fit.body.id}`)).body, (f) => !['queued', 'running'].includes(f.status), 30_000);
     expect(fitDone.status, fitDone.error ?? '').toBe('succeeded');

@@ -91,13 +91,13 @@ describe('malformed requests answer 400/415 in the error shape, never 500', () =
       ['malformed part headers', 'multipart/form-data; boundary=quill', '--quill\r\nContent-Disposition form-data name=file\r\n\u0000\u0001garbage\r\n\r\nabc\r\n--quill--\r\n'],
       ['a part without Content-Disposition', 'multipart/form-data; boundary=quill', '--quill\r\nContent-Type: text/csv\r\n\r\nT (K)\r\n--quill--\r\n'],
     ];
-    it.each(cases)('POST /api/datasets with %s', async (_label, contentType, body) => {
-      const res = await modeller.post('/api/datasets').set('Content-Type', contentType).send(body);
+    it.each(cases)('POST /api/measurement-sets with %s', async (_label, contentType, body) => {
+      const res = await modeller.post('/api/measurement-sets').set('Content-Type', contentType).send(body);
       expectClientError(res, [400, 413, 415, 422]);
       noUnexpected();
     });
-    it.each(cases)('POST /api/datasets/:id/versions with %s', async (_label, contentType, body) => {
-      const res = await modeller.post('/api/datasets/1/versions').set('Content-Type', contentType).send(body);
+    it.each(cases)('POST /api/measurement-sets/:id/versions with %s', async (_label, contentType, body) => {
+      const res = await modeller.post('/api/measurement-sets/1/versions').set('Content-Type', contentType).send(body);
       expectClientError(res, [400, 404, 413, 415, 422]);
       noUnexpected();
     });

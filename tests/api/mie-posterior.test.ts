@@ -25,7 +25,7 @@ beforeAll(async () => {
   t = await startTestApp();
   [modeller, reviewer, consumer] = await Promise.all([t.signIn(EMAIL.modeller), t.signIn(EMAIL.reviewer), t.signIn(EMAIL.consumer)]);
   substanceId = await newSubstance(modeller, 'Quillgas QG-7', 58.1);
-  const up = await modeller.post('/api/datasets').field('substanceId', substanceId).field('property', 'b2').field('name', 'QG-7 B2, Fenwick cell B').field('source', 'Fenwick Thermophysics Laboratory, invented run 7').field('doi', '10.1000/epsigma.mie.7').attach('file', mieB2Csv(), { filename: 'b2.csv', contentType: 'text/csv' });
+  const up = await modeller.post('/api/measurement-sets').field('substanceId', substanceId).field('kind', 'b2').field('name', 'QG-7 B2, Fenwick cell B').field('source', 'Fenwick Thermophysics Laboratory, invented run 7').field('doi', '10.1000/epsigma.mie.7').attach('file', mieB2Csv(), { filename: 'b2.csv', contentType: 'text/csv' });
   expect(up.status, JSON.stringify(up.body)).toBe(201);
   b2Id = up.body.id;
 });
@@ -33,16 +33,16 @@ afterAll(() => t.close());
 
 describe('Mie λr-6 fits with a posterior, through review and export', () => {
   it('refuses inconsistent Mie options per field', async () => {
-    const none = await modeller.post('/api/fits').send({ substanceId, datasets: [{ id: b2Id }], options: { model: 'mie' } });
+    const none = await modeller.post('/api/fits').send({ substanceId, measurementSets: [{ id: b2Id }], options: { model: 'mie' } });
     expect(none.status).toBe(400);
     expect(none.body.error.details.map((d: { field: string }) => d.field)).toContain('options.repulsiveExponent');
-    const lj = await modeller.post('/api/fits').send({ substanceId, datasets: [{ id: b2Id }], options: { repulsiveExponent: 16 } });
+    const lj = await modeller.post('/api/fits').send({ substanceId, measurementSets: [{ id: b2Id }], options: { repulsiveExponent: 16 } });
     expect(lj.status).toBe(400);
     expect(lj.body.error.details.map((d: { field: string }) => d.field)).toContain('options.model');
   });
 
   it('fits a Mie 16-6 model with a posterior, ranks next measurements and states the criterion; the set goes through review and export', async () => {
-    const res = await modeller.post('/api/fits').send({ substanceId, datasets: [{ id: b2Id }], options: { model: 'mie', repulsiveExponent: 16, posterior: { samples: 300 } } });
+    const res = await modeller.post('/api/fits').send({ substanceId, measurementSets: [{ id: b2Id }], options: { model: 'mie', repulsiveExponent: 16, posterior: { samples: 300 } } });
     expect(res.status, JSON.stringify(res.body)).toBe(202);
     expect((await t.ctx.jobs.waitFor(res.body.jobId)).status).toBe('succeeded');
     const fit = (await modeller.get(`/api/fits/${res.body.id}`)).body;
@@ -101,7 +101,7 @@ describe('Mie λr-6 fits with a posterior, through review and export', () => {
 
     // Reproducible by anyone: the manifest names the data by SHA-256, and a re-run repeats the fit (posterior included) to the last digit.
     const manifest = (await consumer.get(`/api/parameter-sets/${draft.body.id}/manifest`)).body;
-    expect(manifest.datasets[0].sha256).toBe(createHash('sha256').update(mieB2Csv()).digest('hex'));
+    expect(manifest.measurementSets[0].sha256).toBe(createHash('sha256').update(mieB2Csv()).digest('hex'));
     expect(manifest.seeds).toMatchObject({ restartPerturbations: 20240611, posterior: 20261202 });
     expect(manifest.options).toMatchObject({ model: 'mie', repulsiveExponent: 16, posterior: { samples: 300 } });
     const rerun = await consumer.get(`/api/parameter-sets/${draft.body.id}/rerun`);

@@ -15,7 +15,7 @@ let dual: Agent;
 let substanceId: number;
 let fitId: number;
 let dualFitId: number;
-let b2DatasetId: number;
+let b2MeasurementSetId: number;
 
 // Synthetic B2 table from invented parameters (ε/k_B = 150 K, σ = 3.6 Å) with a small deterministic wiggle.
 const TRUE = { epsilonK: 150, sigmaAngstrom: 3.6 };
@@ -29,8 +29,8 @@ function syntheticB2Csv(shift = 0): Buffer {
   return Buffer.from(lines.join('\n'));
 }
 
-async function runFit(agent: Agent, datasetId: number): Promise<number> {
-  const res = await agent.post('/api/fits').send({ substanceId, datasets: [{ id: datasetId }] });
+async function runFit(agent: Agent, measurementSetId: number): Promise<number> {
+  const res = await agent.post('/api/fits').send({ substanceId, measurementSets: [{ id: measurementSetId }] });
   expect(res.status).toBe(202);
   const job = await t.ctx.jobs.waitFor(res.body.jobId);
   expect(job.status).toBe('succeeded');
@@ -38,7 +38,7 @@ async function runFit(agent: Agent, datasetId: number): Promise<number> {
 }
 
 async function addPerson(email: string, roles: string[]) {
-  const res = await admin.post('/api/users').send({ email, name: email.split('@')[0], roles, password: 'a-long-test-password' });
+  const res = await admin.post('/api/people').send({ email, name: email.split('@')[0], roles, password: 'a-long-test-password' });
   expect(res.status).toBe(201);
   return { agent: await t.signIn(email, 'a-long-test-password'), id: res.body.id as string };
 }
@@ -83,17 +83,17 @@ beforeAll(async () => {
   ({ agent: dual } = await addPerson('dual.role@demo.epsigma.test', ['modeller', 'reviewer']));
   substanceId = (await modeller.post('/api/substances').send({ name: 'Reviewium', molarMass: 83.8 })).body.id;
   const up = await modeller
-    .post('/api/datasets')
+    .post('/api/measurement-sets')
     .field('substanceId', substanceId)
-    .field('property', 'b2')
+    .field('kind', 'b2')
     .field('name', 'Synthetic B2')
     .field('source', 'Fenwick Thermophysics Laboratory, invented run 7')
     .field('doi', '10.1000/epsigma.test.7')
     .attach('file', syntheticB2Csv(), { filename: 'b2.csv', contentType: 'text/csv' });
   expect(up.status).toBe(201);
-  b2DatasetId = up.body.id;
-  fitId = await runFit(modeller, b2DatasetId);
-  dualFitId = await runFit(dual, b2DatasetId);
+  b2MeasurementSetId = up.body.id;
+  fitId = await runFit(modeller, b2MeasurementSetId);
+  dualFitId = await runFit(dual, b2MeasurementSetId);
   // The consumer follows the substance (the follows feature's table), to receive approval and retirement notices.
   const consumerRow = await t.ctx.db.selectFrom('user').select('id').where('email', '=', EMAIL.consumer).executeTakeFirstOrThrow();
   await t.ctx.db.insertInto('substanceFollow').values({ userId: consumerRow.id, substanceId, createdAt: new Date().toISOString() }).execute();
@@ -120,16 +120,16 @@ describe('drafting a parameter set', () => {
   it('refuses an unknown fit (422) and a fit that did not succeed (409), storing nothing', async () => {
     await expectRefused(draft(modeller, { fitId: 99999 }), 422, 'unknown_fit');
     // One point cannot determine two parameters: the fit fails.
-    const tiny = await modeller.post('/api/datasets').field('substanceId', substanceId).field('property', 'b2').field('name', 'One point').attach('file', Buffer.from('T (K),B2 (cm3/mol),u(B2) (cm3/mol)\n300,-20,1\n'), { filename: 'one.csv', contentType: 'text/csv' });
+    const tiny = await modeller.post('/api/measurement-sets').field('substanceId', substanceId).field('kind', 'b2').field('name', 'One point').attach('file', Buffer.from('T (K),B2 (cm3/mol),u(B2) (cm3/mol)\n300,-20,1\n'), { filename: 'one.csv', contentType: 'text/csv' });
     expect(tiny.status).toBe(201);
-    const res = await modeller.post('/api/fits').send({ substanceId, datasets: [{ id: tiny.body.id }] });
+    const res = await modeller.post('/api/fits').send({ substanceId, measurementSets: [{ id: tiny.body.id }] });
     await t.ctx.jobs.waitFor(res.body.jobId);
     const fit = await modeller.get(`/api/fits/${res.body.id}`);
     expect(fit.body.status).toBe('failed');
     await expectRefused(draft(modeller, { fitId: res.body.id }), 409, 'fit_not_succeeded');
   });
 
-  it('freezes the fit’s values, its dataset versions and a validity range defaulting to the data span', async () => {
+  it('freezes the fit’s values, its measurement set versions and a validity range defaulting to the data span', async () => {
     const fit = (await modeller.get(`/api/fits/${fitId}`)).body;
     const res = await draft(modeller, { fitId });
     expect(res.status).toBe(201);
@@ -151,7 +151,7 @@ describe('drafting a parameter set', () => {
     expect(res.body.epsilonK).toBeCloseTo(TRUE.epsilonK, 0);
     expect(res.body.sigmaAngstrom).toBeCloseTo(TRUE.sigmaAngstrom, 1);
     const detail = (await modeller.get(`/api/parameter-sets/${res.body.id}`)).body;
-    expect(detail.datasets).toEqual([expect.objectContaining({ datasetId: b2DatasetId, version: 1, source: 'Fenwick Thermophysics Laboratory, invented run 7', doi: '10.1000/epsigma.test.7', rowCount: 14 })]);
+    expect(detail.measurementSets).toEqual([expect.objectContaining({ measurementSetId: b2MeasurementSetId, version: 1, source: 'Fenwick Thermophysics Laboratory, invented run 7', doi: '10.1000/epsigma.test.7', rowCount: 14 })]);
     expect(detail.fit).toMatchObject({ id: fitId, number: fit.number, reducedChi2: fit.result.reducedChi2, dataSpan: { temperatureMinK: 180, temperatureMaxK: 700 } });
     expect(detail.history).toEqual([expect.objectContaining({ move: 'create', fromState: null, toState: 'draft', actorName: 'Milo Carraway' })]);
     expect(detail.allowedMoves).toEqual(['submit', 'edit']);
@@ -380,13 +380,13 @@ describe('a set from a fit with density data', () => {
   // Small, fast simulations as in tests/api/density-fit.test.ts; the physics of that stage is tested there.
   it('defaults to the simulations’ cutoff scheme and to the temperature and pressure span of the data', async () => {
     const quillgas = (await modeller.get('/api/substances')).body.substances.find((s: { name: string }) => s.name === 'Quillgas QG-1');
-    const datasets = (await modeller.get(`/api/datasets?substanceId=${quillgas.id}`)).body.datasets as Array<{ id: number; property: string }>;
-    const density = datasets.find((d) => d.property === 'density')!;
-    const res = await modeller.post('/api/fits').send({ substanceId: quillgas.id, datasets: datasets.filter((d) => d.property === 'b2' || d.property === 'density').map((d) => ({ id: d.id })), options: { density: { atoms: 108, steps: 3000, scheme: 'truncated-shifted' }, restarts: 0 } });
+    const measurementSets = (await modeller.get(`/api/measurement-sets?substanceId=${quillgas.id}`)).body.measurementSets as Array<{ id: number; kind: string }>;
+    const density = measurementSets.find((d) => d.kind === 'density')!;
+    const res = await modeller.post('/api/fits').send({ substanceId: quillgas.id, measurementSets: measurementSets.filter((d) => d.kind === 'b2' || d.kind === 'density').map((d) => ({ id: d.id })), options: { density: { atoms: 108, steps: 3000, scheme: 'truncated-shifted' }, restarts: 0 } });
     expect(res.status).toBe(202);
     const job = await t.ctx.jobs.waitFor(res.body.jobId);
     expect(job.status, job.error ?? '').toBe('succeeded');
-    const rows = (await modeller.get(`/api/datasets/${density.id}`)).body.rows as Array<{ temperatureK: number; pressureMPa: number }>;
+    const rows = (await modeller.get(`/api/measurement-sets/${density.id}`)).body.rows as Array<{ temperatureK: number; pressureMPa: number }>;
     const fitted = (await modeller.get(`/api/fits/${res.body.id}`)).body.result.residuals as Array<{ temperatureK: number }>;
 
     const set = await draft(modeller, { fitId: res.body.id, rationale: 'Joint B2 and density fit for truncated-and-shifted MD at 2.5σ.' });

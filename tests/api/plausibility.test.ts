@@ -15,8 +15,8 @@ beforeAll(async () => {
 });
 afterAll(() => t.close());
 
-const upload = (csv: string, property = 'b2') =>
-  modeller.post('/api/datasets').field('substanceId', substanceId).field('property', property).field('name', `Check ${Math.random()}`).field('source', 'Fenwick Thermophysics Laboratory, invented run').attach('file', Buffer.from(csv), { filename: 'check.csv', contentType: 'text/csv' });
+const upload = (csv: string, kind = 'b2') =>
+  modeller.post('/api/measurement-sets').field('substanceId', substanceId).field('kind', kind).field('name', `Check ${Math.random()}`).field('source', 'Fenwick Thermophysics Laboratory, invented run').attach('file', Buffer.from(csv), { filename: 'check.csv', contentType: 'text/csv' });
 
 describe('substances', () => {
   it('refuses a molar mass below a hydrogen atom (5e-324 g/mol), naming the field', async () => {

@@ -42,10 +42,10 @@ interface Ids {
   publishedFit: number;
   draftSet: number;
   draftFit: number;
-  modellerDataset: number;
+  modellerMeasurementSet: number;
   otherDraftSet: number;
   otherFit: number;
-  otherDataset: number;
+  otherMeasurementSet: number;
   consumerUser: string;
   approvedPairSet: number;
   pairSetInReview: number;
@@ -96,17 +96,17 @@ const PROBES: Record<string, Probe> = {
   'POST /api/substances/:id/follow': { path: (i) => `/api/substances/${i.substance}/follow` },
   'DELETE /api/substances/:id/follow': { path: (i) => `/api/substances/${i.substance}/follow` },
   'GET /api/me/follows': { path: () => '/api/me/follows' },
-  'GET /api/datasets': { path: () => '/api/datasets' },
-  'GET /api/datasets/:id': { path: (i) => `/api/datasets/${i.modellerDataset}` },
-  'GET /api/datasets/:id/versions/:version/original': { path: (i) => `/api/datasets/${i.modellerDataset}/versions/1/original` },
-  'POST /api/datasets': { path: () => '/api/datasets' },
-  'POST /api/datasets/:id/versions': {
-    path: (i) => `/api/datasets/${i.modellerDataset}/versions`,
-    own: (i) => ({ mine: `/api/datasets/${i.modellerDataset}/versions`, others: `/api/datasets/${i.otherDataset}/versions` }),
+  'GET /api/measurement-sets': { path: () => '/api/measurement-sets' },
+  'GET /api/measurement-sets/:id': { path: (i) => `/api/measurement-sets/${i.modellerMeasurementSet}` },
+  'GET /api/measurement-sets/:id/versions/:version/original': { path: (i) => `/api/measurement-sets/${i.modellerMeasurementSet}/versions/1/original` },
+  'POST /api/measurement-sets': { path: () => '/api/measurement-sets' },
+  'POST /api/measurement-sets/:id/versions': {
+    path: (i) => `/api/measurement-sets/${i.modellerMeasurementSet}/versions`,
+    own: (i) => ({ mine: `/api/measurement-sets/${i.modellerMeasurementSet}/versions`, others: `/api/measurement-sets/${i.otherMeasurementSet}/versions` }),
   },
-  'POST /api/datasets/:id/withdraw': {
-    path: (i) => `/api/datasets/${i.modellerDataset}/withdraw`,
-    own: (i) => ({ mine: `/api/datasets/${i.modellerDataset}/withdraw`, others: `/api/datasets/${i.otherDataset}/withdraw` }),
+  'POST /api/measurement-sets/:id/withdraw': {
+    path: (i) => `/api/measurement-sets/${i.modellerMeasurementSet}/withdraw`,
+    own: (i) => ({ mine: `/api/measurement-sets/${i.modellerMeasurementSet}/withdraw`, others: `/api/measurement-sets/${i.otherMeasurementSet}/withdraw` }),
   },
   'POST /api/fits': { path: () => '/api/fits' },
   'GET /api/fits/:id': { path: (i) => `/api/fits/${i.draftFit}`, published: (i) => ({ published: `/api/fits/${i.publishedFit}`, unpublished: `/api/fits/${i.draftFit}` }) },
@@ -116,7 +116,7 @@ const PROBES: Record<string, Probe> = {
   'GET /api/simulations/queue': { path: () => '/api/simulations/queue' },
   'GET /api/simulations/:id': { path: () => `/api/simulations/${NONE}` },
   'POST /api/simulations': { path: () => '/api/simulations' },
-  'POST /api/simulations/from-dataset': { path: () => '/api/simulations/from-dataset' },
+  'POST /api/simulations/from-measurement-set': { path: () => '/api/simulations/from-measurement-set' },
   'POST /api/simulations/:id/cancel': { path: () => `/api/simulations/${NONE}/cancel` },
   'POST /api/simulations/:id/retry': { path: () => `/api/simulations/${NONE}/retry` },
   'GET /api/parameter-sets': { path: () => '/api/parameter-sets' },
@@ -137,9 +137,9 @@ const PROBES: Record<string, Probe> = {
   'POST /api/parameter-sets/:id/retire': { path: () => `/api/parameter-sets/${NONE}/retire` },
   'POST /api/parameter-sets/:id/comments': { path: (i) => `/api/parameter-sets/${i.publishedSet}/comments` },
   'GET /api/review-queue': { path: () => '/api/review-queue' },
-  'GET /api/users': { path: () => '/api/users' },
-  'POST /api/users': { path: () => '/api/users' },
-  'PATCH /api/users/:id': { path: (i) => `/api/users/${i.consumerUser}` },
+  'GET /api/people': { path: () => '/api/people' },
+  'POST /api/people': { path: () => '/api/people' },
+  'PATCH /api/people/:id': { path: (i) => `/api/people/${i.consumerUser}` },
   'GET /api/audit': { path: () => '/api/audit' },
   'GET /api/audit/vocabulary': { path: () => '/api/audit/vocabulary' },
   'GET /api/mailbox': { path: () => '/api/mailbox' },
@@ -159,20 +159,20 @@ const OTHER_MODELLER = 'hollis.wren@quillmoor.example';
 beforeAll(async () => {
   t = await startTestApp();
   const admin = await t.signIn(EMAIL.admin);
-  expect((await admin.post('/api/users').send({ email: OTHER_MODELLER, name: 'Hollis Wren', roles: ['modeller'], password: TEST_PASSWORD })).status).toBe(201);
+  expect((await admin.post('/api/people').send({ email: OTHER_MODELLER, name: 'Hollis Wren', roles: ['modeller'], password: TEST_PASSWORD })).status).toBe(201);
   const [modeller, reviewer, consumer, other] = await Promise.all([t.signIn(EMAIL.modeller), t.signIn(EMAIL.reviewer), t.signIn(EMAIL.consumer), t.signIn(OTHER_MODELLER)]);
   people = { admin, modeller, reviewer, consumer };
   const substance = await newSubstance(modeller, 'norrane N-7', 72.2);
   const published = await approvedSet(t, { modeller, reviewer }, { substanceId: substance, epsilonK: 240, sigmaAngstrom: 4.1 });
   const draftOf = async (agent: Agent, name: string) => {
-    const up = await agent.post('/api/datasets').field('substanceId', substance).field('property', 'b2').field('name', name).field('source', 'Fenwick Thermophysics Laboratory, invented run').attach('file', syntheticB2Csv(236, 4.12, 0.4), { filename: 'b2.csv', contentType: 'text/csv' });
+    const up = await agent.post('/api/measurement-sets').field('substanceId', substance).field('kind', 'b2').field('name', name).field('source', 'Fenwick Thermophysics Laboratory, invented run').attach('file', syntheticB2Csv(236, 4.12, 0.4), { filename: 'b2.csv', contentType: 'text/csv' });
     expect(up.status, JSON.stringify(up.body)).toBe(201);
-    const fit = await agent.post('/api/fits').send({ substanceId: substance, datasets: [{ id: up.body.id }] });
+    const fit = await agent.post('/api/fits').send({ substanceId: substance, measurementSets: [{ id: up.body.id }] });
     expect(fit.status).toBe(202);
     expect((await t.ctx.jobs.waitFor(fit.body.jobId)).status).toBe('succeeded');
     const set = await agent.post('/api/parameter-sets').send({ fitId: fit.body.id, rationale: 'Fits the synthetic B2 table within its uncertainty.' });
     expect(set.status, JSON.stringify(set.body)).toBe(201);
-    return { dataset: up.body.id as number, fit: fit.body.id as number, set: set.body.id as number };
+    return { measurementSet: up.body.id as number, fit: fit.body.id as number, set: set.body.id as number };
   };
   const mine = await draftOf(modeller, 'Norrane B2, second run');
   const theirs = await draftOf(other, 'Norrane B2, Hollis run');
@@ -180,10 +180,10 @@ beforeAll(async () => {
   // Two pair sets of the published set and a second substance's: one approved, one waiting for review.
   const partner = await approvedSet(t, { modeller, reviewer }, { substanceId: await newSubstance(modeller, 'quillgas QG-4', 44.6), epsilonK: 150, sigmaAngstrom: 3.6 });
   const b12 = ['T (K),B12 (cm3/mol),u(B12) (cm3/mol)', '200,-160.2,2', '260,-101.5,2', '330,-66.3,2', '420,-40.8,2', '520,-24.9,2'].join('\n');
-  const up = await modeller.post('/api/datasets').field('substanceId', substance).field('property', 'b12').field('name', 'Invented B12 of norrane and quillgas').field('source', 'Fenwick Thermophysics Laboratory, invented run').attach('file', Buffer.from(b12), { filename: 'b12.csv', contentType: 'text/csv' });
+  const up = await modeller.post('/api/measurement-sets').field('substanceId', substance).field('kind', 'b12').field('name', 'Invented B12 of norrane and quillgas').field('source', 'Fenwick Thermophysics Laboratory, invented run').attach('file', Buffer.from(b12), { filename: 'b12.csv', contentType: 'text/csv' });
   expect(up.status, JSON.stringify(up.body)).toBe(201);
   const pairSet = async () => {
-    const res = await modeller.post('/api/pair-sets').send({ parameterSetIds: [published.setId, partner.setId], datasetId: up.body.id });
+    const res = await modeller.post('/api/pair-sets').send({ parameterSetIds: [published.setId, partner.setId], measurementSetId: up.body.id });
     expect(res.status, JSON.stringify(res.body)).toBe(201);
     return res.body.id as number;
   };
@@ -196,10 +196,10 @@ beforeAll(async () => {
     publishedFit: published.fitId,
     draftSet: mine.set,
     draftFit: mine.fit,
-    modellerDataset: mine.dataset,
+    modellerMeasurementSet: mine.measurementSet,
     otherDraftSet: theirs.set,
     otherFit: theirs.fit,
-    otherDataset: theirs.dataset,
+    otherMeasurementSet: theirs.measurementSet,
     consumerUser: consumerUser.id,
     approvedPairSet,
     pairSetInReview,

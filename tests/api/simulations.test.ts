@@ -33,7 +33,7 @@ describe('simulations', () => {
     const product = await modeller.post('/api/simulations').send({ reducedTemperature: 1.2, reducedPressure: 0.5, atoms: 4000, steps: 100_000 });
     expect(product.status).toBe(400);
     expect(product.body.error.details).toEqual([expect.objectContaining({ field: 'steps', message: expect.stringContaining('atoms × steps') })]);
-    const fromSet = await modeller.post('/api/simulations/from-dataset').send({ datasetId: 1, epsilonK: 131.5, sigmaAngstrom: 3.524, atoms: 4000, steps: 100_000 });
+    const fromSet = await modeller.post('/api/simulations/from-measurement-set').send({ measurementSetId: 1, epsilonK: 131.5, sigmaAngstrom: 3.524, atoms: 4000, steps: 100_000 });
     expect(fromSet.status).toBe(400);
   });
 
@@ -73,16 +73,16 @@ describe('simulations', () => {
   it('maps density rows to reduced states with the given ε and σ', async () => {
     const substanceId = (await modeller.post('/api/substances').send({ name: 'Simium', molarMass: 40 })).body.id;
     const csv = 'T (K),P (MPa),rho (kg/m3)\n240,10,500\n300,20,600\n';
-    const up = await modeller.post('/api/datasets').field('substanceId', substanceId).field('property', 'density').field('name', 'dens').attach('file', Buffer.from(csv), { filename: 'd.csv', contentType: 'text/csv' });
-    const res = await modeller.post('/api/simulations/from-dataset').send({ datasetId: up.body.id, rows: [3], epsilonK: 120, sigmaAngstrom: 3.4, ...SHORT });
+    const up = await modeller.post('/api/measurement-sets').field('substanceId', substanceId).field('kind', 'density').field('name', 'dens').attach('file', Buffer.from(csv), { filename: 'd.csv', contentType: 'text/csv' });
+    const res = await modeller.post('/api/simulations/from-measurement-set').send({ measurementSetId: up.body.id, rows: [3], epsilonK: 120, sigmaAngstrom: 3.4, ...SHORT });
     expect(res.status).toBe(202);
     expect(res.body.runs).toHaveLength(1);
     const expected = reducedStateOf({ temperatureK: 300, pressureMPa: 20, epsilonK: 120, sigmaAngstrom: 3.4 });
     expect(res.body.runs[0].state.reducedTemperature).toBeCloseTo(expected.reducedTemperature, 8);
     expect(res.body.runs[0].state.reducedPressure).toBeCloseTo(expected.reducedPressure, 8);
     const sim = await modeller.get(`/api/simulations/${res.body.runs[0].id}`);
-    expect(sim.body.origin).toMatchObject({ datasetId: up.body.id, fileRow: 3, temperatureK: 300, pressureMPa: 20, densityKgPerM3: 600 });
-    const missing = await modeller.post('/api/simulations/from-dataset').send({ datasetId: up.body.id, rows: [99], epsilonK: 120, sigmaAngstrom: 3.4 });
+    expect(sim.body.origin).toMatchObject({ measurementSetId: up.body.id, fileRow: 3, temperatureK: 300, pressureMPa: 20, densityKgPerM3: 600 });
+    const missing = await modeller.post('/api/simulations/from-measurement-set').send({ measurementSetId: up.body.id, rows: [99], epsilonK: 120, sigmaAngstrom: 3.4 });
     expect(missing.status).toBe(422);
     await t.ctx.jobs.cancel(res.body.runs[0].id);
   });

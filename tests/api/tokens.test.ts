@@ -1,6 +1,6 @@
 import { createHash } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { TOKEN_ROUTES } from '../../server/common/bearer-token';
+import { TOKEN_ROUTES } from '../../server/features/tokens/token-routes';
 import { approvedSet, newSubstance } from './approved-set';
 import { EMAIL, startTestApp, type TestApp } from './test-app';
 
@@ -170,7 +170,7 @@ describe('revoking', () => {
     expect((await t.client().get('/api/catalog').set(bearer(secret))).status).toBe(200);
     const admin = await t.signIn(EMAIL.admin);
     const modellerId = (await t.ctx.db.selectFrom('user').select('id').where('email', '=', EMAIL.modeller).executeTakeFirstOrThrow()).id;
-    expect((await admin.patch(`/api/users/${modellerId}`).send({ active: false })).status).toBe(200);
+    expect((await admin.patch(`/api/people/${modellerId}`).send({ active: false })).status).toBe(200);
     expect((await t.client().get('/api/catalog').set(bearer(secret))).status).toBe(401);
   });
 });

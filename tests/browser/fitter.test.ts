@@ -13,8 +13,8 @@ async function json<T>(page: Page, url: string): Promise<T> {
 async function qg1(page: Page, url: string) {
   const { substances } = await json<{ substances: Array<{ id: number; name: string }> }>(page, `${url}/api/substances`);
   const substanceId = substances.find((s) => s.name === 'Quillgas QG-1')!.id;
-  const { measurementSets } = await json<{ measurementSets: Array<{ id: number; property: string; name: string }> }>(page, `${url}/api/measurement-sets?substanceId=${substanceId}`);
-  return { substanceId, b2: measurementSets.find((d) => d.property === 'b2')! };
+  const { measurementSets } = await json<{ measurementSets: Array<{ id: number; kind: string; name: string }> }>(page, `${url}/api/measurement-sets?substanceId=${substanceId}`);
+  return { substanceId, b2: measurementSets.find((d) => d.kind === 'b2')! };
 }
 
 describe.skipIf(!available)('what a fitter expects: hold, leave out, notices, needs-my-action, revision diff', () => {
@@ -140,7 +140,7 @@ describe.skipIf(!available)('what a fitter expects: hold, leave out, notices, ne
     await page.getByRole('navigation', { name: 'Main' }).waitFor();
     const { substanceId } = await qg1(page, app.url);
     const csv = Buffer.from(['T (K),B2 (cm3/mol),u(B2) (cm3/mol)', '300,-20.1,0.5', '400,-5.2,0.5', '500,3.3,0.5'].join('\n'));
-    const upload = await page.request.post(`${app.url}/api/measurement-sets`, { headers: { Origin: app.url }, multipart: { substanceId: String(substanceId), property: 'b2', name: 'QG-1 B2, uncited bench check', file: { name: 'b2.csv', mimeType: 'text/csv', buffer: csv } } });
+    const upload = await page.request.post(`${app.url}/api/measurement-sets`, { headers: { Origin: app.url }, multipart: { substanceId: String(substanceId), kind: 'b2', name: 'QG-1 B2, uncited bench check', file: { name: 'b2.csv', mimeType: 'text/csv', buffer: csv } } });
     expect(upload.status()).toBe(201);
     expect(((await upload.json()) as { warnings: string[] }).warnings.length).toBeGreaterThan(0);
     await page.goto(`${app.url}/measurement-sets/${(await upload.json()).id}`);

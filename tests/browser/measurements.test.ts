@@ -29,14 +29,14 @@ describe.skipIf(!available)('measurement upload in Chromium', () => {
     await screenshot(page, 'upload-preview');
 
     await page.getByRole('button', { name: 'Store measurement set' }).click();
-    await page.waitForURL(/\/datasets\/\d+$/);
+    await page.waitForURL(/\/measurement-sets\/\d+$/);
     await page.getByText('version 1 of 1').waitFor();
     const rows = page.getByRole('table').filter({ hasText: 'File row' });
     const cells = async (i: number) => (await rows.getByRole('row').nth(i).getByRole('cell').allTextContents()).map((c) => c.trim());
     // "Row" counts data rows from 1 (the number a fit's "leave rows out" uses); "File row" is the line in the file.
     expect(await cells(1)).toEqual(['1', '3', '298.15', '1', '16', '0.02', 'file']);
     expect(await cells(4)).toEqual(['4', '6', '348.15', '5', '70', '0.05', 'file']);
-    await screenshot(page, 'dataset-detail');
+    await screenshot(page, 'measurement-set-detail');
     await page.close();
   });
 

@@ -24,13 +24,13 @@ describe.skipIf(!available)('a Mie λr-6 parameter set in Chromium', () => {
     const substance = await page.request.post(`${app.url}/api/substances`, { headers, data: { name: 'Quillgas QG-9', molarMass: 58.1 } });
     expect(substance.status()).toBe(201);
     const substanceId = (await substance.json()).id;
-    const upload = await page.request.post(`${app.url}/api/datasets`, {
+    const upload = await page.request.post(`${app.url}/api/measurement-sets`, {
       headers,
-      multipart: { substanceId: String(substanceId), property: 'b2', name: 'QG-9 B2', source: 'Fenwick Thermophysics Laboratory, invented run 9', doi: '10.1000/epsigma.mie.9', file: { name: 'b2.csv', mimeType: 'text/csv', buffer: mieB2Csv() } },
+      multipart: { substanceId: String(substanceId), kind: 'b2', name: 'QG-9 B2', source: 'Fenwick Thermophysics Laboratory, invented run 9', doi: '10.1000/epsigma.mie.9', file: { name: 'b2.csv', mimeType: 'text/csv', buffer: mieB2Csv() } },
     });
     expect(upload.status()).toBe(201);
-    const datasetId = (await upload.json()).id;
-    const fit = await page.request.post(`${app.url}/api/fits`, { headers, data: { substanceId, datasets: [{ id: datasetId }], options: { model: 'mie', repulsiveExponent: 16, posterior: { samples: 200 } } } });
+    const measurementSetId = (await upload.json()).id;
+    const fit = await page.request.post(`${app.url}/api/fits`, { headers, data: { substanceId, measurementSets: [{ id: measurementSetId }], options: { model: 'mie', repulsiveExponent: 16, posterior: { samples: 200 } } } });
     expect(fit.status()).toBe(202);
     const fitId = (await fit.json()).id;
     await expect.poll(async () => (await (await page.request.get(`${app.url}/api/fits/${fitId}`)).json()).status, { timeout: 60_000 }).toBe('succeeded');
@@ -45,7 +45,7 @@ describe.skipIf(!available)('a Mie λr-6 parameter set in Chromium', () => {
     await screenshot(page, 'mie-fit-insights');
 
     // The same data fitted with LJ 12-6, compared with the Mie fit: model, AIC and BIC side by side, and a verdict.
-    const ljFit = await page.request.post(`${app.url}/api/fits`, { headers, data: { substanceId, datasets: [{ id: datasetId }] } });
+    const ljFit = await page.request.post(`${app.url}/api/fits`, { headers, data: { substanceId, measurementSets: [{ id: measurementSetId }] } });
     const ljFitId = (await ljFit.json()).id;
     await expect.poll(async () => (await (await page.request.get(`${app.url}/api/fits/${ljFitId}`)).json()).status, { timeout: 60_000 }).toBe('succeeded');
     await page.goto(`${app.url}/fits/compare?a=${ljFitId}&b=${fitId}`);

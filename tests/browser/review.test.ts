@@ -16,7 +16,7 @@ function syntheticB2Csv(shiftCm3PerMol = 0): Buffer {
 }
 
 let substanceId: number;
-let datasetId: number;
+let measurementSetId: number;
 
 /** A substance, a B2 upload and a succeeded fit, made through the API with the signed-in page's cookies. */
 async function succeededFit(page: Page, url: string): Promise<number> {
@@ -24,17 +24,17 @@ async function succeededFit(page: Page, url: string): Promise<number> {
   const substance = await page.request.post(`${url}/api/substances`, { headers, data: { name: 'Reviewite', molarMass: 44.01 } });
   expect(substance.status()).toBe(201);
   substanceId = (await substance.json()).id;
-  const upload = await page.request.post(`${url}/api/datasets`, {
+  const upload = await page.request.post(`${url}/api/measurement-sets`, {
     headers,
-    multipart: { substanceId: String(substanceId), property: 'b2', name: 'Reviewite B2', source: 'Fenwick Thermophysics Laboratory, invented run 31', file: { name: 'b2.csv', mimeType: 'text/csv', buffer: syntheticB2Csv() } },
+    multipart: { substanceId: String(substanceId), kind: 'b2', name: 'Reviewite B2', source: 'Fenwick Thermophysics Laboratory, invented run 31', file: { name: 'b2.csv', mimeType: 'text/csv', buffer: syntheticB2Csv() } },
   });
   expect(upload.status()).toBe(201);
-  datasetId = (await upload.json()).id;
-  return fitOf(page, url, { id: datasetId });
+  measurementSetId = (await upload.json()).id;
+  return fitOf(page, url, { id: measurementSetId });
 }
 
-async function fitOf(page: Page, url: string, dataset: { id: number; version?: number }): Promise<number> {
-  const fit = await page.request.post(`${url}/api/fits`, { headers: { Origin: url }, data: { substanceId, datasets: [dataset] } });
+async function fitOf(page: Page, url: string, measurementSet: { id: number; version?: number }): Promise<number> {
+  const fit = await page.request.post(`${url}/api/fits`, { headers: { Origin: url }, data: { substanceId, measurementSets: [measurementSet] } });
   expect(fit.status()).toBe(202);
   const fitId = (await fit.json()).id;
   for (let i = 0; i < 120; i++) {
@@ -69,7 +69,7 @@ describe.skipIf(!available)('parameter-set review in Chromium', () => {
     await page.getByRole('heading', { name: 'Reviewite v1' }).waitFor();
     const caution = page.getByRole('note');
     await caution.waitFor();
-    expect(await caution.textContent()).toContain('Fitted model parameters are not validated property data for pressure, safety or process design; defer to local codes and licensed engineering practice.');
+    expect(await caution.textContent()).toContain('Fitted model parameters are not validated kind data for pressure, safety or process design; defer to local codes and licensed engineering practice.');
     await page.getByRole('button', { name: 'Submit for review' }).click();
     await page.getByRole('heading', { name: 'Actions' }).waitFor();
     await page.getByText('Nothing for you to do on this set now (In review).').waitFor();
@@ -119,9 +119,9 @@ describe.skipIf(!available)('parameter-set review in Chromium', () => {
     await page.getByRole('navigation', { name: 'Main' }).waitFor();
     const headers = { Origin: app.url };
     // A corrected table (every B2 value 1.5 cm³/mol higher) as version 2 of the measurement set, fitted again.
-    const v2data = await page.request.post(`${app.url}/api/datasets/${datasetId}/versions`, { headers, multipart: { source: 'Fenwick Thermophysics Laboratory, invented run 31, recalibrated', file: { name: 'b2-v2.csv', mimeType: 'text/csv', buffer: syntheticB2Csv(1.5) } } });
+    const v2data = await page.request.post(`${app.url}/api/measurement-sets/${measurementSetId}/versions`, { headers, multipart: { source: 'Fenwick Thermophysics Laboratory, invented run 31, recalibrated', file: { name: 'b2-v2.csv', mimeType: 'text/csv', buffer: syntheticB2Csv(1.5) } } });
     expect(v2data.status()).toBe(201);
-    const fitId = await fitOf(page, app.url, { id: datasetId, version: 2 });
+    const fitId = await fitOf(page, app.url, { id: measurementSetId, version: 2 });
     const drafted = await page.request.post(`${app.url}/api/parameter-sets`, { headers, data: { fitId, rationale: 'Recalibrated B2 table.' } });
     expect(drafted.status()).toBe(201);
     const setId = (await drafted.json()).id;

@@ -18,12 +18,12 @@ describe.skipIf(!available)('VLE, B12 and pair sets in Chromium', () => {
       await page.getByRole('link', { name }).first().waitFor();
     }
     await page.getByRole('link', { name: 'Upload measurements' }).click();
-    await page.getByLabel('Property').selectOption('vapourPressure');
+    await page.getByLabel('Kind').selectOption('vapourPressure');
     await page.getByLabel('CSV file').setInputFiles(demo('quillgas-qg1-vle.csv'));
     await page.getByRole('heading', { name: /Preview: 8 rows in canonical units/ }).waitFor();
     await page.getByLabel('Name of the measurement set').fill('QG-1 vapour pressure, browser upload');
     await page.getByRole('button', { name: 'Store measurement set' }).click();
-    await page.waitForURL(/\/datasets\/\d+$/);
+    await page.waitForURL(/\/measurement-sets\/\d+$/);
     await page.getByText('version 1 of 1').waitFor();
     // 77.022 kPa in the file is 0.077022 MPa (1 kPa = 1e-3 MPa, exact).
     await page.getByRole('cell', { name: '0.077022' }).first().waitFor();

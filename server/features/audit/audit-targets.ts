@@ -20,9 +20,9 @@ export async function targetLabels(db: Db, events: Array<{ targetType: string; t
     const rows = await db.selectFrom('parameterSet').innerJoin('substance', 'substance.id', 'parameterSet.substanceId').select(['parameterSet.id', 'parameterSet.version', 'parameterSet.scheme', 'substance.name']).where('parameterSet.id', 'in', setIds).execute();
     for (const s of rows) put('parameterSet', s.id, `${s.name} v${s.version} (${CUTOFF_SCHEME_LABELS[s.scheme]})`);
   }
-  const datasetIds = ids(events, 'dataset');
-  if (datasetIds.length) {
-    for (const d of await db.selectFrom('dataset').select(['id', 'name']).where('id', 'in', datasetIds).execute()) put('dataset', d.id, `Measurement set “${d.name}”`);
+  const measurementSetIds = ids(events, 'dataset');
+  if (measurementSetIds.length) {
+    for (const d of await db.selectFrom('measurementSet').select(['id', 'name']).where('id', 'in', measurementSetIds).execute()) put('dataset', d.id, `Measurement set “${d.name}”`);
   }
   const substanceIds = ids(events, 'substance');
   if (substanceIds.length) {

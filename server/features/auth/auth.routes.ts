@@ -1,12 +1,12 @@
 import { Router } from 'express';
 import { ipKeyGenerator } from 'express-rate-limit';
-import { changePasswordBody, signInBody } from '../../../shared/schemas/users';
+import { changePasswordBody, signInBody } from '../../../shared/schemas/people';
 import { currentUser, requireUser } from '../../common/auth-middleware';
 import { AppError } from '../../common/errors';
 import { validBody } from '../../common/validate';
 import type { AppContext } from '../../app-context';
 import { recordAudit } from '../audit/audit.service';
-import { findUserByEmail, findUserById } from '../users/users.repository';
+import { findPersonByEmail, findPersonById } from '../people/people.repository';
 import { hashPassword, sessionIdHash, verifyPassword } from './auth';
 import { signInLimiter } from './sign-in-limiter';
 
@@ -28,7 +28,7 @@ export function authRoutes(ctx: AppContext): Router {
       res.set('Retry-After', String(waitSeconds));
       throw new AppError(429, 'too_many_attempts', `Too many failed sign-ins for this address. Wait ${Math.ceil(waitSeconds / 60)} minute${waitSeconds > 60 ? 's' : ''} and try again.`);
     }
-    const user = await findUserByEmail(db, body.email);
+    const user = await findPersonByEmail(db, body.email);
     let ok = false;
     if (user) ok = await verifyPassword(user.passwordHash, body.password);
     else await verifyPassword(await (decoyHash ??= hashPassword(`decoy-${Math.random()}`)), body.password);
@@ -63,7 +63,7 @@ export function authRoutes(ctx: AppContext): Router {
   router.post('/me/password', requireUser, async (req, res) => {
     const body = validBody(changePasswordBody, req);
     const me = currentUser(res);
-    const row = await findUserById(db, me.id);
+    const row = await findPersonById(db, me.id);
     if (!row || !(await verifyPassword(row.passwordHash, body.currentPassword))) {
       throw new AppError(422, 'wrong_password', 'The current password is not right.', [
         { field: 'currentPassword', message: 'does not match' },

@@ -9,7 +9,7 @@ function catalogQuery(db: Db | Tx) {
     .innerJoin('substance', 'substance.id', 'ps.substanceId')
     .select([
       'ps.id', 'ps.substanceId', 'substance.name as substanceName', 'substance.formula', 'substance.molarMassGramsPerMol', 'ps.scheme', 'ps.cutoffSigma', 'ps.version',
-      'ps.fitId', 'ps.model', 'ps.potential', 'ps.repulsiveExponent', 'ps.epsilonK', 'ps.sigmaAngstrom', 'ps.epsilonStdErrK', 'ps.sigmaStdErrAngstrom', 'ps.correlation', 'ps.datasetsJson',
+      'ps.fitId', 'ps.model', 'ps.potential', 'ps.repulsiveExponent', 'ps.epsilonK', 'ps.sigmaAngstrom', 'ps.epsilonStdErrK', 'ps.sigmaStdErrAngstrom', 'ps.correlation', 'ps.measurementSetsJson',
       'ps.temperatureMinK', 'ps.temperatureMaxK', 'ps.pressureMinMpa', 'ps.pressureMaxMpa', 'ps.state', 'ps.createdAt',
     ])
     // The newest approve move (a set is approved once; max keeps the query safe if that ever changes).
@@ -55,9 +55,9 @@ export async function approvals(db: Db | Tx, transitionIds: number[]) {
   return new Map(rows.map((r) => [r.id, { at: r.at, actorName: r.actorName, comment: r.comment }]));
 }
 
-/** Source, DOI and method of dataset versions, by version id. */
-export async function datasetVersionSources(db: Db | Tx, versionIds: number[]) {
+/** Source, DOI and method of measurement set versions, by version id. */
+export async function measurementSetVersionSources(db: Db | Tx, versionIds: number[]) {
   if (!versionIds.length) return new Map<number, { source: string | null; doi: string | null; method: string | null }>();
-  const rows = await db.selectFrom('datasetVersion').select(['id', 'source', 'doi', 'method']).where('id', 'in', versionIds).execute();
+  const rows = await db.selectFrom('measurementSetVersion').select(['id', 'source', 'doi', 'method']).where('id', 'in', versionIds).execute();
   return new Map(rows.map((r) => [r.id, { source: r.source, doi: r.doi, method: r.method }]));
 }

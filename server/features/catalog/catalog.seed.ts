@@ -1,16 +1,16 @@
 import { DEMO_PEOPLE, DEMO_SUBSTANCES } from '../../../fixtures/demo/scenario';
-import { fitLennardJones, type FitDataset, type LjFitOptions } from '../../../shared/fitting/lj-fit';
+import { fitLennardJones, type FitMeasurementSet, type LjFitOptions } from '../../../shared/fitting/lj-fit';
 import type { AppContext } from '../../app-context';
 import type { CurrentUser } from '../../common/auth-middleware';
 import { recordAudit } from '../audit/audit.service';
-import { loadVersionForFit } from '../datasets/datasets.service';
-import type { FitDatasetRef, FitJobInput } from '../fits/fits.service';
+import { loadVersionForFit } from '../measurement-sets/measurement-sets.service';
+import type { FitMeasurementSetRef, FitJobInput } from '../fits/fits.service';
 import { createParameterSet, reviewParameterSet, submitParameterSet } from '../parameter-sets/parameter-sets.service';
-import { findUserByEmail, rolesOf } from '../users/users.repository';
+import { findPersonByEmail, rolesOf } from '../people/people.repository';
 
 async function demoPerson(ctx: AppContext, role: 'modeller' | 'reviewer'): Promise<CurrentUser | null> {
   const email = DEMO_PEOPLE.find((p) => p.roles.includes(role))?.email;
-  const row = email ? await findUserByEmail(ctx.db, email) : undefined;
+  const row = email ? await findPersonByEmail(ctx.db, email) : undefined;
   return row ? { id: row.id, email: row.email, name: row.name, roles: await rolesOf(ctx.db, row.id) } : null;
 }
 
@@ -34,24 +34,24 @@ export async function seedApprovedDemoSets(ctx: AppContext): Promise<number> {
     const substance = await db.selectFrom('substance').select(['id', 'molarMassGramsPerMol']).where('name', '=', demo.name).executeTakeFirst();
     if (!substance) continue;
     const versions = await db
-      .selectFrom('dataset')
-      .innerJoin('datasetVersion', 'datasetVersion.datasetId', 'dataset.id')
-      .select(['dataset.id as datasetId', 'dataset.name', 'dataset.property', 'datasetVersion.id as versionId', 'datasetVersion.version'])
-      .where('dataset.substanceId', '=', substance.id)
-      .where('dataset.property', 'in', ['b2', 'viscosity'])
-      .orderBy('dataset.id')
-      .orderBy('datasetVersion.version', 'desc')
+      .selectFrom('measurementSet')
+      .innerJoin('measurementSetVersion', 'measurementSetVersion.measurementSetId', 'measurementSet.id')
+      .select(['measurementSet.id as measurementSetId', 'measurementSet.name', 'measurementSet.kind', 'measurementSetVersion.id as versionId', 'measurementSetVersion.version'])
+      .where('measurementSet.substanceId', '=', substance.id)
+      .where('measurementSet.kind', 'in', ['b2', 'viscosity'])
+      .orderBy('measurementSet.id')
+      .orderBy('measurementSetVersion.version', 'desc')
       .execute();
-    const latest = versions.filter((v, k) => k === 0 || versions[k - 1].datasetId !== v.datasetId);
+    const latest = versions.filter((v, k) => k === 0 || versions[k - 1].measurementSetId !== v.measurementSetId);
     if (!latest.length) continue;
-    const refs: FitDatasetRef[] = latest.map((v) => ({ datasetId: v.datasetId, version: v.version, versionId: v.versionId, kind: v.property, name: v.name, weight: 1 }));
-    const datasets: FitDataset[] = [];
+    const refs: FitMeasurementSetRef[] = latest.map((v) => ({ measurementSetId: v.measurementSetId, version: v.version, versionId: v.versionId, kind: v.kind, name: v.name, weight: 1 }));
+    const measurementSets: FitMeasurementSet[] = [];
     for (const ref of refs) {
       const rows = await loadVersionForFit(db, ref.versionId);
-      datasets.push({
-        id: ref.datasetId,
+      measurementSets.push({
+        id: ref.measurementSetId,
         version: ref.version,
-        kind: ref.kind as FitDataset['kind'],
+        kind: ref.kind as FitMeasurementSet['kind'],
         weight: 1,
         label: ref.name,
         rows: rows.map((r) => ({ temperatureK: r.temperatureK, ...(r.pressureMPa !== null ? { pressureMPa: r.pressureMPa } : {}), value: r.value, uncertainty: r.uncertainty })),
@@ -59,10 +59,10 @@ export async function seedApprovedDemoSets(ctx: AppContext): Promise<number> {
     }
     const options: LjFitOptions = { molarMassGPerMol: substance.molarMassGramsPerMol };
     const started = new Date().toISOString();
-    const result = fitLennardJones(datasets, options);
+    const result = fitLennardJones(measurementSets, options);
     if (result.status !== 'succeeded') continue;
     const finished = new Date().toISOString();
-    const input: FitJobInput = { datasets: refs, options, createdBy: modeller.id };
+    const input: FitJobInput = { measurementSets: refs, options, createdBy: modeller.id };
     const fitId = await db.transaction().execute(async (tx) => {
       const job = await tx
         .insertInto('job')
@@ -71,10 +71,10 @@ export async function seedApprovedDemoSets(ctx: AppContext): Promise<number> {
         .executeTakeFirstOrThrow();
       const fit = await tx
         .insertInto('fit')
-        .values({ substanceId: substance.id, number: 1, jobId: job.id, model: 'lj-12-6', datasetsJson: JSON.stringify(refs), optionsJson: JSON.stringify(options), codeVersion: ctx.codeVersion, createdBy: modeller.id, createdAt: started })
+        .values({ substanceId: substance.id, number: 1, jobId: job.id, model: 'lj-12-6', measurementSetsJson: JSON.stringify(refs), optionsJson: JSON.stringify(options), codeVersion: ctx.codeVersion, createdBy: modeller.id, createdAt: started })
         .returning('id')
         .executeTakeFirstOrThrow();
-      await recordAudit(tx, { actor: modeller, action: 'fit.started', targetType: 'fit', targetId: fit.id, summary: `Demo seed ran Fit #1 of ${demo.name} on ${refs.map((r) => `${r.name} v${r.version}`).join(', ')}`, after: { datasets: refs, options } });
+      await recordAudit(tx, { actor: modeller, action: 'fit.started', targetType: 'fit', targetId: fit.id, summary: `Demo seed ran Fit #1 of ${demo.name} on ${refs.map((r) => `${r.name} v${r.version}`).join(', ')}`, after: { measurementSets: refs, options } });
       return fit.id;
     });
     const kinds = refs.map((r) => (r.kind === 'b2' ? 'B2' : 'dilute-gas viscosity')).join(' and ');

@@ -10,9 +10,10 @@ import type { CurrentUser } from '../../common/auth-middleware';
 import { AppError, notFound } from '../../common/errors';
 import type SQLite from 'better-sqlite3';
 import type { Db } from '../../db/database';
-import type { FitDatasetRef } from '../fits/fits.service';
+import type { FitMeasurementSetRef } from '../fits/fits.service';
 import { getParameterSetDetail } from '../parameter-sets/parameter-sets.service';
-import { approvals, datasetVersionSources, findCatalogRow, listCatalogRows, versionRows, type CatalogRow } from './catalog.repository';
+import { approvals, measurementSetVersionSources, findCatalogRow, listCatalogRows, versionRows, type CatalogRow } from './catalog.repository';
+import { readStoredJson } from '../../../shared/schemas/old-names';
 
 /**
  * States the export and mixture routes serve: the approved version and the superseded ones it replaced
@@ -20,7 +21,7 @@ import { approvals, datasetVersionSources, findCatalogRow, listCatalogRows, vers
  */
 export const EXPORTABLE_STATES: readonly ParameterSetState[] = ['approved', 'superseded'];
 
-const kindsOf = (row: { datasetsJson: string }) => [...new Set((JSON.parse(row.datasetsJson) as FitDatasetRef[]).map((d) => d.kind))].sort() as PropertyKind[];
+const kindsOf = (row: { measurementSetsJson: string }) => [...new Set((readStoredJson(row.measurementSetsJson) as FitMeasurementSetRef[]).map((d) => d.kind))].sort() as PropertyKind[];
 
 function toCatalogEntry(row: CatalogRow, approval: { at: string; actorName: string | null } | undefined) {
   return {
@@ -128,7 +129,7 @@ export async function parameterCard(db: Db, id: number, viewer: CurrentUser) {
     approvalComment: approval?.comment ?? null,
     rationale: detail.rationale,
     fit: detail.fit,
-    datasets: detail.datasets,
+    measurementSets: detail.measurementSets,
     exportable: EXPORTABLE_STATES.includes(row.state),
     currentApprovedId: current?.id ?? null,
     // Oldest first; each version's change is against the published version before it.
@@ -164,8 +165,8 @@ export async function exportableSet(db: Db, id: number, viewer: CurrentUser, fie
   if (!EXPORTABLE_STATES.includes(row.state)) {
     throw new AppError(409, 'not_exportable', `Parameter set ${id} is ${STATE_LABELS[row.state]}; only approved and superseded sets are exported.`, [{ field, message: `set ${id} is ${row.state}` }]);
   }
-  const refs = JSON.parse(row.datasetsJson) as FitDatasetRef[];
-  const sources = await datasetVersionSources(db, refs.map((r) => r.versionId));
+  const refs = readStoredJson(row.measurementSetsJson) as FitMeasurementSetRef[];
+  const sources = await measurementSetVersionSources(db, refs.map((r) => r.versionId));
   const approval = row.approveTransitionId != null ? (await approvals(db, [row.approveTransitionId])).get(row.approveTransitionId) : undefined;
   return {
     id: row.id,
@@ -184,7 +185,7 @@ export async function exportableSet(db: Db, id: number, viewer: CurrentUser, fie
     approvedBy: approval?.actorName ?? null,
     state: row.state,
     fitId: row.fitId,
-    datasets: refs.map((r) => ({ id: r.datasetId, version: r.version, kind: r.kind, name: r.name, source: sources.get(r.versionId)?.source ?? null, doi: sources.get(r.versionId)?.doi ?? null })),
+    measurementSets: refs.map((r) => ({ id: r.measurementSetId, version: r.version, kind: r.kind, name: r.name, source: sources.get(r.versionId)?.source ?? null, doi: sources.get(r.versionId)?.doi ?? null })),
   };
 }
 

@@ -5,20 +5,21 @@
  * where a state lies outside the set's validity range.
  */
 import { predictWithUncertainty } from '../../../shared/fitting/prediction';
-import { PROPERTY_MODELS } from '../../../shared/fitting/property-models';
+import { MIE_KINDS_TEXT, PROPERTY_MODELS } from '../../../shared/fitting/property-models';
 import type { PredictionQuery } from '../../../shared/schemas/catalog';
 import type { CurrentUser } from '../../common/auth-middleware';
 import { AppError } from '../../common/errors';
 import type { Db } from '../../db/database';
 import { requireFit } from '../fits/fits.service';
 import { exportableSet } from './catalog.service';
+import { readStoredJson } from '../../../shared/schemas/old-names';
 
 export async function predictionsOfSet(db: Db, id: number, viewer: CurrentUser, query: PredictionQuery) {
   const set = await exportableSet(db, id, viewer);
   const n = set.repulsiveExponent ?? 12;
   const model = PROPERTY_MODELS[query.kind];
   if (n !== 12 && !(model as { supportsMie?: boolean }).supportsMie) {
-    throw new AppError(422, 'kind_not_mie', `Parameter set ${id} is a Mie ${n}-6 set; Epsigma has no ${model.label} model for Mie potentials yet (B2 only).`, [{ field: 'kind', message: `no Mie model for ${query.kind}` }]);
+    throw new AppError(422, 'kind_not_mie', `Parameter set ${id} is a Mie ${n}-6 set; Epsigma has no ${model.label} model for Mie potentials yet (${MIE_KINDS_TEXT} only).`, [{ field: 'kind', message: `no Mie model for ${query.kind}` }]);
   }
   const { epsilonK: se, sigmaAngstrom: ss } = set.stdErr;
   if (se == null || ss == null) throw new AppError(422, 'no_uncertainty', `Parameter set ${id} has no standard errors (a held parameter), so no uncertainty can be propagated.`, [{ field: 'id', message: 'no covariance' }]);
@@ -28,7 +29,7 @@ export async function predictionsOfSet(db: Db, id: number, viewer: CurrentUser, 
     [rho * se * ss, ss * ss],
   ];
   const fit = await requireFit(db, set.fitId);
-  const result = fit.resultJson ? JSON.parse(fit.resultJson) : null;
+  const result = fit.resultJson ? readStoredJson(fit.resultJson) : null;
   const draws: Array<{ epsilonK: number; sigmaAngstrom: number }> | undefined = result?.posterior?.draws;
   const states = query.temperaturesK.map((temperatureK, i) => ({ temperatureK, ...(query.pressuresMPa ? { pressureMPa: query.pressuresMPa[i] } : {}) }));
   const context = { molarMassGPerMol: set.substance.molarMassGPerMol, quantumCorrection: false, ...(n !== 12 ? { repulsiveExponent: n } : {}) };

@@ -6,7 +6,7 @@ export interface FitTable {
   number: number;
   jobId: number;
   model: string;
-  datasetsJson: string;
+  measurementSetsJson: string;
   optionsJson: string;
   codeVersion: string;
   createdBy: string;

@@ -1,87 +1,87 @@
 import type { Db, Tx } from '../../db/database';
 
 const VERSION_COLUMNS = [
-  'datasetVersion.id',
-  'datasetVersion.datasetId',
-  'datasetVersion.version',
-  'datasetVersion.sha256',
-  'datasetVersion.originalFilename',
-  'datasetVersion.source',
-  'datasetVersion.doi',
-  'datasetVersion.method',
-  'datasetVersion.notes',
-  'datasetVersion.defaultRelativeUncertainty',
-  'datasetVersion.delimiter',
-  'datasetVersion.decimal',
-  'datasetVersion.columnsJson',
-  'datasetVersion.rowCount',
-  'datasetVersion.uploadedBy',
-  'datasetVersion.uploadedAt',
+  'measurementSetVersion.id',
+  'measurementSetVersion.measurementSetId',
+  'measurementSetVersion.version',
+  'measurementSetVersion.sha256',
+  'measurementSetVersion.originalFilename',
+  'measurementSetVersion.source',
+  'measurementSetVersion.doi',
+  'measurementSetVersion.method',
+  'measurementSetVersion.notes',
+  'measurementSetVersion.defaultRelativeUncertainty',
+  'measurementSetVersion.delimiter',
+  'measurementSetVersion.decimal',
+  'measurementSetVersion.columnsJson',
+  'measurementSetVersion.rowCount',
+  'measurementSetVersion.uploadedBy',
+  'measurementSetVersion.uploadedAt',
 ] as const;
 
-export async function findDataset(db: Db | Tx, id: number) {
+export async function findMeasurementSet(db: Db | Tx, id: number) {
   return db
-    .selectFrom('dataset')
-    .leftJoin('datasetWithdrawal', 'datasetWithdrawal.datasetId', 'dataset.id')
-    .selectAll('dataset')
-    .select(['datasetWithdrawal.withdrawnAt', 'datasetWithdrawal.reason as withdrawnReason', 'datasetWithdrawal.withdrawnBy'])
-    .where('dataset.id', '=', id)
+    .selectFrom('measurementSet')
+    .leftJoin('measurementSetWithdrawal', 'measurementSetWithdrawal.measurementSetId', 'measurementSet.id')
+    .selectAll('measurementSet')
+    .select(['measurementSetWithdrawal.withdrawnAt', 'measurementSetWithdrawal.reason as withdrawnReason', 'measurementSetWithdrawal.withdrawnBy'])
+    .where('measurementSet.id', '=', id)
     .executeTakeFirst();
 }
 
-export async function listVersions(db: Db | Tx, datasetId: number) {
+export async function listVersions(db: Db | Tx, measurementSetId: number) {
   return db
-    .selectFrom('datasetVersion')
-    .innerJoin('user', 'user.id', 'datasetVersion.uploadedBy')
+    .selectFrom('measurementSetVersion')
+    .innerJoin('user', 'user.id', 'measurementSetVersion.uploadedBy')
     .select([...VERSION_COLUMNS, 'user.name as uploadedByName'])
-    .where('datasetVersion.datasetId', '=', datasetId)
-    .orderBy('datasetVersion.version', 'desc')
+    .where('measurementSetVersion.measurementSetId', '=', measurementSetId)
+    .orderBy('measurementSetVersion.version', 'desc')
     .execute();
 }
 
-export async function latestVersionNumber(db: Db | Tx, datasetId: number): Promise<number> {
+export async function latestVersionNumber(db: Db | Tx, measurementSetId: number): Promise<number> {
   const row = await db
-    .selectFrom('datasetVersion')
+    .selectFrom('measurementSetVersion')
     .select((eb) => eb.fn.max('version').as('v'))
-    .where('datasetId', '=', datasetId)
+    .where('measurementSetId', '=', measurementSetId)
     .executeTakeFirst();
   return Number(row?.v ?? 0);
 }
 
-export async function findVersionRow(db: Db | Tx, datasetId: number, version: number) {
-  return db.selectFrom('datasetVersion').selectAll().where('datasetId', '=', datasetId).where('version', '=', version).executeTakeFirst();
+export async function findVersionRow(db: Db | Tx, measurementSetId: number, version: number) {
+  return db.selectFrom('measurementSetVersion').selectAll().where('measurementSetId', '=', measurementSetId).where('version', '=', version).executeTakeFirst();
 }
 
-export async function rowsOfVersion(db: Db | Tx, datasetVersionId: number) {
-  return db.selectFrom('measurementRow').selectAll().where('datasetVersionId', '=', datasetVersionId).orderBy('position').execute();
+export async function rowsOfVersion(db: Db | Tx, measurementSetVersionId: number) {
+  return db.selectFrom('measurementRow').selectAll().where('measurementSetVersionId', '=', measurementSetVersionId).orderBy('position').execute();
 }
 
-/** Every dataset of a substance with its newest version's summary. */
-export async function listDatasetsOfSubstance(db: Db | Tx, substanceId?: number) {
+/** Every measurement set of a substance with its newest version's summary. */
+export async function listMeasurementSetsOfSubstance(db: Db | Tx, substanceId?: number) {
   let q = db
-    .selectFrom('dataset')
-    .innerJoin('datasetVersion', 'datasetVersion.datasetId', 'dataset.id')
-    .innerJoin('substance', 'substance.id', 'dataset.substanceId')
-    .leftJoin('datasetWithdrawal', 'datasetWithdrawal.datasetId', 'dataset.id')
+    .selectFrom('measurementSet')
+    .innerJoin('measurementSetVersion', 'measurementSetVersion.measurementSetId', 'measurementSet.id')
+    .innerJoin('substance', 'substance.id', 'measurementSet.substanceId')
+    .leftJoin('measurementSetWithdrawal', 'measurementSetWithdrawal.measurementSetId', 'measurementSet.id')
     .select([
-      'dataset.id',
-      'dataset.substanceId',
+      'measurementSet.id',
+      'measurementSet.substanceId',
       'substance.name as substanceName',
-      'dataset.property',
-      'dataset.name',
-      'dataset.createdAt',
-      'datasetVersion.version',
-      'datasetVersion.id as versionId',
-      'datasetVersion.rowCount',
-      'datasetVersion.source',
-      'datasetVersion.doi',
-      'datasetVersion.uploadedAt',
-      'datasetVersion.sha256',
-      'datasetWithdrawal.withdrawnAt',
+      'measurementSet.kind',
+      'measurementSet.name',
+      'measurementSet.createdAt',
+      'measurementSetVersion.version',
+      'measurementSetVersion.id as versionId',
+      'measurementSetVersion.rowCount',
+      'measurementSetVersion.source',
+      'measurementSetVersion.doi',
+      'measurementSetVersion.uploadedAt',
+      'measurementSetVersion.sha256',
+      'measurementSetWithdrawal.withdrawnAt',
     ])
     .where(({ eb, selectFrom }) =>
-      eb('datasetVersion.version', '=', selectFrom('datasetVersion as v2').select((e) => e.fn.max('v2.version').as('m')).whereRef('v2.datasetId', '=', 'dataset.id')),
+      eb('measurementSetVersion.version', '=', selectFrom('measurementSetVersion as v2').select((e) => e.fn.max('v2.version').as('m')).whereRef('v2.measurementSetId', '=', 'measurementSet.id')),
     );
-  if (substanceId !== undefined) q = q.where('dataset.substanceId', '=', substanceId);
-  return q.orderBy('dataset.property').orderBy('dataset.name').execute();
+  if (substanceId !== undefined) q = q.where('measurementSet.substanceId', '=', substanceId);
+  return q.orderBy('measurementSet.kind').orderBy('measurementSet.name').execute();
 }

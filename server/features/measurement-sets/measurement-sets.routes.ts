@@ -1,7 +1,7 @@
 import { Router, type RequestHandler } from 'express';
 import multer from 'multer';
 import { z } from 'zod';
-import { datasetUploadFields, datasetVersionFields } from '../../../shared/schemas/measurements';
+import { measurementSetUploadFields, measurementSetVersionFields } from '../../../shared/schemas/measurements';
 import { PROPERTY_KINDS, type PropertyKind } from '../../../shared/measurements/property-kinds';
 import { hasPolicy, mayChangeWorkOf, refusalMessage } from '../../../shared/auth/roles';
 import { currentUser, requirePolicy, requireUser } from '../../common/auth-middleware';
@@ -10,18 +10,18 @@ import { idParams, validBody, validParams, validQuery } from '../../common/valid
 import type { AppContext } from '../../app-context';
 import { recordAudit } from '../audit/audit.service';
 import { findSubstance } from '../substances/substances.repository';
-import { findDataset, findVersionRow, listDatasetsOfSubstance, listVersions, rowsOfVersion } from './datasets.repository';
-import { parseUpload, storeVersion, toApiRow, type UploadedFile } from './datasets.service';
+import { findMeasurementSet, findVersionRow, listMeasurementSetsOfSubstance, listVersions, rowsOfVersion } from './measurement-sets.repository';
+import { parseUpload, storeVersion, toApiRow, type UploadedFile } from './measurement-sets.service';
 
 /** Upload limit: 2 MiB is far above any real table of state points (5000 rows ≈ 200 kB). */
 export const UPLOAD_LIMIT_BYTES = 2 * 1024 * 1024;
 
-export const toDatasetSummary = (d: Awaited<ReturnType<typeof listDatasetsOfSubstance>>[number]) => ({
+export const toMeasurementSetSummary = (d: Awaited<ReturnType<typeof listMeasurementSetsOfSubstance>>[number]) => ({
   id: d.id,
   substanceId: d.substanceId,
   substanceName: d.substanceName,
-  property: d.property,
-  propertyLabel: PROPERTY_KINDS[d.property].label,
+  kind: d.kind,
+  kindLabel: PROPERTY_KINDS[d.kind].label,
   name: d.name,
   version: d.version,
   versionId: d.versionId,
@@ -74,24 +74,24 @@ function citationWarnings(source: string | undefined | null): string[] {
   return source && source.trim() ? [] : ['No source citation was given. A parameter set fitted to this measurement set cannot be submitted for review until a version that cites its source is uploaded.'];
 }
 
-export function datasetRoutes(ctx: AppContext): Router {
+export function measurementSetRoutes(ctx: AppContext): Router {
   const router = Router();
   const { db } = ctx;
 
-  router.get('/datasets', requirePolicy('dataset:read'), async (req, res) => {
+  router.get('/measurement-sets', requirePolicy('measurement-set:read'), async (req, res) => {
     const { substanceId } = validQuery(listQuery, req);
-    res.json({ datasets: (await listDatasetsOfSubstance(db, substanceId)).map(toDatasetSummary) });
+    res.json({ measurementSets: (await listMeasurementSetsOfSubstance(db, substanceId)).map(toMeasurementSetSummary) });
   });
 
-  router.post('/datasets', requirePolicy('dataset:upload'), singleCsv, async (req, res) => {
-    const fields = validBody(datasetUploadFields, req);
+  router.post('/measurement-sets', requirePolicy('measurement-set:upload'), singleCsv, async (req, res) => {
+    const fields = validBody(measurementSetUploadFields, req);
     const file = requireFile(req.file);
     const actor = currentUser(res);
     const substance = await findSubstance(db, fields.substanceId);
     if (!substance) throw new AppError(422, 'unknown_substance', `Substance ${fields.substanceId} does not exist.`, [{ field: 'substanceId', message: 'no such substance' }]);
-    const parsed = parseUpload(file, fields.property, fields, substance.molarMassGramsPerMol);
+    const parsed = parseUpload(file, fields.kind, fields, substance.molarMassGramsPerMol);
     const stored = await db.transaction().execute((tx) =>
-      storeVersion(tx, { newDataset: { substanceId: substance.id, property: fields.property, name: fields.name }, file, fields, parsed, actor }),
+      storeVersion(tx, { newMeasurementSet: { substanceId: substance.id, kind: fields.kind, name: fields.name }, file, fields, parsed, actor }),
     );
     res.status(201).json({ ...stored, warnings: [...parsed.warnings.map((w) => w.message), ...citationWarnings(fields.source)] });
   });
@@ -100,52 +100,52 @@ export function datasetRoutes(ctx: AppContext): Router {
    * Ownership rule (shared/auth/roles.ts mayChangeWorkOf): a new version or a withdrawal is for the author of
    * the measurement set (who uploaded version 1) or an admin. Checked before any file is read.
    */
-  const requireDatasetAuthorOrAdmin: RequestHandler = async (req, res, next) => {
+  const requireMeasurementSetAuthorOrAdmin: RequestHandler = async (req, res, next) => {
     const { id } = validParams(idParams, req);
     const actor = currentUser(res);
-    if (!hasPolicy(actor.roles, 'dataset:upload') && !actor.roles.includes('admin')) throw forbidden(refusalMessage(actor.roles, 'dataset:upload', ['admin']));
-    const dataset = await findDataset(db, id);
-    if (!dataset) throw notFound(`Dataset ${id}`);
-    if (!mayChangeWorkOf(actor, dataset.createdBy, 'dataset:upload')) {
-      const author = await db.selectFrom('user').select('name').where('id', '=', dataset.createdBy).executeTakeFirst();
-      throw new AppError(403, 'not_author', `Only the author of measurement set "${dataset.name}" (${author?.name ?? 'unknown'}) or an admin may change it.`);
+    if (!hasPolicy(actor.roles, 'measurement-set:upload') && !actor.roles.includes('admin')) throw forbidden(refusalMessage(actor.roles, 'measurement-set:upload', ['admin']));
+    const measurementSet = await findMeasurementSet(db, id);
+    if (!measurementSet) throw notFound(`Measurement set ${id}`);
+    if (!mayChangeWorkOf(actor, measurementSet.createdBy, 'measurement-set:upload')) {
+      const author = await db.selectFrom('user').select('name').where('id', '=', measurementSet.createdBy).executeTakeFirst();
+      throw new AppError(403, 'not_author', `Only the author of measurement set "${measurementSet.name}" (${author?.name ?? 'unknown'}) or an admin may change it.`);
     }
     next();
   };
 
-  router.post('/datasets/:id/versions', requireUser, requireDatasetAuthorOrAdmin, singleCsv, async (req, res) => {
+  router.post('/measurement-sets/:id/versions', requireUser, requireMeasurementSetAuthorOrAdmin, singleCsv, async (req, res) => {
     const { id } = validParams(idParams, req);
-    const fields = validBody(datasetVersionFields, req);
+    const fields = validBody(measurementSetVersionFields, req);
     const file = requireFile(req.file);
     const actor = currentUser(res);
-    const dataset = await findDataset(db, id);
-    if (!dataset) throw notFound(`Dataset ${id}`);
-    if (dataset.withdrawnAt) throw conflict(`Dataset ${id} was withdrawn; upload a new dataset instead.`);
-    const substance = await findSubstance(db, dataset.substanceId);
-    const parsed = parseUpload(file, dataset.property, fields, substance!.molarMassGramsPerMol);
-    const stored = await db.transaction().execute((tx) => storeVersion(tx, { datasetId: id, file, fields, parsed, actor }));
+    const measurementSet = await findMeasurementSet(db, id);
+    if (!measurementSet) throw notFound(`Measurement set ${id}`);
+    if (measurementSet.withdrawnAt) throw conflict(`Measurement set ${id} was withdrawn; upload a new measurement set instead.`);
+    const substance = await findSubstance(db, measurementSet.substanceId);
+    const parsed = parseUpload(file, measurementSet.kind, fields, substance!.molarMassGramsPerMol);
+    const stored = await db.transaction().execute((tx) => storeVersion(tx, { measurementSetId: id, file, fields, parsed, actor }));
     res.status(201).json({ ...stored, warnings: [...parsed.warnings.map((w) => w.message), ...citationWarnings(fields.source)] });
   });
 
-  router.get('/datasets/:id', requirePolicy('dataset:read'), async (req, res) => {
+  router.get('/measurement-sets/:id', requirePolicy('measurement-set:read'), async (req, res) => {
     const { id } = validParams(idParams, req);
     const { version: wanted } = validQuery(versionQuery, req);
-    const dataset = await findDataset(db, id);
-    if (!dataset) throw notFound(`Dataset ${id}`);
+    const measurementSet = await findMeasurementSet(db, id);
+    if (!measurementSet) throw notFound(`Measurement set ${id}`);
     const versions = await listVersions(db, id);
     const chosen = wanted === undefined ? versions[0] : versions.find((v) => v.version === wanted);
-    if (!chosen) throw notFound(`Version ${wanted} of dataset ${id}`);
+    if (!chosen) throw notFound(`Version ${wanted} of measurement set ${id}`);
     const rows = await rowsOfVersion(db, chosen.id);
-    const substance = await findSubstance(db, dataset.substanceId);
-    const kind = dataset.property as PropertyKind;
+    const substance = await findSubstance(db, measurementSet.substanceId);
+    const kind = measurementSet.kind as PropertyKind;
     const def = PROPERTY_KINDS[kind];
     res.json({
-      id: dataset.id,
-      name: dataset.name,
-      substanceId: dataset.substanceId,
+      id: measurementSet.id,
+      name: measurementSet.name,
+      substanceId: measurementSet.substanceId,
       substanceName: substance?.name,
-      property: kind,
-      propertyLabel: def.label,
+      kind,
+      kindLabel: def.label,
       valueField: def.valueField,
       uncertaintyField: def.uncertaintyField,
       version: chosen.version,
@@ -164,16 +164,16 @@ export function datasetRoutes(ctx: AppContext): Router {
       rowCount: chosen.rowCount,
       uploadedAt: chosen.uploadedAt,
       uploadedByName: chosen.uploadedByName,
-      withdrawn: dataset.withdrawnAt ? { at: dataset.withdrawnAt, reason: dataset.withdrawnReason } : null,
+      withdrawn: measurementSet.withdrawnAt ? { at: measurementSet.withdrawnAt, reason: measurementSet.withdrawnReason } : null,
       versions: versions.map((v) => ({ version: v.version, sha256: v.sha256, rowCount: v.rowCount, uploadedAt: v.uploadedAt, uploadedByName: v.uploadedByName, originalFilename: v.originalFilename, source: v.source })),
       rows: rows.map((r) => toApiRow(kind, r)),
     });
   });
 
-  router.get('/datasets/:id/versions/:version/original', requirePolicy('dataset:read'), async (req, res) => {
+  router.get('/measurement-sets/:id/versions/:version/original', requirePolicy('measurement-set:read'), async (req, res) => {
     const { id, version } = validParams(versionParams, req);
     const row = await findVersionRow(db, id, version);
-    if (!row) throw notFound(`Version ${version} of dataset ${id}`);
+    if (!row) throw notFound(`Version ${version} of measurement set ${id}`);
     const safeName = row.originalFilename.replace(/[^\w.\- ]+/g, '_');
     res.setHeader('Content-Type', 'text/csv; charset=utf-8');
     res.setHeader('Content-Disposition', `attachment; filename="${safeName}"`);
@@ -181,16 +181,16 @@ export function datasetRoutes(ctx: AppContext): Router {
     res.send(row.originalBytes);
   });
 
-  router.post('/datasets/:id/withdraw', requireUser, requireDatasetAuthorOrAdmin, async (req, res) => {
+  router.post('/measurement-sets/:id/withdraw', requireUser, requireMeasurementSetAuthorOrAdmin, async (req, res) => {
     const { id } = validParams(idParams, req);
     const { reason } = validBody(withdrawBody, req);
     const actor = currentUser(res);
     await db.transaction().execute(async (tx) => {
-      const dataset = await findDataset(tx, id);
-      if (!dataset) throw notFound(`Dataset ${id}`);
-      if (dataset.withdrawnAt) throw conflict(`Dataset ${id} is already withdrawn.`);
-      await tx.insertInto('datasetWithdrawal').values({ datasetId: id, withdrawnBy: actor.id, withdrawnAt: new Date().toISOString(), reason }).execute();
-      await recordAudit(tx, { actor, action: 'dataset.withdrawn', targetType: 'dataset', targetId: id, summary: `${actor.email} withdrew dataset ${dataset.name}${dataset.createdBy === actor.id ? '' : ' (as admin; not the author)'}: ${reason}` });
+      const measurementSet = await findMeasurementSet(tx, id);
+      if (!measurementSet) throw notFound(`Measurement set ${id}`);
+      if (measurementSet.withdrawnAt) throw conflict(`Measurement set ${id} is already withdrawn.`);
+      await tx.insertInto('measurementSetWithdrawal').values({ measurementSetId: id, withdrawnBy: actor.id, withdrawnAt: new Date().toISOString(), reason }).execute();
+      await recordAudit(tx, { actor, action: 'dataset.withdrawn', targetType: 'dataset', targetId: id, summary: `${actor.email} withdrew measurement set ${measurementSet.name}${measurementSet.createdBy === actor.id ? '' : ' (as admin; not the author)'}: ${reason}` });
     });
     res.json({ id, withdrawn: true });
   });

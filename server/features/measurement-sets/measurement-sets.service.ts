@@ -6,7 +6,7 @@ import type { Db, Tx } from '../../db/database';
 import type { CurrentUser } from '../../common/auth-middleware';
 import { AppError, unprocessable } from '../../common/errors';
 import { recordAudit } from '../audit/audit.service';
-import { latestVersionNumber, rowsOfVersion } from './datasets.repository';
+import { latestVersionNumber, rowsOfVersion } from './measurement-sets.repository';
 
 export interface UploadedFile {
   originalname: string;
@@ -44,14 +44,14 @@ export function parseUpload(file: UploadedFile, kind: PropertyKind, fields: Vers
 }
 
 /**
- * Stores one accepted upload as version n+1 of a dataset (creating the dataset for version 1), with
+ * Stores one accepted upload as version n+1 of a measurement set (creating the measurement set for version 1), with
  * its original bytes, SHA-256 and rows, and an audit row. Runs inside the caller's transaction.
  */
 export async function storeVersion(
   tx: Tx,
   input: {
-    datasetId?: number;
-    newDataset?: { substanceId: number; property: PropertyKind; name: string };
+    measurementSetId?: number;
+    newMeasurementSet?: { substanceId: number; kind: PropertyKind; name: string };
     file: UploadedFile;
     fields: VersionFields;
     parsed: ReturnType<typeof parseUpload>;
@@ -59,24 +59,24 @@ export async function storeVersion(
   },
 ) {
   const now = new Date().toISOString();
-  let datasetId = input.datasetId;
-  if (datasetId === undefined) {
-    if (!input.newDataset) throw new AppError(500, 'internal_error', 'storeVersion needs a dataset id or a new dataset.');
+  let measurementSetId = input.measurementSetId;
+  if (measurementSetId === undefined) {
+    if (!input.newMeasurementSet) throw new AppError(500, 'internal_error', 'storeVersion needs a measurement set id or a new measurement set.');
     const inserted = await tx
-      .insertInto('dataset')
-      .values({ ...input.newDataset, createdBy: input.actor.id, createdAt: now })
+      .insertInto('measurementSet')
+      .values({ ...input.newMeasurementSet, createdBy: input.actor.id, createdAt: now })
       .returning('id')
       .executeTakeFirstOrThrow();
-    datasetId = inserted.id;
+    measurementSetId = inserted.id;
   }
-  const version = (await latestVersionNumber(tx, datasetId)) + 1;
+  const version = (await latestVersionNumber(tx, measurementSetId)) + 1;
   const sha256 = createHash('sha256').update(input.file.buffer).digest('hex');
   const { parsed, fields } = input;
   const columns = parsed.columns.map((c) => ({ index: c.index, header: c.header, quantity: c.quantity ?? null, unitText: c.unitText ?? null, canonicalUnit: c.canonicalUnit ?? null }));
   const versionRow = await tx
-    .insertInto('datasetVersion')
+    .insertInto('measurementSetVersion')
     .values({
-      datasetId,
+      measurementSetId,
       version,
       sha256,
       originalFilename: input.file.originalname.slice(0, 255),
@@ -102,18 +102,18 @@ export async function storeVersion(
     actor: input.actor,
     action: version === 1 ? 'dataset.uploaded' : 'dataset.version_uploaded',
     targetType: 'dataset',
-    targetId: datasetId,
+    targetId: measurementSetId,
     summary: `${input.actor.email} uploaded ${input.file.originalname} as v${version} (${parsed.rows.length} rows, sha256 ${sha256.slice(0, 12)}…)`,
     after: { version, sha256, rowCount: parsed.rows.length, kind: parsed.kind },
   });
-  return { id: datasetId, version, rowCount: parsed.rows.length, sha256 };
+  return { id: measurementSetId, version, rowCount: parsed.rows.length, sha256 };
 }
 
-function toStoredRow(row: CanonicalRow, datasetVersionId: number, position: number) {
+function toStoredRow(row: CanonicalRow, measurementSetVersionId: number, position: number) {
   const def = PROPERTY_KINDS[row.kind];
   const r = row as unknown as Record<string, number>;
   return {
-    datasetVersionId,
+    measurementSetVersionId,
     position,
     fileRow: row.row,
     temperatureK: row.temperatureK,
@@ -140,7 +140,7 @@ export function toApiRow(kind: PropertyKind, row: Awaited<ReturnType<typeof rows
 }
 
 /** Value/uncertainty rows of a stored version, for the fit (units are the kind's canonical units). */
-export async function loadVersionForFit(db: Db | Tx, datasetVersionId: number) {
-  const rows = await rowsOfVersion(db, datasetVersionId);
+export async function loadVersionForFit(db: Db | Tx, measurementSetVersionId: number) {
+  const rows = await rowsOfVersion(db, measurementSetVersionId);
   return rows.map((r) => ({ temperatureK: r.temperatureK, pressureMPa: r.pressureMpa, value: r.value, uncertainty: r.uncertainty }));
 }

@@ -1,18 +1,18 @@
 import type { Generated } from 'kysely';
 import type { PropertyKind } from '../../../shared/measurements/property-kinds';
 
-export interface DatasetTable {
+export interface MeasurementSetTable {
   id: Generated<number>;
   substanceId: number;
-  property: PropertyKind;
+  kind: PropertyKind;
   name: string;
   createdBy: string;
   createdAt: string;
 }
 
-export interface DatasetVersionTable {
+export interface MeasurementSetVersionTable {
   id: Generated<number>;
-  datasetId: number;
+  measurementSetId: number;
   version: number;
   sha256: string;
   originalFilename: string;
@@ -30,10 +30,10 @@ export interface DatasetVersionTable {
   uploadedAt: string;
 }
 
-/** One measured state point in canonical units; which quantity `value` is follows from the dataset's kind. */
+/** One measured state point in canonical units; which quantity `value` is follows from the measurement set's kind. */
 export interface MeasurementRowTable {
   id: Generated<number>;
-  datasetVersionId: number;
+  measurementSetVersionId: number;
   position: number;
   fileRow: number;
   temperatureK: number;
@@ -44,8 +44,8 @@ export interface MeasurementRowTable {
   rawJson: string;
 }
 
-export interface DatasetWithdrawalTable {
-  datasetId: number;
+export interface MeasurementSetWithdrawalTable {
+  measurementSetId: number;
   withdrawnBy: string;
   withdrawnAt: string;
   reason: string;

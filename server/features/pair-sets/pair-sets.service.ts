@@ -10,8 +10,9 @@ import type { CurrentUser } from '../../common/auth-middleware';
 import { AppError, conflict, notFound, unprocessable } from '../../common/errors';
 import type { Db, Tx } from '../../db/database';
 import { recordAudit } from '../audit/audit.service';
-import { loadVersionForFit } from '../datasets/datasets.service';
+import { loadVersionForFit } from '../measurement-sets/measurement-sets.service';
 import type { PairSetState } from './pair-sets.table';
+import { readStoredJson } from '../../../shared/schemas/old-names';
 
 async function setOf(db: Db | Tx, id: number) {
   return db
@@ -33,35 +34,35 @@ export async function createPairSet(db: Db, actor: CurrentUser, body: PairSetCre
     });
     const [a, b] = sets as NonNullable<(typeof sets)[number]>[];
     if (a.substanceId === b.substanceId) throw unprocessable('Both parameter sets belong to the same substance; a pair needs two substances.', [{ field: 'parameterSetIds', message: 'same substance' }]);
-    const dataset = await tx
-      .selectFrom('dataset')
-      .leftJoin('datasetWithdrawal', 'datasetWithdrawal.datasetId', 'dataset.id')
-      .select(['dataset.id', 'dataset.name', 'dataset.property', 'dataset.substanceId', 'datasetWithdrawal.withdrawnAt'])
-      .where('dataset.id', '=', body.datasetId)
+    const measurementSet = await tx
+      .selectFrom('measurementSet')
+      .leftJoin('measurementSetWithdrawal', 'measurementSetWithdrawal.measurementSetId', 'measurementSet.id')
+      .select(['measurementSet.id', 'measurementSet.name', 'measurementSet.kind', 'measurementSet.substanceId', 'measurementSetWithdrawal.withdrawnAt'])
+      .where('measurementSet.id', '=', body.measurementSetId)
       .executeTakeFirst();
-    if (!dataset) throw unprocessable(`Measurement set ${body.datasetId} was not found.`, [{ field: 'datasetId', message: 'no such measurement set' }]);
-    if (dataset.property !== 'b12') throw unprocessable(`Measurement set "${dataset.name}" holds ${dataset.property} data; a pair set is fitted to cross second virial coefficients (B12).`, [{ field: 'datasetId', message: `kind ${dataset.property}, not b12` }]);
-    if (dataset.withdrawnAt) throw unprocessable(`Measurement set "${dataset.name}" was withdrawn.`, [{ field: 'datasetId', message: 'withdrawn' }]);
-    if (dataset.substanceId !== a.substanceId && dataset.substanceId !== b.substanceId) {
-      throw unprocessable(`Measurement set "${dataset.name}" belongs to neither substance of the pair.`, [{ field: 'datasetId', message: 'not a measurement set of either substance' }]);
+    if (!measurementSet) throw unprocessable(`Measurement set ${body.measurementSetId} was not found.`, [{ field: 'measurementSetId', message: 'no such measurement set' }]);
+    if (measurementSet.kind !== 'b12') throw unprocessable(`Measurement set "${measurementSet.name}" holds ${measurementSet.kind} data; a pair set is fitted to cross second virial coefficients (B12).`, [{ field: 'measurementSetId', message: `kind ${measurementSet.kind}, not b12` }]);
+    if (measurementSet.withdrawnAt) throw unprocessable(`Measurement set "${measurementSet.name}" was withdrawn.`, [{ field: 'measurementSetId', message: 'withdrawn' }]);
+    if (measurementSet.substanceId !== a.substanceId && measurementSet.substanceId !== b.substanceId) {
+      throw unprocessable(`Measurement set "${measurementSet.name}" belongs to neither substance of the pair.`, [{ field: 'measurementSetId', message: 'not a measurement set of either substance' }]);
     }
-    const version = await tx.selectFrom('datasetVersion').select(['id', 'version']).where('datasetId', '=', dataset.id).orderBy('version', 'desc').executeTakeFirstOrThrow();
+    const version = await tx.selectFrom('measurementSetVersion').select(['id', 'version']).where('measurementSetId', '=', measurementSet.id).orderBy('version', 'desc').executeTakeFirstOrThrow();
     const rows = await loadVersionForFit(tx, version.id);
     const pure = (s: typeof a) => ({ epsilonK: s.epsilonK, sigmaAngstrom: s.sigmaAngstrom, stdErr: { epsilonK: s.epsilonStdErrK, sigmaAngstrom: s.sigmaStdErrAngstrom }, correlation: s.correlation });
     let result;
     try {
       result = fitCrossInteraction(pure(a), pure(b), rows.map((r) => ({ temperatureK: r.temperatureK, b12Cm3PerMol: r.value, uB12Cm3PerMol: r.uncertainty })), { fitLij: body.fitLij ?? false });
     } catch (err) {
-      throw unprocessable(`The pair-set fit cannot run: ${err instanceof Error ? err.message : String(err)}`, [{ field: 'datasetId', message: 'fit input refused' }]);
+      throw unprocessable(`The pair-set fit cannot run: ${err instanceof Error ? err.message : String(err)}`, [{ field: 'measurementSetId', message: 'fit input refused' }]);
     }
-    if (!result.converged) throw new AppError(422, 'fit_failed', 'The k_ij fit did not converge; check the B12 table.', [{ field: 'datasetId', message: 'fit did not converge' }]);
+    if (!result.converged) throw new AppError(422, 'fit_failed', 'The k_ij fit did not converge; check the B12 table.', [{ field: 'measurementSetId', message: 'fit did not converge' }]);
     const now = new Date().toISOString();
     const row = await tx
       .insertInto('pairSet')
       .values({
         firstSetId: a.id,
         secondSetId: b.id,
-        datasetVersionId: version.id,
+        measurementSetVersionId: version.id,
         fitLij: body.fitLij ? 1 : 0,
         kij: result.kij,
         kijStdErr: result.kijStdErr,
@@ -71,7 +72,7 @@ export async function createPairSet(db: Db, actor: CurrentUser, body: PairSetCre
         epsilon12StdErrK: result.epsilon12KStdErr,
         sigma12Angstrom: result.sigma12Angstrom,
         sigma12StdErrAngstrom: result.sigma12AngstromStdErr,
-        resultJson: JSON.stringify({ ...result, datasetVersion: version.version }),
+        resultJson: JSON.stringify({ ...result, measurementSetVersion: version.version }),
         state: 'in_review',
         createdBy: actor.id,
         createdAt: now,
@@ -84,7 +85,7 @@ export async function createPairSet(db: Db, actor: CurrentUser, body: PairSetCre
       targetType: 'pair_set',
       targetId: row.id,
       summary: `${actor.email} fitted k_ij = ${result.kij.toFixed(4)} ± ${result.kijStdErr?.toFixed(4) ?? '?'} for ${a.substanceName} + ${b.substanceName} and sent it to review`,
-      after: { firstSetId: a.id, secondSetId: b.id, datasetVersionId: version.id, kij: result.kij, kijStdErr: result.kijStdErr, lij: result.lij },
+      after: { firstSetId: a.id, secondSetId: b.id, measurementSetVersionId: version.id, kij: result.kij, kijStdErr: result.kijStdErr, lij: result.lij },
     });
     return (await pairSetView(tx, row.id))!;
   });
@@ -98,7 +99,7 @@ export async function pairSetView(db: Db | Tx, id: number): Promise<PairSetView 
 
 async function toView(db: Db | Tx, r: Awaited<ReturnType<typeof rowsQuery>>[number]): Promise<PairSetView> {
   const [a, b] = [await setOf(db, r.firstSetId), await setOf(db, r.secondSetId)];
-  const ds = await db.selectFrom('datasetVersion').innerJoin('dataset', 'dataset.id', 'datasetVersion.datasetId').select(['dataset.id', 'dataset.name', 'datasetVersion.version']).where('datasetVersion.id', '=', r.datasetVersionId).executeTakeFirstOrThrow();
+  const ds = await db.selectFrom('measurementSetVersion').innerJoin('measurementSet', 'measurementSet.id', 'measurementSetVersion.measurementSetId').select(['measurementSet.id', 'measurementSet.name', 'measurementSetVersion.version']).where('measurementSetVersion.id', '=', r.measurementSetVersionId).executeTakeFirstOrThrow();
   const person = async (id: string | null) => (id ? { id, name: (await db.selectFrom('user').select('name').where('id', '=', id).executeTakeFirst())?.name ?? id } : null);
   const brief = (s: NonNullable<typeof a>) => ({ id: s.id, version: s.version, substanceId: s.substanceId, substanceName: s.substanceName, epsilonK: s.epsilonK, sigmaAngstrom: s.sigmaAngstrom });
   return {
@@ -106,7 +107,7 @@ async function toView(db: Db | Tx, r: Awaited<ReturnType<typeof rowsQuery>>[numb
     state: r.state,
     setA: brief(a!),
     setB: brief(b!),
-    dataset: { id: ds.id, name: ds.name, version: ds.version, versionId: r.datasetVersionId },
+    measurementSet: { id: ds.id, name: ds.name, version: ds.version, versionId: r.measurementSetVersionId },
     fitLij: r.fitLij === 1,
     kij: r.kij,
     kijStdErr: r.kijStdErr,
@@ -116,7 +117,7 @@ async function toView(db: Db | Tx, r: Awaited<ReturnType<typeof rowsQuery>>[numb
     epsilon12StdErrK: r.epsilon12StdErrK,
     sigma12Angstrom: r.sigma12Angstrom,
     sigma12StdErrAngstrom: r.sigma12StdErrAngstrom,
-    result: JSON.parse(r.resultJson) as unknown,
+    result: readStoredJson(r.resultJson) as unknown,
     createdBy: (await person(r.createdBy))!,
     createdAt: r.createdAt,
     reviewedBy: await person(r.reviewedBy),

@@ -8,7 +8,7 @@ export interface PairSetTable {
   firstSetId: number;
   secondSetId: number;
   /** The B12 measurement-set version fitted. */
-  datasetVersionId: number;
+  measurementSetVersionId: number;
   fitLij: number;
   kij: number;
   kijStdErr: number | null;

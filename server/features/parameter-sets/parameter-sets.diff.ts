@@ -3,9 +3,10 @@ import { CUTOFF_SCHEME_LABELS } from '../../../shared/schemas/parameter-sets';
 import { FIELD_LABELS } from '../../../shared/schemas/field-labels';
 import type { CurrentUser } from '../../common/auth-middleware';
 import type { Db } from '../../db/database';
-import type { FitDatasetRef } from '../fits/fits.service';
+import type { FitMeasurementSetRef } from '../fits/fits.service';
 import { findParameterSet, type ParameterSetRow } from './parameter-sets.repository';
 import { requireVisibleSet } from './parameter-sets.service';
+import { readStoredJson } from '../../../shared/schemas/old-names';
 
 export interface SetChange {
   field: string;
@@ -14,8 +15,8 @@ export interface SetChange {
   after: string | number | null;
 }
 
-const datasetsText = (row: ParameterSetRow) =>
-  (JSON.parse(row.datasetsJson) as FitDatasetRef[])
+const measurementSetsText = (row: ParameterSetRow) =>
+  (readStoredJson(row.measurementSetsJson) as FitMeasurementSetRef[])
     .map((d) => `${d.name} v${d.version}${d.excludeRows?.length ? ` (rows ${d.excludeRows.join(', ')} left out)` : ''}`)
     .join('; ');
 
@@ -34,7 +35,7 @@ const FIELDS: Array<{ field: string; label: string; value: (r: ParameterSetRow) 
   { field: 'validity.pressureMinMPa', label: FIELD_LABELS['validity.pressureMinMPa'], value: (r) => r.pressureMinMpa },
   { field: 'validity.pressureMaxMPa', label: FIELD_LABELS['validity.pressureMaxMPa'], value: (r) => r.pressureMaxMpa },
   { field: 'fit', label: 'Fit', value: (r) => `Fit #${r.fitNumber}` },
-  { field: 'datasets', label: 'Measurement sets', value: datasetsText },
+  { field: 'measurementSets', label: 'Measurement sets', value: measurementSetsText },
   { field: 'rationale', label: 'Rationale', value: (r) => r.rationale },
 ];
 

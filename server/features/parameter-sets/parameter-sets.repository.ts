@@ -21,7 +21,7 @@ const SET_COLUMNS = [
   'parameterSet.epsilonStdErrK',
   'parameterSet.sigmaStdErrAngstrom',
   'parameterSet.correlation',
-  'parameterSet.datasetsJson',
+  'parameterSet.measurementSetsJson',
   'parameterSet.temperatureMinK',
   'parameterSet.temperatureMaxK',
   'parameterSet.pressureMinMpa',

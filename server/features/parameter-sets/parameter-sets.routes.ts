@@ -30,6 +30,7 @@ import {
   submitParameterSet,
   toParameterSetSummary,
 } from './parameter-sets.service';
+import { withNewFieldNames } from '../../../shared/schemas/old-names';
 
 const listQuery = z.object({
   substanceId: z.coerce.number().int().positive().optional(),
@@ -78,7 +79,8 @@ export function parameterSetRoutes(ctx: AppContext): Router {
 
   router.patch('/parameter-sets/:id', requirePolicy('parameterSet:draft'), async (req, res) => {
     const { id } = validParams(idParams, req);
-    const raw = req.body && typeof req.body === 'object' ? (req.body as Record<string, unknown>) : {};
+    const sent = withNewFieldNames(updateParameterSetBody, req.body);
+    const raw = sent && typeof sent === 'object' ? (sent as Record<string, unknown>) : {};
     await refuseUnlessEditable(db, currentUser(res), id, FROZEN_FIELDS.filter((f) => f in raw));
     const body = validBody(updateParameterSetBody, req);
     res.json(await editDraft(ctx, currentUser(res), id, body));

@@ -18,10 +18,11 @@ import type { CurrentUser } from '../../common/auth-middleware';
 import { AppError, notFound } from '../../common/errors';
 import type { Db, Tx } from '../../db/database';
 import { recordAudit } from '../audit/audit.service';
-import type { FitDatasetRef } from '../fits/fits.service';
+import type { FitMeasurementSetRef } from '../fits/fits.service';
 import { findFit, toFitView } from '../fits/fits.service';
 import { emailsOfFollowers, emailsOfRole, mailBody, queueMail } from '../mail/mail.service';
 import { approvedOf, commentsOf, emailOf, findParameterSet, historyOf, listParameterSets, nextVersion, type ParameterSetRow } from './parameter-sets.repository';
+import { readStoredJson } from '../../../shared/schemas/old-names';
 
 const SYSTEM: MoveActor = { id: 'system', roles: [], system: true };
 
@@ -141,17 +142,17 @@ async function usableFit(db: Db | Tx, fitId: number, field = 'fitId') {
   return { fit, result: fit.result as LjFitResult };
 }
 
-/** Temperature span of the fitted points, and the pressure span of any density rows among the fit's dataset versions. */
+/** Temperature span of the fitted points, and the pressure span of any density rows among the fit's measurement set versions. */
 async function dataSpan(db: Db | Tx, fit: Awaited<ReturnType<typeof usableFit>>['fit']): Promise<Validity> {
   const temps = (fit.result as LjFitResult).residuals.map((r) => r.temperatureK);
   const span: Validity = { temperatureMinK: Math.min(...temps), temperatureMaxK: Math.max(...temps) };
   // Rounded where it is made (0.01 K, 0.001 MPa), outward, so the range still holds every point.
-  const densityVersions = fit.datasets.filter((d) => d.kind === 'density').map((d) => d.versionId);
+  const densityVersions = fit.measurementSets.filter((d) => d.kind === 'density').map((d) => d.versionId);
   if (densityVersions.length) {
     const p = await db
       .selectFrom('measurementRow')
       .select((eb) => [eb.fn.min('pressureMpa').as('lo'), eb.fn.max('pressureMpa').as('hi')])
-      .where('datasetVersionId', 'in', densityVersions)
+      .where('measurementSetVersionId', 'in', densityVersions)
       .executeTakeFirst();
     if (p?.lo != null && p?.hi != null && Number(p.lo) < Number(p.hi)) Object.assign(span, { pressureMinMPa: Number(p.lo), pressureMaxMPa: Number(p.hi) });
   }
@@ -184,7 +185,7 @@ async function insertSet(
       epsilonStdErrK: result.stdErr.epsilonK,
       sigmaStdErrAngstrom: result.stdErr.sigmaAngstrom,
       correlation: result.correlation,
-      datasetsJson: JSON.stringify(fit.datasets),
+      measurementSetsJson: JSON.stringify(fit.measurementSets),
       temperatureMinK: validity.temperatureMinK,
       temperatureMaxK: validity.temperatureMaxK,
       pressureMinMpa: validity.pressureMinMPa ?? null,
@@ -206,7 +207,7 @@ async function insertSet(
     targetType: 'parameterSet',
     targetId: id,
     summary: `${actor.email} drafted ${setLabel(row)} from Fit #${fit.number}${input.revisionOf ? ` as a revision of v${input.revisionOf.version}` : ''}`,
-    after: { ...toParameterSetSummary(row), datasets: fit.datasets },
+    after: { ...toParameterSetSummary(row), measurementSets: fit.measurementSets },
   });
   return row;
 }
@@ -264,9 +265,9 @@ export async function reviseParameterSet(ctx: AppContext, actor: CurrentUser, id
 const link = (id: number) => `/parameter-sets/${id}`;
 
 /** 422 naming every measurement set (name and version) whose version behind the set has no source citation. */
-async function requireCitations(tx: Tx, refs: FitDatasetRef[]) {
+async function requireCitations(tx: Tx, refs: FitMeasurementSetRef[]) {
   if (!refs.length) return;
-  const versions = await tx.selectFrom('datasetVersion').select(['id', 'source']).where('id', 'in', refs.map((r) => r.versionId)).execute();
+  const versions = await tx.selectFrom('measurementSetVersion').select(['id', 'source']).where('id', 'in', refs.map((r) => r.versionId)).execute();
   const missing = refs.filter((r) => !(versions.find((v) => v.id === r.versionId)?.source ?? '').trim());
   if (!missing.length) return;
   const names = missing.map((r) => `"${r.name}" v${r.version}`);
@@ -274,7 +275,7 @@ async function requireCitations(tx: Tx, refs: FitDatasetRef[]) {
     422,
     'citation_missing',
     `A parameter set goes to review only when every measurement set behind it cites its source. ${names.length === 1 ? `${names[0]} has` : `${names.join(', ')} have`} no source citation: upload a new version with the citation and draft a revision from a fit that uses it.`,
-    missing.map((r) => ({ field: 'datasets', datasetId: r.datasetId, version: r.version, message: `measurement set "${r.name}" v${r.version} has no source citation` })),
+    missing.map((r) => ({ field: 'measurementSets', measurementSetId: r.measurementSetId, version: r.version, message: `measurement set "${r.name}" v${r.version} has no source citation` })),
   );
 }
 
@@ -286,7 +287,7 @@ export async function submitParameterSet(ctx: AppContext, actor: CurrentUser, id
     await applyMove(tx, row, 'submit', actor, null);
     // Reviewers judge the evidence by its source: every measurement set behind the values needs a citation.
     // (Checked after the move's own rules, so a refused move still answers 403/409; the throw rolls the move back.)
-    await requireCitations(tx, JSON.parse(row.datasetsJson) as FitDatasetRef[]);
+    await requireCitations(tx, readStoredJson(row.measurementSetsJson) as FitMeasurementSetRef[]);
     // Everyone who may decide on it; the author and the fit's author may not, so they are left out.
     const excluded = new Set([row.createdByEmail.toLowerCase(), ((await emailOf(tx, row.fitCreatedBy)) ?? '').toLowerCase()]);
     const reviewers = (await emailsOfRole(tx, 'reviewer')).filter((e) => !excluded.has(e.toLowerCase()));
@@ -421,10 +422,10 @@ export async function getParameterSetDetail(db: Db, id: number, viewer: CurrentU
   const [history, comments, approved, fitRow, subject] = await Promise.all([historyOf(db, id), commentsOf(db, id), approvedOf(db, row.substanceId, row.scheme, row.potential), findFit(db, row.fitId), subjectOf(db, row)]);
   const fit = toFitView(fitRow!);
   const result = fit.result as LjFitResult | null;
-  const refs = JSON.parse(row.datasetsJson) as FitDatasetRef[];
+  const refs = readStoredJson(row.measurementSetsJson) as FitMeasurementSetRef[];
   const versions = refs.length
     ? await db
-        .selectFrom('datasetVersion')
+        .selectFrom('measurementSetVersion')
         .select(['id', 'source', 'doi', 'method', 'rowCount', 'sha256', 'uploadedAt'])
         .where('id', 'in', refs.map((r) => r.versionId))
         .execute()
@@ -449,9 +450,9 @@ export async function getParameterSetDetail(db: Db, id: number, viewer: CurrentU
       warnings: [...(result?.warnings ?? []), ...(result?.hitBounds ?? []).map((b) => `The fit ended on the bound of ${b}.`)],
       dataSpan: temps.length ? { temperatureMinK: Math.min(...temps), temperatureMaxK: Math.max(...temps) } : null,
     },
-    datasets: refs.map((r) => {
+    measurementSets: refs.map((r) => {
       const v = versions.find((x) => x.id === r.versionId);
-      return { datasetId: r.datasetId, name: r.name, kind: r.kind, version: r.version, versionId: r.versionId, weight: r.weight, source: v?.source ?? null, doi: v?.doi ?? null, method: v?.method ?? null, rowCount: v?.rowCount ?? null, sha256: v?.sha256 ?? null };
+      return { measurementSetId: r.measurementSetId, name: r.name, kind: r.kind, version: r.version, versionId: r.versionId, weight: r.weight, source: v?.source ?? null, doi: v?.doi ?? null, method: v?.method ?? null, rowCount: v?.rowCount ?? null, sha256: v?.sha256 ?? null };
     }),
     history: history.map((h) => ({ id: h.id, move: h.move, fromState: h.fromState, toState: h.toState, actorId: h.actorId, actorName: h.actorName ?? (h.actorId ? null : 'Epsigma'), comment: h.comment, at: h.at })),
     comments,

@@ -22,8 +22,8 @@ export interface ParameterSetTable {
   epsilonStdErrK: number | null;
   sigmaStdErrAngstrom: number | null;
   correlation: number | null;
-  /** The fit's exact dataset versions (FitDatasetRef[]), copied at creation. */
-  datasetsJson: string;
+  /** The fit's exact measurement set versions (FitMeasurementSetRef[]), copied at creation. */
+  measurementSetsJson: string;
   temperatureMinK: number;
   temperatureMaxK: number;
   pressureMinMpa: number | null;

@@ -1,11 +1,11 @@
 import type { Role } from '../../../shared/auth/roles';
 import type { Db, Tx } from '../../db/database';
 
-export async function findUserByEmail(db: Db | Tx, email: string) {
+export async function findPersonByEmail(db: Db | Tx, email: string) {
   return db.selectFrom('user').selectAll().where('email', '=', email.trim().toLowerCase()).executeTakeFirst();
 }
 
-export async function findUserById(db: Db | Tx, id: string) {
+export async function findPersonById(db: Db | Tx, id: string) {
   return db.selectFrom('user').selectAll().where('id', '=', id).executeTakeFirst();
 }
 
@@ -14,7 +14,7 @@ export async function rolesOf(db: Db | Tx, userId: string): Promise<Role[]> {
   return rows.map((r) => r.role);
 }
 
-export async function listUsersWithRoles(db: Db | Tx) {
+export async function listPeopleWithRoles(db: Db | Tx) {
   const users = await db
     .selectFrom('user')
     .select(['id', 'email', 'name', 'active', 'createdAt'])
@@ -24,7 +24,7 @@ export async function listUsersWithRoles(db: Db | Tx) {
   return users.map((u) => ({ ...u, roles: roles.filter((r) => r.userId === u.id).map((r) => r.role).sort() }));
 }
 
-export async function insertUser(
+export async function insertPerson(
   db: Db | Tx,
   user: { id: string; email: string; name: string; passwordHash: string; roles: Role[] },
 ) {
@@ -40,7 +40,7 @@ export async function replaceRoles(db: Db | Tx, userId: string, roles: Role[]) {
   if (roles.length) await db.insertInto('userRole').values(roles.map((role) => ({ userId, role }))).execute();
 }
 
-export async function countUsers(db: Db | Tx): Promise<number> {
+export async function countPeople(db: Db | Tx): Promise<number> {
   const row = await db.selectFrom('user').select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow();
   return Number(row.n);
 }

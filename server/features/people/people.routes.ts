@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { Router } from 'express';
-import { createUserBody, updateUserBody } from '../../../shared/schemas/users';
+import { createPersonBody, updatePersonBody } from '../../../shared/schemas/people';
 import { currentUser, requirePolicy } from '../../common/auth-middleware';
 import { conflict, notFound } from '../../common/errors';
 import { validBody, validParams } from '../../common/validate';
@@ -8,9 +8,9 @@ import { z } from 'zod';
 import type { AppContext } from '../../app-context';
 import { recordAudit } from '../audit/audit.service';
 import { hashPassword } from '../auth/auth';
-import { countActiveAdmins, findUserByEmail, findUserById, insertUser, listUsersWithRoles, replaceRoles, rolesOf } from './users.repository';
+import { countActiveAdmins, findPersonByEmail, findPersonById, insertPerson, listPeopleWithRoles, replaceRoles, rolesOf } from './people.repository';
 
-const userIdParams = z.object({ id: z.string().min(1).max(64) });
+const personIdParams = z.object({ id: z.string().min(1).max(64) });
 
 const toPerson = (u: { id: string; email: string; name: string; active: number; createdAt: string; roles: string[] }) => ({
   id: u.id,
@@ -22,26 +22,26 @@ const toPerson = (u: { id: string; email: string; name: string; active: number; 
 });
 
 /** People administration (admin only). */
-export function userRoutes(ctx: AppContext): Router {
+export function peopleRoutes(ctx: AppContext): Router {
   const router = Router();
   const { db } = ctx;
-  router.use('/users', requirePolicy('people:manage'));
+  router.use('/people', requirePolicy('people:manage'));
 
-  router.get('/users', async (_req, res) => {
-    res.json({ users: (await listUsersWithRoles(db)).map(toPerson) });
+  router.get('/people', async (_req, res) => {
+    res.json({ people: (await listPeopleWithRoles(db)).map(toPerson) });
   });
 
-  router.post('/users', async (req, res) => {
-    const body = validBody(createUserBody, req);
+  router.post('/people', async (req, res) => {
+    const body = validBody(createPersonBody, req);
     const actor = currentUser(res);
-    if (await findUserByEmail(db, body.email)) {
+    if (await findPersonByEmail(db, body.email)) {
       throw conflict(`A person with the e-mail ${body.email} already exists.`, [{ field: 'email', message: 'already in use' }]);
     }
     const id = randomUUID();
     const passwordHash = await hashPassword(body.password);
     const roles = [...new Set(body.roles)].sort();
     await db.transaction().execute(async (tx) => {
-      await insertUser(tx, { id, email: body.email, name: body.name, passwordHash, roles });
+      await insertPerson(tx, { id, email: body.email, name: body.name, passwordHash, roles });
       await recordAudit(tx, {
         actor,
         action: 'user.created',
@@ -51,15 +51,15 @@ export function userRoutes(ctx: AppContext): Router {
         after: { email: body.email, name: body.name, roles },
       });
     });
-    const created = (await listUsersWithRoles(db)).find((u) => u.id === id)!;
+    const created = (await listPeopleWithRoles(db)).find((u) => u.id === id)!;
     res.status(201).json(toPerson(created));
   });
 
-  router.patch('/users/:id', async (req, res) => {
-    const { id } = validParams(userIdParams, req);
-    const body = validBody(updateUserBody, req);
+  router.patch('/people/:id', async (req, res) => {
+    const { id } = validParams(personIdParams, req);
+    const body = validBody(updatePersonBody, req);
     const actor = currentUser(res);
-    const target = await findUserById(db, id);
+    const target = await findPersonById(db, id);
     if (!target) throw notFound('Person');
     const beforeRoles = await rolesOf(db, id);
     const losesAdmin =
@@ -93,7 +93,7 @@ export function userRoutes(ctx: AppContext): Router {
         after,
       });
     });
-    const updated = (await listUsersWithRoles(db)).find((u) => u.id === id)!;
+    const updated = (await listPeopleWithRoles(db)).find((u) => u.id === id)!;
     res.json(toPerson(updated));
   });
 

@@ -1,11 +1,11 @@
 import { Router } from 'express';
-import { createSimulationBody, simulationsFromDatasetBody } from '../../../shared/schemas/simulations';
+import { createSimulationBody, simulationsFromMeasurementSetBody } from '../../../shared/schemas/simulations';
 import type { AppContext } from '../../app-context';
 import { currentUser, requirePolicy } from '../../common/auth-middleware';
 import { conflict, notFound } from '../../common/errors';
 import { idParams, validBody, validParams } from '../../common/validate';
 import { recordAudit } from '../audit/audit.service';
-import { createSimulation, createSimulationsFromDataset, listSimulations, toSimulationView } from './simulations.service';
+import { createSimulation, createSimulationsFromMeasurementSet, listSimulations, toSimulationView } from './simulations.service';
 
 export function simulationRoutes(ctx: AppContext): Router {
   const router = Router();
@@ -31,9 +31,9 @@ export function simulationRoutes(ctx: AppContext): Router {
     res.status(202).json(await createSimulation(ctx, currentUser(res), body));
   });
 
-  router.post('/simulations/from-dataset', requirePolicy('simulation:run'), async (req, res) => {
-    const body = validBody(simulationsFromDatasetBody, req);
-    res.status(202).json(await createSimulationsFromDataset(ctx, currentUser(res), body));
+  router.post('/simulations/from-measurement-set', requirePolicy('simulation:run'), async (req, res) => {
+    const body = validBody(simulationsFromMeasurementSetBody, req);
+    res.status(202).json(await createSimulationsFromMeasurementSet(ctx, currentUser(res), body));
   });
 
   router.get('/simulations/:id', requirePolicy('simulation:read'), async (req, res) => {

@@ -1,6 +1,6 @@
 import { DEFAULT_ATOMS, DEFAULT_CUTOFF, DEFAULT_NPT_STEPS, DEFAULT_SEED, DEFAULT_TIMESTEP, type NptOptions } from '../../../shared/physics/md/npt';
 import { reducedStateOf } from '../../../shared/physics/corresponding-states';
-import type { CreateSimulationBody, MdSettings, SimulationsFromDatasetBody } from '../../../shared/schemas/simulations';
+import type { CreateSimulationBody, MdSettings, SimulationsFromMeasurementSetBody } from '../../../shared/schemas/simulations';
 import { CUTOFF_SCHEME_LABELS, type CutoffScheme } from '../../../shared/schemas/parameter-sets';
 import type { AppContext } from '../../app-context';
 import type { CurrentUser } from '../../common/auth-middleware';
@@ -9,13 +9,14 @@ import type { Db } from '../../db/database';
 import type { JobKind, JobView } from '../../jobs/job-runner';
 import { toJobView } from '../../jobs/job-runner';
 import { recordAudit } from '../audit/audit.service';
-import { findDataset, findVersionRow, rowsOfVersion } from '../datasets/datasets.repository';
+import { findMeasurementSet, findVersionRow, rowsOfVersion } from '../measurement-sets/measurement-sets.repository';
 import { storeSimulationFrames } from './simulation-frames';
+import { readStoredJson } from '../../../shared/schemas/old-names';
 
 /** Where a run came from, when a modeller started it from a measured density. */
 export interface SimulationOrigin {
   substanceId: number;
-  datasetId: number;
+  measurementSetId: number;
   version: number;
   fileRow: number;
   temperatureK: number;
@@ -64,24 +65,24 @@ export async function createSimulation(ctx: AppContext, actor: CurrentUser, body
 }
 
 /** Maps measured density rows to reduced states with trial ε, σ and queues one run per row. */
-export async function createSimulationsFromDataset(ctx: AppContext, actor: CurrentUser, body: SimulationsFromDatasetBody) {
-  const dataset = await findDataset(ctx.db, body.datasetId);
-  if (!dataset) throw notFound(`Dataset ${body.datasetId}`);
-  if (dataset.property !== 'density') throw new AppError(422, 'not_density', `Simulations start from density sets; "${dataset.name}" holds ${dataset.property}.`, [{ field: 'datasetId', message: 'not a density set' }]);
-  const version = body.version ?? (await ctx.db.selectFrom('datasetVersion').select((eb) => eb.fn.max('version').as('v')).where('datasetId', '=', dataset.id).executeTakeFirstOrThrow()).v;
-  const versionRow = await findVersionRow(ctx.db, dataset.id, Number(version));
-  if (!versionRow) throw notFound(`Version ${version} of dataset ${dataset.id}`);
+export async function createSimulationsFromMeasurementSet(ctx: AppContext, actor: CurrentUser, body: SimulationsFromMeasurementSetBody) {
+  const measurementSet = await findMeasurementSet(ctx.db, body.measurementSetId);
+  if (!measurementSet) throw notFound(`Measurement set ${body.measurementSetId}`);
+  if (measurementSet.kind !== 'density') throw new AppError(422, 'not_density', `Simulations start from density sets; "${measurementSet.name}" holds ${measurementSet.kind}.`, [{ field: 'measurementSetId', message: 'not a density set' }]);
+  const version = body.version ?? (await ctx.db.selectFrom('measurementSetVersion').select((eb) => eb.fn.max('version').as('v')).where('measurementSetId', '=', measurementSet.id).executeTakeFirstOrThrow()).v;
+  const versionRow = await findVersionRow(ctx.db, measurementSet.id, Number(version));
+  if (!versionRow) throw notFound(`Version ${version} of measurement set ${measurementSet.id}`);
   const rows = await rowsOfVersion(ctx.db, versionRow.id);
   const chosen = body.rows ? rows.filter((r) => body.rows!.includes(r.fileRow)) : rows;
   const missing = (body.rows ?? []).filter((n) => !rows.some((r) => r.fileRow === n));
-  if (missing.length) throw new AppError(422, 'unknown_rows', `Rows ${missing.join(', ')} are not in version ${versionRow.version} of "${dataset.name}".`, [{ field: 'rows', message: `no rows ${missing.join(', ')}` }]);
+  if (missing.length) throw new AppError(422, 'unknown_rows', `Rows ${missing.join(', ')} are not in version ${versionRow.version} of "${measurementSet.name}".`, [{ field: 'rows', message: `no rows ${missing.join(', ')}` }]);
   const runs = [];
   for (const r of chosen) {
     const reduced = reducedStateOf({ temperatureK: r.temperatureK, pressureMPa: r.pressureMpa!, epsilonK: body.epsilonK, sigmaAngstrom: body.sigmaAngstrom });
     if (reduced.reducedTemperature < 0.3 || reduced.reducedTemperature > 10 || reduced.reducedPressure > 20) {
       throw new AppError(422, 'state_out_of_range', `Row ${r.fileRow} maps to T* = ${reduced.reducedTemperature.toFixed(3)}, P* = ${reduced.reducedPressure.toFixed(3)}, outside the engine's range (0.3 ≤ T* ≤ 10, P* ≤ 20).`, [{ field: 'rows', row: r.fileRow, message: 'reduced state out of range' }]);
     }
-    const origin: SimulationOrigin = { substanceId: dataset.substanceId, datasetId: dataset.id, version: versionRow.version, fileRow: r.fileRow, temperatureK: r.temperatureK, pressureMPa: r.pressureMpa!, densityKgPerM3: r.value, epsilonK: body.epsilonK, sigmaAngstrom: body.sigmaAngstrom };
+    const origin: SimulationOrigin = { substanceId: measurementSet.substanceId, measurementSetId: measurementSet.id, version: versionRow.version, fileRow: r.fileRow, temperatureK: r.temperatureK, pressureMPa: r.pressureMpa!, densityKgPerM3: r.value, epsilonK: body.epsilonK, sigmaAngstrom: body.sigmaAngstrom };
     runs.push(await createSimulation(ctx, actor, { ...body, ...reduced }, origin));
   }
   return { runs };
@@ -94,7 +95,7 @@ export async function listSimulations(db: Db, limit = 200) {
 
 export function toSimulationView(row: Parameters<typeof toJobView>[0] & { inputJson: string }, { withTrace }: { withTrace: boolean }) {
   const job: JobView = toJobView(row);
-  const input = JSON.parse(row.inputJson) as SimulationInput;
+  const input = readStoredJson(row.inputJson) as SimulationInput;
   const result = job.result as (Record<string, unknown> & { trace?: unknown }) | null;
   // Frames (base64) are for reweighting and live in simulation_frames; they are never part of a view.
   const { trace, frames: _frames, ...summary } = (result ?? {}) as Record<string, unknown> & { trace?: unknown; frames?: unknown };

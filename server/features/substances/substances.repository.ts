@@ -5,8 +5,8 @@ import type { Db, Tx } from '../../db/database';
 export async function listSubstances(db: Db | Tx) {
   return db
     .selectFrom('substance')
-    .leftJoin('dataset', 'dataset.substanceId', 'substance.id')
-    .leftJoin('datasetWithdrawal', 'datasetWithdrawal.datasetId', 'dataset.id')
+    .leftJoin('measurementSet', 'measurementSet.substanceId', 'substance.id')
+    .leftJoin('measurementSetWithdrawal', 'measurementSetWithdrawal.measurementSetId', 'measurementSet.id')
     .select([
       'substance.id',
       'substance.name',
@@ -15,8 +15,8 @@ export async function listSubstances(db: Db | Tx) {
       'substance.molarMassGramsPerMol',
       'substance.createdAt',
       'substance.updatedAt',
-      sql<number>`count(dataset.id) filter (where dataset_withdrawal.dataset_id is null)`.as('datasetCount'),
-      sql<string | null>`group_concat(distinct case when dataset_withdrawal.dataset_id is null then dataset.property end)`.as('kinds'),
+      sql<number>`count(measurement_set.id) filter (where measurement_set_withdrawal.measurement_set_id is null)`.as('measurementSetCount'),
+      sql<string | null>`group_concat(distinct case when measurement_set_withdrawal.measurement_set_id is null then measurement_set.kind end)`.as('kinds'),
     ])
     .groupBy('substance.id')
     .orderBy('substance.name')
@@ -45,7 +45,7 @@ export async function findSubstanceByName(db: Db | Tx, name: string) {
   return rows.find((r) => key(r.name) === wanted);
 }
 
-export async function countDatasetsOf(db: Db | Tx, substanceId: number): Promise<number> {
-  const row = await db.selectFrom('dataset').select((eb) => eb.fn.countAll<number>().as('n')).where('substanceId', '=', substanceId).executeTakeFirstOrThrow();
+export async function countMeasurementSetsOf(db: Db | Tx, substanceId: number): Promise<number> {
+  const row = await db.selectFrom('measurementSet').select((eb) => eb.fn.countAll<number>().as('n')).where('substanceId', '=', substanceId).executeTakeFirstOrThrow();
   return Number(row.n);
 }

@@ -6,9 +6,9 @@ import { conflict, notFound } from '../../common/errors';
 import { idParams, validBody, validParams } from '../../common/validate';
 import type { AppContext } from '../../app-context';
 import { recordAudit } from '../audit/audit.service';
-import { listDatasetsOfSubstance } from '../datasets/datasets.repository';
-import { toDatasetSummary } from '../datasets/datasets.routes';
-import { countDatasetsOf, findSubstance, findSubstanceByName, listSubstances } from './substances.repository';
+import { listMeasurementSetsOfSubstance } from '../measurement-sets/measurement-sets.repository';
+import { toMeasurementSetSummary } from '../measurement-sets/measurement-sets.routes';
+import { countMeasurementSetsOf, findSubstance, findSubstanceByName, listSubstances } from './substances.repository';
 
 export const toSubstance = (s: { id: number; name: string; formula: string | null; description: string | null; molarMassGramsPerMol: number; createdAt: string; updatedAt: string }) => ({
   id: s.id,
@@ -28,9 +28,9 @@ export function substanceRoutes(ctx: AppContext): Router {
   router.get('/substances', requirePolicy('substance:read'), async (_req, res) => {
     const rows = await listSubstances(db);
     // How many measurement sets of which kinds exist is unpublished work too: only for the roles that read them.
-    const withDatasets = hasPolicy(currentUser(res).roles, 'dataset:read');
+    const withMeasurementSets = hasPolicy(currentUser(res).roles, 'measurement-set:read');
     res.json({
-      substances: rows.map((s) => (withDatasets ? { ...toSubstance(s), datasetCount: Number(s.datasetCount), kinds: s.kinds ? s.kinds.split(',').sort() : [] } : toSubstance(s))),
+      substances: rows.map((s) => (withMeasurementSets ? { ...toSubstance(s), measurementSetCount: Number(s.measurementSetCount), kinds: s.kinds ? s.kinds.split(',').sort() : [] } : toSubstance(s))),
     });
   });
 
@@ -58,9 +58,9 @@ export function substanceRoutes(ctx: AppContext): Router {
     const substance = await findSubstance(db, id);
     if (!substance) throw notFound(`Substance ${id}`);
     // Measurement sets are unpublished work: only the roles that may read them get the list.
-    if (!hasPolicy(currentUser(res).roles, 'dataset:read')) return res.json({ ...toSubstance(substance), createdByName: substance.createdByName });
-    const datasets = await listDatasetsOfSubstance(db, id);
-    res.json({ ...toSubstance(substance), createdByName: substance.createdByName, datasets: datasets.map(toDatasetSummary) });
+    if (!hasPolicy(currentUser(res).roles, 'measurement-set:read')) return res.json({ ...toSubstance(substance), createdByName: substance.createdByName });
+    const measurementSets = await listMeasurementSetsOfSubstance(db, id);
+    res.json({ ...toSubstance(substance), createdByName: substance.createdByName, measurementSets: measurementSets.map(toMeasurementSetSummary) });
   });
 
   router.patch('/substances/:id', requirePolicy('substance:write'), async (req, res) => {
@@ -75,8 +75,8 @@ export function substanceRoutes(ctx: AppContext): Router {
         throw conflict(`A substance named "${body.name}" already exists.`, [{ field: 'name', message: 'already in use' }]);
       }
       // The molar mass converts molar densities at upload, so it is fixed once measurements exist.
-      if (body.molarMass !== undefined && body.molarMass !== before.molarMassGramsPerMol && (await countDatasetsOf(tx, id)) > 0) {
-        throw conflict('The molar mass cannot change once the substance has measurement sets: stored densities depend on it.', [{ field: 'molarMass', message: 'fixed once datasets exist' }]);
+      if (body.molarMass !== undefined && body.molarMass !== before.molarMassGramsPerMol && (await countMeasurementSetsOf(tx, id)) > 0) {
+        throw conflict('The molar mass cannot change once the substance has measurement sets: stored densities depend on it.', [{ field: 'molarMass', message: 'fixed once measurement sets exist' }]);
       }
       const row = await tx
         .updateTable('substance')

@@ -3,6 +3,7 @@ import type { CurrentUser } from '../../common/auth-middleware';
 import { conflict, notFound } from '../../common/errors';
 import type { Db, Tx } from '../../db/database';
 import { recordAudit } from '../audit/audit.service';
+import { rolesOf } from '../people/people.repository';
 
 /** Tokens a person may hold at once that are not revoked; enough for a few scripts, few enough to review. */
 export const MAX_ACTIVE_TOKENS = 20;
@@ -86,4 +87,16 @@ export async function findActiveToken(db: Db | Tx, secret: string) {
 export async function touchToken(db: Db, id: number, lastUsedAt: string | null, now = new Date()) {
   if (lastUsedAt && now.getTime() - Date.parse(lastUsedAt) < 60_000) return;
   await db.updateTable('apiToken').set({ lastUsedAt: now.toISOString() }).where('id', '=', id).where('revokedAt', 'is', null).execute();
+}
+
+/**
+ * The owner of an active token, signed in with `via: 'token'` (null: unknown, revoked, or owner deactivated),
+ * and the token's use noted; bearerTokenMiddleware calls it (registered in server/app.ts).
+ */
+export async function authenticateToken(db: Db, secret: string): Promise<CurrentUser | null> {
+  const token = await findActiveToken(db, secret);
+  if (!token || token.revokedAt !== null || token.active !== 1) return null;
+  const user: CurrentUser = { id: token.userId, email: token.email, name: token.name, roles: await rolesOf(db, token.userId), via: 'token', tokenId: token.id };
+  await touchToken(db, token.id, token.lastUsedAt);
+  return user;
 }

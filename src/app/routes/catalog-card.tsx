@@ -15,7 +15,7 @@ import { FitEvidence, hasEvidence } from '@/features/fits/components/fit-evidenc
 import { FollowButton } from '@/features/follows/components/follow-button';
 import { ParameterSetCaution } from '@/features/parameter-sets/components/caution';
 import { ParameterSetStateBadge } from '@/features/parameter-sets/components/state-badge';
-import { DatasetSourcesTable } from '@/features/datasets/components/dataset-sources-table';
+import { MeasurementSetSourcesTable } from '@/features/measurement-sets/components/measurement-set-sources-table';
 
 /** The parameter card: what a consumer needs to use one published set, in their own units. */
 export function CatalogCardRoute() {
@@ -90,7 +90,7 @@ export function CatalogCardRoute() {
         </Panel>
         <FitEvidenceOfCard card={c} energy={energy} length={length} />
         <Panel title="Measurement sets and their sources">
-          <DatasetSourcesTable rows={c.datasets} />
+          <MeasurementSetSourcesTable rows={c.measurementSets} />
         </Panel>
         <Panel title="Versions">
           <VersionHistory card={c} energy={energy} length={length} />

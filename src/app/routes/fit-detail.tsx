@@ -26,7 +26,7 @@ export function FitDetailRoute() {
   const f = fit.data;
   const { names, weights, context } = fitContext(f);
   const r = f.result;
-  const leftOut = f.datasets.filter((d) => d.excludeRows?.length);
+  const leftOut = f.measurementSets.filter((d) => d.excludeRows?.length);
   return (
     <>
       <PageHeader
@@ -34,7 +34,7 @@ export function FitDetailRoute() {
         title={`Fit #${f.number}`}
         subtitle={
           <span className="flex flex-wrap items-center gap-2">
-            <FitStatusBadge status={f.status} /> {r?.model === 'mie' && r.repulsiveExponent !== undefined ? `Mie ${Number(r.repulsiveExponent.toFixed(2))}-6` : 'LJ 12-6'} on {f.datasets.map((d) => `${d.name} v${d.version}${d.weight !== 1 ? ` (weight ${d.weight})` : ''}`).join(', ')}
+            <FitStatusBadge status={f.status} /> {r?.model === 'mie' && r.repulsiveExponent !== undefined ? `Mie ${Number(r.repulsiveExponent.toFixed(2))}-6` : 'LJ 12-6'} on {f.measurementSets.map((d) => `${d.name} v${d.version}${d.weight !== 1 ? ` (weight ${d.weight})` : ''}`).join(', ')}
           </span>
         }
         action={<Link to={`/substances/${f.substanceId}/fits`} className="text-sm font-semibold text-copper underline underline-offset-4">All fits of {f.substanceName}</Link>}
@@ -59,7 +59,7 @@ export function FitDetailRoute() {
       {leftOut.length > 0 && (
         <div role="note" className="mb-6 rounded-md bg-paper-deep px-4 py-2 text-sm">
           {leftOut.map((d) => (
-            <p key={d.datasetId}>
+            <p key={d.measurementSetId}>
               Left out of {d.name} v{d.version}: row{d.excludeRows!.length > 1 ? 's' : ''} {d.excludeRows!.join(', ')}
               {d.excludeReason ? ` — “${d.excludeReason}”` : ''}.
             </p>
@@ -91,7 +91,7 @@ export function FitDetailRoute() {
           <dt className="text-ink-faint">Finished</dt><dd>{f.finishedAt ? formatDateTime(f.finishedAt) : '—'}</dd>
           <dt className="text-ink-faint">Code version</dt><dd className="break-all font-mono text-xs">{f.codeVersion}</dd>
           <dt className="text-ink-faint">Molar mass</dt><dd className="num">{f.options.molarMassGPerMol ?? '—'} g/mol</dd>
-          <dt className="text-ink-faint">Data versions</dt><dd>{f.datasets.map((d) => <Link key={d.datasetId} className="mr-3 text-copper underline" to={`/datasets/${d.datasetId}?version=${d.version}`}>{d.name} v{d.version}</Link>)}</dd>
+          <dt className="text-ink-faint">Data versions</dt><dd>{f.measurementSets.map((d) => <Link key={d.measurementSetId} className="mr-3 text-copper underline" to={`/measurement-sets/${d.measurementSetId}?version=${d.version}`}>{d.name} v{d.version}</Link>)}</dd>
         </dl>
       </Panel>
     </>

@@ -10,14 +10,14 @@ import { DataTable } from '@/components/ui/data-table';
 import { Field, Input } from '@/components/ui/field';
 import { ErrorState, LoadingState, PageHeader, Panel } from '@/components/ui/states';
 import { useCan } from '@/lib/authorization';
-import { type DatasetRow, useDataset, useWithdrawDataset } from '@/features/datasets/api/datasets';
-import { DatasetChart, quantityHeading } from '@/features/datasets/components/dataset-chart';
+import { type MeasurementSetRow, useMeasurementSet, useWithdrawMeasurementSet } from '@/features/measurement-sets/api/measurement-sets';
+import { MeasurementSetChart, quantityHeading } from '@/features/measurement-sets/components/measurement-set-chart';
 import { SimulateRowsPanel } from '@/features/simulations/components/simulate-rows-panel';
 
-function rowColumns(kind: keyof typeof PROPERTY_KINDS): ColumnDef<DatasetRow, any>[] {
+function rowColumns(kind: keyof typeof PROPERTY_KINDS): ColumnDef<MeasurementSetRow, any>[] {
   const def = PROPERTY_KINDS[kind];
   // "Row" counts the data rows from 1 (the number a fit's "leave rows out" uses); "File row" is the line in the file.
-  const cols: ColumnDef<DatasetRow, any>[] = [
+  const cols: ColumnDef<MeasurementSetRow, any>[] = [
     { id: 'index', header: 'Row', accessorFn: (_r, i) => i + 1, meta: { numeric: true } },
     { accessorKey: 'row', header: 'File row', meta: { numeric: true } },
   ];
@@ -29,21 +29,21 @@ function rowColumns(kind: keyof typeof PROPERTY_KINDS): ColumnDef<DatasetRow, an
   return cols;
 }
 
-export function DatasetDetailRoute() {
-  const id = Number(useParams().datasetId);
+export function MeasurementSetDetailRoute() {
+  const id = Number(useParams().measurementSetId);
   const [params, setParams] = useSearchParams();
   // Warnings of the upload that just stored this set (e.g. a missing citation), handed over by the upload page.
   const uploadWarnings = ((useLocation().state as { uploadWarnings?: string[] } | null)?.uploadWarnings ?? []).filter(Boolean);
   const version = params.get('version') ? Number(params.get('version')) : undefined;
-  const dataset = useDataset(id, version);
-  const canUpload = useCan('dataset:upload');
+  const measurementSet = useMeasurementSet(id, version);
+  const canUpload = useCan('measurement-set:upload');
   const canSimulate = useCan('simulation:run');
-  const withdraw = useWithdrawDataset(id);
+  const withdraw = useWithdrawMeasurementSet(id);
   const [reason, setReason] = useState('');
-  if (dataset.isPending) return <LoadingState />;
-  if (dataset.isError) return <ErrorState error={dataset.error} onRetry={() => dataset.refetch()} />;
-  const d = dataset.data;
-  const def = PROPERTY_KINDS[d.property];
+  if (measurementSet.isPending) return <LoadingState />;
+  if (measurementSet.isError) return <ErrorState error={measurementSet.error} onRetry={() => measurementSet.refetch()} />;
+  const d = measurementSet.data;
+  const def = PROPERTY_KINDS[d.kind];
   const plotRows = d.rows.map((r) => ({ temperatureK: r.temperatureK, pressureMPa: r.pressureMPa, value: Number(r[def.valueField]), uncertainty: Number(r[def.uncertaintyField]) }));
   return (
     <>
@@ -52,13 +52,13 @@ export function DatasetDetailRoute() {
         title={d.name}
         subtitle={
           <span className="flex flex-wrap items-center gap-2">
-            <KindBadge kind={d.property} /> {d.propertyLabel} · version {d.version} of {d.latestVersion} · {d.rowCount} points
+            <KindBadge kind={d.kind} /> {d.kindLabel} · version {d.version} of {d.latestVersion} · {d.rowCount} points
             {d.withdrawn && <Badge tone="slate">Withdrawn</Badge>}
           </span>
         }
         action={
           canUpload && !d.withdrawn && (
-            <Link to={`/datasets/${id}/new-version`} className="rounded-md bg-copper px-3.5 py-1.5 text-sm font-semibold text-white shadow-sm hover:bg-copper-dark">
+            <Link to={`/measurement-sets/${id}/new-version`} className="rounded-md bg-copper px-3.5 py-1.5 text-sm font-semibold text-white shadow-sm hover:bg-copper-dark">
               Upload corrected version
             </Link>
           )
@@ -87,7 +87,7 @@ export function DatasetDetailRoute() {
       )}
       <div className="grid gap-6 lg:grid-cols-[3fr_2fr]">
         <Panel title="Measured values">
-          <DatasetChart kind={d.property} rows={plotRows} />
+          <MeasurementSetChart kind={d.kind} rows={plotRows} />
         </Panel>
         <Panel title="Provenance">
           <dl className="grid grid-cols-[max-content_1fr] gap-x-4 gap-y-1.5 text-sm">
@@ -101,7 +101,7 @@ export function DatasetDetailRoute() {
             <dd className="whitespace-pre-line">{d.notes ?? '—'}</dd>
             <dt className="text-ink-faint">File</dt>
             <dd>
-              <a className="text-copper underline" href={`/api/datasets/${id}/versions/${d.version}/original`} download>
+              <a className="text-copper underline" href={`/api/measurement-sets/${id}/versions/${d.version}/original`} download>
                 {d.originalFilename}
               </a>
             </dd>
@@ -118,7 +118,7 @@ export function DatasetDetailRoute() {
           </dl>
         </Panel>
         <Panel title="Rows (canonical units)" className="lg:col-span-1">
-          <DataTable data={d.rows} columns={rowColumns(d.property)} caption="Measured rows" rowKey={(r) => r.row} />
+          <DataTable data={d.rows} columns={rowColumns(d.kind)} caption="Measured rows" rowKey={(r) => r.row} />
         </Panel>
         <div className="grid content-start gap-6">
           <Panel title="Version history">
@@ -134,9 +134,9 @@ export function DatasetDetailRoute() {
               ))}
             </ol>
           </Panel>
-          {canSimulate && d.property === 'density' && (
+          {canSimulate && d.kind === 'density' && (
             <Panel title="Simulate these state points">
-              <SimulateRowsPanel datasetId={d.id} version={d.version} />
+              <SimulateRowsPanel measurementSetId={d.id} version={d.version} />
             </Panel>
           )}
           {canUpload && !d.withdrawn && (

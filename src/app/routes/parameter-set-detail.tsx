@@ -15,7 +15,7 @@ import { FrozenValues, schemeText } from '@/features/parameter-sets/components/f
 import { RevisionDiff } from '@/features/parameter-sets/components/revision-diff';
 import { HistoryTimeline } from '@/features/parameter-sets/components/history-timeline';
 import { ParameterSetStateBadge } from '@/features/parameter-sets/components/state-badge';
-import { DatasetSourcesTable } from '@/features/datasets/components/dataset-sources-table';
+import { MeasurementSetSourcesTable } from '@/features/measurement-sets/components/measurement-set-sources-table';
 
 /** A parameter set: frozen values, state, review actions, the fit behind it and the approved version it would replace. */
 export function ParameterSetDetailRoute() {
@@ -64,7 +64,7 @@ export function ParameterSetDetailRoute() {
         </Panel>
         <FitEvidenceOfSet set={s} />
         <Panel title="Measurement sets behind it">
-          <DatasetSourcesTable rows={s.datasets} linkToDatasets showSha />
+          <MeasurementSetSourcesTable rows={s.measurementSets} linkToMeasurementSets showSha />
         </Panel>
         <div className="grid gap-6 lg:grid-cols-2">
           <Panel title="History">
@@ -118,7 +118,7 @@ function FitEvidenceOfSet({ set }: { set: ParameterSetDetail }) {
       comparison={
         approved && approved.id !== set.id ? (
           <Panel title={`Against the approved v${approved.version}`}>
-            <ApprovedComparison set={set} approved={approved} points={result.residuals} context={context} datasetNames={names} />
+            <ApprovedComparison set={set} approved={approved} points={result.residuals} context={context} measurementSetNames={names} />
           </Panel>
         ) : undefined
       }

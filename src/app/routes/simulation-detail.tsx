@@ -20,7 +20,7 @@ function OriginComparison({ origin, rhoStar, rhoStarErr }: { origin: NonNullable
   return (
     <p className="num mt-2 text-sm">
       For {substance.data.name} at {origin.temperatureK.toFixed(2)} K and {origin.pressureMPa.toFixed(3)} MPa with ε/k_B = {origin.epsilonK} K, σ = {origin.sigmaAngstrom} Å: simulated ρ = {formatWithUncertainty(rho, err, 'kg/m³')}, measured {formatSignificant(origin.densityKgPerM3, 6)} kg/m³ (
-      <Link className="text-copper underline" to={`/datasets/${origin.datasetId}?version=${origin.version}`}>row {origin.fileRow}</Link>).
+      <Link className="text-copper underline" to={`/measurement-sets/${origin.measurementSetId}?version=${origin.version}`}>row {origin.fileRow}</Link>).
     </p>
   );
 }

@@ -150,7 +150,7 @@ export function SimulationsRoute() {
                   </div>
                   <div className="mt-1 text-xs text-ink-faint">
                     {s.state.atoms} atoms · {s.state.steps} steps · r_c = {s.state.cutoff} σ · {CUTOFF_SCHEME_LABELS[s.state.scheme]?.toLowerCase() ?? s.state.scheme} · seed {s.state.seed}
-                    {s.origin && <> · from row {s.origin.fileRow} of set {s.origin.datasetId} (ε/k_B = {s.origin.epsilonK} K, σ = {s.origin.sigmaAngstrom} Å)</>}
+                    {s.origin && <> · from row {s.origin.fileRow} of set {s.origin.measurementSetId} (ε/k_B = {s.origin.epsilonK} K, σ = {s.origin.sigmaAngstrom} Å)</>}
                     {s.ranOn && <> · {s.status === 'running' ? 'running on' : 'ran on'} {s.ranOn}{s.attempts > 1 ? ` (start ${s.attempts})` : ''}</>}
                   </div>
                   {(s.status === 'running' || s.status === 'queued') && <div className="mt-2"><ProgressBar fraction={s.progress} label={s.status === 'queued' ? 'Waiting for a free worker' : s.stage ?? 'Running'} /></div>}

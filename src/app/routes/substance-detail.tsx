@@ -7,18 +7,18 @@ import { Button } from '@/components/ui/button';
 import { DataTable } from '@/components/ui/data-table';
 import { EmptyState, ErrorState, LoadingState, PageHeader, Panel } from '@/components/ui/states';
 import { useCan } from '@/lib/authorization';
-import type { DatasetSummary } from '@/features/datasets/api/datasets';
+import type { MeasurementSetSummary } from '@/features/measurement-sets/api/measurement-sets';
 import { useSubstance, useUpdateSubstance } from '@/features/substances/api/substances';
 import { useSubstanceFits } from '@/features/fits/api/fits';
 import { SubstanceForm } from '@/features/substances/components/substance-form';
 import { FollowButton } from '@/features/follows/components/follow-button';
 import { SubstanceParameterSetsPanel } from '@/features/parameter-sets/components/substance-parameter-sets';
 
-const col = createColumnHelper<DatasetSummary>();
+const col = createColumnHelper<MeasurementSetSummary>();
 /** "In use" only when a fit of the substance used the set; otherwise it is plainly not used yet. */
 const columnsFor = (usedBy: Map<number, number[]>) => [
-  col.accessor('name', { header: 'Measurement set', cell: (c) => <Link className="font-semibold underline decoration-rule underline-offset-4 hover:decoration-copper" to={`/datasets/${c.row.original.id}`}>{c.getValue()}</Link> }),
-  col.accessor('property', { header: 'Kind', cell: (c) => <KindBadge kind={c.getValue()} /> }),
+  col.accessor('name', { header: 'Measurement set', cell: (c) => <Link className="font-semibold underline decoration-rule underline-offset-4 hover:decoration-copper" to={`/measurement-sets/${c.row.original.id}`}>{c.getValue()}</Link> }),
+  col.accessor('kind', { header: 'Kind', cell: (c) => <KindBadge kind={c.getValue()} /> }),
   col.accessor('version', { header: 'Version', meta: { numeric: true }, cell: (c) => `v${c.getValue()}` }),
   col.accessor('rowCount', { header: 'Points', meta: { numeric: true } }),
   col.accessor('source', { header: 'Source', cell: (c) => <span className="line-clamp-1 max-w-xs text-ink-soft">{c.getValue() ?? '—'}</span> }),
@@ -40,14 +40,14 @@ const columnsFor = (usedBy: Map<number, number[]>) => [
 export function SubstanceDetailRoute() {
   const id = Number(useParams().substanceId);
   const substance = useSubstance(id);
-  const canUpload = useCan('dataset:upload');
+  const canUpload = useCan('measurement-set:upload');
   const canEdit = useCan('substance:write');
   const [editing, setEditing] = useState(false);
   const update = useUpdateSubstance(id);
   const fits = useSubstanceFits(id);
   const columns = useMemo(() => {
     const usedBy = new Map<number, number[]>();
-    for (const f of fits.data ?? []) if (f.status === 'succeeded') for (const d of f.datasets) usedBy.set(d.datasetId, [...(usedBy.get(d.datasetId) ?? []), f.number]);
+    for (const f of fits.data ?? []) if (f.status === 'succeeded') for (const d of f.measurementSets) usedBy.set(d.measurementSetId, [...(usedBy.get(d.measurementSetId) ?? []), f.number]);
     return columnsFor(usedBy);
   }, [fits.data]);
   if (substance.isPending) return <LoadingState />;
@@ -70,10 +70,10 @@ export function SubstanceDetailRoute() {
       {s.description && <p className="-mt-2 mb-6 max-w-prose text-ink-soft">{s.description}</p>}
       <div className="grid gap-6">
         <Panel title="Measurement sets">
-          {s.datasets.length === 0 ? (
+          {s.measurementSets.length === 0 ? (
             <EmptyState title="No measurement sets yet">{canUpload ? 'Upload a CSV table of B2, density or viscosity values.' : 'A modeller uploads measurement tables.'}</EmptyState>
           ) : (
-            <DataTable data={s.datasets} columns={columns} caption={`Measurement sets of ${s.name}`} rowKey={(d) => d.id} />
+            <DataTable data={s.measurementSets} columns={columns} caption={`Measurement sets of ${s.name}`} rowKey={(d) => d.id} />
           )}
         </Panel>
         <SubstanceParameterSetsPanel substanceId={id} substanceName={s.name} />
@@ -82,11 +82,11 @@ export function SubstanceDetailRoute() {
             {editing ? (
               <SubstanceForm
                 initial={{ name: s.name, formula: s.formula ?? undefined, description: s.description ?? undefined, molarMass: s.molarMassGPerMol }}
-                molarMassLocked={s.datasets.length > 0}
+                molarMassLocked={s.measurementSets.length > 0}
                 submitLabel="Save changes"
                 busy={update.isPending}
                 error={update.error}
-                onSubmit={(v) => update.mutate(s.datasets.length > 0 ? { name: v.name, formula: v.formula ?? '', description: v.description ?? '' } : { ...v, formula: v.formula ?? '', description: v.description ?? '' }, { onSuccess: () => setEditing(false) })}
+                onSubmit={(v) => update.mutate(s.measurementSets.length > 0 ? { name: v.name, formula: v.formula ?? '', description: v.description ?? '' } : { ...v, formula: v.formula ?? '', description: v.description ?? '' }, { onSuccess: () => setEditing(false) })}
               />
             ) : (
               <p className="text-sm text-ink-soft">Created by {s.createdByName} on {formatDate(s.createdAt)}; last changed {formatDateTime(s.updatedAt)}. Edits are recorded in the audit trail.</p>

@@ -50,7 +50,7 @@ export function SubstanceFitsRoute() {
                       {f.converged === false && f.epsilonK != null && <div className="text-xs font-semibold text-changes">not converged: last iterate</div>}
                       {(f.heldParameters ?? []).length > 0 && <div className="text-xs text-copper">{f.heldParameters!.map((h) => (h === 'epsilonK' ? 'ε/k_B' : 'σ')).join(', ')} held</div>}
                     </td>
-                    <td><span className="flex flex-wrap gap-1">{f.datasets.map((d) => <span key={d.datasetId} className="inline-flex items-center gap-1"><KindBadge kind={d.kind} /><span className="text-xs text-ink-soft">{d.name} v{d.version}{d.excludeRows?.length ? ` (${d.excludeRows.length} rows left out)` : ''}</span></span>)}</span></td>
+                    <td><span className="flex flex-wrap gap-1">{f.measurementSets.map((d) => <span key={d.measurementSetId} className="inline-flex items-center gap-1"><KindBadge kind={d.kind} /><span className="text-xs text-ink-soft">{d.name} v{d.version}{d.excludeRows?.length ? ` (${d.excludeRows.length} rows left out)` : ''}</span></span>)}</span></td>
                     <td className="num text-right">{f.epsilonK == null ? '—' : formatWithUncertainty(f.epsilonK, f.stdErr?.epsilonK)}</td>
                     <td className="num text-right">{f.sigmaAngstrom == null ? '—' : formatWithUncertainty(f.sigmaAngstrom, f.stdErr?.sigmaAngstrom)}</td>
                     <td className="num text-right">{f.reducedChi2 == null ? '—' : formatSignificant(f.reducedChi2, 3)}</td>

@@ -12,7 +12,7 @@ const columns = [
   col.accessor('name', { header: 'Substance', cell: (c) => <Link className="font-semibold text-ink underline decoration-rule underline-offset-4 hover:decoration-copper" to={`/substances/${c.row.original.id}`}>{c.getValue()}</Link> }),
   col.accessor('formula', { header: 'Formula', cell: (c) => c.getValue() ?? '—' }),
   col.accessor('molarMassGPerMol', { header: 'M (g/mol)', meta: { numeric: true }, cell: (c) => c.getValue().toFixed(3) }),
-  col.accessor('datasetCount', { header: 'Measurement sets', meta: { numeric: true } }),
+  col.accessor('measurementSetCount', { header: 'Measurement sets', meta: { numeric: true } }),
   col.accessor('kinds', { header: 'Kinds', enableSorting: false, cell: (c) => <span className="flex gap-1">{c.getValue().map((k) => <KindBadge key={k} kind={k} />)}</span> }),
 ];
 

@@ -1,7 +1,7 @@
 import { useEffect, useId, useRef, useState, type ReactNode } from 'react';
 import { NavLink, Outlet, useLocation } from 'react-router-dom';
 import { hasPolicy, ROLE_LABELS } from '@shared/auth/roles';
-import type { Me } from '@shared/schemas/users';
+import type { Me } from '@shared/schemas/people';
 import { NAV_ITEMS } from '@/config/navigation';
 import { Button } from '@/components/ui/button';
 import { LogoMark } from '@/components/ui/logo-mark';

@@ -10,7 +10,7 @@ const col = createColumnHelper<AuditEvent>();
 /** Pages that show a target, by the target type written in the audit row. */
 const TARGET_PAGES: Record<string, (id: string) => string> = {
   substance: (id) => `/substances/${id}`,
-  dataset: (id) => `/datasets/${id}`,
+  dataset: (id) => `/measurement-sets/${id}`, // stored audit code: a measurement set's target type in the append-only log
   fit: (id) => `/fits/${id}`,
   parameterSet: (id) => `/parameter-sets/${id}`,
 };

@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { Me } from '@shared/schemas/users';
+import type { Me } from '@shared/schemas/people';
 import { api, isApiError } from '@/lib/api-client';
 
 export const authKeys = {

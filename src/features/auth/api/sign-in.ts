@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { Me, SignInBody } from '@shared/schemas/users';
+import type { Me, SignInBody } from '@shared/schemas/people';
 import { api } from '@/lib/api-client';
 import { authKeys } from './me';
 

@@ -1,6 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm } from 'react-hook-form';
-import { signInBody, type SignInBody } from '@shared/schemas/users';
+import { signInBody, type SignInBody } from '@shared/schemas/people';
 import { Button } from '@/components/ui/button';
 import { Field, Input } from '@/components/ui/field';
 import { useSignIn } from '../api/sign-in';

@@ -39,7 +39,7 @@ export interface ParameterCard extends CatalogEntry {
   approvalComment: string | null;
   rationale: string;
   fit: { id: number; number: number; chi2: number | null; dof: number | null; reducedChi2: number | null; quantumCorrection: boolean; molarMassGPerMol: number | null; warnings: string[]; dataSpan: { temperatureMinK: number; temperatureMaxK: number } | null };
-  datasets: Array<{ datasetId: number; name: string; kind: PropertyKind; version: number; versionId: number; weight: number; source: string | null; doi: string | null; method: string | null; rowCount: number | null; sha256: string | null }>;
+  measurementSets: Array<{ measurementSetId: number; name: string; kind: PropertyKind; version: number; versionId: number; weight: number; source: string | null; doi: string | null; method: string | null; rowCount: number | null; sha256: string | null }>;
   exportable: boolean;
   currentApprovedId: number | null;
   versions: Array<{

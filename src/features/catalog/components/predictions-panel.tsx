@@ -27,7 +27,7 @@ export function PredictionsPanel({ setId, mie }: { setId: number; mie: boolean }
         <label className="grid gap-1">
           <span className="text-xs text-ink-faint">Property</span>
           <select className="rounded border border-rule bg-paper px-2 py-1" value={kind} onChange={(e) => setKind(e.target.value)}>
-            {KINDS.filter((k) => !mie || k.kind === 'b2').map((k) => <option key={k.kind} value={k.kind}>{k.label}</option>)}
+            {KINDS.filter((k) => !mie || k.kind !== 'density').map((k) => <option key={k.kind} value={k.kind}>{k.label}</option>)}
           </select>
         </label>
         <label className="grid gap-1">

@@ -6,8 +6,8 @@ import { api } from '@/lib/api-client';
 
 export type FitStatus = 'queued' | 'running' | 'succeeded' | 'failed' | 'cancelled';
 
-export interface FitDatasetRef {
-  datasetId: number;
+export interface FitMeasurementSetRef {
+  measurementSetId: number;
   version: number;
   versionId: number;
   kind: PropertyKind;
@@ -27,7 +27,7 @@ export interface Fit {
   status: FitStatus;
   progress: number;
   stage: string | null;
-  datasets: FitDatasetRef[];
+  measurementSets: FitMeasurementSetRef[];
   options: { molarMassGPerMol?: number; quantumCorrection?: boolean; start?: { epsilonK: number; sigmaAngstrom: number }; bounds?: { epsilonK: [number, number]; sigmaAngstrom: [number, number] }; restarts?: number; maxIterations?: number };
   codeVersion: string;
   createdAt: string;
@@ -47,7 +47,7 @@ export interface FitListItem {
   createdByName: string;
   status: FitStatus;
   progress: number;
-  datasets: Array<{ datasetId: number; name: string; kind: PropertyKind; version: number; excludeRows?: number[] }>;
+  measurementSets: Array<{ measurementSetId: number; name: string; kind: PropertyKind; version: number; excludeRows?: number[] }>;
   /** False for a failed fit that kept its last iterate; null while queued or running. */
   converged?: boolean | null;
   heldParameters?: Array<'epsilonK' | 'sigmaAngstrom'>;

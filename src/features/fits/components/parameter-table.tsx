@@ -58,7 +58,7 @@ export function ParameterTable({ result, energy, length }: { result: LjFitResult
 
 const KIND_UNIT: Record<string, string> = { b2: 'cm³/mol', viscosity: 'µPa·s', density: 'kg/m³' };
 
-export function DatasetStatsTable({ result, names }: { result: LjFitResult; names: Record<string, string> }) {
+export function MeasurementSetStatsTable({ result, names }: { result: LjFitResult; names: Record<string, string> }) {
   return (
     <div className="overflow-x-auto">
     <table className="w-full text-sm">
@@ -72,9 +72,9 @@ export function DatasetStatsTable({ result, names }: { result: LjFitResult; name
         </tr>
       </thead>
       <tbody>
-        {result.perDataset.map((d) => (
-          <tr key={String(d.datasetId)} className="border-b border-rule/60">
-            <td className="py-1.5 pr-3">{names[String(d.datasetId)] ?? d.datasetId}</td>
+        {result.perMeasurementSet.map((d) => (
+          <tr key={String(d.measurementSetId)} className="border-b border-rule/60">
+            <td className="py-1.5 pr-3">{names[String(d.measurementSetId)] ?? d.measurementSetId}</td>
             <td className="num px-3 text-right">{d.points}{d.excludedPoints ? <span className="text-ink-faint"> (+{d.excludedPoints} left out)</span> : null}</td>
             <td className="num whitespace-nowrap px-3 text-right">{formatSignificant(d.rms, 3)} {KIND_UNIT[d.kind] ?? ''}</td>
             <td className="num px-3 text-right">{d.aadPercent == null ? '—' : d.aadPercent.toFixed(2)}</td>

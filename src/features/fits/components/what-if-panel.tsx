@@ -21,7 +21,7 @@ function trialResiduals(result: LjFitResult, epsilonK: number, sigmaAngstrom: nu
     for (const r of result.residuals) {
       const predicted = PROPERTY_MODELS[r.kind as FitKind].evaluate({ temperatureK: r.temperatureK, pressureMPa: r.pressureMPa, measured: r.measured }, epsilonK, sigmaAngstrom, context).value;
       if (!Number.isFinite(predicted)) return null;
-      const w = weights[String(r.datasetId)] ?? 1;
+      const w = weights[String(r.measurementSetId)] ?? 1;
       const residual = (w * (predicted - r.measured)) / r.uncertainty;
       const leftOut = r.excluded === true;
       if (!leftOut) chi2 += residual ** 2;
@@ -87,7 +87,8 @@ export function WhatIfPanel({ result, names, context, weights }: { result: LjFit
       </div>
       <FitCurves
         result={result}
-        datasetNames={names}
+        posteriorBand={false}
+        measurementSetNames={names}
         context={context}
         curves={[
           { label: 'fit', epsilonK: result.epsilonK, sigmaAngstrom: result.sigmaAngstrom },
@@ -100,6 +101,7 @@ export function WhatIfPanel({ result, names, context, weights }: { result: LjFit
       {hasDensity && trial && (
         <DensityCharts
           result={result}
+          posteriorBand={false}
           context={context}
           curves={[{ label: 'what-if', epsilonK: eps, sigmaAngstrom: sigma }]}
           predictions={trial.residuals}

@@ -3,12 +3,12 @@ import type { PropertyKind } from '@shared/measurements/property-kinds';
 import { api } from '@/lib/api-client';
 import { substanceKeys } from '@/features/substances/api/substances';
 
-export interface DatasetSummary {
+export interface MeasurementSetSummary {
   id: number;
   substanceId: number;
   substanceName: string;
-  property: PropertyKind;
-  propertyLabel: string;
+  kind: PropertyKind;
+  kindLabel: string;
   name: string;
   version: number;
   versionId: number;
@@ -20,15 +20,15 @@ export interface DatasetSummary {
   withdrawn: boolean;
 }
 
-export type DatasetRow = { row: number; temperatureK: number; pressureMPa?: number; uncertaintySource: 'measured' | 'default-relative'; raw: Record<string, string> } & Record<string, number | string | Record<string, string> | undefined>;
+export type MeasurementSetRow = { row: number; temperatureK: number; pressureMPa?: number; uncertaintySource: 'measured' | 'default-relative'; raw: Record<string, string> } & Record<string, number | string | Record<string, string> | undefined>;
 
-export interface DatasetDetail {
+export interface MeasurementSetDetail {
   id: number;
   name: string;
   substanceId: number;
   substanceName: string;
-  property: PropertyKind;
-  propertyLabel: string;
+  kind: PropertyKind;
+  kindLabel: string;
   valueField: string;
   uncertaintyField: string;
   version: number;
@@ -49,31 +49,31 @@ export interface DatasetDetail {
   uploadedByName: string;
   withdrawn: { at: string; reason: string } | null;
   versions: Array<{ version: number; sha256: string; rowCount: number; uploadedAt: string; uploadedByName: string; originalFilename: string; source: string | null }>;
-  rows: DatasetRow[];
+  rows: MeasurementSetRow[];
 }
 
-export const datasetKeys = {
-  all: ['datasets'] as const,
-  list: (substanceId?: number) => [...datasetKeys.all, 'list', { substanceId }] as const,
-  detail: (id: number, version?: number) => [...datasetKeys.all, 'detail', id, { version }] as const,
+export const measurementSetKeys = {
+  all: ['measurementSets'] as const,
+  list: (substanceId?: number) => [...measurementSetKeys.all, 'list', { substanceId }] as const,
+  detail: (id: number, version?: number) => [...measurementSetKeys.all, 'detail', id, { version }] as const,
 };
 
-export const datasetsQueryOptions = (substanceId?: number) =>
+export const measurementSetsQueryOptions = (substanceId?: number) =>
   queryOptions({
-    queryKey: datasetKeys.list(substanceId),
-    queryFn: () => api<{ datasets: DatasetSummary[] }>(`/datasets${substanceId ? `?substanceId=${substanceId}` : ''}`).then((r) => r.datasets),
+    queryKey: measurementSetKeys.list(substanceId),
+    queryFn: () => api<{ measurementSets: MeasurementSetSummary[] }>(`/measurement-sets${substanceId ? `?substanceId=${substanceId}` : ''}`).then((r) => r.measurementSets),
   });
 
-export const datasetQueryOptions = (id: number, version?: number) =>
-  queryOptions({ queryKey: datasetKeys.detail(id, version), queryFn: () => api<DatasetDetail>(`/datasets/${id}${version ? `?version=${version}` : ''}`) });
+export const measurementSetQueryOptions = (id: number, version?: number) =>
+  queryOptions({ queryKey: measurementSetKeys.detail(id, version), queryFn: () => api<MeasurementSetDetail>(`/measurement-sets/${id}${version ? `?version=${version}` : ''}`) });
 
-export const useDatasets = (substanceId?: number) => useQuery(datasetsQueryOptions(substanceId));
-export const useDataset = (id: number, version?: number) => useQuery(datasetQueryOptions(id, version));
+export const useMeasurementSets = (substanceId?: number) => useQuery(measurementSetsQueryOptions(substanceId));
+export const useMeasurementSet = (id: number, version?: number) => useQuery(measurementSetQueryOptions(id, version));
 
 export interface UploadInput {
   file: File;
   substanceId?: number;
-  property?: PropertyKind;
+  kind?: PropertyKind;
   name?: string;
   source?: string;
   doi?: string;
@@ -95,25 +95,25 @@ function toFormData(input: UploadInput): FormData {
   return form;
 }
 
-/** Uploads a new dataset (datasetId absent) or a new version of one. */
-export const useUploadDataset = () => {
+/** Uploads a new measurement set (measurementSetId absent) or a new version of one. */
+export const useUploadMeasurementSet = () => {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: ({ datasetId, ...input }: UploadInput & { datasetId?: number }) =>
-      api<{ id: number; version: number; rowCount: number; sha256: string }>(datasetId ? `/datasets/${datasetId}/versions` : '/datasets', { formData: toFormData(input) }),
+    mutationFn: ({ measurementSetId, ...input }: UploadInput & { measurementSetId?: number }) =>
+      api<{ id: number; version: number; rowCount: number; sha256: string }>(measurementSetId ? `/measurement-sets/${measurementSetId}/versions` : '/measurement-sets', { formData: toFormData(input) }),
     onSuccess: () => {
-      void qc.invalidateQueries({ queryKey: datasetKeys.all });
+      void qc.invalidateQueries({ queryKey: measurementSetKeys.all });
       void qc.invalidateQueries({ queryKey: substanceKeys.all });
     },
   });
 };
 
-export const useWithdrawDataset = (id: number) => {
+export const useWithdrawMeasurementSet = (id: number) => {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (reason: string) => api<{ id: number }>(`/datasets/${id}/withdraw`, { body: { reason } }),
+    mutationFn: (reason: string) => api<{ id: number }>(`/measurement-sets/${id}/withdraw`, { body: { reason } }),
     onSuccess: () => {
-      void qc.invalidateQueries({ queryKey: datasetKeys.all });
+      void qc.invalidateQueries({ queryKey: measurementSetKeys.all });
       void qc.invalidateQueries({ queryKey: substanceKeys.all });
     },
   });

@@ -24,7 +24,7 @@ export function valueAxisTitle(kind: PropertyKind): string {
 }
 
 /** Measured points against temperature with ±u error bars; densities are grouped by pressure. */
-export function DatasetChart({ kind, rows, height }: { kind: PropertyKind; rows: PlotRow[]; height?: number }) {
+export function MeasurementSetChart({ kind, rows, height }: { kind: PropertyKind; rows: PlotRow[]; height?: number }) {
   let series: ChartSeries[];
   if (kind === 'density') {
     const byPressure = new Map<number, PlotRow[]>();

@@ -1,9 +1,9 @@
 import { Link } from 'react-router-dom';
 import { KindBadge } from '@/components/ui/badge';
 
-export interface DatasetSourceRow {
+export interface MeasurementSetSourceRow {
   versionId: number;
-  datasetId?: number;
+  measurementSetId?: number;
   name: string;
   version: number;
   kind: string;
@@ -16,10 +16,10 @@ export interface DatasetSourceRow {
 }
 
 /**
- * The measurement-set versions behind a parameter set with their provenance. Readers who may open datasets
+ * The measurement-set versions behind a parameter set with their provenance. Readers who may open measurement sets
  * get links and the SHA-256; the catalog shows the citation only.
  */
-export function DatasetSourcesTable({ rows, linkToDatasets = false, showSha = false }: { rows: DatasetSourceRow[]; linkToDatasets?: boolean; showSha?: boolean }) {
+export function MeasurementSetSourcesTable({ rows, linkToMeasurementSets = false, showSha = false }: { rows: MeasurementSetSourceRow[]; linkToMeasurementSets?: boolean; showSha?: boolean }) {
   return (
     <div className="overflow-x-auto">
     <table className="w-full text-sm">
@@ -37,7 +37,7 @@ export function DatasetSourcesTable({ rows, linkToDatasets = false, showSha = fa
         {rows.map((d) => (
           <tr key={d.versionId} className="border-b border-rule/60">
             <td className="py-1.5">
-              {linkToDatasets && d.datasetId ? <Link className="underline" to={`/datasets/${d.datasetId}?version=${d.version}`}>{d.name} v{d.version}</Link> : `${d.name} v${d.version}`}
+              {linkToMeasurementSets && d.measurementSetId ? <Link className="underline" to={`/measurement-sets/${d.measurementSetId}?version=${d.version}`}>{d.name} v{d.version}</Link> : `${d.name} v${d.version}`}
               {d.weight !== undefined && d.weight !== 1 && <span className="text-ink-faint"> (weight {d.weight})</span>}
             </td>
             <td><KindBadge kind={d.kind} /></td>

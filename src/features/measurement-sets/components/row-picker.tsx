@@ -1,19 +1,19 @@
 import { PROPERTY_KINDS } from '@shared/measurements/property-kinds';
 import { formatMeasured } from '@shared/format/numbers';
 import { ErrorState, LoadingState } from '@/components/ui/states';
-import { useDataset } from '../api/datasets';
-import { quantityHeading } from './dataset-chart';
+import { useMeasurementSet } from '../api/measurement-sets';
+import { quantityHeading } from './measurement-set-chart';
 
 /**
  * The rows of one measurement set (the version a fit would use) with a tick box each to leave the row out of
- * a fit. Row numbers count the data rows from 1, as the dataset page's "Row" column does.
+ * a fit. Row numbers count the data rows from 1, as the measurement set page's "Row" column does.
  */
-export function DatasetRowPicker({ datasetId, name, excluded, onChange }: { datasetId: number; name: string; excluded: number[]; onChange: (rows: number[]) => void }) {
-  const dataset = useDataset(datasetId);
-  if (dataset.isPending) return <LoadingState label="Loading the rows…" />;
-  if (dataset.isError) return <ErrorState error={dataset.error} onRetry={() => dataset.refetch()} />;
-  const d = dataset.data;
-  const def = PROPERTY_KINDS[d.property];
+export function MeasurementSetRowPicker({ measurementSetId, name, excluded, onChange }: { measurementSetId: number; name: string; excluded: number[]; onChange: (rows: number[]) => void }) {
+  const measurementSet = useMeasurementSet(measurementSetId);
+  if (measurementSet.isPending) return <LoadingState label="Loading the rows…" />;
+  if (measurementSet.isError) return <ErrorState error={measurementSet.error} onRetry={() => measurementSet.refetch()} />;
+  const d = measurementSet.data;
+  const def = PROPERTY_KINDS[d.kind];
   const hasPressure = d.rows.some((r) => typeof r.pressureMPa === 'number');
   const toggle = (row: number, out: boolean) => onChange(out ? [...excluded, row].sort((a, b) => a - b) : excluded.filter((r) => r !== row));
   return (
@@ -32,7 +32,7 @@ export function DatasetRowPicker({ datasetId, name, excluded, onChange }: { data
         </thead>
         <tbody>
           {d.rows.map((r, i) => {
-            // Rows are counted from 1 over the data, as the dataset page's "Row" column shows them.
+            // Rows are counted from 1 over the data, as the measurement set page's "Row" column shows them.
             const row = i + 1;
             const out = excluded.includes(row);
             return (

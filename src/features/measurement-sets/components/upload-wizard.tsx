@@ -9,8 +9,8 @@ import { Button } from '@/components/ui/button';
 import { Field, Input, Select, TextArea } from '@/components/ui/field';
 import { Panel } from '@/components/ui/states';
 import { ApiError } from '@/lib/api-client';
-import { useUploadDataset } from '../api/datasets';
-import { DatasetChart, quantityHeading } from './dataset-chart';
+import { useUploadMeasurementSet } from '../api/measurement-sets';
+import { MeasurementSetChart, quantityHeading } from './measurement-set-chart';
 
 type Delim = '' | ',' | ';' | '\t';
 type Dec = '' | '.' | ',';
@@ -18,8 +18,8 @@ type Dec = '' | '.' | ',';
 export interface UploadWizardProps {
   substanceId: number;
   molarMassGPerMol: number;
-  /** Set for a corrected version of an existing dataset: the kind is then fixed. */
-  existing?: { datasetId: number; kind: PropertyKind; name: string; source: string | null; doi: string | null; method: string | null };
+  /** Set for a corrected version of an existing measurement set: the kind is then fixed. */
+  existing?: { measurementSetId: number; kind: PropertyKind; name: string; source: string | null; doi: string | null; method: string | null };
   onStored: (result: { id: number; version: number }) => void;
 }
 
@@ -40,7 +40,7 @@ export function UploadWizard({ substanceId, molarMassGPerMol, existing, onStored
   const [doi, setDoi] = useState(existing?.doi ?? '');
   const [method, setMethod] = useState(existing?.method ?? '');
   const [notes, setNotes] = useState('');
-  const upload = useUploadDataset();
+  const upload = useUploadMeasurementSet();
 
   useEffect(() => {
     if (!file) return;
@@ -89,10 +89,10 @@ export function UploadWizard({ substanceId, molarMassGPerMol, existing, onStored
     if (!file || !result?.ok || !effectiveKind) return;
     upload.mutate(
       {
-        datasetId: existing?.datasetId,
+        measurementSetId: existing?.measurementSetId,
         file,
         substanceId: existing ? undefined : substanceId,
-        property: existing ? undefined : effectiveKind,
+        kind: existing ? undefined : effectiveKind,
         name: existing ? undefined : name.trim(),
         source: source.trim() || undefined,
         doi: doi.trim() || undefined,
@@ -116,7 +116,7 @@ export function UploadWizard({ substanceId, molarMassGPerMol, existing, onStored
           <Field label="CSV file" htmlFor="upload-file" hint="Headers name the quantity and its unit, e.g. T (K), p [bar], B2 (cm3/mol), rho (kg/m3), eta (uPa s).">
             <Input id="upload-file" type="file" accept=".csv,.txt,.tsv,text/csv" onChange={(e) => setFile(e.target.files?.[0] ?? null)} />
           </Field>
-          <Field label="Property" htmlFor="upload-kind">
+          <Field label="Kind" htmlFor="upload-kind">
             <Select id="upload-kind" value={kind} disabled={!!existing} onChange={(e) => { setKind(e.target.value as PropertyKind | ''); setMapping(undefined); }}>
               <option value="">Detect from the headers</option>
               {PROPERTY_KIND_IDS.map((k) => (
@@ -211,7 +211,7 @@ export function UploadWizard({ substanceId, molarMassGPerMol, existing, onStored
       {result?.ok && effectiveKind && (
         <Panel title={`3 · Preview: ${result.rows.length} rows in canonical units`}>
           <div className="grid gap-6 lg:grid-cols-2">
-            <DatasetChart kind={effectiveKind} rows={result.rows.map((r) => { const rec = r as unknown as Record<string, number>; const d = PROPERTY_KINDS[effectiveKind]; return { temperatureK: r.temperatureK, pressureMPa: rec.pressureMPa, value: rec[d.valueField], uncertainty: rec[d.uncertaintyField] }; })} height={280} />
+            <MeasurementSetChart kind={effectiveKind} rows={result.rows.map((r) => { const rec = r as unknown as Record<string, number>; const d = PROPERTY_KINDS[effectiveKind]; return { temperatureK: r.temperatureK, pressureMPa: rec.pressureMPa, value: rec[d.valueField], uncertainty: rec[d.uncertaintyField] }; })} height={280} />
             <div className="max-h-80 overflow-auto">
               <table className="w-full text-sm" aria-label="Preview rows">
                 <thead className="sticky top-0 bg-paper-raised text-xs tracking-wide text-ink-faint">

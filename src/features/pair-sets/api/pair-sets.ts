@@ -5,7 +5,7 @@ import { api } from '@/lib/api-client';
 export type { PairSetView } from '@shared/schemas/pair-sets';
 
 /** A B12 measurement set that a pair set can be fitted to. */
-export interface B12Dataset {
+export interface B12MeasurementSet {
   id: number;
   name: string;
   substanceName: string;
@@ -16,7 +16,7 @@ export interface B12Dataset {
 export const pairSetKeys = {
   all: ['pair-sets'] as const,
   list: () => [...pairSetKeys.all, 'list'] as const,
-  b12Datasets: () => [...pairSetKeys.all, 'b12-datasets'] as const,
+  b12MeasurementSets: () => [...pairSetKeys.all, 'b12-measurementSets'] as const,
   approvedSets: () => [...pairSetKeys.all, 'approved-sets'] as const,
 };
 
@@ -35,14 +35,14 @@ export const useApprovedSets = (enabled: boolean) => useQuery({ ...approvedSetsQ
 
 export const pairSetsQueryOptions = () => queryOptions({ queryKey: pairSetKeys.list(), queryFn: () => api<{ pairSets: PairSetView[] }>('/pair-sets').then((r) => r.pairSets) });
 
-export const b12DatasetsQueryOptions = () =>
+export const b12MeasurementSetsQueryOptions = () =>
   queryOptions({
-    queryKey: pairSetKeys.b12Datasets(),
-    queryFn: () => api<{ datasets: Array<B12Dataset & { property: string }> }>('/datasets').then((r) => r.datasets.filter((d) => d.property === 'b12')),
+    queryKey: pairSetKeys.b12MeasurementSets(),
+    queryFn: () => api<{ measurementSets: Array<B12MeasurementSet & { kind: string }> }>('/measurement-sets').then((r) => r.measurementSets.filter((d) => d.kind === 'b12')),
   });
 
 export const usePairSets = () => useQuery(pairSetsQueryOptions());
-export const useB12Datasets = (enabled: boolean) => useQuery({ ...b12DatasetsQueryOptions(), enabled });
+export const useB12MeasurementSets = (enabled: boolean) => useQuery({ ...b12MeasurementSetsQueryOptions(), enabled });
 
 /** Fits and submits a pair set; the list and every mixture answer may change. */
 export const useCreatePairSet = () => {

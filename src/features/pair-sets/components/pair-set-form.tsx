@@ -3,21 +3,21 @@ import { Button } from '@/components/ui/button';
 import { Field, Select } from '@/components/ui/field';
 import { ErrorState, LoadingState } from '@/components/ui/states';
 import { detailsOf, detailText } from '@/lib/api-client';
-import { useApprovedSets, useB12Datasets, useCreatePairSet } from '../api/pair-sets';
+import { useApprovedSets, useB12MeasurementSets, useCreatePairSet } from '../api/pair-sets';
 
 /** Modeller's form: two approved sets held fixed, one B12 measurement set, fit k_ij (and l_ij) and send to review. */
 export function PairSetForm() {
   const sets = useApprovedSets(true);
-  const datasets = useB12Datasets(true);
+  const measurementSets = useB12MeasurementSets(true);
   const create = useCreatePairSet();
   const [a, setA] = useState('');
   const [b, setB] = useState('');
-  const [datasetId, setDatasetId] = useState('');
+  const [measurementSetId, setMeasurementSetId] = useState('');
   const [fitLij, setFitLij] = useState(false);
-  if (sets.isPending || datasets.isPending) return <LoadingState />;
+  if (sets.isPending || measurementSets.isPending) return <LoadingState />;
   if (sets.isError) return <ErrorState error={sets.error} onRetry={() => sets.refetch()} />;
-  if (datasets.isError) return <ErrorState error={datasets.error} onRetry={() => datasets.refetch()} />;
-  const ready = a && b && a !== b && datasetId;
+  if (measurementSets.isError) return <ErrorState error={measurementSets.error} onRetry={() => measurementSets.refetch()} />;
+  const ready = a && b && a !== b && measurementSetId;
   return (
     <form
       className="grid gap-3"
@@ -25,7 +25,7 @@ export function PairSetForm() {
       onSubmit={(e) => {
         e.preventDefault();
         if (!ready) return;
-        create.mutate({ parameterSetIds: [Number(a), Number(b)], datasetId: Number(datasetId), fitLij });
+        create.mutate({ parameterSetIds: [Number(a), Number(b)], measurementSetId: Number(measurementSetId), fitLij });
       }}
     >
       <div className="grid gap-3 sm:grid-cols-2">
@@ -45,10 +45,10 @@ export function PairSetForm() {
           </Field>
         ))}
       </div>
-      <Field label="Cross second virial coefficients B12" htmlFor="pair-set-data" hint={datasets.data.length === 0 ? 'Upload a B12 table (T, B12, u(B12)) with one of the two substances first.' : undefined}>
-        <Select id="pair-set-data" value={datasetId} onChange={(e) => setDatasetId(e.target.value)}>
+      <Field label="Cross second virial coefficients B12" htmlFor="pair-set-data" hint={measurementSets.data.length === 0 ? 'Upload a B12 table (T, B12, u(B12)) with one of the two substances first.' : undefined}>
+        <Select id="pair-set-data" value={measurementSetId} onChange={(e) => setMeasurementSetId(e.target.value)}>
           <option value="">Choose…</option>
-          {datasets.data.map((d) => (
+          {measurementSets.data.map((d) => (
             <option key={d.id} value={d.id}>
               {d.name} ({d.substanceName}, v{d.version}, {d.rowCount} rows)
             </option>

@@ -44,7 +44,7 @@ export function PairSetTable() {
               <td className="num py-1.5">{p.id}</td>
               <td>
                 {p.setA.substanceName} v{p.setA.version} + {p.setB.substanceName} v{p.setB.version}
-                <div className="text-xs text-ink-faint">{p.dataset.name} v{p.dataset.version}</div>
+                <div className="text-xs text-ink-faint">{p.measurementSet.name} v{p.measurementSet.version}</div>
               </td>
               <td className="num text-right">{pm(p.kij, p.kijStdErr, 4)}</td>
               <td className="num text-right">{p.lij === null ? '—' : pm(p.lij, p.lijStdErr, 4)}</td>

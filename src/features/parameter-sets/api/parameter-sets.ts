@@ -51,7 +51,7 @@ export interface ParameterSetDetail extends ParameterSetSummary {
     warnings: string[];
     dataSpan: { temperatureMinK: number; temperatureMaxK: number } | null;
   };
-  datasets: Array<{ datasetId: number; name: string; kind: PropertyKind; version: number; versionId: number; weight: number; source: string | null; doi: string | null; method: string | null; rowCount: number | null; sha256: string | null }>;
+  measurementSets: Array<{ measurementSetId: number; name: string; kind: PropertyKind; version: number; versionId: number; weight: number; source: string | null; doi: string | null; method: string | null; rowCount: number | null; sha256: string | null }>;
   history: Array<{ id: number; move: Move | 'create'; fromState: ParameterSetState | null; toState: ParameterSetState; actorId: string | null; actorName: string | null; comment: string | null; at: string }>;
   comments: Array<{ id: number; authorId: string; authorName: string; body: string; createdAt: string }>;
   currentApproved: ParameterSetSummary | null;

@@ -1,7 +1,7 @@
 import type { LjResidual } from '@shared/fitting/lj-fit';
 import type { PropertyContext } from '@shared/fitting/property-models';
 import { formatSignificant, formatWithUncertainty } from '@shared/format/numbers';
-import { datasetDeviations } from '@shared/parameter-sets/compare';
+import { measurementSetDeviations } from '@shared/parameter-sets/compare';
 import type { ParameterSetSummary } from '../api/parameter-sets';
 
 const UNIT: Record<string, string> = { b2: 'cm³/mol', viscosity: 'µPa·s', density: 'kg/m³' };
@@ -19,13 +19,13 @@ const signed = (x: number, digits: number) => `${x >= 0 ? '+' : '−'}${formatSi
  * This set against the approved version of the same substance and scheme: parameters side by side with
  * the change, and both parameter pairs measured against this set's fitted data, per measurement set.
  */
-export function ApprovedComparison({ set, approved, points, context, datasetNames }: { set: ParameterSetSummary; approved: ParameterSetSummary; points: LjResidual[]; context: PropertyContext; datasetNames: Record<string, string> }) {
+export function ApprovedComparison({ set, approved, points, context, measurementSetNames }: { set: ParameterSetSummary; approved: ParameterSetSummary; points: LjResidual[]; context: PropertyContext; measurementSetNames: Record<string, string> }) {
   const rows = [
     { label: 'ε/k_B', unit: 'K', a: approved.epsilonK, ua: approved.stdErr.epsilonK, b: set.epsilonK, ub: set.stdErr.epsilonK },
     { label: 'σ', unit: 'Å', a: approved.sigmaAngstrom, ua: approved.stdErr.sigmaAngstrom, b: set.sigmaAngstrom, ub: set.stdErr.sigmaAngstrom },
   ];
-  const mine = datasetDeviations(points, set.epsilonK, set.sigmaAngstrom, context);
-  const theirs = datasetDeviations(points, approved.epsilonK, approved.sigmaAngstrom, context);
+  const mine = measurementSetDeviations(points, set.epsilonK, set.sigmaAngstrom, context);
+  const theirs = measurementSetDeviations(points, approved.epsilonK, approved.sigmaAngstrom, context);
   return (
     <div className="grid gap-5">
       <table className="w-full text-sm" aria-label="Parameters against the approved version">
@@ -71,8 +71,8 @@ export function ApprovedComparison({ set, approved, points, context, datasetName
               const o = theirs[i];
               const unit = UNIT[d.kind];
               return (
-                <tr key={String(d.datasetId)} className="border-b border-rule/60">
-                  <td className="py-1.5">{datasetNames[String(d.datasetId)] ?? d.datasetId}</td>
+                <tr key={String(d.measurementSetId)} className="border-b border-rule/60">
+                  <td className="py-1.5">{measurementSetNames[String(d.measurementSetId)] ?? d.measurementSetId}</td>
                   <td className="num text-right">{d.points}</td>
                   <td className="num text-right">{Number.isNaN(o.rms) ? '—' : `${formatSignificant(o.rms, 3)} ${unit}`}</td>
                   <td className="num text-right">{Number.isNaN(d.rms) ? '—' : `${formatSignificant(d.rms, 3)} ${unit}`}</td>

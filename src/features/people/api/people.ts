@@ -1,6 +1,6 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { Role } from '@shared/auth/roles';
-import type { CreateUserBody, UpdateUserBody } from '@shared/schemas/users';
+import type { CreatePersonBody, UpdatePersonBody } from '@shared/schemas/people';
 import { api } from '@/lib/api-client';
 
 export interface Person {
@@ -18,14 +18,14 @@ export const peopleKeys = {
 };
 
 export const peopleQueryOptions = () =>
-  queryOptions({ queryKey: peopleKeys.list(), queryFn: () => api<{ users: Person[] }>('/users').then((r) => r.users) });
+  queryOptions({ queryKey: peopleKeys.list(), queryFn: () => api<{ people: Person[] }>('/people').then((r) => r.people) });
 
 export const usePeople = () => useQuery(peopleQueryOptions());
 
 export const useCreatePerson = () => {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: CreateUserBody) => api<Person>('/users', { body }),
+    mutationFn: (body: CreatePersonBody) => api<Person>('/people', { body }),
     onSuccess: () => qc.invalidateQueries({ queryKey: peopleKeys.all }),
   });
 };
@@ -33,7 +33,7 @@ export const useCreatePerson = () => {
 export const useUpdatePerson = () => {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: ({ id, ...body }: UpdateUserBody & { id: string }) => api<Person>(`/users/${id}`, { method: 'PATCH', body }),
+    mutationFn: ({ id, ...body }: UpdatePersonBody & { id: string }) => api<Person>(`/people/${id}`, { method: 'PATCH', body }),
     onSuccess: () => qc.invalidateQueries({ queryKey: peopleKeys.all }),
   });
 };

@@ -1,14 +1,14 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm } from 'react-hook-form';
 import { ROLE_LABELS, ROLES } from '@shared/auth/roles';
-import { createUserBody, type CreateUserBody } from '@shared/schemas/users';
+import { createPersonBody, type CreatePersonBody } from '@shared/schemas/people';
 import { Button } from '@/components/ui/button';
 import { Field, Input } from '@/components/ui/field';
 import { useCreatePerson } from '../api/people';
 
 export function CreatePersonForm() {
   const create = useCreatePerson();
-  const form = useForm<CreateUserBody>({ resolver: zodResolver(createUserBody), defaultValues: { email: '', name: '', roles: ['consumer'], password: '' } });
+  const form = useForm<CreatePersonBody>({ resolver: zodResolver(createPersonBody), defaultValues: { email: '', name: '', roles: ['consumer'], password: '' } });
   const errors = form.formState.errors;
   return (
     <form

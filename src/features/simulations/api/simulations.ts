@@ -1,5 +1,5 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { CreateSimulationBody, SimulationsFromDatasetBody } from '@shared/schemas/simulations';
+import type { CreateSimulationBody, SimulationsFromMeasurementSetBody } from '@shared/schemas/simulations';
 import { api } from '@/lib/api-client';
 
 export type JobStatus = 'queued' | 'running' | 'succeeded' | 'failed' | 'cancelled';
@@ -46,7 +46,7 @@ export interface Simulation {
   startedAt: string | null;
   finishedAt: string | null;
   state: SimulationState;
-  origin: { substanceId: number; datasetId: number; version: number; fileRow: number; temperatureK: number; pressureMPa: number; densityKgPerM3: number; epsilonK: number; sigmaAngstrom: number } | null;
+  origin: { substanceId: number; measurementSetId: number; version: number; fileRow: number; temperatureK: number; pressureMPa: number; densityKgPerM3: number; epsilonK: number; sigmaAngstrom: number } | null;
   summary: SimulationSummary | null;
   trace?: { step: number[]; reducedDensity: number[]; reducedTemperature: number[]; potentialEnergyPerAtom: number[]; q6: number[] };
 }
@@ -110,10 +110,10 @@ export const useStartSimulation = () => {
   });
 };
 
-export const useStartSimulationsFromDataset = () => {
+export const useStartSimulationsFromMeasurementSet = () => {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: SimulationsFromDatasetBody) => api<{ runs: Array<{ id: number; reused: boolean }> }>('/simulations/from-dataset', { body }),
+    mutationFn: (body: SimulationsFromMeasurementSetBody) => api<{ runs: Array<{ id: number; reused: boolean }> }>('/simulations/from-measurement-set', { body }),
     onSuccess: () => qc.invalidateQueries({ queryKey: simulationKeys.all }),
   });
 };

@@ -2,11 +2,11 @@ import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import { Button } from '@/components/ui/button';
 import { Field, Input } from '@/components/ui/field';
-import { useStartSimulationsFromDataset } from '../api/simulations';
+import { useStartSimulationsFromMeasurementSet } from '../api/simulations';
 
 /** Run NPT simulations at the measured state points of a density set, mapped with trial ε and σ. */
-export function SimulateRowsPanel({ datasetId, version }: { datasetId: number; version: number }) {
-  const start = useStartSimulationsFromDataset();
+export function SimulateRowsPanel({ measurementSetId, version }: { measurementSetId: number; version: number }) {
+  const start = useStartSimulationsFromMeasurementSet();
   const [eps, setEps] = useState('');
   const [sigma, setSigma] = useState('');
   const [rows, setRows] = useState('');
@@ -16,7 +16,7 @@ export function SimulateRowsPanel({ datasetId, version }: { datasetId: number; v
       className="grid gap-3"
       onSubmit={(e) => {
         e.preventDefault();
-        start.mutate({ datasetId, version, epsilonK: Number(eps.replace(',', '.')), sigmaAngstrom: Number(sigma.replace(',', '.')), rows: parsedRows });
+        start.mutate({ measurementSetId, version, epsilonK: Number(eps.replace(',', '.')), sigmaAngstrom: Number(sigma.replace(',', '.')), rows: parsedRows });
       }}
     >
       <p className="text-sm text-ink-soft">Each measured (T, P) maps to T* = T/(ε/k_B), P* = Pσ³/ε; one NPT run per row. Runs at a reduced state already simulated are reused.</p>

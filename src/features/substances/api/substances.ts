@@ -1,6 +1,6 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
-import type { DatasetSummary } from '@/features/datasets/api/datasets';
+import type { MeasurementSetSummary } from '@/features/measurement-sets/api/measurement-sets';
 
 export interface Substance {
   id: number;
@@ -14,13 +14,13 @@ export interface Substance {
 }
 
 export interface SubstanceListItem extends Substance {
-  datasetCount: number;
+  measurementSetCount: number;
   kinds: string[];
 }
 
 export interface SubstanceDetail extends Substance {
   createdByName: string;
-  datasets: DatasetSummary[];
+  measurementSets: MeasurementSetSummary[];
 }
 
 export const substanceKeys = {
