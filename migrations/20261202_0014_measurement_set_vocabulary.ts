@@ -5,6 +5,8 @@ import { type Kysely, sql } from 'kysely';
  * `kind`. Tables and columns are renamed in place (ALTER TABLE …
  * RENAME), so rows, ids, foreign keys and indexes stay as they are; SQLite rewrites the references in other
  * tables, indexes and triggers. The immutability triggers are created again under their new names and messages.
+ * One old name stays: the unique constraint dataset_version_unique (SQLite renames no constraint without rebuilding
+ * the table, and nothing refers to the name).
  * Stored JSON (fit and parameter-set references, job payloads) keeps whatever keys it was written with; the
  * reading code accepts both spellings.
  */
