@@ -19,7 +19,7 @@ function criterionOf(r: LjFitResult, label = '') {
 function repulsiveExponentText(r: LjFitResult) {
   if (r.model !== 'mie' || r.repulsiveExponent === undefined) return '12 (LJ 12-6)';
   const profile = (r as LjFitResult & { repulsiveExponentProfile?: RepulsiveExponentProfile }).repulsiveExponentProfile;
-  const value = formatSignificant(r.repulsiveExponent, 4);
+  const value = String(Number(r.repulsiveExponent.toFixed(2)));
   if (!profile) return `${value} (held)`;
   const ends = profile.lower95 !== null && profile.upper95 !== null ? `, 95 %: ${formatSignificant(profile.lower95, 3)}–${formatSignificant(profile.upper95, 3)}` : ', interval reaches 8 or 36';
   return `${value} (fitted${ends})`;
@@ -72,7 +72,7 @@ export function FitCompareRoute() {
       <div className="grid gap-6">
         <Panel title="Side by side">
           <div className="overflow-x-auto">
-          <table className="w-full text-sm" aria-label="Fits side by side">
+          <table className="w-full text-xs sm:text-sm" aria-label="Fits side by side">
             <thead className="border-b border-rule text-xs tracking-wide text-ink-faint">
               <tr><th className="py-1.5 text-left" />{fits.map((f) => <th key={f.id} className="text-right"><Link to={`/fits/${f.id}`} className="underline">Fit #{f.number}</Link></th>)}</tr>
             </thead>

@@ -162,6 +162,7 @@ export function EllipseChart({ result, height = 280 }: { result: LjFitResult; he
       </ul>
       <figcaption className="mt-1 text-xs text-ink-faint">
         {result.ellipse95?.description}
+        {result.ellipse95 && !/\.\s*$/.test(result.ellipse95.description) ? '.' : ''}
         {draws.length > 0 &&
           ' Dots: draws from the posterior (flat priors within the bounds unless a prior is named in the posterior panel); dashed teal: their 95 % highest-posterior-density region.'}
       </figcaption>

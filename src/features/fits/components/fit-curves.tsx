@@ -61,7 +61,7 @@ export function FitCurves({ result, measurementSetNames, context, curves, height
               height={height}
             />
             <p className="mt-1 text-xs text-ink-faint">
-              {bands[kind]?.length ? 'Shaded: the central 95 % of the model over the posterior draws (posterior-predictive band, without measurement noise). ' : ''}
+              {bands[kind]?.length ? `${bandSentence(bands[kind]!, valueAxisTitle(kind))} ` : ''}
               Lower panel: residuals {residualsLabel ?? 'of the fit'}, (model − measured) divided by the measurement’s standard uncertainty u{points.some(isLeftOut) ? '; open markers are points left out of the fit' : ''}.
             </p>
           </div>
@@ -69,6 +69,17 @@ export function FitCurves({ result, measurementSetNames, context, curves, height
       })}
     </div>
   );
+}
+
+/**
+ * The band in words, with its widest point: a band narrower than the curve's line cannot be seen, so its width is
+ * said as well as drawn.
+ */
+export function bandSentence(band: Array<{ x: number; y: number; lower: number }>, axisTitle: string) {
+  const widest = band.reduce((w, p) => (p.y - p.lower > w.y - w.lower ? p : w), band[0]);
+  const unit = /\(([^)]+)\)\s*$/.exec(axisTitle)?.[1] ?? '';
+  const width = Number((widest.y - widest.lower).toPrecision(2));
+  return `Shaded: the central 95 % of the model over the posterior draws (posterior-predictive band, without measurement noise); at its widest, ${Math.round(widest.x)} K, it spans ${width}${unit ? ` ${unit}` : ''}.`;
 }
 
 /** Draws a band is computed from: a couple of hundred keep a page with several kinds quick (viscosity integrates per draw). */

@@ -27,6 +27,8 @@ export interface PriorSetChoice {
   version: number;
   /** The pair potential of the set: a prior is offered only for a fit of the same potential. */
   potential: 'lj-12-6' | 'mie';
+  /** λr of the set (12 for LJ 12-6): a held-λr fit takes a prior of the same λr only. */
+  repulsiveExponent: number;
   potentialLabel: string;
   epsilonK: number;
   sigmaAngstrom: number;

@@ -13,6 +13,7 @@ import {
   fitFormSchema,
   formPathOf,
   isFittable,
+  parseDecimal,
   type FitFormValues,
   type FitSetChoice,
   type PriorSetChoice,
@@ -78,8 +79,9 @@ export function FitSetupForm({
     // Only a new refusal places messages; the arrays are derived from it.
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [error, setError]);
-  // Approved sets of the potential being fitted; a chosen prior of the other potential is let go.
-  const priorOffered = priorSets.filter((p) => p.potential === v.options.model);
+  // Approved sets of the potential being fitted (and of the held λr); a chosen prior that no longer fits is let go.
+  const heldExponent = v.options.model === 'mie' && v.options.exponent === 'held' ? parseDecimal(v.options.repulsiveExponent) : null;
+  const priorOffered = priorSets.filter((p) => p.potential === v.options.model && (heldExponent === null || p.repulsiveExponent === heldExponent));
   const priorChosen = v.options.posterior.priorSetId;
   useEffect(() => {
     if (priorChosen !== '' && !priorOffered.some((p) => String(p.id) === priorChosen)) setValue('options.posterior.priorSetId', '');
