@@ -40,6 +40,7 @@ export const router = createBrowserRouter([
           { path: 'mailbox', lazy: () => import('./routes/mailbox').then((m) => ({ Component: m.MailboxRoute })) },
           { path: 'audit', lazy: () => import('./routes/audit-trail').then((m) => ({ Component: m.AuditTrailRoute })) },
           { path: 'validation-suite', lazy: () => import('./routes/validation-suite').then((m) => ({ Component: m.ValidationSuiteRoute })) },
+          { path: 'validation-suite', lazy: () => import('./routes/validation-suite').then((m) => ({ Component: m.ValidationSuiteRoute })) },
           { path: 'account', lazy: () => import('./routes/account').then((m) => ({ Component: m.AccountRoute })) },
           { path: '*', element: <NotFoundRoute /> },
         ],

@@ -17,4 +17,5 @@ export const NAV_ITEMS: NavItem[] = [
   { to: '/people', label: 'People', policy: 'people:manage' },
   { to: '/audit', label: 'Audit trail', policy: 'audit:read' },
   { to: '/mailbox', label: 'Mailbox', policy: 'mailbox:read' },
+  { to: '/validation-suite', label: 'Validation suite', policy: 'validation:read' },
 ];

@@ -169,7 +169,7 @@ export const MD_TEST_SUITE_ONLY: TestSuiteOnlyCheck[] = [
     id: 'md.npt.fluctuation.d-rho-d-p',
     area: 'Molecular dynamics',
     quantity: '(∂ρ*/∂P*)_T from NPT fluctuations against the JZG 1993 equation',
-    unit: 'σ³/ε · σ⁻³',
+    unit: '1/ε (reduced units)',
     state: 'T* = 1.0, P* = 1.0, 500 atoms, 40 000 steps',
     source: 'Johnson, Zollweg & Gubbins 1993 equation of state, (∂ρ/∂P)_T = 1/(∂P/∂ρ)_T',
     reference: ljEosDensity(1.0, 1.0).dRhoDP,
