@@ -22,5 +22,7 @@ export default defineConfig({
     testTimeout: 60_000,
     hookTimeout: 60_000,
     pool: 'forks',
+    // Routes answering with sendView check their bodies against shared/contracts (server/common/respond.ts).
+    env: { CHECK_RESPONSES: '1' },
   },
 });

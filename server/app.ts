@@ -38,6 +38,8 @@ export interface CreateAppOptions {
 export function createApp(ctx: AppContext, options: CreateAppOptions = {}) {
   const app = express();
   app.disable('x-powered-by');
+  // Read by sendView (server/common/respond.ts): answers parsed with their contracts, in tests.
+  app.locals.checkResponses = ctx.env.CHECK_RESPONSES === '1';
   // Forwarding headers (X-Forwarded-For/-Host/-Proto) count only from the proxies TRUST_PROXY names; none by default.
   app.set('trust proxy', trustProxySetting(ctx.env.TRUST_PROXY));
   app.use(

@@ -21,6 +21,8 @@ const envSchema = z.object({
   /** BullMQ lock of a running job (ms): a worker killed without warning gives its job to another worker about this long later. */
   QUEUE_LOCK_MS: z.coerce.number().int().min(2000).max(600_000).default(30_000),
   LOG_REQUESTS: z.enum(['0', '1']).default('1'),
+  /** 1: every answer sent with sendView is parsed with its contract (shared/contracts) and drift answers 500; on in tests. */
+  CHECK_RESPONSES: z.enum(['0', '1']).default('0'),
   /** Sign-in attempts allowed per e-mail address and client address in 15 minutes. */
   SIGN_IN_LIMIT: z.coerce.number().int().min(1).default(10),
   /**

@@ -27,7 +27,7 @@ export async function startApp(extraEnv: Record<string, string> = {}, options: {
   let output = '';
   const child: ChildProcess = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
     cwd: root,
-    env: { ...process.env, NODE_ENV: 'production', PORT: '0', HOST: '127.0.0.1', DATABASE_PATH: path.join(dir, 'app.sqlite'), DEMO_PASSWORD, LOG_REQUESTS: '0', WORKERS: '1', ...extraEnv },
+    env: { ...process.env, NODE_ENV: 'production', PORT: '0', HOST: '127.0.0.1', DATABASE_PATH: path.join(dir, 'app.sqlite'), DEMO_PASSWORD, LOG_REQUESTS: '0', WORKERS: '1', CHECK_RESPONSES: '1', ...extraEnv },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
   const url = await new Promise<string>((resolve, reject) => {
