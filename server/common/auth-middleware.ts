@@ -1,8 +1,7 @@
 import type { RequestHandler } from 'express';
-import type { Session } from 'lucia';
+import type { Lucia, Session } from 'lucia';
 import { hasPolicy, refusalMessage, type Policy, type Role } from '../../shared/auth/roles';
 import type { Db } from '../db/database';
-import type { Auth } from '../features/auth/auth';
 import { AppError, forbidden, unauthorized } from './errors';
 
 export interface CurrentUser {
@@ -51,8 +50,11 @@ export function sameOrigin(origin: string | undefined, protocol: string, host: s
   }
 }
 
+/** What the session middleware needs of the session manager (built by createAuth in server/features/auth/auth.ts). */
+export type SessionAuth = Pick<Lucia, 'readSessionCookie' | 'validateSession' | 'createSessionCookie' | 'createBlankSessionCookie' | 'invalidateSession'>;
+
 /** Reads the session cookie, refreshes or clears it, and loads the user with their roles. */
-export function sessionMiddleware(auth: Auth, _db?: Db): RequestHandler {
+export function sessionMiddleware(auth: SessionAuth, _db?: Db): RequestHandler {
   return async (req, res, next) => {
     const sessionId = auth.readSessionCookie(req.headers.cookie ?? '');
     if (!sessionId) return next();
