@@ -3,7 +3,7 @@
  * the same reference, tolerance and computation. A failure names the check, its source, ours and the reference.
  */
 import { expect, it } from 'vitest';
-import { explainOutcome, runReferenceCheck, type ReferenceCheck } from './reference-check';
+import { explainOutcome, runReferenceCheck, withinTolerance, type ReferenceCheck } from './reference-check';
 
 export function itPassesReferenceChecks(checks: readonly ReferenceCheck[]): void {
   for (const check of checks) {
@@ -19,4 +19,10 @@ export function expectReferenceCheck(check: ReferenceCheck): number {
   const outcome = runReferenceCheck(check);
   expect(outcome.passed, explainOutcome(check, outcome)).toBe(true);
   return outcome.ours as number;
+}
+
+/** A value computed another way (through the command line, say) held to a registry entry's reference and tolerance. */
+export function expectWithinReference(ours: number, check: ReferenceCheck): void {
+  const outcome = { id: check.id, ours, difference: ours - check.reference, passed: withinTolerance(ours, check.reference, check.tolerance), durationMs: 0 };
+  expect(outcome.passed, explainOutcome(check, outcome)).toBe(true);
 }

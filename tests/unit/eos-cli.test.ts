@@ -2,6 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { runCli, type CliOutcome } from '../support/run-cli';
 import { LJ_EOS_SOURCE, ljEosPressure } from '../../shared/physics/lj-eos';
 import { THOL_2016_SOURCE, tholCoexistence, tholCriticalPoint, tholDensity, tholPressure } from '../../shared/physics/eos/thol-2016';
+import { expectWithinReference } from '../../shared/validation/reference-check-tests';
+import { referenceCheckById } from '../../shared/validation/reference-checks';
 
 const cli = (...args: string[]): Promise<CliOutcome> => runCli(args);
 
@@ -57,8 +59,9 @@ describe('cli eos', () => {
     // Thol et al. 2016 state T*c = 1.32, rho*c = 0.31, p*c = 0.13 for their equation.
     const crit = JSON.parse((await cli('eos', '--critical-point', '--json')).stdout) as Record<string, number>;
     expect(crit.reducedTemperature).toBe(tholCriticalPoint().reducedTemperature);
-    expect(crit.reducedTemperature).toBeCloseTo(1.32, 3);
-    expect(crit.reducedPressure).toBeCloseTo(0.13, 2);
+    // Registry entries thol.critical.t and thol.critical.p.
+    expectWithinReference(crit.reducedTemperature, referenceCheckById('thol.critical.t'));
+    expectWithinReference(crit.reducedPressure, referenceCheckById('thol.critical.p'));
     const above = await cli('eos', '--saturation', '--reduced-temperature', '1.4', '--json');
     expect(above.code).not.toBe(0);
     expect(above.stderr).toMatch(/--reduced-temperature 1.4: .*at or above the critical temperature/);

@@ -3,6 +3,8 @@ import { runCli, type CliOutcome } from '../support/run-cli';
 import { b2WithGradient } from '../../shared/physics/virial';
 import { omega11, omega22 } from '../../shared/physics/collision-integrals';
 import { viscosityWithGradient } from '../../shared/physics/viscosity';
+import { expectWithinReference } from '../../shared/validation/reference-check-tests';
+import { referenceCheckById } from '../../shared/validation/reference-checks';
 
 const cli = (...args: string[]): Promise<CliOutcome> => runCli(args);
 
@@ -56,8 +58,9 @@ describe('cli collision', () => {
       expect(r.omega11).toBe(omega11(r.reducedTemperature));
       expect(r.omega22).toBe(omega22(r.reducedTemperature));
     }
-    expect(Math.abs(json.rows[1].omega11 / 1.44 - 1)).toBeLessThan(1e-3);
-    expect(Math.abs(json.rows[1].omega22 / 1.593 - 1)).toBeLessThan(1e-3);
+    // Reference values and tolerances: registry entries collision.bsl.omega11.t1 and collision.bsl.omega22.t1.
+    expectWithinReference(json.rows[1].omega11, referenceCheckById('collision.bsl.omega11.t1'));
+    expectWithinReference(json.rows[1].omega22, referenceCheckById('collision.bsl.omega22.t1'));
   });
 
   it('reports a reduced temperature outside the table on stderr with a non-zero exit', async () => {
@@ -74,8 +77,8 @@ describe('cli viscosity', () => {
     const json = JSON.parse(out.stdout) as { rows: { temperatureK: number; viscosityMicroPaS: number }[]; higherOrderCorrection: string };
     expect(json.rows.map((r) => Object.keys(r).sort())).toEqual(Array(2).fill(['temperatureK', 'viscosityMicroPaS']));
     for (const r of json.rows) expect(r.viscosityMicroPaS).toBe(viscosityWithGradient(r.temperatureK, 122.4, 3.432, 39.948).viscosityMicroPaS);
-    // measured argon: 22.7 µPa·s at 300 K (Lemmon & Jacobsen 2004, from memory)
-    expect(Math.abs(json.rows[0].viscosityMicroPaS / 22.7 - 1)).toBeLessThan(0.02);
+    // measured argon: 22.7 µPa·s at 300 K (Lemmon & Jacobsen 2004, from memory): registry entry viscosity.argon-300.
+    expectWithinReference(json.rows[0].viscosityMicroPaS, referenceCheckById('viscosity.argon-300'));
     expect(json.higherOrderCorrection).toBe('none (first Chapman–Enskog approximation)');
   });
 
