@@ -7,12 +7,12 @@ import type { RequestHandler } from 'express';
  * this file alone.
  */
 export const OLD_ROUTES: ReadonlyArray<readonly [oldPrefix: RegExp, newPrefix: string]> = [
-  [/^\/datasets(?=[/?]|$)/, '/measurement-sets'],
-  [/^\/simulations\/from-dataset(?=[/?]|$)/, '/simulations/from-measurement-set'],
-  [/^\/users(?=[/?]|$)/, '/people'],
+  [/^\/datasets(?=[/?]|$)/i, '/measurement-sets'],
+  [/^\/simulations\/from-dataset(?=[/?]|$)/i, '/simulations/from-measurement-set'],
+  [/^\/users(?=[/?]|$)/i, '/people'],
 ];
 
-/** Mounted first on the /api router, so `req.url` is relative to /api. */
+/** Mounted first on the /api router, so `req.url` is relative to /api. Case-insensitive, as Express routes are. */
 export const oldRouteAliases: RequestHandler = (req, _res, next) => {
   for (const [oldPrefix, newPrefix] of OLD_ROUTES) {
     if (oldPrefix.test(req.url)) {

@@ -13,21 +13,21 @@ import { parseMeasurementCsv } from './parse-measurement-csv';
 describe('substance bodies', () => {
   test('create: name 1–120 characters, molar mass in g/mol with 1 ≤ M < 10000', () => {
     // Argon 39.948 g/mol (IUPAC 2009 standard atomic weight, from memory).
-    expect(createSubstanceBody.parse({ name: ' Argon ', formula: 'Ar', molarMass: 39.948 })).toEqual({ name: 'Argon', formula: 'Ar', molarMass: 39.948 });
-    expect(createSubstanceBody.safeParse({ name: '', molarMass: 39.948 }).success).toBe(false);
-    expect(createSubstanceBody.safeParse({ name: 'x'.repeat(121), molarMass: 39.948 }).success).toBe(false);
-    expect(createSubstanceBody.safeParse({ name: 'x'.repeat(120), molarMass: 39.948 }).success).toBe(true);
+    expect(createSubstanceBody.parse({ name: ' Argon ', formula: 'Ar', molarMassGPerMol: 39.948 })).toEqual({ name: 'Argon', formula: 'Ar', molarMassGPerMol: 39.948 });
+    expect(createSubstanceBody.safeParse({ name: '', molarMassGPerMol: 39.948 }).success).toBe(false);
+    expect(createSubstanceBody.safeParse({ name: 'x'.repeat(121), molarMassGPerMol: 39.948 }).success).toBe(false);
+    expect(createSubstanceBody.safeParse({ name: 'x'.repeat(120), molarMassGPerMol: 39.948 }).success).toBe(true);
     // Below a hydrogen atom (1.008 g/mol, IUPAC standard atomic weight, from memory) nothing exists.
     for (const bad of [0, -1, 5e-324, 0.99, 10000, '39.948', Number.NaN]) {
-      expect(createSubstanceBody.safeParse({ name: 'Argon', molarMass: bad }).success).toBe(false);
+      expect(createSubstanceBody.safeParse({ name: 'Argon', molarMassGPerMol: bad }).success).toBe(false);
     }
-    const err = createSubstanceBody.safeParse({ name: 'Argon', molarMass: 0 });
+    const err = createSubstanceBody.safeParse({ name: 'Argon', molarMassGPerMol: 0 });
     expect(err.error?.issues[0].message).toMatch(/at least 1 g\/mol/);
     // Names are stored in NFKC with single spaces: a no-break space is a space.
-    expect(createSubstanceBody.parse({ name: 'quillgas\u00a0\u00a0QG-1', molarMass: 44 }).name).toBe('quillgas QG-1');
+    expect(createSubstanceBody.parse({ name: 'quillgas\u00a0\u00a0QG-1', molarMassGPerMol: 44 }).name).toBe('quillgas QG-1');
   });
   test('update: any subset, at least one field', () => {
-    expect(updateSubstanceBody.parse({ molarMass: 28.014 })).toEqual({ molarMass: 28.014 });
+    expect(updateSubstanceBody.parse({ molarMassGPerMol: 28.014 })).toEqual({ molarMassGPerMol: 28.014 });
     expect(updateSubstanceBody.parse({ formula: '' })).toEqual({ formula: '' });
     expect(updateSubstanceBody.safeParse({}).success).toBe(false);
     expect(updateSubstanceBody.safeParse({ name: '' }).success).toBe(false);

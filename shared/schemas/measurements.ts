@@ -1,7 +1,6 @@
 /**
  * zod schemas of the measurement API, shared by the server (request validation) and the client
- * (forms). Units live in field names except `molarMass`, which the API contract names so: it is in
- * g/mol (stored as molarMassGPerMol).
+ * (forms). Units live in field names: `molarMassGPerMol` is in g/mol (its old name `molarMass` is still accepted).
  */
 import { z } from 'zod';
 import { PROPERTY_KIND_IDS, QUANTITIES, type PropertyKind, type QuantityKey } from '../measurements/property-kinds';
@@ -37,24 +36,30 @@ export function molarMassWarnings(molarMassGPerMol: number | undefined): string[
 export const normaliseSubstanceName = (name: string) => name.normalize('NFKC').replace(/\s+/g, ' ').trim();
 const substanceName = (required: string) => z.string().overwrite(normaliseSubstanceName).min(1, required).max(120, 'at most 120 characters');
 
-/** POST /substances body. `molarMass` is in g/mol. */
-export const createSubstanceBody = z.object({
-  name: substanceName('name is required'),
-  formula: optionalText(60),
-  description: optionalText(2000),
-  molarMass,
-});
+/** POST /substances body. */
+export const createSubstanceBody = acceptOldFields(
+  z.object({
+    name: substanceName('name is required'),
+    formula: optionalText(60),
+    description: optionalText(2000),
+    molarMassGPerMol: molarMass,
+  }),
+  [['molarMass', 'molarMassGPerMol']],
+);
 export type CreateSubstanceBody = z.infer<typeof createSubstanceBody>;
 
 /** PATCH /substances/:id body: any subset of the create fields, at least one. "" clears formula/description. */
-export const updateSubstanceBody = z
-  .object({
-    name: substanceName('name must not be empty').optional(),
-    formula: z.string().trim().max(60, 'at most 60 characters').optional(),
-    description: z.string().trim().max(2000, 'at most 2000 characters').optional(),
-    molarMass: molarMass.optional(),
-  })
-  .refine((b) => Object.values(b).some((v) => v !== undefined), { message: 'give at least one field to change' });
+export const updateSubstanceBody = acceptOldFields(
+  z
+    .object({
+      name: substanceName('name must not be empty').optional(),
+      formula: z.string().trim().max(60, 'at most 60 characters').optional(),
+      description: z.string().trim().max(2000, 'at most 2000 characters').optional(),
+      molarMassGPerMol: molarMass.optional(),
+    })
+    .refine((b) => Object.values(b).some((v) => v !== undefined), { message: 'give at least one field to change' }),
+  [['molarMass', 'molarMassGPerMol']],
+);
 export type UpdateSubstanceBody = z.infer<typeof updateSubstanceBody>;
 
 /**

@@ -15,7 +15,7 @@ export function syntheticB2Csv(epsilonK: number, sigmaAngstrom: number, shift = 
 }
 
 export async function newSubstance(modeller: Agent, name: string, molarMass = 40): Promise<number> {
-  const res = await modeller.post('/api/substances').send({ name, molarMass });
+  const res = await modeller.post('/api/substances').send({ name, molarMassGPerMol: molarMass });
   expect(res.status, JSON.stringify(res.body)).toBe(201);
   return res.body.id;
 }

@@ -23,7 +23,7 @@ beforeAll(async () => {
   admin = await t.signIn(EMAIL.admin);
   const modeller = await t.signIn(EMAIL.modeller);
   for (const name of ['Auditium A', 'Auditium B', 'Auditium C']) {
-    const res = await modeller.post('/api/substances').send({ name, molarMass: 4.0026 });
+    const res = await modeller.post('/api/substances').send({ name, molarMassGPerMol: 4.0026 });
     expect(res.status).toBe(201);
     substanceIds.push(res.body.id);
   }

@@ -47,7 +47,7 @@ beforeAll(async () => {
   modeller = await t.signIn(EMAIL.modeller);
   reviewer = await t.signIn(EMAIL.reviewer);
   admin = await t.signIn(EMAIL.admin);
-  substanceId = (await modeller.post('/api/substances').send({ name: 'Halvane', molarMass: 58.1 })).body.id;
+  substanceId = (await modeller.post('/api/substances').send({ name: 'Halvane', molarMassGPerMol: 58.1 })).body.id;
   const up = await upload('Halvane B2, invented', 'Fenwick Thermophysics Laboratory, invented run 14');
   expect(up.status).toBe(201);
   expect(up.body.warnings).toEqual([]);

@@ -23,7 +23,7 @@ function syntheticB2Csv(): Buffer {
 beforeAll(async () => {
   t = await startTestApp();
   modeller = await t.signIn(EMAIL.modeller);
-  substanceId = (await modeller.post('/api/substances').send({ name: 'Fittium', molarMass: 83.8 })).body.id;
+  substanceId = (await modeller.post('/api/substances').send({ name: 'Fittium', molarMassGPerMol: 83.8 })).body.id;
   const up = await modeller.post('/api/measurement-sets').field('substanceId', substanceId).field('kind', 'b2').field('name', 'Synthetic B2').attach('file', syntheticB2Csv(), { filename: 'b2.csv', contentType: 'text/csv' });
   expect(up.status).toBe(201);
   b2MeasurementSetId = up.body.id;
@@ -44,7 +44,7 @@ describe('fits', () => {
   });
 
   it('refuses a measurement set of another substance with 422 naming the field', async () => {
-    const other = (await modeller.post('/api/substances').send({ name: 'Otherium', molarMass: 20 })).body.id;
+    const other = (await modeller.post('/api/substances').send({ name: 'Otherium', molarMassGPerMol: 20 })).body.id;
     const res = await modeller.post('/api/fits').send({ substanceId: other, measurementSets: [{ id: b2MeasurementSetId }] });
     expect(res.status).toBe(422);
     expect(res.body.error.details[0].field).toBe('measurementSets.0.id');

@@ -12,7 +12,7 @@ beforeAll(async () => {
   t = await startTestApp();
   admin = await t.signIn(EMAIL.admin);
   const modeller = await t.signIn(EMAIL.modeller);
-  const res = await modeller.post('/api/substances').send({ name: 'Mailium', molarMass: 20.18 });
+  const res = await modeller.post('/api/substances').send({ name: 'Mailium', molarMassGPerMol: 20.18 });
   expect(res.status).toBe(201);
   substanceId = res.body.id;
 });

@@ -13,7 +13,7 @@ beforeAll(async () => {
   t = await startTestApp();
   modeller = await t.signIn(EMAIL.modeller);
   // An invented substance for the tests (molar mass of argon, IUPAC 2021 standard atomic weight 39.948).
-  const res = await modeller.post('/api/substances').send({ name: 'Testium', molarMass: 39.948, formula: 'Tm' });
+  const res = await modeller.post('/api/substances').send({ name: 'Testium', molarMassGPerMol: 39.948, formula: 'Tm' });
   expect(res.status).toBe(201);
   substanceId = res.body.id;
 });
@@ -35,15 +35,15 @@ describe('substances', () => {
   it('route family: 401 without session, 403 for consumers writing, 400 per field', async () => {
     expect((await t.client().get('/api/substances')).status).toBe(401);
     const consumer = await t.signIn(EMAIL.consumer);
-    expect((await consumer.post('/api/substances').send({ name: 'X', molarMass: 1 })).status).toBe(403);
+    expect((await consumer.post('/api/substances').send({ name: 'X', molarMassGPerMol: 1 })).status).toBe(403);
     expect((await consumer.get('/api/substances')).status).toBe(200);
-    const bad = await modeller.post('/api/substances').send({ name: '', molarMass: -3 });
+    const bad = await modeller.post('/api/substances').send({ name: '', molarMassGPerMol: -3 });
     expect(bad.status).toBe(400);
-    expect(bad.body.error.details.map((d: { field: string }) => d.field)).toEqual(expect.arrayContaining(['name', 'molarMass']));
+    expect(bad.body.error.details.map((d: { field: string }) => d.field)).toEqual(expect.arrayContaining(['name', 'molarMassGPerMol']));
   });
 
   it('refuses a duplicate name (case-insensitive) with 409', async () => {
-    expect((await modeller.post('/api/substances').send({ name: 'testium', molarMass: 40 })).status).toBe(409);
+    expect((await modeller.post('/api/substances').send({ name: 'testium', molarMassGPerMol: 40 })).status).toBe(409);
   });
 
   it('edits descriptive fields with an audit row holding before and after', async () => {

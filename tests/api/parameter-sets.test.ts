@@ -81,7 +81,7 @@ beforeAll(async () => {
   consumer = await t.signIn(EMAIL.consumer);
   reviewer2 = (await addPerson('second.reviewer@demo.epsigma.test', ['reviewer'])).agent;
   ({ agent: dual } = await addPerson('dual.role@demo.epsigma.test', ['modeller', 'reviewer']));
-  substanceId = (await modeller.post('/api/substances').send({ name: 'Reviewium', molarMass: 83.8 })).body.id;
+  substanceId = (await modeller.post('/api/substances').send({ name: 'Reviewium', molarMassGPerMol: 83.8 })).body.id;
   const up = await modeller
     .post('/api/measurement-sets')
     .field('substanceId', substanceId)

@@ -9,7 +9,7 @@ let substanceId: number;
 beforeAll(async () => {
   t = await startTestApp();
   modeller = await t.signIn(EMAIL.modeller);
-  const res = await modeller.post('/api/substances').send({ name: 'quillgas QG-9', molarMass: 44.1 });
+  const res = await modeller.post('/api/substances').send({ name: 'quillgas QG-9', molarMassGPerMol: 44.1 });
   expect(res.status).toBe(201);
   substanceId = res.body.id;
 });
@@ -21,28 +21,28 @@ const upload = (csv: string, kind = 'b2') =>
 describe('substances', () => {
   it('refuses a molar mass below a hydrogen atom (5e-324 g/mol), naming the field', async () => {
     for (const molarMass of [5e-324, 0.5]) {
-      const res = await modeller.post('/api/substances').send({ name: `fenwick tiny ${molarMass}`, molarMass });
+      const res = await modeller.post('/api/substances').send({ name: `fenwick tiny ${molarMass}`, molarMassGPerMol: molarMass });
       expect(res.status).toBe(400);
-      expect(res.body.error.details[0].field).toBe('molarMass');
+      expect(res.body.error.details[0].field).toBe('molarMassGPerMol');
       expect(res.body.error.details[0].message).toContain('at least 1 g/mol');
     }
   });
 
   it('saves an unusual molar mass with a warning', async () => {
-    const res = await modeller.post('/api/substances').send({ name: 'norrane wax NW-40', molarMass: 1500 });
+    const res = await modeller.post('/api/substances').send({ name: 'norrane wax NW-40', molarMassGPerMol: 1500 });
     expect(res.status).toBe(201);
     expect(res.body.warnings).toEqual([expect.stringContaining('1500 g/mol is unusual')]);
-    const plain = await modeller.post('/api/substances').send({ name: 'norrane N-1', molarMass: 72.15 });
+    const plain = await modeller.post('/api/substances').send({ name: 'norrane N-1', molarMassGPerMol: 72.15 });
     expect(plain.body.warnings).toEqual([]);
   });
 
   it('normalises names (NFKC, one space) before the uniqueness check', async () => {
     for (const name of ['quillgas\u00a0QG-9', ' quillgas  QG-9 ', 'ｑｕｉｌｌｇａｓ QG-9', 'QUILLGAS QG-9']) {
-      const res = await modeller.post('/api/substances').send({ name, molarMass: 44.1 });
+      const res = await modeller.post('/api/substances').send({ name, molarMassGPerMol: 44.1 });
       expect(res.status, JSON.stringify(name)).toBe(409);
       expect(res.body.error.details[0].field).toBe('name');
     }
-    const other = await modeller.post('/api/substances').send({ name: 'fenwick bead\u00a0FB-9', molarMass: 30 });
+    const other = await modeller.post('/api/substances').send({ name: 'fenwick bead\u00a0FB-9', molarMassGPerMol: 30 });
     expect(other.status).toBe(201);
     expect(other.body.name).toBe('fenwick bead FB-9');
     const rename = await modeller.patch(`/api/substances/${other.body.id}`).send({ name: 'quillgas\u2007QG-9' });

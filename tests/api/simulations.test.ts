@@ -71,7 +71,7 @@ describe('simulations', () => {
   });
 
   it('maps density rows to reduced states with the given ε and σ', async () => {
-    const substanceId = (await modeller.post('/api/substances').send({ name: 'Simium', molarMass: 40 })).body.id;
+    const substanceId = (await modeller.post('/api/substances').send({ name: 'Simium', molarMassGPerMol: 40 })).body.id;
     const csv = 'T (K),P (MPa),rho (kg/m3)\n240,10,500\n300,20,600\n';
     const up = await modeller.post('/api/measurement-sets').field('substanceId', substanceId).field('kind', 'density').field('name', 'dens').attach('file', Buffer.from(csv), { filename: 'd.csv', contentType: 'text/csv' });
     const res = await modeller.post('/api/simulations/from-measurement-set').send({ measurementSetId: up.body.id, rows: [3], epsilonK: 120, sigmaAngstrom: 3.4, ...SHORT });

@@ -93,7 +93,7 @@ describe('using a token', () => {
       ['post', '/api/tokens', { name: 'escalate' }],
       ['delete', `/api/tokens/${tokenId}`],
       ['put', '/api/me/preferences', { energyUnit: 'eV' }],
-      ['post', '/api/substances', { name: 'Injected', molarMass: 10 }],
+      ['post', '/api/substances', { name: 'Injected', molarMassGPerMol: 10 }],
       ['post', `/api/parameter-sets/${setId}/retire`, { reason: 'by token' }],
       // Even a write to an allowed path.
       ['post', '/api/catalog', {}],

@@ -16,7 +16,7 @@ const demoFile = (name: string) => readFileSync(new URL(`../../fixtures/demo/${n
 beforeAll(async () => {
   t = await startTestApp();
   modeller = await t.signIn(EMAIL.modeller);
-  substanceId = (await modeller.post('/api/substances').send({ name: 'Vaporium', molarMass: 44.62 })).body.id;
+  substanceId = (await modeller.post('/api/substances').send({ name: 'Vaporium', molarMassGPerMol: 44.62 })).body.id;
 });
 afterAll(() => t.close());
 

@@ -21,7 +21,7 @@ describe.skipIf(!available)('a Mie λr-6 parameter set in Chromium', () => {
     const headers = { Origin: app.url };
     await signIn(page, app.url, 'modeller@demo.epsigma.test');
     await page.getByRole('navigation', { name: 'Main' }).waitFor();
-    const substance = await page.request.post(`${app.url}/api/substances`, { headers, data: { name: 'Quillgas QG-9', molarMass: 58.1 } });
+    const substance = await page.request.post(`${app.url}/api/substances`, { headers, data: { name: 'Quillgas QG-9', molarMassGPerMol: 58.1 } });
     expect(substance.status()).toBe(201);
     const substanceId = (await substance.json()).id;
     const upload = await page.request.post(`${app.url}/api/measurement-sets`, {

@@ -21,7 +21,7 @@ let measurementSetId: number;
 /** A substance, a B2 upload and a succeeded fit, made through the API with the signed-in page's cookies. */
 async function succeededFit(page: Page, url: string): Promise<number> {
   const headers = { Origin: url };
-  const substance = await page.request.post(`${url}/api/substances`, { headers, data: { name: 'Reviewite', molarMass: 44.01 } });
+  const substance = await page.request.post(`${url}/api/substances`, { headers, data: { name: 'Reviewite', molarMassGPerMol: 44.01 } });
   expect(substance.status()).toBe(201);
   substanceId = (await substance.json()).id;
   const upload = await page.request.post(`${url}/api/measurement-sets`, {

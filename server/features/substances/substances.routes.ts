@@ -15,7 +15,6 @@ export const toSubstance = (s: { id: number; name: string; formula: string | nul
   name: s.name,
   formula: s.formula,
   description: s.description,
-  molarMass: s.molarMassGramsPerMol,
   molarMassGPerMol: s.molarMassGramsPerMol,
   createdAt: s.createdAt,
   updatedAt: s.updatedAt,
@@ -44,13 +43,13 @@ export function substanceRoutes(ctx: AppContext): Router {
       }
       const row = await tx
         .insertInto('substance')
-        .values({ name: body.name, formula: body.formula ?? null, description: body.description ?? null, molarMassGramsPerMol: body.molarMass, createdBy: actor.id, createdAt: now, updatedAt: now })
+        .values({ name: body.name, formula: body.formula ?? null, description: body.description ?? null, molarMassGramsPerMol: body.molarMassGPerMol, createdBy: actor.id, createdAt: now, updatedAt: now })
         .returningAll()
         .executeTakeFirstOrThrow();
       await recordAudit(tx, { actor, action: 'substance.created', targetType: 'substance', targetId: row.id, summary: `${actor.email} created substance ${row.name}`, after: toSubstance(row) });
       return row;
     });
-    res.status(201).json({ ...toSubstance(created), warnings: molarMassWarnings(body.molarMass) });
+    res.status(201).json({ ...toSubstance(created), warnings: molarMassWarnings(body.molarMassGPerMol) });
   });
 
   router.get('/substances/:id', requirePolicy('substance:read'), async (req, res) => {
@@ -75,8 +74,8 @@ export function substanceRoutes(ctx: AppContext): Router {
         throw conflict(`A substance named "${body.name}" already exists.`, [{ field: 'name', message: 'already in use' }]);
       }
       // The molar mass converts molar densities at upload, so it is fixed once measurements exist.
-      if (body.molarMass !== undefined && body.molarMass !== before.molarMassGramsPerMol && (await countMeasurementSetsOf(tx, id)) > 0) {
-        throw conflict('The molar mass cannot change once the substance has measurement sets: stored densities depend on it.', [{ field: 'molarMass', message: 'fixed once measurement sets exist' }]);
+      if (body.molarMassGPerMol !== undefined && body.molarMassGPerMol !== before.molarMassGramsPerMol && (await countMeasurementSetsOf(tx, id)) > 0) {
+        throw conflict('The molar mass cannot change once the substance has measurement sets: stored densities depend on it.', [{ field: 'molarMassGPerMol', message: 'fixed once measurement sets exist' }]);
       }
       const row = await tx
         .updateTable('substance')
@@ -84,7 +83,7 @@ export function substanceRoutes(ctx: AppContext): Router {
           ...(body.name !== undefined ? { name: body.name } : {}),
           ...(body.formula !== undefined ? { formula: body.formula || null } : {}),
           ...(body.description !== undefined ? { description: body.description || null } : {}),
-          ...(body.molarMass !== undefined ? { molarMassGramsPerMol: body.molarMass } : {}),
+          ...(body.molarMassGPerMol !== undefined ? { molarMassGramsPerMol: body.molarMassGPerMol } : {}),
           updatedAt: new Date().toISOString(),
         })
         .where('id', '=', id)
@@ -93,7 +92,7 @@ export function substanceRoutes(ctx: AppContext): Router {
       await recordAudit(tx, { actor, action: 'substance.updated', targetType: 'substance', targetId: id, summary: `${actor.email} edited substance ${row.name}`, before: toSubstance(before), after: toSubstance(row) });
       return row;
     });
-    res.json({ ...toSubstance(updated), warnings: molarMassWarnings(body.molarMass) });
+    res.json({ ...toSubstance(updated), warnings: molarMassWarnings(body.molarMassGPerMol) });
   });
 
   return router;

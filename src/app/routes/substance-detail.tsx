@@ -81,7 +81,7 @@ export function SubstanceDetailRoute() {
           <Panel title="Details" actions={!editing && <Button onClick={() => setEditing(true)}>Edit</Button>}>
             {editing ? (
               <SubstanceForm
-                initial={{ name: s.name, formula: s.formula ?? undefined, description: s.description ?? undefined, molarMass: s.molarMassGPerMol }}
+                initial={{ name: s.name, formula: s.formula ?? undefined, description: s.description ?? undefined, molarMassGPerMol: s.molarMassGPerMol }}
                 molarMassLocked={s.measurementSets.length > 0}
                 submitLabel="Save changes"
                 busy={update.isPending}

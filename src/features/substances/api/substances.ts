@@ -7,7 +7,6 @@ export interface Substance {
   name: string;
   formula: string | null;
   description: string | null;
-  molarMass: number;
   molarMassGPerMol: number;
   createdAt: string;
   updatedAt: string;
@@ -40,7 +39,7 @@ export const useSubstance = (id: number) => useQuery(substanceQueryOptions(id));
 
 export interface SubstanceInput {
   name: string;
-  molarMass: number;
+  molarMassGPerMol: number;
   formula?: string;
   description?: string;
 }
