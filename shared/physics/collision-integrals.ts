@@ -38,7 +38,7 @@ function potential(r: number): number {
 }
 
 /** Brent's root finder (Brent 1973, "Algorithms for Minimization without Derivatives", ch. 4) on a sign-changing bracket. */
-function brentRoot(f: (x: number) => number, a0: number, b0: number, fa0: number, fb0: number): number {
+export function brentRoot(f: (x: number) => number, a0: number, b0: number, fa0: number, fb0: number): number {
   let a = a0;
   let b = b0;
   let fa = fa0;
