@@ -33,7 +33,12 @@ async function main(): Promise<number> {
     process.stderr.write(`epsigma: unknown command "${command}"; expected one of: ${commands.join(', ')}\n`);
     return 2;
   }
-  const mod = (await import(`./cli/${command}.ts`)) as { run: (argv: string[]) => Promise<unknown> | unknown };
+  const mod = (await import(`./cli/${command}.ts`)) as { run: (argv: string[]) => Promise<unknown> | unknown; HELP?: string };
+  // A command that exports HELP answers `<command> --help` with it (plain text on stdout).
+  if (mod.HELP && rest.includes('--help')) {
+    process.stdout.write(mod.HELP);
+    return 0;
+  }
   // Output is always JSON; `--json` is accepted so scripts can state what they expect.
   const output = await mod.run(rest.filter((a) => a !== '--json'));
   process.stdout.write(`${JSON.stringify(output, null, 2)}\n`);
