@@ -1,16 +1,13 @@
 import { describe, expect, it } from 'vitest';
 import { runNpt } from './npt';
 import { ljEosDensity } from '../lj-eos';
+import { NPT_EOS_STATES } from '../../validation/checks/md-checks';
 
 // NPT densities against the Johnson, Zollweg & Gubbins 1993 MBWR equation of state (Mol. Phys. 78, 591;
 // ../lj-eos.ts), which fits full-potential LJ simulation data. Tolerance: 3 standard errors of the run + 0.5 %
 // (the EOS's own accuracy and the rc = 2.5 tail-correction approximation, g(r) = 1 beyond rc).
-const STATES: Array<[number, number, string]> = [
-  [1.0, 1.0, 'liquid'],
-  [1.2, 0.5, 'liquid near the critical temperature'],
-  [1.5, 2.0, 'supercritical, liquid-like'],
-  [2.0, 5.0, 'supercritical, dense'],
-];
+// The states are listed in the validation registry (shared/validation/checks/md-checks.ts) as run in the test suite only.
+const STATES = NPT_EOS_STATES;
 
 describe('runNpt densities vs the JZG 1993 equation of state', () => {
   for (const [t, p, label] of STATES) {
