@@ -31,7 +31,7 @@ import {
   type ParameterSetPrior,
 } from './lj-posterior';
 import type { LjParameter } from './lj-fit';
-import { POSTERIOR_SEED, sampleEnsemble, type EnsembleRun } from './posterior';
+import { POSTERIOR_SEED, sampleEnsembleAsync, type EnsembleRun } from './posterior';
 
 export interface DensityPosteriorOptions {
   /** Steps per walker kept (default 1000). */
@@ -47,6 +47,8 @@ export interface DensityPosteriorOptions {
   maxRefusedFraction?: number;
   /** At most this many extra rounds of runs for the posterior (default 1; 0: never run more). */
   extraRounds?: number;
+  /** Stops the sampling (e.g. the fit was cancelled); the sampler gives the event loop a turn every 20 ms either way. */
+  signal?: AbortSignal;
 }
 
 /** What one proposal gives: the log likelihood, or why it has none. */
@@ -146,7 +148,7 @@ export async function densityPosterior(input: DensityPosteriorInput, options: De
     let refusedUncovered = 0;
     let refusedPhase = 0;
     const refused: number[][] = [];
-    const run = sampleEnsemble(
+    const run = await sampleEnsembleAsync(
       (x) => {
         proposals++;
         const outcome = input.evaluate(...full(x));
@@ -167,6 +169,7 @@ export async function densityPosterior(input: DensityPosteriorInput, options: De
         burnIn: options.burnIn,
         seed: options.seed ?? POSTERIOR_SEED,
       },
+      { signal: options.signal },
     );
     const refusedFraction = proposals ? refusedUncovered / proposals : 0;
     fractions.push(refusedFraction);

@@ -358,6 +358,11 @@ function posteriorOutcome(
  */
 class PointPools {
   private readonly pools = new Map<number, ReweightPool>();
+  /**
+   * Points whose runs carry fewer effective samples than the guard even at the fit's own state (the stage then used
+   * the run itself): their guard is half of what they carry there, so the walkers can start; said in the result.
+   */
+  readonly lowered = new Map<number, { guard: number; effectiveSamples: number }>();
 
   constructor(
     private readonly book: RunBook,
@@ -368,6 +373,7 @@ class PointPools {
   /** Forget the pools (after new runs). */
   reset(): void {
     this.pools.clear();
+    this.lowered.clear();
   }
 
   predict(i: number, state: MdStatePoint): ReturnType<ReweightPool['predict']> {
@@ -377,7 +383,14 @@ class PointPools {
       const at = this.finalStates.get(i);
       const whole = at && this.book.pool.size ? this.book.pool.predict(at) : null;
       if (whole && 'runs' in whole) for (const r of whole.runs) ids.add(r.id);
-      pool = new ReweightPool([...ids].map((id) => this.book.reweightRuns.get(id)).filter((r): r is ReweightRun => !!r), this.book.minEffectiveSamples);
+      const runs = [...ids].map((id) => this.book.reweightRuns.get(id)).filter((r): r is ReweightRun => !!r);
+      pool = new ReweightPool(runs, this.book.minEffectiveSamples);
+      const own = at && pool.size ? pool.predict(at) : null;
+      if (own && !own.ok && own.effectiveSamples >= 2) {
+        const guard = Math.max(1, own.effectiveSamples / 2);
+        this.lowered.set(i, { guard, effectiveSamples: own.effectiveSamples });
+        pool = new ReweightPool(runs, guard);
+      }
       this.pools.set(i, pool);
     }
     return pool.predict(state);
@@ -602,7 +615,9 @@ export async function mdStageFit(points: MdStagePoint[], measurementSets: Array<
   if (strongCorrelation) warnings.push(strongCorrelationWarning(correlation));
   const excludedByModeller = points.filter((p) => p.excluded).length;
   if (excludedByModeller) warnings.push(`${excludedByModeller} point(s) were left out by the modeller: they are shown with their predictions but not counted in χ²`);
-  warnings.push('No profile-χ² curves for the simulation stage: every point of a curve would need its own rounds of simulations; the intervals are the linearised ones.');
+  warnings.push(
+    `No profile-χ² curves for the simulation stage: every point of a curve would need its own rounds of simulations; the intervals are the linearised ones${options.posterior ? ', with the posterior’s beside them' : ''}.`,
+  );
   const result: MdStageResult = {
     status: dof >= 0 ? 'succeeded' : 'failed',
     converged: dof >= 0,
@@ -679,6 +694,12 @@ export async function mdStageFit(points: MdStagePoint[], measurementSets: Array<
         },
         options.posterior,
       );
+      if (pools.lowered.size) {
+        const list = [...pools.lowered].map(([i, l]) => `${points[i].temperatureK.toFixed(2)} K, ${points[i].pressureMPa?.toFixed(3)} MPa (${l.effectiveSamples.toFixed(1)})`);
+        result.posterior.messages.push(
+          `At ${list.length} point(s) the runs carry fewer than ${book.minEffectiveSamples} effective samples even at the fit's own state: ${list.join('; ')}. There the sampler accepts reweighting down to half of that; longer runs (more steps) would make those predictions firmer.`,
+        );
+      }
       if (stoppedBy !== 'converged') result.posterior.messages.push('The simulation stage stopped at its round limit, not converged: the posterior was sampled around its last point, which may not be the optimum.');
       result.newRuns = newRuns;
       result.reusedRuns = reusedRuns;

@@ -185,6 +185,38 @@ export function logPrior(
  * model cannot be evaluated; such proposals are rejected.
  */
 export function sampleEnsemble(logLikelihood: (parameters: readonly number[]) => number, options: EnsembleSamplerOptions): EnsembleRun {
+  const steps = ensembleSteps(logLikelihood, options);
+  for (;;) {
+    const next = steps.next();
+    if (next.done) return next.value;
+  }
+}
+
+/**
+ * The same sampler, giving the event loop a turn every `yieldEveryMs` of work (a fit's orchestration runs on the web
+ * process's main thread, and a density posterior takes tens of seconds); the samples are the very same as
+ * sampleEnsemble's. Stops with the signal's reason when it is aborted.
+ */
+export async function sampleEnsembleAsync(
+  logLikelihood: (parameters: readonly number[]) => number,
+  options: EnsembleSamplerOptions,
+  { yieldEveryMs = 20, signal }: { yieldEveryMs?: number; signal?: AbortSignal } = {},
+): Promise<EnsembleRun> {
+  const steps = ensembleSteps(logLikelihood, options);
+  let since = Date.now();
+  for (;;) {
+    const next = steps.next();
+    if (next.done) return next.value;
+    if (Date.now() - since >= yieldEveryMs) {
+      await new Promise((resolve) => setTimeout(resolve, 0));
+      if (signal?.aborted) throw signal.reason ?? new Error('aborted');
+      since = Date.now();
+    }
+  }
+}
+
+/** The sampler itself, pausing (yield) after every step of the ensemble. */
+function* ensembleSteps(logLikelihood: (parameters: readonly number[]) => number, options: EnsembleSamplerOptions): Generator<void, EnsembleRun, void> {
   const { p, walkers, steps, burnIn, seed } = validate(options);
   const uniform = mulberry32(seed);
   const gaussian = gaussianGenerator(mulberry32(seed ^ 0x5bd1e995));
@@ -252,6 +284,7 @@ export function sampleEnsemble(logLikelihood: (parameters: readonly number[]) =>
         for (let k = 0; k < p; k++) traces[k][w][s] = positions[w][k];
       }
     }
+    yield;
   }
 
   const autocorrelationTime = traces.map((walkerTraces) => integratedAutocorrelationTime(walkerTraces));

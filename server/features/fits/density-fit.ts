@@ -154,7 +154,7 @@ export async function runDensityFit(env: JobRunEnvironment, payload: { measureme
     startMethod,
     bounds,
     context: { molarMassGPerMol: payload.options.molarMassGPerMol!, quantumCorrection: !!payload.options.quantumCorrection, ...(mie && repulsiveExponent !== 12 ? { repulsiveExponent } : {}) },
-    ...(posterior ? { posterior: { ...posterior, drawsReturned: 400 } } : {}),
+    ...(posterior ? { posterior: { ...posterior, drawsReturned: 400, signal: env.signal } } : {}),
     ...(payload.options.fixed?.epsilonK !== undefined ? { held: 'epsilonK' as const } : payload.options.fixed?.sigmaAngstrom !== undefined ? { held: 'sigmaAngstrom' as const } : {}),
     simulate,
     onProgress: (p) => env.progress({ fraction: 0.1 + 0.9 * p.fraction, stage: p.stage }),
