@@ -11,31 +11,16 @@ import {
 } from './mie-collision-integrals';
 import { miePrefactor } from './mie-potential';
 import { viscosityWithGradient } from './viscosity';
+import { MIE_CROSS_SECTION_CHECKS } from '../validation/checks/mie-transport-checks';
+import { itPassesReferenceChecks } from '../validation/reference-check-tests';
 
 const rel = (a: number, b: number) => Math.abs(a / b - 1);
 const logSpaced = (lo: number, hi: number, n: number) => Array.from({ length: n }, (_, i) => (i === n - 1 ? hi : lo * Math.pow(hi / lo, i / (n - 1))));
 
-// Reference cross-sections Q(1)*(E*), Q(2)*(E*) (1 for rigid spheres) computed for this test by an independent classical
-// quadrature written in Python (scipy 1.17.1 QUADPACK): χ = π − 2β∫_0^1 du/√F(u) with u = r_m/r and QAWS's algebraic
-// weight (1 − u)^(−1/2) for the end point; r_m and the orbiting b_o (from E = u + r u′/2 maximised numerically) by brentq;
-// Q(l) by adaptive quadrature over b split at b_o, up to b = 40σ. It shares no code or substitution with the TypeScript
-// (which factors F exactly and integrates in s with 1 − y = s²). Script, in outline:
-//   Q1 = 2∫(1 − cos χ) b db, Q2 = 3∫ sin²χ b db;  chi(b) = pi − 2β·quad(√((1−u)/F(u)), 0, 1, weight='alg', wvar=(0, −0.5))
-// in full in scripts/reference/mie-cross-sections.py (python3 scripts/reference/mie-cross-sections.py; 2–5 min per row).
-// No published table of Mie λr-6 collision integrals was at hand (Fokin, Popov & Kalashnikov 1999 give an analytical
-// fit for (m-6) potentials; their coefficients were not available and are not quoted from memory), so the independent
-// quadrature is the reference. [λr, E*, Q(1)*, Q(2)*]
-const SCIPY_CROSS_SECTIONS: Array<[number, number, number, number]> = [
-  [12, 1.0, 2.3993325186708643, 2.8191632532383846],
-  [8, 0.3, 4.717579758190946, 5.290118585232216],
-  [8, 3.0, 1.1897964905937204, 1.685360645610888],
-  [16, 0.5, 2.7670677715273233, 3.2449983046650335],
-  [16, 5.0, 1.0140301648782584, 1.2359248763713773],
-  [20, 1.2, 1.920020562885521, 2.2907917045605646],
-  [24, 0.2, 3.3744165676223976, 3.9698536342111392],
-  [36, 2.0, 1.395749942291673, 1.803117048486468],
-  [36, 50.0, 0.8449200819180966, 0.9070210578073908],
-];
+// The independent reference for the Mie code is a classical quadrature written separately in Python (scipy QUADPACK,
+// scripts/reference/mie-cross-sections.py); its cross-sections are entries of the validation registry
+// (shared/validation/checks/mie-transport-checks.ts), asserted below. No published table of Mie λr-6 collision integrals
+// was at hand (Fokin, Popov & Kalashnikov 1999 fit (m-6) potentials; their coefficients are not quoted from memory).
 
 describe('Mie λr-6 collision integrals: λr = 12 is the 12-6 code', () => {
   it('the interpolated values at λr = 12 are those of the 12-6 table to the last digit', () => {
@@ -89,13 +74,6 @@ describe('Mie λr-6 collision integrals: the method', () => {
     }
   });
 
-  it('cross-sections agree with the independent scipy quadrature within 1e-7 (observed: below 1e-8)', () => {
-    for (const [n, E, q1, q2] of SCIPY_CROSS_SECTIONS) {
-      const q = mieTransportCrossSections(E, n);
-      expect(rel(q.q1, q1), `Q1 at λr=${n}, E*=${E}`).toBeLessThan(1e-7);
-      expect(rel(q.q2, q2), `Q2 at λr=${n}, E*=${E}`).toBeLessThan(1e-7);
-    }
-  });
 
   it('the interpolated table agrees with the definition (thermal average by adaptive quadrature) off the λr grid within 2e-6', () => {
     // λr = 17 lies between grid columns 16 and 18, T* = 5 between T* nodes: both interpolations are exercised.
@@ -128,6 +106,10 @@ describe('Mie λr-6 collision integrals: the method', () => {
     expect(() => mieCollisionIntegrals(0.1, 16)).toThrow(RangeError);
     expect(() => mieCollisionIntegrals(500, 16)).toThrow(/outside the collision-integral table range/);
   });
+});
+
+describe('Mie λr-6 cross-sections against the independent scipy quadrature (validation registry, within 1e-7; observed below 1e-8)', () => {
+  itPassesReferenceChecks(MIE_CROSS_SECTION_CHECKS);
 });
 
 describe('Chapman–Enskog viscosity of a Mie λr-6 gas', () => {

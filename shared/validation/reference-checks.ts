@@ -7,6 +7,7 @@ import { COEXISTENCE_CHECKS, JZG_CHECKS, KOLAFA_NEZBEDA_CHECKS, THOL_CHECKS } fr
 import { COMBINING_RULE_CHECKS, REAL_DATA_FIT_CHECKS, UNIT_CHECKS } from './checks/material-checks';
 import { MD_CHECKS, MD_TEST_SUITE_ONLY } from './checks/md-checks';
 import { LEAST_SQUARES_CHECKS, STATISTICS_CHECKS } from './checks/statistics-checks';
+import { MIE_CROSS_SECTION_CHECKS } from './checks/mie-transport-checks';
 import { COLLISION_INTEGRAL_CHECKS, VISCOSITY_CHECKS } from './checks/transport-checks';
 import { B2_CHECKS, B3_CHECKS, MIE_B2_CHECKS, QUANTUM_B2_CHECKS } from './checks/virial-checks';
 import { VALIDATION_AREAS, type ReferenceCheck, type TestSuiteOnlyCheck } from './reference-check';
@@ -21,6 +22,7 @@ export const REFERENCE_CHECKS: readonly ReferenceCheck[] = [
   ...MIE_B2_CHECKS,
   ...B3_CHECKS,
   ...COLLISION_INTEGRAL_CHECKS,
+  ...MIE_CROSS_SECTION_CHECKS,
   ...VISCOSITY_CHECKS,
   ...JZG_CHECKS,
   ...KOLAFA_NEZBEDA_CHECKS,
