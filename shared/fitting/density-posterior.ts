@@ -31,6 +31,7 @@ import {
   type ParameterSetPrior,
 } from './lj-posterior';
 import type { LjParameter } from './lj-fit';
+import { DEFAULT_POSTERIOR_SAMPLES } from './fit-defaults';
 import { POSTERIOR_SEED, sampleEnsembleAsync, type EnsembleRun } from './posterior';
 
 export interface DensityPosteriorOptions {
@@ -165,7 +166,7 @@ export async function densityPosterior(input: DensityPosteriorInput, options: De
         initialSpread: spread,
         ...(multivariatePrior ? { multivariatePrior } : {}),
         walkers: options.walkers,
-        steps: options.samples ?? 1000,
+        steps: options.samples ?? DEFAULT_POSTERIOR_SAMPLES,
         burnIn: options.burnIn,
         seed: options.seed ?? POSTERIOR_SEED,
       },

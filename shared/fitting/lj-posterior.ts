@@ -292,7 +292,7 @@ export function ljPosterior(measurementSets: readonly FitMeasurementSet[], fitOp
     gaussianPriors: free.map((n) => options.priors?.[n] ?? null),
     ...(multivariatePrior ? { multivariatePrior } : {}),
     walkers: options.walkers,
-    steps: options.samples ?? 1000,
+    steps: options.samples ?? DEFAULT_POSTERIOR_SAMPLES,
     burnIn: options.burnIn,
     seed: options.seed ?? POSTERIOR_SEED,
   });

@@ -26,7 +26,7 @@ import { DEFAULT_MIN_REWEIGHT_SAMPLES, ReweightPool, reweightRunFromFrames, type
 import { covarianceFromJacobian, correlationFromCovariance, standardErrorsFromCovariance } from './covariance';
 import { densityPosterior, type DensityPosterior, type DensityPosteriorOptions, type ProposalOutcome } from './density-posterior';
 import { jointConfidenceEllipse } from './ellipse';
-import { STRONG_CORRELATION, strongCorrelationWarning, type LjMeasurementSetSummary, type LjFitResult, type LjParameter, type LjResidual } from './lj-fit';
+import { STRONG_CORRELATION, strongCorrelationWarning, type LjMeasurementSetSummary, type LjFitResult, type LjResidual } from './lj-fit';
 import { modelValue } from './lj-posterior';
 import { PROPERTY_MODELS, type FitKind, type PropertyContext } from './property-models';
 
