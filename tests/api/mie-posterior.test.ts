@@ -2,6 +2,7 @@ import { createHash } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { resultDifferences } from '../../server/features/parameter-sets/manifest.service';
 import { b2WithGradient } from '../../shared/physics/virial';
+import { viscosityWithGradient } from '../../shared/physics/viscosity';
 import { newSubstance } from './approved-set';
 import { EMAIL, startTestApp, type TestApp } from './test-app';
 
@@ -92,9 +93,16 @@ describe('Mie λr-6 fits with a posterior, through review and export', () => {
     expect(inside.standardError).toBeGreaterThan(0);
     expect(outside.outsideValidity).toBe(true);
     expect(outside.note).toMatch(/2000 K lies outside the validity range 100–950 K/);
+    // Viscosity has a Mie model (Mie collision integrals): η of the 16-6 set with the interval from the posterior draws.
     const eta = await consumer.get(`/api/parameter-sets/${draft.body.id}/predictions?kind=viscosity&temperaturesK=300`);
-    expect(eta.status).toBe(422);
-    expect(eta.body.error.code).toBe('kind_not_mie');
+    expect(eta.status, JSON.stringify(eta.body)).toBe(200);
+    expect(eta.body.predictions[0].value).toBe(viscosityWithGradient(300, draft.body.epsilonK, draft.body.sigmaAngstrom, 58.1, { repulsiveExponent: 16 }).viscosityMicroPaS);
+    expect(eta.body.predictions[0]).toMatchObject({ unit: 'uPa s', intervalMethod: 'posterior draws', outsideValidity: false });
+    // Density has none outside the simulation stage: still refused, saying which kinds a Mie set predicts.
+    const rho = await consumer.get(`/api/parameter-sets/${draft.body.id}/predictions?kind=density&temperaturesK=300&pressuresMPa=5`);
+    expect(rho.status).toBe(422);
+    expect(rho.body.error.code).toBe('kind_not_mie');
+    expect(rho.body.error.message).toMatch(/no fluid density .* model for Mie potentials yet \(B2 and dilute-gas viscosity only\)/);
     const noPressure = await consumer.get(`/api/parameter-sets/${draft.body.id}/predictions?kind=density&temperaturesK=300`);
     expect(noPressure.status).toBe(400);
     expect(noPressure.body.error.details[0].field).toBe('pressuresMPa');
