@@ -4,7 +4,10 @@
  */
 
 /** Bounds used when none are given: wide enough for helium (ε/k ≈ 10 K) to large organic molecules. */
-export const DEFAULT_LJ_BOUNDS: { epsilonK: [number, number]; sigmaAngstrom: [number, number] } = { epsilonK: [1, 5000], sigmaAngstrom: [1, 15] };
+export const DEFAULT_LJ_BOUNDS: { epsilonK: [number, number]; sigmaAngstrom: [number, number] } = {
+  epsilonK: [1, 5000],
+  sigmaAngstrom: [1, 15],
+};
 
 /** Perturbed restarts after the first start: a guard against a poor local minimum. */
 export const DEFAULT_RESTARTS = 2;
