@@ -19,10 +19,17 @@ import { fitLennardJones, type FitMeasurementSet } from '../shared/fitting/lj-fi
 import { fitMieWithExponent } from '../shared/fitting/mie-fit';
 import { PROPERTY_MODELS } from '../shared/fitting/property-models';
 
-const { values } = parseArgs({ options: { 'repulsive-exponent': { type: 'string', default: '16' }, column: { type: 'boolean' }, json: { type: 'boolean' } }, strict: true });
+const { values } = parseArgs({
+  options: { 'repulsive-exponent': { type: 'string', default: '16' }, column: { type: 'boolean' }, json: { type: 'boolean' } },
+  strict: true,
+});
 const n = Number(values['repulsive-exponent']);
 const seconds = (t0: number) => (performance.now() - t0) / 1000;
-const report: Record<string, unknown> = { repulsiveExponent: n, date: new Date().toISOString(), loadAverage: (await import('node:os')).loadavg().map((x) => Number(x.toFixed(2))) };
+const report: Record<string, unknown> = {
+  repulsiveExponent: n,
+  date: new Date().toISOString(),
+  loadAverage: (await import('node:os')).loadavg().map((x) => Number(x.toFixed(2))),
+};
 
 const exact: Array<{ reducedTemperature: number; seconds: number }> = [];
 for (const t of [0.3, 1, 5, 50]) {
@@ -47,7 +54,15 @@ report.lookupMicroseconds = Number(((seconds(t0) * 1e6) / calls).toFixed(2));
 
 // Synthetic Mie data (no noise): 11 B2 and 11 viscosity points of an invented gas, ε/k_B = 150 K, σ = 3.7 Å, M = 58.1 g/mol.
 const temps = [120, 150, 190, 240, 300, 380, 480, 600, 760, 950, 1200];
-const b2: FitMeasurementSet = { id: 'b2', kind: 'b2', rows: temps.map((T) => ({ temperatureK: T, value: b2WithGradient(T, 150, 3.7, undefined, { repulsiveExponent: n }).b2Cm3PerMol, uncertainty: 0.3 })) };
+const b2: FitMeasurementSet = {
+  id: 'b2',
+  kind: 'b2',
+  rows: temps.map((T) => ({
+    temperatureK: T,
+    value: b2WithGradient(T, 150, 3.7, undefined, { repulsiveExponent: n }).b2Cm3PerMol,
+    uncertainty: 0.3,
+  })),
+};
 const eta: FitMeasurementSet = {
   id: 'eta',
   kind: 'viscosity',
@@ -70,8 +85,19 @@ report.heldFit = { seconds: Number(seconds(t0).toFixed(2)), viscosityEvaluations
 evaluations = 0;
 t0 = performance.now();
 const profiled = fitMieWithExponent([b2, eta], { molarMassGPerMol: 58.1, restarts: 0 });
-report.profiledFit = { seconds: Number(seconds(t0).toFixed(2)), viscosityEvaluations: evaluations, lambdaValues: profiled.repulsiveExponentProfile.values.length, best: Number(profiled.repulsiveExponentProfile.best.toFixed(3)) };
+report.profiledFit = {
+  seconds: Number(seconds(t0).toFixed(2)),
+  viscosityEvaluations: evaluations,
+  lambdaValues: profiled.repulsiveExponentProfile.values.length,
+  best: Number(profiled.repulsiveExponentProfile.best.toFixed(3)),
+};
 model.evaluate = evaluate;
 report.sink = Number.isFinite(sink);
 
-process.stdout.write(values.json ? `${JSON.stringify(report, null, 2)}\n` : `${Object.entries(report).map(([k, v]) => `${k}: ${JSON.stringify(v)}`).join('\n')}\n`);
+process.stdout.write(
+  values.json
+    ? `${JSON.stringify(report, null, 2)}\n`
+    : `${Object.entries(report)
+        .map(([k, v]) => `${k}: ${JSON.stringify(v)}`)
+        .join('\n')}\n`,
+);

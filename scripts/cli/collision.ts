@@ -23,7 +23,11 @@ examples (quillgas QG-1 of the Quillmoor demo, ε/k_B = 131.5 K, so 300 K and 60
 `;
 
 export async function run(argv: string[]): Promise<unknown> {
-  const values = parseFlags(argv, { 'reduced-temperatures': { type: 'string' }, 'repulsive-exponent': { type: 'string' }, json: { type: 'boolean' } }, USAGE);
+  const values = parseFlags(
+    argv,
+    { 'reduced-temperatures': { type: 'string' }, 'repulsive-exponent': { type: 'string' }, json: { type: 'boolean' } },
+    USAGE,
+  );
   const repulsiveExponent = repulsiveExponentFlag(values['repulsive-exponent']);
   const reducedTemperatures = positiveNumberListFlag(
     'reduced-temperatures',

@@ -50,5 +50,10 @@ export async function run(argv: string[]): Promise<unknown> {
     const p = viscosityWithGradient(temperatureK, epsilonK, sigmaAngstrom, molarMassGPerMol, { higherOrderCorrection: correction, ...mie });
     return { temperatureK, viscosityMicroPaS: p.viscosityMicroPaS };
   });
-  return { model: repulsiveExponent === 12 ? 'lj-12-6' : 'mie', repulsiveExponent, rows, higherOrderCorrection: correction === 'kihara' ? VISCOSITY_KIHARA_CORRECTION : VISCOSITY_HIGHER_ORDER_CORRECTION };
+  return {
+    model: repulsiveExponent === 12 ? 'lj-12-6' : 'mie',
+    repulsiveExponent,
+    rows,
+    higherOrderCorrection: correction === 'kihara' ? VISCOSITY_KIHARA_CORRECTION : VISCOSITY_HIGHER_ORDER_CORRECTION,
+  };
 }

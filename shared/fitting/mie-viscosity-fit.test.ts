@@ -14,7 +14,11 @@ const TRUTH = { epsilonK: 150, sigmaAngstrom: 3.7, repulsiveExponent: 16, molarM
 function b2Table(seed: number): FitMeasurementSet {
   const g = gaussianGenerator(mulberry32(seed));
   const temps = [90, 105, 120, 140, 165, 200, 250, 320, 420, 560, 750, 1000, 1400];
-  const rows = temps.map((T) => ({ temperatureK: T, value: b2WithGradient(T, TRUTH.epsilonK, TRUTH.sigmaAngstrom, undefined, { repulsiveExponent: 16 }).b2Cm3PerMol + 0.3 * g(), uncertainty: 0.3 }));
+  const rows = temps.map((T) => ({
+    temperatureK: T,
+    value: b2WithGradient(T, TRUTH.epsilonK, TRUTH.sigmaAngstrom, undefined, { repulsiveExponent: 16 }).b2Cm3PerMol + 0.3 * g(),
+    uncertainty: 0.3,
+  }));
   return { id: 'b2-mie-16', kind: 'b2', rows };
 }
 
@@ -23,7 +27,9 @@ function viscosityTable(seed: number): FitMeasurementSet {
   const g = gaussianGenerator(mulberry32(seed));
   const temps = [120, 150, 190, 240, 300, 380, 480, 600, 760, 950, 1200];
   const rows = temps.map((T) => {
-    const eta = viscosityWithGradient(T, TRUTH.epsilonK, TRUTH.sigmaAngstrom, TRUTH.molarMassGPerMol, { repulsiveExponent: 16 }).viscosityMicroPaS;
+    const eta = viscosityWithGradient(T, TRUTH.epsilonK, TRUTH.sigmaAngstrom, TRUTH.molarMassGPerMol, {
+      repulsiveExponent: 16,
+    }).viscosityMicroPaS;
     return { temperatureK: T, value: eta * (1 + 0.003 * g()), uncertainty: 0.003 * eta };
   });
   return { id: 'eta-mie-16', kind: 'viscosity', rows };
@@ -36,7 +42,11 @@ describe('Mie λr-6 fits with viscosity data', () => {
     expect(PROPERTY_MODELS.viscosity.supportsMie).toBe(true);
     const lj = PROPERTY_MODELS.viscosity.evaluate({ temperatureK: 300 }, 150, 3.7, { molarMassGPerMol: 58.1, quantumCorrection: false });
     expect(viscosityWithGradient(300, 150, 3.7, 58.1, { repulsiveExponent: 12 }).viscosityMicroPaS).toBe(lj.value);
-    const mie = PROPERTY_MODELS.viscosity.evaluate({ temperatureK: 300 }, 150, 3.7, { molarMassGPerMol: 58.1, quantumCorrection: false, repulsiveExponent: 16 });
+    const mie = PROPERTY_MODELS.viscosity.evaluate({ temperatureK: 300 }, 150, 3.7, {
+      molarMassGPerMol: 58.1,
+      quantumCorrection: false,
+      repulsiveExponent: 16,
+    });
     expect(mie.value).toBe(viscosityWithGradient(300, 150, 3.7, 58.1, { repulsiveExponent: 16 }).viscosityMicroPaS);
     expect(mie.value).not.toBe(lj.value);
   });

@@ -1,5 +1,13 @@
 import { describe, expect, it } from 'vitest';
-import { deflectionAngle, omega11, omega11Derivative, omega22, omega22Derivative, orbitingParameters, transportCrossSections } from './collision-integrals';
+import {
+  deflectionAngle,
+  omega11,
+  omega11Derivative,
+  omega22,
+  omega22Derivative,
+  orbitingParameters,
+  transportCrossSections,
+} from './collision-integrals';
 import {
   MIE_COLLISION_TABLE_RANGE,
   mieCollisionIntegrals,
@@ -15,7 +23,8 @@ import { MIE_CROSS_SECTION_CHECKS } from '../validation/checks/mie-transport-che
 import { itPassesReferenceChecks } from '../validation/reference-check-tests';
 
 const rel = (a: number, b: number) => Math.abs(a / b - 1);
-const logSpaced = (lo: number, hi: number, n: number) => Array.from({ length: n }, (_, i) => (i === n - 1 ? hi : lo * Math.pow(hi / lo, i / (n - 1))));
+const logSpaced = (lo: number, hi: number, n: number) =>
+  Array.from({ length: n }, (_, i) => (i === n - 1 ? hi : lo * Math.pow(hi / lo, i / (n - 1))));
 
 // The independent reference for the Mie code is a classical quadrature written separately in Python (scipy QUADPACK,
 // scripts/reference/mie-cross-sections.py); its cross-sections are entries of the validation registry
@@ -30,7 +39,9 @@ describe('Mie λr-6 collision integrals: λr = 12 is the 12-6 code', () => {
       expect(m.omega22).toBe(omega22(t));
       expect(m.dOmega11dT).toBe(omega11Derivative(t));
       expect(m.dOmega22dT).toBe(omega22Derivative(t));
-      expect(viscosityWithGradient(t * 150, 150, 3.7, 58.1, { repulsiveExponent: 12 })).toEqual(viscosityWithGradient(t * 150, 150, 3.7, 58.1));
+      expect(viscosityWithGradient(t * 150, 150, 3.7, 58.1, { repulsiveExponent: 12 })).toEqual(
+        viscosityWithGradient(t * 150, 150, 3.7, 58.1),
+      );
     }
   });
 
@@ -74,7 +85,6 @@ describe('Mie λr-6 collision integrals: the method', () => {
     }
   });
 
-
   it('the interpolated table agrees with the definition (thermal average by adaptive quadrature) off the λr grid within 2e-6', () => {
     // λr = 17 lies between grid columns 16 and 18, T* = 5 between T* nodes: both interpolations are exercised.
     const exact = mieCollisionIntegralsExact(5, 17);
@@ -115,12 +125,20 @@ describe('Mie λr-6 cross-sections against the independent scipy quadrature (val
 describe('Chapman–Enskog viscosity of a Mie λr-6 gas', () => {
   it('gives the analytic ∂η/∂ε and ∂η/∂σ of the interpolant (central differences within 1e-6), with and without Kihara', () => {
     for (const correction of ['none', 'kihara'] as const) {
-      for (const [T, n] of [[300, 16], [180, 9.5], [900, 30]] as Array<[number, number]>) {
-        const at = (e: number, s: number) => viscosityWithGradient(T, e, s, 58.1, { repulsiveExponent: n, higherOrderCorrection: correction }).viscosityMicroPaS;
+      for (const [T, n] of [
+        [300, 16],
+        [180, 9.5],
+        [900, 30],
+      ] as Array<[number, number]>) {
+        const at = (e: number, s: number) =>
+          viscosityWithGradient(T, e, s, 58.1, { repulsiveExponent: n, higherOrderCorrection: correction }).viscosityMicroPaS;
         const p = viscosityWithGradient(T, 150, 3.7, 58.1, { repulsiveExponent: n, higherOrderCorrection: correction });
         const he = 1e-4;
         const hs = 1e-6;
-        expect(rel(p.dEtadEpsilonK, (at(150 + he, 3.7) - at(150 - he, 3.7)) / (2 * he)), `∂η/∂ε at ${T} K, λr=${n}, ${correction}`).toBeLessThan(1e-6);
+        expect(
+          rel(p.dEtadEpsilonK, (at(150 + he, 3.7) - at(150 - he, 3.7)) / (2 * he)),
+          `∂η/∂ε at ${T} K, λr=${n}, ${correction}`,
+        ).toBeLessThan(1e-6);
         expect(rel(p.dEtadSigmaAngstrom, (at(150, 3.7 + hs) - at(150, 3.7 - hs)) / (2 * hs))).toBeLessThan(1e-6);
       }
     }

@@ -180,7 +180,12 @@ function deflectionOf(b: number, E: number, m: MieShape, orbit: MieOrbitingParam
 }
 
 /** Classical deflection angle χ(b, E) in radians for the Mie λr-6 potential (b in σ, E in ε). */
-export function mieDeflectionAngle(impactParameter: number, reducedEnergy: number, repulsiveExponent: number, accuracy = MIE_COLLISION_ACCURACY_DEFAULT): number {
+export function mieDeflectionAngle(
+  impactParameter: number,
+  reducedEnergy: number,
+  repulsiveExponent: number,
+  accuracy = MIE_COLLISION_ACCURACY_DEFAULT,
+): number {
   const m = shapeOf(repulsiveExponent);
   return deflectionOf(impactParameter, reducedEnergy, m, orbitOf(reducedEnergy, m), accuracy.deflection);
 }
@@ -196,11 +201,17 @@ function crossSectionsOf(E: number, m: MieShape, accuracy: MieCollisionAccuracy)
   };
   const bOrbit = orbit ? orbit.orbitImpactParameter : 0;
   const bSplit = Math.max(2.5, 1.5 * bOrbit);
-  const tail = integrateVector((t) => {
-    const v = integrand(bSplit / t);
-    const jac = bSplit / (t * t);
-    return [v[0] * jac, v[1] * jac];
-  }, 0, 1, 2, quad);
+  const tail = integrateVector(
+    (t) => {
+      const v = integrand(bSplit / t);
+      const jac = bSplit / (t * t);
+      return [v[0] * jac, v[1] * jac];
+    },
+    0,
+    1,
+    2,
+    quad,
+  );
   const sum = [tail.values[0], tail.values[1]];
   const add = (v: number[]) => {
     sum[0] += v[0];
@@ -216,11 +227,19 @@ function crossSectionsOf(E: number, m: MieShape, accuracy: MieCollisionAccuracy)
     const tauLo = Math.log(gap);
     const tauHi = Math.log(delta);
     for (const side of [-1, 1]) {
-      add(integrateVector((tau) => {
-        const e = Math.exp(tau);
-        const v = integrand(bOrbit + side * e);
-        return [v[0] * e, v[1] * e];
-      }, tauLo, tauHi, 2, quad).values);
+      add(
+        integrateVector(
+          (tau) => {
+            const e = Math.exp(tau);
+            const v = integrand(bOrbit + side * e);
+            return [v[0] * e, v[1] * e];
+          },
+          tauLo,
+          tauHi,
+          2,
+          quad,
+        ).values,
+      );
     }
     add(integrateVector(integrand, 0, bOrbit - delta, 2, quad).values);
     add(integrateVector(integrand, bOrbit + delta, bSplit, 2, quad).values);
@@ -229,7 +248,11 @@ function crossSectionsOf(E: number, m: MieShape, accuracy: MieCollisionAccuracy)
 }
 
 /** Reduced transport cross-sections Q^(1)*, Q^(2)* (1 for rigid spheres) at E* for the Mie λr-6 potential. */
-export function mieTransportCrossSections(reducedEnergy: number, repulsiveExponent: number, accuracy = MIE_COLLISION_ACCURACY_DEFAULT): { q1: number; q2: number } {
+export function mieTransportCrossSections(
+  reducedEnergy: number,
+  repulsiveExponent: number,
+  accuracy = MIE_COLLISION_ACCURACY_DEFAULT,
+): { q1: number; q2: number } {
   if (!(reducedEnergy > 0) || !Number.isFinite(reducedEnergy)) {
     throw new RangeError(`reducedEnergy must be a finite number > 0 (got ${String(reducedEnergy)})`);
   }
@@ -240,7 +263,11 @@ export function mieTransportCrossSections(reducedEnergy: number, repulsiveExpone
  * Ω^(1,1)*, Ω^(2,2)* and their T*-derivatives of the Mie λr-6 potential from the definition (seconds per call);
  * the thermal average is split at the orbiting threshold x = E_o/T*, as in collisionIntegralsExact.
  */
-export function mieCollisionIntegralsExact(tStar: number, repulsiveExponent: number, accuracy = MIE_COLLISION_ACCURACY_DEFAULT): CollisionIntegralPoint {
+export function mieCollisionIntegralsExact(
+  tStar: number,
+  repulsiveExponent: number,
+  accuracy = MIE_COLLISION_ACCURACY_DEFAULT,
+): CollisionIntegralPoint {
   if (typeof tStar !== 'number' || !Number.isFinite(tStar) || tStar <= 0) {
     throw new RangeError(`reduced temperature tStar must be a finite number > 0 (got ${String(tStar)})`);
   }
@@ -289,10 +316,16 @@ function hermiteColumn(rows: readonly (readonly number[])[], u: number): number[
   const t2 = t * t;
   const t3 = t2 * t;
   const out: number[] = [];
-  for (const [v, s] of [[0, 2], [1, 3]]) {
+  for (const [v, s] of [
+    [0, 2],
+    [1, 3],
+  ]) {
     out.push((2 * t3 - 3 * t2 + 1) * a[v] + (t3 - 2 * t2 + t) * h * a[s] + (-2 * t3 + 3 * t2) * b[v] + (t3 - t2) * h * b[s]);
   }
-  for (const [v, s] of [[0, 2], [1, 3]]) {
+  for (const [v, s] of [
+    [0, 2],
+    [1, 3],
+  ]) {
     out.push(((6 * t2 - 6 * t) * (a[v] - b[v])) / h + (3 * t2 - 4 * t + 1) * a[s] + (3 * t2 - 2 * t) * b[s]);
   }
   out.push(((12 * t - 6) * (a[1] - b[1])) / (h * h) + ((6 * t - 4) * a[3] + (6 * t - 2) * b[3]) / h);
@@ -306,12 +339,20 @@ function hermiteColumn(rows: readonly (readonly number[])[], u: number): number[
  */
 export function mieCollisionIntegrals(tStar: number, repulsiveExponent: number): MieCollisionValues {
   requireRepulsiveExponent(repulsiveExponent);
-  if (typeof tStar !== 'number' || !Number.isFinite(tStar)) throw new RangeError(`reduced temperature tStar must be a finite number (got ${String(tStar)})`);
+  if (typeof tStar !== 'number' || !Number.isFinite(tStar))
+    throw new RangeError(`reduced temperature tStar must be a finite number (got ${String(tStar)})`);
   const { minReducedTemperature: lo, maxReducedTemperature: hi } = MIE_COLLISION_TABLE_RANGE;
-  if (tStar < lo || tStar > hi) throw new RangeError(`reduced temperature tStar = ${tStar} is outside the collision-integral table range [${lo}, ${hi}]`);
+  if (tStar < lo || tStar > hi)
+    throw new RangeError(`reduced temperature tStar = ${tStar} is outside the collision-integral table range [${lo}, ${hi}]`);
   if (repulsiveExponent === LJ_REPULSIVE_EXPONENT) {
     const o22 = omega22WithDerivatives(tStar);
-    return { omega11: omega11(tStar), dOmega11dT: omega11Derivative(tStar), omega22: o22.omega22, dOmega22dT: o22.dOmega22dT, d2Omega22dT2: o22.d2Omega22dT2 };
+    return {
+      omega11: omega11(tStar),
+      dOmega11dT: omega11Derivative(tStar),
+      omega22: o22.omega22,
+      dOmega22dT: o22.dOmega22dT,
+      d2Omega22dT2: o22.d2Omega22dT2,
+    };
   }
   const grid = MIE_COLLISION_TABLE.repulsiveExponents;
   let k = 0;
@@ -329,7 +370,13 @@ export function mieCollisionIntegrals(tStar: number, repulsiveExponent: number):
     for (let c = 0; c < 5; c++) sum[c] += weight * col[c];
   }
   const [o11, o22, d11du, d22du, d2u] = sum;
-  return { omega11: o11, omega22: o22, dOmega11dT: d11du / tStar, dOmega22dT: d22du / tStar, d2Omega22dT2: (d2u - d22du) / (tStar * tStar) };
+  return {
+    omega11: o11,
+    omega22: o22,
+    dOmega11dT: d11du / tStar,
+    dOmega22dT: d22du / tStar,
+    d2Omega22dT2: (d2u - d22du) / (tStar * tStar),
+  };
 }
 
 /**

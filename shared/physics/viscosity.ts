@@ -21,7 +21,7 @@ export const VISCOSITY_MODEL_NOTE =
   'Chapman–Enskog first approximation, η = (5/16)√(π m k_B T)/(π σ² Ω(2,2)*(T*)), with Ω(2,2)* of the ' +
   'Lennard-Jones 12-6 potential computed from the classical collision integrals and interpolated from a ' +
   'precomputed table; higherOrderCorrection: none (first Chapman–Enskog approximation), so f_η = 1 by default ' +
-  '(Kihara\'s second-approximation factor, available as an option, stays below 1.01 for T* ≤ 100).';
+  "(Kihara's second-approximation factor, available as an option, stays below 1.01 for T* ≤ 100).";
 
 export const VISCOSITY_HIGHER_ORDER_CORRECTION = 'none (first Chapman–Enskog approximation)' as const;
 export const VISCOSITY_KIHARA_CORRECTION = 'Kihara second approximation f_η = 1 + (3/196)(8E* − 7)²' as const;

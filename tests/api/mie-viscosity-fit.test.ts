@@ -29,7 +29,9 @@ function b2Csv(): Buffer {
 function viscosityCsv(): Buffer {
   const lines = ['T (K),eta (uPa s),u(eta) (uPa s)'];
   [150, 200, 260, 330, 420, 540, 700, 900, 1150].forEach((T, i) => {
-    const eta = viscosityWithGradient(T, TRUTH.epsilonK, TRUTH.sigmaAngstrom, TRUTH.molarMassGPerMol, { repulsiveExponent: 16 }).viscosityMicroPaS;
+    const eta = viscosityWithGradient(T, TRUTH.epsilonK, TRUTH.sigmaAngstrom, TRUTH.molarMassGPerMol, {
+      repulsiveExponent: 16,
+    }).viscosityMicroPaS;
     lines.push(`${T},${(eta * (1 + 0.001 * Math.sin(2.3 * i))).toFixed(4)},${(0.003 * eta).toFixed(4)}`);
   });
   return Buffer.from(lines.join('\n'));
@@ -54,7 +56,11 @@ beforeAll(async () => {
   substanceId = await newSubstance(modeller, 'Quillgas QG-9', TRUTH.molarMassGPerMol);
   b2Id = await upload('b2', 'QG-9 B2, Fenwick cell B', b2Csv());
   etaId = await upload('viscosity', 'QG-9 viscosity, oscillating disc', viscosityCsv());
-  b3Id = await upload('b3', 'QG-9 B3, Burnett', Buffer.from('T (K),B3 (cm6/mol2),u(B3) (cm6/mol2)\n200,2100,150\n300,1800,120\n400,1600,120\n'));
+  b3Id = await upload(
+    'b3',
+    'QG-9 B3, Burnett',
+    Buffer.from('T (K),B3 (cm6/mol2),u(B3) (cm6/mol2)\n200,2100,150\n300,1800,120\n400,1600,120\n'),
+  );
 });
 afterAll(() => t.close());
 
@@ -90,7 +96,9 @@ describe('Mie λr-6 fits of B2 and viscosity together', () => {
   });
 
   it('still refuses a kind without a Mie model (B3) with 422 kind_not_mie, naming the set and the kinds that have one', async () => {
-    const res = await modeller.post('/api/fits').send({ substanceId, measurementSets: [{ id: b2Id }, { id: b3Id }], options: { model: 'mie', repulsiveExponent: 16 } });
+    const res = await modeller
+      .post('/api/fits')
+      .send({ substanceId, measurementSets: [{ id: b2Id }, { id: b3Id }], options: { model: 'mie', repulsiveExponent: 16 } });
     expect(res.status).toBe(422);
     expect(res.body.error.code).toBe('kind_not_mie');
     expect(res.body.error.message).toMatch(

@@ -14,7 +14,11 @@ describe('cli collision and viscosity with --repulsive-exponent', () => {
       cli('collision', '--reduced-temperatures', '2.281,4.563', '--repulsive-exponent', '12', '--json'),
     ]);
     expect(mie.code, mie.stderr).toBe(0);
-    const m = JSON.parse(mie.stdout) as { model: string; repulsiveExponent: number; rows: { reducedTemperature: number; omega11: number; omega22: number }[] };
+    const m = JSON.parse(mie.stdout) as {
+      model: string;
+      repulsiveExponent: number;
+      rows: { reducedTemperature: number; omega11: number; omega22: number }[];
+    };
     expect([m.model, m.repulsiveExponent]).toEqual(['mie', 16]);
     for (const r of m.rows) {
       const ref = mieCollisionIntegrals(r.reducedTemperature, 16);
@@ -22,22 +26,57 @@ describe('cli collision and viscosity with --repulsive-exponent', () => {
     }
     const l = JSON.parse(lj.stdout) as typeof m;
     expect(l.model).toBe('lj-12-6');
-    expect(l.rows.map((r) => [r.omega11, r.omega22])).toEqual(l.rows.map((r) => [omega11(r.reducedTemperature), omega22(r.reducedTemperature)]));
+    expect(l.rows.map((r) => [r.omega11, r.omega22])).toEqual(
+      l.rows.map((r) => [omega11(r.reducedTemperature), omega22(r.reducedTemperature)]),
+    );
     // A harder repulsion than 12 gives a larger Ω(2,2)* at T* well above 1 (mie-collision-integrals.test.ts).
     expect(m.rows[1].omega22).toBeGreaterThan(l.rows[1].omega22);
   }, 240_000);
 
   it('viscosity --repulsive-exponent 16 prints the Mie 16-6 viscosity of the library for quillgas QG-1', async () => {
-    const out = await cli('viscosity', '--epsilon-k', '131.5', '--sigma-angstrom', '3.524', '--molar-mass', '44.62', '--temperatures', '300,500', '--repulsive-exponent', '16', '--json');
+    const out = await cli(
+      'viscosity',
+      '--epsilon-k',
+      '131.5',
+      '--sigma-angstrom',
+      '3.524',
+      '--molar-mass',
+      '44.62',
+      '--temperatures',
+      '300,500',
+      '--repulsive-exponent',
+      '16',
+      '--json',
+    );
     expect(out.code, out.stderr).toBe(0);
-    const json = JSON.parse(out.stdout) as { model: string; repulsiveExponent: number; rows: { temperatureK: number; viscosityMicroPaS: number }[] };
+    const json = JSON.parse(out.stdout) as {
+      model: string;
+      repulsiveExponent: number;
+      rows: { temperatureK: number; viscosityMicroPaS: number }[];
+    };
     expect([json.model, json.repulsiveExponent]).toEqual(['mie', 16]);
-    for (const r of json.rows) expect(r.viscosityMicroPaS).toBe(viscosityWithGradient(r.temperatureK, 131.5, 3.524, 44.62, { repulsiveExponent: 16 }).viscosityMicroPaS);
+    for (const r of json.rows)
+      expect(r.viscosityMicroPaS).toBe(
+        viscosityWithGradient(r.temperatureK, 131.5, 3.524, 44.62, { repulsiveExponent: 16 }).viscosityMicroPaS,
+      );
   }, 120_000);
 
   it('refuses λr outside 8–36 naming the flag, and --help shows Quillmoor examples', async () => {
     const [bad, helpCollision, helpViscosity] = await Promise.all([
-      cli('viscosity', '--epsilon-k', '131.5', '--sigma-angstrom', '3.524', '--molar-mass', '44.62', '--temperatures', '300', '--repulsive-exponent', '40', '--json'),
+      cli(
+        'viscosity',
+        '--epsilon-k',
+        '131.5',
+        '--sigma-angstrom',
+        '3.524',
+        '--molar-mass',
+        '44.62',
+        '--temperatures',
+        '300',
+        '--repulsive-exponent',
+        '40',
+        '--json',
+      ),
       cli('collision', '--help'),
       cli('viscosity', '--help'),
     ]);
@@ -47,6 +86,8 @@ describe('cli collision and viscosity with --repulsive-exponent', () => {
     expect(helpCollision.stdout).toMatch(/quillgas QG-1 of the Quillmoor demo/);
     expect(helpCollision.stdout).toMatch(/collision --reduced-temperatures 2\.281,4\.563 --repulsive-exponent 16 --json/);
     expect(helpViscosity.code).toBe(0);
-    expect(helpViscosity.stdout).toMatch(/viscosity --epsilon-k 131\.5 --sigma-angstrom 3\.524 --molar-mass 44\.62 --temperatures 300,500 --repulsive-exponent 16 --json/);
+    expect(helpViscosity.stdout).toMatch(
+      /viscosity --epsilon-k 131\.5 --sigma-angstrom 3\.524 --molar-mass 44\.62 --temperatures 300,500 --repulsive-exponent 16 --json/,
+    );
   }, 240_000);
 });

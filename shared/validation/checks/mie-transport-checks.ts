@@ -26,7 +26,12 @@ const SCIPY_CROSS_SECTIONS: Array<[number, number, number, number]> = [
 
 /** Observed agreement is below 1e-8; the tolerance leaves room for the scipy side's own 1e-8 error requests. */
 export const MIE_CROSS_SECTION_CHECKS: ReferenceCheck[] = SCIPY_CROSS_SECTIONS.flatMap(([n, e, q1, q2]): ReferenceCheck[] =>
-  ([['1', q1], ['2', q2]] as const).map(([l, reference]) => ({
+  (
+    [
+      ['1', q1],
+      ['2', q2],
+    ] as const
+  ).map(([l, reference]) => ({
     id: `collision.mie.q${l}.n${n}.e${e}`,
     area: 'Collision integrals',
     quantity: `Mie ${n}-6 transport cross-section Q(${l})*`,
