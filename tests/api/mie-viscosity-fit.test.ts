@@ -102,7 +102,7 @@ describe('Mie λr-6 fits of B2 and viscosity together', () => {
     expect(res.status).toBe(422);
     expect(res.body.error.code).toBe('kind_not_mie');
     expect(res.body.error.message).toMatch(
-      /^Measurement set "QG-9 B3, Burnett" holds .*B3.*, which has no Mie λr-6 model yet; a Mie fit takes B2 and dilute-gas viscosity data\.$/,
+      /^Measurement set "QG-9 B3, Burnett" holds .*B3.*, which has no Mie λr-6 model yet; a Mie fit takes B2 and dilute-gas viscosity data, and densities with λr held\.$/,
     );
     expect(res.body.error.details[0].field).toMatch(/\.1\.id$/);
   });

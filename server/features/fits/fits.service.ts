@@ -122,7 +122,7 @@ export async function createFit(ctx: AppContext, actor: CurrentUser, body: Creat
         return;
       }
       if (isFitKind(ref.kind) && !(PROPERTY_MODELS[ref.kind] as PropertyModel).supportsMie) {
-        throw new AppError(422, 'kind_not_mie', `Measurement set "${ref.name}" holds ${PROPERTY_KINDS[ref.kind].label}, which has no Mie λr-6 model yet; a Mie fit takes ${MIE_KINDS_TEXT} data.`, [{ field: `measurementSets.${i}.id`, message: `no Mie model for ${ref.kind}` }]);
+        throw new AppError(422, 'kind_not_mie', `Measurement set "${ref.name}" holds ${PROPERTY_KINDS[ref.kind].label}, which has no Mie λr-6 model yet; a Mie fit takes ${MIE_KINDS_TEXT} data, and densities with λr held.`, [{ field: `measurementSets.${i}.id`, message: `no Mie model for ${ref.kind}` }]);
       }
     });
   }
