@@ -27,6 +27,7 @@ import { rowValueAndUncertainty } from '../../shared/measurements/property-kinds
 import { errorMessage, missingFlagError, parseFlags, positiveNumberFlag, repulsiveExponentFlag } from './_flags';
 import { fitMieWithExponent } from '../../shared/fitting/mie-fit';
 import { ljPosterior } from '../../shared/fitting/lj-posterior';
+import type { SimulationCutoffScheme } from '../../shared/physics/cutoff-schemes';
 
 const USAGE =
   'usage: fit --data <file.csv> [--data <file2.csv> ...] [--molar-mass <g/mol>] [--quantum] [--restarts <n>] [--model lj-12-6|mie [--repulsive-exponent <8–36> | --fit-repulsive-exponent]] [--posterior [--samples <n>]] [--atoms <n> --steps <n> --cutoff <rc/σ> --scheme truncated-tail|truncated-shifted --seed <k>] --json';
@@ -150,7 +151,7 @@ async function densityStage(
     ...(intFlag('atoms', values.atoms, 108, 20000) !== undefined ? { atoms: Number(values.atoms) } : {}),
     ...(intFlag('steps', values.steps, 1000, 2_000_000) !== undefined ? { steps: Number(values.steps) } : {}),
     ...(cutoff !== undefined ? { cutoff } : {}),
-    ...(values.scheme ? { scheme: values.scheme as 'truncated-tail' | 'truncated-shifted' } : {}),
+    ...(values.scheme ? { scheme: values.scheme as SimulationCutoffScheme } : {}),
     ...(intFlag('seed', values.seed, 0, 2 ** 32 - 1) !== undefined ? { seed: Number(values.seed) } : {}),
   };
   const pool = createWorkerPool(Number(process.env.WORKERS) || Math.max(1, os.availableParallelism() - 1));

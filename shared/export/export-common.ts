@@ -5,6 +5,7 @@
 import type { ExportableParameterSet } from './parameter-set-export';
 import { roundValidityPressureMPa, roundValidityTemperatureK } from '../parameter-sets/validity';
 import type { CombiningRule } from '../mixing/combining-rules';
+import { CUTOFF_SCHEMES, type CutoffScheme } from '../physics/cutoff-schemes';
 
 /** Carried verbatim by every export (JSON field, CSV column, comment in each engine fragment). */
 export const CAUTION_TEXT =
@@ -17,10 +18,8 @@ export const CAUTION_TEXT =
  */
 export const FULL_POTENTIAL_SUGGESTED_CUTOFF_SIGMA = 5;
 
-export const SCHEMES = ['full-potential', 'truncated-tail', 'truncated-shifted'] as const;
-export type ExportScheme = (typeof SCHEMES)[number];
 
-export const SCHEME_DESCRIPTION: Record<ExportScheme, string> = {
+export const SCHEME_DESCRIPTION: Record<CutoffScheme, string> = {
   'full-potential': 'full potential (no cutoff in the fit)',
   'truncated-tail': 'truncated at rc with analytic long-range tail corrections',
   'truncated-shifted': 'truncated at rc and shifted to zero at rc, no tail corrections',
@@ -71,7 +70,7 @@ export function assertExportable(set: ExportableParameterSet): void {
   if (!positiveFinite(set.sigmaAngstrom)) fail('sigmaAngstrom must be a finite number above 0');
   if (!set.substance || typeof set.substance.name !== 'string') fail('substance name is missing');
   if (!positiveFinite(set.substance.molarMassGPerMol)) fail('substance molarMassGPerMol must be a finite number above 0');
-  if (!(SCHEMES as readonly string[]).includes(set.scheme)) fail(`unknown cutoff scheme "${String(set.scheme)}"`);
+  if (!(CUTOFF_SCHEMES as readonly string[]).includes(set.scheme)) fail(`unknown cutoff scheme "${String(set.scheme)}"`);
   if (set.scheme === 'full-potential' && set.cutoffSigma != null) fail('the full potential has no cutoff; cutoffSigma must be null');
   if (set.scheme !== 'full-potential' && !positiveFinite(set.cutoffSigma)) fail(`a ${set.scheme} set needs cutoffSigma (rc/σ) above 0`);
   if (!nullOrFinite(set.stdErr?.epsilonK) || !nullOrFinite(set.stdErr?.sigmaAngstrom)) fail('standard errors must be finite numbers or null');
@@ -185,7 +184,7 @@ export function commonValidity(sets: readonly ExportableParameterSet[]): Validit
 
 export interface MixtureCutoff {
   /** The treatment the engine fragment uses for every pair. */
-  scheme: ExportScheme;
+  scheme: CutoffScheme;
   /** rc/σ_ij used for every pair. */
   cutoffSigma: number;
   /** False when the sets were fitted for different schemes or cutoffs; the fragments then carry a warning. */

@@ -26,8 +26,8 @@ import {
   substanceLabel,
   validityOf,
   validityText,
-  type ExportScheme,
 } from './export-common';
+import type { CutoffScheme } from '../physics/cutoff-schemes';
 
 const MDP_URL = 'https://manual.gromacs.org/current/user-guide/mdp-options.html';
 const TOP_URL = 'https://manual.gromacs.org/current/reference-manual/topologies/parameter-files.html';
@@ -55,7 +55,7 @@ function defaultsLines(): string[] {
   ];
 }
 
-function mdpLines(scheme: ExportScheme, rvdwNm: number, cutoffSigma: number, perPair: boolean): string[] {
+function mdpLines(scheme: CutoffScheme, rvdwNm: number, cutoffSigma: number, perPair: boolean): string[] {
   const where = perPair ? 'for the largest sigma_ij' : '';
   const head = [`Matching .mdp settings (${MDP_URL}):`, 'cutoff-scheme = Verlet', 'vdwtype       = Cut-off', `rvdw          = ${engineNumber(rvdwNm, 6)}`];
   const reduced = `${engineNumber(cutoffSigma, 6)} sigma${where ? ` ${where}` : ''}`;

@@ -8,7 +8,8 @@
 import type { ExportableParameterSet } from './parameter-set-export';
 import { COMBINING_RULE_INFO, mixtureTable, type CombiningRule, type PairKind } from '../mixing/combining-rules';
 import { convertEpsilon, convertSigma } from '../physics/parameter-units';
-import { CAUTION_TEXT, SCHEME_DESCRIPTION, tidy, commonValidity, isMie, mixtureCutoff, potentialText, validityOf, type ExportScheme, type ValidityRange } from './export-common';
+import { CAUTION_TEXT, SCHEME_DESCRIPTION, tidy, commonValidity, isMie, mixtureCutoff, potentialText, validityOf, type ValidityRange } from './export-common';
+import type { CutoffScheme } from '../physics/cutoff-schemes';
 
 export const PARAMETER_SET_FORMAT_ID = 'epsigma.parameter-set/1';
 export const MIXTURE_FORMAT_ID = 'epsigma.mixture/1';
@@ -45,7 +46,7 @@ export interface ParameterSetDocument {
     sigmaStdErrNm: number | null;
     correlationEpsilonSigma: number | null;
   };
-  cutoff: { scheme: ExportScheme; description: string; cutoffSigma: number | null; cutoffAngstrom: number | null; cutoffNm: number | null };
+  cutoff: { scheme: CutoffScheme; description: string; cutoffSigma: number | null; cutoffAngstrom: number | null; cutoffNm: number | null };
   validity: ValidityRange;
   provenance: {
     fitId: number;
@@ -121,14 +122,14 @@ export interface MixtureDocument {
     molarMassGPerMol: number;
     epsilonK: number;
     sigmaAngstrom: number;
-    scheme: ExportScheme;
+    scheme: CutoffScheme;
     cutoffSigma: number | null;
   }>;
   pairs: Array<
     { i: number; j: number; parameterSetIdI: number; parameterSetIdJ: number; kind: PairKind } & EnergyInAllUnits & LengthInAllUnits
   >;
   commonValidity: ValidityRange | null;
-  cutoff: { scheme: ExportScheme; cutoffSigma: number; consistent: boolean; warning: string | null };
+  cutoff: { scheme: CutoffScheme; cutoffSigma: number; consistent: boolean; warning: string | null };
   caution: typeof CAUTION_TEXT;
 }
 

@@ -5,7 +5,8 @@
  * The $id values are URNs: they name the format version, they are not addresses to fetch.
  */
 import { COMBINING_RULES } from '../mixing/combining-rules';
-import { CAUTION_TEXT, SCHEMES } from './export-common';
+import { CUTOFF_SCHEMES } from '../physics/cutoff-schemes';
+import { CAUTION_TEXT } from './export-common';
 import { MIXTURE_FORMAT_ID, PARAMETER_SET_FORMAT_ID } from './json-export';
 
 export type JsonSchema = { [keyword: string]: unknown };
@@ -46,7 +47,7 @@ const validity = closed(
 );
 
 const caution = { const: CAUTION_TEXT, description: 'fixed caution text carried by every export' };
-const scheme = { enum: [...SCHEMES], description: 'cutoff treatment the parameters were fitted for' };
+const scheme = { enum: [...CUTOFF_SCHEMES], description: 'cutoff treatment the parameters were fitted for' };
 
 export const PARAMETER_SET_JSON_SCHEMA: JsonSchema = {
   $schema: DRAFT,

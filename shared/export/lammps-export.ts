@@ -29,8 +29,8 @@ import {
   substanceLabel,
   validityOf,
   validityText,
-  type ExportScheme,
 } from './export-common';
+import type { CutoffScheme } from '../physics/cutoff-schemes';
 
 export type LammpsUnits = 'real' | 'metal';
 
@@ -43,7 +43,7 @@ function unitsLines(units: LammpsUnits): string[] {
   ];
 }
 
-function schemeCommentLines(scheme: ExportScheme, cutoffSigma: number): string[] {
+function schemeCommentLines(scheme: CutoffScheme, cutoffSigma: number): string[] {
   switch (scheme) {
     case 'full-potential':
       return [
@@ -64,7 +64,7 @@ function schemeCommentLines(scheme: ExportScheme, cutoffSigma: number): string[]
   }
 }
 
-function modifyLine(scheme: ExportScheme): string {
+function modifyLine(scheme: CutoffScheme): string {
   return scheme === 'truncated-shifted' ? 'pair_modify shift yes tail no' : 'pair_modify shift no tail yes';
 }
 

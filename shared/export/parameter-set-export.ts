@@ -10,6 +10,7 @@ import { parameterSetsToCsv, mixtureToCsv } from './csv-export';
 import { lammpsLjMixture, lammpsLjParameterSet, lammpsParameterSet, lammpsMixture } from './lammps-export';
 import { gromacsParameterSet, gromacsMixture } from './gromacs-export';
 import { assertExportable, fileBaseName, isMie, mixtureFileBaseName, ExportError } from './export-common';
+import type { CutoffScheme } from '../physics/cutoff-schemes';
 
 export interface ExportableParameterSet {
   id: number;
@@ -24,7 +25,7 @@ export interface ExportableParameterSet {
   stdErr: { epsilonK: number | null; sigmaAngstrom: number | null };
   /** Correlation coefficient of the ε and σ estimates from the fit covariance. */
   correlation: number | null;
-  scheme: 'full-potential' | 'truncated-tail' | 'truncated-shifted';
+  scheme: CutoffScheme;
   /** rc/σ for the truncated schemes; null for the full potential. */
   cutoffSigma: number | null;
   validity: { temperatureMinK: number; temperatureMaxK: number; pressureMinMPa?: number | null; pressureMaxMPa?: number | null };

@@ -3,7 +3,8 @@
  * viscosity see the whole pair potential; a fit with density data ran simulations and inherits their
  * cutoff treatment (its result records the engine settings as `mdSettings`).
  */
-import { CUTOFF_SCHEMES, CUTOFF_SIGMA_RANGE, type CutoffScheme } from '../schemas/parameter-sets';
+import { CUTOFF_SCHEMES, type CutoffScheme } from '../physics/cutoff-schemes';
+import { CUTOFF_SIGMA_RANGE } from '../schemas/parameter-sets';
 
 export interface SchemeOfFit {
   scheme: CutoffScheme;

@@ -7,7 +7,7 @@ import { COMBINING_RULES } from '../mixing/combining-rules';
 import { PROPERTY_KIND_IDS } from '../measurements/property-kinds';
 import { ENERGY_UNITS, LENGTH_UNITS } from '../physics/parameter-units';
 import { EXPORT_FORMATS } from '../export/parameter-set-export';
-import { CUTOFF_SCHEMES } from './parameter-sets';
+import { CUTOFF_SCHEMES } from '../physics/cutoff-schemes';
 
 const temperature = (name: string) =>
   z.coerce.number({ error: `${name} must be a temperature in K` }).gt(0, `${name} must be above 0 K`).max(100000, `${name} must be at most 100000 K`);

@@ -3,20 +3,8 @@
  * Units in names: K for ε/k_B and temperatures, Å for σ, MPa for pressures, cutoffs in units of σ.
  */
 import { z } from 'zod';
+import { CUTOFF_SCHEME_LABELS, CUTOFF_SCHEMES, type CutoffScheme } from '../physics/cutoff-schemes';
 import { acceptOldFields } from './old-names';
-
-/**
- * The cutoff treatment the parameters are meant for. B2 and dilute-gas viscosity see the whole pair
- * potential, so parameters fitted to them are full-potential parameters unless the modeller says otherwise.
- */
-export const CUTOFF_SCHEMES = ['full-potential', 'truncated-tail', 'truncated-shifted'] as const;
-export type CutoffScheme = (typeof CUTOFF_SCHEMES)[number];
-
-export const CUTOFF_SCHEME_LABELS: Record<CutoffScheme, string> = {
-  'full-potential': 'Full potential',
-  'truncated-tail': 'Truncated with tail corrections',
-  'truncated-shifted': 'Truncated and shifted',
-};
 
 /** Cutoff radii accepted for the truncated schemes, in units of σ (2.5σ is the common minimum, 4σ a generous maximum). */
 export const CUTOFF_SIGMA_RANGE = { min: 2.5, max: 4 } as const;

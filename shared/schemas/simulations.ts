@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { acceptOldFields } from './old-names';
+import { SIMULATION_CUTOFF_SCHEMES } from '../physics/cutoff-schemes';
 
 /**
  * Per-request limits of one NPT run. A density fit needs 256 atoms × 10 000 steps (seconds); the caps keep one
@@ -13,7 +14,7 @@ export const mdSettingsSchema = z.object({
   atoms: z.number().int().min(SIMULATION_LIMITS.minAtoms).max(SIMULATION_LIMITS.maxAtoms).optional(),
   steps: z.number().int().min(SIMULATION_LIMITS.minSteps).max(SIMULATION_LIMITS.maxSteps).optional(),
   cutoff: z.number().min(2).max(4).optional(),
-  scheme: z.enum(['truncated-tail', 'truncated-shifted']).optional(),
+  scheme: z.enum(SIMULATION_CUTOFF_SCHEMES).optional(),
   seed: z.number().int().min(0).max(2 ** 32 - 1).optional(),
 });
 export type MdSettings = z.infer<typeof mdSettingsSchema>;

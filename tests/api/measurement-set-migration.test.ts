@@ -63,6 +63,7 @@ beforeAll(async () => {
   // 2. Back to the previous version: the rename's down step.
   const sqlite = new SQLite(file);
   sqlite.pragma('foreign_keys = ON');
+  // eslint-disable-next-line @typescript-eslint/no-explicit-any -- the migrations run on an untyped database
   const db = new Kysely<any>({ dialect: new SqliteDialect({ database: sqlite }), plugins: [new CamelCasePlugin()] });
   const down = await new Migrator({ db, provider: { getMigrations: async () => MIGRATIONS } }).migrateTo(PREVIOUS);
   expect(down.error).toBeUndefined();

@@ -1,4 +1,4 @@
-import { CUTOFF_SCHEME_LABELS } from '../../../shared/schemas/parameter-sets';
+import { CUTOFF_SCHEME_LABELS } from '../../../shared/physics/cutoff-schemes';
 import type { Db } from '../../db/database';
 
 const ids = (events: Array<{ targetType: string; targetId: string | null }>, type: string) =>

@@ -1,5 +1,5 @@
 import type { ParameterSetState } from '../../../shared/parameter-sets/transitions';
-import type { CutoffScheme } from '../../../shared/schemas/parameter-sets';
+import type { CutoffScheme } from '../../../shared/physics/cutoff-schemes';
 import type { Db, Tx } from '../../db/database';
 
 /** Parameter sets with what the catalog shows beside the values: substance, approval and older versions. */
@@ -53,11 +53,4 @@ export async function approvals(db: Db | Tx, transitionIds: number[]) {
     .where('t.id', 'in', transitionIds)
     .execute();
   return new Map(rows.map((r) => [r.id, { at: r.at, actorName: r.actorName, comment: r.comment }]));
-}
-
-/** Source, DOI and method of measurement set versions, by version id. */
-export async function measurementSetVersionSources(db: Db | Tx, versionIds: number[]) {
-  if (!versionIds.length) return new Map<number, { source: string | null; doi: string | null; method: string | null }>();
-  const rows = await db.selectFrom('measurementSetVersion').select(['id', 'source', 'doi', 'method']).where('id', 'in', versionIds).execute();
-  return new Map(rows.map((r) => [r.id, { source: r.source, doi: r.doi, method: r.method }]));
 }

@@ -2,18 +2,18 @@ import { type CombiningRule, COMBINING_RULE_INFO, mixtureTable } from '../../../
 import { commonValidity, ExportError, mixtureCutoff } from '../../../shared/export/export-common';
 import { exportMixture, exportOptionsFromQuery, exportParameterSet, type ExportableParameterSet, type ExportFormat, type ExportResult } from '../../../shared/export/parameter-set-export';
 import { isVisibleTo, PUBLISHED_STATES, STATE_LABELS, type ParameterSetState } from '../../../shared/parameter-sets/transitions';
+import type { CatalogEntry, MixtureAnswer, ParameterCard } from '../../../shared/contracts/catalog';
 import type { PropertyKind } from '../../../shared/measurements/property-kinds';
-import { CUTOFF_SCHEME_LABELS } from '../../../shared/schemas/parameter-sets';
-import { potentialLabel } from '../../../shared/physics/mie-potential';
 import type { CatalogQuery } from '../../../shared/schemas/catalog';
 import type { CurrentUser } from '../../common/auth-middleware';
 import { AppError, notFound } from '../../common/errors';
 import type SQLite from 'better-sqlite3';
 import type { Db } from '../../db/database';
-import type { FitMeasurementSetRef } from '../fits/fits.service';
+import { versionSources } from '../measurement-sets/measurement-sets.repository';
 import { getParameterSetDetail } from '../parameter-sets/parameter-sets.service';
-import { approvals, measurementSetVersionSources, findCatalogRow, listCatalogRows, versionRows, type CatalogRow } from './catalog.repository';
-import { readStoredJson } from '../../../shared/schemas/old-names';
+import { readMeasurementSetRefs } from '../parameter-sets/parameter-sets.view';
+import { approvals, findCatalogRow, listCatalogRows, versionRows } from './catalog.repository';
+import { toCatalogEntryView, toExportableParameterSet, toParameterCardVersionView } from './catalog.view';
 
 /**
  * States the export and mixture routes serve: the approved version and the superseded ones it replaced
@@ -21,39 +21,7 @@ import { readStoredJson } from '../../../shared/schemas/old-names';
  */
 export const EXPORTABLE_STATES: readonly ParameterSetState[] = ['approved', 'superseded'];
 
-const kindsOf = (row: { measurementSetsJson: string }) => [...new Set((readStoredJson(row.measurementSetsJson) as FitMeasurementSetRef[]).map((d) => d.kind))].sort() as PropertyKind[];
-
-function toCatalogEntry(row: CatalogRow, approval: { at: string; actorName: string | null } | undefined) {
-  return {
-    id: row.id,
-    substanceId: row.substanceId,
-    substanceName: row.substanceName,
-    formula: row.formula,
-    version: row.version,
-    state: row.state,
-    stateLabel: STATE_LABELS[row.state],
-    scheme: row.scheme,
-    schemeLabel: CUTOFF_SCHEME_LABELS[row.scheme],
-    cutoffSigma: row.cutoffSigma,
-    model: row.model,
-    /** 'lj-12-6' or 'mie', its λr and the label people read ("Mie 16-6"). */
-    potential: row.potential,
-    repulsiveExponent: row.repulsiveExponent,
-    potentialLabel: potentialLabel(row.repulsiveExponent),
-    epsilonK: row.epsilonK,
-    sigmaAngstrom: row.sigmaAngstrom,
-    stdErr: { epsilonK: row.epsilonStdErrK, sigmaAngstrom: row.sigmaStdErrAngstrom },
-    correlation: row.correlation,
-    validity: { temperatureMinK: row.temperatureMinK, temperatureMaxK: row.temperatureMaxK, pressureMinMPa: row.pressureMinMpa, pressureMaxMPa: row.pressureMaxMpa },
-    kinds: kindsOf(row),
-    fitId: row.fitId,
-    approvedAt: approval?.at ?? null,
-    approvedByName: approval?.actorName ?? null,
-    olderVersions: Number(row.olderPublished ?? 0),
-  };
-}
-
-export type CatalogEntry = ReturnType<typeof toCatalogEntry>;
+export type { CatalogEntry };
 
 /** True when a catalog entry passes the search filters of GET /api/catalog. */
 function matchesQuery(e: CatalogEntry, query: CatalogQuery): boolean {
@@ -71,7 +39,7 @@ function matchesQuery(e: CatalogEntry, query: CatalogQuery): boolean {
 async function loadCatalogEntries(db: Db): Promise<CatalogEntry[]> {
   const rows = await listCatalogRows(db, ['approved']);
   const approvalsById = await approvals(db, rows.map((r) => r.approveTransitionId).filter((x): x is number => x != null));
-  return rows.map((r) => toCatalogEntry(r, r.approveTransitionId != null ? approvalsById.get(r.approveTransitionId) : undefined));
+  return rows.map((r) => toCatalogEntryView(r, r.approveTransitionId != null ? approvalsById.get(r.approveTransitionId) : undefined));
 }
 
 /** GET /api/catalog: the current approved version of each substance and scheme, filtered. */
@@ -115,7 +83,7 @@ async function requirePublishedRow(db: Db, id: number) {
  * GET /api/catalog/:id: the parameter card. Values, validity, approval, measurement sets with sources,
  * fit statistics, and every published version of the same substance and scheme with what changed.
  */
-export async function parameterCard(db: Db, id: number, viewer: CurrentUser) {
+export async function parameterCard(db: Db, id: number, viewer: CurrentUser): Promise<ParameterCard> {
   const row = await requirePublishedRow(db, id);
   const detail = await getParameterSetDetail(db, id, viewer);
   const versions = await versionRows(db, row.substanceId, row.scheme, PUBLISHED_STATES);
@@ -124,7 +92,7 @@ export async function parameterCard(db: Db, id: number, viewer: CurrentUser) {
   const approval = row.approveTransitionId != null ? approvalsById.get(row.approveTransitionId) : undefined;
   const current = versions.find((v) => v.state === 'approved') ?? null;
   return {
-    ...toCatalogEntry(row, approval),
+    ...toCatalogEntryView(row, approval),
     molarMassGPerMol: row.molarMassGramsPerMol,
     approvalComment: approval?.comment ?? null,
     rationale: detail.rationale,
@@ -133,25 +101,7 @@ export async function parameterCard(db: Db, id: number, viewer: CurrentUser) {
     exportable: EXPORTABLE_STATES.includes(row.state),
     currentApprovedId: current?.id ?? null,
     // Oldest first; each version's change is against the published version before it.
-    versions: versions.map((v, k) => {
-      const prev = k > 0 ? versions[k - 1] : null;
-      const a = v.approveTransitionId != null ? approvalsById.get(v.approveTransitionId) : undefined;
-      return {
-        id: v.id,
-        version: v.version,
-        state: v.state,
-        stateLabel: STATE_LABELS[v.state],
-        epsilonK: v.epsilonK,
-        sigmaAngstrom: v.sigmaAngstrom,
-        stdErr: { epsilonK: v.epsilonStdErrK, sigmaAngstrom: v.sigmaStdErrAngstrom },
-        validity: { temperatureMinK: v.temperatureMinK, temperatureMaxK: v.temperatureMaxK },
-        kinds: kindsOf(v),
-        fitId: v.fitId,
-        approvedAt: a?.at ?? null,
-        approvedByName: a?.actorName ?? null,
-        change: prev ? { fromVersion: prev.version, epsilonK: v.epsilonK - prev.epsilonK, sigmaAngstrom: v.sigmaAngstrom - prev.sigmaAngstrom } : null,
-      };
-    }),
+    versions: versions.map((v, k) => toParameterCardVersionView(v, k > 0 ? versions[k - 1] : null, v.approveTransitionId != null ? approvalsById.get(v.approveTransitionId) : undefined)),
   };
 }
 
@@ -165,28 +115,9 @@ export async function exportableSet(db: Db, id: number, viewer: CurrentUser, fie
   if (!EXPORTABLE_STATES.includes(row.state)) {
     throw new AppError(409, 'not_exportable', `Parameter set ${id} is ${STATE_LABELS[row.state]}; only approved and superseded sets are exported.`, [{ field, message: `set ${id} is ${row.state}` }]);
   }
-  const refs = readStoredJson(row.measurementSetsJson) as FitMeasurementSetRef[];
-  const sources = await measurementSetVersionSources(db, refs.map((r) => r.versionId));
+  const sources = await versionSources(db, readMeasurementSetRefs(row.measurementSetsJson).map((r) => r.versionId));
   const approval = row.approveTransitionId != null ? (await approvals(db, [row.approveTransitionId])).get(row.approveTransitionId) : undefined;
-  return {
-    id: row.id,
-    version: row.version,
-    substance: { id: row.substanceId, name: row.substanceName, formula: row.formula, molarMassGPerMol: row.molarMassGramsPerMol },
-    model: row.potential,
-    repulsiveExponent: row.repulsiveExponent,
-    epsilonK: row.epsilonK,
-    sigmaAngstrom: row.sigmaAngstrom,
-    stdErr: { epsilonK: row.epsilonStdErrK, sigmaAngstrom: row.sigmaStdErrAngstrom },
-    correlation: row.correlation,
-    scheme: row.scheme,
-    cutoffSigma: row.cutoffSigma,
-    validity: { temperatureMinK: row.temperatureMinK, temperatureMaxK: row.temperatureMaxK, pressureMinMPa: row.pressureMinMpa, pressureMaxMPa: row.pressureMaxMpa },
-    approvedAt: approval?.at ?? null,
-    approvedBy: approval?.actorName ?? null,
-    state: row.state,
-    fitId: row.fitId,
-    measurementSets: refs.map((r) => ({ id: r.measurementSetId, version: r.version, kind: r.kind, name: r.name, source: sources.get(r.versionId)?.source ?? null, doi: sources.get(r.versionId)?.doi ?? null })),
-  };
+  return toExportableParameterSet(row, approval, sources);
 }
 
 /** Runs an exporter; its refusals become 400 answers in the API's error shape. */
@@ -208,7 +139,7 @@ export function exportMixtureFile(sets: ExportableParameterSet[], rule: Combinin
 }
 
 /** GET /api/mixtures without a format: the pair table as JSON. Cross pairs are combining-rule estimates. */
-export function mixtureJson(sets: ExportableParameterSet[], rule: CombiningRule) {
+export function mixtureJson(sets: ExportableParameterSet[], rule: CombiningRule): MixtureAnswer {
   const table = mixtureTable(sets, rule);
   const info = COMBINING_RULE_INFO[rule];
   return {

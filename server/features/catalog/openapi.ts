@@ -9,7 +9,7 @@ import { EXPORT_FORMATS } from '../../../shared/export/parameter-set-export';
 import { MIXTURE_JSON_SCHEMA, PARAMETER_SET_JSON_SCHEMA } from '../../../shared/export/json-schema';
 import { PROPERTY_KIND_IDS } from '../../../shared/measurements/property-kinds';
 import { ENERGY_UNITS, LENGTH_UNITS } from '../../../shared/physics/parameter-units';
-import { CUTOFF_SCHEMES } from '../../../shared/schemas/parameter-sets';
+import { CUTOFF_SCHEMES } from '../../../shared/physics/cutoff-schemes';
 import { catalogQuery, mixtureQuery } from '../../../shared/schemas/catalog';
 
 type Json = { [key: string]: unknown };

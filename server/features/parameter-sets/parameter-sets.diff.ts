@@ -1,22 +1,15 @@
 import { isVisibleTo } from '../../../shared/parameter-sets/transitions';
-import { CUTOFF_SCHEME_LABELS } from '../../../shared/schemas/parameter-sets';
+import { CUTOFF_SCHEME_LABELS } from '../../../shared/physics/cutoff-schemes';
 import { FIELD_LABELS } from '../../../shared/schemas/field-labels';
 import type { CurrentUser } from '../../common/auth-middleware';
 import type { Db } from '../../db/database';
-import type { FitMeasurementSetRef } from '../fits/fits.service';
+import type { ParameterSetChange, ParameterSetDiff } from '../../../shared/contracts/parameter-set';
 import { findParameterSet, type ParameterSetRow } from './parameter-sets.repository';
 import { requireVisibleSet } from './parameter-sets.service';
-import { readStoredJson } from '../../../shared/schemas/old-names';
-
-export interface SetChange {
-  field: string;
-  label: string;
-  before: string | number | null;
-  after: string | number | null;
-}
+import { readMeasurementSetRefs } from './parameter-sets.view';
 
 const measurementSetsText = (row: ParameterSetRow) =>
-  (readStoredJson(row.measurementSetsJson) as FitMeasurementSetRef[])
+  readMeasurementSetRefs(row.measurementSetsJson)
     .map((d) => `${d.name} v${d.version}${d.excludeRows?.length ? ` (rows ${d.excludeRows.join(', ')} left out)` : ''}`)
     .join('; ');
 
@@ -40,11 +33,11 @@ const FIELDS: Array<{ field: string; label: string; value: (r: ParameterSetRow) 
 ];
 
 /** GET /api/parameter-sets/:id/diff: what changed from the version this set revises (same read rule as the set). */
-export async function diffWithPrevious(db: Db, id: number, viewer: CurrentUser) {
+export async function diffWithPrevious(db: Db, id: number, viewer: CurrentUser): Promise<ParameterSetDiff> {
   const row = await requireVisibleSet(db, id, viewer);
   const previous = row.revisionOf ? await findParameterSet(db, row.revisionOf) : undefined;
-  if (!previous || !isVisibleTo(previous.state, viewer.roles)) return { previous: null, changes: [] as SetChange[] };
-  const changes: SetChange[] = [];
+  if (!previous || !isVisibleTo(previous.state, viewer.roles)) return { previous: null, changes: [] };
+  const changes: ParameterSetChange[] = [];
   for (const f of FIELDS) {
     const before = f.value(previous);
     const after = f.value(row);

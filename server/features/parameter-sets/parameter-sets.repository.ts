@@ -1,6 +1,8 @@
 import type { ParameterSetState } from '../../../shared/parameter-sets/transitions';
-import type { CutoffScheme } from '../../../shared/schemas/parameter-sets';
+import type { CutoffScheme } from '../../../shared/physics/cutoff-schemes';
+import type { Insertable } from 'kysely';
 import type { Db, Tx } from '../../db/database';
+import type { ParameterSetTable, ParameterSetTransitionTable } from './parameter-sets.table';
 
 const SET_COLUMNS = [
   'parameterSet.id',
@@ -111,4 +113,23 @@ export async function commentsOf(db: Db | Tx, parameterSetId: number) {
 export async function emailOf(db: Db | Tx, userId: string): Promise<string | null> {
   const row = await db.selectFrom('user').select('email').where('id', '=', userId).where('active', '=', 1).executeTakeFirst();
   return row?.email ?? null;
+}
+
+export async function insertParameterSet(tx: Tx, values: Insertable<ParameterSetTable>): Promise<number> {
+  const { id } = await tx.insertInto('parameterSet').values(values).returning('id').executeTakeFirstOrThrow();
+  return id;
+}
+
+/** One row of the append-only history; a trigger refuses a state change without it. */
+export async function insertTransition(tx: Tx, values: Insertable<ParameterSetTransitionTable>) {
+  await tx.insertInto('parameterSetTransition').values(values).execute();
+}
+
+export async function updateParameterSet(tx: Tx, id: number, values: Partial<Pick<ParameterSetTable, 'state' | 'rationale' | 'temperatureMinK' | 'temperatureMaxK' | 'pressureMinMpa' | 'pressureMaxMpa' | 'updatedAt'>>) {
+  await tx.updateTable('parameterSet').set(values).where('id', '=', id).execute();
+}
+
+export async function insertComment(tx: Tx, values: { parameterSetId: number; authorId: string; body: string; createdAt: string }): Promise<number> {
+  const { id } = await tx.insertInto('parameterSetComment').values(values).returning('id').executeTakeFirstOrThrow();
+  return id;
 }

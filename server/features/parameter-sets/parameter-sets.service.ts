@@ -2,27 +2,41 @@ import { hasPolicy } from '../../../shared/auth/roles';
 import { schemeOfFit } from '../../../shared/parameter-sets/scheme';
 import { roundValidity } from '../../../shared/parameter-sets/validity';
 import { availableMoves, checkMove, isVisibleTo, STATE_LABELS, type Move, type MoveActor, type MoveSubject, type ParameterSetState } from '../../../shared/parameter-sets/transitions';
+import { CUTOFF_SCHEME_LABELS, type CutoffScheme } from '../../../shared/physics/cutoff-schemes';
 import {
-  CUTOFF_SCHEME_LABELS,
   CUTOFF_SIGMA_RANGE,
   type CreateParameterSetBody,
-  type CutoffScheme,
   type ReviseParameterSetBody,
   type UpdateParameterSetBody,
   type Validity,
 } from '../../../shared/schemas/parameter-sets';
 import type { LjFitResult } from '../../../shared/fitting/lj-fit';
-import { potentialLabel } from '../../../shared/physics/mie-potential';
-import type { AppContext } from '../../app-context';
+import type { MeasurementSetRef } from '../../../shared/contracts/measurement-set-ref';
+import type { ParameterSetComment, ParameterSetDetail, ParameterSetSummary } from '../../../shared/contracts/parameter-set';
 import type { CurrentUser } from '../../common/auth-middleware';
 import { AppError, notFound } from '../../common/errors';
 import type { Db, Tx } from '../../db/database';
 import { recordAudit } from '../audit/audit.service';
-import type { FitMeasurementSetRef } from '../fits/fits.service';
 import { findFit, toFitView } from '../fits/fits.service';
-import { emailsOfFollowers, emailsOfRole, mailBody, queueMail } from '../mail/mail.service';
-import { approvedOf, commentsOf, emailOf, findParameterSet, historyOf, listParameterSets, nextVersion, type ParameterSetRow } from './parameter-sets.repository';
-import { readStoredJson } from '../../../shared/schemas/old-names';
+import { emailsOfFollowers, emailsOfRole, queueMail } from '../mail/mail.service';
+import { pressureSpanOfVersions, versionSources } from '../measurement-sets/measurement-sets.repository';
+import { findSubstance } from '../substances/substances.repository';
+import { approvedMail, changesRequestedMail, retiredMail, submittedMail, versionApprovedMail } from './parameter-sets.mail';
+import {
+  approvedOf,
+  commentsOf,
+  emailOf,
+  findParameterSet,
+  historyOf,
+  insertComment,
+  insertParameterSet,
+  insertTransition,
+  listParameterSets,
+  nextVersion,
+  updateParameterSet,
+  type ParameterSetRow,
+} from './parameter-sets.repository';
+import { readMeasurementSetRefs, setLabel, toParameterSetDetailView, toParameterSetView } from './parameter-sets.view';
 
 const SYSTEM: MoveActor = { id: 'system', roles: [], system: true };
 
@@ -36,50 +50,6 @@ const AUDIT_ACTION: Record<Move, string> = {
   supersede: 'superseded',
   edit: 'edited',
 };
-
-export function setLabel(row: { substanceName: string; version: number; scheme: CutoffScheme; cutoffSigma: number | null; repulsiveExponent?: number }): string {
-  const cutoff = row.cutoffSigma === null ? '' : `, r_c = ${row.cutoffSigma} σ`;
-  const potential = row.repulsiveExponent !== undefined && row.repulsiveExponent !== 12 ? `, ${potentialLabel(row.repulsiveExponent)}` : '';
-  return `${row.substanceName} v${row.version} (${CUTOFF_SCHEME_LABELS[row.scheme]}${cutoff}${potential})`;
-}
-
-/** A parameter set as every list shows it. */
-export function toParameterSetSummary(row: ParameterSetRow) {
-  return {
-    id: row.id,
-    label: setLabel(row),
-    substanceId: row.substanceId,
-    substanceName: row.substanceName,
-    version: row.version,
-    scheme: row.scheme,
-    cutoffSigma: row.cutoffSigma,
-    model: row.model,
-    /** 'lj-12-6' or 'mie', with λr (12 for LJ 12-6) and the label people read ("Mie 16-6"). */
-    potential: row.potential,
-    repulsiveExponent: row.repulsiveExponent,
-    potentialLabel: potentialLabel(row.repulsiveExponent),
-    state: row.state,
-    stateLabel: STATE_LABELS[row.state],
-    epsilonK: row.epsilonK,
-    sigmaAngstrom: row.sigmaAngstrom,
-    stdErr: { epsilonK: row.epsilonStdErrK, sigmaAngstrom: row.sigmaStdErrAngstrom },
-    correlation: row.correlation,
-    validity: {
-      temperatureMinK: row.temperatureMinK,
-      temperatureMaxK: row.temperatureMaxK,
-      pressureMinMPa: row.pressureMinMpa,
-      pressureMaxMPa: row.pressureMaxMpa,
-    },
-    fitId: row.fitId,
-    fitNumber: row.fitNumber,
-    revisionOf: row.revisionOf,
-    revisedBy: row.revisedBy ?? null,
-    createdBy: row.createdBy,
-    createdByName: row.createdByName,
-    createdAt: row.createdAt,
-    updatedAt: row.updatedAt,
-  };
-}
 
 const moveActor = (user: CurrentUser): MoveActor => ({ id: user.id, roles: user.roles });
 
@@ -110,8 +80,8 @@ async function applyMove(tx: Tx, row: ParameterSetRow, move: Move, actor: Curren
   const decision = checkMove(move, await subjectOf(tx, row), actor ? moveActor(actor) : SYSTEM, { text });
   if (!decision.ok) throw new AppError(decision.status, decision.code, decision.message);
   const at = new Date().toISOString();
-  await tx.insertInto('parameterSetTransition').values({ parameterSetId: row.id, move, fromState: row.state, toState: decision.to, actorId: actor?.id ?? null, comment: text, at }).execute();
-  if (decision.to !== row.state) await tx.updateTable('parameterSet').set({ state: decision.to, updatedAt: at }).where('id', '=', row.id).execute();
+  await insertTransition(tx, { parameterSetId: row.id, move, fromState: row.state, toState: decision.to, actorId: actor?.id ?? null, comment: text, at });
+  if (decision.to !== row.state) await updateParameterSet(tx, row.id, { state: decision.to, updatedAt: at });
   const who = actor?.email ?? 'Epsigma';
   await recordAudit(tx, {
     actor,
@@ -148,14 +118,8 @@ async function dataSpan(db: Db | Tx, fit: Awaited<ReturnType<typeof usableFit>>[
   const span: Validity = { temperatureMinK: Math.min(...temps), temperatureMaxK: Math.max(...temps) };
   // Rounded where it is made (0.01 K, 0.001 MPa), outward, so the range still holds every point.
   const densityVersions = fit.measurementSets.filter((d) => d.kind === 'density').map((d) => d.versionId);
-  if (densityVersions.length) {
-    const p = await db
-      .selectFrom('measurementRow')
-      .select((eb) => [eb.fn.min('pressureMpa').as('lo'), eb.fn.max('pressureMpa').as('hi')])
-      .where('measurementSetVersionId', 'in', densityVersions)
-      .executeTakeFirst();
-    if (p?.lo != null && p?.hi != null && Number(p.lo) < Number(p.hi)) Object.assign(span, { pressureMinMPa: Number(p.lo), pressureMaxMPa: Number(p.hi) });
-  }
+  const p = await pressureSpanOfVersions(db, densityVersions);
+  if (p.lo !== null && p.hi !== null && p.lo < p.hi) Object.assign(span, { pressureMinMPa: p.lo, pressureMaxMPa: p.hi });
   return roundValidity(span);
 }
 
@@ -168,9 +132,7 @@ async function insertSet(
   const version = await nextVersion(tx, fit.substanceId, input.scheme);
   const validity = roundValidity(input.validity);
   const now = new Date().toISOString();
-  const { id } = await tx
-    .insertInto('parameterSet')
-    .values({
+  const id = await insertParameterSet(tx, {
       substanceId: fit.substanceId,
       scheme: input.scheme,
       cutoffSigma: input.cutoffSigma,
@@ -195,11 +157,9 @@ async function insertSet(
       createdBy: actor.id,
       createdAt: now,
       updatedAt: now,
-    })
-    .returning('id')
-    .executeTakeFirstOrThrow();
+  });
   const comment = input.revisionOf ? `Revision of v${input.revisionOf.version} after changes were requested` : null;
-  await tx.insertInto('parameterSetTransition').values({ parameterSetId: id, move: 'create', fromState: null, toState: 'draft', actorId: actor.id, comment, at: now }).execute();
+  await insertTransition(tx, { parameterSetId: id, move: 'create', fromState: null, toState: 'draft', actorId: actor.id, comment, at: now });
   const row = (await findParameterSet(tx, id))!;
   await recordAudit(tx, {
     actor,
@@ -207,7 +167,7 @@ async function insertSet(
     targetType: 'parameterSet',
     targetId: id,
     summary: `${actor.email} drafted ${setLabel(row)} from Fit #${fit.number}${input.revisionOf ? ` as a revision of v${input.revisionOf.version}` : ''}`,
-    after: { ...toParameterSetSummary(row), measurementSets: fit.measurementSets },
+    after: { ...toParameterSetView(row), measurementSets: fit.measurementSets },
   });
   return row;
 }
@@ -222,22 +182,22 @@ function defaultScheme(result: LjFitResult): { scheme: CutoffScheme; cutoffSigma
 }
 
 /** POST /api/parameter-sets: a draft from a succeeded fit, values frozen from its result. */
-export async function createParameterSet(ctx: AppContext, actor: CurrentUser, body: CreateParameterSetBody) {
-  const fit = await usableFit(ctx.db, body.fitId);
-  const validity = body.validity ?? (await dataSpan(ctx.db, fit.fit));
+export async function createParameterSet(db: Db, actor: CurrentUser, body: CreateParameterSetBody): Promise<ParameterSetSummary> {
+  const fit = await usableFit(db, body.fitId);
+  const validity = body.validity ?? (await dataSpan(db, fit.fit));
   const { scheme, cutoffSigma } = body.scheme ? { scheme: body.scheme, cutoffSigma: body.cutoffSigma ?? null } : defaultScheme(fit.result);
-  const row = await ctx.db.transaction().execute((tx) => insertSet(tx, actor, { fit, scheme, cutoffSigma, validity, rationale: body.rationale, revisionOf: null }));
-  return toParameterSetSummary(row);
+  const row = await db.transaction().execute((tx) => insertSet(tx, actor, { fit, scheme, cutoffSigma, validity, rationale: body.rationale, revisionOf: null }));
+  return toParameterSetView(row);
 }
 
 /** POST /api/parameter-sets/:id/revise: the set sent back stays as it is; its revision is the next version, a new draft. */
-export async function reviseParameterSet(ctx: AppContext, actor: CurrentUser, id: number, body: ReviseParameterSetBody) {
-  const before = await requireVisibleSet(ctx.db, id, actor);
+export async function reviseParameterSet(db: Db, actor: CurrentUser, id: number, body: ReviseParameterSetBody): Promise<ParameterSetSummary> {
+  const before = await requireVisibleSet(db, id, actor);
   // Role and state first, so a refused move answers 403/409 whatever the body holds.
-  const allowed = checkMove('revise', await subjectOf(ctx.db, before), moveActor(actor));
+  const allowed = checkMove('revise', await subjectOf(db, before), moveActor(actor));
   if (!allowed.ok) throw new AppError(allowed.status, allowed.code, allowed.message);
   const fitId = body.fitId ?? before.fitId;
-  const fit = await usableFit(ctx.db, fitId);
+  const fit = await usableFit(db, fitId);
   if (fit.fit.substanceId !== before.substanceId) throw new AppError(422, 'wrong_substance', `Fit #${fit.fit.number} is a fit of ${fit.fit.substanceName}, not of ${before.substanceName}.`, [{ field: 'fitId', message: 'fit of another substance' }]);
   if (fit.fit.id < before.fitId) throw new AppError(422, 'older_fit', `A revision is drafted from the same fit (#${before.fitNumber}) or a newer one.`, [{ field: 'fitId', message: 'older than the fit of the set sent back' }]);
   // Like a first draft: the scheme and cutoff the fit was made for, unless the author names them.
@@ -251,23 +211,23 @@ export async function reviseParameterSet(ctx: AppContext, actor: CurrentUser, id
     body.validity ??
     (sameFit
       ? { temperatureMinK: before.temperatureMinK, temperatureMaxK: before.temperatureMaxK, ...(before.pressureMinMpa !== null ? { pressureMinMPa: before.pressureMinMpa, pressureMaxMPa: before.pressureMaxMpa! } : {}) }
-      : await dataSpan(ctx.db, fit.fit));
-  const row = await ctx.db.transaction().execute(async (tx) => {
+      : await dataSpan(db, fit.fit));
+  const row = await db.transaction().execute(async (tx) => {
     const current = (await findParameterSet(tx, id))!;
     const version = await nextVersion(tx, current.substanceId, inherited.scheme);
     const schemeChange = inherited.scheme !== current.scheme ? ` (${CUTOFF_SCHEME_LABELS[inherited.scheme]})` : '';
     await applyMove(tx, current, 'revise', actor, `Revised as v${version}${schemeChange}`);
     return insertSet(tx, actor, { fit, scheme: inherited.scheme, cutoffSigma: inherited.cutoffSigma, validity, rationale: body.rationale, revisionOf: current });
   });
-  return toParameterSetSummary(row);
+  return toParameterSetView(row);
 }
 
 const link = (id: number) => `/parameter-sets/${id}`;
 
 /** 422 naming every measurement set (name and version) whose version behind the set has no source citation. */
-async function requireCitations(tx: Tx, refs: FitMeasurementSetRef[]) {
+async function requireCitations(tx: Tx, refs: MeasurementSetRef[]) {
   if (!refs.length) return;
-  const versions = await tx.selectFrom('measurementSetVersion').select(['id', 'source']).where('id', 'in', refs.map((r) => r.versionId)).execute();
+  const versions = await versionSources(tx, refs.map((r) => r.versionId));
   const missing = refs.filter((r) => !(versions.find((v) => v.id === r.versionId)?.source ?? '').trim());
   if (!missing.length) return;
   const names = missing.map((r) => `"${r.name}" v${r.version}`);
@@ -280,37 +240,31 @@ async function requireCitations(tx: Tx, refs: FitMeasurementSetRef[]) {
 }
 
 /** POST /api/parameter-sets/:id/submit: the author hands the draft to the reviewers. */
-export async function submitParameterSet(ctx: AppContext, actor: CurrentUser, id: number) {
-  await requireVisibleSet(ctx.db, id, actor);
-  await ctx.db.transaction().execute(async (tx) => {
+export async function submitParameterSet(db: Db, actor: CurrentUser, id: number): Promise<ParameterSetDetail> {
+  await requireVisibleSet(db, id, actor);
+  await db.transaction().execute(async (tx) => {
     const row = (await findParameterSet(tx, id))!;
     await applyMove(tx, row, 'submit', actor, null);
     // Reviewers judge the evidence by its source: every measurement set behind the values needs a citation.
     // (Checked after the move's own rules, so a refused move still answers 403/409; the throw rolls the move back.)
-    await requireCitations(tx, readStoredJson(row.measurementSetsJson) as FitMeasurementSetRef[]);
+    await requireCitations(tx, readMeasurementSetRefs(row.measurementSetsJson));
     // Everyone who may decide on it; the author and the fit's author may not, so they are left out.
     const excluded = new Set([row.createdByEmail.toLowerCase(), ((await emailOf(tx, row.fitCreatedBy)) ?? '').toLowerCase()]);
     const reviewers = (await emailsOfRole(tx, 'reviewer')).filter((e) => !excluded.has(e.toLowerCase()));
     await queueMail(tx, {
       to: reviewers,
-      subject: `In review: ${setLabel(row)}`,
-      ...mailBody([
-        `${actor.name} submitted ${setLabel(row)} for review.`,
-        `ε/k_B = ${row.epsilonK.toPrecision(6)} K, σ = ${row.sigmaAngstrom.toPrecision(6)} Å, from Fit #${row.fitNumber}.`,
-        `Rationale: ${row.rationale}`,
-        'It waits on the Review desk.',
-      ]),
+      ...submittedMail(row, actor.name),
       link: link(id),
       reason: 'parameterSet.submitted',
     });
   });
-  return getParameterSetDetail(ctx.db, id, actor);
+  return getParameterSetDetail(db, id, actor);
 }
 
 /** POST /api/parameter-sets/:id/review: approve (superseding the approved older version) or send back. */
-export async function reviewParameterSet(ctx: AppContext, actor: CurrentUser, id: number, decision: 'approve' | 'request_changes', comment: string) {
-  await requireVisibleSet(ctx.db, id, actor);
-  await ctx.db.transaction().execute(async (tx) => {
+export async function reviewParameterSet(db: Db, actor: CurrentUser, id: number, decision: 'approve' | 'request_changes', comment: string): Promise<ParameterSetDetail> {
+  await requireVisibleSet(db, id, actor);
+  await db.transaction().execute(async (tx) => {
     const row = (await findParameterSet(tx, id))!;
     await applyMove(tx, row, decision, actor, comment);
     // The author is told only while their account is active (emailOf skips deactivated people).
@@ -318,8 +272,7 @@ export async function reviewParameterSet(ctx: AppContext, actor: CurrentUser, id
     if (decision === 'request_changes') {
       await queueMail(tx, {
         to: author,
-        subject: `Changes requested: ${setLabel(row)}`,
-        ...mailBody([`${actor.name} sent ${setLabel(row)} back with this comment:`, comment, 'Draft a revision from the parameter set page.']),
+        ...changesRequestedMail(row, actor.name, comment),
         link: link(id),
         reason: 'parameterSet.changes_requested',
       });
@@ -333,41 +286,34 @@ export async function reviewParameterSet(ctx: AppContext, actor: CurrentUser, id
     }
     await queueMail(tx, {
       to: author,
-      subject: `Approved: ${setLabel(row)}`,
-      ...mailBody([`${actor.name} approved ${setLabel(row)} with this comment:`, comment]),
+      ...approvedMail(row, actor.name, comment),
       link: link(id),
       reason: 'parameterSet.approved',
     });
     await queueMail(tx, {
       to: await emailsOfFollowers(tx, row.substanceId),
-      subject: `New approved parameters: ${setLabel(row)}`,
-      ...mailBody([
-        `${setLabel(row)} was approved: ε/k_B = ${row.epsilonK.toPrecision(6)} K, σ = ${row.sigmaAngstrom.toPrecision(6)} Å, valid ${row.temperatureMinK}–${row.temperatureMaxK} K.`,
-        superseded.length ? `It supersedes ${superseded.join(', ')}.` : 'It is the first approved version for this scheme.',
-        'Fitted model parameters are not validated property data for pressure, safety or process design; defer to local codes and licensed engineering practice.',
-      ]),
+      ...versionApprovedMail(row, superseded),
       link: link(id),
       reason: 'parameterSet.version_approved',
     });
   });
-  return getParameterSetDetail(ctx.db, id, actor);
+  return getParameterSetDetail(db, id, actor);
 }
 
 /** POST /api/parameter-sets/:id/retire: an approved set is withdrawn with a reason. */
-export async function retireParameterSet(ctx: AppContext, actor: CurrentUser, id: number, reason: string) {
-  await requireVisibleSet(ctx.db, id, actor);
-  await ctx.db.transaction().execute(async (tx) => {
+export async function retireParameterSet(db: Db, actor: CurrentUser, id: number, reason: string): Promise<ParameterSetDetail> {
+  await requireVisibleSet(db, id, actor);
+  await db.transaction().execute(async (tx) => {
     const row = (await findParameterSet(tx, id))!;
     await applyMove(tx, row, 'retire', actor, reason);
     await queueMail(tx, {
       to: [...(await emailsOfFollowers(tx, row.substanceId)), (await emailOf(tx, row.createdBy)) ?? ''],
-      subject: `Retired: ${setLabel(row)}`,
-      ...mailBody([`${actor.name} retired ${setLabel(row)}. Do not use it for new work.`, `Reason: ${reason}`]),
+      ...retiredMail(row, actor.name, reason),
       link: link(id),
       reason: 'parameterSet.retired',
     });
   });
-  return getParameterSetDetail(ctx.db, id, actor);
+  return getParameterSetDetail(db, id, actor);
 }
 
 /**
@@ -384,91 +330,85 @@ export async function refuseUnlessEditable(db: Db, actor: CurrentUser, id: numbe
 }
 
 /** PATCH /api/parameter-sets/:id: rationale and validity of a draft. */
-export async function editDraft(ctx: AppContext, actor: CurrentUser, id: number, body: UpdateParameterSetBody) {
-  await ctx.db.transaction().execute(async (tx) => {
+export async function editDraft(db: Db, actor: CurrentUser, id: number, body: UpdateParameterSetBody): Promise<ParameterSetDetail> {
+  await db.transaction().execute(async (tx) => {
     const row = (await requireVisibleSet(tx, id, actor))!;
     const changed = [body.rationale !== undefined ? 'rationale' : null, body.validity ? 'validity' : null].filter(Boolean).join(' and ');
     const validity = body.validity ? roundValidity(body.validity) : null;
     await applyMove(tx, row, 'edit', actor, `Changed the ${changed}`, { summary: `${actor.email} edited the ${changed} of ${setLabel(row)}` });
-    await tx
-      .updateTable('parameterSet')
-      .set({
-        ...(body.rationale !== undefined ? { rationale: body.rationale } : {}),
-        ...(validity
-          ? { temperatureMinK: validity.temperatureMinK, temperatureMaxK: validity.temperatureMaxK, pressureMinMpa: validity.pressureMinMPa ?? null, pressureMaxMpa: validity.pressureMaxMPa ?? null }
-          : {}),
-        updatedAt: new Date().toISOString(),
-      })
-      .where('id', '=', id)
-      .execute();
+    await updateParameterSet(tx, id, {
+      ...(body.rationale !== undefined ? { rationale: body.rationale } : {}),
+      ...(validity
+        ? { temperatureMinK: validity.temperatureMinK, temperatureMaxK: validity.temperatureMaxK, pressureMinMpa: validity.pressureMinMPa ?? null, pressureMaxMpa: validity.pressureMaxMPa ?? null }
+        : {}),
+      updatedAt: new Date().toISOString(),
+    });
   });
-  return getParameterSetDetail(ctx.db, id, actor);
+  return getParameterSetDetail(db, id, actor);
 }
 
 /** POST /api/parameter-sets/:id/comments */
-export async function addComment(ctx: AppContext, actor: CurrentUser, id: number, body: string) {
-  return ctx.db.transaction().execute(async (tx) => {
+export async function addComment(db: Db, actor: CurrentUser, id: number, body: string): Promise<ParameterSetComment> {
+  return db.transaction().execute(async (tx) => {
     const row = await requireVisibleSet(tx, id, actor);
     const createdAt = new Date().toISOString();
-    const { id: commentId } = await tx.insertInto('parameterSetComment').values({ parameterSetId: id, authorId: actor.id, body, createdAt }).returning('id').executeTakeFirstOrThrow();
+    const commentId = await insertComment(tx, { parameterSetId: id, authorId: actor.id, body, createdAt });
     await recordAudit(tx, { actor, action: 'parameterSet.commented', targetType: 'parameterSet', targetId: id, summary: `${actor.email} commented on ${setLabel(row)}`, after: { commentId } });
     return { id: commentId, authorId: actor.id, authorName: actor.name, body, createdAt };
   });
 }
 
 /** GET /api/parameter-sets/:id: the set, its history and comments, its fit and data, the approved version it would replace. */
-export async function getParameterSetDetail(db: Db, id: number, viewer: CurrentUser) {
+export async function getParameterSetDetail(db: Db, id: number, viewer: CurrentUser): Promise<ParameterSetDetail> {
   const row = await requireVisibleSet(db, id, viewer);
-  const [history, comments, approved, fitRow, subject] = await Promise.all([historyOf(db, id), commentsOf(db, id), approvedOf(db, row.substanceId, row.scheme, row.potential), findFit(db, row.fitId), subjectOf(db, row)]);
-  const fit = toFitView(fitRow!);
-  const result = fit.result as LjFitResult | null;
-  const refs = readStoredJson(row.measurementSetsJson) as FitMeasurementSetRef[];
-  const versions = refs.length
-    ? await db
-        .selectFrom('measurementSetVersion')
-        .select(['id', 'source', 'doi', 'method', 'rowCount', 'sha256', 'uploadedAt'])
-        .where('id', 'in', refs.map((r) => r.versionId))
-        .execute()
-    : [];
-  const temps = result?.residuals.map((r) => r.temperatureK) ?? [];
+  const [history, comments, approved, fitRow, subject, versions] = await Promise.all([
+    historyOf(db, id),
+    commentsOf(db, id),
+    approvedOf(db, row.substanceId, row.scheme, row.potential),
+    findFit(db, row.fitId),
+    subjectOf(db, row),
+    versionSources(db, readMeasurementSetRefs(row.measurementSetsJson).map((r) => r.versionId)),
+  ]);
   const current = approved.find((a) => a.id !== row.id) ?? null;
-  return {
-    ...toParameterSetSummary(row),
-    rationale: row.rationale,
-    fit: {
-      id: fit.id,
-      number: fit.number,
-      createdBy: fit.createdBy,
-      createdByName: fit.createdByName,
-      createdAt: fit.createdAt,
-      codeVersion: fit.codeVersion,
-      quantumCorrection: !!fit.options.quantumCorrection,
-      molarMassGPerMol: fit.options.molarMassGPerMol ?? null,
-      chi2: result?.chi2 ?? null,
-      dof: result?.dof ?? null,
-      reducedChi2: result?.reducedChi2 ?? null,
-      warnings: [...(result?.warnings ?? []), ...(result?.hitBounds ?? []).map((b) => `The fit ended on the bound of ${b}.`)],
-      dataSpan: temps.length ? { temperatureMinK: Math.min(...temps), temperatureMaxK: Math.max(...temps) } : null,
-    },
-    measurementSets: refs.map((r) => {
-      const v = versions.find((x) => x.id === r.versionId);
-      return { measurementSetId: r.measurementSetId, name: r.name, kind: r.kind, version: r.version, versionId: r.versionId, weight: r.weight, source: v?.source ?? null, doi: v?.doi ?? null, method: v?.method ?? null, rowCount: v?.rowCount ?? null, sha256: v?.sha256 ?? null };
-    }),
-    history: history.map((h) => ({ id: h.id, move: h.move, fromState: h.fromState, toState: h.toState, actorId: h.actorId, actorName: h.actorName ?? (h.actorId ? null : 'Epsigma'), comment: h.comment, at: h.at })),
+  return toParameterSetDetailView({
+    row,
+    fit: fitOfSet(toFitView(fitRow!)),
+    versions,
+    history,
     comments,
-    currentApproved: current && isVisibleTo(current.state, viewer.roles) ? toParameterSetSummary(current) : null,
+    currentApproved: current && isVisibleTo(current.state, viewer.roles) ? current : null,
     allowedMoves: availableMoves(subject, moveActor(viewer)),
     canComment: hasPolicy(viewer.roles, 'parameterSet:comment'),
+  });
+}
+
+/** The fit behind a set as its page shows it: who, when, which code, and the goodness of fit. */
+function fitOfSet(fit: ReturnType<typeof toFitView>): ParameterSetDetail['fit'] {
+  const result = fit.result as LjFitResult | null;
+  const temps = result?.residuals.map((r) => r.temperatureK) ?? [];
+  return {
+    id: fit.id,
+    number: fit.number,
+    createdBy: fit.createdBy,
+    createdByName: fit.createdByName,
+    createdAt: fit.createdAt,
+    codeVersion: fit.codeVersion,
+    quantumCorrection: !!fit.options.quantumCorrection,
+    molarMassGPerMol: fit.options.molarMassGPerMol ?? null,
+    chi2: result?.chi2 ?? null,
+    dof: result?.dof ?? null,
+    reducedChi2: result?.reducedChi2 ?? null,
+    warnings: [...(result?.warnings ?? []), ...(result?.hitBounds ?? []).map((b) => `The fit ended on the bound of ${b}.`)],
+    dataSpan: temps.length ? { temperatureMinK: Math.min(...temps), temperatureMaxK: Math.max(...temps) } : null,
   };
 }
 
 /** Sets a viewer may see, by substance and/or state (consumers: published sets only). */
-export async function listVisible(db: Db, viewer: CurrentUser, filter: { substanceId?: number; states?: ParameterSetState[] }) {
+export async function listVisible(db: Db, viewer: CurrentUser, filter: { substanceId?: number; states?: ParameterSetState[] }): Promise<ParameterSetSummary[]> {
   const rows = await listParameterSets(db, filter);
-  return rows.filter((r) => isVisibleTo(r.state, viewer.roles)).map(toParameterSetSummary);
+  return rows.filter((r) => isVisibleTo(r.state, viewer.roles)).map(toParameterSetView);
 }
 
 export async function requireSubstanceExists(db: Db, substanceId: number) {
-  const s = await db.selectFrom('substance').select('id').where('id', '=', substanceId).executeTakeFirst();
-  if (!s) throw notFound(`Substance ${substanceId}`);
+  if (!(await findSubstance(db, substanceId))) throw notFound(`Substance ${substanceId}`);
 }

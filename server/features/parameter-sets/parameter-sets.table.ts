@@ -1,6 +1,6 @@
 import type { Generated } from 'kysely';
 import type { Move, ParameterSetState } from '../../../shared/parameter-sets/transitions';
-import type { CutoffScheme } from '../../../shared/schemas/parameter-sets';
+import type { CutoffScheme } from '../../../shared/physics/cutoff-schemes';
 
 /** A parameter set; every column but state, rationale, validity and updatedAt is frozen by trigger. */
 export interface ParameterSetTable {

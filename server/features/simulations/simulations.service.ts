@@ -1,35 +1,26 @@
 import { DEFAULT_ATOMS, DEFAULT_CUTOFF, DEFAULT_NPT_STEPS, DEFAULT_SEED, DEFAULT_TIMESTEP, type NptOptions } from '../../../shared/physics/md/npt';
 import { reducedStateOf } from '../../../shared/physics/corresponding-states';
 import type { CreateSimulationBody, MdSettings, SimulationsFromMeasurementSetBody } from '../../../shared/schemas/simulations';
-import { CUTOFF_SCHEME_LABELS, type CutoffScheme } from '../../../shared/schemas/parameter-sets';
-import type { AppContext } from '../../app-context';
+import { CUTOFF_SCHEME_LABELS, type CutoffScheme } from '../../../shared/physics/cutoff-schemes';
 import type { CurrentUser } from '../../common/auth-middleware';
 import { AppError, notFound } from '../../common/errors';
 import type { Db } from '../../db/database';
-import type { JobKind, JobView } from '../../jobs/job-runner';
-import { toJobView } from '../../jobs/job-runner';
+import type { JobKind, JobQueue } from '../../jobs/job-runner';
+import type { SimulationInput, SimulationOrigin } from '../../../shared/contracts/simulation';
 import { recordAudit } from '../audit/audit.service';
-import { findMeasurementSet, findVersionRow, rowsOfVersion } from '../measurement-sets/measurement-sets.repository';
+import { findMeasurementSet, findVersionRow, latestVersionNumber, rowsOfVersion } from '../measurement-sets/measurement-sets.repository';
 import { storeSimulationFrames } from './simulation-frames';
-import { readStoredJson } from '../../../shared/schemas/old-names';
+import { listSimulationJobs } from './simulations.repository';
+import { toSimulationView } from './simulations.view';
 
-/** Where a run came from, when a modeller started it from a measured density. */
-export interface SimulationOrigin {
-  substanceId: number;
-  measurementSetId: number;
-  version: number;
-  fileRow: number;
-  temperatureK: number;
-  pressureMPa: number;
-  densityKgPerM3: number;
-  epsilonK: number;
-  sigmaAngstrom: number;
+/** What starting runs uses: the database (audit, measurement sets) and the job queue. */
+export interface SimulationDeps {
+  db: Db;
+  jobs: JobQueue;
 }
 
-export interface SimulationInput {
-  state: Required<Pick<NptOptions, 'reducedTemperature' | 'reducedPressure' | 'atoms' | 'steps' | 'cutoff' | 'scheme' | 'timestep' | 'seed'>>;
-  origin?: SimulationOrigin;
-}
+// The stored input of a simulation job is part of its contract (shared/contracts/simulation.ts).
+export type { SimulationInput, SimulationOrigin } from '../../../shared/contracts/simulation';
 
 /** Every setting that changes the trajectory, with defaults filled in, so equal requests have equal keys. */
 export function normaliseState(state: { reducedTemperature: number; reducedPressure: number } & MdSettings): SimulationInput['state'] {
@@ -54,7 +45,7 @@ export const simulationJobKind: JobKind = {
   storeResult: storeSimulationFrames,
 };
 
-export async function createSimulation(ctx: AppContext, actor: CurrentUser, body: CreateSimulationBody, origin?: SimulationOrigin) {
+export async function createSimulation(ctx: SimulationDeps, actor: CurrentUser, body: CreateSimulationBody, origin?: SimulationOrigin) {
   const state = normaliseState(body);
   const input: SimulationInput = { state, ...(origin ? { origin } : {}) };
   const job = await ctx.jobs.enqueue({ kind: 'simulation', input, seed: state.seed, cacheKey: simulationCacheKey(state), createdBy: actor.id });
@@ -65,11 +56,11 @@ export async function createSimulation(ctx: AppContext, actor: CurrentUser, body
 }
 
 /** Maps measured density rows to reduced states with trial ε, σ and queues one run per row. */
-export async function createSimulationsFromMeasurementSet(ctx: AppContext, actor: CurrentUser, body: SimulationsFromMeasurementSetBody) {
+export async function createSimulationsFromMeasurementSet(ctx: SimulationDeps, actor: CurrentUser, body: SimulationsFromMeasurementSetBody) {
   const measurementSet = await findMeasurementSet(ctx.db, body.measurementSetId);
   if (!measurementSet) throw notFound(`Measurement set ${body.measurementSetId}`);
   if (measurementSet.kind !== 'density') throw new AppError(422, 'not_density', `Simulations start from density sets; "${measurementSet.name}" holds ${measurementSet.kind}.`, [{ field: 'measurementSetId', message: 'not a density set' }]);
-  const version = body.version ?? (await ctx.db.selectFrom('measurementSetVersion').select((eb) => eb.fn.max('version').as('v')).where('measurementSetId', '=', measurementSet.id).executeTakeFirstOrThrow()).v;
+  const version = body.version ?? (await latestVersionNumber(ctx.db, measurementSet.id));
   const versionRow = await findVersionRow(ctx.db, measurementSet.id, Number(version));
   if (!versionRow) throw notFound(`Version ${version} of measurement set ${measurementSet.id}`);
   const rows = await rowsOfVersion(ctx.db, versionRow.id);
@@ -89,15 +80,5 @@ export async function createSimulationsFromMeasurementSet(ctx: AppContext, actor
 }
 
 export async function listSimulations(db: Db, limit = 200) {
-  const rows = await db.selectFrom('job').selectAll().where('kind', '=', 'simulation').orderBy('id', 'desc').limit(limit).execute();
-  return rows.map((row) => toSimulationView(row, { withTrace: false }));
-}
-
-export function toSimulationView(row: Parameters<typeof toJobView>[0] & { inputJson: string }, { withTrace }: { withTrace: boolean }) {
-  const job: JobView = toJobView(row);
-  const input = readStoredJson(row.inputJson) as SimulationInput;
-  const result = job.result as (Record<string, unknown> & { trace?: unknown }) | null;
-  // Frames (base64) are for reweighting and live in simulation_frames; they are never part of a view.
-  const { trace, frames: _frames, ...summary } = (result ?? {}) as Record<string, unknown> & { trace?: unknown; frames?: unknown };
-  return { ...job, result: undefined, state: input.state, origin: input.origin ?? null, summary: result ? summary : null, trace: withTrace && result ? trace : undefined };
+  return (await listSimulationJobs(db, limit)).map((row) => toSimulationView(row, { withTrace: false }));
 }

@@ -24,7 +24,9 @@ import { assignVelocities } from './velocities';
 import { csvrScaleFactor } from './thermostat';
 import { globalQ6, localDensityStats, type BondOrder } from './order-parameter';
 
-export type CutoffScheme = 'truncated-tail' | 'truncated-shifted';
+import type { SimulationCutoffScheme } from '../cutoff-schemes';
+
+export type { SimulationCutoffScheme };
 
 export interface EnsembleSettings {
   atoms: number;
@@ -33,7 +35,7 @@ export interface EnsembleSettings {
   reducedPressure: number | null;
   initialDensity: number;
   cutoff: number;
-  scheme: CutoffScheme;
+  scheme: SimulationCutoffScheme;
   skin: number;
   timestep: number;
   seed: number;

@@ -9,7 +9,8 @@
  *   ∂⟨ρ⟩/∂P |_T = −β Cov(ρ, V) ⇒ (∂⟨ρ⟩/∂P)_T = −Cov(ρ, V)/T.
  * Standard errors from the statistical inefficiency of the product series (statistics.ts).
  */
-import { Ensemble, SampleSeries, type CutoffScheme } from './ensemble';
+import { SIMULATION_CUTOFF_SCHEMES, type SimulationCutoffScheme } from '../cutoff-schemes';
+import { Ensemble, SampleSeries } from './ensemble';
 import { guessReducedDensity } from './density-guess';
 import { classifyPhase, type Phase } from './order-parameter';
 import { blockingStdErr, detectEquilibration, estimateCovariance, estimateMean, slope, statisticalInefficiency } from './statistics';
@@ -17,7 +18,6 @@ import { requireInteger, requireNumber } from './validate';
 import { encodeFloat64, type RunFrames } from './frames';
 import { ljRegionOf } from '../eos/lj-freezing';
 
-export type { CutoffScheme } from './ensemble';
 
 /**
  * Default total MD steps (20 % barostat tuning + production): at N = 500 a liquid density comes out with a standard
@@ -68,7 +68,7 @@ export interface NptOptions {
   /** rc/σ, 2 … 4; default 2.5. */
   cutoff?: number;
   /** Default 'truncated-tail'. */
-  scheme?: CutoffScheme;
+  scheme?: SimulationCutoffScheme;
   /** dt/τ, default 0.005. */
   timestep?: number;
   /** RNG seed (unsigned 32-bit), default 1. */
@@ -145,7 +145,7 @@ export interface NptResult {
     atoms: number;
     steps: number;
     cutoff: number;
-    scheme: CutoffScheme;
+    scheme: SimulationCutoffScheme;
     timestep: number;
     seed: number;
     skin: number;
@@ -191,13 +191,11 @@ export interface NptResult {
 
 export type ProgressCallback = (p: { fraction: number; stage: string }) => void;
 
-export const CUTOFF_SCHEMES: readonly CutoffScheme[] = ['truncated-tail', 'truncated-shifted'];
-
-export function validateScheme(scheme: unknown): CutoffScheme {
-  if (!CUTOFF_SCHEMES.includes(scheme as CutoffScheme)) {
-    throw new RangeError(`scheme must be one of ${CUTOFF_SCHEMES.join(', ')}, got ${String(scheme)}`);
+export function validateScheme(scheme: unknown): SimulationCutoffScheme {
+  if (!SIMULATION_CUTOFF_SCHEMES.includes(scheme as SimulationCutoffScheme)) {
+    throw new RangeError(`scheme must be one of ${SIMULATION_CUTOFF_SCHEMES.join(', ')}, got ${String(scheme)}`);
   }
-  return scheme as CutoffScheme;
+  return scheme as SimulationCutoffScheme;
 }
 
 export function decimatedTrace(series: SampleSeries): MdTrace {

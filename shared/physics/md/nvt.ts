@@ -2,7 +2,8 @@
  * Canonical (NVT) MD with the CSVR thermostat (Bussi, Donadio & Parrinello 2007), for comparisons with
  * published NVT data (NIST SRSW) and for checks of the canonical kinetic-energy distribution.
  */
-import { Ensemble, SampleSeries, type CutoffScheme } from './ensemble';
+import type { SimulationCutoffScheme } from '../cutoff-schemes';
+import { Ensemble, SampleSeries } from './ensemble';
 import { detectEquilibration, estimateCovariance, estimateMean } from './statistics';
 import { requireInteger, requireNumber } from './validate';
 import {
@@ -35,7 +36,7 @@ export interface NvtOptions {
   /** Default 2.5. */
   cutoff?: number;
   /** Default 'truncated-tail'. */
-  scheme?: CutoffScheme;
+  scheme?: SimulationCutoffScheme;
   /** Default 0.005. */
   timestep?: number;
   /** Default 1. */
@@ -63,7 +64,7 @@ export interface NvtResult {
   kineticEnergyVarianceCanonical: number;
   phase: Phase;
   orderParameter: PhaseCheck;
-  settings: { reducedTemperature: number; atoms: number; steps: number; cutoff: number; scheme: CutoffScheme; timestep: number; seed: number; thermostatTau: number };
+  settings: { reducedTemperature: number; atoms: number; steps: number; cutoff: number; scheme: SimulationCutoffScheme; timestep: number; seed: number; thermostatTau: number };
   diagnostics: { equilibrationSample: number; productionSamples: number; statisticalInefficiency: number; listBuilds: number; wallSeconds: number };
   trace: MdTrace;
 }

@@ -1,6 +1,6 @@
 import { Link, useSearchParams } from 'react-router-dom';
 import { PROPERTY_KIND_IDS, type PropertyKind } from '@shared/measurements/property-kinds';
-import { CUTOFF_SCHEMES, type CutoffScheme } from '@shared/schemas/parameter-sets';
+import { CUTOFF_SCHEMES, type CutoffScheme } from '@shared/physics/cutoff-schemes';
 import { EmptyState, ErrorState, LoadingState, PageHeader, Panel } from '@/components/ui/states';
 import { UnitSwitch } from '@/components/ui/unit-switch';
 import { catalogSearch, useCatalog, usePreferences, useUpdatePreferences, type CatalogFilters } from '@/features/catalog/api/catalog';

@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import { formatWithUncertainty } from '@shared/format/numbers';
-import { CUTOFF_SCHEME_LABELS } from '@shared/schemas/parameter-sets';
+import { CUTOFF_SCHEME_LABELS } from '@shared/physics/cutoff-schemes';
 import { Button } from '@/components/ui/button';
 import { Field, Input, Select } from '@/components/ui/field';
 import { ProgressBar } from '@/components/ui/progress-bar';
@@ -11,6 +11,7 @@ import { FitStatusBadge } from '@/features/fits/components/fit-status-badge';
 import { SIMULATION_LIMITS } from '@shared/schemas/simulations';
 import { useQueueState, useSimulations, useStartSimulation } from '@/features/simulations/api/simulations';
 import { PhaseBadge } from '@/features/simulations/components/phase-badge';
+import type { SimulationCutoffScheme } from '@shared/physics/cutoff-schemes';
 
 /** What became of the run just started, kept current from the polled list (queued → running → finished). */
 function StartedNotice({ id, reused }: { id: number; reused: boolean }) {
@@ -33,7 +34,7 @@ function StartForm() {
   const [p, setP] = useState('0.5');
   const [atoms, setAtoms] = useState('500');
   const [steps, setSteps] = useState('20000');
-  const [scheme, setScheme] = useState<'truncated-tail' | 'truncated-shifted'>('truncated-tail');
+  const [scheme, setScheme] = useState<SimulationCutoffScheme>('truncated-tail');
   const [cutoff, setCutoff] = useState('2.5');
   const atomSteps = Number(atoms) * Number(steps);
   const tooMuch = Number.isFinite(atomSteps) && atomSteps > SIMULATION_LIMITS.maxAtomSteps;

@@ -2,7 +2,7 @@ import { keepPreviousData, queryOptions, useMutation, useQuery, useQueryClient }
 import type { CombiningRule } from '@shared/mixing/combining-rules';
 import type { PropertyKind } from '@shared/measurements/property-kinds';
 import type { ParameterSetState } from '@shared/parameter-sets/transitions';
-import type { CutoffScheme } from '@shared/schemas/parameter-sets';
+import type { CutoffScheme } from '@shared/physics/cutoff-schemes';
 import type { Preferences, UpdatePreferencesBody } from '@shared/schemas/catalog';
 import { api } from '@/lib/api-client';
 

@@ -1,5 +1,5 @@
 import { PROPERTY_KIND_IDS, type PropertyKind } from '@shared/measurements/property-kinds';
-import { CUTOFF_SCHEME_LABELS, CUTOFF_SCHEMES, type CutoffScheme } from '@shared/schemas/parameter-sets';
+import { CUTOFF_SCHEME_LABELS, CUTOFF_SCHEMES, type CutoffScheme } from '@shared/physics/cutoff-schemes';
 import { KindBadge } from '@/components/ui/badge';
 import { Field, Input, Select } from '@/components/ui/field';
 import type { CatalogFilters } from '../api/catalog';

@@ -1,5 +1,5 @@
 import type { EnergyUnit, LengthUnit } from '@shared/physics/parameter-units';
-import { CUTOFF_SCHEME_LABELS } from '@shared/schemas/parameter-sets';
+import { CUTOFF_SCHEME_LABELS } from '@shared/physics/cutoff-schemes';
 import type { ParameterCard } from '../api/catalog';
 import { epsilonHeader, epsilonText, sigmaHeader, sigmaText, temperatureRangeText, bound } from './unit-text';
 

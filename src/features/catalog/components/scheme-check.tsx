@@ -1,4 +1,4 @@
-import { CUTOFF_SCHEME_LABELS, CUTOFF_SCHEMES, type CutoffScheme } from '@shared/schemas/parameter-sets';
+import { CUTOFF_SCHEME_LABELS, CUTOFF_SCHEMES, type CutoffScheme } from '@shared/physics/cutoff-schemes';
 import { Select } from '@/components/ui/field';
 
 /**

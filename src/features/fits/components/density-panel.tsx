@@ -5,7 +5,7 @@ import type { LjFitResult, LjResidual } from '@shared/fitting/lj-fit';
 import { summarise } from '@shared/fitting/posterior';
 import { PROPERTY_MODELS } from '@shared/fitting/property-models';
 import { formatSignificant, formatWithUncertainty } from '@shared/format/numbers';
-import { CUTOFF_SCHEME_LABELS, type CutoffScheme } from '@shared/schemas/parameter-sets';
+import { CUTOFF_SCHEME_LABELS, type CutoffScheme } from '@shared/physics/cutoff-schemes';
 import { PropertyChart, type ChartSeries } from '@/components/charts/property-chart';
 import { Badge } from '@/components/ui/badge';
 import { isLeftOut, RESIDUAL_AXIS_TITLE, type CurveParameters } from './fit-curves';

@@ -10,6 +10,7 @@ import {
 } from '@shared/fitting/fit-defaults';
 import type { PropertyKind } from '@shared/measurements/property-kinds';
 import { createFitBody, type CreateFitBody } from '@shared/schemas/fits';
+import type { SimulationCutoffScheme } from '@shared/physics/cutoff-schemes';
 
 /** A measurement set as the fit form offers it (the page passes its substance's sets). */
 export interface FitSetChoice {
@@ -55,7 +56,7 @@ export interface FitFormValues {
     start: { epsilonK: string; sigmaAngstrom: string };
     posteriorOn: boolean;
     posterior: { samples: string; seed: string; priorSetId: string };
-    density: { atoms: string; steps: string; cutoff: string; scheme: 'truncated-tail' | 'truncated-shifted' };
+    density: { atoms: string; steps: string; cutoff: string; scheme: SimulationCutoffScheme };
   };
 }
 

@@ -1,7 +1,8 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { PropertyKind } from '@shared/measurements/property-kinds';
 import type { Move, ParameterSetState } from '@shared/parameter-sets/transitions';
-import type { CreateParameterSetBody, CutoffScheme, ReviseParameterSetBody, UpdateParameterSetBody } from '@shared/schemas/parameter-sets';
+import type { CutoffScheme } from '@shared/physics/cutoff-schemes';
+import type { CreateParameterSetBody, ReviseParameterSetBody, UpdateParameterSetBody } from '@shared/schemas/parameter-sets';
 import { api } from '@/lib/api-client';
 
 export interface ParameterSetSummary {

@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { STATE_LABELS } from '@shared/parameter-sets/transitions';
-import { CUTOFF_SCHEME_LABELS, CUTOFF_SCHEMES, CUTOFF_SIGMA_RANGE, type CutoffScheme } from '@shared/schemas/parameter-sets';
+import { CUTOFF_SCHEME_LABELS, CUTOFF_SCHEMES, type CutoffScheme } from '@shared/physics/cutoff-schemes';
+import { CUTOFF_SIGMA_RANGE } from '@shared/schemas/parameter-sets';
 import { Button } from '@/components/ui/button';
 import { Field, Input, Select, TextArea } from '@/components/ui/field';
 import {

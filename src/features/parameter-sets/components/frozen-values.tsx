@@ -1,5 +1,5 @@
 import { formatWithUncertainty } from '@shared/format/numbers';
-import { CUTOFF_SCHEME_LABELS } from '@shared/schemas/parameter-sets';
+import { CUTOFF_SCHEME_LABELS } from '@shared/physics/cutoff-schemes';
 import type { ParameterSetSummary } from '../api/parameter-sets';
 
 export const schemeText = (s: Pick<ParameterSetSummary, 'scheme' | 'cutoffSigma'>) => `${CUTOFF_SCHEME_LABELS[s.scheme]}${s.cutoffSigma !== null ? `, r_c = ${s.cutoffSigma} σ` : ''}`;

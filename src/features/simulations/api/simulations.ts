@@ -1,6 +1,7 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { CreateSimulationBody, SimulationsFromMeasurementSetBody } from '@shared/schemas/simulations';
 import { api } from '@/lib/api-client';
+import type { SimulationCutoffScheme } from '@shared/physics/cutoff-schemes';
 
 export type JobStatus = 'queued' | 'running' | 'succeeded' | 'failed' | 'cancelled';
 
@@ -10,7 +11,7 @@ export interface SimulationState {
   atoms: number;
   steps: number;
   cutoff: number;
-  scheme: 'truncated-tail' | 'truncated-shifted';
+  scheme: SimulationCutoffScheme;
   timestep: number;
   seed: number;
 }
