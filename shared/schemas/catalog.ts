@@ -1,11 +1,10 @@
 /**
- * zod schemas of the catalog, export, mixture, preference and token API, shared by the server (request
+ * zod schemas of the catalog, export, mixture and prediction API, shared by the server (request
  * validation, OpenAPI document) and the client. Units in names: K for ε/k_B and temperatures, Å for σ.
  */
 import { z } from 'zod';
 import { COMBINING_RULES } from '../mixing/combining-rules';
 import { PROPERTY_KIND_IDS } from '../measurements/property-kinds';
-import { ENERGY_UNITS, LENGTH_UNITS } from '../physics/parameter-units';
 import { EXPORT_FORMATS } from '../export/parameter-set-export';
 import { CUTOFF_SCHEMES } from '../physics/cutoff-schemes';
 
@@ -79,31 +78,3 @@ export const mixtureQuery = z
   })
   .strict();
 export type MixtureQuery = z.infer<typeof mixtureQuery>;
-
-/** What the user last picked on the parameter card; remembered per user on the server. */
-export const preferencesSchema = z
-  .object({
-    energyUnit: z.enum(ENERGY_UNITS, { error: `energyUnit must be one of ${ENERGY_UNITS.join(', ')}` }),
-    lengthUnit: z.enum(LENGTH_UNITS, { error: `lengthUnit must be one of ${LENGTH_UNITS.join(', ')}` }),
-    /** The cutoff scheme the user's simulations use ("my simulation uses"); absent when not said. */
-    scheme: z.enum(CUTOFF_SCHEMES, { error: `scheme must be one of ${CUTOFF_SCHEMES.join(', ')}` }).optional(),
-  })
-  .strict();
-export type Preferences = z.infer<typeof preferencesSchema>;
-export const DEFAULT_PREFERENCES: Preferences = { energyUnit: 'K', lengthUnit: 'Å' };
-
-/** PUT /api/me/preferences — any subset; `scheme: null` forgets the scheme. */
-export const updatePreferencesBody = z
-  .object({
-    energyUnit: preferencesSchema.shape.energyUnit.optional(),
-    lengthUnit: preferencesSchema.shape.lengthUnit.optional(),
-    scheme: preferencesSchema.shape.scheme.unwrap().nullable().optional(),
-  })
-  .strict()
-  .refine((v) => Object.keys(v).length > 0, { message: 'give at least one of energyUnit, lengthUnit, scheme' });
-export type UpdatePreferencesBody = z.infer<typeof updatePreferencesBody>;
-
-/** POST /api/tokens */
-export const createTokenBody = z
-  .object({ name: z.string({ error: 'give the token a name' }).trim().min(1, 'give the token a name').max(80, 'at most 80 characters') })
-  .strict();

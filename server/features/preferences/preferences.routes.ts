@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { DEFAULT_PREFERENCES, preferencesSchema, updatePreferencesBody, type Preferences } from '../../../shared/schemas/catalog';
+import { DEFAULT_PREFERENCES, preferencesSchema, updatePreferencesBody, type Preferences } from '../../../shared/schemas/preferences';
 import type { AppContext } from '../../app-context';
 import { currentUser, requireUser } from '../../common/auth-middleware';
 import { validBody } from '../../common/validate';

@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { createTokenBody } from '../../../shared/schemas/catalog';
+import { createTokenBody } from '../../../shared/schemas/tokens';
 import type { AppContext } from '../../app-context';
 import { currentUser, requirePolicy } from '../../common/auth-middleware';
 import { idParams, validBody, validParams } from '../../common/validate';

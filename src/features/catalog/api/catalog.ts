@@ -3,7 +3,7 @@ import type { CombiningRule } from '@shared/mixing/combining-rules';
 import type { PropertyKind } from '@shared/measurements/property-kinds';
 import type { ParameterSetState } from '@shared/parameter-sets/transitions';
 import type { CutoffScheme } from '@shared/physics/cutoff-schemes';
-import type { Preferences, UpdatePreferencesBody } from '@shared/schemas/catalog';
+import type { Preferences, UpdatePreferencesBody } from '@shared/schemas/preferences';
 import { api } from '@/lib/api-client';
 
 export interface CatalogEntry {

@@ -1,8 +1,13 @@
+import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import type { z } from 'zod';
 import { formatDateTime } from '@shared/format/dates';
+import { createTokenBody } from '@shared/schemas/tokens';
 import { Button } from '@/components/ui/button';
 import { Field, Input } from '@/components/ui/field';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
+import { invalidProps, sameNames, useServerFieldErrors } from '@/lib/forms';
 import { useCreateToken, useMyTokens, useRevokeToken, type ApiToken } from '../api/tokens';
 
 const when = (iso: string | null) => (iso ? formatDateTime(iso) : '—');
@@ -54,30 +59,31 @@ function TokenRow({ token }: { token: ApiToken }) {
 export function TokenPanel() {
   const tokens = useMyTokens();
   const create = useCreateToken();
-  const [name, setName] = useState('');
   const [shown, setShown] = useState<{ name: string; secret: string } | null>(null);
-  const nameError = create.error && 'details' in create.error ? (create.error as { details?: { field?: string; message: string }[] }).details?.find((d) => d.field === 'name')?.message : undefined;
+  const form = useForm<z.input<typeof createTokenBody>, unknown, z.output<typeof createTokenBody>>({
+    resolver: zodResolver(createTokenBody),
+    defaultValues: { name: '' },
+  });
+  useServerFieldErrors(create.error, form.setError, sameNames(['name']));
+  const nameError = form.formState.errors.name?.message;
   return (
     <div className="grid gap-5">
       <form
+        noValidate
         className="flex flex-wrap items-end gap-3"
-        onSubmit={(e) => {
-          e.preventDefault();
-          create.mutate(
-            { name },
-            {
-              onSuccess: (t) => {
-                setShown({ name: t.name, secret: t.token });
-                setName('');
-                create.reset(); // the secret stays in this component only
-              },
+        onSubmit={form.handleSubmit((body) =>
+          create.mutate(body, {
+            onSuccess: (t) => {
+              setShown({ name: t.name, secret: t.token });
+              form.reset();
+              create.reset(); // the secret stays in this component only
             },
-          );
-        }}
+          }),
+        )}
       >
         <div className="min-w-64 flex-1">
           <Field label="Token name" htmlFor="token-name" hint="What will use it, e.g. “nightly setup script”." error={nameError}>
-            <Input id="token-name" value={name} maxLength={80} onChange={(e) => setName(e.target.value)} />
+            <Input id="token-name" maxLength={80} {...invalidProps('token-name', nameError)} {...form.register('name')} />
           </Field>
         </div>
         <Button type="submit" variant="primary" busy={create.isPending}>Create token</Button>
