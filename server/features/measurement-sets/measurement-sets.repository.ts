@@ -1,4 +1,6 @@
+import type { Insertable } from 'kysely';
 import type { Db, Tx } from '../../db/database';
+import type { MeasurementRowTable, MeasurementSetTable, MeasurementSetVersionTable } from './measurement-sets.table';
 
 const VERSION_COLUMNS = [
   'measurementSetVersion.id',
@@ -84,4 +86,43 @@ export async function listMeasurementSetsOfSubstance(db: Db | Tx, substanceId?: 
     );
   if (substanceId !== undefined) q = q.where('measurementSet.substanceId', '=', substanceId);
   return q.orderBy('measurementSet.kind').orderBy('measurementSet.name').execute();
+}
+
+export async function insertWithdrawal(tx: Tx, values: { measurementSetId: number; withdrawnBy: string; withdrawnAt: string; reason: string }) {
+  await tx.insertInto('measurementSetWithdrawal').values(values).execute();
+}
+
+/** The display name of a person (an author named in a refusal). */
+export async function personName(db: Db | Tx, personId: string): Promise<string | undefined> {
+  return (await db.selectFrom('user').select('name').where('id', '=', personId).executeTakeFirst())?.name;
+}
+
+export async function insertMeasurementSet(tx: Tx, values: Insertable<MeasurementSetTable>): Promise<number> {
+  return (await tx.insertInto('measurementSet').values(values).returning('id').executeTakeFirstOrThrow()).id;
+}
+
+export async function insertVersion(tx: Tx, values: Insertable<MeasurementSetVersionTable>): Promise<number> {
+  return (await tx.insertInto('measurementSetVersion').values(values).returning('id').executeTakeFirstOrThrow()).id;
+}
+
+/** Inserts in chunks: SQLite limits bound parameters per statement. */
+export async function insertRows(tx: Tx, values: Insertable<MeasurementRowTable>[]) {
+  for (let i = 0; i < values.length; i += 200) await tx.insertInto('measurementRow').values(values.slice(i, i + 200)).execute();
+}
+
+/** Source, citation and checksum of measurement set versions, by version id (the data behind a fit or a parameter set). */
+export async function versionSources(db: Db | Tx, versionIds: readonly number[]) {
+  if (!versionIds.length) return [];
+  return db.selectFrom('measurementSetVersion').select(['id', 'source', 'doi', 'method', 'rowCount', 'sha256']).where('id', 'in', [...versionIds]).execute();
+}
+
+/** Lowest and highest pressure (MPa) among the rows of some versions; null when none has a pressure. */
+export async function pressureSpanOfVersions(db: Db | Tx, versionIds: readonly number[]): Promise<{ lo: number | null; hi: number | null }> {
+  if (!versionIds.length) return { lo: null, hi: null };
+  const p = await db
+    .selectFrom('measurementRow')
+    .select((eb) => [eb.fn.min('pressureMpa').as('lo'), eb.fn.max('pressureMpa').as('hi')])
+    .where('measurementSetVersionId', 'in', [...versionIds])
+    .executeTakeFirst();
+  return { lo: p?.lo != null ? Number(p.lo) : null, hi: p?.hi != null ? Number(p.hi) : null };
 }

@@ -2,36 +2,21 @@ import { Router, type RequestHandler } from 'express';
 import multer from 'multer';
 import { z } from 'zod';
 import { measurementSetUploadFields, measurementSetVersionFields } from '../../../shared/schemas/measurements';
-import { PROPERTY_KINDS, type PropertyKind } from '../../../shared/measurements/property-kinds';
+import { measurementSetDetailView, measurementSetListView, measurementSetUploadView, measurementSetWithdrawView } from '../../../shared/contracts/measurement-set';
 import { hasPolicy, mayChangeWorkOf, refusalMessage } from '../../../shared/auth/roles';
 import { currentUser, requirePolicy, requireUser } from '../../common/auth-middleware';
 import { AppError, badRequest, conflict, forbidden, notFound } from '../../common/errors';
+import { sendView } from '../../common/respond';
 import { idParams, validBody, validParams, validQuery } from '../../common/validate';
 import type { AppContext } from '../../app-context';
 import { recordAudit } from '../audit/audit.service';
 import { findSubstance } from '../substances/substances.repository';
-import { findMeasurementSet, findVersionRow, listMeasurementSetsOfSubstance, listVersions, rowsOfVersion } from './measurement-sets.repository';
-import { parseUpload, storeVersion, toApiRow, type UploadedFile } from './measurement-sets.service';
+import { findMeasurementSet, findVersionRow, insertWithdrawal, listMeasurementSetsOfSubstance, listVersions, personName, rowsOfVersion } from './measurement-sets.repository';
+import { parseUpload, storeVersion, type UploadedFile } from './measurement-sets.service';
+import { toMeasurementSetDetailView, toMeasurementSetSummaryView } from './measurement-sets.view';
 
 /** Upload limit: 2 MiB is far above any real table of state points (5000 rows ≈ 200 kB). */
 export const UPLOAD_LIMIT_BYTES = 2 * 1024 * 1024;
-
-export const toMeasurementSetSummary = (d: Awaited<ReturnType<typeof listMeasurementSetsOfSubstance>>[number]) => ({
-  id: d.id,
-  substanceId: d.substanceId,
-  substanceName: d.substanceName,
-  kind: d.kind,
-  kindLabel: PROPERTY_KINDS[d.kind].label,
-  name: d.name,
-  version: d.version,
-  versionId: d.versionId,
-  rowCount: d.rowCount,
-  source: d.source,
-  doi: d.doi,
-  sha256: d.sha256,
-  uploadedAt: d.uploadedAt,
-  withdrawn: d.withdrawnAt !== null,
-});
 
 const upload = multer({
   storage: multer.memoryStorage(),
@@ -80,7 +65,7 @@ export function measurementSetRoutes(ctx: AppContext): Router {
 
   router.get('/measurement-sets', requirePolicy('measurement-set:read'), async (req, res) => {
     const { substanceId } = validQuery(listQuery, req);
-    res.json({ measurementSets: (await listMeasurementSetsOfSubstance(db, substanceId)).map(toMeasurementSetSummary) });
+    sendView(res, measurementSetListView, { measurementSets: (await listMeasurementSetsOfSubstance(db, substanceId)).map(toMeasurementSetSummaryView) });
   });
 
   router.post('/measurement-sets', requirePolicy('measurement-set:upload'), singleCsv, async (req, res) => {
@@ -93,7 +78,7 @@ export function measurementSetRoutes(ctx: AppContext): Router {
     const stored = await db.transaction().execute((tx) =>
       storeVersion(tx, { newMeasurementSet: { substanceId: substance.id, kind: fields.kind, name: fields.name }, file, fields, parsed, actor }),
     );
-    res.status(201).json({ ...stored, warnings: [...parsed.warnings.map((w) => w.message), ...citationWarnings(fields.source)] });
+    sendView(res, measurementSetUploadView, { ...stored, warnings: [...parsed.warnings.map((w) => w.message), ...citationWarnings(fields.source)] }, 201);
   });
 
   /**
@@ -107,8 +92,8 @@ export function measurementSetRoutes(ctx: AppContext): Router {
     const measurementSet = await findMeasurementSet(db, id);
     if (!measurementSet) throw notFound(`Measurement set ${id}`);
     if (!mayChangeWorkOf(actor, measurementSet.createdBy, 'measurement-set:upload')) {
-      const author = await db.selectFrom('user').select('name').where('id', '=', measurementSet.createdBy).executeTakeFirst();
-      throw new AppError(403, 'not_author', `Only the author of measurement set "${measurementSet.name}" (${author?.name ?? 'unknown'}) or an admin may change it.`);
+      const author = await personName(db, measurementSet.createdBy);
+      throw new AppError(403, 'not_author', `Only the author of measurement set "${measurementSet.name}" (${author ?? 'unknown'}) or an admin may change it.`);
     }
     next();
   };
@@ -124,7 +109,7 @@ export function measurementSetRoutes(ctx: AppContext): Router {
     const substance = await findSubstance(db, measurementSet.substanceId);
     const parsed = parseUpload(file, measurementSet.kind, fields, substance!.molarMassGramsPerMol);
     const stored = await db.transaction().execute((tx) => storeVersion(tx, { measurementSetId: id, file, fields, parsed, actor }));
-    res.status(201).json({ ...stored, warnings: [...parsed.warnings.map((w) => w.message), ...citationWarnings(fields.source)] });
+    sendView(res, measurementSetUploadView, { ...stored, warnings: [...parsed.warnings.map((w) => w.message), ...citationWarnings(fields.source)] }, 201);
   });
 
   router.get('/measurement-sets/:id', requirePolicy('measurement-set:read'), async (req, res) => {
@@ -137,37 +122,7 @@ export function measurementSetRoutes(ctx: AppContext): Router {
     if (!chosen) throw notFound(`Version ${wanted} of measurement set ${id}`);
     const rows = await rowsOfVersion(db, chosen.id);
     const substance = await findSubstance(db, measurementSet.substanceId);
-    const kind = measurementSet.kind as PropertyKind;
-    const def = PROPERTY_KINDS[kind];
-    res.json({
-      id: measurementSet.id,
-      name: measurementSet.name,
-      substanceId: measurementSet.substanceId,
-      substanceName: substance?.name,
-      kind,
-      kindLabel: def.label,
-      valueField: def.valueField,
-      uncertaintyField: def.uncertaintyField,
-      version: chosen.version,
-      versionId: chosen.id,
-      latestVersion: versions[0].version,
-      sha256: chosen.sha256,
-      originalFilename: chosen.originalFilename,
-      source: chosen.source,
-      doi: chosen.doi,
-      method: chosen.method,
-      notes: chosen.notes,
-      defaultRelativeUncertainty: chosen.defaultRelativeUncertainty,
-      delimiter: chosen.delimiter,
-      decimal: chosen.decimal,
-      columns: JSON.parse(chosen.columnsJson),
-      rowCount: chosen.rowCount,
-      uploadedAt: chosen.uploadedAt,
-      uploadedByName: chosen.uploadedByName,
-      withdrawn: measurementSet.withdrawnAt ? { at: measurementSet.withdrawnAt, reason: measurementSet.withdrawnReason } : null,
-      versions: versions.map((v) => ({ version: v.version, sha256: v.sha256, rowCount: v.rowCount, uploadedAt: v.uploadedAt, uploadedByName: v.uploadedByName, originalFilename: v.originalFilename, source: v.source })),
-      rows: rows.map((r) => toApiRow(kind, r)),
-    });
+    sendView(res, measurementSetDetailView, toMeasurementSetDetailView({ set: measurementSet, substanceName: substance!.name, versions, chosen, rows }));
   });
 
   router.get('/measurement-sets/:id/versions/:version/original', requirePolicy('measurement-set:read'), async (req, res) => {
@@ -189,10 +144,10 @@ export function measurementSetRoutes(ctx: AppContext): Router {
       const measurementSet = await findMeasurementSet(tx, id);
       if (!measurementSet) throw notFound(`Measurement set ${id}`);
       if (measurementSet.withdrawnAt) throw conflict(`Measurement set ${id} is already withdrawn.`);
-      await tx.insertInto('measurementSetWithdrawal').values({ measurementSetId: id, withdrawnBy: actor.id, withdrawnAt: new Date().toISOString(), reason }).execute();
+      await insertWithdrawal(tx, { measurementSetId: id, withdrawnBy: actor.id, withdrawnAt: new Date().toISOString(), reason });
       await recordAudit(tx, { actor, action: 'dataset.withdrawn', targetType: 'dataset', targetId: id, summary: `${actor.email} withdrew measurement set ${measurementSet.name}${measurementSet.createdBy === actor.id ? '' : ' (as admin; not the author)'}: ${reason}` });
     });
-    res.json({ id, withdrawn: true });
+    sendView(res, measurementSetWithdrawView, { id, withdrawn: true });
   });
 
   return router;

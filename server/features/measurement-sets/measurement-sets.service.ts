@@ -2,11 +2,12 @@ import { createHash } from 'node:crypto';
 import { decodeCsvBytes } from '../../../shared/measurements/decode-bytes';
 import { parseMeasurementCsv, type ParseOptions } from '../../../shared/measurements/parse-measurement-csv';
 import { PROPERTY_KINDS, type CanonicalRow, type PropertyKind } from '../../../shared/measurements/property-kinds';
+import type { StoredColumn } from '../../../shared/contracts/measurement-set';
 import type { Db, Tx } from '../../db/database';
 import type { CurrentUser } from '../../common/auth-middleware';
 import { AppError, unprocessable } from '../../common/errors';
 import { recordAudit } from '../audit/audit.service';
-import { latestVersionNumber, rowsOfVersion } from './measurement-sets.repository';
+import { insertMeasurementSet, insertRows, insertVersion, latestVersionNumber, rowsOfVersion } from './measurement-sets.repository';
 
 export interface UploadedFile {
   originalname: string;
@@ -62,42 +63,31 @@ export async function storeVersion(
   let measurementSetId = input.measurementSetId;
   if (measurementSetId === undefined) {
     if (!input.newMeasurementSet) throw new AppError(500, 'internal_error', 'storeVersion needs a measurement set id or a new measurement set.');
-    const inserted = await tx
-      .insertInto('measurementSet')
-      .values({ ...input.newMeasurementSet, createdBy: input.actor.id, createdAt: now })
-      .returning('id')
-      .executeTakeFirstOrThrow();
-    measurementSetId = inserted.id;
+    measurementSetId = await insertMeasurementSet(tx, { ...input.newMeasurementSet, createdBy: input.actor.id, createdAt: now });
   }
   const version = (await latestVersionNumber(tx, measurementSetId)) + 1;
   const sha256 = createHash('sha256').update(input.file.buffer).digest('hex');
   const { parsed, fields } = input;
-  const columns = parsed.columns.map((c) => ({ index: c.index, header: c.header, quantity: c.quantity ?? null, unitText: c.unitText ?? null, canonicalUnit: c.canonicalUnit ?? null }));
-  const versionRow = await tx
-    .insertInto('measurementSetVersion')
-    .values({
-      measurementSetId,
-      version,
-      sha256,
-      originalFilename: input.file.originalname.slice(0, 255),
-      originalBytes: input.file.buffer,
-      source: fields.source ?? null,
-      doi: fields.doi ?? null,
-      method: fields.method ?? null,
-      notes: fields.notes ?? null,
-      defaultRelativeUncertainty: parsed.defaultRelativeUncertainty,
-      delimiter: parsed.delimiter,
-      decimal: parsed.decimal,
-      columnsJson: JSON.stringify(columns),
-      rowCount: parsed.rows.length,
-      uploadedBy: input.actor.id,
-      uploadedAt: now,
-    })
-    .returning('id')
-    .executeTakeFirstOrThrow();
-  const values = parsed.rows.map((row, position) => toStoredRow(row, versionRow.id, position));
-  // Insert in chunks: SQLite limits bound parameters per statement.
-  for (let i = 0; i < values.length; i += 200) await tx.insertInto('measurementRow').values(values.slice(i, i + 200)).execute();
+  const columns: StoredColumn[] = parsed.columns.map((c) => ({ index: c.index, header: c.header, quantity: c.quantity ?? null, unitText: c.unitText ?? null, canonicalUnit: c.canonicalUnit ?? null }));
+  const versionId = await insertVersion(tx, {
+    measurementSetId,
+    version,
+    sha256,
+    originalFilename: input.file.originalname.slice(0, 255),
+    originalBytes: input.file.buffer,
+    source: fields.source ?? null,
+    doi: fields.doi ?? null,
+    method: fields.method ?? null,
+    notes: fields.notes ?? null,
+    defaultRelativeUncertainty: parsed.defaultRelativeUncertainty,
+    delimiter: parsed.delimiter,
+    decimal: parsed.decimal,
+    columnsJson: JSON.stringify(columns),
+    rowCount: parsed.rows.length,
+    uploadedBy: input.actor.id,
+    uploadedAt: now,
+  });
+  await insertRows(tx, parsed.rows.map((row, position) => toStoredRow(row, versionId, position)));
   await recordAudit(tx, {
     actor: input.actor,
     action: version === 1 ? 'dataset.uploaded' : 'dataset.version_uploaded',
@@ -122,20 +112,6 @@ function toStoredRow(row: CanonicalRow, measurementSetVersionId: number, positio
     uncertainty: r[def.uncertaintyField],
     uncertaintySource: row.uncertaintySource,
     rawJson: JSON.stringify(row.raw),
-  };
-}
-
-/** A stored row in the API's shape: canonical units named in each field, via the kind registry. */
-export function toApiRow(kind: PropertyKind, row: Awaited<ReturnType<typeof rowsOfVersion>>[number]) {
-  const def = PROPERTY_KINDS[kind];
-  return {
-    row: row.fileRow,
-    temperatureK: row.temperatureK,
-    ...(row.pressureMpa !== null ? { pressureMPa: row.pressureMpa } : {}),
-    [def.valueField]: row.value,
-    [def.uncertaintyField]: row.uncertainty,
-    uncertaintySource: row.uncertaintySource,
-    raw: JSON.parse(row.rawJson) as Record<string, string>,
   };
 }
 

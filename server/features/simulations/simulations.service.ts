@@ -1,4 +1,4 @@
-import { DEFAULT_ATOMS, DEFAULT_CUTOFF, DEFAULT_NPT_STEPS, DEFAULT_SEED, DEFAULT_TIMESTEP, type NptOptions } from '../../../shared/physics/md/npt';
+import { DEFAULT_ATOMS, DEFAULT_CUTOFF, DEFAULT_NPT_STEPS, DEFAULT_SEED, DEFAULT_TIMESTEP } from '../../../shared/physics/md/npt';
 import { reducedStateOf } from '../../../shared/physics/corresponding-states';
 import type { CreateSimulationBody, MdSettings, SimulationsFromMeasurementSetBody } from '../../../shared/schemas/simulations';
 import { CUTOFF_SCHEME_LABELS, type CutoffScheme } from '../../../shared/physics/cutoff-schemes';

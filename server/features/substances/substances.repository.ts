@@ -1,6 +1,7 @@
-import { sql } from 'kysely';
+import { sql, type Insertable, type Updateable } from 'kysely';
 import { normaliseSubstanceName } from '../../../shared/schemas/measurements';
 import type { Db, Tx } from '../../db/database';
+import type { SubstanceTable } from './substances.table';
 
 export async function listSubstances(db: Db | Tx) {
   return db
@@ -48,4 +49,12 @@ export async function findSubstanceByName(db: Db | Tx, name: string) {
 export async function countMeasurementSetsOf(db: Db | Tx, substanceId: number): Promise<number> {
   const row = await db.selectFrom('measurementSet').select((eb) => eb.fn.countAll<number>().as('n')).where('substanceId', '=', substanceId).executeTakeFirstOrThrow();
   return Number(row.n);
+}
+
+export async function insertSubstance(tx: Tx, values: Insertable<SubstanceTable>) {
+  return tx.insertInto('substance').values(values).returningAll().executeTakeFirstOrThrow();
+}
+
+export async function updateSubstance(tx: Tx, id: number, changes: Updateable<SubstanceTable>) {
+  return tx.updateTable('substance').set(changes).where('id', '=', id).returningAll().executeTakeFirstOrThrow();
 }

@@ -3,22 +3,15 @@ import { createSubstanceBody, molarMassWarnings, updateSubstanceBody } from '../
 import { hasPolicy } from '../../../shared/auth/roles';
 import { currentUser, requirePolicy } from '../../common/auth-middleware';
 import { conflict, notFound } from '../../common/errors';
+import { sendView } from '../../common/respond';
+import { substanceDetailView, substanceListView, substanceWriteView } from '../../../shared/contracts/substance';
 import { idParams, validBody, validParams } from '../../common/validate';
 import type { AppContext } from '../../app-context';
 import { recordAudit } from '../audit/audit.service';
 import { listMeasurementSetsOfSubstance } from '../measurement-sets/measurement-sets.repository';
-import { toMeasurementSetSummary } from '../measurement-sets/measurement-sets.routes';
-import { countMeasurementSetsOf, findSubstance, findSubstanceByName, listSubstances } from './substances.repository';
-
-export const toSubstance = (s: { id: number; name: string; formula: string | null; description: string | null; molarMassGramsPerMol: number; createdAt: string; updatedAt: string }) => ({
-  id: s.id,
-  name: s.name,
-  formula: s.formula,
-  description: s.description,
-  molarMassGPerMol: s.molarMassGramsPerMol,
-  createdAt: s.createdAt,
-  updatedAt: s.updatedAt,
-});
+import { toMeasurementSetSummaryView } from '../measurement-sets/measurement-sets.view';
+import { countMeasurementSetsOf, findSubstance, findSubstanceByName, insertSubstance, listSubstances, updateSubstance } from './substances.repository';
+import { toSubstanceListItemView, toSubstanceView } from './substances.view';
 
 export function substanceRoutes(ctx: AppContext): Router {
   const router = Router();
@@ -28,9 +21,7 @@ export function substanceRoutes(ctx: AppContext): Router {
     const rows = await listSubstances(db);
     // How many measurement sets of which kinds exist is unpublished work too: only for the roles that read them.
     const withMeasurementSets = hasPolicy(currentUser(res).roles, 'measurement-set:read');
-    res.json({
-      substances: rows.map((s) => (withMeasurementSets ? { ...toSubstance(s), measurementSetCount: Number(s.measurementSetCount), kinds: s.kinds ? s.kinds.split(',').sort() : [] } : toSubstance(s))),
-    });
+    sendView(res, substanceListView, { substances: rows.map((s) => toSubstanceListItemView(s, withMeasurementSets)) });
   });
 
   router.post('/substances', requirePolicy('substance:write'), async (req, res) => {
@@ -41,15 +32,11 @@ export function substanceRoutes(ctx: AppContext): Router {
       if (await findSubstanceByName(tx, body.name)) {
         throw conflict(`A substance named "${body.name}" already exists.`, [{ field: 'name', message: 'already in use' }]);
       }
-      const row = await tx
-        .insertInto('substance')
-        .values({ name: body.name, formula: body.formula ?? null, description: body.description ?? null, molarMassGramsPerMol: body.molarMassGPerMol, createdBy: actor.id, createdAt: now, updatedAt: now })
-        .returningAll()
-        .executeTakeFirstOrThrow();
-      await recordAudit(tx, { actor, action: 'substance.created', targetType: 'substance', targetId: row.id, summary: `${actor.email} created substance ${row.name}`, after: toSubstance(row) });
+      const row = await insertSubstance(tx, { name: body.name, formula: body.formula ?? null, description: body.description ?? null, molarMassGramsPerMol: body.molarMassGPerMol, createdBy: actor.id, createdAt: now, updatedAt: now });
+      await recordAudit(tx, { actor, action: 'substance.created', targetType: 'substance', targetId: row.id, summary: `${actor.email} created substance ${row.name}`, after: toSubstanceView(row) });
       return row;
     });
-    res.status(201).json({ ...toSubstance(created), warnings: molarMassWarnings(body.molarMassGPerMol) });
+    sendView(res, substanceWriteView, { ...toSubstanceView(created), warnings: molarMassWarnings(body.molarMassGPerMol) }, 201);
   });
 
   router.get('/substances/:id', requirePolicy('substance:read'), async (req, res) => {
@@ -57,9 +44,9 @@ export function substanceRoutes(ctx: AppContext): Router {
     const substance = await findSubstance(db, id);
     if (!substance) throw notFound(`Substance ${id}`);
     // Measurement sets are unpublished work: only the roles that may read them get the list.
-    if (!hasPolicy(currentUser(res).roles, 'measurement-set:read')) return res.json({ ...toSubstance(substance), createdByName: substance.createdByName });
+    if (!hasPolicy(currentUser(res).roles, 'measurement-set:read')) return sendView(res, substanceDetailView, { ...toSubstanceView(substance), createdByName: substance.createdByName });
     const measurementSets = await listMeasurementSetsOfSubstance(db, id);
-    res.json({ ...toSubstance(substance), createdByName: substance.createdByName, measurementSets: measurementSets.map(toMeasurementSetSummary) });
+    sendView(res, substanceDetailView, { ...toSubstanceView(substance), createdByName: substance.createdByName, measurementSets: measurementSets.map(toMeasurementSetSummaryView) });
   });
 
   router.patch('/substances/:id', requirePolicy('substance:write'), async (req, res) => {
@@ -77,22 +64,17 @@ export function substanceRoutes(ctx: AppContext): Router {
       if (body.molarMassGPerMol !== undefined && body.molarMassGPerMol !== before.molarMassGramsPerMol && (await countMeasurementSetsOf(tx, id)) > 0) {
         throw conflict('The molar mass cannot change once the substance has measurement sets: stored densities depend on it.', [{ field: 'molarMassGPerMol', message: 'fixed once measurement sets exist' }]);
       }
-      const row = await tx
-        .updateTable('substance')
-        .set({
-          ...(body.name !== undefined ? { name: body.name } : {}),
-          ...(body.formula !== undefined ? { formula: body.formula || null } : {}),
-          ...(body.description !== undefined ? { description: body.description || null } : {}),
-          ...(body.molarMassGPerMol !== undefined ? { molarMassGramsPerMol: body.molarMassGPerMol } : {}),
-          updatedAt: new Date().toISOString(),
-        })
-        .where('id', '=', id)
-        .returningAll()
-        .executeTakeFirstOrThrow();
-      await recordAudit(tx, { actor, action: 'substance.updated', targetType: 'substance', targetId: id, summary: `${actor.email} edited substance ${row.name}`, before: toSubstance(before), after: toSubstance(row) });
+      const row = await updateSubstance(tx, id, {
+        ...(body.name !== undefined ? { name: body.name } : {}),
+        ...(body.formula !== undefined ? { formula: body.formula || null } : {}),
+        ...(body.description !== undefined ? { description: body.description || null } : {}),
+        ...(body.molarMassGPerMol !== undefined ? { molarMassGramsPerMol: body.molarMassGPerMol } : {}),
+        updatedAt: new Date().toISOString(),
+      });
+      await recordAudit(tx, { actor, action: 'substance.updated', targetType: 'substance', targetId: id, summary: `${actor.email} edited substance ${row.name}`, before: toSubstanceView(before), after: toSubstanceView(row) });
       return row;
     });
-    res.json({ ...toSubstance(updated), warnings: molarMassWarnings(body.molarMassGPerMol) });
+    sendView(res, substanceWriteView, { ...toSubstanceView(updated), warnings: molarMassWarnings(body.molarMassGPerMol) });
   });
 
   return router;
