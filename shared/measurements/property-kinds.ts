@@ -491,6 +491,12 @@ export const PROPERTY_KINDS: Record<PropertyKind, PropertyKindDefinition> = {
   },
 };
 
+/**
+ * The unit of a kind's stored `value` and `uncertainty` (measurement_row) and of a fit's `measured`, `predicted`,
+ * `uncertainty` and `rms` for that kind: the canonical unit of its measured quantity, e.g. 'cm^3/mol' for B2.
+ */
+export const valueUnitOf = (kind: PropertyKind): string => QUANTITIES[PROPERTY_KINDS[kind].valueQuantity].canonicalUnit;
+
 export function isPropertyKind(x: unknown): x is PropertyKind {
   return typeof x === 'string' && (PROPERTY_KIND_IDS as readonly string[]).includes(x);
 }

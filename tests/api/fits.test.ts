@@ -66,7 +66,7 @@ describe('fits', () => {
     expect(r).toMatchObject({ dof: 12, covarianceScaling: 'reduced-chi2' });
     expect(r.residuals).toHaveLength(14);
     expect(r.perMeasurementSet[0]).toMatchObject({ measurementSetId: b2MeasurementSetId, points: 14 });
-    expect(fit.body.measurementSets).toEqual([{ measurementSetId: b2MeasurementSetId, version: 1, versionId: expect.any(Number), kind: 'b2', name: 'Synthetic B2', weight: 1, excludeRows: [], excludeReason: null }]);
+    expect(fit.body.measurementSets).toEqual([{ measurementSetId: b2MeasurementSetId, version: 1, versionId: expect.any(Number), kind: 'b2', valueUnit: 'cm^3/mol', name: 'Synthetic B2', weight: 1, excludeRows: [], excludeReason: null }]);
     expect(fit.body.codeVersion).toMatch(/^\d+\.\d+\.\d+/);
   });
 

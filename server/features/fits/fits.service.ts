@@ -1,7 +1,7 @@
 import type { FitMeasurementSet, LjFitOptions } from '../../../shared/fitting/lj-fit';
 import { isFitKind, MIE_KINDS_TEXT, PROPERTY_MODELS, type PropertyModel } from '../../../shared/fitting/property-models';
 import type { CreateFitBody } from '../../../shared/schemas/fits';
-import { PROPERTY_KINDS, type PropertyKind } from '../../../shared/measurements/property-kinds';
+import { PROPERTY_KINDS, valueUnitOf, type PropertyKind } from '../../../shared/measurements/property-kinds';
 import type { AppContext } from '../../app-context';
 import type { CurrentUser } from '../../common/auth-middleware';
 import { AppError, notFound } from '../../common/errors';
@@ -16,19 +16,10 @@ import { DENSITY_FIT_DEFAULTS, runDensityFit } from './density-fit';
 import { recordFitOutcome } from './fit-outcome';
 import { resolvePosteriorPrior } from './posterior-prior';
 import { readStoredJson } from '../../../shared/schemas/old-names';
+import type { MeasurementSetRef } from '../../../shared/contracts/measurement-set-ref';
 
-/** The exact measurement set versions a fit used, frozen on the fit row. */
-export interface FitMeasurementSetRef {
-  measurementSetId: number;
-  version: number;
-  versionId: number;
-  kind: PropertyKind;
-  name: string;
-  weight: number;
-  /** Rows left out (1-based, as the measurement set page numbers them) and why. */
-  excludeRows?: number[];
-  excludeReason?: string;
-}
+/** The exact measurement set versions a fit used, frozen on the fit row (contract: shared/contracts/measurement-set-ref.ts). */
+export type FitMeasurementSetRef = MeasurementSetRef;
 
 export interface FitJobInput {
   measurementSets: FitMeasurementSetRef[];
@@ -176,7 +167,7 @@ export function toFitView(row: NonNullable<Awaited<ReturnType<typeof findFit>>>)
     status,
     progress: row.progress,
     stage: row.stage,
-    measurementSets: (readStoredJson(row.measurementSetsJson) as FitMeasurementSetRef[]).map((d) => ({ ...d, excludeRows: d.excludeRows ?? [], excludeReason: d.excludeReason ?? null })),
+    measurementSets: (readStoredJson(row.measurementSetsJson) as FitMeasurementSetRef[]).map((d) => ({ ...d, valueUnit: valueUnitOf(d.kind), excludeRows: d.excludeRows ?? [], excludeReason: d.excludeReason ?? null })),
     options: JSON.parse(row.optionsJson) as LjFitOptions,
     codeVersion: row.codeVersion,
     createdAt: row.createdAt,
