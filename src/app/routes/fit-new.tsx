@@ -18,9 +18,25 @@ export function FitNewRoute() {
   if (substance.isError) return <ErrorState error={substance.error} onRetry={() => substance.refetch()} />;
   return (
     <>
-      <PageHeader eyebrow={<Link to={`/substances/${substanceId}`} className="hover:underline">{substance.data.name}</Link>} title="New fit" subtitle="Weighted Levenberg–Marquardt over ε/k_B and σ of an LJ 12-6 or Mie λr-6 potential, with its posterior if you ask. The fit runs in the background; you can leave the page." />
-      <FitSetupForm substanceId={substanceId} measurementSets={substance.data.measurementSets} priorSets={priorSets} busy={create.isPending} error={create.error} onSubmit={(body) => create.mutate(body, { onSuccess: (r) => navigate(`/fits/${r.id}`) })}
-        renderRowPicker={(d, excluded, onChange) => <MeasurementSetRowPicker measurementSetId={d.id} name={d.name} excluded={excluded} onChange={onChange} />}
+      <PageHeader
+        eyebrow={
+          <Link to={`/substances/${substanceId}`} className="hover:underline">
+            {substance.data.name}
+          </Link>
+        }
+        title="New fit"
+        subtitle="Weighted Levenberg–Marquardt over ε/k_B and σ of an LJ 12-6 or Mie λr-6 potential, with its posterior if you ask. The fit runs in the background; you can leave the page."
+      />
+      <FitSetupForm
+        substanceId={substanceId}
+        measurementSets={substance.data.measurementSets}
+        priorSets={priorSets}
+        busy={create.isPending}
+        error={create.error}
+        onSubmit={(body) => create.mutate(body, { onSuccess: (r) => navigate(`/fits/${r.id}`) })}
+        renderRowPicker={(d, excluded, onChange) => (
+          <MeasurementSetRowPicker measurementSetId={d.id} name={d.name} excluded={excluded} onChange={onChange} />
+        )}
       />
     </>
   );

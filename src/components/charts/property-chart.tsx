@@ -35,9 +35,20 @@ type ScatterDataset = ChartData<'scatter'>['datasets'][number];
 
 function toBandDatasets(s: ChartSeries): ScatterDataset[] {
   type Dataset = ScatterDataset & { inLegend: boolean };
-  const edge = { showLine: true, pointRadius: 0, pointHoverRadius: 0, borderWidth: 0.75, borderColor: 'rgba(168,90,42,0.45)', backgroundColor: 'rgba(168,90,42,0.16)', tension: 0, spanGaps: false };
-  const upper: Dataset = { ...edge, label: `${s.label} (upper)`, data: s.points.map((p) => ({ x: p.x, y: p.y })), inLegend: false, fill: false };
-  const lower: Dataset = { ...edge, label: s.label, data: s.points.map((p) => ({ x: p.x, y: p.lower ?? p.y })), pointStyle: 'rect', inLegend: s.inLegend ?? true, fill: '-1' };
+  const edge = {
+    showLine: true,
+    pointRadius: 0,
+    pointHoverRadius: 0,
+    borderWidth: 0.75,
+    borderColor: 'rgba(168,90,42,0.45)',
+    backgroundColor: 'rgba(168,90,42,0.16)',
+    tension: 0,
+    spanGaps: false,
+  };
+  const upperEdge = s.points.map((p) => ({ x: p.x, y: p.y }));
+  const lowerEdge = s.points.map((p) => ({ x: p.x, y: p.lower ?? p.y }));
+  const upper: Dataset = { ...edge, label: `${s.label} (upper)`, data: upperEdge, inLegend: false, fill: false };
+  const lower: Dataset = { ...edge, label: s.label, data: lowerEdge, pointStyle: 'rect', inLegend: s.inLegend ?? true, fill: '-1' };
   return [upper, lower];
 }
 

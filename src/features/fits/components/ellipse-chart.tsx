@@ -12,7 +12,17 @@ type Dataset = ChartData<'scatter'>['datasets'][number];
 const KIND_COLORS = ['#5b4a9e', '#2f6f2f', '#9e3428', '#8a6d00', '#3b5b8c', '#7a3b6b'];
 const TEAL_DRAWS = 'rgba(27,114,109,0.28)';
 const closed = (o: Outline) => [...o, o[0]].map((p) => ({ x: p.epsilonK, y: p.sigmaAngstrom }));
-const kindName = (kind: string) => PROPERTY_MODELS[kind as FitKind]?.label ?? kind;
+/** Short names for the legend (it wraps on a phone); the model's own label for any other kind. */
+const SHORT_KIND_NAMES: Record<string, string> = {
+  b2: 'B2',
+  b3: 'B3',
+  viscosity: 'viscosity',
+  density: 'density',
+  saturatedLiquidDensity: 'saturated liquid density',
+  saturatedVapourDensity: 'saturated vapour density',
+  vapourPressure: 'vapour pressure',
+};
+const kindName = (kind: string) => SHORT_KIND_NAMES[kind] ?? PROPERTY_MODELS[kind as FitKind]?.label ?? kind;
 
 interface LegendEntry {
   text: string;

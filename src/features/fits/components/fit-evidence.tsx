@@ -16,7 +16,13 @@ export function fitContext(fit: Fit) {
     names: Object.fromEntries(fit.measurementSets.map((d) => [String(d.measurementSetId), `${d.name} v${d.version}`])),
     weights: Object.fromEntries(fit.measurementSets.map((d) => [String(d.measurementSetId), d.weight])),
     // A Mie fit's curves and what-if values use its λr (held or fitted); absent or 12 is LJ 12-6.
-    context: { molarMassGPerMol: fit.options.molarMassGPerMol, quantumCorrection: !!fit.options.quantumCorrection, ...(fit.result?.repulsiveExponent !== undefined && fit.result.repulsiveExponent !== 12 ? { repulsiveExponent: fit.result.repulsiveExponent } : {}) },
+    context: {
+      molarMassGPerMol: fit.options.molarMassGPerMol,
+      quantumCorrection: !!fit.options.quantumCorrection,
+      ...(fit.result?.repulsiveExponent !== undefined && fit.result.repulsiveExponent !== 12
+        ? { repulsiveExponent: fit.result.repulsiveExponent }
+        : {}),
+    },
   };
 }
 
@@ -31,7 +37,27 @@ export function hasEvidence(result: LjFitResult | null): result is LjFitResult {
  * the model (B2, viscosity, densities per isotherm and per isobar), the simulation stage of a density fit,
  * profile-χ² intervals, and the statistics per measurement set.
  */
-export function FitEvidence({ fit, result, curves, energy = 'K', length = 'Å', unitSwitch, parametersTitle = 'Parameters', dataTitle = 'Data and model', comparison }: { fit: Fit; result: LjFitResult; curves: CurveParameters[]; energy?: EnergyUnit; length?: LengthUnit; unitSwitch?: ReactNode; parametersTitle?: string; dataTitle?: string; comparison?: ReactNode }) {
+export function FitEvidence({
+  fit,
+  result,
+  curves,
+  energy = 'K',
+  length = 'Å',
+  unitSwitch,
+  parametersTitle = 'Parameters',
+  dataTitle = 'Data and model',
+  comparison,
+}: {
+  fit: Fit;
+  result: LjFitResult;
+  curves: CurveParameters[];
+  energy?: EnergyUnit;
+  length?: LengthUnit;
+  unitSwitch?: ReactNode;
+  parametersTitle?: string;
+  dataTitle?: string;
+  comparison?: ReactNode;
+}) {
   const { names, context } = fitContext(fit);
   const density = result as DensityFitResult;
   const warnings = result.warnings ?? [];
@@ -42,8 +68,14 @@ export function FitEvidence({ fit, result, curves, energy = 'K', length = 'Å', 
         <div role="status" className="rounded-lg border border-review/40 bg-review-soft/70 px-5 py-3">
           <p className="font-semibold text-review">Read before use: Fit #{fit.number}</p>
           <ul className="mt-1 list-disc pl-5 text-sm">
-            {hitBounds.map((b) => <li key={b}>The fit ended on the bound of {b}; the value is a limit, not an estimate.</li>)}
-            {warnings.map((w) => <li key={w} className={/strongly correlated/i.test(w) ? 'font-semibold' : ''}>{w}</li>)}
+            {hitBounds.map((b) => (
+              <li key={b}>The fit ended on the bound of {b}; the value is a limit, not an estimate.</li>
+            ))}
+            {warnings.map((w) => (
+              <li key={w} className={/strongly correlated/i.test(w) ? 'font-semibold' : ''}>
+                {w}
+              </li>
+            ))}
           </ul>
         </div>
       )}
@@ -51,7 +83,14 @@ export function FitEvidence({ fit, result, curves, energy = 'K', length = 'Å', 
         <Panel title={parametersTitle} actions={unitSwitch} className="min-w-0">
           <ParameterTable result={result} energy={energy} length={length} />
         </Panel>
-        <Panel title={(result as GasFitResult).posterior || (result as GasFitResult).tension ? '95 % regions of ε/k_B and σ' : '95 % joint confidence region'} className="min-w-0">
+        <Panel
+          title={
+            (result as GasFitResult).posterior || (result as GasFitResult).tension
+              ? '95 % regions of ε/k_B and σ'
+              : '95 % joint confidence region'
+          }
+          className="min-w-0"
+        >
           <EllipseChart result={result} />
         </Panel>
       </div>
@@ -59,8 +98,18 @@ export function FitEvidence({ fit, result, curves, energy = 'K', length = 'Å', 
       <Panel title={dataTitle} className="min-w-0">
         <div className="grid gap-8">
           <FitCurves result={result} measurementSetNames={names} context={context} curves={curves} />
-          {curves.length > 1 && <p className="-mt-6 text-xs text-ink-faint">Residuals underneath are those of the fit behind {curves[0].label.toLowerCase()}.</p>}
-          <DensityCharts result={result} context={context} curves={curves.slice(0, 1)} predictedLabel={density.mdRuns ? 'simulated' : 'equation of state'} residualsLabel={density.mdRuns ? 'of the fit (simulated densities)' : 'of the fit'} />
+          {curves.length > 1 && (
+            <p className="-mt-6 text-xs text-ink-faint">
+              Residuals underneath are those of the fit behind {curves[0].label.toLowerCase()}.
+            </p>
+          )}
+          <DensityCharts
+            result={result}
+            context={context}
+            curves={curves.slice(0, 1)}
+            predictedLabel={density.mdRuns ? 'simulated' : 'equation of state'}
+            residualsLabel={density.mdRuns ? 'of the fit (simulated densities)' : 'of the fit'}
+          />
         </div>
       </Panel>
       {density.mdRuns && (
