@@ -13,7 +13,7 @@ import path from 'node:path';
 import { parseArgs } from 'node:util';
 import { createContext } from '../server/bootstrap';
 import { loadEnv } from '../server/config/env';
-import { seedDemo } from '../server/db/seed';
+import { seedDemo } from '../server/demo-seed';
 import { createFit, findFit } from '../server/features/fits/fits.service';
 import { rolesOf } from '../server/features/people/people.repository';
 
@@ -28,7 +28,7 @@ const dir = mkdtempSync(path.join(tmpdir(), 'epsigma-bench-fit-'));
 const env = loadEnv({ WORKERS: String(os.availableParallelism()), ...process.env, NODE_ENV: 'production', DATABASE_PATH: path.join(dir, 'bench.sqlite'), LOG_REQUESTS: '0' });
 const ctx = await createContext(env, () => {});
 try {
-  await seedDemo(ctx.db, { demoPassword: 'bench-password' });
+  await seedDemo(ctx, { demoPassword: 'bench-password' });
   const user = await ctx.db.selectFrom('user').select(['id', 'email', 'name']).where('email', '=', 'modeller@demo.epsigma.test').executeTakeFirstOrThrow();
   const actor = { ...user, roles: await rolesOf(ctx.db, user.id) };
   const substance = await ctx.db.selectFrom('substance').select('id').where('name', '=', 'Quillgas QG-1').executeTakeFirstOrThrow();

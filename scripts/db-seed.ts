@@ -4,14 +4,12 @@
  */
 import { createContext } from '../server/bootstrap';
 import { loadEnv } from '../server/config/env';
-import { seedDemo } from '../server/db/seed';
-import { seedApprovedDemoSets } from '../server/features/catalog/catalog.seed';
+import { seedDemo } from '../server/demo-seed';
 
 const env = loadEnv();
 const ctx = await createContext(env, () => {});
 try {
-  const { seeded } = await seedDemo(ctx.db, { demoPassword: env.DEMO_PASSWORD });
-  const approved = seeded ? await seedApprovedDemoSets(ctx) : 0;
+  const { seeded, approved } = await seedDemo(ctx, { demoPassword: env.DEMO_PASSWORD, withApprovedSets: true });
   console.log(seeded ? `Seeded the demo scenario (${approved} approved parameter sets).` : 'The database already has people; nothing seeded.');
 } finally {
   await ctx.close();

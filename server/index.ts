@@ -3,8 +3,7 @@ import { fileURLToPath } from 'node:url';
 import { createApp } from './app';
 import { createContext } from './bootstrap';
 import { loadEnv } from './config/env';
-import { seedDemo } from './db/seed';
-import { seedApprovedDemoSets } from './features/catalog/catalog.seed';
+import { seedDemo } from './demo-seed';
 import { DEMO_PEOPLE } from '../fixtures/demo/scenario';
 
 const CLIENT_DIR = fileURLToPath(new URL('../dist/client/', import.meta.url));
@@ -13,9 +12,8 @@ const CLIENT_DIR = fileURLToPath(new URL('../dist/client/', import.meta.url));
 export async function startServer() {
   const env = loadEnv();
   const ctx = await createContext(env);
-  const { seeded } = await seedDemo(ctx.db, { demoPassword: env.DEMO_PASSWORD });
   // The demo catalog: real fits of the gas-phase tables, approved through the review services.
-  if (seeded) await seedApprovedDemoSets(ctx);
+  const { seeded } = await seedDemo(ctx, { demoPassword: env.DEMO_PASSWORD, withApprovedSets: true });
   const app = createApp(ctx, { clientDir: CLIENT_DIR });
   const server = app.listen(env.PORT, env.HOST, () => {
     const address = server.address();

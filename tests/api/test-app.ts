@@ -6,7 +6,7 @@ import request from 'supertest';
 import { createApp } from '../../server/app';
 import { createContext } from '../../server/bootstrap';
 import { loadEnv } from '../../server/config/env';
-import { seedDemo } from '../../server/db/seed';
+import { seedDemo } from '../../server/demo-seed';
 
 export const TEST_PASSWORD = 'test-password-for-demo';
 
@@ -26,7 +26,7 @@ export async function startTestApp(envOverrides: Record<string, string> = {}) {
   const logs: string[] = [];
   const env = loadEnv({ NODE_ENV: 'test', DATABASE_PATH: path.join(dir, 'test.sqlite'), DEMO_PASSWORD: TEST_PASSWORD, LOG_REQUESTS: '1', SIGN_IN_LIMIT: '1000', WORKERS: '1', CHECK_RESPONSES: process.env.CHECK_RESPONSES ?? '1', ...envOverrides });
   const ctx = await createContext(env, (m) => logs.push(m));
-  await seedDemo(ctx.db, { demoPassword: TEST_PASSWORD });
+  await seedDemo(ctx, { demoPassword: TEST_PASSWORD });
   const app = createApp(ctx);
   const server: Server = await new Promise((resolve) => {
     const s = app.listen(0, '127.0.0.1', () => resolve(s));

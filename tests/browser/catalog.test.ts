@@ -6,7 +6,7 @@ const { available } = chromiumOrSkip();
 
 /*
  * The demo start approves real fits of the Quillgas QG-1, Norrane and FB-3 gas-phase tables
- * (server/features/catalog/catalog.seed.ts), so the consumer finds them in the catalog.
+ * (server/demo-seed.ts), so the consumer finds them in the catalog.
  * 1 K × R in kJ/mol: R = 8.314462618… J/(mol K), CODATA 2018 (exact product N_A k).
  */
 const R_KJ_PER_MOL_K = (6.02214076e23 * 1.380649e-23) / 1000;
