@@ -1,6 +1,6 @@
 import type { ReactNode } from 'react';
 import { hasPolicy, type Policy } from '@shared/auth/roles';
-import { useMe } from '@/features/auth/api/me';
+import { useMe } from '@/lib/auth';
 
 /** True when the signed-in user's roles grant the policy (the server checks again; this only hides). */
 export function useCan(policy: Policy): boolean {

@@ -11,7 +11,8 @@ import { Field, Input } from '@/components/ui/field';
 import { ErrorState, LoadingState, PageHeader, Panel } from '@/components/ui/states';
 import { useCan } from '@/lib/authorization';
 import { type MeasurementSetRow, useMeasurementSet, useWithdrawMeasurementSet } from '@/features/measurement-sets/api/measurement-sets';
-import { MeasurementSetChart, quantityHeading } from '@/features/measurement-sets/components/measurement-set-chart';
+import { MeasurementSetChart } from '@/features/measurement-sets/components/measurement-set-chart';
+import { quantityHeading } from '@/lib/quantity-labels';
 import { SimulateRowsPanel } from '@/features/simulations/components/simulate-rows-panel';
 
 function rowColumns(kind: keyof typeof PROPERTY_KINDS): ColumnDef<MeasurementSetRow, any>[] {

@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { Navigate, useLocation } from 'react-router-dom';
 import { AppShell } from '@/components/layouts/app-shell';
 import { ErrorState, LoadingState } from '@/components/ui/states';
-import { useMe } from '@/features/auth/api/me';
+import { useMe } from '@/lib/auth';
 import { useSignOut } from '@/features/auth/api/sign-in';
 import { NoticeBell } from '@/features/notices/components/notice-bell';
 import { SignedInProvider } from '@/lib/signed-in';

@@ -1,7 +1,7 @@
 import { Navigate, useNavigate, useSearchParams } from 'react-router-dom';
 import { LogoMark } from '@/components/ui/logo-mark';
 import { LoadingState } from '@/components/ui/states';
-import { useMe } from '@/features/auth/api/me';
+import { useMe } from '@/lib/auth';
 import { SignInForm } from '@/features/auth/components/sign-in-form';
 
 function safeNext(next: string | null): string {

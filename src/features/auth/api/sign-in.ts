@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { Me, SignInBody } from '@shared/schemas/people';
 import { api } from '@/lib/api-client';
-import { authKeys } from './me';
+import { authKeys } from '@/lib/auth';
 
 export const useSignIn = () => {
   const qc = useQueryClient();

@@ -4,7 +4,7 @@ import type { LjFitResult, LjResidual } from '@shared/fitting/lj-fit';
 import type { FitKind } from '@shared/fitting/property-models';
 import { PROPERTY_KINDS, type PropertyKind } from '@shared/measurements/property-kinds';
 import { PropertyChart, type ChartSeries } from '@/components/charts/property-chart';
-import { valueAxisTitle } from '@/features/measurement-sets/components/measurement-set-chart';
+import { valueAxisTitle } from '@/lib/quantity-labels';
 import { modelBand, modelCurve, thinDraws } from './model-curves';
 
 export interface CurveParameters {

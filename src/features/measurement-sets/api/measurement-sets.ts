@@ -1,56 +1,11 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { PropertyKind } from '@shared/measurements/property-kinds';
+import type { MeasurementSetDetail, MeasurementSetList, MeasurementSetUpload, MeasurementSetWithdrawal } from '@shared/contracts/measurement-set';
 import { api } from '@/lib/api-client';
-import { substanceKeys } from '@/features/substances/api/substances';
+import { substanceKeys } from '@/lib/query-keys';
 
-export interface MeasurementSetSummary {
-  id: number;
-  substanceId: number;
-  substanceName: string;
-  kind: PropertyKind;
-  kindLabel: string;
-  name: string;
-  version: number;
-  versionId: number;
-  rowCount: number;
-  source: string | null;
-  doi: string | null;
-  sha256: string;
-  uploadedAt: string;
-  withdrawn: boolean;
-}
-
-export type MeasurementSetRow = { row: number; temperatureK: number; pressureMPa?: number; uncertaintySource: 'measured' | 'default-relative'; raw: Record<string, string> } & Record<string, number | string | Record<string, string> | undefined>;
-
-export interface MeasurementSetDetail {
-  id: number;
-  name: string;
-  substanceId: number;
-  substanceName: string;
-  kind: PropertyKind;
-  kindLabel: string;
-  valueField: string;
-  uncertaintyField: string;
-  version: number;
-  versionId: number;
-  latestVersion: number;
-  sha256: string;
-  originalFilename: string;
-  source: string | null;
-  doi: string | null;
-  method: string | null;
-  notes: string | null;
-  defaultRelativeUncertainty: number;
-  delimiter: string;
-  decimal: string;
-  columns: Array<{ index: number; header: string; quantity: string | null; unitText: string | null; canonicalUnit: string | null }>;
-  rowCount: number;
-  uploadedAt: string;
-  uploadedByName: string;
-  withdrawn: { at: string; reason: string } | null;
-  versions: Array<{ version: number; sha256: string; rowCount: number; uploadedAt: string; uploadedByName: string; originalFilename: string; source: string | null }>;
-  rows: MeasurementSetRow[];
-}
+// Answers of the API: the contracts in shared/contracts/measurement-set.ts (never declared again here).
+export type { MeasurementSetDetail, MeasurementSetRow, MeasurementSetSummary } from '@shared/contracts/measurement-set';
 
 export const measurementSetKeys = {
   all: ['measurementSets'] as const,
@@ -61,7 +16,7 @@ export const measurementSetKeys = {
 export const measurementSetsQueryOptions = (substanceId?: number) =>
   queryOptions({
     queryKey: measurementSetKeys.list(substanceId),
-    queryFn: () => api<{ measurementSets: MeasurementSetSummary[] }>(`/measurement-sets${substanceId ? `?substanceId=${substanceId}` : ''}`).then((r) => r.measurementSets),
+    queryFn: () => api<MeasurementSetList>(`/measurement-sets${substanceId ? `?substanceId=${substanceId}` : ''}`).then((r) => r.measurementSets),
   });
 
 export const measurementSetQueryOptions = (id: number, version?: number) =>
@@ -100,7 +55,7 @@ export const useUploadMeasurementSet = () => {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: ({ measurementSetId, ...input }: UploadInput & { measurementSetId?: number }) =>
-      api<{ id: number; version: number; rowCount: number; sha256: string }>(measurementSetId ? `/measurement-sets/${measurementSetId}/versions` : '/measurement-sets', { formData: toFormData(input) }),
+      api<MeasurementSetUpload>(measurementSetId ? `/measurement-sets/${measurementSetId}/versions` : '/measurement-sets', { formData: toFormData(input) }),
     onSuccess: () => {
       void qc.invalidateQueries({ queryKey: measurementSetKeys.all });
       void qc.invalidateQueries({ queryKey: substanceKeys.all });
@@ -111,7 +66,7 @@ export const useUploadMeasurementSet = () => {
 export const useWithdrawMeasurementSet = (id: number) => {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (reason: string) => api<{ id: number }>(`/measurement-sets/${id}/withdraw`, { body: { reason } }),
+    mutationFn: (reason: string) => api<MeasurementSetWithdrawal>(`/measurement-sets/${id}/withdraw`, { body: { reason } }),
     onSuccess: () => {
       void qc.invalidateQueries({ queryKey: measurementSetKeys.all });
       void qc.invalidateQueries({ queryKey: substanceKeys.all });

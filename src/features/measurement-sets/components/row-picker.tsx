@@ -2,7 +2,7 @@ import { PROPERTY_KINDS } from '@shared/measurements/property-kinds';
 import { formatMeasured } from '@shared/format/numbers';
 import { ErrorState, LoadingState } from '@/components/ui/states';
 import { useMeasurementSet } from '../api/measurement-sets';
-import { quantityHeading } from './measurement-set-chart';
+import { quantityHeading } from '@/lib/quantity-labels';
 
 /**
  * The rows of one measurement set (the version a fit would use) with a tick box each to leave the row out of

@@ -1,6 +1,6 @@
 import { ROLE_LABELS, ROLES, type Role } from '@shared/auth/roles';
 import { Button } from '@/components/ui/button';
-import { useMe } from '@/features/auth/api/me';
+import { useMe } from '@/lib/auth';
 import { type Person, useUpdatePerson } from '../api/people';
 
 export function PeopleTable({ people }: { people: Person[] }) {

@@ -1,32 +1,10 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import type { SubstanceDetail, SubstanceListItem, SubstanceWrite } from '@shared/contracts/substance';
 import { api } from '@/lib/api-client';
-import type { MeasurementSetSummary } from '@/features/measurement-sets/api/measurement-sets';
+import { substanceKeys } from '@/lib/query-keys';
 
-export interface Substance {
-  id: number;
-  name: string;
-  formula: string | null;
-  description: string | null;
-  molarMassGPerMol: number;
-  createdAt: string;
-  updatedAt: string;
-}
-
-export interface SubstanceListItem extends Substance {
-  measurementSetCount: number;
-  kinds: string[];
-}
-
-export interface SubstanceDetail extends Substance {
-  createdByName: string;
-  measurementSets: MeasurementSetSummary[];
-}
-
-export const substanceKeys = {
-  all: ['substances'] as const,
-  list: () => [...substanceKeys.all, 'list'] as const,
-  detail: (id: number) => [...substanceKeys.all, 'detail', id] as const,
-};
+// Answers of the API: the contracts in shared/contracts/substance.ts (never declared again here).
+export type { Substance, SubstanceDetail, SubstanceListItem } from '@shared/contracts/substance';
 
 export const substancesQueryOptions = () =>
   queryOptions({ queryKey: substanceKeys.list(), queryFn: () => api<{ substances: SubstanceListItem[] }>('/substances').then((r) => r.substances) });
@@ -47,7 +25,7 @@ export interface SubstanceInput {
 export const useCreateSubstance = () => {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: SubstanceInput) => api<Substance>('/substances', { body }),
+    mutationFn: (body: SubstanceInput) => api<SubstanceWrite>('/substances', { body }),
     onSuccess: () => qc.invalidateQueries({ queryKey: substanceKeys.all }),
   });
 };
@@ -55,7 +33,7 @@ export const useCreateSubstance = () => {
 export const useUpdateSubstance = (id: number) => {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: Partial<SubstanceInput>) => api<Substance>(`/substances/${id}`, { method: 'PATCH', body }),
+    mutationFn: (body: Partial<SubstanceInput>) => api<SubstanceWrite>(`/substances/${id}`, { method: 'PATCH', body }),
     onSuccess: () => qc.invalidateQueries({ queryKey: substanceKeys.all }),
   });
 };

@@ -1,3 +1,4 @@
+/** The signed-in user's query: the session check, useCan and several features read it, so it lives here, not in a feature. */
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { Me } from '@shared/schemas/people';
 import { api, isApiError } from '@/lib/api-client';
