@@ -26,7 +26,25 @@ export const isLeftOut = (r: LjResidual) => r.excluded === true || (r as { inclu
  * and the residuals (model − measured)/u underneath — of the fit, or of `residuals` when given (What if?).
  * Points left out of the fit are drawn hollow.
  */
-export function FitCurves({ result, measurementSetNames, context, curves, height = 300, residuals, residualsLabel, posteriorBand = true }: { result: LjFitResult; measurementSetNames: Record<string, string>; context: { molarMassGPerMol?: number; quantumCorrection: boolean; repulsiveExponent?: number }; curves: CurveParameters[]; height?: number; residuals?: LjResidual[]; residualsLabel?: string; posteriorBand?: boolean }) {
+export function FitCurves({
+  result,
+  measurementSetNames,
+  context,
+  curves,
+  height = 300,
+  residuals,
+  residualsLabel,
+  posteriorBand = true,
+}: {
+  result: LjFitResult;
+  measurementSetNames: Record<string, string>;
+  context: { molarMassGPerMol?: number; quantumCorrection: boolean; repulsiveExponent?: number };
+  curves: CurveParameters[];
+  height?: number;
+  residuals?: LjResidual[];
+  residualsLabel?: string;
+  posteriorBand?: boolean;
+}) {
   // Densities are state functions of T and P: they get their own panels (density-panel.tsx).
   const kinds = [...new Set(result.residuals.map((r) => r.kind))].filter((k) => k !== 'density') as FitKind[];
   const bands = usePosteriorBands(posteriorBand ? result : null, kinds, context);
@@ -40,21 +58,47 @@ export function FitCurves({ result, measurementSetNames, context, curves, height
         const measured: ChartSeries[] = byMeasurementSet.map((id) => ({
           label: measurementSetNames[id] ?? `set ${id}`,
           kind: 'measured',
-          points: points.filter((p) => String(p.measurementSetId) === id).map((p) => ({ x: p.temperatureK, y: p.measured, u: p.uncertainty, hollow: isLeftOut(p) })),
+          points: points
+            .filter((p) => String(p.measurementSetId) === id)
+            .map((p) => ({ x: p.temperatureK, y: p.measured, u: p.uncertainty, hollow: isLeftOut(p) })),
         }));
         const temps = points.map((p) => p.temperatureK);
-        const model: ChartSeries[] = curves.map((c) => ({ label: c.label, kind: 'model', points: modelCurve(kind, temps, c.epsilonK, c.sigmaAngstrom, c.repulsiveExponent !== undefined && c.repulsiveExponent !== 12 ? ({ ...context, repulsiveExponent: c.repulsiveExponent } as typeof context) : context) }));
+        const model: ChartSeries[] = curves.map((c) => ({
+          label: c.label,
+          kind: 'model',
+          points: modelCurve(
+            kind,
+            temps,
+            c.epsilonK,
+            c.sigmaAngstrom,
+            c.repulsiveExponent !== undefined && c.repulsiveExponent !== 12
+              ? ({ ...context, repulsiveExponent: c.repulsiveExponent } as typeof context)
+              : context,
+          ),
+        }));
         const residualSeries: ChartSeries[] = byMeasurementSet.map((id) => ({
           label: measurementSetNames[id] ?? `set ${id}`,
           kind: 'measured',
-          points: plotted.filter((p) => p.kind === kind && String(p.measurementSetId) === id).map((p) => ({ x: p.temperatureK, y: p.residual, hollow: isLeftOut(p) })),
+          points: plotted
+            .filter((p) => p.kind === kind && String(p.measurementSetId) === id)
+            .map((p) => ({ x: p.temperatureK, y: p.residual, hollow: isLeftOut(p) })),
         }));
         return (
           <div key={kind} className="min-w-0">
-            <h3 className="mb-1 font-semibold">{kind === 'b2' ? 'Second virial coefficient' : kind === 'viscosity' ? 'Dilute-gas viscosity' : (PROPERTY_KINDS[kind as PropertyKind]?.label ?? kind)}</h3>
+            <h3 className="mb-1 font-semibold">
+              {kind === 'b2'
+                ? 'Second virial coefficient'
+                : kind === 'viscosity'
+                  ? 'Dilute-gas viscosity'
+                  : (PROPERTY_KINDS[kind as PropertyKind]?.label ?? kind)}
+            </h3>
             <PropertyChart
               ariaLabel={`${kind} data and model`}
-              series={[...(bands[kind]?.length ? [{ label: 'posterior 95 % band', kind: 'band' as const, points: bands[kind]! }] : []), ...measured, ...model]}
+              series={[
+                ...(bands[kind]?.length ? [{ label: 'posterior 95 % band', kind: 'band' as const, points: bands[kind]! }] : []),
+                ...measured,
+                ...model,
+              ]}
               xTitle="T (K)"
               yTitle={valueAxisTitle(kind)}
               residuals={{ title: RESIDUAL_AXIS_TITLE, series: residualSeries }}
@@ -62,7 +106,8 @@ export function FitCurves({ result, measurementSetNames, context, curves, height
             />
             <p className="mt-1 text-xs text-ink-faint">
               {bands[kind]?.length ? `${bandSentence(bands[kind]!, valueAxisTitle(kind))} ` : ''}
-              Lower panel: residuals {residualsLabel ?? 'of the fit'}, (model − measured) divided by the measurement’s standard uncertainty u{points.some(isLeftOut) ? '; open markers are points left out of the fit' : ''}.
+              Lower panel: residuals {residualsLabel ?? 'of the fit'}, (model − measured) divided by the measurement’s standard uncertainty
+              u{points.some(isLeftOut) ? '; open markers are points left out of the fit' : ''}.
             </p>
           </div>
         );
@@ -86,7 +131,11 @@ export function bandSentence(band: Array<{ x: number; y: number; lower: number }
 const BAND_DRAWS = 200;
 
 /** Posterior-predictive bands per kind, when the result carries posterior draws; computed once per result. */
-export function usePosteriorBands(result: LjFitResult | null, kinds: FitKind[], context: { molarMassGPerMol?: number; quantumCorrection: boolean; repulsiveExponent?: number }) {
+export function usePosteriorBands(
+  result: LjFitResult | null,
+  kinds: FitKind[],
+  context: { molarMassGPerMol?: number; quantumCorrection: boolean; repulsiveExponent?: number },
+) {
   const draws = (result as GasFitResult | null)?.posterior?.draws;
   const key = kinds.join(',');
   const { molarMassGPerMol, quantumCorrection, repulsiveExponent } = context;
@@ -94,10 +143,19 @@ export function usePosteriorBands(result: LjFitResult | null, kinds: FitKind[], 
     const out: Partial<Record<FitKind, Array<{ x: number; y: number; lower: number }>>> = {};
     if (!result || !draws?.length) return out;
     const used = thinDraws(draws, BAND_DRAWS);
-    const ctx = { molarMassGPerMol, quantumCorrection, ...(repulsiveExponent !== undefined && repulsiveExponent !== 12 ? { repulsiveExponent } : {}) };
+    const ctx = {
+      molarMassGPerMol,
+      quantumCorrection,
+      ...(repulsiveExponent !== undefined && repulsiveExponent !== 12 ? { repulsiveExponent } : {}),
+    };
     for (const kind of key.split(',').filter(Boolean) as FitKind[]) {
       try {
-        out[kind] = modelBand(kind, result.residuals.filter((r) => r.kind === kind).map((r) => r.temperatureK), used, ctx);
+        out[kind] = modelBand(
+          kind,
+          result.residuals.filter((r) => r.kind === kind).map((r) => r.temperatureK),
+          used,
+          ctx,
+        );
       } catch {
         // A kind the model cannot evaluate over the draws gets no band rather than a wrong one.
       }
