@@ -145,6 +145,37 @@ describe.skipIf(!available)('posterior and model comparison in Chromium', () => 
     expect(phoneCompare.scrollWidth, `the comparison is ${phoneCompare.scrollWidth} px wide at 390 px`).toBeLessThanOrEqual(
       phoneCompare.innerWidth,
     );
+
+    // A joint fit of B2 and viscosity (the form's default sets): each kind's 95 % region alone is drawn and named too.
+    await page.setViewportSize({ width: 1360, height: 900 });
+    await page.goto(`${app.url}/substances/${substanceId}/fits/new`);
+    await page.getByLabel(`Use ${B2}`).waitFor();
+    // With the posterior and, as its prior, the substance's approved LJ 12-6 set from the demo.
+    await page.getByRole('switch', { name: 'Sample the posterior' }).check();
+    await page.getByLabel('Steps per walker').fill('300');
+    const prior = page.getByLabel('Gaussian prior from an approved set');
+    expect(await prior.getByRole('option').count()).toBeGreaterThan(1);
+    const priorSetId = await prior.getByRole('option').nth(1).getAttribute('value');
+    await prior.selectOption(priorSetId!);
+    const [jointRequest] = await Promise.all([
+      page.waitForRequest((r) => r.method() === 'POST' && r.url().endsWith('/api/fits')),
+      page.getByRole('button', { name: 'Run fit' }).click(),
+    ]);
+    expect(jointRequest.postDataJSON().options.posterior).toEqual({
+      samples: 300,
+      seed: POSTERIOR_SEED,
+      prior: { parameterSetId: Number(priorSetId) },
+    });
+    await page.waitForURL(/\/fits\/\d+$/);
+    await page.getByText('Succeeded', { exact: true }).waitFor({ timeout: 90_000 });
+    await page.getByText(/times the bivariate Gaussian of/).waitFor();
+    const jointLegend = await page.getByRole('list', { name: 'Legend of the ε–σ plot' }).getByRole('listitem').allTextContents();
+    expect(jointLegend).toContain('B2 alone, 95 %');
+    expect(jointLegend.slice(-2)).toEqual(['linearised 95 % region', 'best fit']);
+    expect(await page.getByRole('img', { name: /the 95 % regions of B2( and viscosity)? fitted alone/ }).count()).toBe(1);
+    await page
+      .getByRole('figure', { name: '95 % regions of ε/k_B and σ' })
+      .screenshot({ path: path.join(SCREENSHOT_DIR, 'fit-joint-kind-regions.png') });
     await page.close();
   });
 });
