@@ -54,7 +54,7 @@ export const simulationOriginSchema = z.strictObject({
 });
 export type SimulationOrigin = z.infer<typeof simulationOriginSchema>;
 
-/** job.input_json of a simulation (read after readStoredJson: older rows say datasetId). */
+/** job.input_json of a simulation (read after readStoredJson: older rows say datasetId; vocabulary: keep). */
 export const storedSimulationInput = z.strictObject({ state: simulationStateSchema, origin: simulationOriginSchema.optional() });
 export type SimulationInput = z.infer<typeof storedSimulationInput>;
 
@@ -92,10 +92,38 @@ export const simulationSummarySchema = z.strictObject({
   meanVolume: z.number().optional(),
   volumeVariance: z.number().optional(),
   volumeVarianceStdErr: z.number().optional(),
-  /** Engine settings as run (numbers, and the cutoff scheme). */
-  settings: z.record(z.string(), z.union([z.number(), z.string()])),
-  /** Engine diagnostics (numbers; meltQ6 null for a lattice start). */
-  diagnostics: z.record(z.string(), z.number().nullable()),
+  /** Engine settings as run; the extension limits are absent from runs stored before extensions. */
+  settings: z.strictObject({
+    ...simulationStateSchema.shape,
+    skin: z.number(),
+    thermostatTau: z.number(),
+    sampleEvery: z.number().int(),
+    tuningSteps: z.number().int(),
+    initialDensity: z.number(),
+    minEffectiveSamples: z.number().optional(),
+    maxSteps: z.number().int().optional(),
+  }),
+  /** Engine diagnostics; the step counts and melt check are absent from runs stored before them. */
+  diagnostics: z.strictObject({
+    volumeAcceptance: z.number(),
+    maxLnVolumeStep: z.number(),
+    meanTemperature: z.number(),
+    temperatureStdErr: z.number(),
+    meanPressure: z.number(),
+    meanPressureStdErr: z.number(),
+    conservedEnergyDriftPerAtomPerTime: z.number(),
+    equilibrationSample: z.number().int(),
+    equilibrationStep: z.number().int(),
+    productionSamples: z.number().int(),
+    statisticalInefficiency: z.number(),
+    effectiveSamples: z.number(),
+    blockingStdErr: z.number(),
+    totalSteps: z.number().int().optional(),
+    meltSteps: z.number().int().optional(),
+    meltQ6: z.number().nullable().optional(),
+    listBuilds: z.number().int(),
+    wallSeconds: z.number(),
+  }),
   orderParameter: z.strictObject({ q6Mean: z.number(), q6Last: z.number(), localDensityVarianceToMean: z.number(), sparseCellFraction: z.number(), bondsPerAtom: z.number() }),
   /** How many production frames went into simulation_frames (storeSimulationFrames); absent for runs stored before frames. */
   framesStored: z.number().int().optional(),

@@ -29,7 +29,7 @@ export function FitNewRoute() {
       />
       <FitSetupForm
         substanceId={substanceId}
-        measurementSets={substance.data.measurementSets}
+        measurementSets={substance.data.measurementSets ?? []}
         priorSets={priorSets}
         busy={create.isPending}
         error={create.error}

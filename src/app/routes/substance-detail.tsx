@@ -70,10 +70,10 @@ export function SubstanceDetailRoute() {
       {s.description && <p className="-mt-2 mb-6 max-w-prose text-ink-soft">{s.description}</p>}
       <div className="grid gap-6">
         <Panel title="Measurement sets">
-          {s.measurementSets.length === 0 ? (
+          {(s.measurementSets ?? []).length === 0 ? (
             <EmptyState title="No measurement sets yet">{canUpload ? 'Upload a CSV table of B2, density or viscosity values.' : 'A modeller uploads measurement tables.'}</EmptyState>
           ) : (
-            <DataTable data={s.measurementSets} columns={columns} caption={`Measurement sets of ${s.name}`} rowKey={(d) => d.id} />
+            <DataTable data={(s.measurementSets ?? [])} columns={columns} caption={`Measurement sets of ${s.name}`} rowKey={(d) => d.id} />
           )}
         </Panel>
         <SubstanceParameterSetsPanel substanceId={id} substanceName={s.name} />
@@ -82,11 +82,11 @@ export function SubstanceDetailRoute() {
             {editing ? (
               <SubstanceForm
                 initial={{ name: s.name, formula: s.formula ?? undefined, description: s.description ?? undefined, molarMassGPerMol: s.molarMassGPerMol }}
-                molarMassLocked={s.measurementSets.length > 0}
+                molarMassLocked={(s.measurementSets ?? []).length > 0}
                 submitLabel="Save changes"
                 busy={update.isPending}
                 error={update.error}
-                onSubmit={(v) => update.mutate(s.measurementSets.length > 0 ? { name: v.name, formula: v.formula ?? '', description: v.description ?? '' } : { ...v, formula: v.formula ?? '', description: v.description ?? '' }, { onSuccess: () => setEditing(false) })}
+                onSubmit={(v) => update.mutate((s.measurementSets ?? []).length > 0 ? { name: v.name, formula: v.formula ?? '', description: v.description ?? '' } : { ...v, formula: v.formula ?? '', description: v.description ?? '' }, { onSuccess: () => setEditing(false) })}
               />
             ) : (
               <p className="text-sm text-ink-soft">Created by {s.createdByName} on {formatDate(s.createdAt)}; last changed {formatDateTime(s.updatedAt)}. Edits are recorded in the audit trail.</p>

@@ -13,7 +13,7 @@ const columns = [
   col.accessor('formula', { header: 'Formula', cell: (c) => c.getValue() ?? '—' }),
   col.accessor('molarMassGPerMol', { header: 'M (g/mol)', meta: { numeric: true }, cell: (c) => c.getValue().toFixed(3) }),
   col.accessor('measurementSetCount', { header: 'Measurement sets', meta: { numeric: true } }),
-  col.accessor('kinds', { header: 'Kinds', enableSorting: false, cell: (c) => <span className="flex gap-1">{c.getValue().map((k) => <KindBadge key={k} kind={k} />)}</span> }),
+  col.accessor('kinds', { header: 'Kinds', enableSorting: false, cell: (c) => <span className="flex gap-1">{(c.getValue() ?? []).map((k) => <KindBadge key={k} kind={k} />)}</span> }),
 ];
 
 export function SubstancesRoute() {

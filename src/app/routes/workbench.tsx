@@ -20,7 +20,7 @@ function ModellerWork() {
         {substances.data.slice(0, 6).map((s) => (
           <li key={s.id} className="flex items-center justify-between gap-3 py-2">
             <Link to={`/substances/${s.id}`} className="font-semibold underline decoration-rule underline-offset-4 hover:decoration-copper">{s.name}</Link>
-            <span className="flex flex-wrap justify-end gap-1">{s.kinds.map((k) => <KindBadge key={k} kind={k} />)}</span>
+            <span className="flex flex-wrap justify-end gap-1">{(s.kinds ?? []).map((k) => <KindBadge key={k} kind={k} />)}</span>
           </li>
         ))}
       </ul>

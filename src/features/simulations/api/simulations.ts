@@ -1,73 +1,12 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { CreateSimulationBody, SimulationsFromMeasurementSetBody } from '@shared/schemas/simulations';
+import type { JobStatus, QueueHealth, Simulation, SimulationStart } from '@shared/contracts/simulation';
 import { api } from '@/lib/api-client';
-import type { SimulationCutoffScheme } from '@shared/physics/cutoff-schemes';
 
-export type JobStatus = 'queued' | 'running' | 'succeeded' | 'failed' | 'cancelled';
-
-export interface SimulationState {
-  reducedTemperature: number;
-  reducedPressure: number;
-  atoms: number;
-  steps: number;
-  cutoff: number;
-  scheme: SimulationCutoffScheme;
-  timestep: number;
-  seed: number;
-}
-
-export interface SimulationSummary {
-  reducedDensity: number;
-  stdErr: number;
-  phase: 'fluid' | 'solid' | 'two-phase';
-  reducedPotentialEnergy: number;
-  reducedPotentialEnergyStdErr: number;
-  reducedEnthalpy: number;
-  dRhoDT: number;
-  dRhoDTStdErr: number;
-  dRhoDP: number;
-  dRhoDPStdErr: number;
-  isothermalCompressibility: number;
-  diagnostics: Record<string, number>;
-  orderParameter: { q6Mean: number; q6Last: number; localDensityVarianceToMean: number; sparseCellFraction: number; bondsPerAtom: number };
-}
-
-export interface Simulation {
-  id: number;
-  status: JobStatus;
-  progress: number;
-  stage: string | null;
-  error: string | null;
-  retryable: boolean;
-  attempts: number;
-  seed: number;
-  /** Worker process that ran (or runs) it: host and process id. */
-  ranOn: string | null;
-  createdAt: string;
-  startedAt: string | null;
-  finishedAt: string | null;
-  state: SimulationState;
-  origin: { substanceId: number; measurementSetId: number; version: number; fileRow: number; temperatureK: number; pressureMPa: number; densityKgPerM3: number; epsilonK: number; sigmaAngstrom: number } | null;
-  summary: SimulationSummary | null;
-  trace?: { step: number[]; reducedDensity: number[]; reducedTemperature: number[]; potentialEnergyPerAtom: number[]; q6: number[] };
-}
-
-export interface QueueLane {
-  waiting: number;
-  active: number;
-  delayed: number;
-}
-
+// Answers of the API: the contracts in shared/contracts/simulation.ts (never declared again here).
+export type { JobStatus, Simulation, SimulationState, SimulationSummary } from '@shared/contracts/simulation';
 /** GET /api/simulations/queue: the job queue as the admin sees it. */
-export interface QueueState {
-  driver: 'sqlite' | 'redis';
-  waiting: number;
-  active: number;
-  delayed: number;
-  workers: number;
-  lanes: { simulation: QueueLane; fast: QueueLane };
-  workerList: Array<{ name: string; host: string; pid: number; threads: { simulation: number; fast: number }; active: number; startedAt: string; lastSeenAt: string }>;
-}
+export type { QueueHealth as QueueState } from '@shared/contracts/simulation';
 
 export const simulationKeys = {
   all: ['simulations'] as const,
@@ -95,7 +34,7 @@ export const simulationQueryOptions = (id: number) =>
 export const queueQueryOptions = () =>
   queryOptions({
     queryKey: simulationKeys.queue(),
-    queryFn: () => api<{ queue: QueueState }>('/simulations/queue').then((r) => r.queue),
+    queryFn: () => api<{ queue: QueueHealth }>('/simulations/queue').then((r) => r.queue),
     refetchInterval: 3000,
   });
 
@@ -106,7 +45,7 @@ export const useSimulation = (id: number) => useQuery(simulationQueryOptions(id)
 export const useStartSimulation = () => {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: CreateSimulationBody) => api<{ id: number; reused: boolean }>('/simulations', { body }),
+    mutationFn: (body: CreateSimulationBody) => api<SimulationStart>('/simulations', { body }),
     onSuccess: () => qc.invalidateQueries({ queryKey: simulationKeys.all }),
   });
 };
@@ -114,7 +53,7 @@ export const useStartSimulation = () => {
 export const useStartSimulationsFromMeasurementSet = () => {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: SimulationsFromMeasurementSetBody) => api<{ runs: Array<{ id: number; reused: boolean }> }>('/simulations/from-measurement-set', { body }),
+    mutationFn: (body: SimulationsFromMeasurementSetBody) => api<{ runs: SimulationStart[] }>('/simulations/from-measurement-set', { body }),
     onSuccess: () => qc.invalidateQueries({ queryKey: simulationKeys.all }),
   });
 };
