@@ -156,7 +156,7 @@ describe('export', () => {
     // One known figure: 1 K × R = 8.314462618 J/mol (CODATA 2018 R, to the digits published).
     expect(R_J_PER_MOL_K).toBeCloseTo(8.314462618, 9);
     expect(doc.parameterSet).toMatchObject({ id: v2, version: 2, state: 'approved', approvedBy: card.approvedByName });
-    expect(doc.provenance.measurementSets[0].doi).toBe('10.1000/epsigma.catalog.1');
+    expect(doc.provenance.datasets[0].doi).toBe('10.1000/epsigma.catalog.1'); // vocabulary: keep (export format v1)
   });
 
   it('CSV carries the chosen units and the engine fragments the engines’ own units', async () => {

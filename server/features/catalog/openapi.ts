@@ -77,6 +77,10 @@ export function openApiDocument(): OpenApiDocument {
         'Read-only access to approved Lennard-Jones 12-6 parameter sets: the catalog, exports, combining-rule mixtures and the JSON Schemas of the export formats. ' +
         'Authenticate with a personal API token (`Authorization: Bearer …`, created on the Tokens page) or a signed-in session. Tokens reach only the operations listed here and only with GET; ' +
         'any other route or method answers 403. ε is ε/k_B in K and σ in Å unless a field name says otherwise. ' +
+        'Names follow one vocabulary: a measurement set (not dataset) has a kind (not property), people (not users), units in field names ' + // vocabulary: keep
+        '(molarMassGPerMol, pressureMinMPa). Requests written with the earlier names are still accepted and answered with the new ones: ' +
+        'the routes /api/datasets/…, /api/users/… and /api/simulations/from-dataset, ' + // vocabulary: keep
+        'and the request fields datasets, datasetId, property and molarMass. ' + // vocabulary: keep
         'Fitted model parameters are not validated property data for pressure, safety or process design; defer to local codes and licensed engineering practice.',
     },
     servers: [{ url: '/api' }],
@@ -136,7 +140,7 @@ export function openApiDocument(): OpenApiDocument {
           summary: 'B2, dilute-gas viscosity or density predicted by an approved or superseded set at your own states, with the propagated uncertainty and a mark outside the validity range',
           parameters: [
             idParameter,
-            { name: 'kind', in: 'query', required: true, description: 'property', schema: { type: 'string', enum: ['b2', 'viscosity', 'density'] } },
+            { name: 'kind', in: 'query', required: true, description: 'kind of the predicted quantity', schema: { type: 'string', enum: ['b2', 'viscosity', 'density'] } },
             { name: 'temperaturesK', in: 'query', required: true, description: 'comma-separated temperatures in K (1–200)', schema: { type: 'string', examples: ['150,200,300'] } },
             { name: 'pressuresMPa', in: 'query', description: 'for densities: one pressure in MPa per temperature, comma-separated', schema: { type: 'string' } },
           ],
