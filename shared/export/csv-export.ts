@@ -12,7 +12,7 @@
  * nothing else. Numeric values are always written from numbers, so "-1.5" stays -1.5, while a name
  * "-1+2" or "=1" is escaped.
  */
-import type { ExportableParameterSet, ExportOptions } from './parameter-set-export';
+import type { ExportableParameterSet, ExportOptions } from './exportable-parameter-set';
 import type { EnergyUnit, LengthUnit } from '../physics/parameter-units';
 import { convertEpsilon, convertSigma } from '../physics/parameter-units';
 import { mixtureTable, COMBINING_RULE_INFO, type CombiningRule } from '../mixing/combining-rules';

@@ -2,7 +2,7 @@
  * Pieces every export format shares: the caution text, input checks, file names, one-line comment text,
  * number formatting for engine input, and the validity/cutoff summaries of a mixture.
  */
-import type { ExportableParameterSet } from './parameter-set-export';
+import type { ExportableParameterSet } from './exportable-parameter-set';
 import { roundValidityPressureMPa, roundValidityTemperatureK } from '../parameter-sets/validity';
 import type { CombiningRule } from '../mixing/combining-rules';
 import { CUTOFF_SCHEMES, type CutoffScheme } from '../physics/cutoff-schemes';
@@ -114,10 +114,13 @@ export function mixtureFileBaseName(sets: readonly ExportableParameterSet[], rul
  */
 export function oneLine(text: string | null | undefined): string {
   if (text == null) return '';
-  return String(text)
-    .replace(/[\u0000-\u001f\u007f-\u009f\u2028\u2029]+/g, ' ')
-    .replace(/\s+/g, ' ')
-    .trim();
+  return (
+    String(text)
+      // eslint-disable-next-line no-control-regex -- matching control characters is the point: they must not reach the file
+      .replace(/[\u0000-\u001f\u007f-\u009f\u2028\u2029]+/g, ' ')
+      .replace(/\s+/g, ' ')
+      .trim()
+  );
 }
 
 /** A number for engine input: 8 significant digits, plain notation in the usual range, no trailing zeros. */

@@ -10,7 +10,7 @@
  * The six-column atomtypes form "name mass charge ptype V W" (no atomic number, no bonded type) is the one
  * grompp recognises by a single-letter ptype in the fourth field (GROMACS source, toppush.cpp, push_at).
  */
-import type { ExportableParameterSet } from './parameter-set-export';
+import type { ExportableParameterSet } from './exportable-parameter-set';
 import { COMBINING_RULE_INFO, mixtureTable, type CombiningRule } from '../mixing/combining-rules';
 import { convertEpsilon, convertSigma } from '../physics/parameter-units';
 import {

@@ -5,7 +5,7 @@
  * Every quantity carries its unit in the field name; the JSON Schemas are in json-schema.ts and
  * docs/export-formats.md describes each field. A new field or meaning means a new format version.
  */
-import type { ExportableParameterSet } from './parameter-set-export';
+import type { ExportableParameterSet } from './exportable-parameter-set';
 import { COMBINING_RULE_INFO, mixtureTable, type CombiningRule, type PairKind } from '../mixing/combining-rules';
 import { convertEpsilon, convertSigma } from '../physics/parameter-units';
 import { CAUTION_TEXT, SCHEME_DESCRIPTION, tidy, commonValidity, isMie, mixtureCutoff, potentialText, validityOf, type ValidityRange } from './export-common';

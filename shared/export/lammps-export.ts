@@ -10,7 +10,7 @@
  * The fragment goes after the box exists (read_data or create_box); the units command is given as a
  * comment because it must come before the box is created.
  */
-import type { ExportableParameterSet } from './parameter-set-export';
+import type { ExportableParameterSet } from './exportable-parameter-set';
 import { COMBINING_RULE_INFO, mixtureTable, type CombiningRule } from '../mixing/combining-rules';
 import { convertEpsilon } from '../physics/parameter-units';
 import { ANGSTROM_M, ATOMIC_MASS_KG, BOLTZMANN_J_PER_K } from '../physics/constants';

@@ -3,53 +3,22 @@
  * `ExportableParameterSet`; everything here is pure (no Node-only APIs) so the server routes
  * (GET /api/parameter-sets/:id/export, GET /api/mixtures) and the browser share it.
  */
-import { isEnergyUnit, isLengthUnit, ENERGY_UNITS, LENGTH_UNITS, type EnergyUnit, type LengthUnit } from '../physics/parameter-units';
+import { isEnergyUnit, isLengthUnit, ENERGY_UNITS, LENGTH_UNITS } from '../physics/parameter-units';
 import { COMBINING_RULES, isCombiningRule, type CombiningRule } from '../mixing/combining-rules';
 import { parameterSetJsonText, mixtureJsonText } from './json-export';
 import { parameterSetsToCsv, mixtureToCsv } from './csv-export';
 import { lammpsLjMixture, lammpsLjParameterSet, lammpsParameterSet, lammpsMixture } from './lammps-export';
 import { gromacsParameterSet, gromacsMixture } from './gromacs-export';
 import { assertExportable, fileBaseName, isMie, mixtureFileBaseName, ExportError } from './export-common';
-import type { CutoffScheme } from '../physics/cutoff-schemes';
+import type { ExportableParameterSet, ExportOptions } from './exportable-parameter-set';
 
-export interface ExportableParameterSet {
-  id: number;
-  version: number;
-  substance: { id: number; name: string; formula?: string | null; molarMassGPerMol: number };
-  /** 'mie' for a Mie λr-6 set (with repulsiveExponent); 'lj-12-6' otherwise. */
-  model: 'lj-12-6' | 'mie';
-  /** λr of a Mie set (absent or 12: LJ 12-6). */
-  repulsiveExponent?: number;
-  epsilonK: number;
-  sigmaAngstrom: number;
-  stdErr: { epsilonK: number | null; sigmaAngstrom: number | null };
-  /** Correlation coefficient of the ε and σ estimates from the fit covariance. */
-  correlation: number | null;
-  scheme: CutoffScheme;
-  /** rc/σ for the truncated schemes; null for the full potential. */
-  cutoffSigma: number | null;
-  validity: { temperatureMinK: number; temperatureMaxK: number; pressureMinMPa?: number | null; pressureMaxMPa?: number | null };
-  approvedAt: string | null;
-  approvedBy: string | null;
-  state: string;
-  fitId: number;
-  measurementSets: Array<{ id: number; version: number; kind: string; name: string; source?: string | null; doi?: string | null }>;
-}
+export type { ExportableParameterSet, ExportOptions };
 
 export const EXPORT_FORMATS = ['json', 'csv', 'lammps-real', 'lammps-metal', 'lammps-lj', 'gromacs'] as const;
 export type ExportFormat = (typeof EXPORT_FORMATS)[number];
 
 export function isExportFormat(value: unknown): value is ExportFormat {
   return typeof value === 'string' && (EXPORT_FORMATS as readonly string[]).includes(value);
-}
-
-/**
- * Display units for the CSV export (extra columns next to the canonical K and Å ones). JSON always carries
- * every unit; the engine fragments always use the engine's own units, so these options do not touch them.
- */
-export interface ExportOptions {
-  energyUnit?: EnergyUnit;
-  lengthUnit?: LengthUnit;
 }
 
 /** Spellings of Å that survive URLs and keyboards without the letter. */
