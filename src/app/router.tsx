@@ -3,6 +3,7 @@ import { LoadingState } from '@/components/ui/states';
 import { RouteError } from './route-error';
 import { NotFoundRoute } from './routes/not-found';
 import { ProtectedRoute } from './routes/protected';
+import { RenamedPath } from './routes/renamed-path';
 import { SignInRoute } from './routes/sign-in';
 
 /** Pages load lazily; everything but sign-in sits behind the session check. */
@@ -21,8 +22,9 @@ export const router = createBrowserRouter([
           { path: 'substances', lazy: () => import('./routes/substances').then((m) => ({ Component: m.SubstancesRoute })) },
           { path: 'substances/:substanceId', lazy: () => import('./routes/substance-detail').then((m) => ({ Component: m.SubstanceDetailRoute })) },
           { path: 'substances/:substanceId/upload', lazy: () => import('./routes/measurement-set-upload').then((m) => ({ Component: m.MeasurementSetUploadRoute })) },
-          { path: 'measurementSets/:measurementSetId', lazy: () => import('./routes/measurement-set-detail').then((m) => ({ Component: m.MeasurementSetDetailRoute })) },
-          { path: 'measurementSets/:measurementSetId/new-version', lazy: () => import('./routes/measurement-set-upload').then((m) => ({ Component: m.MeasurementSetNewVersionRoute })) },
+          { path: 'measurement-sets/:measurementSetId', lazy: () => import('./routes/measurement-set-detail').then((m) => ({ Component: m.MeasurementSetDetailRoute })) },
+          { path: 'measurement-sets/:measurementSetId/new-version', lazy: () => import('./routes/measurement-set-upload').then((m) => ({ Component: m.MeasurementSetNewVersionRoute })) },
+          { path: 'datasets/*', element: <RenamedPath from="datasets" to="measurement-sets" /> }, // vocabulary: keep (old addresses)
           { path: 'substances/:substanceId/fits', lazy: () => import('./routes/substance-fits').then((m) => ({ Component: m.SubstanceFitsRoute })) },
           { path: 'substances/:substanceId/fits/new', lazy: () => import('./routes/fit-new').then((m) => ({ Component: m.FitNewRoute })) },
           { path: 'fits/compare', lazy: () => import('./routes/fit-compare').then((m) => ({ Component: m.FitCompareRoute })) },
@@ -39,7 +41,6 @@ export const router = createBrowserRouter([
           { path: 'people', lazy: () => import('./routes/people').then((m) => ({ Component: m.PeopleRoute })) },
           { path: 'mailbox', lazy: () => import('./routes/mailbox').then((m) => ({ Component: m.MailboxRoute })) },
           { path: 'audit', lazy: () => import('./routes/audit-trail').then((m) => ({ Component: m.AuditTrailRoute })) },
-          { path: 'validation-suite', lazy: () => import('./routes/validation-suite').then((m) => ({ Component: m.ValidationSuiteRoute })) },
           { path: 'validation-suite', lazy: () => import('./routes/validation-suite').then((m) => ({ Component: m.ValidationSuiteRoute })) },
           { path: 'account', lazy: () => import('./routes/account').then((m) => ({ Component: m.AccountRoute })) },
           { path: '*', element: <NotFoundRoute /> },
