@@ -1,11 +1,13 @@
 import { Router, type Response } from 'express';
 import { MIXTURE_JSON_SCHEMA, PARAMETER_SET_JSON_SCHEMA } from '../../../shared/export/json-schema';
 import type { ExportResult } from '../../../shared/export/parameter-set-export';
+import { catalogListView, mixtureView, parameterCardView, predictionsView } from '../../../shared/contracts/catalog';
 import { catalogQuery, exportQuery, mixtureQuery, predictionQuery } from '../../../shared/schemas/catalog';
 import { predictionsOfSet } from './predictions.service';
 import type { AppContext } from '../../app-context';
 import { currentUser, requirePolicy } from '../../common/auth-middleware';
 import { notFound } from '../../common/errors';
+import { sendView } from '../../common/respond';
 import { idParams, validParams, validQuery } from '../../common/validate';
 import { cachedCatalogSearch, exportableSet, exportMixtureFile, exportSetFile, mixtureJson, parameterCard } from './catalog.service';
 import { openApiDocument } from './openapi';
@@ -36,12 +38,15 @@ export function catalogRoutes(ctx: AppContext): Router {
   const searchCatalog = cachedCatalogSearch(db, ctx.sqlite);
   router.get('/catalog', requirePolicy('catalog:read'), async (req, res) => {
     const query = validQuery(catalogQuery, req);
-    res.type('application/json').send(await searchCatalog(query));
+    const json = await searchCatalog(query);
+    // The entries' JSON text is cached (see cachedCatalogSearch); with response checks on, it is parsed and checked first.
+    if (res.app.locals.checkResponses === true) sendView(res, catalogListView, JSON.parse(json));
+    else res.type('application/json').send(json);
   });
 
   router.get('/catalog/:id', requirePolicy('catalog:read'), async (req, res) => {
     const { id } = validParams(idParams, req);
-    res.json(await parameterCard(db, id, currentUser(res)));
+    sendView(res, parameterCardView, await parameterCard(db, id, currentUser(res)));
   });
 
   router.get('/parameter-sets/:id/export', requirePolicy('catalog:export'), async (req, res) => {
@@ -55,7 +60,7 @@ export function catalogRoutes(ctx: AppContext): Router {
   router.get('/parameter-sets/:id/predictions', requirePolicy('catalog:read'), async (req, res) => {
     const { id } = validParams(idParams, req);
     const query = validQuery(predictionQuery, req);
-    res.json(await predictionsOfSet(db, id, currentUser(res), query));
+    sendView(res, predictionsView, await predictionsOfSet(db, id, currentUser(res), query));
   });
 
   router.get('/mixtures', requirePolicy('catalog:export'), async (req, res) => {
@@ -66,7 +71,7 @@ export function catalogRoutes(ctx: AppContext): Router {
     const fitted = await approvedPairsFor(db, ids);
     for (const set of sets) Object.assign(set, { fittedPairs: fitted.filter((f) => f.setIdA === set.id || f.setIdB === set.id) });
     if (format) sendFile(res, exportMixtureFile(sets, rule, format, units));
-    else res.json(mixtureJson(sets, rule));
+    else sendView(res, mixtureView, mixtureJson(sets, rule));
   });
 
   // Public: the schemas and the API description hold no data, and tools fetch them without credentials.

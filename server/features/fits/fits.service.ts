@@ -1,21 +1,33 @@
 import type { FitMeasurementSet, LjFitOptions } from '../../../shared/fitting/lj-fit';
 import { isFitKind, MIE_KINDS_TEXT, PROPERTY_MODELS, type PropertyModel } from '../../../shared/fitting/property-models';
 import type { CreateFitBody } from '../../../shared/schemas/fits';
-import { PROPERTY_KINDS, valueUnitOf, type PropertyKind } from '../../../shared/measurements/property-kinds';
-import type { AppContext } from '../../app-context';
+import { PROPERTY_KINDS, type PropertyKind } from '../../../shared/measurements/property-kinds';
+import type { JobQueue } from '../../jobs/job-runner';
 import type { CurrentUser } from '../../common/auth-middleware';
 import { AppError, notFound } from '../../common/errors';
 import type { Db } from '../../db/database';
 import type { JobKind } from '../../jobs/job-runner';
+
+/** What starting a fit uses: the database, the job queue and the code version recorded on the fit. */
+export interface FitDeps {
+  db: Db;
+  jobs: JobQueue;
+  codeVersion: string;
+}
 import { recordAudit } from '../audit/audit.service';
-import { findMeasurementSet, findVersionRow } from '../measurement-sets/measurement-sets.repository';
+import { findMeasurementSet, findVersionRow, latestVersionNumber } from '../measurement-sets/measurement-sets.repository';
 import { loadVersionForFit } from '../measurement-sets/measurement-sets.service';
 import { findSubstance } from '../substances/substances.repository';
 import type { MdSettings } from '../../../shared/schemas/simulations';
 import { DENSITY_FIT_DEFAULTS, runDensityFit } from './density-fit';
 import { recordFitOutcome } from './fit-outcome';
 import { resolvePosteriorPrior } from './posterior-prior';
-import { readStoredJson } from '../../../shared/schemas/old-names';
+import { findFit, insertFit, listFitRowsOfSubstance, nextFitNumber } from './fits.repository';
+import { toFitListItemView } from './fits.view';
+
+// Kept here for the importers of fits.service (parameter sets, scripts); the homes are fits.repository.ts and fits.view.ts.
+export { findFit } from './fits.repository';
+export { toFitView } from './fits.view';
 import type { MeasurementSetRef } from '../../../shared/contracts/measurement-set-ref';
 
 /** The exact measurement set versions a fit used, frozen on the fit row (contract: shared/contracts/measurement-set-ref.ts). */
@@ -67,7 +79,7 @@ export const fitJobKind: JobKind = {
 };
 
 /** Checks the request against the database, freezes the measurement set versions and queues the fit. */
-export async function createFit(ctx: AppContext, actor: CurrentUser, body: CreateFitBody) {
+export async function createFit(ctx: FitDeps, actor: CurrentUser, body: CreateFitBody) {
   const substance = await findSubstance(ctx.db, body.substanceId);
   if (!substance) throw new AppError(422, 'unknown_substance', `Substance ${body.substanceId} does not exist.`, [{ field: 'substanceId', message: 'no such substance' }]);
   const refs: FitMeasurementSetRef[] = [];
@@ -81,7 +93,7 @@ export async function createFit(ctx: AppContext, actor: CurrentUser, body: Creat
     if (!isFitKind(kind)) {
       throw new AppError(422, 'kind_not_fittable', `Measurement set "${measurementSet.name}" holds ${PROPERTY_KINDS[kind as PropertyKind].label}, which this fit does not take.`, [{ field, message: `kind ${kind} not supported by the fit` }]);
     }
-    const version = wanted.version ?? (await ctx.db.selectFrom('measurementSetVersion').select((eb) => eb.fn.max('version').as('v')).where('measurementSetId', '=', measurementSet.id).executeTakeFirstOrThrow()).v;
+    const version = wanted.version ?? (await latestVersionNumber(ctx.db, measurementSet.id));
     const versionRow = await findVersionRow(ctx.db, measurementSet.id, Number(version));
     if (!versionRow) throw new AppError(422, 'unknown_version', `Measurement set "${measurementSet.name}" has no version ${version}.`, [{ field: `measurementSets.${i}.version`, message: 'no such version' }]);
     const unknownRows = (wanted.excludeRows ?? []).filter((r) => r > versionRow.rowCount);
@@ -124,93 +136,19 @@ export async function createFit(ctx: AppContext, actor: CurrentUser, body: Creat
   const input: FitJobInput = { measurementSets: refs, options, ...(hasDensity ? { density: { ...DENSITY_FIT_DEFAULTS, ...density } } : {}), createdBy: actor.id };
   const now = new Date().toISOString();
   return ctx.db.transaction().execute(async (tx) => {
-    const last = await tx.selectFrom('fit').select((eb) => eb.fn.max('number').as('n')).where('substanceId', '=', substance.id).executeTakeFirst();
-    const number = Number(last?.n ?? 0) + 1;
+    const number = await nextFitNumber(tx, substance.id);
     const job = await ctx.jobs.enqueue({ kind: 'fit', input, seed: 0, createdBy: actor.id }, tx);
-    const fit = await tx
-      .insertInto('fit')
-      .values({ substanceId: substance.id, number, jobId: job.id, model: fitOptions.model ?? 'lj-12-6', measurementSetsJson: JSON.stringify(refs), optionsJson: JSON.stringify({ ...options, ...(input.density ? { density: input.density } : {}) }), codeVersion: ctx.codeVersion, createdBy: actor.id, createdAt: now })
-      .returning('id')
-      .executeTakeFirstOrThrow();
-    await recordAudit(tx, { actor, action: 'fit.started', targetType: 'fit', targetId: fit.id, summary: `${actor.email} started Fit #${number} of ${substance.name} on ${refs.map((r) => `${r.name} v${r.version}${r.excludeRows ? ` without row${r.excludeRows.length > 1 ? 's' : ''} ${r.excludeRows.join(', ')}` : ''}`).join(', ')}${heldSummary(options.fixed)}`, after: { measurementSets: refs, options } });
-    return { id: fit.id, number, jobId: job.id };
+    const fitId = await insertFit(tx, { substanceId: substance.id, number, jobId: job.id, model: fitOptions.model ?? 'lj-12-6', measurementSetsJson: JSON.stringify(refs), optionsJson: JSON.stringify({ ...options, ...(input.density ? { density: input.density } : {}) }), codeVersion: ctx.codeVersion, createdBy: actor.id, createdAt: now });
+    await recordAudit(tx, { actor, action: 'fit.started', targetType: 'fit', targetId: fitId, summary: `${actor.email} started Fit #${number} of ${substance.name} on ${refs.map((r) => `${r.name} v${r.version}${r.excludeRows ? ` without row${r.excludeRows.length > 1 ? 's' : ''} ${r.excludeRows.join(', ')}` : ''}`).join(', ')}${heldSummary(options.fixed)}`, after: { measurementSets: refs, options } });
+    return { id: fitId, number, jobId: job.id };
   });
 }
 
 const heldSummary = (fixed: LjFitOptions['fixed']) =>
   fixed?.epsilonK !== undefined ? `, ε/k_B held at ${fixed.epsilonK} K` : fixed?.sigmaAngstrom !== undefined ? `, σ held at ${fixed.sigmaAngstrom} Å` : '';
 
-export async function findFit(db: Db, id: number) {
-  return db
-    .selectFrom('fit')
-    .innerJoin('job', 'job.id', 'fit.jobId')
-    .innerJoin('substance', 'substance.id', 'fit.substanceId')
-    .innerJoin('user', 'user.id', 'fit.createdBy')
-    .select([
-      'fit.id', 'fit.number', 'fit.substanceId', 'substance.name as substanceName', 'fit.model', 'fit.measurementSetsJson', 'fit.optionsJson', 'fit.codeVersion', 'fit.createdAt', 'fit.createdBy', 'user.name as createdByName',
-      'job.id as jobId', 'job.status', 'job.progress', 'job.stage', 'job.resultJson', 'job.error', 'job.startedAt', 'job.finishedAt', 'job.seed',
-    ])
-    .where('fit.id', '=', id)
-    .executeTakeFirst();
-}
-
-export function toFitView(row: NonNullable<Awaited<ReturnType<typeof findFit>>>) {
-  const result = row.resultJson ? readStoredJson(row.resultJson) : null;
-  // The fit record says succeeded only when the computation ran and the least squares converged to an answer.
-  const status = row.status === 'succeeded' && result?.status === 'failed' ? 'failed' : row.status;
-  return {
-    id: row.id,
-    number: row.number,
-    substanceId: row.substanceId,
-    substanceName: row.substanceName,
-    model: row.model,
-    status,
-    progress: row.progress,
-    stage: row.stage,
-    measurementSets: (readStoredJson(row.measurementSetsJson) as FitMeasurementSetRef[]).map((d) => ({ ...d, valueUnit: valueUnitOf(d.kind), excludeRows: d.excludeRows ?? [], excludeReason: d.excludeReason ?? null })),
-    options: JSON.parse(row.optionsJson) as LjFitOptions,
-    codeVersion: row.codeVersion,
-    createdAt: row.createdAt,
-    createdBy: row.createdBy,
-    createdByName: row.createdByName,
-    startedAt: row.startedAt,
-    finishedAt: row.finishedAt,
-    jobId: row.jobId,
-    error: row.error ?? (result?.status === 'failed' ? result.failureReason ?? 'The fit failed.' : null),
-    // Results stored before `converged` existed say it through their status.
-    result: result ? { ...result, converged: result.status === 'succeeded' } : null,
-  };
-}
-
 export async function listFitsOfSubstance(db: Db, substanceId: number) {
-  const rows = await db
-    .selectFrom('fit')
-    .innerJoin('job', 'job.id', 'fit.jobId')
-    .innerJoin('user', 'user.id', 'fit.createdBy')
-    .select(['fit.id', 'fit.number', 'fit.createdAt', 'user.name as createdByName', 'fit.measurementSetsJson', 'job.status', 'job.progress', 'job.resultJson'])
-    .where('fit.substanceId', '=', substanceId)
-    .orderBy('fit.number', 'desc')
-    .execute();
-  return rows.map((r) => {
-    const result = r.resultJson ? readStoredJson(r.resultJson) : null;
-    return {
-      id: r.id,
-      number: r.number,
-      createdAt: r.createdAt,
-      createdByName: r.createdByName,
-      status: r.status === 'succeeded' && result?.status === 'failed' ? 'failed' : r.status,
-      progress: r.progress,
-      measurementSets: (readStoredJson(r.measurementSetsJson) as FitMeasurementSetRef[]).map((d) => ({ measurementSetId: d.measurementSetId, name: d.name, kind: d.kind, version: d.version, excludeRows: d.excludeRows ?? [] })),
-      // As on the fit page: a failed fit shows its last iterate, marked not converged, without standard errors.
-      epsilonK: result?.epsilonK ?? null,
-      sigmaAngstrom: result?.sigmaAngstrom ?? null,
-      converged: result ? result.status === 'succeeded' : null,
-      stdErr: result ? (result.status === 'succeeded' ? result.stdErr : { epsilonK: null, sigmaAngstrom: null }) : null,
-      heldParameters: result?.heldParameters ?? [],
-      reducedChi2: result?.reducedChi2 ?? null,
-      warnings: result?.warnings ?? [],
-    };
-  });
+  return (await listFitRowsOfSubstance(db, substanceId)).map(toFitListItemView);
 }
 
 export async function requireFit(db: Db, id: number) {

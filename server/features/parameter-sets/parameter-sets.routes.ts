@@ -10,8 +10,19 @@ import {
   reviseParameterSetBody,
   updateParameterSetBody,
 } from '../../../shared/schemas/parameter-sets';
+import {
+  parameterSetCommentView,
+  parameterSetDetailView,
+  parameterSetDiffView,
+  parameterSetListView,
+  parameterSetManifestView,
+  parameterSetRerunView,
+  parameterSetSummaryView,
+  reviewQueueView,
+} from '../../../shared/contracts/parameter-set';
 import type { AppContext } from '../../app-context';
 import { currentUser, requirePolicy } from '../../common/auth-middleware';
+import { sendView } from '../../common/respond';
 import { idParams, validBody, validParams, validQuery } from '../../common/validate';
 import { diffWithPrevious } from './parameter-sets.diff';
 import { manifestOf, rerunOf } from './manifest.service';
@@ -28,8 +39,8 @@ import {
   reviewParameterSet,
   reviseParameterSet,
   submitParameterSet,
-  toParameterSetSummary,
 } from './parameter-sets.service';
+import { toParameterSetView } from './parameter-sets.view';
 import { withNewFieldNames } from '../../../shared/schemas/old-names';
 
 const listQuery = z.object({
@@ -48,33 +59,33 @@ export function parameterSetRoutes(ctx: AppContext): Router {
 
   router.post('/parameter-sets', requirePolicy('parameterSet:draft'), async (req, res) => {
     const body = validBody(createParameterSetBody, req);
-    res.status(201).json(await createParameterSet(ctx, currentUser(res), body));
+    sendView(res, parameterSetSummaryView, await createParameterSet(db, currentUser(res), body), 201);
   });
 
   router.get('/parameter-sets', requirePolicy('parameterSet:read'), async (req, res) => {
     const { substanceId, state } = validQuery(listQuery, req);
-    res.json({ parameterSets: await listVisible(db, currentUser(res), { substanceId, states: state }) });
+    sendView(res, parameterSetListView, { parameterSets: await listVisible(db, currentUser(res), { substanceId, states: state }) });
   });
 
   router.get('/parameter-sets/:id', requirePolicy('parameterSet:read'), async (req, res) => {
     const { id } = validParams(idParams, req);
-    res.json(await getParameterSetDetail(db, id, currentUser(res)));
+    sendView(res, parameterSetDetailView, await getParameterSetDetail(db, id, currentUser(res)));
   });
 
   // Reproducible by anyone who may read the set: its manifest, and a re-run of a gas-phase fit compared to the last digit.
   router.get('/parameter-sets/:id/manifest', requirePolicy('parameterSet:read'), async (req, res) => {
     const { id } = validParams(idParams, req);
-    res.json(await manifestOf(db, id, currentUser(res)));
+    sendView(res, parameterSetManifestView, await manifestOf(db, id, currentUser(res)));
   });
 
   router.get('/parameter-sets/:id/rerun', requirePolicy('parameterSet:read'), async (req, res) => {
     const { id } = validParams(idParams, req);
-    res.json(await rerunOf(db, id, currentUser(res)));
+    sendView(res, parameterSetRerunView, await rerunOf(db, id, currentUser(res)));
   });
 
   router.get('/parameter-sets/:id/diff', requirePolicy('parameterSet:read'), async (req, res) => {
     const { id } = validParams(idParams, req);
-    res.json(await diffWithPrevious(db, id, currentUser(res)));
+    sendView(res, parameterSetDiffView, await diffWithPrevious(db, id, currentUser(res)));
   });
 
   router.patch('/parameter-sets/:id', requirePolicy('parameterSet:draft'), async (req, res) => {
@@ -83,47 +94,47 @@ export function parameterSetRoutes(ctx: AppContext): Router {
     const raw = sent && typeof sent === 'object' ? (sent as Record<string, unknown>) : {};
     await refuseUnlessEditable(db, currentUser(res), id, FROZEN_FIELDS.filter((f) => f in raw));
     const body = validBody(updateParameterSetBody, req);
-    res.json(await editDraft(ctx, currentUser(res), id, body));
+    sendView(res, parameterSetDetailView, await editDraft(db, currentUser(res), id, body));
   });
 
   router.post('/parameter-sets/:id/submit', requirePolicy('parameterSet:draft'), async (req, res) => {
     const { id } = validParams(idParams, req);
-    res.json(await submitParameterSet(ctx, currentUser(res), id));
+    sendView(res, parameterSetDetailView, await submitParameterSet(db, currentUser(res), id));
   });
 
   router.post('/parameter-sets/:id/review', requirePolicy('parameterSet:review'), async (req, res) => {
     const { id } = validParams(idParams, req);
     const { decision, comment } = validBody(reviewParameterSetBody, req);
-    res.json(await reviewParameterSet(ctx, currentUser(res), id, decision, comment));
+    sendView(res, parameterSetDetailView, await reviewParameterSet(db, currentUser(res), id, decision, comment));
   });
 
   router.post('/parameter-sets/:id/retire', requirePolicy('parameterSet:retire'), async (req, res) => {
     const { id } = validParams(idParams, req);
     const { reason } = validBody(retireParameterSetBody, req);
-    res.json(await retireParameterSet(ctx, currentUser(res), id, reason));
+    sendView(res, parameterSetDetailView, await retireParameterSet(db, currentUser(res), id, reason));
   });
 
   router.post('/parameter-sets/:id/revise', requirePolicy('parameterSet:draft'), async (req, res) => {
     const { id } = validParams(idParams, req);
     const body = validBody(reviseParameterSetBody, req);
-    res.status(201).json(await reviseParameterSet(ctx, currentUser(res), id, body));
+    sendView(res, parameterSetSummaryView, await reviseParameterSet(db, currentUser(res), id, body), 201);
   });
 
   router.post('/parameter-sets/:id/comments', requirePolicy('parameterSet:comment'), async (req, res) => {
     const { id } = validParams(idParams, req);
     const { body } = validBody(commentBody, req);
-    res.status(201).json(await addComment(ctx, currentUser(res), id, body));
+    sendView(res, parameterSetCommentView, await addComment(db, currentUser(res), id, body), 201);
   });
 
   router.get('/review-queue', requirePolicy('parameterSet:review'), async (_req, res) => {
     const rows = await listReviewQueue(db, currentUser(res).id);
-    res.json({ parameterSets: rows.map((r) => ({ ...toParameterSetSummary(r), submittedAt: r.submittedAt })) });
+    sendView(res, reviewQueueView, { parameterSets: rows.map((r) => ({ ...toParameterSetView(r), submittedAt: r.submittedAt })) });
   });
 
   router.get('/substances/:id/parameter-sets', requirePolicy('parameterSet:read'), async (req, res) => {
     const { id } = validParams(idParams, req);
     await requireSubstanceExists(db, id);
-    res.json({ parameterSets: await listVisible(db, currentUser(res), { substanceId: id }) });
+    sendView(res, parameterSetListView, { parameterSets: await listVisible(db, currentUser(res), { substanceId: id }) });
   });
 
   return router;
