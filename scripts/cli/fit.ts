@@ -38,7 +38,7 @@ function loadMeasurementSet(path: string, molarMassGPerMol: number | undefined):
   try {
     text = readFileSync(path, 'utf8');
   } catch (err) {
-    throw new Error(`cannot read --data ${path}: ${errorMessage(err)}`);
+    throw new Error(`cannot read --data ${path}: ${errorMessage(err)}`, { cause: err });
   }
   const parsed = parseMeasurementCsv(text, molarMassGPerMol !== undefined ? { molarMassGPerMol } : {});
   if (!parsed.ok) {

@@ -8,7 +8,8 @@ import { gasPhaseFit, type GasFitOptions } from '../../shared/fitting/gas-fit';
 import { runNpt, type NptOptions } from '../../shared/physics/md/npt';
 
 export type ProgressReport = { fraction: number; stage: string };
-export type Task = (payload: any, progress: (p: ProgressReport) => void) => unknown | Promise<unknown>;
+/** A worker task; each names its own payload type (a method's parameters are compared bivariantly, so the table below may hold them all). */
+export type Task = { run(payload: unknown, progress: (p: ProgressReport) => void): unknown | Promise<unknown> }['run'];
 
 export interface FitTaskPayload {
   measurementSets: FitMeasurementSet[];

@@ -57,7 +57,7 @@ export function fitMieWithExponent(measurementSets: FitMeasurementSet[], options
     chi2(n);
   });
   const values = GRID.map((n) => chi2(n));
-  let k = values.indexOf(Math.min(...values));
+  const k = values.indexOf(Math.min(...values));
   if (!Number.isFinite(values[k])) {
     const failed = at(12);
     return { ...failed, status: 'failed', converged: false, failureReason: `no λr from 8 to 36 gave a converged fit: ${failed.failureReason ?? 'fit failed'}`, repulsiveExponentFitted: true, repulsiveExponentProfile: { values: GRID, chi2: values, best: 12, stdErr: null, lower95: null, upper95: null } };
@@ -96,7 +96,6 @@ export function fitMieWithExponent(measurementSets: FitMeasurementSet[], options
   const hi1 = crossing(s2, rHi);
   const lower95 = crossing(3.841458820694124 * s2, rLo);
   const upper95 = crossing(3.841458820694124 * s2, rHi);
-  k = 0;
   const profile: RepulsiveExponentProfile = {
     // The grid and the best λr (the refinement's own evaluations are left out to keep the curve readable).
     values: [...new Set([...GRID, best])].sort((x, y) => x - y),

@@ -15,16 +15,18 @@ const linkClass = ({ isActive }: { isActive: boolean }) =>
  */
 export function AppShell({ me, onSignOut, signingOut, notices }: { me: Me; onSignOut: () => void; signingOut: boolean; notices?: ReactNode }) {
   const items = NAV_ITEMS.filter((item) => !item.policy || hasPolicy(me.roles, item.policy));
-  const [open, setOpen] = useState(false);
+  // The menu is open only on the page where it was opened, so following a link closes it without an effect.
+  const [openOn, setOpenOn] = useState<string | null>(null);
   const menuId = useId();
   const location = useLocation();
   const toggle = useRef<HTMLButtonElement>(null);
-  useEffect(() => setOpen(false), [location.pathname]);
+  const open = openOn === location.pathname;
+  const setOpen = (next: boolean) => setOpenOn(next ? location.pathname : null);
   useEffect(() => {
     if (!open) return;
     const onKey = (e: KeyboardEvent) => {
       if (e.key === 'Escape') {
-        setOpen(false);
+        setOpenOn(null);
         toggle.current?.focus();
       }
     };
@@ -71,7 +73,7 @@ export function AppShell({ me, onSignOut, signingOut, notices }: { me: Me; onSig
               type="button"
               aria-expanded={open}
               aria-controls={menuId}
-              onClick={() => setOpen((o) => !o)}
+              onClick={() => setOpen(!open)}
               className="inline-flex items-center gap-2 rounded-md border border-rule bg-paper-raised px-3 py-1.5 text-sm font-semibold text-ink hover:bg-paper-deep xl:hidden"
             >
               <svg width="16" height="16" viewBox="0 0 16 16" aria-hidden="true">
