@@ -1,34 +1,57 @@
-import { useState } from 'react';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useForm } from 'react-hook-form';
 import { Link } from 'react-router-dom';
+import type { z } from 'zod';
 import { ROLE_LABELS } from '@shared/auth/roles';
+import { FIELD_LABELS } from '@shared/schemas/field-labels';
+import { changePasswordBody } from '@shared/schemas/people';
 import { Button } from '@/components/ui/button';
 import { Field, Input } from '@/components/ui/field';
 import { PageHeader, Panel } from '@/components/ui/states';
+import { invalidProps, sameNames, useServerFieldErrors } from '@/lib/forms';
 import { useSignedIn } from '@/lib/signed-in';
 import { useChangePassword } from '@/features/auth/api/sign-in';
 
 export function AccountRoute() {
   const me = useSignedIn();
   const change = useChangePassword();
-  const [current, setCurrent] = useState('');
-  const [next, setNext] = useState('');
-  const fieldError = (field: string) => change.error && 'details' in change.error ? (change.error as { details?: { field?: string; message: string }[] }).details?.find((d) => d.field === field)?.message : undefined;
+  const form = useForm<z.input<typeof changePasswordBody>, unknown, z.output<typeof changePasswordBody>>({
+    resolver: zodResolver(changePasswordBody),
+    defaultValues: { currentPassword: '', newPassword: '' },
+  });
+  const errors = form.formState.errors;
+  useServerFieldErrors(change.error, form.setError, sameNames(['currentPassword', 'newPassword']));
   return (
     <>
       <PageHeader eyebrow="Account" title={me.name} subtitle={`${me.email} · ${me.roles.map((r) => ROLE_LABELS[r]).join(', ')}`} />
       <Panel title="Change password" className="max-w-md">
         <form
+          noValidate
           className="grid gap-4"
-          onSubmit={(e) => {
-            e.preventDefault();
-            change.mutate({ currentPassword: current, newPassword: next }, { onSuccess: () => { setCurrent(''); setNext(''); } });
-          }}
+          onSubmit={form.handleSubmit((body) => change.mutate(body, { onSuccess: () => form.reset() }))}
         >
-          <Field label="Current password" htmlFor="current-password" error={fieldError('currentPassword')}>
-            <Input id="current-password" type="password" autoComplete="current-password" value={current} onChange={(e) => setCurrent(e.target.value)} />
+          <Field label={FIELD_LABELS.currentPassword} htmlFor="current-password" error={errors.currentPassword?.message}>
+            <Input
+              id="current-password"
+              type="password"
+              autoComplete="current-password"
+              {...invalidProps('current-password', errors.currentPassword?.message)}
+              {...form.register('currentPassword')}
+            />
           </Field>
-          <Field label="New password" htmlFor="new-password" hint="At least 12 characters. Your other sessions are signed out." error={fieldError('newPassword')}>
-            <Input id="new-password" type="password" autoComplete="new-password" value={next} onChange={(e) => setNext(e.target.value)} />
+          <Field
+            label={FIELD_LABELS.newPassword}
+            htmlFor="new-password"
+            hint="At least 12 characters. Your other sessions are signed out."
+            error={errors.newPassword?.message}
+          >
+            <Input
+              id="new-password"
+              type="password"
+              autoComplete="new-password"
+              {...invalidProps('new-password', errors.newPassword?.message)}
+              {...form.register('newPassword')}
+            />
           </Field>
           {change.isError && <p role="alert" className="text-sm text-changes">{change.error.message}</p>}
           {change.isSuccess && <p role="status" className="text-sm text-approved">Password changed.</p>}
