@@ -1,12 +1,23 @@
-import { useState } from 'react';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useForm, useWatch } from 'react-hook-form';
+import type { z } from 'zod';
 import { formatDateTime } from '@shared/format/dates';
+import { commentBody } from '@shared/schemas/parameter-sets';
 import { Button } from '@/components/ui/button';
 import { Field, TextArea } from '@/components/ui/field';
+import { invalidProps, sameNames, useServerFieldErrors } from '@/lib/forms';
 import { useCommentOnParameterSet, type ParameterSetDetail } from '../api/parameter-sets';
 
 export function CommentThread({ set }: { set: ParameterSetDetail }) {
-  const [body, setBody] = useState('');
   const comment = useCommentOnParameterSet(set.id);
+  const form = useForm<z.input<typeof commentBody>, unknown, z.output<typeof commentBody>>({
+    resolver: zodResolver(commentBody),
+    defaultValues: { body: '' },
+  });
+  const body = useWatch({ control: form.control, name: 'body' });
+  useServerFieldErrors(comment.error, form.setError, sameNames(['body']));
+  // A refusal that names no field (403, 409) stays under the box as before.
+  const message = form.formState.errors.body?.message ?? comment.error?.message;
   return (
     <div className="grid gap-4">
       {set.comments.length === 0 ? (
@@ -23,14 +34,12 @@ export function CommentThread({ set }: { set: ParameterSetDetail }) {
       )}
       {set.canComment && (
         <form
+          noValidate
           className="grid gap-2"
-          onSubmit={(e) => {
-            e.preventDefault();
-            if (body.trim()) comment.mutate({ body }, { onSuccess: () => setBody('') });
-          }}
+          onSubmit={form.handleSubmit((values) => comment.mutate(values, { onSuccess: () => form.reset() }))}
         >
-          <Field label="Add a comment" htmlFor="comment-body" error={comment.error?.message}>
-            <TextArea id="comment-body" rows={3} value={body} onChange={(e) => setBody(e.target.value)} />
+          <Field label="Add a comment" htmlFor="comment-body" error={message}>
+            <TextArea id="comment-body" rows={3} {...invalidProps('comment-body', message)} {...form.register('body')} />
           </Field>
           <div>
             <Button type="submit" busy={comment.isPending} disabled={!body.trim()}>Post comment</Button>

@@ -17,7 +17,7 @@ type DraftFormValues = z.input<typeof draftFormShape>;
 /** The boxes as typed become the request, which createParameterSetBody (the server's schema) then judges. */
 const draftFormSchema = (fitId: number) =>
   draftFormShape
-    .transform((v) => {
+    .transform((v): z.input<typeof createParameterSetBody> => {
       const cutoffSigma = v.scheme !== 'full-potential' ? decimalOf(v.cutoffSigma) : undefined;
       return { fitId, scheme: v.scheme, ...(cutoffSigma !== undefined ? { cutoffSigma } : {}), validity: toValidity(v.validity), rationale: v.rationale };
     })
