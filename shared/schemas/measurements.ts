@@ -232,3 +232,6 @@ export const apiRowSchemas = {
   vapourPressure: vapourPressureRowSchema.omit({ kind: true }),
   b12: b12RowSchema.omit({ kind: true }),
 } as const;
+
+/** POST /api/measurement-sets/:id/withdraw (the withdraw form validates with it too). */
+export const withdrawMeasurementSetBody = z.object({ reason: z.string().trim().min(3, 'give a reason of at least 3 characters').max(2000) });

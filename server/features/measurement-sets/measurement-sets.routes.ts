@@ -1,7 +1,7 @@
 import { Router, type RequestHandler } from 'express';
 import multer from 'multer';
 import { z } from 'zod';
-import { measurementSetUploadFields, measurementSetVersionFields } from '../../../shared/schemas/measurements';
+import { measurementSetUploadFields, measurementSetVersionFields, withdrawMeasurementSetBody } from '../../../shared/schemas/measurements';
 import { measurementSetDetailView, measurementSetListView, measurementSetUploadView, measurementSetWithdrawView } from '../../../shared/contracts/measurement-set';
 import { hasPolicy, mayChangeWorkOf, refusalMessage } from '../../../shared/auth/roles';
 import { currentUser, requirePolicy, requireUser } from '../../common/auth-middleware';
@@ -49,7 +49,6 @@ function requireFile(file: Express.Multer.File | undefined): UploadedFile {
 const listQuery = z.object({ substanceId: z.coerce.number().int().positive().optional() });
 const versionQuery = z.object({ version: z.coerce.number().int().positive().optional() });
 const versionParams = z.object({ id: z.coerce.number().int().positive(), version: z.coerce.number().int().positive() });
-const withdrawBody = z.object({ reason: z.string().trim().min(3, 'give a reason of at least 3 characters').max(2000) });
 
 /**
  * An upload without a source citation is stored, with a warning: review will need the citation. Possible but
@@ -138,7 +137,7 @@ export function measurementSetRoutes(ctx: AppContext): Router {
 
   router.post('/measurement-sets/:id/withdraw', requireUser, requireMeasurementSetAuthorOrAdmin, async (req, res) => {
     const { id } = validParams(idParams, req);
-    const { reason } = validBody(withdrawBody, req);
+    const { reason } = validBody(withdrawMeasurementSetBody, req);
     const actor = currentUser(res);
     await db.transaction().execute(async (tx) => {
       const measurementSet = await findMeasurementSet(tx, id);

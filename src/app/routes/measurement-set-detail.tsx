@@ -1,15 +1,20 @@
-import { useState } from 'react';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useForm, useWatch } from 'react-hook-form';
+import type { z } from 'zod';
 import { formatDate, formatDateTime } from '@shared/format/dates';
 import { Link, useParams, useSearchParams, useLocation } from 'react-router-dom';
 import type { ColumnDef } from '@tanstack/react-table';
 import { QUANTITIES, PROPERTY_KINDS, type QuantityKey } from '@shared/measurements/property-kinds';
 import { formatMeasured } from '@shared/format/numbers';
+import { FIELD_LABELS } from '@shared/schemas/field-labels';
+import { withdrawMeasurementSetBody } from '@shared/schemas/measurements';
 import { Badge, KindBadge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
 import { DataTable } from '@/components/ui/data-table';
 import { Field, Input } from '@/components/ui/field';
 import { ErrorState, LoadingState, PageHeader, Panel } from '@/components/ui/states';
 import { useCan } from '@/lib/authorization';
+import { invalidProps, sameNames, useServerFieldErrors } from '@/lib/forms';
 import { type MeasurementSetRow, useMeasurementSet, useWithdrawMeasurementSet } from '@/features/measurement-sets/api/measurement-sets';
 import { MeasurementSetChart } from '@/features/measurement-sets/components/measurement-set-chart';
 import { quantityHeading } from '@/lib/quantity-labels';
@@ -40,7 +45,13 @@ export function MeasurementSetDetailRoute() {
   const canUpload = useCan('measurement-set:upload');
   const canSimulate = useCan('simulation:run');
   const withdraw = useWithdrawMeasurementSet(id);
-  const [reason, setReason] = useState('');
+  const withdrawForm = useForm<z.input<typeof withdrawMeasurementSetBody>, unknown, z.output<typeof withdrawMeasurementSetBody>>({
+    resolver: zodResolver(withdrawMeasurementSetBody),
+    defaultValues: { reason: '' },
+  });
+  const reason = useWatch({ control: withdrawForm.control, name: 'reason' });
+  const reasonError = withdrawForm.formState.errors.reason?.message;
+  useServerFieldErrors(withdraw.error, withdrawForm.setError, sameNames(['reason']));
   if (measurementSet.isPending) return <LoadingState />;
   if (measurementSet.isError) return <ErrorState error={measurementSet.error} onRetry={() => measurementSet.refetch()} />;
   const d = measurementSet.data;
@@ -143,15 +154,9 @@ export function MeasurementSetDetailRoute() {
           {canUpload && !d.withdrawn && (
             <Panel title="Withdraw">
               <p className="mb-3 text-sm text-ink-soft">A withdrawn set stays readable with all its versions but is offered to no new fit.</p>
-              <form
-                className="grid gap-3"
-                onSubmit={(e) => {
-                  e.preventDefault();
-                  withdraw.mutate(reason);
-                }}
-              >
-                <Field label="Reason" htmlFor="withdraw-reason">
-                  <Input id="withdraw-reason" value={reason} onChange={(e) => setReason(e.target.value)} />
+              <form noValidate className="grid gap-3" onSubmit={withdrawForm.handleSubmit((body) => withdraw.mutate(body.reason))}>
+                <Field label={FIELD_LABELS.reason} htmlFor="withdraw-reason" error={reasonError}>
+                  <Input id="withdraw-reason" {...invalidProps('withdraw-reason', reasonError)} {...withdrawForm.register('reason')} />
                 </Field>
                 {withdraw.isError && <p role="alert" className="text-sm text-changes">{withdraw.error.message}</p>}
                 <div>

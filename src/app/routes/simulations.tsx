@@ -1,5 +1,7 @@
-import { useState } from 'react';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useForm, useWatch } from 'react-hook-form';
 import { Link } from 'react-router-dom';
+import { z } from 'zod';
 import { formatWithUncertainty } from '@shared/format/numbers';
 import { CUTOFF_SCHEME_LABELS } from '@shared/physics/cutoff-schemes';
 import { Button } from '@/components/ui/button';
@@ -7,11 +9,13 @@ import { Field, Input, Select } from '@/components/ui/field';
 import { ProgressBar } from '@/components/ui/progress-bar';
 import { EmptyState, ErrorState, LoadingState, PageHeader, Panel } from '@/components/ui/states';
 import { useCan } from '@/lib/authorization';
+import { decimalOf, invalidProps, sameNames, useServerFieldErrors } from '@/lib/forms';
 import { FitStatusBadge } from '@/features/fits/components/fit-status-badge';
-import { SIMULATION_LIMITS } from '@shared/schemas/simulations';
+import { FIELD_LABELS } from '@shared/schemas/field-labels';
+import { createSimulationBody, SIMULATION_LIMITS } from '@shared/schemas/simulations';
 import { useQueueState, useSimulations, useStartSimulation } from '@/features/simulations/api/simulations';
 import { PhaseBadge } from '@/features/simulations/components/phase-badge';
-import type { SimulationCutoffScheme } from '@shared/physics/cutoff-schemes';
+import { SIMULATION_CUTOFF_SCHEMES } from '@shared/physics/cutoff-schemes';
 
 /** What became of the run just started, kept current from the polled list (queued → running → finished). */
 function StartedNotice({ id, reused }: { id: number; reused: boolean }) {
@@ -28,35 +32,67 @@ function StartedNotice({ id, reused }: { id: number; reused: boolean }) {
   return <p role="status" data-testid="started-simulation" className={`text-sm ${status === 'failed' ? 'text-changes' : 'text-approved'}`}>{text}</p>;
 }
 
+const startFormShape = z.object({
+  reducedTemperature: z.string(),
+  reducedPressure: z.string(),
+  atoms: z.string(),
+  steps: z.string(),
+  cutoff: z.string(),
+  scheme: z.enum(SIMULATION_CUTOFF_SCHEMES),
+});
+type StartFormValues = z.input<typeof startFormShape>;
+const START_FIELDS = ['reducedTemperature', 'reducedPressure', 'atoms', 'steps', 'cutoff', 'scheme'] as const;
+
+/** The boxes as typed become the request, judged by createSimulationBody (the server's schema). */
+const startFormSchema = startFormShape
+  .transform((v): z.input<typeof createSimulationBody> => {
+    const n = (s: string) => decimalOf(s) ?? Number.NaN;
+    return { reducedTemperature: n(v.reducedTemperature), reducedPressure: n(v.reducedPressure), atoms: n(v.atoms), steps: n(v.steps), scheme: v.scheme, cutoff: n(v.cutoff) };
+  })
+  .pipe(createSimulationBody);
+
 function StartForm() {
   const start = useStartSimulation();
-  const [t, setT] = useState('1.2');
-  const [p, setP] = useState('0.5');
-  const [atoms, setAtoms] = useState('500');
-  const [steps, setSteps] = useState('20000');
-  const [scheme, setScheme] = useState<SimulationCutoffScheme>('truncated-tail');
-  const [cutoff, setCutoff] = useState('2.5');
+  const form = useForm<StartFormValues, unknown, z.output<typeof createSimulationBody>>({
+    resolver: zodResolver(startFormSchema),
+    defaultValues: { reducedTemperature: '1.2', reducedPressure: '0.5', atoms: '500', steps: '20000', scheme: 'truncated-tail', cutoff: '2.5' },
+  });
+  const errors = form.formState.errors;
+  useServerFieldErrors(start.error, form.setError, sameNames(START_FIELDS));
+  const [atoms, steps] = useWatch({ control: form.control, name: ['atoms', 'steps'] });
   const atomSteps = Number(atoms) * Number(steps);
   const tooMuch = Number.isFinite(atomSteps) && atomSteps > SIMULATION_LIMITS.maxAtomSteps;
+  // Said while typing, before any submit (the schema says it too, in its own words, on submit).
+  const stepsError = tooMuch
+    ? `Atoms × steps may be at most ${SIMULATION_LIMITS.maxAtomSteps.toLocaleString('en-GB')} per run (a density fit uses 256 × 10 000).`
+    : errors.steps?.message;
+  const box = (name: Exclude<(typeof START_FIELDS)[number], 'scheme'>, id: string, inputMode: 'decimal' | 'numeric', message = errors[name]?.message) => (
+    <Input id={id} inputMode={inputMode} {...invalidProps(id, message)} {...form.register(name)} />
+  );
   return (
-    <form
-      className="grid gap-3"
-      onSubmit={(e) => {
-        e.preventDefault();
-        if (tooMuch) return;
-        start.mutate({ reducedTemperature: Number(t), reducedPressure: Number(p), atoms: Number(atoms), steps: Number(steps), scheme, cutoff: Number(cutoff) });
-      }}
-    >
+    <form noValidate className="grid gap-3" onSubmit={form.handleSubmit((body) => !tooMuch && start.mutate(body))}>
       <div className="grid grid-cols-2 gap-3">
-        <Field label="T*" htmlFor="sim-t"><Input id="sim-t" inputMode="decimal" value={t} onChange={(e) => setT(e.target.value)} /></Field>
-        <Field label="P*" htmlFor="sim-p"><Input id="sim-p" inputMode="decimal" value={p} onChange={(e) => setP(e.target.value)} /></Field>
-        <Field label="Atoms" htmlFor="sim-n" hint={`${SIMULATION_LIMITS.minAtoms}–${SIMULATION_LIMITS.maxAtoms.toLocaleString('en-GB')}`}><Input id="sim-n" inputMode="numeric" value={atoms} onChange={(e) => setAtoms(e.target.value)} /></Field>
-        <Field label="MD steps" htmlFor="sim-steps" hint={`${SIMULATION_LIMITS.minSteps.toLocaleString('en-GB')}–${SIMULATION_LIMITS.maxSteps.toLocaleString('en-GB')}`} error={tooMuch ? `Atoms × steps may be at most ${SIMULATION_LIMITS.maxAtomSteps.toLocaleString('en-GB')} per run (a density fit uses 256 × 10 000).` : undefined}>
-          <Input id="sim-steps" inputMode="numeric" value={steps} aria-invalid={tooMuch || undefined} aria-describedby={tooMuch ? 'sim-steps-error' : undefined} onChange={(e) => setSteps(e.target.value)} />
+        <Field label={FIELD_LABELS.reducedTemperature} htmlFor="sim-t" error={errors.reducedTemperature?.message}>{box('reducedTemperature', 'sim-t', 'decimal')}</Field>
+        <Field label={FIELD_LABELS.reducedPressure} htmlFor="sim-p" error={errors.reducedPressure?.message}>{box('reducedPressure', 'sim-p', 'decimal')}</Field>
+        <Field
+          label={FIELD_LABELS.atoms}
+          htmlFor="sim-n"
+          hint={`${SIMULATION_LIMITS.minAtoms}–${SIMULATION_LIMITS.maxAtoms.toLocaleString('en-GB')}`}
+          error={errors.atoms?.message}
+        >
+          {box('atoms', 'sim-n', 'numeric')}
         </Field>
-        <Field label="Cutoff rc/σ" htmlFor="sim-rc"><Input id="sim-rc" inputMode="decimal" value={cutoff} onChange={(e) => setCutoff(e.target.value)} /></Field>
-        <Field label="Scheme" htmlFor="sim-scheme">
-          <Select id="sim-scheme" value={scheme} onChange={(e) => setScheme(e.target.value as typeof scheme)}>
+        <Field
+          label={FIELD_LABELS.steps}
+          htmlFor="sim-steps"
+          hint={`${SIMULATION_LIMITS.minSteps.toLocaleString('en-GB')}–${SIMULATION_LIMITS.maxSteps.toLocaleString('en-GB')}`}
+          error={stepsError}
+        >
+          {box('steps', 'sim-steps', 'numeric', stepsError)}
+        </Field>
+        <Field label={FIELD_LABELS.cutoff} htmlFor="sim-rc" error={errors.cutoff?.message}>{box('cutoff', 'sim-rc', 'decimal')}</Field>
+        <Field label="Scheme" htmlFor="sim-scheme" error={errors.scheme?.message}>
+          <Select id="sim-scheme" {...invalidProps('sim-scheme', errors.scheme?.message)} {...form.register('scheme')}>
             <option value="truncated-tail">truncated + tail corrections</option>
             <option value="truncated-shifted">truncated and shifted</option>
           </Select>
