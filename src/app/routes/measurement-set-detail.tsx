@@ -3,14 +3,13 @@ import { useForm, useWatch } from 'react-hook-form';
 import type { z } from 'zod';
 import { formatDate, formatDateTime } from '@shared/format/dates';
 import { Link, useParams, useSearchParams, useLocation } from 'react-router-dom';
-import type { ColumnDef } from '@tanstack/react-table';
 import { QUANTITIES, PROPERTY_KINDS, type QuantityKey } from '@shared/measurements/property-kinds';
 import { formatMeasured } from '@shared/format/numbers';
 import { FIELD_LABELS } from '@shared/schemas/field-labels';
 import { withdrawMeasurementSetBody } from '@shared/schemas/measurements';
 import { Badge, KindBadge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
-import { DataTable } from '@/components/ui/data-table';
+import { DataTable, type TableColumns } from '@/components/ui/data-table';
 import { Field, Input } from '@/components/ui/field';
 import { ErrorState, LoadingState, PageHeader, Panel } from '@/components/ui/states';
 import { useCan } from '@/lib/authorization';
@@ -20,10 +19,10 @@ import { MeasurementSetChart } from '@/features/measurement-sets/components/meas
 import { quantityHeading } from '@/lib/quantity-labels';
 import { SimulateRowsPanel } from '@/features/simulations/components/simulate-rows-panel';
 
-function rowColumns(kind: keyof typeof PROPERTY_KINDS): ColumnDef<MeasurementSetRow, any>[] {
+function rowColumns(kind: keyof typeof PROPERTY_KINDS): TableColumns<MeasurementSetRow> {
   const def = PROPERTY_KINDS[kind];
   // "Row" counts the data rows from 1 (the number a fit's "leave rows out" uses); "File row" is the line in the file.
-  const cols: ColumnDef<MeasurementSetRow, any>[] = [
+  const cols: TableColumns<MeasurementSetRow> = [
     { id: 'index', header: 'Row', accessorFn: (_r, i) => i + 1, meta: { numeric: true } },
     { accessorKey: 'row', header: 'File row', meta: { numeric: true } },
   ];
