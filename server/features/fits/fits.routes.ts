@@ -2,20 +2,16 @@ import { Router } from 'express';
 import { createFitBody } from '../../../shared/schemas/fits';
 import type { AppContext } from '../../app-context';
 import { hasPolicy, mayChangeWorkOf, refusalMessage } from '../../../shared/auth/roles';
-import { PUBLISHED_STATES } from '../../../shared/parameter-sets/transitions';
+import { fitCreatedView, fitListView, fitView } from '../../../shared/contracts/fit';
 import { currentUser, requirePolicy, requireUser } from '../../common/auth-middleware';
 import { AppError, conflict, forbidden, notFound } from '../../common/errors';
-import type { Db } from '../../db/database';
+import { sendView } from '../../common/respond';
 import { idParams, validBody, validParams } from '../../common/validate';
 import { recordAudit } from '../audit/audit.service';
 import { findSubstance } from '../substances/substances.repository';
-import { createFit, listFitsOfSubstance, requireFit, toFitView } from './fits.service';
-
-/** True when an approved, superseded or retired parameter set was drafted from the fit. */
-async function backsPublishedSet(db: Db, fitId: number): Promise<boolean> {
-  const row = await db.selectFrom('parameterSet').select('id').where('fitId', '=', fitId).where('state', 'in', [...PUBLISHED_STATES]).executeTakeFirst();
-  return row !== undefined;
-}
+import { backsPublishedSet } from './fits.repository';
+import { createFit, listFitsOfSubstance, requireFit } from './fits.service';
+import { toFitView } from './fits.view';
 
 export function fitRoutes(ctx: AppContext): Router {
   const router = Router();
@@ -24,7 +20,7 @@ export function fitRoutes(ctx: AppContext): Router {
   router.post('/fits', requirePolicy('fit:run'), async (req, res) => {
     const body = validBody(createFitBody, req);
     const created = await createFit(ctx, currentUser(res), body);
-    res.status(202).json(created);
+    sendView(res, fitCreatedView, created, 202);
   });
 
   // Review roles read every fit; anyone else (consumers) only a fit behind a published parameter set, the
@@ -32,7 +28,7 @@ export function fitRoutes(ctx: AppContext): Router {
   router.get('/fits/:id', requirePolicy('catalog:read'), async (req, res) => {
     const { id } = validParams(idParams, req);
     if (!hasPolicy(currentUser(res).roles, 'fit:read') && !(await backsPublishedSet(db, id))) throw notFound(`Fit ${id}`);
-    res.json(toFitView(await requireFit(db, id)));
+    sendView(res, fitView, toFitView(await requireFit(db, id)));
   });
 
   // Ownership rule (shared/auth/roles.ts mayChangeWorkOf): the fit's author or an admin.
@@ -47,13 +43,13 @@ export function fitRoutes(ctx: AppContext): Router {
     if (!(await ctx.jobs.cancel(fit.jobId))) throw conflict(`Fit #${fit.number} is ${fit.status}; only a queued or running fit can be cancelled.`);
     const onBehalf = actor.id === fit.createdBy ? '' : ` (as admin; the fit is ${fit.createdByName}'s)`;
     await recordAudit(db, { actor, action: 'fit.cancelled', targetType: 'fit', targetId: id, summary: `${actor.email} cancelled Fit #${fit.number} of ${fit.substanceName}${onBehalf}` });
-    res.json(toFitView(await requireFit(db, id)));
+    sendView(res, fitView, toFitView(await requireFit(db, id)));
   });
 
   router.get('/substances/:id/fits', requirePolicy('fit:read'), async (req, res) => {
     const { id } = validParams(idParams, req);
     if (!(await findSubstance(db, id))) throw notFound(`Substance ${id}`);
-    res.json({ fits: await listFitsOfSubstance(db, id) });
+    sendView(res, fitListView, { fits: await listFitsOfSubstance(db, id) });
   });
 
   return router;
