@@ -1,63 +1,12 @@
 import { keepPreviousData, queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import type { CatalogEntry, MixtureAnswer, ParameterCard, PredictionAnswer } from '@shared/contracts/catalog';
 import type { CombiningRule } from '@shared/mixing/combining-rules';
 import type { PropertyKind } from '@shared/measurements/property-kinds';
-import type { ParameterSetState } from '@shared/parameter-sets/transitions';
 import type { CutoffScheme } from '@shared/physics/cutoff-schemes';
 import type { Preferences, UpdatePreferencesBody } from '@shared/schemas/preferences';
 import { api } from '@/lib/api-client';
 
-export interface CatalogEntry {
-  id: number;
-  substanceId: number;
-  substanceName: string;
-  formula: string | null;
-  version: number;
-  state: ParameterSetState;
-  stateLabel: string;
-  scheme: CutoffScheme;
-  schemeLabel: string;
-  cutoffSigma: number | null;
-  model: 'lj-12-6';
-  /** 'mie' for a Mie λr-6 set, with λr and its label ("Mie 16-6"). */
-  potential: 'lj-12-6' | 'mie';
-  repulsiveExponent: number;
-  potentialLabel: string;
-  epsilonK: number;
-  sigmaAngstrom: number;
-  stdErr: { epsilonK: number | null; sigmaAngstrom: number | null };
-  correlation: number | null;
-  validity: { temperatureMinK: number; temperatureMaxK: number; pressureMinMPa: number | null; pressureMaxMPa: number | null };
-  kinds: PropertyKind[];
-  fitId: number;
-  approvedAt: string | null;
-  approvedByName: string | null;
-  olderVersions: number;
-}
-
-export interface ParameterCard extends CatalogEntry {
-  molarMassGPerMol: number;
-  approvalComment: string | null;
-  rationale: string;
-  fit: { id: number; number: number; chi2: number | null; dof: number | null; reducedChi2: number | null; quantumCorrection: boolean; molarMassGPerMol: number | null; warnings: string[]; dataSpan: { temperatureMinK: number; temperatureMaxK: number } | null };
-  measurementSets: Array<{ measurementSetId: number; name: string; kind: PropertyKind; version: number; versionId: number; weight: number; source: string | null; doi: string | null; method: string | null; rowCount: number | null; sha256: string | null }>;
-  exportable: boolean;
-  currentApprovedId: number | null;
-  versions: Array<{
-    id: number;
-    version: number;
-    state: ParameterSetState;
-    stateLabel: string;
-    epsilonK: number;
-    sigmaAngstrom: number;
-    stdErr: { epsilonK: number | null; sigmaAngstrom: number | null };
-    validity: { temperatureMinK: number; temperatureMaxK: number };
-    kinds: PropertyKind[];
-    fitId: number;
-    approvedAt: string | null;
-    approvedByName: string | null;
-    change: { fromVersion: number; epsilonK: number; sigmaAngstrom: number } | null;
-  }>;
-}
+export type { CatalogEntry, MixtureAnswer, ParameterCard, PredictionAnswer } from '@shared/contracts/catalog';
 
 export interface CatalogFilters {
   q?: string;
@@ -65,35 +14,6 @@ export interface CatalogFilters {
   kind?: PropertyKind[];
   tMinK?: number;
   tMaxK?: number;
-}
-
-export interface MixtureAnswer {
-  rule: CombiningRule;
-  ruleName: string;
-  formulas: string;
-  reference: string;
-  components: Array<{ index: number; setId: number; version: number; state: ParameterSetState; substanceName: string; scheme: CutoffScheme; cutoffSigma: number | null; epsilonK: number; sigmaAngstrom: number }>;
-  pairs: Array<{
-    i: number;
-    j: number;
-    setIdI: number;
-    setIdJ: number;
-    substanceI: string;
-    substanceJ: string;
-    epsilonK: number;
-    sigmaAngstrom: number;
-    kind: 'pure' | 'combining-rule-estimate' | 'fitted-pair-set';
-    /** Present on fitted pairs: the approved pair set and its k_ij (l_ij) with standard errors. */
-    pairSetId?: number;
-    kij?: number;
-    kijStdErr?: number | null;
-    lij?: number | null;
-    epsilonStdErrK?: number | null;
-    sigmaStdErrAngstrom?: number | null;
-  }>;
-  note: string;
-  commonValidity: { temperatureMinK: number; temperatureMaxK: number; pressureMinMPa: number | null; pressureMaxMPa: number | null } | null;
-  cutoff: { scheme: CutoffScheme; cutoffSigma: number; consistent: boolean; warning: string | null };
 }
 
 /** The query string of a filter set; empty filters are left out so equal searches share a cache entry. */
@@ -116,13 +36,6 @@ export const catalogKeys = {
   preferences: () => ['preferences'] as const,
   predictions: (id: number, kind: string, temperaturesK: string, pressuresMPa: string) => [...catalogKeys.all, 'predictions', id, kind, temperaturesK, pressuresMPa] as const,
 };
-
-export interface PredictionAnswer {
-  kind: string;
-  unit: string;
-  method: string;
-  predictions: Array<{ temperatureK: number; pressureMPa?: number; value: number; standardError: number; lower95: number; upper95: number; intervalMethod: string; outsideValidity: boolean; note?: string }>;
-}
 
 /** GET /api/parameter-sets/:id/predictions; runs only when temperatures are given. */
 export const predictionsQueryOptions = (id: number, kind: string, temperaturesK: string, pressuresMPa: string) =>

@@ -1,66 +1,11 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { PropertyKind } from '@shared/measurements/property-kinds';
-import type { Move, ParameterSetState } from '@shared/parameter-sets/transitions';
-import type { CutoffScheme } from '@shared/physics/cutoff-schemes';
+import type { ParameterSetComment, ParameterSetDetail, ParameterSetDiff, ParameterSetSummary, ReviewQueueItem } from '@shared/contracts/parameter-set';
+import type { ParameterSetState } from '@shared/parameter-sets/transitions';
 import type { CreateParameterSetBody, ReviseParameterSetBody, UpdateParameterSetBody } from '@shared/schemas/parameter-sets';
 import { api } from '@/lib/api-client';
 
-export interface ParameterSetSummary {
-  id: number;
-  label: string;
-  substanceId: number;
-  substanceName: string;
-  version: number;
-  scheme: CutoffScheme;
-  cutoffSigma: number | null;
-  model: 'lj-12-6';
-  /** The pair potential: 'mie' for a Mie λr-6 set, with λr and its label ("Mie 16-6"). */
-  potential: 'lj-12-6' | 'mie';
-  repulsiveExponent: number;
-  potentialLabel: string;
-  state: ParameterSetState;
-  stateLabel: string;
-  epsilonK: number;
-  sigmaAngstrom: number;
-  stdErr: { epsilonK: number | null; sigmaAngstrom: number | null };
-  correlation: number | null;
-  validity: { temperatureMinK: number; temperatureMaxK: number; pressureMinMPa: number | null; pressureMaxMPa: number | null };
-  fitId: number;
-  fitNumber: number;
-  revisionOf: number | null;
-  revisedBy: number | null;
-  createdBy: string;
-  createdByName: string;
-  createdAt: string;
-  updatedAt: string;
-}
-
-export interface ParameterSetDetail extends ParameterSetSummary {
-  rationale: string;
-  fit: {
-    id: number;
-    number: number;
-    createdBy: string;
-    createdByName: string;
-    createdAt: string;
-    codeVersion: string;
-    quantumCorrection: boolean;
-    molarMassGPerMol: number | null;
-    chi2: number | null;
-    dof: number | null;
-    reducedChi2: number | null;
-    warnings: string[];
-    dataSpan: { temperatureMinK: number; temperatureMaxK: number } | null;
-  };
-  measurementSets: Array<{ measurementSetId: number; name: string; kind: PropertyKind; version: number; versionId: number; weight: number; source: string | null; doi: string | null; method: string | null; rowCount: number | null; sha256: string | null }>;
-  history: Array<{ id: number; move: Move | 'create'; fromState: ParameterSetState | null; toState: ParameterSetState; actorId: string | null; actorName: string | null; comment: string | null; at: string }>;
-  comments: Array<{ id: number; authorId: string; authorName: string; body: string; createdAt: string }>;
-  currentApproved: ParameterSetSummary | null;
-  allowedMoves: Move[];
-  canComment: boolean;
-}
-
-export type QueueItem = ParameterSetSummary & { submittedAt: string | null };
+export type { ParameterSetDetail, ParameterSetDiff, ParameterSetSummary } from '@shared/contracts/parameter-set';
+export type QueueItem = ReviewQueueItem;
 
 export const parameterSetKeys = {
   all: ['parameter-sets'] as const,
@@ -80,11 +25,6 @@ export interface NeedsActionItem {
   state: ParameterSetState;
   stateLabel?: string;
   since: string;
-}
-
-export interface ParameterSetDiff {
-  previous: { id: number; version: number } | null;
-  changes: Array<{ field: string; label: string; before: string | number | null; after: string | number | null }>;
 }
 
 export const parameterSetQueryOptions = (id: number) =>
@@ -126,4 +66,4 @@ export const useReviewParameterSet = (id: number) =>
 export const useRetireParameterSet = (id: number) => useParameterSetMutation((body: { reason: string }) => api<ParameterSetDetail>(`/parameter-sets/${id}/retire`, { body }));
 export const useReviseParameterSet = (id: number) => useParameterSetMutation((body: ReviseParameterSetBody) => api<ParameterSetSummary>(`/parameter-sets/${id}/revise`, { body }));
 export const useEditParameterSet = (id: number) => useParameterSetMutation((body: UpdateParameterSetBody) => api<ParameterSetDetail>(`/parameter-sets/${id}`, { method: 'PATCH', body }));
-export const useCommentOnParameterSet = (id: number) => useParameterSetMutation((body: { body: string }) => api<{ id: number }>(`/parameter-sets/${id}/comments`, { body }));
+export const useCommentOnParameterSet = (id: number) => useParameterSetMutation((body: { body: string }) => api<ParameterSetComment>(`/parameter-sets/${id}/comments`, { body }));
