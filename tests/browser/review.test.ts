@@ -69,7 +69,7 @@ describe.skipIf(!available)('parameter-set review in Chromium', () => {
     await page.getByRole('heading', { name: 'Reviewite v1' }).waitFor();
     const caution = page.getByRole('note');
     await caution.waitFor();
-    expect(await caution.textContent()).toContain('Fitted model parameters are not validated kind data for pressure, safety or process design; defer to local codes and licensed engineering practice.');
+    expect(await caution.textContent()).toContain('Fitted model parameters are not validated property data for pressure, safety or process design; defer to local codes and licensed engineering practice.');
     await page.getByRole('button', { name: 'Submit for review' }).click();
     await page.getByRole('heading', { name: 'Actions' }).waitFor();
     await page.getByText('Nothing for you to do on this set now (In review).').waitFor();
