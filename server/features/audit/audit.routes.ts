@@ -3,8 +3,10 @@ import { z } from 'zod';
 import { requirePolicy } from '../../common/auth-middleware';
 import { validQuery } from '../../common/validate';
 import type { AppContext } from '../../app-context';
-import { targetLabels } from './audit-targets';
-import { auditVocabulary, listAuditEvents } from './audit.repository';
+import { auditPageView, auditVocabularyView } from '../../../shared/contracts/audit';
+import { sendView } from '../../common/respond';
+import { auditVocabulary, listAuditEvents, targetLabels } from './audit.repository';
+import { toAuditEventView } from './audit.view';
 
 const DATE_ONLY = /^\d{4}-\d{2}-\d{2}$/;
 const instant = z
@@ -35,8 +37,6 @@ function toInstant(value: string, side: 'start' | 'end'): string {
   return date.toISOString();
 }
 
-const parseJson = (s: string | null): unknown => (s === null ? null : JSON.parse(s));
-
 export function auditRoutes(ctx: AppContext): Router {
   const router = Router();
   const { db } = ctx;
@@ -55,25 +55,14 @@ export function auditRoutes(ctx: AppContext): Router {
     });
     const page = rows.slice(0, q.limit);
     const labels = await targetLabels(db, page);
-    res.json({
-      events: page.map((e) => ({
-        id: e.id,
-        at: e.at,
-        actorEmail: e.actorEmail,
-        action: e.action,
-        targetType: e.targetType,
-        targetId: e.targetId,
-        targetLabel: labels.get(`${e.targetType}:${e.targetId}`) ?? null,
-        summary: e.summary,
-        before: parseJson(e.beforeJson),
-        after: parseJson(e.afterJson),
-      })),
+    sendView(res, auditPageView, {
+      events: page.map((e) => toAuditEventView(e, labels.get(`${e.targetType}:${e.targetId}`) ?? null)),
       nextBefore: rows.length > q.limit ? page[page.length - 1].id : null,
     });
   });
 
   router.get('/audit/vocabulary', requirePolicy('audit:read'), async (_req, res) => {
-    res.json(await auditVocabulary(db));
+    sendView(res, auditVocabularyView, await auditVocabulary(db));
   });
 
   return router;

@@ -1,17 +1,8 @@
 import { infiniteQueryOptions, queryOptions, useInfiniteQuery, useQuery } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
+import type { AuditEvent, AuditPage, AuditVocabulary } from '@shared/contracts/audit';
 
-export interface AuditEvent {
-  id: number;
-  at: string;
-  actorEmail: string | null;
-  action: string;
-  targetType: string;
-  targetId: string | null;
-  summary: string;
-  before: unknown;
-  after: unknown;
-}
+export type { AuditEvent };
 
 /** Filters as the API takes them; dates are ISO dates (YYYY-MM-DD, whole UTC days) or date-times. */
 export interface AuditFilter {
@@ -40,13 +31,13 @@ export const auditEventsQueryOptions = (filter: AuditFilter) =>
       const q = new URLSearchParams({ limit: String(AUDIT_PAGE_SIZE) });
       for (const f of AUDIT_FILTER_FIELDS) if (filter[f]) q.set(f, filter[f]!);
       if (pageParam !== null) q.set('before', String(pageParam));
-      return api<{ events: AuditEvent[]; nextBefore: number | null }>(`/audit?${q}`);
+      return api<AuditPage>(`/audit?${q}`);
     },
     getNextPageParam: (last) => last.nextBefore,
   });
 
 export const auditVocabularyQueryOptions = () =>
-  queryOptions({ queryKey: auditKeys.vocabulary(), queryFn: () => api<{ actions: string[]; targetTypes: string[] }>('/audit/vocabulary') });
+  queryOptions({ queryKey: auditKeys.vocabulary(), queryFn: () => api<AuditVocabulary>('/audit/vocabulary') });
 
 export const useAuditEvents = (filter: AuditFilter) => useInfiniteQuery(auditEventsQueryOptions(filter));
 export const useAuditVocabulary = () => useQuery(auditVocabularyQueryOptions());
