@@ -1,7 +1,9 @@
 import { Router } from 'express';
+import { createdTokenView, tokenListView, tokenView } from '../../../shared/contracts/token';
 import { createTokenBody } from '../../../shared/schemas/tokens';
 import type { AppContext } from '../../app-context';
 import { currentUser, requirePolicy } from '../../common/auth-middleware';
+import { sendView } from '../../common/respond';
 import { idParams, validBody, validParams } from '../../common/validate';
 import { createToken, listTokens, revokeToken } from './tokens.service';
 
@@ -15,16 +17,16 @@ export function tokenRoutes(ctx: AppContext): Router {
 
   router.post('/tokens', requirePolicy('catalog:read'), async (req, res) => {
     const { name } = validBody(createTokenBody, req);
-    res.status(201).json(await createToken(db, currentUser(res), name));
+    sendView(res, createdTokenView, await createToken(db, currentUser(res), name), 201);
   });
 
   router.get('/tokens', requirePolicy('catalog:read'), async (_req, res) => {
-    res.json({ tokens: await listTokens(db, currentUser(res).id) });
+    sendView(res, tokenListView, { tokens: await listTokens(db, currentUser(res).id) });
   });
 
   router.delete('/tokens/:id', requirePolicy('catalog:read'), async (req, res) => {
     const { id } = validParams(idParams, req);
-    res.json(await revokeToken(db, currentUser(res), id));
+    sendView(res, tokenView, await revokeToken(db, currentUser(res), id));
   });
 
   return router;

@@ -2,8 +2,11 @@ import { createHash, randomBytes } from 'node:crypto';
 import type { CurrentUser } from '../../common/auth-middleware';
 import { conflict, notFound } from '../../common/errors';
 import type { Db, Tx } from '../../db/database';
+import type { TokenView } from '../../../shared/contracts/token';
 import { recordAudit } from '../audit/audit.service';
 import { rolesOf } from '../people/people.repository';
+import { countActiveTokens, findToken, findTokenByHash, insertToken, setTokenLastUsed, setTokenRevoked, tokensOf } from './tokens.repository';
+import { toTokenView } from './tokens.view';
 
 /** Tokens a person may hold at once that are not revoked; enough for a few scripts, few enough to review. */
 export const MAX_ACTIVE_TOKENS = 20;
@@ -24,69 +27,55 @@ export function tokenHash(secret: string): string {
   return createHash('sha256').update(secret, 'utf8').digest('base64url');
 }
 
-const columns = ['id', 'name', 'prefix', 'createdAt', 'lastUsedAt', 'revokedAt'] as const;
-
-export type TokenView = { id: number; name: string; prefix: string; createdAt: string; lastUsedAt: string | null; revokedAt: string | null; active: boolean };
-
-const toView = (r: Omit<TokenView, 'active'>): TokenView => ({ ...r, active: r.revokedAt === null });
-
 /** POST /api/tokens: the secret leaves the server once, in this answer; only its hash is stored and audited by id. */
 export async function createToken(db: Db, actor: CurrentUser, name: string) {
   const secret = newTokenSecret();
   const now = new Date().toISOString();
   const row = await db.transaction().execute(async (tx) => {
-    const active = await tx
-      .selectFrom('apiToken')
-      .select((eb) => eb.fn.countAll<number>().as('n'))
-      .where('userId', '=', actor.id)
-      .where('revokedAt', 'is', null)
-      .executeTakeFirstOrThrow();
-    if (Number(active.n) >= MAX_ACTIVE_TOKENS) throw conflict(`You hold ${MAX_ACTIVE_TOKENS} active tokens; revoke one you no longer use first.`);
-    const created = await tx
-      .insertInto('apiToken')
-      .values({ userId: actor.id, name, tokenHash: tokenHash(secret), prefix: secret.slice(0, TOKEN_PREFIX_LENGTH), createdAt: now, lastUsedAt: null, revokedAt: null })
-      .returning(columns)
-      .executeTakeFirstOrThrow();
+    if ((await countActiveTokens(tx, actor.id)) >= MAX_ACTIVE_TOKENS) throw conflict(`You hold ${MAX_ACTIVE_TOKENS} active tokens; revoke one you no longer use first.`);
+    const created = await insertToken(tx, {
+      userId: actor.id,
+      name,
+      tokenHash: tokenHash(secret),
+      prefix: secret.slice(0, TOKEN_PREFIX_LENGTH),
+      createdAt: now,
+      lastUsedAt: null,
+      revokedAt: null,
+    });
     await recordAudit(tx, { actor, action: 'token.created', targetType: 'apiToken', targetId: created.id, summary: `${actor.email} created the read-only API token "${name}" (${created.prefix}…)`, after: { name, prefix: created.prefix } });
     return created;
   });
-  return { ...toView(row), token: secret };
+  return { ...toTokenView(row), token: secret };
 }
 
 /** GET /api/tokens: the person's own tokens, newest first, never the secret or its hash. */
 export async function listTokens(db: Db, userId: string): Promise<TokenView[]> {
-  const rows = await db.selectFrom('apiToken').select(columns).where('userId', '=', userId).orderBy('id', 'desc').execute();
-  return rows.map(toView);
+  return (await tokensOf(db, userId)).map(toTokenView);
 }
 
 /** DELETE /api/tokens/:id: revokes one of the person's own tokens; revoking twice is not a second event. */
 export async function revokeToken(db: Db, actor: CurrentUser, id: number): Promise<TokenView> {
   return db.transaction().execute(async (tx) => {
-    const row = await tx.selectFrom('apiToken').select([...columns, 'userId']).where('id', '=', id).executeTakeFirst();
+    const row = await findToken(tx, id);
     // Someone else's token is answered like a missing one: ids say nothing about other people.
     if (!row || row.userId !== actor.id) throw notFound(`Token ${id}`);
-    if (row.revokedAt) return toView(row);
+    if (row.revokedAt) return toTokenView(row);
     const revokedAt = new Date().toISOString();
-    await tx.updateTable('apiToken').set({ revokedAt }).where('id', '=', id).execute();
+    await setTokenRevoked(tx, id, revokedAt);
     await recordAudit(tx, { actor, action: 'token.revoked', targetType: 'apiToken', targetId: id, summary: `${actor.email} revoked the API token "${row.name}" (${row.prefix}…)`, before: { revokedAt: null }, after: { revokedAt } });
-    return toView({ ...row, revokedAt });
+    return toTokenView({ ...row, revokedAt });
   });
 }
 
 /** The active token with this secret and its owner, or undefined. */
 export async function findActiveToken(db: Db | Tx, secret: string) {
-  return db
-    .selectFrom('apiToken')
-    .innerJoin('user', 'user.id', 'apiToken.userId')
-    .select(['apiToken.id', 'apiToken.revokedAt', 'apiToken.lastUsedAt', 'user.id as userId', 'user.email', 'user.name', 'user.active'])
-    .where('apiToken.tokenHash', '=', tokenHash(secret))
-    .executeTakeFirst();
+  return findTokenByHash(db, tokenHash(secret));
 }
 
 /** Recorded at most once a minute per token, so a busy script does not write on every request. */
 export async function touchToken(db: Db, id: number, lastUsedAt: string | null, now = new Date()) {
   if (lastUsedAt && now.getTime() - Date.parse(lastUsedAt) < 60_000) return;
-  await db.updateTable('apiToken').set({ lastUsedAt: now.toISOString() }).where('id', '=', id).where('revokedAt', 'is', null).execute();
+  await setTokenLastUsed(db, id, now.toISOString());
 }
 
 /**

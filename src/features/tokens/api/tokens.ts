@@ -1,22 +1,15 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import type { CreatedToken, TokenList, TokenView } from '@shared/contracts/token';
 import { api } from '@/lib/api-client';
 
-export interface ApiToken {
-  id: number;
-  name: string;
-  prefix: string;
-  createdAt: string;
-  lastUsedAt: string | null;
-  revokedAt: string | null;
-  active: boolean;
-}
+export type ApiToken = TokenView;
 
 export const tokenKeys = {
   all: ['tokens'] as const,
   mine: () => [...tokenKeys.all, 'mine'] as const,
 };
 
-export const myTokensQueryOptions = () => queryOptions({ queryKey: tokenKeys.mine(), queryFn: () => api<{ tokens: ApiToken[] }>('/tokens').then((r) => r.tokens) });
+export const myTokensQueryOptions = () => queryOptions({ queryKey: tokenKeys.mine(), queryFn: () => api<TokenList>('/tokens').then((r) => r.tokens) });
 
 export const useMyTokens = () => useQuery(myTokensQueryOptions());
 
@@ -24,7 +17,7 @@ export const useMyTokens = () => useQuery(myTokensQueryOptions());
 export const useCreateToken = () => {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: { name: string }) => api<ApiToken & { token: string }>('/tokens', { body }),
+    mutationFn: (body: { name: string }) => api<CreatedToken>('/tokens', { body }),
     onSuccess: () => qc.invalidateQueries({ queryKey: tokenKeys.all }),
   });
 };
