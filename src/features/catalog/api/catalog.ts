@@ -3,7 +3,8 @@ import type { CatalogEntry, MixtureAnswer, ParameterCard, PredictionAnswer } fro
 import type { CombiningRule } from '@shared/mixing/combining-rules';
 import type { PropertyKind } from '@shared/measurements/property-kinds';
 import type { CutoffScheme } from '@shared/physics/cutoff-schemes';
-import type { Preferences, UpdatePreferencesBody } from '@shared/schemas/preferences';
+import type { PreferencesView as Preferences } from '@shared/contracts/preferences';
+import type { UpdatePreferencesBody } from '@shared/schemas/preferences';
 import { api } from '@/lib/api-client';
 
 export type { CatalogEntry, MixtureAnswer, ParameterCard, PredictionAnswer } from '@shared/contracts/catalog';
