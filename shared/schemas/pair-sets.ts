@@ -22,28 +22,4 @@ export const pairSetListQuery = z.object({
   state: z.enum(['in_review', 'approved', 'changes_requested']).optional(),
 });
 
-export type PairSetState = 'in_review' | 'approved' | 'changes_requested';
-
-/** A pair set as the API returns it (units in every name). */
-export interface PairSetView {
-  id: number;
-  state: PairSetState;
-  setA: { id: number; version: number; substanceId: number; substanceName: string; epsilonK: number; sigmaAngstrom: number };
-  setB: { id: number; version: number; substanceId: number; substanceName: string; epsilonK: number; sigmaAngstrom: number };
-  measurementSet: { id: number; name: string; version: number; versionId: number };
-  fitLij: boolean;
-  kij: number;
-  kijStdErr: number | null;
-  lij: number | null;
-  lijStdErr: number | null;
-  epsilon12K: number;
-  epsilon12StdErrK: number | null;
-  sigma12Angstrom: number;
-  sigma12StdErrAngstrom: number | null;
-  result: unknown;
-  createdBy: { id: string; name: string };
-  createdAt: string;
-  reviewedBy: { id: string; name: string } | null;
-  reviewedAt: string | null;
-  reviewComment: string | null;
-}
+// The pair set's answer (PairSetView) and its states are in shared/contracts/pair-set.ts.

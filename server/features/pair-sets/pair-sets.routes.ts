@@ -1,9 +1,11 @@
 import { Router } from 'express';
+import { pairSetListView, pairSetView as pairSetViewSchema } from '../../../shared/contracts/pair-set';
 import { pairSetCreateBody, pairSetListQuery, pairSetReviewBody } from '../../../shared/schemas/pair-sets';
 import type { AppContext } from '../../app-context';
 import { hasPolicy } from '../../../shared/auth/roles';
 import { currentUser, requirePolicy } from '../../common/auth-middleware';
 import { notFound } from '../../common/errors';
+import { sendView } from '../../common/respond';
 import { idParams, validBody, validParams, validQuery } from '../../common/validate';
 import { createPairSet, listPairSets, pairSetView, reviewPairSet } from './pair-sets.service';
 
@@ -20,25 +22,25 @@ export function pairSetRoutes(ctx: AppContext): Router {
   router.get('/pair-sets', requirePolicy('parameterSet:read'), async (req, res) => {
     const { state } = validQuery(pairSetListQuery, req);
     const all = await listPairSets(ctx.db, state);
-    res.json({ pairSets: seesUnpublished(res) ? all : all.filter((p) => p.state === 'approved') });
+    sendView(res, pairSetListView, { pairSets: seesUnpublished(res) ? all : all.filter((p) => p.state === 'approved') });
   });
 
   router.post('/pair-sets', requirePolicy('parameterSet:draft'), async (req, res) => {
     const body = validBody(pairSetCreateBody, req);
-    res.status(201).json(await createPairSet(ctx.db, currentUser(res), body));
+    sendView(res, pairSetViewSchema, await createPairSet(ctx.db, currentUser(res), body), 201);
   });
 
   router.get('/pair-sets/:id', requirePolicy('parameterSet:read'), async (req, res) => {
     const { id } = validParams(idParams, req);
     const view = await pairSetView(ctx.db, id);
     if (!view || (!seesUnpublished(res) && view.state !== 'approved')) throw notFound(`Pair set ${id}`);
-    res.json(view);
+    sendView(res, pairSetViewSchema, view);
   });
 
   router.post('/pair-sets/:id/review', requirePolicy('parameterSet:review'), async (req, res) => {
     const { id } = validParams(idParams, req);
     const { decision, comment } = validBody(pairSetReviewBody, req);
-    res.json(await reviewPairSet(ctx.db, currentUser(res), id, decision, comment));
+    sendView(res, pairSetViewSchema, await reviewPairSet(ctx.db, currentUser(res), id, decision, comment));
   });
 
   return router;

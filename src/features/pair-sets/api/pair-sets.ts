@@ -1,8 +1,9 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { PairSetCreateBody, PairSetView } from '@shared/schemas/pair-sets';
+import type { PairSetList, PairSetView } from '@shared/contracts/pair-set';
+import type { PairSetCreateBody } from '@shared/schemas/pair-sets';
 import { api } from '@/lib/api-client';
 
-export type { PairSetView } from '@shared/schemas/pair-sets';
+export type { PairSetView } from '@shared/contracts/pair-set';
 
 /** A B12 measurement set that a pair set can be fitted to. */
 export interface B12MeasurementSet {
@@ -33,7 +34,7 @@ export const approvedSetsQueryOptions = () =>
   queryOptions({ queryKey: pairSetKeys.approvedSets(), queryFn: () => api<{ sets: Array<ApprovedSet & { state: string }> }>('/catalog').then((r) => r.sets.filter((x) => x.state === 'approved')) });
 export const useApprovedSets = (enabled: boolean) => useQuery({ ...approvedSetsQueryOptions(), enabled });
 
-export const pairSetsQueryOptions = () => queryOptions({ queryKey: pairSetKeys.list(), queryFn: () => api<{ pairSets: PairSetView[] }>('/pair-sets').then((r) => r.pairSets) });
+export const pairSetsQueryOptions = () => queryOptions({ queryKey: pairSetKeys.list(), queryFn: () => api<PairSetList>('/pair-sets').then((r) => r.pairSets) });
 
 export const b12MeasurementSetsQueryOptions = () =>
   queryOptions({
