@@ -24,6 +24,21 @@ export async function listPeopleWithRoles(db: Db | Tx) {
   return users.map((u) => ({ ...u, roles: roles.filter((r) => r.userId === u.id).map((r) => r.role).sort() }));
 }
 
+/** One person with their roles, or undefined. */
+export async function findPersonWithRoles(db: Db | Tx, id: string) {
+  const person = await db.selectFrom('user').select(['id', 'email', 'name', 'active', 'createdAt']).where('id', '=', id).executeTakeFirst();
+  return person && { ...person, roles: await rolesOf(db, id) };
+}
+
+export async function updatePersonColumns(db: Db | Tx, id: string, set: { name?: string; active?: number }): Promise<void> {
+  if (Object.keys(set).length) await db.updateTable('user').set(set).where('id', '=', id).execute();
+}
+
+/** Signs the person out everywhere. */
+export async function deleteSessionsOf(db: Db | Tx, userId: string): Promise<void> {
+  await db.deleteFrom('session').where('userId', '=', userId).execute();
+}
+
 export async function insertPerson(
   db: Db | Tx,
   user: { id: string; email: string; name: string; passwordHash: string; roles: Role[] },

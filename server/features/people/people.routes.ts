@@ -1,25 +1,30 @@
 import { randomUUID } from 'node:crypto';
 import { Router } from 'express';
+import { peopleListView, personView } from '../../../shared/contracts/person';
 import { createPersonBody, updatePersonBody } from '../../../shared/schemas/people';
 import { currentUser, requirePolicy } from '../../common/auth-middleware';
 import { conflict, notFound } from '../../common/errors';
+import { sendView } from '../../common/respond';
 import { validBody, validParams } from '../../common/validate';
 import { z } from 'zod';
 import type { AppContext } from '../../app-context';
 import { recordAudit } from '../audit/audit.service';
 import { hashPassword } from '../auth/auth';
-import { countActiveAdmins, findPersonByEmail, findPersonById, insertPerson, listPeopleWithRoles, replaceRoles, rolesOf } from './people.repository';
+import {
+  countActiveAdmins,
+  deleteSessionsOf,
+  findPersonByEmail,
+  findPersonById,
+  findPersonWithRoles,
+  insertPerson,
+  listPeopleWithRoles,
+  replaceRoles,
+  rolesOf,
+  updatePersonColumns,
+} from './people.repository';
+import { toPersonView } from './people.view';
 
 const personIdParams = z.object({ id: z.string().min(1).max(64) });
-
-const toPerson = (u: { id: string; email: string; name: string; active: number; createdAt: string; roles: string[] }) => ({
-  id: u.id,
-  email: u.email,
-  name: u.name,
-  active: u.active === 1,
-  createdAt: u.createdAt,
-  roles: u.roles,
-});
 
 /** People administration (admin only). */
 export function peopleRoutes(ctx: AppContext): Router {
@@ -28,7 +33,7 @@ export function peopleRoutes(ctx: AppContext): Router {
   router.use('/people', requirePolicy('people:manage'));
 
   router.get('/people', async (_req, res) => {
-    res.json({ people: (await listPeopleWithRoles(db)).map(toPerson) });
+    sendView(res, peopleListView, { people: (await listPeopleWithRoles(db)).map(toPersonView) });
   });
 
   router.post('/people', async (req, res) => {
@@ -51,8 +56,8 @@ export function peopleRoutes(ctx: AppContext): Router {
         after: { email: body.email, name: body.name, roles },
       });
     });
-    const created = (await listPeopleWithRoles(db)).find((u) => u.id === id)!;
-    res.status(201).json(toPerson(created));
+    const created = (await findPersonWithRoles(db, id))!;
+    sendView(res, personView, toPersonView(created), 201);
   });
 
   router.patch('/people/:id', async (req, res) => {
@@ -73,9 +78,9 @@ export function peopleRoutes(ctx: AppContext): Router {
       const set: { name?: string; active?: number } = {};
       if (body.name !== undefined) set.name = body.name;
       if (body.active !== undefined) set.active = body.active ? 1 : 0;
-      if (Object.keys(set).length) await tx.updateTable('user').set(set).where('id', '=', id).execute();
+      await updatePersonColumns(tx, id, set);
       if (body.roles) await replaceRoles(tx, id, [...new Set(body.roles)].sort());
-      if (body.active === false) await tx.deleteFrom('session').where('userId', '=', id).execute();
+      if (body.active === false) await deleteSessionsOf(tx, id);
       const before = { name: target.name, active: target.active === 1, roles: beforeRoles };
       const after = { name: body.name ?? target.name, active: body.active ?? target.active === 1, roles: body.roles ? [...new Set(body.roles)].sort() : beforeRoles };
       const changes = [
@@ -93,8 +98,8 @@ export function peopleRoutes(ctx: AppContext): Router {
         after,
       });
     });
-    const updated = (await listPeopleWithRoles(db)).find((u) => u.id === id)!;
-    res.json(toPerson(updated));
+    const updated = (await findPersonWithRoles(db, id))!;
+    sendView(res, personView, toPersonView(updated));
   });
 
   return router;

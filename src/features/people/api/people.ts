@@ -1,16 +1,9 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { Role } from '@shared/auth/roles';
+import type { PeopleList, PersonView } from '@shared/contracts/person';
 import type { CreatePersonBody, UpdatePersonBody } from '@shared/schemas/people';
 import { api } from '@/lib/api-client';
 
-export interface Person {
-  id: string;
-  email: string;
-  name: string;
-  active: boolean;
-  createdAt: string;
-  roles: Role[];
-}
+export type Person = PersonView;
 
 export const peopleKeys = {
   all: ['people'] as const,
@@ -18,7 +11,7 @@ export const peopleKeys = {
 };
 
 export const peopleQueryOptions = () =>
-  queryOptions({ queryKey: peopleKeys.list(), queryFn: () => api<{ people: Person[] }>('/people').then((r) => r.people) });
+  queryOptions({ queryKey: peopleKeys.list(), queryFn: () => api<PeopleList>('/people').then((r) => r.people) });
 
 export const usePeople = () => useQuery(peopleQueryOptions());
 
