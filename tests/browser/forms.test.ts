@@ -64,4 +64,23 @@ describe.skipIf(!available)('forms say what is wrong beside the field, then acce
     expect(await tError.count()).toBe(0);
     await page.close();
   });
+  it('Substances: a molar mass below a hydrogen atom is refused beside it; a decimal comma is read and the substance made', async () => {
+    const page = await browser.context.newPage();
+    await signIn(page, app.url, 'modeller@demo.epsigma.test');
+    await page.getByRole('navigation', { name: 'Main' }).waitFor();
+    await page.goto(`${app.url}/substances`);
+    await page.getByLabel('Name').fill('Quillmoor trial gas QT-2');
+    await page.getByLabel('Molar mass (g/mol)').fill('0,5');
+    await page.getByRole('button', { name: 'Create substance' }).click();
+    const massError = page.locator('#substance-molar-mass-error');
+    await massError.waitFor();
+    // createSubstanceBody (shared/schemas/measurements.ts): nothing is lighter than a hydrogen atom.
+    expect(await massError.textContent()).toContain('at least 1 g/mol');
+    expect(await page.getByLabel('Molar mass (g/mol)').getAttribute('aria-describedby')).toBe('substance-molar-mass-error');
+    await page.getByLabel('Molar mass (g/mol)').fill('44,62');
+    await page.getByRole('button', { name: 'Create substance' }).click();
+    await page.waitForURL(/\/substances\/\d+$/);
+    await page.getByRole('heading', { name: 'Quillmoor trial gas QT-2' }).waitFor();
+    await page.close();
+  });
 });

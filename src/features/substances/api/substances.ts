@@ -1,5 +1,6 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { SubstanceDetail, SubstanceListItem, SubstanceWrite } from '@shared/contracts/substance';
+import type { CreateSubstanceBody } from '@shared/schemas/measurements';
 import { api } from '@/lib/api-client';
 import { substanceKeys } from '@/lib/query-keys';
 
@@ -15,12 +16,8 @@ export const substanceQueryOptions = (id: number) =>
 export const useSubstances = () => useQuery(substancesQueryOptions());
 export const useSubstance = (id: number) => useQuery(substanceQueryOptions(id));
 
-export interface SubstanceInput {
-  name: string;
-  molarMassGPerMol: number;
-  formula?: string;
-  description?: string;
-}
+/** What the substance form sends: the request schema's output (shared/schemas/measurements.ts), never declared again here. */
+export type SubstanceInput = CreateSubstanceBody;
 
 export const useCreateSubstance = () => {
   const qc = useQueryClient();
