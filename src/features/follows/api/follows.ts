@@ -1,11 +1,8 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
+import type { Follow, FollowList, FollowState } from '@shared/contracts/follow';
 
-export interface Follow {
-  substanceId: number;
-  substanceName: string;
-  followedAt: string;
-}
+export type { Follow };
 
 export const followKeys = {
   all: ['follows'] as const,
@@ -13,7 +10,7 @@ export const followKeys = {
 };
 
 export const myFollowsQueryOptions = () =>
-  queryOptions({ queryKey: followKeys.mine(), queryFn: () => api<{ follows: Follow[] }>('/me/follows').then((r) => r.follows) });
+  queryOptions({ queryKey: followKeys.mine(), queryFn: () => api<FollowList>('/me/follows').then((r) => r.follows) });
 
 export const useMyFollows = () => useQuery(myFollowsQueryOptions());
 
@@ -26,7 +23,7 @@ export const useIsFollowing = (substanceId: number) => {
 export const useSetFollowing = (substanceId: number) => {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (following: boolean) => api<{ substanceId: number; following: boolean }>(`/substances/${substanceId}/follow`, { method: following ? 'POST' : 'DELETE' }),
+    mutationFn: (following: boolean) => api<FollowState>(`/substances/${substanceId}/follow`, { method: following ? 'POST' : 'DELETE' }),
     onSuccess: () => qc.invalidateQueries({ queryKey: followKeys.all }),
   });
 };
