@@ -1,6 +1,8 @@
 import { Router } from 'express';
+import { noticeListView } from '../../../shared/contracts/notice';
 import type { AppContext } from '../../app-context';
 import { currentUser, requireUser } from '../../common/auth-middleware';
+import { sendView } from '../../common/respond';
 import { idParams, validParams } from '../../common/validate';
 import { markNoticeRead, noticesOf } from './notices.service';
 
@@ -9,7 +11,7 @@ export function noticeRoutes(ctx: AppContext): Router {
   const router = Router();
 
   router.get('/notices', requireUser, async (_req, res) => {
-    res.json(await noticesOf(ctx.db, currentUser(res).id));
+    sendView(res, noticeListView, await noticesOf(ctx.db, currentUser(res).id));
   });
 
   router.post('/notices/:id/read', requireUser, async (req, res) => {

@@ -1,13 +1,8 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import type { NoticeList, NoticeView } from '@shared/contracts/notice';
 import { api } from '@/lib/api-client';
 
-export interface Notice {
-  id: number;
-  text: string;
-  link: string | null;
-  createdAt: string;
-  readAt: string | null;
-}
+export type Notice = NoticeView;
 
 export const noticeKeys = {
   all: ['notices'] as const,
@@ -18,7 +13,7 @@ export const noticeKeys = {
 export const noticesQueryOptions = () =>
   queryOptions({
     queryKey: noticeKeys.list(),
-    queryFn: () => api<{ notices: Notice[]; unread: number }>('/notices'),
+    queryFn: () => api<NoticeList>('/notices'),
     refetchInterval: 15_000,
   });
 
