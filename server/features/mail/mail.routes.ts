@@ -1,11 +1,13 @@
 import { Router } from 'express';
 import { z } from 'zod';
+import { mailboxView, outboxView } from '../../../shared/contracts/mail';
 import { requirePolicy } from '../../common/auth-middleware';
 import { AppError } from '../../common/errors';
+import { sendView } from '../../common/respond';
 import { validQuery } from '../../common/validate';
 import type { AppContext } from '../../app-context';
-import { listMailbox, listOutbox } from './mail.repository';
-import { outboxCounts } from './mail.service';
+import { listMailbox, listOutbox, outboxCounts } from './mail.repository';
+import { toMailboxMessageView, toOutboxMessageView } from './mail.view';
 
 const mailboxQuery = z.object({
   to: z.string().trim().max(200).optional(),
@@ -27,42 +29,14 @@ export function mailRoutes(ctx: AppContext): Router {
       throw new AppError(409, 'mailbox_unavailable', 'The mailbox only exists with the local mail service; this server sends mail to SMTP_URL.');
     }
     const rows = await listMailbox(db, { to: to || undefined, limit });
-    res.json({
-      messages: rows.map((m) => ({
-        id: m.id,
-        receivedAt: m.receivedAt,
-        from: m.from,
-        to: JSON.parse(m.toJson) as string[],
-        subject: m.subject,
-        text: m.text,
-        html: m.html,
-        messageId: m.messageId,
-        sizeBytes: m.rawSizeBytes,
-      })),
-    });
+    sendView(res, mailboxView, { messages: rows.map(toMailboxMessageView) });
   });
 
   /** What the app tried to send and how it went; available with the local service and with SMTP_URL. */
   router.get('/mail/outbox', requirePolicy('mailbox:read'), async (req, res) => {
     const { status, limit } = validQuery(outboxQuery, req);
     const rows = await listOutbox(db, { status, limit });
-    res.json({
-      mode: ctx.mail.mode,
-      counts: await outboxCounts(db),
-      messages: rows.map((m) => ({
-        id: m.id,
-        to: JSON.parse(m.toJson) as string[],
-        subject: m.subject,
-        reason: m.reason,
-        status: m.status,
-        attempts: m.attempts,
-        lastError: m.lastError,
-        createdAt: m.createdAt,
-        nextAttemptAt: m.status === 'queued' ? m.nextAttemptAt : null,
-        sentAt: m.sentAt,
-        messageId: m.messageId,
-      })),
-    });
+    sendView(res, outboxView, { mode: ctx.mail.mode, counts: await outboxCounts(db), messages: rows.map(toOutboxMessageView) });
   });
 
   return router;

@@ -1,6 +1,7 @@
 import nodemailer, { type Transporter } from 'nodemailer';
 import type { Db } from '../../db/database';
-import { dueOutboxRows, escapeHtml } from './mail.service';
+import { dueOutboxRows } from './mail.repository';
+import { escapeHtml } from './mail.service';
 
 /** How many times a message is tried before it is marked failed. */
 export const MAX_MAIL_ATTEMPTS = 5;

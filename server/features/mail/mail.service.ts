@@ -1,4 +1,3 @@
-import { sql } from 'kysely';
 import type { Role } from '../../../shared/auth/roles';
 import type { Db, Tx } from '../../db/database';
 
@@ -82,23 +81,4 @@ export function mailBody(paragraphs: string[]): { text: string; html: string } {
     text: paragraphs.join('\n\n'),
     html: paragraphs.map((p) => `<p>${escapeHtml(p).replace(/\n/g, '<br>')}</p>`).join('\n'),
   };
-}
-
-/** Outbox rows whose time has come, oldest first. */
-export async function dueOutboxRows(db: Db, now: Date, limit = 20) {
-  return db
-    .selectFrom('mailOutbox')
-    .selectAll()
-    .where('status', '=', 'queued')
-    .where('nextAttemptAt', '<=', now.toISOString())
-    .orderBy('nextAttemptAt')
-    .orderBy('id')
-    .limit(limit)
-    .execute();
-}
-
-/** Counts per outbox status, for health checks and tests. */
-export async function outboxCounts(db: Db) {
-  const rows = await db.selectFrom('mailOutbox').select(['status', sql<number>`count(*)`.as('n')]).groupBy('status').execute();
-  return { queued: 0, sent: 0, failed: 0, ...Object.fromEntries(rows.map((r) => [r.status, Number(r.n)])) } as Record<'queued' | 'sent' | 'failed', number>;
 }

@@ -1,43 +1,12 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
+import type { Mailbox, MailboxMessage, Outbox, OutboxMessage, OutboxStatus } from '@shared/contracts/mail';
 
-export interface MailboxMessage {
-  id: number;
-  receivedAt: string;
-  from: string;
-  to: string[];
-  subject: string;
-  text: string;
-  html: string | null;
-  messageId: string | null;
-  sizeBytes: number;
-}
+export type { MailboxMessage, Outbox, OutboxMessage, OutboxStatus };
 
 export interface MailboxFilter {
   /** Substring of a recipient address. */
   to?: string;
-}
-
-export type OutboxStatus = 'queued' | 'sent' | 'failed';
-
-export interface OutboxMessage {
-  id: number;
-  to: string[];
-  subject: string;
-  reason: string;
-  status: OutboxStatus;
-  attempts: number;
-  lastError: string | null;
-  createdAt: string;
-  nextAttemptAt: string | null;
-  sentAt: string | null;
-  messageId: string | null;
-}
-
-export interface Outbox {
-  mode: 'local' | 'smtp';
-  counts: Record<OutboxStatus, number>;
-  messages: OutboxMessage[];
 }
 
 export const mailKeys = {
@@ -52,7 +21,7 @@ export const mailboxQueryOptions = (filter: MailboxFilter) =>
     queryFn: () => {
       const q = new URLSearchParams();
       if (filter.to) q.set('to', filter.to);
-      return api<{ messages: MailboxMessage[] }>(`/mailbox${q.size ? `?${q}` : ''}`).then((r) => r.messages);
+      return api<Mailbox>(`/mailbox${q.size ? `?${q}` : ''}`).then((r) => r.messages);
     },
     // New mail arrives from the outbox sender in the background.
     refetchInterval: 10_000,
