@@ -7,9 +7,12 @@
  * fit's and the simulation stage's internal blocks (diagnostics, runs, iterations) are loose objects with their read fields.
  */
 import { z } from 'zod';
+import { FIT_KINDS, type FitKind } from '../fitting/property-models';
 import { propertyKindSchema } from '../schemas/measurements';
 
 const idSchema = z.union([z.number(), z.string()]);
+/** A residual's kind is one the fit has a property model for (b12 is a mixture's, never fitted). */
+const fitKindSchema = z.enum(FIT_KINDS as [FitKind, ...FitKind[]]);
 const point = z.strictObject({ epsilonK: z.number(), sigmaAngstrom: z.number() });
 const parameterSchema = z.enum(['epsilonK', 'sigmaAngstrom']);
 
@@ -18,7 +21,7 @@ const profileCurve = z.strictObject({ values: z.array(z.number()), deltaChi2: z.
 export const fitResidualSchema = z.strictObject({
   measurementSetIndex: z.number().int(),
   measurementSetId: idSchema,
-  kind: propertyKindSchema,
+  kind: fitKindSchema,
   rowNumber: z.number().int(),
   excluded: z.boolean(),
   temperatureK: z.number(),
@@ -41,7 +44,7 @@ export const mdResidualSchema = fitResidualSchema.extend({
 
 export const perMeasurementSetSchema = z.strictObject({
   measurementSetId: idSchema,
-  kind: propertyKindSchema,
+  kind: fitKindSchema,
   points: z.number().int(),
   excludedPoints: z.number().int(),
   rms: z.number(),

@@ -1,62 +1,13 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { LjFitResult } from '@shared/fitting/lj-fit';
+import type { FitCreated, FitListItem, FitView } from '@shared/contracts/fit';
 import type { CreateFitBody } from '@shared/schemas/fits';
-import type { PropertyKind } from '@shared/measurements/property-kinds';
 import { api } from '@/lib/api-client';
 
-export type FitStatus = 'queued' | 'running' | 'succeeded' | 'failed' | 'cancelled';
-
-export interface FitMeasurementSetRef {
-  measurementSetId: number;
-  version: number;
-  versionId: number;
-  kind: PropertyKind;
-  name: string;
-  weight: number;
-  /** Rows (counted from 1) left out of the fit, and why. */
-  excludeRows?: number[];
-  excludeReason?: string | null;
-}
-
-export interface Fit {
-  id: number;
-  number: number;
-  substanceId: number;
-  substanceName: string;
-  model: string;
-  status: FitStatus;
-  progress: number;
-  stage: string | null;
-  measurementSets: FitMeasurementSetRef[];
-  options: { molarMassGPerMol?: number; quantumCorrection?: boolean; start?: { epsilonK: number; sigmaAngstrom: number }; bounds?: { epsilonK: [number, number]; sigmaAngstrom: [number, number] }; restarts?: number; maxIterations?: number };
-  codeVersion: string;
-  createdAt: string;
-  createdBy: string;
-  createdByName: string;
-  startedAt: string | null;
-  finishedAt: string | null;
-  jobId: number;
-  error: string | null;
-  result: LjFitResult | null;
-}
-
-export interface FitListItem {
-  id: number;
-  number: number;
-  createdAt: string;
-  createdByName: string;
-  status: FitStatus;
-  progress: number;
-  measurementSets: Array<{ measurementSetId: number; name: string; kind: PropertyKind; version: number; excludeRows?: number[] }>;
-  /** False for a failed fit that kept its last iterate; null while queued or running. */
-  converged?: boolean | null;
-  heldParameters?: Array<'epsilonK' | 'sigmaAngstrom'>;
-  epsilonK: number | null;
-  sigmaAngstrom: number | null;
-  stdErr: { epsilonK: number | null; sigmaAngstrom: number | null } | null;
-  reducedChi2: number | null;
-  warnings: string[];
-}
+export type { FitListItem } from '@shared/contracts/fit';
+export type FitStatus = FitView['status'];
+export type FitMeasurementSetRef = FitView['measurementSets'][number];
+/** A fit as GET /api/fits/:id answers it (shared/contracts/fit.ts); its result is the union of gas-phase and density results. */
+export type Fit = FitView;
 
 export const fitKeys = {
   all: ['fits'] as const,
@@ -87,7 +38,7 @@ export const useSubstanceFits = (substanceId: number) => useQuery(substanceFitsQ
 export const useCreateFit = () => {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: CreateFitBody) => api<{ id: number; number: number }>('/fits', { body }),
+    mutationFn: (body: CreateFitBody) => api<FitCreated>('/fits', { body }),
     onSuccess: () => qc.invalidateQueries({ queryKey: fitKeys.all }),
   });
 };
