@@ -8,7 +8,13 @@ export async function insertNotice(db: Db | Tx, values: Insertable<NoticeTable>)
 
 /** The newest `limit` notices of one person. */
 export async function recentNoticesOf(db: Db | Tx, userId: string, limit: number) {
-  return db.selectFrom('notice').select(['id', 'text', 'link', 'createdAt', 'readAt']).where('userId', '=', userId).orderBy('id', 'desc').limit(limit).execute();
+  return db
+    .selectFrom('notice')
+    .select(['id', 'text', 'link', 'createdAt', 'readAt'])
+    .where('userId', '=', userId)
+    .orderBy('id', 'desc')
+    .limit(limit)
+    .execute();
 }
 
 export async function countUnreadNotices(db: Db | Tx, userId: string): Promise<number> {
