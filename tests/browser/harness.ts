@@ -98,6 +98,8 @@ export function useAppAndBrowser(extraEnv: Record<string, string> = {}): { app: 
 
 /** Signs in from a clean slate (the browser profile is shared by the pages of one test file). */
 export async function signIn(page: Page, url: string, email: string, password = DEMO_PASSWORD) {
+  // Leave the old page first: a request it still has in flight could set the session cookie again after the clear.
+  await page.goto('about:blank');
   await page.context().clearCookies();
   await page.goto(`${url}/sign-in`);
   await page.getByLabel('E-mail').fill(email);

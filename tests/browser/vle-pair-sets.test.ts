@@ -81,6 +81,7 @@ describe.skipIf(!available)('VLE, B12 and pair sets in Chromium', () => {
 
     await page.goto(`${app.url}/mixtures`);
     await page.getByLabel(/Quillgas QG-1 v/).first().check();
+    await page.waitForURL(/sets=\d+/); // the picks live in the address: let the first one land before the second
     await page.getByLabel(/Norrane v/).first().check();
     const table = page.getByRole('table', { name: 'Mixture pairs' });
     await table.getByText(/Fitted pair set #\d+/).waitFor();
