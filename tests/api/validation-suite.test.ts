@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { REFERENCE_CHECKS, TEST_SUITE_ONLY_CHECKS } from '../../shared/validation/reference-checks';
-import type { ValidationSuiteRun } from '../../shared/schemas/validation-suite';
+import type { ValidationSuiteRun } from '../../shared/contracts/validation-suite';
 import { EMAIL, startTestApp, type TestApp } from './test-app';
 
 let t: TestApp;

@@ -1,6 +1,8 @@
 import { Router } from 'express';
+import { validationSuiteRunView } from '../../../shared/contracts/validation-suite';
 import { validationSuiteQuery } from '../../../shared/schemas/validation-suite';
 import { requirePolicy } from '../../common/auth-middleware';
+import { sendView } from '../../common/respond';
 import { validQuery } from '../../common/validate';
 import type { AppContext } from '../../app-context';
 import { validationSuite } from './validation-suite.service';
@@ -10,7 +12,7 @@ export function validationSuiteRoutes(ctx: AppContext): Router {
   const router = Router();
   router.get('/admin/validation-suite', requirePolicy('validation:read'), async (req, res) => {
     const q = validQuery(validationSuiteQuery, req);
-    res.json(await validationSuite(ctx.codeVersion, { rerun: q.rerun === '1' }));
+    sendView(res, validationSuiteRunView, await validationSuite(ctx.codeVersion, { rerun: q.rerun === '1' }));
   });
   return router;
 }

@@ -1,13 +1,13 @@
 import { setImmediate as nextTurn } from 'node:timers/promises';
-import type { ValidationCheckResult, ValidationSuiteRun } from '../../../shared/schemas/validation-suite';
+import type { ValidationCheckResult, ValidationSuiteRun } from '../../../shared/contracts/validation-suite';
 import {
   REFERENCE_CHECKS,
   TEST_SUITE_ONLY_CHECKS,
   VALIDATION_AREAS,
-  describeTolerance,
   runReferenceCheck,
   type ReferenceCheck,
 } from '../../../shared/validation/reference-checks';
+import { toValidationCheckResultView, toValidationTestSuiteOnlyView } from './validation-suite.view';
 
 /**
  * Runs the registry of reference checks (shared/validation) on this server: the same entries, references, tolerances
@@ -23,24 +23,7 @@ async function runSuite(codeVersion: string, checks: readonly ReferenceCheck[]):
   const results: ValidationCheckResult[] = [];
   for (const check of checks) {
     await nextTurn();
-    const outcome = runReferenceCheck(check);
-    results.push({
-      id: check.id,
-      area: check.area,
-      quantity: check.quantity,
-      unit: check.unit,
-      state: check.state,
-      source: check.source,
-      reference: check.reference,
-      tolerance: check.tolerance,
-      toleranceText: describeTolerance(check.tolerance),
-      testFile: check.testFile,
-      ours: outcome.ours,
-      difference: outcome.difference,
-      passed: outcome.passed,
-      durationMs: outcome.durationMs,
-      error: outcome.error ?? null,
-    });
+    results.push(toValidationCheckResultView(check, runReferenceCheck(check)));
   }
   const passed = results.filter((r) => r.passed).length;
   return {
@@ -50,7 +33,7 @@ async function runSuite(codeVersion: string, checks: readonly ReferenceCheck[]):
     summary: { total: results.length, passed, failed: results.length - passed, testSuiteOnly: TEST_SUITE_ONLY_CHECKS.length },
     areas: VALIDATION_AREAS.filter((area) => results.some((r) => r.area === area) || TEST_SUITE_ONLY_CHECKS.some((c) => c.area === area)),
     checks: results,
-    testSuiteOnly: TEST_SUITE_ONLY_CHECKS.map((c) => ({ ...c })),
+    testSuiteOnly: TEST_SUITE_ONLY_CHECKS.map(toValidationTestSuiteOnlyView),
   };
 }
 

@@ -1,8 +1,8 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { ValidationSuiteRun } from '@shared/schemas/validation-suite';
+import type { ValidationSuiteRun } from '@shared/contracts/validation-suite';
 import { api } from '@/lib/api-client';
 
-export type { ValidationCheckResult, ValidationSuiteRun, ValidationTestSuiteOnly } from '@shared/schemas/validation-suite';
+export type { ValidationCheckResult, ValidationSuiteRun, ValidationTestSuiteOnly } from '@shared/contracts/validation-suite';
 
 export const validationSuiteKeys = {
   all: ['validation-suite'] as const,
