@@ -16,8 +16,9 @@ export const storedFitOptions = z.looseObject({
   repulsiveExponent: z.number().optional(),
   fitRepulsiveExponent: z.boolean().optional(),
   fixed: z.strictObject({ epsilonK: z.number().optional(), sigmaAngstrom: z.number().optional() }).optional(),
-  density: z.looseObject({}).optional(),
-  posterior: z.looseObject({}).optional(),
+  // Loose blocks with the fields read elsewhere (the seeds of a parameter set's manifest).
+  density: z.looseObject({ seed: z.number().optional() }).optional(),
+  posterior: z.looseObject({ seed: z.number().optional() }).optional(),
 });
 export type StoredFitOptions = z.infer<typeof storedFitOptions>;
 

@@ -5,13 +5,14 @@
  * The re-run covers gas-phase fits (B2, viscosity and the other kinds fitted without simulations); a fit with a
  * simulation stage depends on NPT runs and is refused with the reason.
  */
-import { gasPhaseFit, type GasFitOptions } from '../../../shared/fitting/gas-fit';
+import { gasPhaseFit } from '../../../shared/fitting/gas-fit';
 import { RESTART_SEED } from '../../../shared/fitting/lj-fit';
 import { POSTERIOR_SEED } from '../../../shared/fitting/posterior';
 import type { CurrentUser } from '../../common/auth-middleware';
 import { AppError } from '../../common/errors';
 import type { Db } from '../../db/database';
 import { ENGINE_VERSIONS } from '../../jobs/tasks';
+import { storedFitOptions } from '../../../shared/contracts/fit';
 import type { ParameterSetManifest, ParameterSetRerun } from '../../../shared/contracts/parameter-set';
 import { readStoredJson } from '../../../shared/schemas/old-names';
 import { fitPayload, requireFit } from '../fits/fits.service';
@@ -33,7 +34,7 @@ async function load(db: Db, id: number, viewer: CurrentUser) {
   const set = await requireVisibleSet(db, id, viewer);
   const fit = await requireFit(db, set.fitId);
   const refs = readMeasurementSetRefs(fit.measurementSetsJson);
-  const options = JSON.parse(fit.optionsJson) as GasFitOptions & { density?: unknown };
+  const options = storedFitOptions.parse(readStoredJson(fit.optionsJson));
   const result = fit.resultJson ? readStoredJson(fit.resultJson) : null;
   return { set, fit, refs, options, result };
 }
@@ -48,7 +49,7 @@ export async function manifestOf(db: Db, id: number, viewer: CurrentUser): Promi
     fit: { id: fit.id, number: fit.number, model: fit.model, createdAt: fit.createdAt, codeVersion: fit.codeVersion, engineVersion: ENGINE_VERSIONS.fit, jobSeed: fit.seed },
     measurementSets: refs.map((r) => ({ measurementSetId: r.measurementSetId, version: r.version, name: r.name, kind: r.kind, weight: r.weight, excludeRows: r.excludeRows ?? [], rowCount: byId.get(r.versionId)?.rowCount ?? null, sha256: byId.get(r.versionId)?.sha256 ?? null })),
     options: { ...options },
-    seeds: { restartPerturbations: RESTART_SEED, posterior: options.posterior ? (options.posterior.seed ?? POSTERIOR_SEED) : null, simulations: options.density ? (options.density as { seed?: number }).seed ?? null : null },
+    seeds: { restartPerturbations: RESTART_SEED, posterior: options.posterior ? (options.posterior.seed ?? POSTERIOR_SEED) : null, simulations: options.density?.seed ?? null },
     result: result ? Object.fromEntries(COMPARED.map((p) => [p, at(result, p) ?? null])) : null,
     reproducible: options.density ? 'no: the fit has a simulation stage; its NPT runs are cached by state and seed but not re-run here' : 'yes: GET /api/parameter-sets/:id/rerun repeats the fit from this manifest and compares every number',
   };
