@@ -1,5 +1,5 @@
 import type { CatalogEntry, ParameterCard } from '../../../shared/contracts/catalog';
-import type { ExportableParameterSet } from '../../../shared/export/parameter-set-export';
+import { exportableParameterSetSchema, type ExportableParameterSet } from '../../../shared/contracts/exportable-parameter-set';
 import type { PropertyKind } from '../../../shared/measurements/property-kinds';
 import { CUTOFF_SCHEME_LABELS } from '../../../shared/physics/cutoff-schemes';
 import { STATE_LABELS } from '../../../shared/parameter-sets/transitions';
@@ -49,7 +49,8 @@ export function toExportableParameterSet(
 ): ExportableParameterSet {
   const values = toParameterSetValuesView(row);
   const sourceOf = (versionId: number) => sources.find((s) => s.id === versionId);
-  return {
+  // Parsed where it is built: every exporter then reads a set that matches its contract.
+  return exportableParameterSetSchema.parse({
     id: row.id,
     version: row.version,
     substance: { id: row.substanceId, name: row.substanceName, formula: row.formula, molarMassGPerMol: row.molarMassGramsPerMol },
@@ -74,5 +75,5 @@ export function toExportableParameterSet(
       source: sourceOf(r.versionId)?.source ?? null,
       doi: sourceOf(r.versionId)?.doi ?? null,
     })),
-  };
+  });
 }
