@@ -1,6 +1,7 @@
 import { createServer } from 'node:net';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { emailsOfFollowers, emailsOfRole, mailBody, queueMail } from '../../server/features/mail/mail.service';
+import { emailsOfFollowers, emailsOfRole } from '../../server/features/mail/mail.repository';
+import { mailBody, queueMail } from '../../server/features/mail/mail.service';
 import { MAX_MAIL_ATTEMPTS, retryDelayMs } from '../../server/features/mail/mail.sender';
 import { EMAIL, startTestApp, type TestApp } from './test-app';
 

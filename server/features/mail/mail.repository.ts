@@ -1,6 +1,8 @@
-import { sql } from 'kysely';
+import { sql, type Insertable } from 'kysely';
 import type { OutboxCounts } from '../../../shared/contracts/mail';
-import type { Db } from '../../db/database';
+import type { Role } from '../../../shared/auth/roles';
+import type { Db, Tx } from '../../db/database';
+import type { MailOutboxTable } from './mail.table';
 
 /** Messages received by the local fake mail service, newest first; `to` matches a recipient substring. */
 export async function listMailbox(db: Db, filter: { to?: string; limit: number }) {
@@ -33,4 +35,35 @@ export async function dueOutboxRows(db: Db, now: Date, limit = 20) {
 export async function outboxCounts(db: Db) {
   const rows = await db.selectFrom('mailOutbox').select(['status', sql<number>`count(*)`.as('n')]).groupBy('status').execute();
   return { queued: 0, sent: 0, failed: 0, ...Object.fromEntries(rows.map((r) => [r.status, Number(r.n)])) } as OutboxCounts;
+}
+
+/** Appends one outbox row (inside the caller's transaction) and returns its id. */
+export async function insertOutboxRow(executor: Db | Tx, values: Insertable<MailOutboxTable>): Promise<number> {
+  return (await executor.insertInto('mailOutbox').values(values).returning('id').executeTakeFirstOrThrow()).id;
+}
+
+/** E-mail addresses of active users holding the role (e.g. every reviewer when a set is submitted). */
+export async function emailsOfRole(db: Db | Tx, role: Role): Promise<string[]> {
+  const rows = await db
+    .selectFrom('user')
+    .innerJoin('userRole', 'userRole.userId', 'user.id')
+    .select('user.email')
+    .where('userRole.role', '=', role)
+    .where('user.active', '=', 1)
+    .orderBy('user.email')
+    .execute();
+  return rows.map((r) => r.email);
+}
+
+/** E-mail addresses of active users following the substance. */
+export async function emailsOfFollowers(db: Db | Tx, substanceId: number): Promise<string[]> {
+  const rows = await db
+    .selectFrom('substanceFollow')
+    .innerJoin('user', 'user.id', 'substanceFollow.userId')
+    .select('user.email')
+    .where('substanceFollow.substanceId', '=', substanceId)
+    .where('user.active', '=', 1)
+    .orderBy('user.email')
+    .execute();
+  return rows.map((r) => r.email);
 }

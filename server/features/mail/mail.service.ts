@@ -1,5 +1,5 @@
-import type { Role } from '../../../shared/auth/roles';
 import type { Db, Tx } from '../../db/database';
+import { insertOutboxRow } from './mail.repository';
 
 export interface OutgoingMail {
   /** Recipient addresses; duplicates and blanks are dropped. */
@@ -25,48 +25,17 @@ export async function queueMail(executor: Db | Tx, message: OutgoingMail): Promi
   const to = [...new Set(message.to.map((a) => a.trim().toLowerCase()).filter((a) => a.length > 0))];
   if (to.length === 0) return null;
   const now = new Date().toISOString();
-  const row = await executor
-    .insertInto('mailOutbox')
-    .values({
-      toJson: JSON.stringify(to),
-      subject: message.subject,
-      text: message.text,
-      html: message.html,
-      link: message.link ?? null,
-      reason: message.reason,
-      status: 'queued',
-      nextAttemptAt: now,
-      createdAt: now,
-    })
-    .returning('id')
-    .executeTakeFirstOrThrow();
-  return row.id;
-}
-
-/** E-mail addresses of active users holding the role (e.g. every reviewer when a set is submitted). */
-export async function emailsOfRole(db: Db | Tx, role: Role): Promise<string[]> {
-  const rows = await db
-    .selectFrom('user')
-    .innerJoin('userRole', 'userRole.userId', 'user.id')
-    .select('user.email')
-    .where('userRole.role', '=', role)
-    .where('user.active', '=', 1)
-    .orderBy('user.email')
-    .execute();
-  return rows.map((r) => r.email);
-}
-
-/** E-mail addresses of active users following the substance. */
-export async function emailsOfFollowers(db: Db | Tx, substanceId: number): Promise<string[]> {
-  const rows = await db
-    .selectFrom('substanceFollow')
-    .innerJoin('user', 'user.id', 'substanceFollow.userId')
-    .select('user.email')
-    .where('substanceFollow.substanceId', '=', substanceId)
-    .where('user.active', '=', 1)
-    .orderBy('user.email')
-    .execute();
-  return rows.map((r) => r.email);
+  return insertOutboxRow(executor, {
+    toJson: JSON.stringify(to),
+    subject: message.subject,
+    text: message.text,
+    html: message.html,
+    link: message.link ?? null,
+    reason: message.reason,
+    status: 'queued',
+    nextAttemptAt: now,
+    createdAt: now,
+  });
 }
 
 const HTML_ESCAPES: Record<string, string> = { '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' };
