@@ -1,4 +1,4 @@
-import { sql, type Insertable } from 'kysely';
+import { sql, type Insertable, type Updateable } from 'kysely';
 import type { OutboxCounts } from '../../../shared/contracts/mail';
 import type { Role } from '../../../shared/auth/roles';
 import type { Db, Tx } from '../../db/database';
@@ -66,4 +66,9 @@ export async function emailsOfFollowers(db: Db | Tx, substanceId: number): Promi
     .orderBy('user.email')
     .execute();
   return rows.map((r) => r.email);
+}
+
+/** Records how a send went (status, attempts, error, next attempt). */
+export async function updateOutboxRow(db: Db, id: number, values: Updateable<MailOutboxTable>): Promise<void> {
+  await db.updateTable('mailOutbox').set(values).where('id', '=', id).execute();
 }

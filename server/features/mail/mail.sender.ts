@@ -1,6 +1,6 @@
 import nodemailer, { type Transporter } from 'nodemailer';
 import type { Db } from '../../db/database';
-import { dueOutboxRows } from './mail.repository';
+import { dueOutboxRows, updateOutboxRow } from './mail.repository';
 import { escapeHtml } from './mail.service';
 
 /** How many times a message is tried before it is marked failed. */
@@ -106,20 +106,13 @@ export class MailSender {
           text: link ? `${row.text}\n\nOpen in Epsigma: ${link}` : row.text,
           html: link ? `${row.html}\n<p><a href="${escapeHtml(link)}">Open in Epsigma</a></p>` : row.html,
         });
-        await this.db
-          .updateTable('mailOutbox')
-          .set({ status: 'sent', attempts: row.attempts + 1, sentAt: new Date().toISOString(), messageId: info.messageId ?? null, lastError: null })
-          .where('id', '=', row.id)
-          .execute();
+        await updateOutboxRow(this.db, row.id, { status: 'sent', attempts: row.attempts + 1, sentAt: new Date().toISOString(), messageId: info.messageId ?? null, lastError: null });
       } catch (err) {
         const attempts = row.attempts + 1;
         const message = (err instanceof Error ? err.message : String(err)).slice(0, 500);
         const gaveUp = attempts >= MAX_MAIL_ATTEMPTS;
-        await this.db
-          .updateTable('mailOutbox')
-          .set({ status: gaveUp ? 'failed' : 'queued', attempts, lastError: message, nextAttemptAt: new Date(now.getTime() + retryDelayMs(attempts)).toISOString() })
-          .where('id', '=', row.id)
-          .execute();
+        const nextAttemptAt = new Date(now.getTime() + retryDelayMs(attempts)).toISOString();
+        await updateOutboxRow(this.db, row.id, { status: gaveUp ? 'failed' : 'queued', attempts, lastError: message, nextAttemptAt });
         this.options.log(`mail ${row.id} (${row.reason}) attempt ${attempts} failed${gaveUp ? ', giving up' : ''}: ${message}`);
       }
     }
