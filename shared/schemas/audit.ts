@@ -30,3 +30,15 @@ export function toInstant(value: string, side: 'start' | 'end'): string {
   if (DATE_ONLY.test(value) && side === 'end') date.setUTCDate(date.getUTCDate() + 1);
   return date.toISOString();
 }
+
+const blank = z.string().trim().max(0);
+const orBlank = <T extends z.ZodType>(field: T) => z.union([blank, field]).optional();
+/** The audit filters' form: the query's filter fields, each may be left empty (empty means any). */
+export const auditFilterForm = z.object({
+  action: orBlank(auditQuery.shape.action.unwrap()),
+  actor: orBlank(auditQuery.shape.actor.unwrap()),
+  targetType: orBlank(auditQuery.shape.targetType.unwrap()),
+  targetId: orBlank(auditQuery.shape.targetId.unwrap()),
+  from: orBlank(instant),
+  to: orBlank(instant),
+});
