@@ -16,7 +16,9 @@ const subfolders = (dir) =>
     .map((entry) => entry.name);
 
 // Worker-side files run in threads and queue workers without a database: they must not reach the web process's state.
-const WORKER_SIDE = ['tasks', 'worker', 'worker-pool', 'queue-worker', 'redis-common', 'worker-main'].map((name) => `./server/jobs/${name}.ts`);
+const WORKER_SIDE = ['tasks', 'worker', 'worker-pool', 'queue-worker', 'redis-common', 'worker-main'].map(
+  (name) => `./server/jobs/${name}.ts`,
+);
 
 const boundaries = [
   // Client: a feature imports no other feature (shared UI and helpers live in src/components and src/lib) and never the app shell.

@@ -76,11 +76,16 @@ export async function up(db: Kysely<any>): Promise<void> {
     .execute();
 
   for (const table of ['dataset_version', 'measurement_row', 'dataset_withdrawal']) {
-    await sql.raw(`CREATE TRIGGER ${table}_no_update BEFORE UPDATE ON ${table} BEGIN SELECT RAISE(ABORT, '${table} rows are immutable'); END`).execute(db);
-    await sql.raw(`CREATE TRIGGER ${table}_no_delete BEFORE DELETE ON ${table} BEGIN SELECT RAISE(ABORT, '${table} rows are immutable'); END`).execute(db);
+    await sql
+      .raw(`CREATE TRIGGER ${table}_no_update BEFORE UPDATE ON ${table} BEGIN SELECT RAISE(ABORT, '${table} rows are immutable'); END`)
+      .execute(db);
+    await sql
+      .raw(`CREATE TRIGGER ${table}_no_delete BEFORE DELETE ON ${table} BEGIN SELECT RAISE(ABORT, '${table} rows are immutable'); END`)
+      .execute(db);
   }
 }
 
 export async function down(db: Kysely<any>): Promise<void> {
-  for (const t of ['dataset_withdrawal', 'measurement_row', 'dataset_version', 'dataset', 'substance']) await db.schema.dropTable(t).execute();
+  for (const t of ['dataset_withdrawal', 'measurement_row', 'dataset_version', 'dataset', 'substance'])
+    await db.schema.dropTable(t).execute();
 }

@@ -42,8 +42,12 @@ export async function up(db: Kysely<any>): Promise<void> {
     .addColumn('created_at', 'text', (c) => c.notNull())
     .addUniqueConstraint('fit_number_unique', ['substance_id', 'number'])
     .execute();
-  await sql`CREATE TRIGGER fit_no_update BEFORE UPDATE ON fit BEGIN SELECT RAISE(ABORT, 'fit rows are immutable; run a new fit'); END`.execute(db);
-  await sql`CREATE TRIGGER fit_no_delete BEFORE DELETE ON fit BEGIN SELECT RAISE(ABORT, 'fit rows are immutable; run a new fit'); END`.execute(db);
+  await sql`CREATE TRIGGER fit_no_update BEFORE UPDATE ON fit BEGIN SELECT RAISE(ABORT, 'fit rows are immutable; run a new fit'); END`.execute(
+    db,
+  );
+  await sql`CREATE TRIGGER fit_no_delete BEFORE DELETE ON fit BEGIN SELECT RAISE(ABORT, 'fit rows are immutable; run a new fit'); END`.execute(
+    db,
+  );
 }
 
 export async function down(db: Kysely<any>): Promise<void> {

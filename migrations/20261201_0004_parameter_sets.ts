@@ -27,7 +27,9 @@ export async function up(db: Kysely<any>): Promise<void> {
     .addColumn('pressure_min_mpa', 'real')
     .addColumn('pressure_max_mpa', 'real')
     .addColumn('rationale', 'text', (c) => c.notNull())
-    .addColumn('state', 'text', (c) => c.notNull().check(sql`state in ('draft', 'in_review', 'approved', 'changes_requested', 'superseded', 'retired')`))
+    .addColumn('state', 'text', (c) =>
+      c.notNull().check(sql`state in ('draft', 'in_review', 'approved', 'changes_requested', 'superseded', 'retired')`),
+    )
     .addColumn('created_by', 'text', (c) => c.notNull().references('user.id'))
     .addColumn('created_at', 'text', (c) => c.notNull())
     .addColumn('updated_at', 'text', (c) => c.notNull())
@@ -55,7 +57,11 @@ export async function up(db: Kysely<any>): Promise<void> {
     .addColumn('comment', 'text')
     .addColumn('at', 'text', (c) => c.notNull())
     .execute();
-  await db.schema.createIndex('parameter_set_transition_set_idx').on('parameter_set_transition').columns(['parameter_set_id', 'id']).execute();
+  await db.schema
+    .createIndex('parameter_set_transition_set_idx')
+    .on('parameter_set_transition')
+    .columns(['parameter_set_id', 'id'])
+    .execute();
 
   await db.schema
     .createTable('parameter_set_comment')
@@ -90,10 +96,14 @@ export async function up(db: Kysely<any>): Promise<void> {
       OR (NEW.from_state IS NOT NULL AND NEW.from_state IS NOT (SELECT state FROM parameter_set WHERE id = NEW.parameter_set_id))
     BEGIN SELECT RAISE(ABORT, 'a transition must start from the state the parameter set is in'); END`.execute(db);
   for (const table of ['parameter_set', 'parameter_set_transition', 'parameter_set_comment']) {
-    await sql.raw(`CREATE TRIGGER ${table}_no_delete BEFORE DELETE ON ${table} BEGIN SELECT RAISE(ABORT, '${table} rows are never deleted'); END`).execute(db);
+    await sql
+      .raw(`CREATE TRIGGER ${table}_no_delete BEFORE DELETE ON ${table} BEGIN SELECT RAISE(ABORT, '${table} rows are never deleted'); END`)
+      .execute(db);
   }
   for (const table of ['parameter_set_transition', 'parameter_set_comment']) {
-    await sql.raw(`CREATE TRIGGER ${table}_no_update BEFORE UPDATE ON ${table} BEGIN SELECT RAISE(ABORT, '${table} rows are append-only'); END`).execute(db);
+    await sql
+      .raw(`CREATE TRIGGER ${table}_no_update BEFORE UPDATE ON ${table} BEGIN SELECT RAISE(ABORT, '${table} rows are append-only'); END`)
+      .execute(db);
   }
 }
 

@@ -24,7 +24,9 @@ export async function up(db: Kysely<any>): Promise<void> {
     BEGIN SELECT RAISE(ABORT, 'api_token identity is frozen'); END`.execute(db);
   await sql`CREATE TRIGGER api_token_revocation_final BEFORE UPDATE OF revoked_at ON api_token WHEN OLD.revoked_at IS NOT NULL
     BEGIN SELECT RAISE(ABORT, 'a revoked api_token stays revoked'); END`.execute(db);
-  await sql`CREATE TRIGGER api_token_no_delete BEFORE DELETE ON api_token BEGIN SELECT RAISE(ABORT, 'api_token rows are never deleted'); END`.execute(db);
+  await sql`CREATE TRIGGER api_token_no_delete BEFORE DELETE ON api_token BEGIN SELECT RAISE(ABORT, 'api_token rows are never deleted'); END`.execute(
+    db,
+  );
 }
 
 export async function down(db: Kysely<any>): Promise<void> {

@@ -23,7 +23,11 @@ export async function up(db: Kysely<any>): Promise<void> {
     .addColumn('volume', 'blob', (c) => c.notNull())
     .addColumn('created_at', 'text', (c) => c.notNull())
     .execute();
-  await db.schema.createIndex('simulation_frames_settings_idx').on('simulation_frames').columns(['atoms', 'cutoff', 'scheme', 'timestep']).execute();
+  await db.schema
+    .createIndex('simulation_frames_settings_idx')
+    .on('simulation_frames')
+    .columns(['atoms', 'cutoff', 'scheme', 'timestep'])
+    .execute();
 }
 
 export async function down(db: Kysely<any>): Promise<void> {

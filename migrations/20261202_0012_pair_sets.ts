@@ -38,7 +38,9 @@ export async function up(db: Kysely<any>): Promise<void> {
       OR NEW.sigma12_angstrom IS NOT OLD.sigma12_angstrom OR NEW.first_set_id IS NOT OLD.first_set_id OR NEW.second_set_id IS NOT OLD.second_set_id
       OR NEW.result_json IS NOT OLD.result_json OR NEW.created_by IS NOT OLD.created_by
     BEGIN SELECT RAISE(ABORT, 'pair_set values are frozen and a decided pair set does not change'); END`.execute(db);
-  await sql`CREATE TRIGGER pair_set_no_delete BEFORE DELETE ON pair_set BEGIN SELECT RAISE(ABORT, 'pair_set rows are kept'); END`.execute(db);
+  await sql`CREATE TRIGGER pair_set_no_delete BEFORE DELETE ON pair_set BEGIN SELECT RAISE(ABORT, 'pair_set rows are kept'); END`.execute(
+    db,
+  );
 }
 
 export async function down(db: Kysely<any>): Promise<void> {

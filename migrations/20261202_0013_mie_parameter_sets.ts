@@ -9,11 +9,21 @@ import { type Kysely, sql } from 'kysely';
 export async function up(db: Kysely<any>): Promise<void> {
   await db.schema
     .alterTable('parameter_set')
-    .addColumn('potential', 'text', (c) => c.notNull().defaultTo('lj-12-6').check(sql`potential in ('lj-12-6', 'mie')`))
+    .addColumn('potential', 'text', (c) =>
+      c
+        .notNull()
+        .defaultTo('lj-12-6')
+        .check(sql`potential in ('lj-12-6', 'mie')`),
+    )
     .execute();
   await db.schema
     .alterTable('parameter_set')
-    .addColumn('repulsive_exponent', 'real', (c) => c.notNull().defaultTo(12).check(sql`repulsive_exponent between 8 and 36`))
+    .addColumn('repulsive_exponent', 'real', (c) =>
+      c
+        .notNull()
+        .defaultTo(12)
+        .check(sql`repulsive_exponent between 8 and 36`),
+    )
     .execute();
   await sql`CREATE TRIGGER parameter_set_potential_checked BEFORE INSERT ON parameter_set
     WHEN (NEW.potential = 'lj-12-6') <> (NEW.repulsive_exponent = 12)

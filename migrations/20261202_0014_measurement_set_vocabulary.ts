@@ -34,8 +34,12 @@ async function dropImmutable(db: Kysely<any>, tables: string[]): Promise<void> {
 
 async function createImmutable(db: Kysely<any>, tables: string[]): Promise<void> {
   for (const table of tables) {
-    await sql.raw(`CREATE TRIGGER ${table}_no_update BEFORE UPDATE ON ${table} BEGIN SELECT RAISE(ABORT, '${table} rows are immutable'); END`).execute(db);
-    await sql.raw(`CREATE TRIGGER ${table}_no_delete BEFORE DELETE ON ${table} BEGIN SELECT RAISE(ABORT, '${table} rows are immutable'); END`).execute(db);
+    await sql
+      .raw(`CREATE TRIGGER ${table}_no_update BEFORE UPDATE ON ${table} BEGIN SELECT RAISE(ABORT, '${table} rows are immutable'); END`)
+      .execute(db);
+    await sql
+      .raw(`CREATE TRIGGER ${table}_no_delete BEFORE DELETE ON ${table} BEGIN SELECT RAISE(ABORT, '${table} rows are immutable'); END`)
+      .execute(db);
   }
 }
 

@@ -28,7 +28,17 @@ const dir = mkdtempSync(path.join(tmpdir(), 'epsigma-bench-api-'));
 const password = 'bench-api-password';
 const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
   cwd: root,
-  env: { ...process.env, NODE_ENV: 'production', PORT: '0', HOST: '127.0.0.1', DATABASE_PATH: path.join(dir, 'bench.sqlite'), DEMO_PASSWORD: password, LOG_REQUESTS: '0', WORKERS: '1', SIGN_IN_LIMIT: '1000' },
+  env: {
+    ...process.env,
+    NODE_ENV: 'production',
+    PORT: '0',
+    HOST: '127.0.0.1',
+    DATABASE_PATH: path.join(dir, 'bench.sqlite'),
+    DEMO_PASSWORD: password,
+    LOG_REQUESTS: '0',
+    WORKERS: '1',
+    SIGN_IN_LIMIT: '1000',
+  },
   stdio: ['ignore', 'pipe', 'pipe'],
 });
 let output = '';
@@ -48,7 +58,8 @@ interface Figures {
   errors: number;
 }
 
-const percentile = (sorted: number[], p: number) => (sorted.length ? sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)] : NaN);
+const percentile = (sorted: number[], p: number) =>
+  sorted.length ? sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)] : NaN;
 const round = (x: number, digits: number) => Number(x.toFixed(digits));
 
 async function measure(url: string, cookie: string): Promise<Figures> {
@@ -95,7 +106,8 @@ try {
 
   // A warm-up of 3 s per route at full load, so neither pays for the first requests (JIT, SQLite page cache)
   // or for the start-up work still running (the demo's review mails leaving the outbox).
-  for (const route of ['health', 'catalog']) await autocannon({ url: `${base}/api/${route}`, connections, duration: 3, headers: { cookie } });
+  for (const route of ['health', 'catalog'])
+    await autocannon({ url: `${base}/api/${route}`, connections, duration: 3, headers: { cookie } });
   const health = await measure(`${base}/api/health`, cookie);
   const catalogFigures = await measure(`${base}/api/catalog`, cookie);
   const report = { health, catalog: catalogFigures };
@@ -103,10 +115,14 @@ try {
   if (values.json) {
     console.log(JSON.stringify(report));
   } else {
-    console.log(`API read benchmark: ${connections} connections, ${seconds} s per route, demo catalog of ${catalog.sets.length} approved sets, signed in as the demo consumer`);
+    console.log(
+      `API read benchmark: ${connections} connections, ${seconds} s per route, demo catalog of ${catalog.sets.length} approved sets, signed in as the demo consumer`,
+    );
     console.log('route            req/s     p50 ms   p95 ms   p99 ms   errors');
     for (const [name, f] of Object.entries(report)) {
-      console.log(`${`GET /api/${name}`.padEnd(16)} ${String(f.requestsPerSecond).padStart(7)}  ${String(f.p50Ms).padStart(7)}  ${String(f.p95Ms).padStart(7)}  ${String(f.p99Ms).padStart(7)}  ${String(f.errors).padStart(7)}`);
+      console.log(
+        `${`GET /api/${name}`.padEnd(16)} ${String(f.requestsPerSecond).padStart(7)}  ${String(f.p50Ms).padStart(7)}  ${String(f.p95Ms).padStart(7)}  ${String(f.p99Ms).padStart(7)}  ${String(f.errors).padStart(7)}`,
+      );
     }
     const ratio = catalogFigures.requestsPerSecond / health.requestsPerSecond;
     console.log(`catalog / health throughput: ${ratio.toFixed(2)} (goal ≥ 0.5); catalog p95 ${catalogFigures.p95Ms} ms (goal ≤ 100 ms)`);

@@ -25,14 +25,29 @@ if (values.redis) {
   process.exit(0);
 }
 const dir = mkdtempSync(path.join(tmpdir(), 'epsigma-bench-fit-'));
-const env = loadEnv({ WORKERS: String(os.availableParallelism()), ...process.env, NODE_ENV: 'production', DATABASE_PATH: path.join(dir, 'bench.sqlite'), LOG_REQUESTS: '0' });
+const env = loadEnv({
+  WORKERS: String(os.availableParallelism()),
+  ...process.env,
+  NODE_ENV: 'production',
+  DATABASE_PATH: path.join(dir, 'bench.sqlite'),
+  LOG_REQUESTS: '0',
+});
 const ctx = await createContext(env, () => {});
 try {
   await seedDemo(ctx, { demoPassword: 'bench-password' });
-  const user = await ctx.db.selectFrom('user').select(['id', 'email', 'name']).where('email', '=', 'modeller@demo.epsigma.test').executeTakeFirstOrThrow();
+  const user = await ctx.db
+    .selectFrom('user')
+    .select(['id', 'email', 'name'])
+    .where('email', '=', 'modeller@demo.epsigma.test')
+    .executeTakeFirstOrThrow();
   const actor = { ...user, roles: await rolesOf(ctx.db, user.id) };
   const substance = await ctx.db.selectFrom('substance').select('id').where('name', '=', 'Quillgas QG-1').executeTakeFirstOrThrow();
-  const measurementSets = await ctx.db.selectFrom('measurementSet').select(['id', 'kind']).where('substanceId', '=', substance.id).where('kind', 'in', ['b2', 'density']).execute();
+  const measurementSets = await ctx.db
+    .selectFrom('measurementSet')
+    .select(['id', 'kind'])
+    .where('substanceId', '=', substance.id)
+    .where('kind', 'in', ['b2', 'density'])
+    .execute();
   const densityPoints = await ctx.db
     .selectFrom('measurementRow')
     .innerJoin('measurementSetVersion', 'measurementSetVersion.id', 'measurementRow.measurementSetVersionId')
@@ -41,12 +56,24 @@ try {
     .where('measurementSet.substanceId', '=', substance.id)
     .where('measurementSet.kind', '=', 'density')
     .execute();
-  const countRuns = async () => Number((await ctx.db.selectFrom('job').select((eb) => eb.fn.countAll<number>().as('n')).where('kind', '=', 'simulation').executeTakeFirstOrThrow()).n);
+  const countRuns = async () =>
+    Number(
+      (
+        await ctx.db
+          .selectFrom('job')
+          .select((eb) => eb.fn.countAll<number>().as('n'))
+          .where('kind', '=', 'simulation')
+          .executeTakeFirstOrThrow()
+      ).n,
+    );
 
   const runOnce = async () => {
     const before = await countRuns();
     const started = performance.now();
-    const { id, jobId } = await createFit(ctx, actor, { substanceId: substance.id, measurementSets: measurementSets.map((d) => ({ id: d.id })) });
+    const { id, jobId } = await createFit(ctx, actor, {
+      substanceId: substance.id,
+      measurementSets: measurementSets.map((d) => ({ id: d.id })),
+    });
     const job = await ctx.jobs.waitFor(jobId);
     const seconds = (performance.now() - started) / 1000;
     const fit = await findFit(ctx.db, id);
@@ -68,14 +95,31 @@ try {
 
   const cold = await runOnce();
   const warm = await runOnce();
-  const pick = (r: typeof cold) => ({ seconds: r.seconds, rounds: r.rounds, newRuns: r.newRuns, reusedRuns: r.reusedRuns, reweightedPoints: r.reweightedPoints, stoppedBy: r.stoppedBy, epsilonK: r.epsilonK, sigmaAngstrom: r.sigmaAngstrom });
+  const pick = (r: typeof cold) => ({
+    seconds: r.seconds,
+    rounds: r.rounds,
+    newRuns: r.newRuns,
+    reusedRuns: r.reusedRuns,
+    reweightedPoints: r.reweightedPoints,
+    stoppedBy: r.stoppedBy,
+    epsilonK: r.epsilonK,
+    sigmaAngstrom: r.sigmaAngstrom,
+  });
   if (values.json) console.log(JSON.stringify({ cold: pick(cold), warm: pick(warm) }, null, 2));
   else {
-    const lastFit = (await ctx.db.selectFrom('fit').select((eb) => eb.fn.max('id').as('m')).executeTakeFirstOrThrow()).m as number;
+    const lastFit = (
+      await ctx.db
+        .selectFrom('fit')
+        .select((eb) => eb.fn.max('id').as('m'))
+        .executeTakeFirstOrThrow()
+    ).m as number;
     const mdSettings = JSON.parse((await findFit(ctx.db, lastFit))!.optionsJson).density;
     const fixture = `Quillgas QG-1 demo: ${densityPoints.length} densities on ${new Set(densityPoints.map((p) => p.temperatureK)).size} isotherms + B2 table`;
     console.log(`${fixture}, ${env.WORKERS} worker(s), MD ${JSON.stringify(mdSettings)}`);
-    for (const [name, r] of [['cold', cold], ['warm', warm]] as const) {
+    for (const [name, r] of [
+      ['cold', cold],
+      ['warm', warm],
+    ] as const) {
       const se = r.stdErr ?? {};
       console.log(
         `${name}: ${r.status} in ${r.seconds} s, ${r.rounds} round(s), ${r.newRuns} new run(s), ${r.reusedRuns} reused, ${r.reweightedPoints} reweighted point(s), stopped by ${r.stoppedBy}; ` +

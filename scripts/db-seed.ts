@@ -10,7 +10,9 @@ const env = loadEnv();
 const ctx = await createContext(env, () => {});
 try {
   const { seeded, approved } = await seedDemo(ctx, { demoPassword: env.DEMO_PASSWORD, withApprovedSets: true });
-  console.log(seeded ? `Seeded the demo scenario (${approved} approved parameter sets).` : 'The database already has people; nothing seeded.');
+  console.log(
+    seeded ? `Seeded the demo scenario (${approved} approved parameter sets).` : 'The database already has people; nothing seeded.',
+  );
 } finally {
   await ctx.close();
 }

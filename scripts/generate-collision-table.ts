@@ -39,7 +39,9 @@ for (let i = 0; i <= intervals; i++) {
   const tStar = i === 0 ? tMin : i === intervals ? tMax : Math.exp(lnT);
   const p = collisionIntegralsExact(tStar);
   rows.push([lnT, p.omega11, p.omega22, tStar * p.dOmega11dT, tStar * p.dOmega22dT]);
-  process.stderr.write(`node ${i}/${intervals}  T*=${tStar.toPrecision(6)}  Ω11=${p.omega11.toFixed(6)}  Ω22=${p.omega22.toFixed(6)}  ${((Date.now() - started) / 1000).toFixed(0)} s\n`);
+  process.stderr.write(
+    `node ${i}/${intervals}  T*=${tStar.toPrecision(6)}  Ω11=${p.omega11.toFixed(6)}  Ω22=${p.omega22.toFixed(6)}  ${((Date.now() - started) / 1000).toFixed(0)} s\n`,
+  );
 }
 
 const fmt = (x: number) => x.toPrecision(12);

@@ -86,7 +86,9 @@ for (const s of DEMO_SUBSTANCES) {
     const uLiq = 0.002 * liq;
     const uVap = 0.01 * vap;
     const uP = 0.005 * pKPa;
-    lines.push(`${T},${(liq + uLiq * gaussian()).toFixed(2)},${uLiq.toFixed(2)},${(vap + uVap * gaussian()).toFixed(4)},${uVap.toFixed(4)},${(pKPa + uP * gaussian()).toFixed(3)},${uP.toFixed(3)}`);
+    lines.push(
+      `${T},${(liq + uLiq * gaussian()).toFixed(2)},${uLiq.toFixed(2)},${(vap + uVap * gaussian()).toFixed(4)},${uVap.toFixed(4)},${(pKPa + uP * gaussian()).toFixed(3)},${uP.toFixed(3)}`,
+    );
   }
   out(`${s.file}-vle.csv`, header(s, 'vapour-liquid equilibrium (saturated densities and vapour pressure)') + lines.join('\n') + '\n');
 }
@@ -98,6 +100,11 @@ for (const m of DEMO_MIXTURES) {
     const u = Math.max(0.5, 0.015 * Math.abs(model));
     lines.push(`${T},${(model + u * gaussian()).toFixed(2)},${u.toFixed(2)}`);
   }
-  out(`${m.file}.csv`, `# Invented demonstration data (Quillmoor Chemicals, Fenwick Thermophysics Laboratory): ${m.substances.join(' + ')}, cross second virial coefficients B12. Not a real measurement.\n` + lines.join('\n') + '\n');
+  out(
+    `${m.file}.csv`,
+    `# Invented demonstration data (Quillmoor Chemicals, Fenwick Thermophysics Laboratory): ${m.substances.join(' + ')}, cross second virial coefficients B12. Not a real measurement.\n` +
+      lines.join('\n') +
+      '\n',
+  );
 }
 console.log(`wrote demo tables for ${DEMO_SUBSTANCES.map((s) => s.name).join(', ')}`);

@@ -24,7 +24,10 @@ const builtAt = existsSync(builtIndex) ? statSync(builtIndex).mtimeMs : 0;
 const sourcesAt = Math.max(...SOURCES.map((s) => newestMtime(path.join(root, s))));
 if (builtAt < sourcesAt) {
   console.log(builtAt ? 'The client build is older than its sources; rebuilding…' : 'Building the client…');
-  const result = spawnSync(path.join(root, 'node_modules', '.bin', 'vite'), ['build', '--logLevel', 'warn'], { cwd: root, stdio: 'inherit' });
+  const result = spawnSync(path.join(root, 'node_modules', '.bin', 'vite'), ['build', '--logLevel', 'warn'], {
+    cwd: root,
+    stdio: 'inherit',
+  });
   if (result.status !== 0) {
     console.error('The client build failed.');
     process.exit(1);

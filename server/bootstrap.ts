@@ -22,7 +22,9 @@ export const JOB_KINDS: Record<string, JobKind> = {
 /** Package version plus the commit when the code runs from a git checkout. */
 function readCodeVersion(): string {
   try {
-    const commit = execFileSync('git', ['rev-parse', '--short=12', 'HEAD'], { stdio: ['ignore', 'pipe', 'ignore'] }).toString().trim();
+    const commit = execFileSync('git', ['rev-parse', '--short=12', 'HEAD'], { stdio: ['ignore', 'pipe', 'ignore'] })
+      .toString()
+      .trim();
     return `${pkg.version}+${commit}`;
   } catch {
     return pkg.version;
@@ -30,7 +32,10 @@ function readCodeVersion(): string {
 }
 
 /** Opens and migrates the database, starts the job runner and builds the shared context of the app. */
-export async function createContext(env: Env, log: (message: string) => void = console.log): Promise<AppContext & { close: () => Promise<void> }> {
+export async function createContext(
+  env: Env,
+  log: (message: string) => void = console.log,
+): Promise<AppContext & { close: () => Promise<void> }> {
   const handle = openDatabase(env.DATABASE_PATH);
   await migrateToLatest(handle.db);
   const publicUrl = env.PUBLIC_URL ?? `http://${env.HOST}:${env.PORT}`;
@@ -39,7 +44,9 @@ export async function createContext(env: Env, log: (message: string) => void = c
   // The job driver: the embedded queue (this process's threads) by default, BullMQ workers with REDIS_URL.
   // BullMQ and ioredis load only when they are used.
   const executor: JobExecutor = env.REDIS_URL
-    ? await (await import('./jobs/redis-executor')).RedisExecutor.create({ redisUrl: env.REDIS_URL, codeVersion, localThreads: env.WORKERS, lockMs: env.QUEUE_LOCK_MS, log })
+    ? await (
+        await import('./jobs/redis-executor')
+      ).RedisExecutor.create({ redisUrl: env.REDIS_URL, codeVersion, localThreads: env.WORKERS, lockMs: env.QUEUE_LOCK_MS, log })
     : new LocalExecutor(createWorkerPool(env.WORKERS));
   const jobs = new JobRunner(handle.db, executor, JOB_KINDS, log);
   await jobs.start();

@@ -22,7 +22,10 @@ const demoFile = (name: string) => readFileSync(new URL(`../fixtures/demo/${name
  * through the same parser and store as any upload) and, with `withApprovedSets`, an approved parameter set per
  * substance from a real fit. Does nothing when any person exists, so it is safe to call at every start.
  */
-export async function seedDemo(ctx: AppContext, options: { demoPassword: string; withApprovedSets?: boolean }): Promise<{ seeded: boolean; approved: number }> {
+export async function seedDemo(
+  ctx: AppContext,
+  options: { demoPassword: string; withApprovedSets?: boolean },
+): Promise<{ seeded: boolean; approved: number }> {
   const { db } = ctx;
   if ((await countPeople(db)) > 0) return { seeded: false, approved: 0 };
   const passwordHash = await hashPassword(options.demoPassword);
@@ -30,34 +33,82 @@ export async function seedDemo(ctx: AppContext, options: { demoPassword: string;
     for (const person of DEMO_PEOPLE) {
       const id = randomUUID();
       await insertPerson(tx, { id, email: person.email, name: person.name, passwordHash, roles: person.roles });
-      await recordAudit(tx, { actor: null, action: 'user.created', targetType: 'user', targetId: id, summary: `Demo seed added ${person.email} with roles ${person.roles.join(', ')}`, after: { email: person.email, name: person.name, roles: person.roles } });
+      await recordAudit(tx, {
+        actor: null,
+        action: 'user.created',
+        targetType: 'user',
+        targetId: id,
+        summary: `Demo seed added ${person.email} with roles ${person.roles.join(', ')}`,
+        after: { email: person.email, name: person.name, roles: person.roles },
+      });
     }
     const modeller = (await demoPerson(tx, 'modeller'))!;
     const now = new Date().toISOString();
     for (const s of DEMO_SUBSTANCES) {
       const substance = await tx
         .insertInto('substance')
-        .values({ name: s.name, formula: s.formula ?? null, description: s.description, molarMassGramsPerMol: s.molarMassGPerMol, createdBy: modeller.id, createdAt: now, updatedAt: now })
+        .values({
+          name: s.name,
+          formula: s.formula ?? null,
+          description: s.description,
+          molarMassGramsPerMol: s.molarMassGPerMol,
+          createdBy: modeller.id,
+          createdAt: now,
+          updatedAt: now,
+        })
         .returning('id')
         .executeTakeFirstOrThrow();
-      await recordAudit(tx, { actor: modeller, action: 'substance.created', targetType: 'substance', targetId: substance.id, summary: `Demo seed created substance ${s.name}` });
-      for (const kind of ['b2', 'viscosity', 'density', 'saturatedLiquidDensity', 'saturatedVapourDensity', 'vapourPressure'] as DemoKind[]) {
+      await recordAudit(tx, {
+        actor: modeller,
+        action: 'substance.created',
+        targetType: 'substance',
+        targetId: substance.id,
+        summary: `Demo seed created substance ${s.name}`,
+      });
+      for (const kind of [
+        'b2',
+        'viscosity',
+        'density',
+        'saturatedLiquidDensity',
+        'saturatedVapourDensity',
+        'vapourPressure',
+      ] as DemoKind[]) {
         const meta = s.sources[kind];
         if (!meta || !demoHasTable(s, kind)) continue;
         const name = demoFileOf(s.file, kind);
         const file = { originalname: name, buffer: demoFile(name) };
         const fields = { source: meta.source, method: meta.method };
         const parsed = parseUpload(file, kind, fields, s.molarMassGPerMol);
-        await storeVersion(tx, { newMeasurementSet: { substanceId: substance.id, kind, name: meta.name }, file, fields, parsed, actor: modeller });
+        await storeVersion(tx, {
+          newMeasurementSet: { substanceId: substance.id, kind, name: meta.name },
+          file,
+          fields,
+          parsed,
+          actor: modeller,
+        });
       }
     }
     // Cross second virial coefficients of a demo pair, stored with the pair's first substance.
     for (const m of DEMO_MIXTURES) {
-      const first = await tx.selectFrom('substance').select(['id', 'molarMassGramsPerMol']).where('name', '=', m.substances[0]).executeTakeFirstOrThrow();
+      const first = await tx
+        .selectFrom('substance')
+        .select(['id', 'molarMassGramsPerMol'])
+        .where('name', '=', m.substances[0])
+        .executeTakeFirstOrThrow();
       const file = { originalname: `${m.file}.csv`, buffer: demoFile(`${m.file}.csv`) };
-      const fields = { source: m.source, method: m.method, notes: `Cross second virial coefficient of the pair ${m.substances.join(' + ')}.` };
+      const fields = {
+        source: m.source,
+        method: m.method,
+        notes: `Cross second virial coefficient of the pair ${m.substances.join(' + ')}.`,
+      };
       const parsed = parseUpload(file, 'b12', fields, first.molarMassGramsPerMol);
-      await storeVersion(tx, { newMeasurementSet: { substanceId: first.id, kind: 'b12', name: m.name }, file, fields, parsed, actor: modeller });
+      await storeVersion(tx, {
+        newMeasurementSet: { substanceId: first.id, kind: 'b12', name: m.name },
+        file,
+        fields,
+        parsed,
+        actor: modeller,
+      });
     }
   });
   const approved = options.withApprovedSets ? await seedApprovedSets(ctx) : 0;
@@ -84,19 +135,31 @@ async function seedApprovedSets(ctx: AppContext): Promise<number> {
   for (const demo of DEMO_SUBSTANCES) {
     const substance = await findSubstanceByName(ctx.db, demo.name);
     if (!substance) continue;
-    const gasPhase = (await listMeasurementSetsOfSubstance(ctx.db, substance.id)).filter((s) => (s.kind === 'b2' || s.kind === 'viscosity') && !s.withdrawnAt);
+    const gasPhase = (await listMeasurementSetsOfSubstance(ctx.db, substance.id)).filter(
+      (s) => (s.kind === 'b2' || s.kind === 'viscosity') && !s.withdrawnAt,
+    );
     if (!gasPhase.length) continue;
     const fit = await createFit(ctx, modeller, { substanceId: substance.id, measurementSets: gasPhase.map((s) => ({ id: s.id })) });
     const job = await ctx.jobs.waitFor(fit.jobId);
     const result = job.result as { status?: string } | null;
     if (job.status !== 'succeeded' || result?.status !== 'succeeded') continue;
     const kinds = gasPhase.map((s) => (s.kind === 'b2' ? 'B2' : 'dilute-gas viscosity')).join(' and ');
-    const set = await createParameterSet(ctx.db, modeller, { fitId: fit.id, rationale: `Fit #${fit.number} reproduces the ${kinds} data of ${demo.name} within their uncertainties; full-potential parameters for gas-phase work.` });
+    const set = await createParameterSet(ctx.db, modeller, {
+      fitId: fit.id,
+      rationale: `Fit #${fit.number} reproduces the ${kinds} data of ${demo.name} within their uncertainties; full-potential parameters for gas-phase work.`,
+    });
     await submitParameterSet(ctx.db, modeller, set.id);
-    await reviewParameterSet(ctx.db, reviewer, set.id, 'approve', `Residuals are within the stated uncertainties across ${gasPhase.length === 1 ? 'the data set' : 'both data sets'}; approved for the catalog.`);
+    await reviewParameterSet(
+      ctx.db,
+      reviewer,
+      set.id,
+      'approve',
+      `Residuals are within the stated uncertainties across ${gasPhase.length === 1 ? 'the data set' : 'both data sets'}; approved for the catalog.`,
+    );
     approved++;
   }
   // The demo modeller has seen the seed's own fit notices; the bell starts quiet.
-  for (const notice of (await noticesOf(ctx.db, modeller.id)).notices) if (!notice.readAt) await markNoticeRead(ctx.db, modeller.id, notice.id);
+  for (const notice of (await noticesOf(ctx.db, modeller.id)).notices)
+    if (!notice.readAt) await markNoticeRead(ctx.db, modeller.id, notice.id);
   return approved;
 }

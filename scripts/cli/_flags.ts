@@ -13,7 +13,11 @@ export function errorMessage(err: unknown): string {
 }
 
 /** Strict `parseArgs` without positionals; a parse error (unknown flag, missing value) gets the usage appended. */
-export function parseFlags<const O extends FlagOptions>(argv: string[], options: O, usage: string): ReturnType<typeof parseArgs<StrictConfig<O>>>['values'] {
+export function parseFlags<const O extends FlagOptions>(
+  argv: string[],
+  options: O,
+  usage: string,
+): ReturnType<typeof parseArgs<StrictConfig<O>>>['values'] {
   try {
     return parseArgs<StrictConfig<O>>({ args: argv, options, strict: true, allowPositionals: false }).values;
   } catch (err) {
@@ -86,6 +90,7 @@ export function mapListFlag<T>(name: string, values: number[], fn: (value: numbe
 export function repulsiveExponentFlag(raw: string | undefined): number {
   if (raw === undefined) return 12;
   const value = numberOf(raw);
-  if (!Number.isFinite(value) || value < 8 || value > 36) throw new Error(`--repulsive-exponent must be a number from 8 to 36, got "${raw}"`);
+  if (!Number.isFinite(value) || value < 8 || value > 36)
+    throw new Error(`--repulsive-exponent must be a number from 8 to 36, got "${raw}"`);
   return value;
 }

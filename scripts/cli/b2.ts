@@ -34,7 +34,9 @@ export async function run(argv: string[]): Promise<unknown> {
   const repulsiveExponent = repulsiveExponentFlag(values['repulsive-exponent']);
 
   const rows = mapListFlag('temperatures', temperatures, (temperatureK) => {
-    const p = b2WithGradient(temperatureK, epsilonK, sigmaAngstrom, molarMassGPerMol ? { molarMassGPerMol } : undefined, { repulsiveExponent });
+    const p = b2WithGradient(temperatureK, epsilonK, sigmaAngstrom, molarMassGPerMol ? { molarMassGPerMol } : undefined, {
+      repulsiveExponent,
+    });
     return { temperatureK, b2Cm3PerMol: p.b2Cm3PerMol };
   });
   return { model: repulsiveExponent === 12 ? 'lj-12-6' : 'mie', repulsiveExponent, rows };

@@ -24,7 +24,10 @@ export async function run(argv: string[]): Promise<unknown> {
     },
     USAGE,
   );
-  const temperatures = positiveNumberListFlag('reduced-temperatures', requiredFlag('reduced-temperatures', values['reduced-temperatures'], USAGE));
+  const temperatures = positiveNumberListFlag(
+    'reduced-temperatures',
+    requiredFlag('reduced-temperatures', values['reduced-temperatures'], USAGE),
+  );
   const epsilonK = positiveNumberFlag('epsilon-k', values['epsilon-k']);
   const sigmaAngstrom = positiveNumberFlag('sigma-angstrom', values['sigma-angstrom']);
   if ((epsilonK === undefined) !== (sigmaAngstrom === undefined)) throw new Error(`--epsilon-k and --sigma-angstrom go together; ${USAGE}`);

@@ -18,17 +18,29 @@ const USAGE = 'usage: cross --pure <ε/K>,<σ/Å>[,<u(ε)>,<u(σ)>[,<corr>]] --p
 function parsePure(raw: string, which: number): PureSetParameters {
   const parts = raw.split(',').map((p) => p.trim());
   const nums = parts.map((p) => (p === '' ? Number.NaN : Number(p)));
-  const bad = () => new Error(`--pure (set ${which}) must be "EPS_K,SIGMA_A" with optional ",U_EPS_K,U_SIGMA_A[,CORR]", all finite numbers (ε, σ, u > 0, |corr| ≤ 1), got "${raw}"`);
+  const bad = () =>
+    new Error(
+      `--pure (set ${which}) must be "EPS_K,SIGMA_A" with optional ",U_EPS_K,U_SIGMA_A[,CORR]", all finite numbers (ε, σ, u > 0, |corr| ≤ 1), got "${raw}"`,
+    );
   if (![2, 4, 5].includes(nums.length) || nums.some((n) => !Number.isFinite(n))) throw bad();
   const [epsilonK, sigmaAngstrom, ue, us, corr] = nums;
   if (!(epsilonK > 0) || !(sigmaAngstrom > 0)) throw bad();
   if (nums.length >= 4 && (!(ue > 0) || !(us > 0))) throw bad();
   if (nums.length === 5 && !(Math.abs(corr) <= 1)) throw bad();
-  return { epsilonK, sigmaAngstrom, ...(nums.length >= 4 ? { stdErr: { epsilonK: ue, sigmaAngstrom: us } } : {}), ...(nums.length === 5 ? { correlation: corr } : {}) };
+  return {
+    epsilonK,
+    sigmaAngstrom,
+    ...(nums.length >= 4 ? { stdErr: { epsilonK: ue, sigmaAngstrom: us } } : {}),
+    ...(nums.length === 5 ? { correlation: corr } : {}),
+  };
 }
 
 export async function run(argv: string[]): Promise<unknown> {
-  const values = parseFlags(argv, { pure: { type: 'string', multiple: true }, data: { type: 'string' }, 'fit-lij': { type: 'boolean' }, json: { type: 'boolean' } }, USAGE);
+  const values = parseFlags(
+    argv,
+    { pure: { type: 'string', multiple: true }, data: { type: 'string' }, 'fit-lij': { type: 'boolean' }, json: { type: 'boolean' } },
+    USAGE,
+  );
   const pure = values.pure ?? [];
   if (pure.length !== 2) throw new Error(`give --pure exactly twice (one per substance), got ${pure.length}; ${USAGE}`);
   const [a, b] = pure.map((p, i) => parsePure(p, i + 1));
@@ -41,7 +53,11 @@ export async function run(argv: string[]): Promise<unknown> {
   }
   const parsed = parseMeasurementCsv(text, { kind: 'b12' });
   if (!parsed.ok) throw new Error(`${path}: ${parsed.problems.map((p) => p.message).join(' | ')}`);
-  const rows = (parsed.rows as ParsedB12Row[]).map((r) => ({ temperatureK: r.temperatureK, b12Cm3PerMol: r.b12Cm3PerMol, uB12Cm3PerMol: r.uB12Cm3PerMol }));
+  const rows = (parsed.rows as ParsedB12Row[]).map((r) => ({
+    temperatureK: r.temperatureK,
+    b12Cm3PerMol: r.b12Cm3PerMol,
+    uB12Cm3PerMol: r.uB12Cm3PerMol,
+  }));
   const r = fitCrossInteraction(a, b, rows, { fitLij: values['fit-lij'] ?? false });
   return {
     kij: r.kij,

@@ -8,7 +8,15 @@
  *   eos --critical-point [--model M] --json → { reducedTemperature, reducedDensity, reducedPressure, model, source }
  * M is thol2016 (Thol et al. 2016, the default), jzg1993 (Johnson, Zollweg & Gubbins) or kn1994 (Kolafa & Nezbeda).
  */
-import { DEFAULT_LJ_EOS_MODEL, LJ_EOS_MODELS, LJ_EOS_MODEL_IDS, isLjEosModelId, ljCoexistence, ljCriticalPoint, ljStableDensity } from '../../shared/physics/eos/lj-eos-models';
+import {
+  DEFAULT_LJ_EOS_MODEL,
+  LJ_EOS_MODELS,
+  LJ_EOS_MODEL_IDS,
+  isLjEosModelId,
+  ljCoexistence,
+  ljCriticalPoint,
+  ljStableDensity,
+} from '../../shared/physics/eos/lj-eos-models';
 import { errorMessage, finiteNumberFlag, missingFlagError, parseFlags, requiredFlag } from './_flags';
 
 const USAGE =
@@ -36,15 +44,27 @@ export async function run(argv: string[]): Promise<unknown> {
   if (values.saturation && values['critical-point']) throw new Error(`--saturation and --critical-point are separate questions; ${USAGE}`);
 
   if (values['critical-point']) {
-    for (const f of ['reduced-temperature', 'reduced-pressure', 'prefer'] as const) if (values[f] !== undefined) throw new Error(`--${f} is not used with --critical-point`);
+    for (const f of ['reduced-temperature', 'reduced-pressure', 'prefer'] as const)
+      if (values[f] !== undefined) throw new Error(`--${f} is not used with --critical-point`);
     const c = ljCriticalPoint(model);
-    return { reducedTemperature: c.reducedTemperature, reducedDensity: c.reducedDensity, reducedPressure: c.reducedPressure, model, source };
+    return {
+      reducedTemperature: c.reducedTemperature,
+      reducedDensity: c.reducedDensity,
+      reducedPressure: c.reducedPressure,
+      model,
+      source,
+    };
   }
 
-  const reducedTemperature = finiteNumberFlag('reduced-temperature', requiredFlag('reduced-temperature', values['reduced-temperature'], USAGE));
+  const reducedTemperature = finiteNumberFlag(
+    'reduced-temperature',
+    requiredFlag('reduced-temperature', values['reduced-temperature'], USAGE),
+  );
   if (values.saturation) {
-    for (const f of ['reduced-pressure', 'prefer'] as const) if (values[f] !== undefined) throw new Error(`--${f} is not used with --saturation`);
-    if (!(reducedTemperature > 0)) throw new Error(`--reduced-temperature must be a finite number > 0, got "${values['reduced-temperature']}"`);
+    for (const f of ['reduced-pressure', 'prefer'] as const)
+      if (values[f] !== undefined) throw new Error(`--${f} is not used with --saturation`);
+    if (!(reducedTemperature > 0))
+      throw new Error(`--reduced-temperature must be a finite number > 0, got "${values['reduced-temperature']}"`);
     let s;
     try {
       s = ljCoexistence(reducedTemperature, model);
@@ -67,10 +87,12 @@ export async function run(argv: string[]): Promise<unknown> {
 
   if (values['reduced-pressure'] === undefined) throw missingFlagError('reduced-pressure', USAGE);
   const reducedPressure = finiteNumberFlag('reduced-pressure', values['reduced-pressure']);
-  if (!(reducedTemperature > 0)) throw new Error(`--reduced-temperature must be a finite number > 0, got "${values['reduced-temperature']}"`);
+  if (!(reducedTemperature > 0))
+    throw new Error(`--reduced-temperature must be a finite number > 0, got "${values['reduced-temperature']}"`);
   if (!(reducedPressure > 0)) throw new Error(`--reduced-pressure must be a finite number > 0, got "${values['reduced-pressure']}"`);
   const prefer = values.prefer;
-  if (prefer !== undefined && prefer !== 'liquid' && prefer !== 'vapour') throw new Error(`--prefer must be "liquid" or "vapour", got "${prefer}"`);
+  if (prefer !== undefined && prefer !== 'liquid' && prefer !== 'vapour')
+    throw new Error(`--prefer must be "liquid" or "vapour", got "${prefer}"`);
   let r;
   try {
     r = ljStableDensity(reducedTemperature, reducedPressure, model, prefer);

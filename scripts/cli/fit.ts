@@ -88,7 +88,8 @@ export async function run(argv: string[]): Promise<unknown> {
     if (!Number.isInteger(restarts) || restarts < 0) throw new Error(`--restarts must be a non-negative integer, got "${values.restarts}"`);
   }
   const measurementSets = files.map((file) => loadMeasurementSet(file, molarMassGPerMol));
-  if (values.quantum && molarMassGPerMol === undefined) throw new Error('--quantum needs --molar-mass (the quantum correction depends on the molecular mass)');
+  if (values.quantum && molarMassGPerMol === undefined)
+    throw new Error('--quantum needs --molar-mass (the quantum correction depends on the molecular mass)');
   if (measurementSets.some((d) => d.kind === 'viscosity') && molarMassGPerMol === undefined) {
     throw new Error('viscosity data need --molar-mass (the Chapman–Enskog viscosity depends on the molecular mass)');
   }
@@ -98,18 +99,27 @@ export async function run(argv: string[]): Promise<unknown> {
   const model = values.model ?? 'lj-12-6';
   if (model !== 'lj-12-6' && model !== 'mie') throw new Error(`--model must be lj-12-6 or mie, got "${model}"`);
   const fitExponent = values['fit-repulsive-exponent'] === true;
-  if (model === 'lj-12-6' && (values['repulsive-exponent'] !== undefined || fitExponent)) throw new Error('--repulsive-exponent and --fit-repulsive-exponent need --model mie');
-  if (model === 'mie' && (values['repulsive-exponent'] === undefined) === !fitExponent) throw new Error('--model mie needs either --repulsive-exponent <8–36> (held) or --fit-repulsive-exponent (fitted), not both');
+  if (model === 'lj-12-6' && (values['repulsive-exponent'] !== undefined || fitExponent))
+    throw new Error('--repulsive-exponent and --fit-repulsive-exponent need --model mie');
+  if (model === 'mie' && (values['repulsive-exponent'] === undefined) === !fitExponent)
+    throw new Error('--model mie needs either --repulsive-exponent <8–36> (held) or --fit-repulsive-exponent (fitted), not both');
   const repulsiveExponent = repulsiveExponentFlag(values['repulsive-exponent']);
   let samples: number | undefined;
   if (values.samples !== undefined) {
     samples = Number(values.samples);
     if (!values.posterior) throw new Error('--samples is only used with --posterior');
-    if (!Number.isInteger(samples) || samples < 100 || samples > 100000) throw new Error(`--samples must be a whole number from 100 to 100000, got "${values.samples}"`);
+    if (!Number.isInteger(samples) || samples < 100 || samples > 100000)
+      throw new Error(`--samples must be a whole number from 100 to 100000, got "${values.samples}"`);
   }
   const hasDensity = measurementSets.some((d) => d.kind === 'density');
-  if (model === 'mie' && hasDensity) throw new Error('the command line runs density fits with LJ 12-6 only; a Mie density fit runs through the API (POST /api/fits)');
-  const options = { molarMassGPerMol, quantumCorrection: values.quantum ?? false, ...(restarts !== undefined ? { restarts } : {}), ...(model === 'mie' && !fitExponent ? { repulsiveExponent } : {}) };
+  if (model === 'mie' && hasDensity)
+    throw new Error('the command line runs density fits with LJ 12-6 only; a Mie density fit runs through the API (POST /api/fits)');
+  const options = {
+    molarMassGPerMol,
+    quantumCorrection: values.quantum ?? false,
+    ...(restarts !== undefined ? { restarts } : {}),
+    ...(model === 'mie' && !fitExponent ? { repulsiveExponent } : {}),
+  };
   const fit = model === 'mie' && fitExponent ? fitMieWithExponent(measurementSets, options) : fitLennardJones(measurementSets, options);
   if (!hasDensity) {
     const extra: Record<string, unknown> = {};
@@ -119,14 +129,39 @@ export async function run(argv: string[]): Promise<unknown> {
       if ('repulsiveExponentProfile' in fit) extra.repulsiveExponentProfile = fit.repulsiveExponentProfile;
     }
     if (values.posterior && fit.status === 'succeeded') {
-      const post = ljPosterior(measurementSets, { ...options, repulsiveExponent: fit.repulsiveExponent }, fit, { ...(samples !== undefined ? { samples } : {}), drawsReturned: 0 });
+      const post = ljPosterior(measurementSets, { ...options, repulsiveExponent: fit.repulsiveExponent }, fit, {
+        ...(samples !== undefined ? { samples } : {}),
+        drawsReturned: 0,
+      });
       const pick = (p: typeof post.epsilonK) => ({ median: p.median, lower95: p.lower95, upper95: p.upper95 });
-      extra.posterior = { epsilonK: pick(post.epsilonK), sigmaAngstrom: pick(post.sigmaAngstrom), correlation: post.correlation, linearised: post.linearised, diagnostics: post.diagnostics, likelihood: post.likelihood, priors: post.priors, messages: 'repulsiveExponentProfile' in fit ? [...post.messages, `ε and σ were sampled at the best λr = ${fit.repulsiveExponent?.toFixed(2)}; λr itself is not sampled, so these intervals do not include its uncertainty.`] : post.messages };
+      extra.posterior = {
+        epsilonK: pick(post.epsilonK),
+        sigmaAngstrom: pick(post.sigmaAngstrom),
+        correlation: post.correlation,
+        linearised: post.linearised,
+        diagnostics: post.diagnostics,
+        likelihood: post.likelihood,
+        priors: post.priors,
+        messages:
+          'repulsiveExponentProfile' in fit
+            ? [
+                ...post.messages,
+                `ε and σ were sampled at the best λr = ${fit.repulsiveExponent?.toFixed(2)}; λr itself is not sampled, so these intervals do not include its uncertainty.`,
+              ]
+            : post.messages,
+      };
     }
     return summary(fit, extra);
   }
-  if (!measurementSets.some((d) => d.kind === 'density') || fit.status !== 'succeeded') return summary(fit, measurementSets.some((d) => d.kind === 'density') ? { eosStage: summary(fit) } : {});
-  return densityStage(measurementSets, fit, molarMassGPerMol!, values, values.posterior ? { ...(samples !== undefined ? { samples } : {}) } : undefined);
+  if (!measurementSets.some((d) => d.kind === 'density') || fit.status !== 'succeeded')
+    return summary(fit, measurementSets.some((d) => d.kind === 'density') ? { eosStage: summary(fit) } : {});
+  return densityStage(
+    measurementSets,
+    fit,
+    molarMassGPerMol!,
+    values,
+    values.posterior ? { ...(samples !== undefined ? { samples } : {}) } : undefined,
+  );
 }
 
 /** The simulation stage, with the worker pool and an in-command cache of runs by reduced state and settings. */
@@ -144,8 +179,10 @@ async function densityStage(
     return v;
   };
   const cutoff = values.cutoff === undefined ? undefined : Number(values.cutoff);
-  if (cutoff !== undefined && !(cutoff >= 2 && cutoff <= 4)) throw new Error(`--cutoff must be between 2 and 4 (rc/σ), got "${values.cutoff}"`);
-  if (values.scheme !== undefined && values.scheme !== 'truncated-tail' && values.scheme !== 'truncated-shifted') throw new Error(`--scheme must be truncated-tail or truncated-shifted, got "${values.scheme}"`);
+  if (cutoff !== undefined && !(cutoff >= 2 && cutoff <= 4))
+    throw new Error(`--cutoff must be between 2 and 4 (rc/σ), got "${values.cutoff}"`);
+  if (values.scheme !== undefined && values.scheme !== 'truncated-tail' && values.scheme !== 'truncated-shifted')
+    throw new Error(`--scheme must be truncated-tail or truncated-shifted, got "${values.scheme}"`);
   const md = {
     ...DENSITY_FIT_DEFAULTS,
     ...(intFlag('atoms', values.atoms, 108, 20000) !== undefined ? { atoms: Number(values.atoms) } : {}),
@@ -171,18 +208,45 @@ async function densityStage(
           runs++;
           onRunFinished?.();
           // Frames and settings go along, so the stage reweights them to nearby states (shared/physics/md/mbar.ts).
-          return { id: runs, reused: hit, reducedDensity: r.reducedDensity, stdErr: r.stdErr, dRhoDT: r.dRhoDT, dRhoDP: r.dRhoDP, phase: r.phase, ...r.settings, effectiveSamples: r.effectiveSamples, startedFrom: r.startedFrom, frames: r.frames };
+          return {
+            id: runs,
+            reused: hit,
+            reducedDensity: r.reducedDensity,
+            stdErr: r.stdErr,
+            dRhoDT: r.dRhoDT,
+            dRhoDP: r.dRhoDP,
+            phase: r.phase,
+            ...r.settings,
+            effectiveSamples: r.effectiveSamples,
+            startedFrom: r.startedFrom,
+            frames: r.frames,
+          };
         }),
       );
-    const points = measurementSets.flatMap((d, measurementSetIndex) => d.rows.map((r) => ({ measurementSetId: d.id, measurementSetIndex, kind: d.kind, temperatureK: r.temperatureK, pressureMPa: r.pressureMPa, value: r.value, uncertainty: r.uncertainty, weight: d.weight ?? 1 })));
-    const result = await mdStageFit(points, measurementSets.map((d) => ({ id: d.id, kind: d.kind })), {
-      start: { epsilonK: eos.epsilonK, sigmaAngstrom: eos.sigmaAngstrom },
-      bounds: eos.bounds,
-      context: { molarMassGPerMol, quantumCorrection: eos.quantumCorrection },
-      simulate,
-      // The posterior on the reweighted predictions of the stage's runs (shared/fitting/density-posterior.ts).
-      ...(posterior ? { posterior: { ...posterior, drawsReturned: 0 } } : {}),
-    });
+    const points = measurementSets.flatMap((d, measurementSetIndex) =>
+      d.rows.map((r) => ({
+        measurementSetId: d.id,
+        measurementSetIndex,
+        kind: d.kind,
+        temperatureK: r.temperatureK,
+        pressureMPa: r.pressureMPa,
+        value: r.value,
+        uncertainty: r.uncertainty,
+        weight: d.weight ?? 1,
+      })),
+    );
+    const result = await mdStageFit(
+      points,
+      measurementSets.map((d) => ({ id: d.id, kind: d.kind })),
+      {
+        start: { epsilonK: eos.epsilonK, sigmaAngstrom: eos.sigmaAngstrom },
+        bounds: eos.bounds,
+        context: { molarMassGPerMol, quantumCorrection: eos.quantumCorrection },
+        simulate,
+        // The posterior on the reweighted predictions of the stage's runs (shared/fitting/density-posterior.ts).
+        ...(posterior ? { posterior: { ...posterior, drawsReturned: 0 } } : {}),
+      },
+    );
     const post = result.posterior;
     const pick = (p: NonNullable<typeof post>['epsilonK']) => ({ median: p.median, lower95: p.lower95, upper95: p.upper95 });
     return summary(result, {
@@ -190,7 +254,15 @@ async function densityStage(
       mdRuns: cache.size,
       mdRunsReused: reused,
       mdSettings: md,
-      mdIterations: result.mdIterations.map((i) => ({ iteration: i.iteration, epsilonK: i.epsilonK, sigmaAngstrom: i.sigmaAngstrom, chi2: i.chi2, accepted: i.accepted, reason: i.reason, reweightedSteps: i.reweightedSteps })),
+      mdIterations: result.mdIterations.map((i) => ({
+        iteration: i.iteration,
+        epsilonK: i.epsilonK,
+        sigmaAngstrom: i.sigmaAngstrom,
+        chi2: i.chi2,
+        accepted: i.accepted,
+        reason: i.reason,
+        reweightedSteps: i.reweightedSteps,
+      })),
       mdRounds: result.mdRounds,
       stoppedBy: result.stoppedBy,
       newRuns: result.newRuns,
@@ -199,7 +271,19 @@ async function densityStage(
       effectiveSamples: result.residuals.filter((r) => r.kind === 'density').map((r) => r.effectiveSamples),
       stoppingRule: result.stoppingRule,
       ...(post
-        ? { posterior: { epsilonK: pick(post.epsilonK), sigmaAngstrom: pick(post.sigmaAngstrom), correlation: post.correlation, linearised: post.linearised, diagnostics: post.diagnostics, coverage: post.coverage, likelihood: post.likelihood, priors: post.priors, messages: post.messages } }
+        ? {
+            posterior: {
+              epsilonK: pick(post.epsilonK),
+              sigmaAngstrom: pick(post.sigmaAngstrom),
+              correlation: post.correlation,
+              linearised: post.linearised,
+              diagnostics: post.diagnostics,
+              coverage: post.coverage,
+              likelihood: post.likelihood,
+              priors: post.priors,
+              messages: post.messages,
+            },
+          }
         : {}),
     });
   } finally {

@@ -54,7 +54,9 @@ export async function run(argv: string[]): Promise<unknown> {
     cutoff: finiteNumberFlag('cutoff', values.cutoff),
     scheme,
     seed: finiteNumberFlag('seed', values.seed),
-    ...(values['repulsive-exponent'] !== undefined ? { repulsiveExponent: finiteNumberFlag('repulsive-exponent', values['repulsive-exponent']) } : {}),
+    ...(values['repulsive-exponent'] !== undefined
+      ? { repulsiveExponent: finiteNumberFlag('repulsive-exponent', values['repulsive-exponent']) }
+      : {}),
   };
   let result;
   try {

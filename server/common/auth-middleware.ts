@@ -35,7 +35,9 @@ const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
 export const originCheck: RequestHandler = (req, _res, next) => {
   if (SAFE_METHODS.has(req.method)) return next();
   if (!sameOrigin(req.get('origin'), req.protocol, req.host)) {
-    return next(new AppError(403, 'origin_rejected', 'State-changing requests must come from this site (Origin header missing or foreign).'));
+    return next(
+      new AppError(403, 'origin_rejected', 'State-changing requests must come from this site (Origin header missing or foreign).'),
+    );
   }
   next();
 };
@@ -51,7 +53,10 @@ export function sameOrigin(origin: string | undefined, protocol: string, host: s
 }
 
 /** What the session middleware needs of the session manager (built by createAuth in server/features/auth/auth.ts). */
-export type SessionAuth = Pick<Lucia, 'readSessionCookie' | 'validateSession' | 'createSessionCookie' | 'createBlankSessionCookie' | 'invalidateSession'>;
+export type SessionAuth = Pick<
+  Lucia,
+  'readSessionCookie' | 'validateSession' | 'createSessionCookie' | 'createBlankSessionCookie' | 'invalidateSession'
+>;
 
 /** Reads the session cookie, refreshes or clears it, and loads the user with their roles. */
 export function sessionMiddleware(auth: SessionAuth, _db?: Db): RequestHandler {

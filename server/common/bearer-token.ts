@@ -38,7 +38,8 @@ export function bearerTokenMiddleware(options: { routes: readonly TokenRoute[]; 
     // Other schemes (e.g. Basic from a proxy in front) are not ours to judge.
     if (header === undefined || !/^bearer\s/i.test(header)) return next();
     const match = /^Bearer[ ]+([A-Za-z0-9_-]{16,128})[ ]*$/i.exec(header);
-    if (!READ_METHODS.has(req.method)) return next(new AppError(403, 'token_read_only', 'API tokens are read-only: sign in to change anything.'));
+    if (!READ_METHODS.has(req.method))
+      return next(new AppError(403, 'token_read_only', 'API tokens are read-only: sign in to change anything.'));
     if (!tokenMayReach(routes, req.method, req.path)) {
       return next(forbidden(`API tokens reach only ${routes.map((r) => r.route).join(', ')}.`));
     }

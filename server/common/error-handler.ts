@@ -26,9 +26,12 @@ export function createErrorHandler(log: (msg: string) => void): ErrorRequestHand
     } else if (err?.type === 'entity.too.large') {
       error = new AppError(413, 'payload_too_large', 'The request body is too large.');
     } else if (err?.type === 'encoding.unsupported') {
-      error = new AppError(415, 'unsupported_encoding', 'The request body\'s Content-Encoding is not supported; send it uncompressed or as gzip, deflate or br.', [
-        { field: 'Content-Encoding', message: 'use identity, gzip, deflate or br' },
-      ]);
+      error = new AppError(
+        415,
+        'unsupported_encoding',
+        "The request body's Content-Encoding is not supported; send it uncompressed or as gzip, deflate or br.",
+        [{ field: 'Content-Encoding', message: 'use identity, gzip, deflate or br' }],
+      );
     } else if (err?.type === 'charset.unsupported') {
       error = new AppError(415, 'unsupported_charset', 'JSON bodies must be UTF-8 (Content-Type: application/json; charset=utf-8).', [
         { field: 'Content-Type', message: 'use charset=utf-8' },
@@ -36,11 +39,17 @@ export function createErrorHandler(log: (msg: string) => void): ErrorRequestHand
     } else if (isClientHttpError(err)) {
       // Other body-reading failures (a body that is not the gzip/deflate/br it claims, an aborted upload, a
       // wrong length): the client's fault, answered as such instead of a 500.
-      error = new AppError(err.status, err.status === 415 ? 'unsupported_media_type' : 'unreadable_body', `The request body cannot be read (${err.message}).`);
+      error = new AppError(
+        err.status,
+        err.status === 415 ? 'unsupported_media_type' : 'unreadable_body',
+        `The request body cannot be read (${err.message}).`,
+      );
     } else if (err?.name === 'MulterError') {
       error =
         err.code === 'LIMIT_FILE_SIZE'
-          ? new AppError(413, 'file_too_large', 'The file is over the upload size limit.', [{ field: err.field ?? 'file', message: 'file over the size limit' }])
+          ? new AppError(413, 'file_too_large', 'The file is over the upload size limit.', [
+              { field: err.field ?? 'file', message: 'file over the size limit' },
+            ])
           : new AppError(400, 'bad_upload', `Upload rejected: ${err.message}.`, [{ field: err.field ?? 'file', message: err.message }]);
     } else {
       log(`unexpected error: ${err instanceof Error ? `${err.message}\n${err.stack}` : String(err)}`);

@@ -28,7 +28,9 @@ describe('sendView', () => {
     expect(res.body.error.code).toBe('response_contract');
     expect(res.body.error.message).toContain('GET /widget does not match');
     expect(res.body.error.message).not.toContain('secret');
-    expect(res.body.error.details).toEqual([expect.objectContaining({ path: '(body)', code: 'unrecognized_keys', message: expect.stringContaining('name_text') })]);
+    expect(res.body.error.details).toEqual([
+      expect.objectContaining({ path: '(body)', code: 'unrecognized_keys', message: expect.stringContaining('name_text') }),
+    ]);
   });
 
   it('answers 500 for a missing or mistyped nested field, with its path', async () => {

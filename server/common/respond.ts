@@ -18,7 +18,11 @@ export function sendView<S extends z.ZodType>(res: Response, schema: S, body: z.
       }));
       res.status(500).json({
         // The path without its query string: queries may carry secrets.
-        error: { code: 'response_contract', message: `The answer of ${res.req.method} ${res.req.originalUrl.split('?')[0]} does not match its contract (${details.length} problem${details.length === 1 ? '' : 's'}).`, details },
+        error: {
+          code: 'response_contract',
+          message: `The answer of ${res.req.method} ${res.req.originalUrl.split('?')[0]} does not match its contract (${details.length} problem${details.length === 1 ? '' : 's'}).`,
+          details,
+        },
       });
       return;
     }

@@ -7,7 +7,10 @@ import { AppError } from './errors';
 /** zod's own wording ("Invalid input: expected number, received string") made plain; our own messages pass through. */
 function plainMessage(message: string): string {
   const expected = /^Invalid input: expected (\w+), received (\w+)$/.exec(message);
-  if (expected) return expected[2] === 'undefined' ? 'this is required' : `give ${expected[1] === 'number' ? 'a number' : expected[1] === 'string' ? 'text' : expected[1] === 'array' ? 'a list' : expected[1] === 'boolean' ? 'yes or no' : `a value of type ${expected[1]}`}`;
+  if (expected)
+    return expected[2] === 'undefined'
+      ? 'this is required'
+      : `give ${expected[1] === 'number' ? 'a number' : expected[1] === 'string' ? 'text' : expected[1] === 'array' ? 'a list' : expected[1] === 'boolean' ? 'yes or no' : `a value of type ${expected[1]}`}`;
   const unknownKeys = /^Unrecognized keys?: (.+)$/.exec(message);
   if (unknownKeys) return `this request does not take ${unknownKeys[1]}`;
   return message.replace(/\.$/, '');
@@ -27,7 +30,12 @@ function parsePart<S extends z.ZodType>(schema: S, value: unknown, part: 'body' 
   // The message names the field as the form labels it; `details` keep the API paths for the client to place them.
   const where = first.field === part ? (part === 'body' ? 'The request' : 'The address') : fieldLabel(first.field);
   const more = details.length > 1 ? ` (and ${details.length - 1} more problem${details.length > 2 ? 's' : ''})` : '';
-  throw new AppError(400, 'validation_failed', `${where}: ${plainMessage(first.message)}${more}.`, details.map((d) => ({ ...d, label: d.field === part ? null : fieldLabel(d.field) })));
+  throw new AppError(
+    400,
+    'validation_failed',
+    `${where}: ${plainMessage(first.message)}${more}.`,
+    details.map((d) => ({ ...d, label: d.field === part ? null : fieldLabel(d.field) })),
+  );
 }
 
 /** Old field names the schema declares (shared/schemas/old-names.ts) are read as their new names. */

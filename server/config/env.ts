@@ -15,9 +15,17 @@ const envSchema = z.object({
   /** From header of every mail the app sends. */
   MAIL_FROM: z.string().min(3).default('Epsigma <epsigma@localhost>'),
   /** Threads that run jobs in this process (default cores − 1, at least 1); 0 with REDIS_URL: this process runs no jobs. */
-  WORKERS: z.coerce.number().int().min(0).max(64).default(Math.max(1, os.availableParallelism() - 1)),
+  WORKERS: z.coerce
+    .number()
+    .int()
+    .min(0)
+    .max(64)
+    .default(Math.max(1, os.availableParallelism() - 1)),
   /** A Redis server shared by the web process and `npm run worker` processes (BullMQ driver); unset: the embedded SQLite queue. */
-  REDIS_URL: z.string().regex(/^rediss?:\/\/\S+$/, 'REDIS_URL must look like redis://host:6379').optional(),
+  REDIS_URL: z
+    .string()
+    .regex(/^rediss?:\/\/\S+$/, 'REDIS_URL must look like redis://host:6379')
+    .optional(),
   /** BullMQ lock of a running job (ms): a worker killed without warning gives its job to another worker about this long later. */
   QUEUE_LOCK_MS: z.coerce.number().int().min(2000).max(600_000).default(30_000),
   LOG_REQUESTS: z.enum(['0', '1']).default('1'),
@@ -32,8 +40,14 @@ const envSchema = z.object({
   TRUST_PROXY: z
     .string()
     .trim()
-    .regex(/^$|^\d{1,2}$|^[\w.:/]+(\s*,\s*[\w.:/]+)*$/, 'TRUST_PROXY must be a hop count such as 1 or a comma-separated list of addresses or subnets (e.g. loopback, 10.0.0.0/8)')
-    .refine((v) => !/^(true|yes|all|\*)$/i.test(v), 'TRUST_PROXY=true would let any client forge its address and origin; name the proxy (e.g. loopback) or give a hop count')
+    .regex(
+      /^$|^\d{1,2}$|^[\w.:/]+(\s*,\s*[\w.:/]+)*$/,
+      'TRUST_PROXY must be a hop count such as 1 or a comma-separated list of addresses or subnets (e.g. loopback, 10.0.0.0/8)',
+    )
+    .refine(
+      (v) => !/^(true|yes|all|\*)$/i.test(v),
+      'TRUST_PROXY=true would let any client forge its address and origin; name the proxy (e.g. loopback) or give a hop count',
+    )
     .optional(),
 });
 
@@ -51,6 +65,7 @@ export function loadEnv(source: NodeJS.ProcessEnv = process.env): Env {
     const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`);
     throw new Error(`Invalid environment:\n${lines.join('\n')}`);
   }
-  if (parsed.data.WORKERS === 0 && !parsed.data.REDIS_URL) throw new Error('Invalid environment:\n  WORKERS: 0 leaves nobody to run jobs without REDIS_URL (worker processes); use at least 1');
+  if (parsed.data.WORKERS === 0 && !parsed.data.REDIS_URL)
+    throw new Error('Invalid environment:\n  WORKERS: 0 leaves nobody to run jobs without REDIS_URL (worker processes); use at least 1');
   return parsed.data;
 }

@@ -1,8 +1,17 @@
 import type { AuditEventTable } from '../features/audit/audit.table';
-import type { MeasurementSetTable, MeasurementSetVersionTable, MeasurementSetWithdrawalTable, MeasurementRowTable } from '../features/measurement-sets/measurement-sets.table';
+import type {
+  MeasurementSetTable,
+  MeasurementSetVersionTable,
+  MeasurementSetWithdrawalTable,
+  MeasurementRowTable,
+} from '../features/measurement-sets/measurement-sets.table';
 import type { SubstanceTable } from '../features/substances/substances.table';
 import type { FitTable } from '../features/fits/fits.table';
-import type { ParameterSetCommentTable, ParameterSetTable, ParameterSetTransitionTable } from '../features/parameter-sets/parameter-sets.table';
+import type {
+  ParameterSetCommentTable,
+  ParameterSetTable,
+  ParameterSetTransitionTable,
+} from '../features/parameter-sets/parameter-sets.table';
 import type { JobTable } from '../jobs/job.table';
 import type { SimulationFramesTable } from '../features/simulations/simulation-frames.table';
 import type { NoticeTable } from '../features/notices/notices.table';

@@ -63,7 +63,11 @@ export type JobKind =
       storeResult?: (tx: Tx, jobId: number, result: unknown) => Promise<unknown>;
       run?: undefined;
     }
-  | { run(env: JobRunEnvironment, input: unknown, job: { id: number; seed: number }): Promise<unknown>; toPayload?: undefined; storeResult?: undefined };
+  | {
+      run(env: JobRunEnvironment, input: unknown, job: { id: number; seed: number }): Promise<unknown>;
+      toPayload?: undefined;
+      storeResult?: undefined;
+    };
 
 export interface LaneCounts {
   waiting: number;
@@ -139,7 +143,12 @@ export interface JobExecutor {
    * execution already under way). Resolves with the task's result, rejects with TaskError (the task failed),
    * CancelledError, or an error after the last attempt.
    */
-  runJob(job: { id: number; kind: string; ref: string; engineVersion: string }, payload: unknown, hooks: ExecutionHooks, signal: AbortSignal): Promise<unknown>;
+  runJob(
+    job: { id: number; kind: string; ref: string; engineVersion: string },
+    payload: unknown,
+    hooks: ExecutionHooks,
+    signal: AbortSignal,
+  ): Promise<unknown>;
   /** Runs a task for an orchestrating job (not a job of its own). */
   runTask(kind: string, payload: unknown, onProgress: (p: ProgressReport) => void, signal: AbortSignal): Promise<unknown>;
   counts(): Promise<Omit<QueueHealth, 'driver' | 'waiting' | 'active' | 'delayed'>>;
@@ -154,8 +163,20 @@ const PROGRESS_WRITE_INTERVAL_MS = 250;
 const FINISHED: JobStatus[] = ['succeeded', 'failed', 'cancelled'];
 
 export function toJobView(row: {
-  id: number; kind: string; status: JobStatus; progress: number; stage: string | null; resultJson: string | null; error: string | null;
-  retryable: number; attempts: number; seed: number; createdAt: string; startedAt: string | null; finishedAt: string | null; ranOn?: string | null;
+  id: number;
+  kind: string;
+  status: JobStatus;
+  progress: number;
+  stage: string | null;
+  resultJson: string | null;
+  error: string | null;
+  retryable: number;
+  attempts: number;
+  seed: number;
+  createdAt: string;
+  startedAt: string | null;
+  finishedAt: string | null;
+  ranOn?: string | null;
 }): JobView {
   return {
     id: row.id,
@@ -214,7 +235,12 @@ export class LocalExecutor implements JobExecutor {
     }
   }
 
-  private async attempts(job: { id: number; kind: string }, payload: unknown, hooks: ExecutionHooks, signal: AbortSignal): Promise<unknown> {
+  private async attempts(
+    job: { id: number; kind: string },
+    payload: unknown,
+    hooks: ExecutionHooks,
+    signal: AbortSignal,
+  ): Promise<unknown> {
     for (let attempt = 1; ; attempt++) {
       hooks.onActive({ ranOn: this.name, attempt });
       try {
@@ -239,7 +265,16 @@ export class LocalExecutor implements JobExecutor {
     const threads = this.pool.sizes;
     const active = this.pool.busy('simulation') + this.pool.busy('fast');
     const workerList: WorkerInfo[] = [
-      { name: this.name, host: os.hostname(), pid: process.pid, threads, active, engineVersions: {}, startedAt: this.startedAt, lastSeenAt: new Date().toISOString() },
+      {
+        name: this.name,
+        host: os.hostname(),
+        pid: process.pid,
+        threads,
+        active,
+        engineVersions: {},
+        startedAt: this.startedAt,
+        lastSeenAt: new Date().toISOString(),
+      },
     ];
     return {
       workers: 1,
@@ -286,7 +321,12 @@ export class JobRunner implements JobQueue {
    */
   async start(): Promise<void> {
     const now = new Date().toISOString();
-    const left = await this.db.selectFrom('job').select(['id', 'kind', 'status', 'attempts', 'queueRef']).where('status', 'in', ['queued', 'running']).where('queueRef', 'is not', null).execute();
+    const left = await this.db
+      .selectFrom('job')
+      .select(['id', 'kind', 'status', 'attempts', 'queueRef'])
+      .where('status', 'in', ['queued', 'running'])
+      .where('queueRef', 'is not', null)
+      .execute();
     let requeued = 0;
     const rejoin: number[] = [];
     for (const job of left) {
@@ -294,16 +334,34 @@ export class JobRunner implements JobQueue {
       if (compute && this.executor.driver === 'redis') {
         rejoin.push(job.id);
       } else if (job.status === 'running' && job.attempts >= MAX_ATTEMPTS) {
-        await this.db.updateTable('job').set({ status: 'failed', retryable: 1, error: `Interrupted by a server restart ${job.attempts} times; not resumed again. Retry it when the cause is fixed.`, finishedAt: now, updatedAt: now }).where('id', '=', job.id).execute();
+        await this.db
+          .updateTable('job')
+          .set({
+            status: 'failed',
+            retryable: 1,
+            error: `Interrupted by a server restart ${job.attempts} times; not resumed again. Retry it when the cause is fixed.`,
+            finishedAt: now,
+            updatedAt: now,
+          })
+          .where('id', '=', job.id)
+          .execute();
       } else {
-        await this.db.updateTable('job').set({ status: 'queued', progress: 0, queueRef: null, stage: 'resumed after a server restart', updatedAt: now }).where('id', '=', job.id).execute();
+        await this.db
+          .updateTable('job')
+          .set({ status: 'queued', progress: 0, queueRef: null, stage: 'resumed after a server restart', updatedAt: now })
+          .where('id', '=', job.id)
+          .execute();
         requeued++;
       }
     }
     if (left.length) this.log(`job runner: ${requeued} interrupted job(s) queued again, ${rejoin.length} joined on the worker processes`);
     this.stopped = false;
     for (const id of rejoin) {
-      const row = await this.db.selectFrom('job').select(['id', 'kind', 'inputJson', 'seed', 'queueRef']).where('id', '=', id).executeTakeFirstOrThrow();
+      const row = await this.db
+        .selectFrom('job')
+        .select(['id', 'kind', 'inputJson', 'seed', 'queueRef'])
+        .where('id', '=', id)
+        .executeTakeFirstOrThrow();
       // The queue counts the starts of this execution itself.
       this.executor.reserve(laneOf(row.kind));
       this.launch(row.id, row.kind, readStoredJson(row.inputJson), row.seed, row.queueRef!, 0);
@@ -341,7 +399,16 @@ export class JobRunner implements JobQueue {
     const now = new Date().toISOString();
     const row = await executor
       .insertInto('job')
-      .values({ kind: request.kind, status: 'queued', inputJson: JSON.stringify(request.input), seed: request.seed, cacheKey, createdBy: request.createdBy ?? null, createdAt: now, updatedAt: now })
+      .values({
+        kind: request.kind,
+        status: 'queued',
+        inputJson: JSON.stringify(request.input),
+        seed: request.seed,
+        cacheKey,
+        createdBy: request.createdBy ?? null,
+        createdAt: now,
+        updatedAt: now,
+      })
       .returning('id')
       .executeTakeFirstOrThrow();
     // Inside a transaction the pump's queries wait on the single connection until the commit.
@@ -356,7 +423,12 @@ export class JobRunner implements JobQueue {
 
   async cancel(id: number): Promise<boolean> {
     const now = new Date().toISOString();
-    const res = await this.db.updateTable('job').set({ status: 'cancelled', finishedAt: now, updatedAt: now, error: 'Cancelled by a person.' }).where('id', '=', id).where('status', 'in', ['queued', 'running']).executeTakeFirst();
+    const res = await this.db
+      .updateTable('job')
+      .set({ status: 'cancelled', finishedAt: now, updatedAt: now, error: 'Cancelled by a person.' })
+      .where('id', '=', id)
+      .where('status', 'in', ['queued', 'running'])
+      .executeTakeFirst();
     this.running.get(id)?.controller.abort(new CancelledError());
     const changed = Number(res.numUpdatedRows) > 0;
     if (changed) await this.notify(id);
@@ -367,7 +439,20 @@ export class JobRunner implements JobQueue {
     const now = new Date().toISOString();
     const res = await this.db
       .updateTable('job')
-      .set({ status: 'queued', progress: 0, stage: null, error: null, retryable: 0, attempts: 0, resultJson: null, startedAt: null, finishedAt: null, queueRef: null, ranOn: null, updatedAt: now })
+      .set({
+        status: 'queued',
+        progress: 0,
+        stage: null,
+        error: null,
+        retryable: 0,
+        attempts: 0,
+        resultJson: null,
+        startedAt: null,
+        finishedAt: null,
+        queueRef: null,
+        ranOn: null,
+        updatedAt: now,
+      })
       .where('id', '=', id)
       .where('status', 'in', ['failed', 'cancelled'])
       .executeTakeFirst();
@@ -382,7 +467,10 @@ export class JobRunner implements JobQueue {
       this.get(id).then((job) => {
         if (!job) return reject(new Error(`No job ${id}.`));
         if (FINISHED.includes(job.status)) {
-          this.waiters.set(id, (this.waiters.get(id) ?? []).filter((r) => r !== resolve));
+          this.waiters.set(
+            id,
+            (this.waiters.get(id) ?? []).filter((r) => r !== resolve),
+          );
           resolve(job);
         }
       }, reject);
@@ -390,16 +478,27 @@ export class JobRunner implements JobQueue {
   }
 
   async health(): Promise<QueueHealth> {
-    const rows = await this.db.selectFrom('job').select(['kind', 'status', 'queueRef']).where('status', 'in', ['queued', 'running']).execute();
+    const rows = await this.db
+      .selectFrom('job')
+      .select(['kind', 'status', 'queueRef'])
+      .where('status', 'in', ['queued', 'running'])
+      .execute();
     const lanes = { simulation: { waiting: 0, active: 0, delayed: 0 }, fast: { waiting: 0, active: 0, delayed: 0 } };
     let counts: Awaited<ReturnType<JobExecutor['counts']>>;
     let error: string | undefined;
     try {
       // Redis down must not hang the health check: ask with a deadline.
-      counts = await Promise.race([this.executor.counts(), new Promise<never>((_, reject) => setTimeout(() => reject(new Error('no answer within 2 s')), 2000).unref())]);
+      counts = await Promise.race([
+        this.executor.counts(),
+        new Promise<never>((_, reject) => setTimeout(() => reject(new Error('no answer within 2 s')), 2000).unref()),
+      ]);
     } catch (err) {
       error = `the queue did not answer: ${messageOf(err)}`;
-      counts = { workers: 0, lanes: { simulation: { waiting: 0, active: 0, delayed: 0 }, fast: { waiting: 0, active: 0, delayed: 0 } }, workerList: [] };
+      counts = {
+        workers: 0,
+        lanes: { simulation: { waiting: 0, active: 0, delayed: 0 }, fast: { waiting: 0, active: 0, delayed: 0 } },
+        workerList: [],
+      };
     }
     if (this.executor.driver === 'redis') {
       // The queue holds the truth about compute work; orchestrating fits wait in the web process.
@@ -415,7 +514,16 @@ export class JobRunner implements JobQueue {
       lanes.fast.active += counts.lanes.fast.active;
     }
     const sum = (k: keyof LaneCounts) => lanes.simulation[k] + lanes.fast[k];
-    return { driver: this.executor.driver, waiting: sum('waiting'), active: sum('active'), delayed: sum('delayed'), workers: counts.workers, lanes, workerList: counts.workerList, ...(error ? { error } : {}) };
+    return {
+      driver: this.executor.driver,
+      waiting: sum('waiting'),
+      active: sum('active'),
+      delayed: sum('delayed'),
+      workers: counts.workers,
+      lanes,
+      workerList: counts.workerList,
+      ...(error ? { error } : {}),
+    };
   }
 
   private async notify(id: number) {
@@ -438,7 +546,14 @@ export class JobRunner implements JobQueue {
     try {
       do {
         this.pumpAgain = false;
-        const queued = await this.db.selectFrom('job').select(['id', 'kind', 'inputJson', 'seed', 'attempts']).where('status', '=', 'queued').where('queueRef', 'is', null).orderBy('id').limit(500).execute();
+        const queued = await this.db
+          .selectFrom('job')
+          .select(['id', 'kind', 'inputJson', 'seed', 'attempts'])
+          .where('status', '=', 'queued')
+          .where('queueRef', 'is', null)
+          .orderBy('id')
+          .limit(500)
+          .execute();
         for (const next of queued) {
           if (this.stopped) break;
           const kind = this.kinds[next.kind];
@@ -476,24 +591,50 @@ export class JobRunner implements JobQueue {
     return this.db.updateTable('job').where('id', '=', id).where('queueRef', '=', ref).where('status', 'in', ['queued', 'running']);
   }
 
-  private async execute(id: number, kindName: string, input: unknown, seed: number, ref: string, baseAttempts: number, controller: AbortController) {
+  private async execute(
+    id: number,
+    kindName: string,
+    input: unknown,
+    seed: number,
+    ref: string,
+    baseAttempts: number,
+    controller: AbortController,
+  ) {
     const kind = this.kinds[kindName];
     let lastWrite = 0;
     const onProgress = (p: ProgressReport) => {
       const now = Date.now();
       if (now - lastWrite < PROGRESS_WRITE_INTERVAL_MS) return;
       lastWrite = now;
-      void this.ofExecution(id, ref).set({ progress: Math.min(1, Math.max(0, p.fraction)), stage: p.stage.slice(0, 200), updatedAt: new Date().toISOString() }).where('status', '=', 'running').execute();
+      void this.ofExecution(id, ref)
+        .set({ progress: Math.min(1, Math.max(0, p.fraction)), stage: p.stage.slice(0, 200), updatedAt: new Date().toISOString() })
+        .where('status', '=', 'running')
+        .execute();
     };
     const hooks: ExecutionHooks = {
       onActive: ({ ranOn, attempt }) => {
         const now = new Date().toISOString();
         lastWrite = 0;
-        void this.ofExecution(id, ref).set({ status: 'running', startedAt: now, updatedAt: now, attempts: baseAttempts + attempt, progress: 0, stage: 'started', ranOn: ranOn.slice(0, 200) }).execute();
+        void this.ofExecution(id, ref)
+          .set({
+            status: 'running',
+            startedAt: now,
+            updatedAt: now,
+            attempts: baseAttempts + attempt,
+            progress: 0,
+            stage: 'started',
+            ranOn: ranOn.slice(0, 200),
+          })
+          .execute();
       },
       onProgress,
       onRetry: ({ reason, delayMs, attempt }) => {
-        void this.ofExecution(id, ref).set({ stage: `attempt ${attempt} failed (${reason.slice(0, 120)}); trying again in ${Math.round(delayMs / 1000)} s`, updatedAt: new Date().toISOString() }).execute();
+        void this.ofExecution(id, ref)
+          .set({
+            stage: `attempt ${attempt} failed (${reason.slice(0, 120)}); trying again in ${Math.round(delayMs / 1000)} s`,
+            updatedAt: new Date().toISOString(),
+          })
+          .execute();
       },
     };
     try {
@@ -516,15 +657,32 @@ export class JobRunner implements JobQueue {
           this.executor.release(laneOf(kindName));
           throw err;
         }
-        result = await this.executor.runJob({ id, kind: kindName, ref, engineVersion: engineVersionOf(kindName) }, payload, hooks, controller.signal);
+        result = await this.executor.runJob(
+          { id, kind: kindName, ref, engineVersion: engineVersionOf(kindName) },
+          payload,
+          hooks,
+          controller.signal,
+        );
       }
       // Only a job still under way takes the result: a cancelled job stays cancelled.
-      const current = await this.db.selectFrom('job').select('id').where('id', '=', id).where('queueRef', '=', ref).where('status', 'in', ['queued', 'running']).executeTakeFirst();
+      const current = await this.db
+        .selectFrom('job')
+        .select('id')
+        .where('id', '=', id)
+        .where('queueRef', '=', ref)
+        .where('status', 'in', ['queued', 'running'])
+        .executeTakeFirst();
       if (current) {
         await this.db.transaction().execute(async (tx) => {
           const stored = kind.storeResult ? await kind.storeResult(tx, id, result) : result;
           const now = new Date().toISOString();
-          await tx.updateTable('job').set({ status: 'succeeded', progress: 1, stage: 'done', resultJson: JSON.stringify(stored), finishedAt: now, updatedAt: now }).where('id', '=', id).where('queueRef', '=', ref).where('status', 'in', ['queued', 'running']).execute();
+          await tx
+            .updateTable('job')
+            .set({ status: 'succeeded', progress: 1, stage: 'done', resultJson: JSON.stringify(stored), finishedAt: now, updatedAt: now })
+            .where('id', '=', id)
+            .where('queueRef', '=', ref)
+            .where('status', 'in', ['queued', 'running'])
+            .execute();
         });
       }
     } catch (err) {
@@ -532,7 +690,9 @@ export class JobRunner implements JobQueue {
       // the job stays as it is so the next start resumes or rejoins it.
       if (!this.stopped) {
         const now = new Date().toISOString();
-        await this.ofExecution(id, ref).set({ status: 'failed', error: messageOf(err).slice(0, 2000), retryable: 1, finishedAt: now, updatedAt: now }).execute();
+        await this.ofExecution(id, ref)
+          .set({ status: 'failed', error: messageOf(err).slice(0, 2000), retryable: 1, finishedAt: now, updatedAt: now })
+          .execute();
       }
     } finally {
       if (this.running.get(id)?.ref === ref) this.running.delete(id);

@@ -9,7 +9,17 @@ import { UnrecoverableError, Worker, type Job } from 'bullmq';
 import { CANCELLED_MESSAGE } from './worker';
 import { CancelledError, createWorkerPool, TaskError } from './worker-pool';
 import { ENGINE_VERSIONS, engineVersionOf, type Lane } from './tasks';
-import { cancelKey, HEARTBEAT_MS, HEARTBEAT_TTL_S, LANES, PREFIX, QUEUE_NAMES, redisConnection, workerKey, type QueuedTask } from './redis-common';
+import {
+  cancelKey,
+  HEARTBEAT_MS,
+  HEARTBEAT_TTL_S,
+  LANES,
+  PREFIX,
+  QUEUE_NAMES,
+  redisConnection,
+  workerKey,
+  type QueuedTask,
+} from './redis-common';
 
 export interface QueueWorkerOptions {
   redisUrl: string;
@@ -44,7 +54,9 @@ export async function startQueueWorker(options: QueueWorkerOptions) {
     const data = job.data;
     const expected = engineVersionOf(data.task);
     if (data.engineVersion !== expected) {
-      throw new UnrecoverableError(`worker ${name} runs ${data.task} engine ${expected}, the job needs ${data.engineVersion}: run the same code version on every machine`);
+      throw new UnrecoverableError(
+        `worker ${name} runs ${data.task} engine ${expected}, the job needs ${data.engineVersion}: run the same code version on every machine`,
+      );
     }
     if (await redis.exists(cancelKey(lane, job.id!))) throw new UnrecoverableError(CANCELLED_MESSAGE);
     const controller = new AbortController();
@@ -107,7 +119,16 @@ export async function startQueueWorker(options: QueueWorkerOptions) {
   for (const w of workers) w.on('error', (err) => log(`worker ${name}: ${err.message}`));
 
   const heartbeat = async () => {
-    const info = { name, host: os.hostname(), pid: process.pid, threads, active: active.size, engineVersions: ENGINE_VERSIONS, startedAt, lastSeenAt: new Date().toISOString() };
+    const info = {
+      name,
+      host: os.hostname(),
+      pid: process.pid,
+      threads,
+      active: active.size,
+      engineVersions: ENGINE_VERSIONS,
+      startedAt,
+      lastSeenAt: new Date().toISOString(),
+    };
     await redis.set(workerKey(name), JSON.stringify(info), 'EX', HEARTBEAT_TTL_S).catch(() => {});
   };
   await heartbeat();

@@ -9,7 +9,16 @@ import type { Redis } from 'ioredis';
 import type { ExecutionHooks, JobExecutor, LaneCounts, WorkerInfo } from './job-runner';
 import { MAX_ATTEMPTS, RETRY_BACKOFF_MS } from './job-runner';
 import { startQueueWorker } from './queue-worker';
-import { cancelKey, LANES, PREFIX, QUEUE_NAMES, redisConnection, WORKER_KEY_PATTERN, type QueuedProgress, type QueuedTask } from './redis-common';
+import {
+  cancelKey,
+  LANES,
+  PREFIX,
+  QUEUE_NAMES,
+  redisConnection,
+  WORKER_KEY_PATTERN,
+  type QueuedProgress,
+  type QueuedTask,
+} from './redis-common';
 import { engineVersionOf, laneOf, type Lane, type ProgressReport } from './tasks';
 import { CANCELLED_MESSAGE } from './worker';
 import { CancelledError } from './worker-pool';
@@ -77,7 +86,17 @@ export class RedisExecutor implements JobExecutor {
       events[lane] = new QueueEvents(QUEUE_NAMES[lane], { connection: connect(), prefix: PREFIX });
     }
     await Promise.all([...Object.values(queues), ...Object.values(events)].map((q) => q.waitUntilReady()));
-    const local = options.localThreads > 0 ? await startQueueWorker({ redisUrl: options.redisUrl, simulationThreads: options.localThreads, fastThreads: 1, lockMs: options.lockMs, log: options.log, name: undefined }) : null;
+    const local =
+      options.localThreads > 0
+        ? await startQueueWorker({
+            redisUrl: options.redisUrl,
+            simulationThreads: options.localThreads,
+            fastThreads: 1,
+            lockMs: options.lockMs,
+            log: options.log,
+            name: undefined,
+          })
+        : null;
     const executor = new RedisExecutor(options, redis, queues, events, local, connections);
     executor.listen();
     return executor;
@@ -91,7 +110,8 @@ export class RedisExecutor implements JobExecutor {
         const p = find(jobId);
         if (!p?.hooks) return;
         void Job.fromId(this.queues[lane], jobId).then((job) => {
-          if (job && this.pending.get(`${lane}:${jobId}`) === p) p.hooks!.onActive({ ranOn: job.processedBy ?? 'a worker', attempt: Math.max(1, job.attemptsStarted) });
+          if (job && this.pending.get(`${lane}:${jobId}`) === p)
+            p.hooks!.onActive({ ranOn: job.processedBy ?? 'a worker', attempt: Math.max(1, job.attemptsStarted) });
         });
       });
       ev.on('progress', ({ jobId, data }) => {
@@ -102,7 +122,8 @@ export class RedisExecutor implements JobExecutor {
         const p = find(jobId);
         if (!p?.hooks) return;
         void Job.fromId(this.queues[lane], jobId).then((job) => {
-          if (job?.failedReason) p.hooks!.onRetry({ reason: job.failedReason, delayMs: Math.max(0, Number(delay) - Date.now()), attempt: job.attemptsMade });
+          if (job?.failedReason)
+            p.hooks!.onRetry({ reason: job.failedReason, delayMs: Math.max(0, Number(delay) - Date.now()), attempt: job.attemptsMade });
         });
       });
       ev.on('completed', ({ jobId, returnvalue }) => {
@@ -112,9 +133,13 @@ export class RedisExecutor implements JobExecutor {
       ev.on('failed', ({ jobId, failedReason }) => {
         const p = find(jobId);
         if (!p) return;
-        void Job.fromId(this.queues[lane], jobId).then((job) => this.settle(p, { ok: false, reason: failedReason, attemptsMade: job?.attemptsMade ?? 1 }));
+        void Job.fromId(this.queues[lane], jobId).then((job) =>
+          this.settle(p, { ok: false, reason: failedReason, attemptsMade: job?.attemptsMade ?? 1 }),
+        );
       });
-      ev.on('stalled', ({ jobId }) => this.options.log(`queue: ${lane} job ${jobId} stalled (its worker stopped answering); it goes to another worker`));
+      ev.on('stalled', ({ jobId }) =>
+        this.options.log(`queue: ${lane} job ${jobId} stalled (its worker stopped answering); it goes to another worker`),
+      );
       ev.on('error', (err) => this.options.log(`queue events (${lane}): ${err.message}`));
     }
     this.recheck = setInterval(() => void this.recheckAll(), RECHECK_MS);
@@ -127,7 +152,13 @@ export class RedisExecutor implements JobExecutor {
     if (outcome.ok) return p.resolve(outcome.value);
     if (outcome.reason === CANCELLED_MESSAGE) return p.reject(new CancelledError());
     const attempts = Number(p.opts.attempts ?? 1);
-    p.reject(new Error(outcome.attemptsMade >= attempts && attempts > 1 ? `failed after ${outcome.attemptsMade} attempts: ${outcome.reason}` : outcome.reason));
+    p.reject(
+      new Error(
+        outcome.attemptsMade >= attempts && attempts > 1
+          ? `failed after ${outcome.attemptsMade} attempts: ${outcome.reason}`
+          : outcome.reason,
+      ),
+    );
   }
 
   /** Looks a job up directly: its result or failure, or (lost from Redis) adds it again. */
@@ -162,14 +193,25 @@ export class RedisExecutor implements JobExecutor {
     }
   }
 
-  private submit(lane: Lane, jobId: string, name: string, data: QueuedTask, opts: JobsOptions, onProgress: (p: ProgressReport) => void, signal: AbortSignal, hooks?: ExecutionHooks) {
+  private submit(
+    lane: Lane,
+    jobId: string,
+    name: string,
+    data: QueuedTask,
+    opts: JobsOptions,
+    onProgress: (p: ProgressReport) => void,
+    signal: AbortSignal,
+    hooks?: ExecutionHooks,
+  ) {
     return new Promise<unknown>((resolve, reject) => {
       if (signal.aborted) return reject(new CancelledError());
       const p: Pending = { lane, jobId, name, data, opts, hooks, onProgress, resolve, reject };
       // Listening before adding: no event of this job can slip by.
       this.pending.set(`${lane}:${jobId}`, p);
       // A cancel stops the job on its worker; the web process stopping only stops listening (the next start rejoins).
-      signal.addEventListener('abort', () => (signal.reason instanceof CancelledError ? void this.cancel(p) : this.detach(p)), { once: true });
+      signal.addEventListener('abort', () => (signal.reason instanceof CancelledError ? void this.cancel(p) : this.detach(p)), {
+        once: true,
+      });
       // An existing id (a web process rejoining after its restart) adds nothing: the job under way is joined.
       this.queues[lane]
         .add(name, data, { ...opts, jobId })
@@ -208,8 +250,19 @@ export class RedisExecutor implements JobExecutor {
 
   release() {}
 
-  runJob(job: { id: number; kind: string; ref: string; engineVersion: string }, payload: unknown, hooks: ExecutionHooks, signal: AbortSignal) {
-    const data: QueuedTask = { task: job.kind, payload, engineVersion: job.engineVersion, codeVersion: this.options.codeVersion, jobId: job.id };
+  runJob(
+    job: { id: number; kind: string; ref: string; engineVersion: string },
+    payload: unknown,
+    hooks: ExecutionHooks,
+    signal: AbortSignal,
+  ) {
+    const data: QueuedTask = {
+      task: job.kind,
+      payload,
+      engineVersion: job.engineVersion,
+      codeVersion: this.options.codeVersion,
+      jobId: job.id,
+    };
     return this.submit(laneOf(job.kind), job.ref, job.kind, data, JOB_OPTIONS, hooks.onProgress, signal, hooks);
   }
 
@@ -229,7 +282,10 @@ export class RedisExecutor implements JobExecutor {
     } while (cursor !== '0');
     if (!keys.length) return [];
     const values = await this.redis.mget(...keys);
-    return values.filter((v): v is string => !!v).map((v) => JSON.parse(v) as WorkerInfo).sort((a, b) => a.name.localeCompare(b.name));
+    return values
+      .filter((v): v is string => !!v)
+      .map((v) => JSON.parse(v) as WorkerInfo)
+      .sort((a, b) => a.name.localeCompare(b.name));
   }
 
   async counts() {

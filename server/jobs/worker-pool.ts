@@ -45,7 +45,8 @@ export function createWorkerPool(simulationThreads: number, fastThreads = 1): Ta
   const fromSource = import.meta.url.endsWith('.ts');
   const filename = fileURLToPath(new URL(fromSource ? './worker.ts' : './worker.js', import.meta.url));
   // Workers inherit the parent's flags; from source (tests, `npm start`) they also need the TypeScript loader.
-  const execArgv = fromSource && !process.execArgv.some((a) => a.includes('tsx')) ? [...process.execArgv, '--import', 'tsx'] : process.execArgv;
+  const execArgv =
+    fromSource && !process.execArgv.some((a) => a.includes('tsx')) ? [...process.execArgv, '--import', 'tsx'] : process.execArgv;
   const sizes: Record<Lane, number> = { simulation: simulationThreads, fast: fastThreads };
   const pools = {} as Record<Lane, Piscina | null>;
   for (const lane of ['simulation', 'fast'] as const) {
@@ -59,7 +60,13 @@ export function createWorkerPool(simulationThreads: number, fastThreads = 1): Ta
     while (running[lane] < sizes[lane] && queues[lane].length) queues[lane].shift()!.start();
   };
 
-  const execute = async (lane: Lane, kind: string, payload: unknown, onProgress: (p: ProgressReport) => void, signal?: AbortSignal): Promise<unknown> => {
+  const execute = async (
+    lane: Lane,
+    kind: string,
+    payload: unknown,
+    onProgress: (p: ProgressReport) => void,
+    signal?: AbortSignal,
+  ): Promise<unknown> => {
     const channel = new MessageChannel();
     channel.port1.on('message', (p: ProgressReport) => onProgress(p));
     const cancel = new Int32Array(new SharedArrayBuffer(4));
@@ -72,7 +79,10 @@ export function createWorkerPool(simulationThreads: number, fastThreads = 1): Ta
     if (signal?.aborted) onAbort();
     else signal?.addEventListener('abort', onAbort, { once: true });
     try {
-      const outcome = (await pools[lane]!.run({ kind, payload, port: channel.port2, cancel }, { transferList: [channel.port2], signal: hard.signal })) as TaskOutcome;
+      const outcome = (await pools[lane]!.run(
+        { kind, payload, port: channel.port2, cancel },
+        { transferList: [channel.port2], signal: hard.signal },
+      )) as TaskOutcome;
       if (outcome.ok) return outcome.value;
       if (outcome.cancelled) throw new CancelledError();
       throw new TaskError(outcome.message);

@@ -11,7 +11,17 @@ export type TaskOutcome = { ok: true; value: unknown } | { ok: false; cancelled:
  * `cancel` is a shared flag the main thread sets to stop the task: it is checked at every progress report
  * (between MD blocks of 256 steps), so the thread ends the task itself and stays alive for the next one.
  */
-export default async function runTask({ kind, payload, port, cancel }: { kind: string; payload: unknown; port: MessagePort; cancel: Int32Array }): Promise<TaskOutcome> {
+export default async function runTask({
+  kind,
+  payload,
+  port,
+  cancel,
+}: {
+  kind: string;
+  payload: unknown;
+  port: MessagePort;
+  cancel: Int32Array;
+}): Promise<TaskOutcome> {
   const task = TASKS[kind];
   if (!task) return { ok: false, cancelled: false, message: `No worker task for job kind "${kind}".` };
   let last = 0;

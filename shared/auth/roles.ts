@@ -88,7 +88,13 @@ export const POLICY_ACTIONS: Record<Policy, string> = {
 export function refusalMessage(roles: readonly Role[], policy: Policy, alsoAllowed: readonly Role[] = []): string {
   const held = roles.map((r) => ROLE_LABELS[r]);
   const needed = [...new Set([...(POLICIES[policy] as readonly Role[]), ...alsoAllowed])].map((r) => ROLE_LABELS[r]);
-  const yours = held.length === 0 ? 'You hold no role, which does not' : held.length === 1 ? `Your role (${held[0]}) does not` : `Your roles (${held.join(', ')}) do not`;
-  const neededText = needed.length === 1 ? `the ${needed[0]} role` : `one of the roles ${needed.slice(0, -1).join(', ')} or ${needed[needed.length - 1]}`;
+  const yours =
+    held.length === 0
+      ? 'You hold no role, which does not'
+      : held.length === 1
+        ? `Your role (${held[0]}) does not`
+        : `Your roles (${held.join(', ')}) do not`;
+  const neededText =
+    needed.length === 1 ? `the ${needed[0]} role` : `one of the roles ${needed.slice(0, -1).join(', ')} or ${needed[needed.length - 1]}`;
   return `${yours} allow you to ${POLICY_ACTIONS[policy] ?? policy}; that needs ${neededText}.`;
 }

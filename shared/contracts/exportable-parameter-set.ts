@@ -8,7 +8,12 @@ import { CUTOFF_SCHEMES } from '../physics/cutoff-schemes';
 export const exportableParameterSetSchema = z.strictObject({
   id: z.number().int(),
   version: z.number().int(),
-  substance: z.strictObject({ id: z.number().int(), name: z.string(), formula: z.string().nullable().optional(), molarMassGPerMol: z.number() }),
+  substance: z.strictObject({
+    id: z.number().int(),
+    name: z.string(),
+    formula: z.string().nullable().optional(),
+    molarMassGPerMol: z.number(),
+  }),
   /** 'mie' for a Mie λr-6 set (with repulsiveExponent); 'lj-12-6' otherwise. */
   model: z.enum(['lj-12-6', 'mie']),
   /** λr of a Mie set (absent or 12: LJ 12-6). */

@@ -16,7 +16,13 @@ const fitKindSchema = z.enum(FIT_KINDS as [FitKind, ...FitKind[]]);
 const point = z.strictObject({ epsilonK: z.number(), sigmaAngstrom: z.number() });
 const parameterSchema = z.enum(['epsilonK', 'sigmaAngstrom']);
 
-const profileCurve = z.strictObject({ values: z.array(z.number()), deltaChi2: z.array(z.number()), lower: z.number().nullable(), upper: z.number().nullable(), threshold: z.number() });
+const profileCurve = z.strictObject({
+  values: z.array(z.number()),
+  deltaChi2: z.array(z.number()),
+  lower: z.number().nullable(),
+  upper: z.number().nullable(),
+  threshold: z.number(),
+});
 
 export const fitResidualSchema = z.strictObject({
   measurementSetIndex: z.number().int(),
@@ -101,7 +107,15 @@ export const posteriorSchema = z.looseObject({
   likelihood: z.string(),
   priors: z.string(),
   messages: z.array(z.string()),
-  priorSet: z.strictObject({ parameterSetId: z.number().int(), label: z.string().nullable(), epsilonK: z.number(), sigmaAngstrom: z.number(), covariance: z.array(z.array(z.number())) }).optional(),
+  priorSet: z
+    .strictObject({
+      parameterSetId: z.number().int(),
+      label: z.string().nullable(),
+      epsilonK: z.number(),
+      sigmaAngstrom: z.number(),
+      covariance: z.array(z.array(z.number())),
+    })
+    .optional(),
   coverage: z.looseObject({}).optional(),
 });
 
@@ -121,7 +135,14 @@ export const tensionSchema = z.strictObject({
   messages: z.array(z.string()),
 });
 
-export const criterionSchema = z.strictObject({ label: z.string(), chi2: z.number(), points: z.number().int(), parameters: z.number().int(), aic: z.number(), bic: z.number() });
+export const criterionSchema = z.strictObject({
+  label: z.string(),
+  chi2: z.number(),
+  points: z.number().int(),
+  parameters: z.number().int(),
+  aic: z.number(),
+  bic: z.number(),
+});
 
 export const repulsiveExponentProfileSchema = z.strictObject({
   values: z.array(z.number()),
@@ -160,7 +181,15 @@ export const densityFitResultSchema = z.strictObject({
   ...fitResultCore,
   residuals: z.array(mdResidualSchema),
   mdIterations: z.array(z.looseObject({ iteration: z.number().int(), epsilonK: z.number(), sigmaAngstrom: z.number(), chi2: z.number() })),
-  mdRuns: z.array(z.looseObject({ id: z.number().int(), reused: z.boolean(), temperatureK: z.number(), pressureMPa: z.number(), reducedDensity: z.number() })),
+  mdRuns: z.array(
+    z.looseObject({
+      id: z.number().int(),
+      reused: z.boolean(),
+      temperatureK: z.number(),
+      pressureMPa: z.number(),
+      reducedDensity: z.number(),
+    }),
+  ),
   mdRounds: z.number().int(),
   stoppedBy: z.enum(['converged', 'round-limit']),
   newRuns: z.number().int(),

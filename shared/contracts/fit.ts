@@ -61,7 +61,15 @@ export const fitListItemView = z.strictObject({
   createdByName: z.string(),
   status: jobStatusSchema,
   progress: z.number(),
-  measurementSets: z.array(z.strictObject({ measurementSetId: z.number().int(), name: z.string(), kind: propertyKindSchema, version: z.number().int(), excludeRows: z.array(z.number().int()) })),
+  measurementSets: z.array(
+    z.strictObject({
+      measurementSetId: z.number().int(),
+      name: z.string(),
+      kind: propertyKindSchema,
+      version: z.number().int(),
+      excludeRows: z.array(z.number().int()),
+    }),
+  ),
   epsilonK: z.number().nullable(),
   sigmaAngstrom: z.number().nullable(),
   converged: z.boolean().nullable(),

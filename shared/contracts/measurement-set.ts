@@ -22,8 +22,14 @@ export type StoredColumn = z.infer<typeof storedColumn>;
 export const storedRawCells = z.record(z.string(), z.string());
 
 /** Every canonical field a row may carry (the kind's value and uncertainty among them), each in its unit. */
-const canonicalFields = [...new Set(Object.values(QUANTITIES).map((q) => q.field))].filter((f) => f !== 'temperatureK') as Exclude<CanonicalField, 'temperatureK'>[];
-const optionalCanonical = Object.fromEntries(canonicalFields.map((f) => [f, z.number().optional()])) as Record<Exclude<CanonicalField, 'temperatureK'>, z.ZodOptional<z.ZodNumber>>;
+const canonicalFields = [...new Set(Object.values(QUANTITIES).map((q) => q.field))].filter((f) => f !== 'temperatureK') as Exclude<
+  CanonicalField,
+  'temperatureK'
+>[];
+const optionalCanonical = Object.fromEntries(canonicalFields.map((f) => [f, z.number().optional()])) as Record<
+  Exclude<CanonicalField, 'temperatureK'>,
+  z.ZodOptional<z.ZodNumber>
+>;
 
 /** One stored state point in canonical units; which value field it has follows from the set's kind (`valueField`). */
 export const measurementSetRowView = z.strictObject({
@@ -57,7 +63,9 @@ export type MeasurementSetSummary = z.infer<typeof measurementSetSummaryView>;
 export const measurementSetListView = z.strictObject({ measurementSets: z.array(measurementSetSummaryView) });
 export type MeasurementSetList = z.infer<typeof measurementSetListView>;
 
-const canonicalFieldSchema = z.enum(Object.values(PROPERTY_KINDS).flatMap((k) => [k.valueField, k.uncertaintyField]) as [CanonicalField, ...CanonicalField[]]);
+const canonicalFieldSchema = z.enum(
+  Object.values(PROPERTY_KINDS).flatMap((k) => [k.valueField, k.uncertaintyField]) as [CanonicalField, ...CanonicalField[]],
+);
 
 export const measurementSetVersionSummaryView = z.strictObject({
   version: z.number().int(),

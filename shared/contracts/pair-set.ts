@@ -26,7 +26,13 @@ export const pairSetResultStored = z.strictObject({
   reducedChi2: z.number().nullable(),
   converged: z.boolean(),
   residuals: z.array(
-    z.strictObject({ temperatureK: z.number(), measured: z.number(), uncertainty: z.number(), predicted: z.number(), combiningRule: z.number() }),
+    z.strictObject({
+      temperatureK: z.number(),
+      measured: z.number(),
+      uncertainty: z.number(),
+      predicted: z.number(),
+      combiningRule: z.number(),
+    }),
   ),
   chi2CombiningRule: z.number().nullable(),
   method: z.string(),

@@ -124,7 +124,13 @@ export const simulationSummarySchema = z.strictObject({
     listBuilds: z.number().int(),
     wallSeconds: z.number(),
   }),
-  orderParameter: z.strictObject({ q6Mean: z.number(), q6Last: z.number(), localDensityVarianceToMean: z.number(), sparseCellFraction: z.number(), bondsPerAtom: z.number() }),
+  orderParameter: z.strictObject({
+    q6Mean: z.number(),
+    q6Last: z.number(),
+    localDensityVarianceToMean: z.number(),
+    sparseCellFraction: z.number(),
+    bondsPerAtom: z.number(),
+  }),
   /** How many production frames went into simulation_frames (storeSimulationFrames); absent for runs stored before frames. */
   framesStored: z.number().int().optional(),
 });

@@ -4,7 +4,8 @@ import { csvCell, csvDocument, isFormulaLike, mixtureToCsv, parameterSetsToCsv }
 import { brindleShifted, oskaneShifted, oskaneTail, tarrowFull } from './export-test-sets';
 import { combine } from '../mixing/combining-rules';
 
-const CAUTION = 'Fitted model parameters, not validated property data for pressure, safety or process design; defer to local codes and licensed engineering practice.';
+const CAUTION =
+  'Fitted model parameters, not validated property data for pressure, safety or process design; defer to local codes and licensed engineering practice.';
 
 /** Parse with papaparse, an independent RFC 4180 reader, so quoting is checked by someone else's code. */
 function parse(text: string): string[][] {
@@ -76,7 +77,9 @@ describe('parameter set CSV', () => {
     expect(get('epsilon_over_kB_K')).toBe('127.5');
     expect(get('correlation_epsilon_sigma')).toBe('-0.82');
     expect(get('cutoff_rc_Angstrom')).toBe('8.55');
-    expect(get('measurement_sets')).toBe('b2: Brindle gas B2, Quillmoor cell A v2 (id 4, source Quillmoor lab notebook 3); viscosity: Brindle gas dilute-gas viscosity v1 (id 5, doi 10.0000/quillmoor.example.5)');
+    expect(get('measurement_sets')).toBe(
+      'b2: Brindle gas B2, Quillmoor cell A v2 (id 4, source Quillmoor lab notebook 3); viscosity: Brindle gas dilute-gas viscosity v1 (id 5, doi 10.0000/quillmoor.example.5)',
+    );
     expect(get('caution')).toBe(CAUTION);
     // Missing values are empty cells, not "null".
     const tarrow = rows[3];
@@ -85,7 +88,11 @@ describe('parameter set CSV', () => {
   });
 
   it('escapes a substance name that starts with "=" and a reviewer name that starts with "@"', () => {
-    const evil = { ...brindleShifted, substance: { ...brindleShifted.substance, name: '=HYPERLINK("http://example.invalid","x")' }, approvedBy: '@admin' };
+    const evil = {
+      ...brindleShifted,
+      substance: { ...brindleShifted.substance, name: '=HYPERLINK("http://example.invalid","x")' },
+      approvedBy: '@admin',
+    };
     const text = parameterSetsToCsv([evil]);
     const [header, row] = parse(text);
     expect(row[header.indexOf('substance')]).toBe('\'=HYPERLINK("http://example.invalid","x")');
@@ -101,7 +108,9 @@ describe('parameter set CSV', () => {
     expect(row[header.indexOf('sigma_nm')]).toBe('0.342');
     expect(row[header.indexOf('sigma_stderr_nm')]).toBe('0.0003');
     expect(header).not.toContain('epsilon_K');
-    expect(parse(parameterSetsToCsv([brindleShifted], { energyUnit: 'K', lengthUnit: 'Å' }))[0]).toEqual(parse(parameterSetsToCsv([brindleShifted]))[0]);
+    expect(parse(parameterSetsToCsv([brindleShifted], { energyUnit: 'K', lengthUnit: 'Å' }))[0]).toEqual(
+      parse(parameterSetsToCsv([brindleShifted]))[0],
+    );
   });
 });
 
@@ -111,7 +120,11 @@ describe('mixture CSV', () => {
     expect(rows).toHaveLength(4);
     const [header, , cross] = rows;
     const get = (row: string[], name: string) => row[header.indexOf(name)];
-    expect(rows.slice(1).map((r) => `${get(r, 'i')}-${get(r, 'j')}:${get(r, 'kind')}`)).toEqual(['1-1:pure', '1-2:combining-rule-estimate', '2-2:pure']);
+    expect(rows.slice(1).map((r) => `${get(r, 'i')}-${get(r, 'j')}:${get(r, 'kind')}`)).toEqual([
+      '1-1:pure',
+      '1-2:combining-rule-estimate',
+      '2-2:pure',
+    ]);
     expect(get(cross, 'combining_rule')).toBe('Lorentz–Berthelot');
     const lb = combine('lorentz-berthelot', brindleShifted, oskaneShifted);
     expect(Number(get(cross, 'epsilon_over_kB_K'))).toBe(lb.epsilonK);

@@ -52,7 +52,7 @@ export function csvDocument(header: readonly string[], rows: readonly (readonly 
 }
 
 const ENERGY_SUFFIX: Record<EnergyUnit, string> = { K: 'K', 'kJ/mol': 'kJ_per_mol', 'kcal/mol': 'kcal_per_mol', eV: 'eV' };
-const LENGTH_SUFFIX: Record<LengthUnit, string> = { 'Å': 'Angstrom', nm: 'nm' };
+const LENGTH_SUFFIX: Record<LengthUnit, string> = { Å: 'Angstrom', nm: 'nm' };
 
 function measurementSetsText(set: ExportableParameterSet): string {
   return set.measurementSets
@@ -71,28 +71,64 @@ export function parameterSetsToCsv(sets: readonly ExportableParameterSet[], opti
   const eu = options.energyUnit && options.energyUnit !== 'K' ? options.energyUnit : null;
   const lu = options.lengthUnit && options.lengthUnit !== 'Å' ? options.lengthUnit : null;
   const header = [
-    'parameter_set_id', 'version', 'state', 'approved_at', 'approved_by',
-    'substance_id', 'substance', 'formula', 'molar_mass_g_per_mol', 'model', 'repulsive_exponent',
-    'epsilon_over_kB_K', 'epsilon_stderr_K',
+    'parameter_set_id',
+    'version',
+    'state',
+    'approved_at',
+    'approved_by',
+    'substance_id',
+    'substance',
+    'formula',
+    'molar_mass_g_per_mol',
+    'model',
+    'repulsive_exponent',
+    'epsilon_over_kB_K',
+    'epsilon_stderr_K',
     ...(eu ? [`epsilon_${ENERGY_SUFFIX[eu]}`, `epsilon_stderr_${ENERGY_SUFFIX[eu]}`] : []),
-    'sigma_Angstrom', 'sigma_stderr_Angstrom',
+    'sigma_Angstrom',
+    'sigma_stderr_Angstrom',
     ...(lu ? [`sigma_${LENGTH_SUFFIX[lu]}`, `sigma_stderr_${LENGTH_SUFFIX[lu]}`] : []),
-    'correlation_epsilon_sigma', 'cutoff_scheme', 'cutoff_rc_over_sigma', 'cutoff_rc_Angstrom',
-    'T_min_K', 'T_max_K', 'p_min_MPa', 'p_max_MPa', 'fit_id', 'measurement_sets', 'caution',
+    'correlation_epsilon_sigma',
+    'cutoff_scheme',
+    'cutoff_rc_over_sigma',
+    'cutoff_rc_Angstrom',
+    'T_min_K',
+    'T_max_K',
+    'p_min_MPa',
+    'p_max_MPa',
+    'fit_id',
+    'measurement_sets',
+    'caution',
   ];
   const rows = sets.map((s) => {
     const uEps = s.stdErr.epsilonK;
     const uSig = s.stdErr.sigmaAngstrom;
     return [
-      s.id, s.version, s.state, s.approvedAt, s.approvedBy,
-      s.substance.id, s.substance.name, s.substance.formula ?? null, s.substance.molarMassGPerMol, s.model, s.repulsiveExponent ?? 12,
-      s.epsilonK, uEps,
+      s.id,
+      s.version,
+      s.state,
+      s.approvedAt,
+      s.approvedBy,
+      s.substance.id,
+      s.substance.name,
+      s.substance.formula ?? null,
+      s.substance.molarMassGPerMol,
+      s.model,
+      s.repulsiveExponent ?? 12,
+      s.epsilonK,
+      uEps,
       ...(eu ? [tidy(convertEpsilon(s.epsilonK, eu)), uEps == null ? null : tidy(convertEpsilon(uEps, eu))] : []),
-      s.sigmaAngstrom, uSig,
+      s.sigmaAngstrom,
+      uSig,
       ...(lu ? [tidy(convertSigma(s.sigmaAngstrom, lu)), uSig == null ? null : tidy(convertSigma(uSig, lu))] : []),
-      s.correlation, s.scheme, s.cutoffSigma, s.cutoffSigma == null ? null : tidy(s.cutoffSigma * s.sigmaAngstrom),
+      s.correlation,
+      s.scheme,
+      s.cutoffSigma,
+      s.cutoffSigma == null ? null : tidy(s.cutoffSigma * s.sigmaAngstrom),
       ...((v) => [v.temperatureMinK, v.temperatureMaxK, v.pressureMinMPa, v.pressureMaxMPa])(validityOf(s)),
-      s.fitId, measurementSetsText(s), CAUTION_TEXT,
+      s.fitId,
+      measurementSetsText(s),
+      CAUTION_TEXT,
     ];
   });
   return csvDocument(header, rows);
@@ -104,20 +140,44 @@ export function mixtureToCsv(sets: readonly ExportableParameterSet[], rule: Comb
   const eu = options.energyUnit && options.energyUnit !== 'K' ? options.energyUnit : null;
   const lu = options.lengthUnit && options.lengthUnit !== 'Å' ? options.lengthUnit : null;
   const header = [
-    'i', 'j', 'parameter_set_i', 'version_i', 'parameter_set_j', 'version_j', 'substance_i', 'substance_j', 'kind', 'combining_rule',
-    'epsilon_over_kB_K', ...(eu ? [`epsilon_${ENERGY_SUFFIX[eu]}`] : []),
-    'sigma_Angstrom', ...(lu ? [`sigma_${LENGTH_SUFFIX[lu]}`] : []),
-    'note', 'caution',
+    'i',
+    'j',
+    'parameter_set_i',
+    'version_i',
+    'parameter_set_j',
+    'version_j',
+    'substance_i',
+    'substance_j',
+    'kind',
+    'combining_rule',
+    'epsilon_over_kB_K',
+    ...(eu ? [`epsilon_${ENERGY_SUFFIX[eu]}`] : []),
+    'sigma_Angstrom',
+    ...(lu ? [`sigma_${LENGTH_SUFFIX[lu]}`] : []),
+    'note',
+    'caution',
   ];
   const ruleName = COMBINING_RULE_INFO[rule].name;
   const rows = table.pairs.map((p) => {
     const a = sets[p.i];
     const b = sets[p.j];
     return [
-      p.i + 1, p.j + 1, a.id, a.version, b.id, b.version, a.substance.name, b.substance.name, p.kind, p.kind === 'pure' ? null : p.fitted ? `pair set ${p.fitted.pairSetId} (k_ij = ${p.fitted.kij})` : ruleName,
-      p.epsilonK, ...(eu ? [tidy(convertEpsilon(p.epsilonK, eu))] : []),
-      p.sigmaAngstrom, ...(lu ? [tidy(convertSigma(p.sigmaAngstrom, lu))] : []),
-      table.note, CAUTION_TEXT,
+      p.i + 1,
+      p.j + 1,
+      a.id,
+      a.version,
+      b.id,
+      b.version,
+      a.substance.name,
+      b.substance.name,
+      p.kind,
+      p.kind === 'pure' ? null : p.fitted ? `pair set ${p.fitted.pairSetId} (k_ij = ${p.fitted.kij})` : ruleName,
+      p.epsilonK,
+      ...(eu ? [tidy(convertEpsilon(p.epsilonK, eu))] : []),
+      p.sigmaAngstrom,
+      ...(lu ? [tidy(convertSigma(p.sigmaAngstrom, lu))] : []),
+      table.note,
+      CAUTION_TEXT,
     ];
   });
   return csvDocument(header, rows);

@@ -5,7 +5,8 @@ import { brindleShifted, oskaneShifted, oskaneTail, tarrowFull } from './export-
 import { combine } from '../mixing/combining-rules';
 import type { ExportableParameterSet } from './parameter-set-export';
 
-const CAUTION = 'Fitted model parameters, not validated property data for pressure, safety or process design; defer to local codes and licensed engineering practice.';
+const CAUTION =
+  'Fitted model parameters, not validated property data for pressure, safety or process design; defer to local codes and licensed engineering practice.';
 
 /**
  * Commands LAMMPS would run, following its documented parsing rules (https://docs.lammps.org/Commands_parse.html):
@@ -124,8 +125,12 @@ describe('LAMMPS fragments', () => {
     // State names of shared/parameter-sets/transitions.ts.
     const draft = { ...brindleShifted, state: 'in_review', approvedAt: null, approvedBy: null };
     expect(lammpsParameterSet(draft, 'real')).toContain('# Status: NOT APPROVED (state: in_review)');
-    expect(lammpsParameterSet({ ...brindleShifted, state: 'superseded' }, 'real')).toContain('# Status: SUPERSEDED by a newer version (approved 2026-11-30T10:00:00Z by R. Ostrova)');
-    expect(gromacsParameterSet({ ...brindleShifted, state: 'retired' })).toContain('; Status: RETIRED (was approved 2026-11-30T10:00:00Z by R. Ostrova)');
+    expect(lammpsParameterSet({ ...brindleShifted, state: 'superseded' }, 'real')).toContain(
+      '# Status: SUPERSEDED by a newer version (approved 2026-11-30T10:00:00Z by R. Ostrova)',
+    );
+    expect(gromacsParameterSet({ ...brindleShifted, state: 'retired' })).toContain(
+      '; Status: RETIRED (was approved 2026-11-30T10:00:00Z by R. Ostrova)',
+    );
   });
 
   it('free text cannot escape its comment line', () => {
@@ -158,7 +163,10 @@ describe('LAMMPS mixture fragment', () => {
   it('writes every pair i ≤ j with its own cutoff rc/σ · σ_ij and marks cross pairs as estimates', () => {
     const text = lammpsMixture([brindleShifted, oskaneShifted], 'kong', 'real');
     const cmds = lammpsCommands(text);
-    expect(cmds.filter((c) => c[0] === 'mass')).toEqual([['mass', '1', '41.25'], ['mass', '2', '83.25']]);
+    expect(cmds.filter((c) => c[0] === 'mass')).toEqual([
+      ['mass', '1', '41.25'],
+      ['mass', '2', '83.25'],
+    ]);
     const coeffs = cmds.filter((c) => c[0] === 'pair_coeff');
     expect(coeffs.map((c) => `${c[1]}-${c[2]}`)).toEqual(['1-1', '1-2', '2-2']);
     const kong = combine('kong', brindleShifted, oskaneShifted);
@@ -223,7 +231,9 @@ describe('GROMACS fragments', () => {
 
   it('builds safe, distinct type names', () => {
     expect(gromacsTypeName(brindleShifted)).toBe('Bd_ps12');
-    expect(gromacsTypeName({ ...brindleShifted, substance: { ...brindleShifted.substance, formula: null, name: '1,2-Dichloroethane' } })).toBe('X12Dichloroet_ps12');
+    expect(
+      gromacsTypeName({ ...brindleShifted, substance: { ...brindleShifted.substance, formula: null, name: '1,2-Dichloroethane' } }),
+    ).toBe('X12Dichloroet_ps12');
   });
 });
 

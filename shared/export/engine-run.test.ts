@@ -54,13 +54,27 @@ function withDir<T>(fn: (dir: string) => T): T {
  * LAMMPS pair energy of two atoms of the given types at distance r in a periodic box of side 2·half:
  * kcal/mol and Å in `units real`, ε and σ of type 1 in `units lj`.
  */
-function lammpsEnergy(fragment: string, types: [number, number], ntypes: number, rAngstrom: number, units: 'real' | 'lj' = 'real', half = 25): number {
+function lammpsEnergy(
+  fragment: string,
+  types: [number, number],
+  ntypes: number,
+  rAngstrom: number,
+  units: 'real' | 'lj' = 'real',
+  half = 25,
+): number {
   return withDir((dir) => {
     const input = [
-      `units ${units}`, 'atom_style atomic', 'boundary p p p', `region box block -${half} ${half} -${half} ${half} -${half} ${half}`, `create_box ${ntypes} box`,
-      `create_atoms ${types[0]} single 0 0 0`, `create_atoms ${types[1]} single ${rAngstrom} 0 0`,
+      `units ${units}`,
+      'atom_style atomic',
+      'boundary p p p',
+      `region box block -${half} ${half} -${half} ${half} -${half} ${half}`,
+      `create_box ${ntypes} box`,
+      `create_atoms ${types[0]} single 0 0 0`,
+      `create_atoms ${types[1]} single ${rAngstrom} 0 0`,
       fragment,
-      'thermo_style custom step evdwl', 'thermo_modify norm no format float %22.15g', 'run 0',
+      'thermo_style custom step evdwl',
+      'thermo_modify norm no format float %22.15g',
+      'run 0',
     ].join('\n');
     writeFileSync(join(dir, 'in.test'), input);
     const out = execFileSync('lmp', ['-in', 'in.test', '-log', 'none'], { cwd: dir, encoding: 'utf8' });
@@ -72,24 +86,69 @@ function lammpsEnergy(fragment: string, types: [number, number], ntypes: number,
 }
 
 /** GROMACS LJ (SR) and dispersion correction (kJ/mol) of two atoms rNm apart in a 5 nm box. */
-function gromacsEnergy(fragment: string, sets: ExportableParameterSet[], molTypes: [number, number], rNm: number, only: { preprocessOnly?: boolean } = {}): { ljSr: number; dispCorr: number } {
+function gromacsEnergy(
+  fragment: string,
+  sets: ExportableParameterSet[],
+  molTypes: [number, number],
+  rNm: number,
+  only: { preprocessOnly?: boolean } = {},
+): { ljSr: number; dispCorr: number } {
   return withDir((dir) => {
-    const mols = sets.map((s, k) => `[ moleculetype ]\nM${k + 1} 1\n[ atoms ]\n1 ${gromacsTypeName(s)} 1 M${k + 1} A${k + 1} 1 0.0 ${s.substance.molarMassGPerMol}\n`).join('\n');
+    const mols = sets
+      .map(
+        (s, k) =>
+          `[ moleculetype ]\nM${k + 1} 1\n[ atoms ]\n1 ${gromacsTypeName(s)} 1 M${k + 1} A${k + 1} 1 0.0 ${s.substance.molarMassGPerMol}\n`,
+      )
+      .join('\n');
     const top = `[ defaults ]\n1 2 no 1.0 1.0\n\n${fragment}\n${mols}\n[ system ]\ntwo atoms\n[ molecules ]\n${molTypes.map((t) => `M${t + 1} 1`).join('\n')}\n`;
-    const gro = `two atoms\n2\n` + molTypes.map((t, k) => `${String(k + 1).padStart(5)}${`M${t + 1}`.padEnd(5)}${`A${t + 1}`.padStart(5)}${String(k + 1).padStart(5)}${(k * rNm).toFixed(3).padStart(8)}   0.000   0.000\n`).join('') + '   5.00000   5.00000   5.00000\n';
-    const mdpFromFragment = fragment.split('\n').filter((l) => /^; (cutoff-scheme|vdwtype|rvdw|vdw-modifier|DispCorr) = /.test(l)).map((l) => l.slice(2));
+    const gro =
+      `two atoms\n2\n` +
+      molTypes
+        .map(
+          (t, k) =>
+            `${String(k + 1).padStart(5)}${`M${t + 1}`.padEnd(5)}${`A${t + 1}`.padStart(5)}${String(k + 1).padStart(5)}${(k * rNm).toFixed(3).padStart(8)}   0.000   0.000\n`,
+        )
+        .join('') +
+      '   5.00000   5.00000   5.00000\n';
+    const mdpFromFragment = fragment
+      .split('\n')
+      .filter((l) => /^; (cutoff-scheme|vdwtype|rvdw|vdw-modifier|DispCorr) = /.test(l))
+      .map((l) => l.slice(2));
     expect(mdpFromFragment).toHaveLength(5);
-    const rvdw = mdpFromFragment.find((l) => l.startsWith('rvdw'))!.split('=')[1].trim();
-    const mdp = ['integrator = md', 'nsteps = 0', 'nstcalcenergy = 1', 'nstenergy = 1', 'continuation = yes', 'coulombtype = Cut-off', `rcoulomb = ${rvdw}`, 'verlet-buffer-tolerance = -1', `rlist = ${rvdw}`, ...mdpFromFragment];
+    const rvdw = mdpFromFragment
+      .find((l) => l.startsWith('rvdw'))!
+      .split('=')[1]
+      .trim();
+    const mdp = [
+      'integrator = md',
+      'nsteps = 0',
+      'nstcalcenergy = 1',
+      'nstenergy = 1',
+      'continuation = yes',
+      'coulombtype = Cut-off',
+      `rcoulomb = ${rvdw}`,
+      'verlet-buffer-tolerance = -1',
+      `rlist = ${rvdw}`,
+      ...mdpFromFragment,
+    ];
     writeFileSync(join(dir, 'topol.top'), top);
     writeFileSync(join(dir, 'conf.gro'), gro);
     writeFileSync(join(dir, 'run.mdp'), mdp.join('\n') + '\n');
-    const grompp = execFileSync('gmx', ['-quiet', 'grompp', '-f', 'run.mdp', '-c', 'conf.gro', '-p', 'topol.top', '-o', 'run.tpr', '-maxwarn', '0'], { cwd: dir, encoding: 'utf8', stdio: ['ignore', 'pipe', 'pipe'] });
+    const grompp = execFileSync(
+      'gmx',
+      ['-quiet', 'grompp', '-f', 'run.mdp', '-c', 'conf.gro', '-p', 'topol.top', '-o', 'run.tpr', '-maxwarn', '0'],
+      { cwd: dir, encoding: 'utf8', stdio: ['ignore', 'pipe', 'pipe'] },
+    );
     expect(grompp).not.toMatch(/WARNING/); // and -maxwarn 0 makes grompp exit non-zero on any warning
     if (only.preprocessOnly) return { ljSr: NaN, dispCorr: NaN };
     execFileSync('gmx', ['-quiet', 'mdrun', '-nt', '1', '-s', 'run.tpr', '-deffnm', 'run'], { cwd: dir, stdio: 'ignore' });
     // Ask for both terms; a term the run does not have is reported on stderr and skipped.
-    const energy = execFileSync('gmx', ['-quiet', 'energy', '-f', 'run.edr', '-o', 'e.xvg'], { cwd: dir, input: 'LJ-(SR)\nDisper.-corr.\n\n', encoding: 'utf8', stdio: ['pipe', 'pipe', 'pipe'] });
+    const energy = execFileSync('gmx', ['-quiet', 'energy', '-f', 'run.edr', '-o', 'e.xvg'], {
+      cwd: dir,
+      input: 'LJ-(SR)\nDisper.-corr.\n\n',
+      encoding: 'utf8',
+      stdio: ['pipe', 'pipe', 'pipe'],
+    });
     const value = (name: RegExp): number | null => {
       const line = energy.split('\n').find((l) => name.test(l));
       return line ? Number(line.trim().split(/\s{2,}/)[1]) : null;
@@ -119,7 +178,8 @@ describe.skipIf(!has('lmp'))('LAMMPS runs the exported fragments', () => {
     const eReal = lammpsEnergy(exportParameterSet(set, 'lammps-real').body, [1, 1], 1, 3.8);
     expect(eStar * set.epsilonK * KCAL_PER_MOL_PER_K).toBeCloseTo(eReal, 7);
     // The stated scales, computed independently: τ = σ√(m/ε) with m = M/N_A, ε = k_B·ε/k_B (CODATA 2018 constants).
-    const tauPs = set.sigmaAngstrom * 1e-10 * Math.sqrt((set.substance.molarMassGPerMol / 1000 / 6.02214076e23) / (set.epsilonK * 1.380649e-23)) * 1e12;
+    const tauPs =
+      set.sigmaAngstrom * 1e-10 * Math.sqrt(set.substance.molarMassGPerMol / 1000 / 6.02214076e23 / (set.epsilonK * 1.380649e-23)) * 1e12;
     const stated = Number(/tau = sigma sqrt\(m\/epsilon\) = \S+ s = (\S+) ps/.exec(body)![1]);
     expect(stated / tauPs).toBeCloseTo(1, 6);
     expect(body).toContain(`length sigma = ${set.sigmaAngstrom} Angstrom`);
@@ -182,14 +242,19 @@ describe.skipIf(!gromacsMdrunRuns())('GROMACS runs the exported fragments', () =
     const s = oskaneTail.sigmaAngstrom / 10;
     const { ljSr, dispCorr } = gromacsEnergy(exportParameterSet(oskaneTail, 'gromacs').body, [oskaneTail], [0, 0], 0.4);
     expect(ljSr).toBeCloseTo(lj(eps, s, 0.4), 5);
-    expect(dispCorr / (-(2 / 3) * Math.PI * 4 / 125 * (4 * eps * s ** 6) / (3 * s) ** 3)).toBeCloseTo(1, 4);
+    expect(dispCorr / ((((-(2 / 3) * Math.PI * 4) / 125) * (4 * eps * s ** 6)) / (3 * s) ** 3)).toBeCloseTo(1, 4);
   });
 
   it('mixture: [ nonbond_params ] gives the Kong cross pair', () => {
     const k = combine('kong', brindleShifted, oskaneShifted);
     const eps = k.epsilonK * KJ_PER_MOL_PER_K;
     const s = k.sigmaAngstrom / 10;
-    const { ljSr } = gromacsEnergy(exportMixture([brindleShifted, oskaneShifted], 'kong', 'gromacs').body, [brindleShifted, oskaneShifted], [0, 1], 0.39);
+    const { ljSr } = gromacsEnergy(
+      exportMixture([brindleShifted, oskaneShifted], 'kong', 'gromacs').body,
+      [brindleShifted, oskaneShifted],
+      [0, 1],
+      0.39,
+    );
     expect(ljSr).toBeCloseTo(lj(eps, s, 0.39) - lj(eps, s, 0.9), 5); // one rvdw = 2.5 × 0.36 nm
   });
 });

@@ -18,14 +18,14 @@ export const CAUTION_TEXT =
  */
 export const FULL_POTENTIAL_SUGGESTED_CUTOFF_SIGMA = 5;
 
-
 export const SCHEME_DESCRIPTION: Record<CutoffScheme, string> = {
   'full-potential': 'full potential (no cutoff in the fit)',
   'truncated-tail': 'truncated at rc with analytic long-range tail corrections',
   'truncated-shifted': 'truncated at rc and shifted to zero at rc, no tail corrections',
 };
 
-export type ExportErrorCode = 'invalid-set' | 'unknown-format' | 'too-few-sets' | 'duplicate-set' | 'unknown-rule' | 'unknown-unit' | 'unsupported-potential';
+export type ExportErrorCode =
+  'invalid-set' | 'unknown-format' | 'too-few-sets' | 'duplicate-set' | 'unknown-rule' | 'unknown-unit' | 'unsupported-potential';
 
 /** True for a Mie λr-6 set (λr ≠ 12). */
 export function isMie(set: Pick<ExportableParameterSet, 'repulsiveExponent'>): boolean {
@@ -64,8 +64,10 @@ export function assertExportable(set: ExportableParameterSet): void {
   if (!Number.isInteger(set.version) || set.version <= 0) fail('version must be a positive integer');
   if (set.model !== 'lj-12-6' && set.model !== 'mie') fail(`model must be "lj-12-6" or "mie" (got "${String(set.model)}")`);
   const n = set.repulsiveExponent ?? 12;
-  if (typeof n !== 'number' || !(n >= 8 && n <= 36)) fail(`repulsiveExponent must be a number from 8 to 36 (got ${String(set.repulsiveExponent)})`);
-  if ((set.model === 'mie') !== (n !== 12)) fail(`model "${set.model}" does not match repulsiveExponent ${n} (LJ 12-6 exactly when it is 12)`);
+  if (typeof n !== 'number' || !(n >= 8 && n <= 36))
+    fail(`repulsiveExponent must be a number from 8 to 36 (got ${String(set.repulsiveExponent)})`);
+  if ((set.model === 'mie') !== (n !== 12))
+    fail(`model "${set.model}" does not match repulsiveExponent ${n} (LJ 12-6 exactly when it is 12)`);
   if (!positiveFinite(set.epsilonK)) fail('epsilonK must be a finite number above 0');
   if (!positiveFinite(set.sigmaAngstrom)) fail('sigmaAngstrom must be a finite number above 0');
   if (!set.substance || typeof set.substance.name !== 'string') fail('substance name is missing');
@@ -73,14 +75,20 @@ export function assertExportable(set: ExportableParameterSet): void {
   if (!(CUTOFF_SCHEMES as readonly string[]).includes(set.scheme)) fail(`unknown cutoff scheme "${String(set.scheme)}"`);
   if (set.scheme === 'full-potential' && set.cutoffSigma != null) fail('the full potential has no cutoff; cutoffSigma must be null');
   if (set.scheme !== 'full-potential' && !positiveFinite(set.cutoffSigma)) fail(`a ${set.scheme} set needs cutoffSigma (rc/σ) above 0`);
-  if (!nullOrFinite(set.stdErr?.epsilonK) || !nullOrFinite(set.stdErr?.sigmaAngstrom)) fail('standard errors must be finite numbers or null');
-  if (!nullOrFinite(set.correlation) || (set.correlation != null && Math.abs(set.correlation) > 1)) fail('correlation must be null or within [-1, 1]');
+  if (!nullOrFinite(set.stdErr?.epsilonK) || !nullOrFinite(set.stdErr?.sigmaAngstrom))
+    fail('standard errors must be finite numbers or null');
+  if (!nullOrFinite(set.correlation) || (set.correlation != null && Math.abs(set.correlation) > 1))
+    fail('correlation must be null or within [-1, 1]');
   const v = set.validity;
   if (!v || !positiveFinite(v.temperatureMinK) || !positiveFinite(v.temperatureMaxK) || v.temperatureMinK >= v.temperatureMaxK) {
     fail('validity needs 0 < temperatureMinK < temperatureMaxK');
   }
   if ((v.pressureMinMPa == null) !== (v.pressureMaxMPa == null)) fail('give both pressure bounds or neither');
-  if (v.pressureMinMPa != null && v.pressureMaxMPa != null && !(v.pressureMinMPa >= 0 && v.pressureMinMPa < v.pressureMaxMPa && Number.isFinite(v.pressureMaxMPa))) {
+  if (
+    v.pressureMinMPa != null &&
+    v.pressureMaxMPa != null &&
+    !(v.pressureMinMPa >= 0 && v.pressureMinMPa < v.pressureMaxMPa && Number.isFinite(v.pressureMaxMPa))
+  ) {
     fail('validity needs 0 ≤ pressureMinMPa < pressureMaxMPa');
   }
   if (!Number.isInteger(set.fitId) || set.fitId <= 0) fail('fitId must be a positive integer');
@@ -164,7 +172,10 @@ export function validityOf(set: ExportableParameterSet): ValidityRange {
 
 export function validityText(v: ValidityRange): string {
   const t = `T = ${engineNumber(v.temperatureMinK, 6)}–${engineNumber(v.temperatureMaxK, 6)} K`;
-  const p = v.pressureMinMPa != null && v.pressureMaxMPa != null ? `p = ${engineNumber(v.pressureMinMPa, 6)}–${engineNumber(v.pressureMaxMPa, 6)} MPa` : 'pressure range not stated';
+  const p =
+    v.pressureMinMPa != null && v.pressureMaxMPa != null
+      ? `p = ${engineNumber(v.pressureMinMPa, 6)}–${engineNumber(v.pressureMaxMPa, 6)} MPa`
+      : 'pressure range not stated';
   return `${t}; ${p}`;
 }
 
@@ -211,7 +222,9 @@ export function mixtureCutoff(sets: readonly ExportableParameterSet[]): MixtureC
       warning: null,
     };
   }
-  const list = sets.map((s) => `set ${s.id}: ${s.scheme}${s.cutoffSigma != null ? ` rc = ${engineNumber(s.cutoffSigma, 6)} σ` : ''}`).join(', ');
+  const list = sets
+    .map((s) => `set ${s.id}: ${s.scheme}${s.cutoffSigma != null ? ` rc = ${engineNumber(s.cutoffSigma, 6)} σ` : ''}`)
+    .join(', ');
   return {
     scheme: 'full-potential',
     cutoffSigma: FULL_POTENTIAL_SUGGESTED_CUTOFF_SIGMA,
@@ -222,8 +235,14 @@ export function mixtureCutoff(sets: readonly ExportableParameterSet[]): MixtureC
 
 /** ε/k_B and σ with their standard errors, for comment lines. */
 export function parameterText(set: ExportableParameterSet): string {
-  const eps = set.stdErr.epsilonK != null ? `${engineNumber(set.epsilonK, 8)} ± ${engineNumber(set.stdErr.epsilonK, 2)} K` : `${engineNumber(set.epsilonK, 8)} K`;
-  const sig = set.stdErr.sigmaAngstrom != null ? `${engineNumber(set.sigmaAngstrom, 8)} ± ${engineNumber(set.stdErr.sigmaAngstrom, 2)} Å` : `${engineNumber(set.sigmaAngstrom, 8)} Å`;
+  const eps =
+    set.stdErr.epsilonK != null
+      ? `${engineNumber(set.epsilonK, 8)} ± ${engineNumber(set.stdErr.epsilonK, 2)} K`
+      : `${engineNumber(set.epsilonK, 8)} K`;
+  const sig =
+    set.stdErr.sigmaAngstrom != null
+      ? `${engineNumber(set.sigmaAngstrom, 8)} ± ${engineNumber(set.stdErr.sigmaAngstrom, 2)} Å`
+      : `${engineNumber(set.sigmaAngstrom, 8)} Å`;
   const unc = set.stdErr.epsilonK != null || set.stdErr.sigmaAngstrom != null ? ' (± one standard error)' : '';
   return `epsilon/k_B = ${eps}, sigma = ${sig}${unc}`;
 }
@@ -254,12 +273,26 @@ export function setHeaderLines(set: ExportableParameterSet): string[] {
  * GROMACS preprocessor continue such a line onto the next, which would turn the next command into comment).
  */
 export function commentSafe(text: string): string {
-  return asciiText(oneLine(text)).replace(/"/g, "'").replace(/[&\\\s]+$/, '');
+  return asciiText(oneLine(text))
+    .replace(/"/g, "'")
+    .replace(/[&\\\s]+$/, '');
 }
 
 const ASCII_FOR: Record<string, string> = {
-  '\u2013': '-', '\u2014': '-', '\u2212': '-', '\u00b1': '+/-', '\u00c5': 'Angstrom', '\u212b': 'Angstrom', '\u2260': '!=',
-  '\u2264': '<=', '\u2265': '>=', '\u03c3': 'sigma', '\u03b5': 'epsilon', '\u2019': "'", '\u2018': "'", '\u00b7': '*',
+  '\u2013': '-',
+  '\u2014': '-',
+  '\u2212': '-',
+  '\u00b1': '+/-',
+  '\u00c5': 'Angstrom',
+  '\u212b': 'Angstrom',
+  '\u2260': '!=',
+  '\u2264': '<=',
+  '\u2265': '>=',
+  '\u03c3': 'sigma',
+  '\u03b5': 'epsilon',
+  '\u2019': "'",
+  '\u2018': "'",
+  '\u00b7': '*',
 };
 
 /** Our own symbols spelled in ASCII for engine input files (other text, such as names, is left as given). */

@@ -53,8 +53,16 @@ export const tarrowFull: ExportableParameterSet = {
   cutoffSigma: null,
   validity: { temperatureMinK: 200, temperatureMaxK: 500, pressureMinMPa: null, pressureMaxMPa: null },
   fitId: 11,
-  measurementSets: [{ id: 8, version: 1, kind: 'b2', name: 'Tarrow bead B2, Quillmoor cell B', source: 'Quillmoor lab notebook 5', doi: null }],
+  measurementSets: [
+    { id: 8, version: 1, kind: 'b2', name: 'Tarrow bead B2, Quillmoor cell B', source: 'Quillmoor lab notebook 5', doi: null },
+  ],
 };
 
 /** Same scheme and cutoff as brindleShifted, so a mixture of the two is consistent. */
-export const oskaneShifted: ExportableParameterSet = { ...oskaneTail, id: 16, scheme: 'truncated-shifted', cutoffSigma: 2.5, validity: { temperatureMinK: 120, temperatureMaxK: 400, pressureMinMPa: 0.5, pressureMaxMPa: 20 } };
+export const oskaneShifted: ExportableParameterSet = {
+  ...oskaneTail,
+  id: 16,
+  scheme: 'truncated-shifted',
+  cutoffSigma: 2.5,
+  validity: { temperatureMinK: 120, temperatureMaxK: 400, pressureMinMPa: 0.5, pressureMaxMPa: 20 },
+};

@@ -57,9 +57,16 @@ function defaultsLines(): string[] {
 
 function mdpLines(scheme: CutoffScheme, rvdwNm: number, cutoffSigma: number, perPair: boolean): string[] {
   const where = perPair ? 'for the largest sigma_ij' : '';
-  const head = [`Matching .mdp settings (${MDP_URL}):`, 'cutoff-scheme = Verlet', 'vdwtype       = Cut-off', `rvdw          = ${engineNumber(rvdwNm, 6)}`];
+  const head = [
+    `Matching .mdp settings (${MDP_URL}):`,
+    'cutoff-scheme = Verlet',
+    'vdwtype       = Cut-off',
+    `rvdw          = ${engineNumber(rvdwNm, 6)}`,
+  ];
   const reduced = `${engineNumber(cutoffSigma, 6)} sigma${where ? ` ${where}` : ''}`;
-  const onePerSystem = perPair ? ['GROMACS uses one rvdw for all pairs, so pairs with a smaller sigma_ij see a cutoff longer than that in units of their sigma.'] : [];
+  const onePerSystem = perPair
+    ? ['GROMACS uses one rvdw for all pairs, so pairs with a smaller sigma_ij see a cutoff longer than that in units of their sigma.']
+    : [];
   switch (scheme) {
     case 'full-potential':
       return [
@@ -71,9 +78,21 @@ function mdpLines(scheme: CutoffScheme, rvdwNm: number, cutoffSigma: number, per
         ...onePerSystem,
       ];
     case 'truncated-tail':
-      return [`Cutoff treatment: truncated at rc = ${reduced} with tail (dispersion) corrections, as fitted.`, ...head, 'vdw-modifier  = None', 'DispCorr      = EnerPres', ...onePerSystem];
+      return [
+        `Cutoff treatment: truncated at rc = ${reduced} with tail (dispersion) corrections, as fitted.`,
+        ...head,
+        'vdw-modifier  = None',
+        'DispCorr      = EnerPres',
+        ...onePerSystem,
+      ];
     case 'truncated-shifted':
-      return [`Cutoff treatment: truncated at rc = ${reduced} and shifted to zero there, no tail corrections, as fitted.`, ...head, 'vdw-modifier  = Potential-shift', 'DispCorr      = no', ...onePerSystem];
+      return [
+        `Cutoff treatment: truncated at rc = ${reduced} and shifted to zero there, no tail corrections, as fitted.`,
+        ...head,
+        'vdw-modifier  = Potential-shift',
+        'DispCorr      = no',
+        ...onePerSystem,
+      ];
   }
 }
 
@@ -119,8 +138,13 @@ export function gromacsMixture(sets: readonly ExportableParameterSet[], rule: Co
     `Epsigma mixture of ${sets.length} parameter sets, cross pairs by the ${info.name} combining rule`,
     `Rule: ${info.formulas} (${info.reference})`,
     `NOTE: ${table.note}`,
-    ...sets.map((s) => `${gromacsTypeName(s)}: ${substanceLabel(s)}, parameter set ${s.id} v${s.version}, ${approvalText(s)}; valid for ${validityText(validityOf(s))}; fitted for ${SCHEME_DESCRIPTION[s.scheme]}${s.cutoffSigma != null ? ` (rc = ${engineNumber(s.cutoffSigma, 6)} sigma)` : ''}`),
-    common ? `All components valid together for: ${validityText(common)}` : 'WARNING: the validity ranges of the components do not overlap.',
+    ...sets.map(
+      (s) =>
+        `${gromacsTypeName(s)}: ${substanceLabel(s)}, parameter set ${s.id} v${s.version}, ${approvalText(s)}; valid for ${validityText(validityOf(s))}; fitted for ${SCHEME_DESCRIPTION[s.scheme]}${s.cutoffSigma != null ? ` (rc = ${engineNumber(s.cutoffSigma, 6)} sigma)` : ''}`,
+    ),
+    common
+      ? `All components valid together for: ${validityText(common)}`
+      : 'WARNING: the validity ranges of the components do not overlap.',
     ...(cut.warning ? [cut.warning] : []),
     `CAUTION: ${CAUTION_TEXT}`,
     '',
@@ -136,7 +160,12 @@ export function gromacsMixture(sets: readonly ExportableParameterSet[], rule: Co
       table.pairs.some((p) => p.kind === 'fitted-pair-set')
         ? `Cross pairs: fitted pair sets where marked (k_ij from B12 data), otherwise ${info.name} estimates, not fitted; they override the combination rule of [ defaults ].`
         : `Cross pairs: ${info.name} estimates, not fitted; they override the combination rule of [ defaults ].`,
-      ...cross.filter((p) => p.fitted).map((p) => `${gromacsTypeName(sets[p.i])}-${gromacsTypeName(sets[p.j])}: fitted pair set ${p.fitted!.pairSetId}, k_ij = ${engineNumber(p.fitted!.kij, 5)}`),
+      ...cross
+        .filter((p) => p.fitted)
+        .map(
+          (p) =>
+            `${gromacsTypeName(sets[p.i])}-${gromacsTypeName(sets[p.j])}: fitted pair set ${p.fitted!.pairSetId}, k_ij = ${engineNumber(p.fitted!.kij, 5)}`,
+        ),
     ]),
     '[ nonbond_params ]',
     '; i                 j                 func  sigma (nm)    epsilon (kJ/mol)',

@@ -6,7 +6,8 @@ import { brindleShifted, oskaneShifted, oskaneTail, tarrowFull } from './export-
 import { combine } from '../mixing/combining-rules';
 
 // The caution text exactly as the product brief words it.
-const CAUTION = 'Fitted model parameters, not validated property data for pressure, safety or process design; defer to local codes and licensed engineering practice.';
+const CAUTION =
+  'Fitted model parameters, not validated property data for pressure, safety or process design; defer to local codes and licensed engineering practice.';
 
 describe('parameter set JSON (epsigma.parameter-set/1)', () => {
   it('validates against the published schema for every scheme, with and without optional data', () => {
@@ -18,10 +19,23 @@ describe('parameter set JSON (epsigma.parameter-set/1)', () => {
   it('carries id, version, approval, format id and the exact caution text', () => {
     const doc = parameterSetDocument(brindleShifted);
     expect(doc.format).toBe('epsigma.parameter-set/1');
-    expect(doc.parameterSet).toEqual({ id: 12, version: 3, state: 'approved', approvedAt: '2026-11-30T10:00:00Z', approvedBy: 'R. Ostrova' });
+    expect(doc.parameterSet).toEqual({
+      id: 12,
+      version: 3,
+      state: 'approved',
+      approvedAt: '2026-11-30T10:00:00Z',
+      approvedBy: 'R. Ostrova',
+    });
     expect(doc.caution).toBe(CAUTION);
     expect(doc.provenance.fitId).toBe(7);
-    expect(doc.provenance.datasets[1]).toEqual({ id: 5, version: 1, kind: 'viscosity', name: 'Brindle gas dilute-gas viscosity', source: null, doi: '10.0000/quillmoor.example.5' });
+    expect(doc.provenance.datasets[1]).toEqual({
+      id: 5,
+      version: 1,
+      kind: 'viscosity',
+      name: 'Brindle gas dilute-gas viscosity',
+      source: null,
+      doi: '10.0000/quillmoor.example.5',
+    });
   });
 
   it('converts ε and σ with CODATA 2018 values', () => {
@@ -39,9 +53,24 @@ describe('parameter set JSON (epsigma.parameter-set/1)', () => {
   });
 
   it('gives the cutoff in σ, Å and nm, and nulls for the full potential', () => {
-    expect(parameterSetDocument(brindleShifted).cutoff).toMatchObject({ scheme: 'truncated-shifted', cutoffSigma: 2.5, cutoffAngstrom: 8.55, cutoffNm: 0.855 });
-    expect(parameterSetDocument(tarrowFull).cutoff).toMatchObject({ scheme: 'full-potential', cutoffSigma: null, cutoffAngstrom: null, cutoffNm: null });
-    expect(parameterSetDocument(oskaneTail).validity).toEqual({ temperatureMinK: 120, temperatureMaxK: 400, pressureMinMPa: null, pressureMaxMPa: null });
+    expect(parameterSetDocument(brindleShifted).cutoff).toMatchObject({
+      scheme: 'truncated-shifted',
+      cutoffSigma: 2.5,
+      cutoffAngstrom: 8.55,
+      cutoffNm: 0.855,
+    });
+    expect(parameterSetDocument(tarrowFull).cutoff).toMatchObject({
+      scheme: 'full-potential',
+      cutoffSigma: null,
+      cutoffAngstrom: null,
+      cutoffNm: null,
+    });
+    expect(parameterSetDocument(oskaneTail).validity).toEqual({
+      temperatureMinK: 120,
+      temperatureMaxK: 400,
+      pressureMinMPa: null,
+      pressureMaxMPa: null,
+    });
     expect(parameterSetDocument(oskaneTail).uncertainties.epsilonStdErrEV).toBeNull();
   });
 
@@ -56,7 +85,12 @@ describe('mixture JSON (epsigma.mixture/1)', () => {
     expect(checkJsonSchema(MIXTURE_JSON_SCHEMA, doc)).toEqual([]);
     expect(doc.pairs).toHaveLength(6);
     expect(doc.pairs.map((p: { i: number; j: number; kind: string }) => `${p.i}-${p.j}:${p.kind}`)).toEqual([
-      '1-1:pure', '1-2:combining-rule-estimate', '1-3:combining-rule-estimate', '2-2:pure', '2-3:combining-rule-estimate', '3-3:pure',
+      '1-1:pure',
+      '1-2:combining-rule-estimate',
+      '1-3:combining-rule-estimate',
+      '2-2:pure',
+      '2-3:combining-rule-estimate',
+      '3-3:pure',
     ]);
     expect(doc.pairs[1].epsilonK).toBeCloseTo(combine('waldman-hagler', brindleShifted, oskaneShifted).epsilonK, 12);
     expect(doc.note).toContain('not fitted');
@@ -101,15 +135,43 @@ describe('the published schemas', () => {
     const cases: Array<[string, (d: ReturnType<typeof base>) => void, { path: string; message: string }]> = [
       ['missing field', (d) => delete d.caution, { path: '', message: 'missing required property "caution"' }],
       ['changed caution', (d) => (d.caution = 'use freely'), { path: '/caution', message: `must equal ${JSON.stringify(CAUTION)}` }],
-      ['other format version', (d) => (d.format = 'epsigma.parameter-set/2'), { path: '/format', message: 'must equal "epsigma.parameter-set/1"' }],
-      ['unknown scheme', (d) => (d.cutoff.scheme = 'cut'), { path: '/cutoff/scheme', message: 'must be one of "full-potential", "truncated-tail", "truncated-shifted"' }],
+      [
+        'other format version',
+        (d) => (d.format = 'epsigma.parameter-set/2'),
+        { path: '/format', message: 'must equal "epsigma.parameter-set/1"' },
+      ],
+      [
+        'unknown scheme',
+        (d) => (d.cutoff.scheme = 'cut'),
+        { path: '/cutoff/scheme', message: 'must be one of "full-potential", "truncated-tail", "truncated-shifted"' },
+      ],
       ['negative ε', (d) => (d.parameters.epsilonK = -1), { path: '/parameters/epsilonK', message: 'must be ≥ 0' }],
-      ['correlation above 1', (d) => (d.uncertainties.correlationEpsilonSigma = 1.2), { path: '/uncertainties/correlationEpsilonSigma', message: 'must be ≤ 1' }],
-      ['string for number', (d) => (d.parameters.sigmaAngstrom = '3.4'), { path: '/parameters/sigmaAngstrom', message: 'expected number, got string' }],
-      ['null where required number', (d) => (d.parameters.sigmaNm = null), { path: '/parameters/sigmaNm', message: 'expected number, got null' }],
+      [
+        'correlation above 1',
+        (d) => (d.uncertainties.correlationEpsilonSigma = 1.2),
+        { path: '/uncertainties/correlationEpsilonSigma', message: 'must be ≤ 1' },
+      ],
+      [
+        'string for number',
+        (d) => (d.parameters.sigmaAngstrom = '3.4'),
+        { path: '/parameters/sigmaAngstrom', message: 'expected number, got string' },
+      ],
+      [
+        'null where required number',
+        (d) => (d.parameters.sigmaNm = null),
+        { path: '/parameters/sigmaNm', message: 'expected number, got null' },
+      ],
       ['fractional id', (d) => (d.parameterSet.id = 1.5), { path: '/parameterSet/id', message: 'expected integer, got number' }],
-      ['bad item in list', (d) => delete d.provenance.datasets[1].doi, { path: '/provenance/datasets/1', message: 'missing required property "doi"' }],
-      ['list replaced by object', (d) => (d.provenance.datasets = {}), { path: '/provenance/datasets', message: 'expected array, got object' }],
+      [
+        'bad item in list',
+        (d) => delete d.provenance.datasets[1].doi,
+        { path: '/provenance/datasets/1', message: 'missing required property "doi"' },
+      ],
+      [
+        'list replaced by object',
+        (d) => (d.provenance.datasets = {}),
+        { path: '/provenance/datasets', message: 'expected array, got object' },
+      ],
     ];
     for (const [name, breakIt, problem] of cases) {
       const d = base();
@@ -145,7 +207,9 @@ describe('checkJsonSchema (Ajv, draft 2020-12) follows JSON Schema 2020-12 seman
   });
 
   it('escapes "/" and "~" in JSON Pointers (RFC 6901 §3)', () => {
-    expect(checkJsonSchema({ type: 'object', additionalProperties: false }, { 'a/b~c': 1 })).toEqual([{ path: '/a~1b~0c', message: 'no value is allowed here' }]);
+    expect(checkJsonSchema({ type: 'object', additionalProperties: false }, { 'a/b~c': 1 })).toEqual([
+      { path: '/a~1b~0c', message: 'no value is allowed here' },
+    ]);
   });
 
   it('refuses schemas with a keyword JSON Schema 2020-12 does not define (Ajv strictSchema), so no typo is silently skipped', () => {

@@ -8,7 +8,17 @@
 import type { ExportableParameterSet } from './exportable-parameter-set';
 import { COMBINING_RULE_INFO, mixtureTable, type CombiningRule, type PairKind } from '../mixing/combining-rules';
 import { convertEpsilon, convertSigma } from '../physics/parameter-units';
-import { CAUTION_TEXT, SCHEME_DESCRIPTION, tidy, commonValidity, isMie, mixtureCutoff, potentialText, validityOf, type ValidityRange } from './export-common';
+import {
+  CAUTION_TEXT,
+  SCHEME_DESCRIPTION,
+  tidy,
+  commonValidity,
+  isMie,
+  mixtureCutoff,
+  potentialText,
+  validityOf,
+  type ValidityRange,
+} from './export-common';
 import type { CutoffScheme } from '../physics/cutoff-schemes';
 
 export const PARAMETER_SET_FORMAT_ID = 'epsigma.parameter-set/1';
@@ -75,7 +85,12 @@ export function parameterSetDocument(set: ExportableParameterSet): ParameterSetD
   return {
     format: PARAMETER_SET_FORMAT_ID,
     parameterSet: { id: set.id, version: set.version, state: set.state, approvedAt: set.approvedAt, approvedBy: set.approvedBy },
-    substance: { id: set.substance.id, name: set.substance.name, formula: set.substance.formula ?? null, molarMassGPerMol: set.substance.molarMassGPerMol },
+    substance: {
+      id: set.substance.id,
+      name: set.substance.name,
+      formula: set.substance.formula ?? null,
+      molarMassGPerMol: set.substance.molarMassGPerMol,
+    },
     model: isMie(set) ? 'mie' : 'lj-12-6',
     repulsiveExponent: set.repulsiveExponent ?? 12,
     potentialForm: isMie(set) ? potentialText(set) : LJ_POTENTIAL_FORM,
@@ -101,7 +116,14 @@ export function parameterSetDocument(set: ExportableParameterSet): ParameterSetD
     provenance: {
       fitId: set.fitId,
       // The published format v1 keeps its old provenance key (vocabulary: keep: "datasets"); a rename needs a format version 2.
-      datasets: set.measurementSets.map((d) => ({ id: d.id, version: d.version, kind: d.kind, name: d.name, source: d.source ?? null, doi: d.doi ?? null })), // vocabulary: keep
+      datasets: set.measurementSets.map((d) => ({
+        id: d.id,
+        version: d.version,
+        kind: d.kind,
+        name: d.name,
+        source: d.source ?? null,
+        doi: d.doi ?? null,
+      })), // vocabulary: keep
     },
     caution: CAUTION_TEXT,
   };

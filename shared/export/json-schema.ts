@@ -21,7 +21,13 @@ const strOrNull = (description: string): JsonSchema => ({ type: ['string', 'null
 
 /** A closed object: every listed property required, nothing else allowed. */
 function closed(properties: Record<string, JsonSchema>, description?: string): JsonSchema {
-  return { type: 'object', ...(description ? { description } : {}), required: Object.keys(properties), properties, additionalProperties: false };
+  return {
+    type: 'object',
+    ...(description ? { description } : {}),
+    required: Object.keys(properties),
+    properties,
+    additionalProperties: false,
+  };
 }
 
 const energyFields = (what: string): Record<string, JsonSchema> => ({
@@ -150,7 +156,10 @@ export const MIXTURE_JSON_SCHEMA: JsonSchema = {
         j: int('second component index (1-based), j ≥ i'),
         parameterSetIdI: int('parameter set of component i'),
         parameterSetIdJ: int('parameter set of component j'),
-        kind: { enum: ['pure', 'combining-rule-estimate', 'fitted-pair-set'], description: 'pure pair from a fit, a cross-pair estimate, or a cross pair from an approved pair set (k_ij fitted to B12 data)' },
+        kind: {
+          enum: ['pure', 'combining-rule-estimate', 'fitted-pair-set'],
+          description: 'pure pair from a fit, a cross-pair estimate, or a cross pair from an approved pair set (k_ij fitted to B12 data)',
+        },
         ...energyFields('pair'),
         ...lengthFields('pair'),
       }),

@@ -104,8 +104,13 @@ export function lammpsMixture(sets: readonly ExportableParameterSet[], rule: Com
     `Epsigma mixture of ${sets.length} parameter sets, cross pairs by the ${info.name} combining rule`,
     `Rule: ${info.formulas} (${info.reference})`,
     `NOTE: ${table.note}`,
-    ...sets.map((s, k) => `Type ${k + 1}: ${substanceLabel(s)}, parameter set ${s.id} v${s.version}, ${approvalText(s)}; valid for ${validityText(validityOf(s))}; fitted for ${SCHEME_DESCRIPTION[s.scheme]}${s.cutoffSigma != null ? ` (rc = ${engineNumber(s.cutoffSigma, 6)} sigma)` : ''}`),
-    common ? `All components valid together for: ${validityText(common)}` : 'WARNING: the validity ranges of the components do not overlap.',
+    ...sets.map(
+      (s, k) =>
+        `Type ${k + 1}: ${substanceLabel(s)}, parameter set ${s.id} v${s.version}, ${approvalText(s)}; valid for ${validityText(validityOf(s))}; fitted for ${SCHEME_DESCRIPTION[s.scheme]}${s.cutoffSigma != null ? ` (rc = ${engineNumber(s.cutoffSigma, 6)} sigma)` : ''}`,
+    ),
+    common
+      ? `All components valid together for: ${validityText(common)}`
+      : 'WARNING: the validity ranges of the components do not overlap.',
     ...(cut.warning ? [cut.warning] : []),
     `CAUTION: ${CAUTION_TEXT}`,
     '',
@@ -119,7 +124,12 @@ export function lammpsMixture(sets: readonly ExportableParameterSet[], rule: Com
     `pair_style lj/cut ${engineNumber(rcMax)}`,
     ...table.pairs.map((p) => {
       const eps = convertEpsilon(p.epsilonK, ENERGY_UNIT[units]);
-      const what = p.kind === 'pure' ? `pure, set ${sets[p.i].id} v${sets[p.i].version}` : p.fitted ? `fitted pair set ${p.fitted.pairSetId}, k_ij = ${engineNumber(p.fitted.kij, 5)}` : `${asciiText(info.name)} estimate, not fitted`;
+      const what =
+        p.kind === 'pure'
+          ? `pure, set ${sets[p.i].id} v${sets[p.i].version}`
+          : p.fitted
+            ? `fitted pair set ${p.fitted.pairSetId}, k_ij = ${engineNumber(p.fitted.kij, 5)}`
+            : `${asciiText(info.name)} estimate, not fitted`;
       return `pair_coeff ${p.i + 1} ${p.j + 1} ${engineNumber(eps)} ${engineNumber(p.sigmaAngstrom)} ${engineNumber(cut.cutoffSigma * p.sigmaAngstrom)} # ${what}`;
     }),
     modifyLine(cut.scheme),
@@ -155,7 +165,13 @@ function ljScaleLines(reference: ExportableParameterSet): string[] {
 export function lammpsLjParameterSet(set: ExportableParameterSet): string {
   const cutoffSigma = set.scheme === 'full-potential' ? FULL_POTENTIAL_SUGGESTED_CUTOFF_SIGMA : (set.cutoffSigma as number);
   const lines = [
-    ...commentBlock('#', [...setHeaderLines(set), '', ...ljScaleLines(set), `In these units epsilon = 1, sigma = 1, mass = 1, rc = ${engineNumber(cutoffSigma, 6)} (sigma).`, ...schemeCommentLines(set.scheme, cutoffSigma)]),
+    ...commentBlock('#', [
+      ...setHeaderLines(set),
+      '',
+      ...ljScaleLines(set),
+      `In these units epsilon = 1, sigma = 1, mass = 1, rc = ${engineNumber(cutoffSigma, 6)} (sigma).`,
+      ...schemeCommentLines(set.scheme, cutoffSigma),
+    ]),
     'mass 1 1.0',
     isMie(set) ? `pair_style mie/cut ${engineNumber(cutoffSigma, 8)}` : `pair_style lj/cut ${engineNumber(cutoffSigma, 8)}`,
     isMie(set) ? `pair_coeff 1 1 1.0 1.0 ${engineNumber(set.repulsiveExponent as number)} 6` : 'pair_coeff 1 1 1.0 1.0',
@@ -178,8 +194,13 @@ export function lammpsLjMixture(sets: readonly ExportableParameterSet[], rule: C
     `Epsigma mixture of ${sets.length} parameter sets, cross pairs by the ${info.name} combining rule`,
     `Rule: ${info.formulas} (${info.reference})`,
     `NOTE: ${table.note}`,
-    ...sets.map((s, k) => `Type ${k + 1}: ${substanceLabel(s)}, parameter set ${s.id} v${s.version}, ${approvalText(s)}; valid for ${validityText(validityOf(s))}; fitted for ${SCHEME_DESCRIPTION[s.scheme]}${s.cutoffSigma != null ? ` (rc = ${engineNumber(s.cutoffSigma, 6)} sigma)` : ''}`),
-    common ? `All components valid together for: ${validityText(common)}` : 'WARNING: the validity ranges of the components do not overlap.',
+    ...sets.map(
+      (s, k) =>
+        `Type ${k + 1}: ${substanceLabel(s)}, parameter set ${s.id} v${s.version}, ${approvalText(s)}; valid for ${validityText(validityOf(s))}; fitted for ${SCHEME_DESCRIPTION[s.scheme]}${s.cutoffSigma != null ? ` (rc = ${engineNumber(s.cutoffSigma, 6)} sigma)` : ''}`,
+    ),
+    common
+      ? `All components valid together for: ${validityText(common)}`
+      : 'WARNING: the validity ranges of the components do not overlap.',
     ...(cut.warning ? [cut.warning] : []),
     `CAUTION: ${CAUTION_TEXT}`,
     '',
@@ -193,7 +214,12 @@ export function lammpsLjMixture(sets: readonly ExportableParameterSet[], rule: C
     ...sets.map((s, k) => `mass ${k + 1} ${engineNumber(s.substance.molarMassGPerMol / ref.substance.molarMassGPerMol, 12)}`),
     `pair_style lj/cut ${engineNumber(rcMax, 12)}`,
     ...table.pairs.map((p) => {
-      const what = p.kind === 'pure' ? `pure, set ${sets[p.i].id} v${sets[p.i].version}` : p.fitted ? `fitted pair set ${p.fitted.pairSetId}, k_ij = ${engineNumber(p.fitted.kij, 5)}` : `${asciiText(info.name)} estimate, not fitted`;
+      const what =
+        p.kind === 'pure'
+          ? `pure, set ${sets[p.i].id} v${sets[p.i].version}`
+          : p.fitted
+            ? `fitted pair set ${p.fitted.pairSetId}, k_ij = ${engineNumber(p.fitted.kij, 5)}`
+            : `${asciiText(info.name)} estimate, not fitted`;
       // Ratios to type 1 carry 12 digits so the reduced pair energies match the real-unit ones to rounding.
       return `pair_coeff ${p.i + 1} ${p.j + 1} ${engineNumber(e(p.epsilonK), 12)} ${engineNumber(l(p.sigmaAngstrom), 12)} ${engineNumber(cut.cutoffSigma * l(p.sigmaAngstrom), 12)} # ${what}`;
     }),

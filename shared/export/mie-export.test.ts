@@ -13,7 +13,14 @@ import { checkJsonSchema } from './json-schema-check';
 import { PARAMETER_SET_JSON_SCHEMA } from './json-schema';
 import { exportMixture, exportParameterSet, type ExportableParameterSet } from './parameter-set-export';
 
-const mie: ExportableParameterSet = { ...oskaneTail, id: 31, model: 'mie', repulsiveExponent: 16, scheme: 'full-potential', cutoffSigma: null };
+const mie: ExportableParameterSet = {
+  ...oskaneTail,
+  id: 31,
+  model: 'mie',
+  repulsiveExponent: 16,
+  scheme: 'full-potential',
+  cutoffSigma: null,
+};
 const has = (program: string) => {
   try {
     execFileSync('sh', ['-c', `command -v ${program}`], { stdio: 'ignore' });
@@ -42,7 +49,20 @@ describe('Mie λr-6 exports', () => {
     const dir = mkdtempSync(join(tmpdir(), 'epsigma-mie-export-'));
     try {
       const r = 1.12 * mie.sigmaAngstrom;
-      const input = ['units real', 'atom_style atomic', 'boundary p p p', 'region box block -25 25 -25 25 -25 25', 'create_box 1 box', 'create_atoms 1 single 0 0 0', `create_atoms 1 single ${r} 0 0`, exportParameterSet(mie, 'lammps-real').body, 'pair_modify tail no', 'thermo_style custom step evdwl', 'thermo_modify norm no format float %22.15g', 'run 0'].join('\n');
+      const input = [
+        'units real',
+        'atom_style atomic',
+        'boundary p p p',
+        'region box block -25 25 -25 25 -25 25',
+        'create_box 1 box',
+        'create_atoms 1 single 0 0 0',
+        `create_atoms 1 single ${r} 0 0`,
+        exportParameterSet(mie, 'lammps-real').body,
+        'pair_modify tail no',
+        'thermo_style custom step evdwl',
+        'thermo_modify norm no format float %22.15g',
+        'run 0',
+      ].join('\n');
       writeFileSync(join(dir, 'in.test'), input);
       const lines = execFileSync('lmp', ['-in', 'in.test', '-log', 'none'], { cwd: dir, encoding: 'utf8' }).split('\n');
       const k = lines.findIndex((l) => /^\s*Step\s+E_vdwl/.test(l));
@@ -56,8 +76,12 @@ describe('Mie λr-6 exports', () => {
   });
 
   it('GROMACS and mixtures are refused with the reason', () => {
-    expect(() => exportParameterSet(mie, 'gromacs')).toThrow(/GROMACS has no Mie 16-6 pair function .* use lammps-real, lammps-metal or lammps-lj \(pair_style mie\/cut\), json or csv/);
-    expect(() => exportMixture([mie, brindleShifted], 'lorentz-berthelot', 'lammps-real')).toThrow(/parameter set 31 is a Mie 16-6 set; mixtures are built from LJ 12-6 sets only/);
+    expect(() => exportParameterSet(mie, 'gromacs')).toThrow(
+      /GROMACS has no Mie 16-6 pair function .* use lammps-real, lammps-metal or lammps-lj \(pair_style mie\/cut\), json or csv/,
+    );
+    expect(() => exportMixture([mie, brindleShifted], 'lorentz-berthelot', 'lammps-real')).toThrow(
+      /parameter set 31 is a Mie 16-6 set; mixtures are built from LJ 12-6 sets only/,
+    );
   });
 
   it('JSON and CSV carry the model and λr; the JSON validates against the published schema', () => {

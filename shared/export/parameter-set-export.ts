@@ -72,7 +72,8 @@ const EXTENSION: Record<ExportFormat, string> = {
 };
 
 function checkFormat(format: unknown): asserts format is ExportFormat {
-  if (!isExportFormat(format)) throw new ExportError('unknown-format', `unknown export format "${String(format)}"; use one of ${EXPORT_FORMATS.join(', ')}`);
+  if (!isExportFormat(format))
+    throw new ExportError('unknown-format', `unknown export format "${String(format)}"; use one of ${EXPORT_FORMATS.join(', ')}`);
 }
 
 /** One parameter set as a downloadable document. */
@@ -111,12 +112,22 @@ export function exportParameterSet(set: ExportableParameterSet, format: ExportFo
 }
 
 /** A mixture of several sets: pure pairs from the sets, cross pairs from the combining rule. */
-export function exportMixture(sets: readonly ExportableParameterSet[], rule: CombiningRule, format: ExportFormat, options: ExportOptions = {}): ExportResult {
+export function exportMixture(
+  sets: readonly ExportableParameterSet[],
+  rule: CombiningRule,
+  format: ExportFormat,
+  options: ExportOptions = {},
+): ExportResult {
   checkFormat(format);
-  if (!isCombiningRule(rule)) throw new ExportError('unknown-rule', `unknown combining rule "${String(rule)}"; use one of ${COMBINING_RULES.join(', ')}`);
+  if (!isCombiningRule(rule))
+    throw new ExportError('unknown-rule', `unknown combining rule "${String(rule)}"; use one of ${COMBINING_RULES.join(', ')}`);
   if (!Array.isArray(sets) || sets.length < 2) throw new ExportError('too-few-sets', 'a mixture needs at least two parameter sets');
   const mie = sets.find(isMie);
-  if (mie) throw new ExportError('unsupported-potential', `parameter set ${mie.id} is a Mie ${mie.repulsiveExponent}-6 set; mixtures are built from LJ 12-6 sets only (the combining rules here are for 12-6 parameters)`);
+  if (mie)
+    throw new ExportError(
+      'unsupported-potential',
+      `parameter set ${mie.id} is a Mie ${mie.repulsiveExponent}-6 set; mixtures are built from LJ 12-6 sets only (the combining rules here are for 12-6 parameters)`,
+    );
   const ids = new Set<number>();
   for (const s of sets) {
     assertExportable(s);

@@ -11,7 +11,12 @@ import { mdStageFit, type MdRunSummary, type MdStagePoint, type MdStatePoint } f
 // parameters, as in md-stage.test.ts: two supercritical isotherms (T* = 1.5 and 2.0), far from any phase boundary.
 const TRUE = { epsilonK: 150, sigmaAngstrom: 3.6 };
 const M = 50;
-const STATES: Array<[number, number]> = [[225, 20], [225, 60], [300, 40], [300, 100]];
+const STATES: Array<[number, number]> = [
+  [225, 20],
+  [225, 60],
+  [300, 40],
+  [300, 100],
+];
 const RELATIVE_U = 0.01;
 const bounds = { epsilonK: [50, 400] as [number, number], sigmaAngstrom: [2.5, 5] as [number, number] };
 
@@ -19,14 +24,37 @@ function syntheticPoints(): MdStagePoint[] {
   return STATES.map(([T, P]) => {
     const s = reducedStateOf({ temperatureK: T, pressureMPa: P, ...TRUE });
     const rho = massDensityKgPerM3(ljEosDensity(s.reducedTemperature, s.reducedPressure).reducedDensity, M, TRUE.sigmaAngstrom);
-    return { measurementSetId: 1, measurementSetIndex: 0, kind: 'density' as const, temperatureK: T, pressureMPa: P, value: rho, uncertainty: RELATIVE_U * rho, weight: 1 };
+    return {
+      measurementSetId: 1,
+      measurementSetIndex: 0,
+      kind: 'density' as const,
+      temperatureK: T,
+      pressureMPa: P,
+      value: rho,
+      uncertainty: RELATIVE_U * rho,
+      weight: 1,
+    };
   });
 }
 
 describe('posterior of a density fit through the reweighting of the simulation stage', () => {
   it('real NPT runs: the 95 % intervals contain the truth and agree with the linearised ones within a factor 1.5', async () => {
     const points = syntheticPoints();
-    const eosStage = fitLennardJones([{ id: 1, kind: 'density', rows: points.map((p) => ({ temperatureK: p.temperatureK, pressureMPa: p.pressureMPa, value: p.value, uncertainty: p.uncertainty })) }], { molarMassGPerMol: M, restarts: 0, bounds });
+    const eosStage = fitLennardJones(
+      [
+        {
+          id: 1,
+          kind: 'density',
+          rows: points.map((p) => ({
+            temperatureK: p.temperatureK,
+            pressureMPa: p.pressureMPa,
+            value: p.value,
+            uncertainty: p.uncertainty,
+          })),
+        },
+      ],
+      { molarMassGPerMol: M, restarts: 0, bounds },
+    );
     let runs = 0;
     // 128 atoms, 5000 steps extended towards 50 effective samples, as the density fit's defaults (density-fit.ts).
     const md = async (states: MdStatePoint[], onRunFinished?: () => void): Promise<MdRunSummary[]> =>
@@ -34,7 +62,18 @@ describe('posterior of a density fit through the reweighting of the simulation s
         runs++;
         const r = runNpt({ ...s, atoms: 128, steps: 5000, seed: 2000 + runs });
         onRunFinished?.();
-        return { id: runs, reused: false, reducedDensity: r.reducedDensity, stdErr: r.stdErr, dRhoDT: r.dRhoDT, dRhoDP: r.dRhoDP, phase: r.phase, ...r.settings, effectiveSamples: r.effectiveSamples, frames: r.frames };
+        return {
+          id: runs,
+          reused: false,
+          reducedDensity: r.reducedDensity,
+          stdErr: r.stdErr,
+          dRhoDT: r.dRhoDT,
+          dRhoDP: r.dRhoDP,
+          phase: r.phase,
+          ...r.settings,
+          effectiveSamples: r.effectiveSamples,
+          frames: r.frames,
+        };
       });
     const result = await mdStageFit(points, [{ id: 1, kind: 'density' }], {
       start: { epsilonK: eosStage.epsilonK, sigmaAngstrom: eosStage.sigmaAngstrom },

@@ -92,7 +92,12 @@ export interface DensityPosterior extends LjPosterior {
 function extraPoints(run: EnsembleRun, refused: number[][]): number[][] {
   const p = run.samples[0].length;
   const mean = Array.from({ length: p }, (_, k) => run.samples.reduce((s, x) => s + x[k], 0) / run.samples.length);
-  const cov = Array.from({ length: p }, (_, a) => Array.from({ length: p }, (_, b) => run.samples.reduce((s, x) => s + (x[a] - mean[a]) * (x[b] - mean[b]), 0) / (run.samples.length - 1)));
+  const cov = Array.from({ length: p }, (_, a) =>
+    Array.from(
+      { length: p },
+      (_, b) => run.samples.reduce((s, x) => s + (x[a] - mean[a]) * (x[b] - mean[b]), 0) / (run.samples.length - 1),
+    ),
+  );
   const distance = (x: number[]): number => {
     if (p === 1) return (x[0] - mean[0]) ** 2 / cov[0][0];
     const det = cov[0][0] * cov[1][1] - cov[0][1] ** 2;
@@ -140,7 +145,7 @@ export async function densityPosterior(input: DensityPosteriorInput, options: De
     initial = initial.map((x, k) => Math.min(Math.max(x, input.bounds[free[k]][0]), input.bounds[free[k]][1]));
   }
   const maxRefused = options.maxRefusedFraction ?? 0.02;
-  const extraAllowed = input.extend ? options.extraRounds ?? 1 : 0;
+  const extraAllowed = input.extend ? (options.extraRounds ?? 1) : 0;
   const fractions: number[] = [];
   let extraRounds = 0;
   let extraRuns = 0;
@@ -185,7 +190,13 @@ export async function densityPosterior(input: DensityPosteriorInput, options: De
     }
     const summary = summariseRun(run, free, held, options.drawsReturned ?? 400);
     const { samplerWarnings, ...rest } = summary;
-    const { linearised, messages } = comparisonMessages({ epsilonK: summary.epsilonK, sigmaAngstrom: summary.sigmaAngstrom }, free, estimate, input.stdErr, input.bounds);
+    const { linearised, messages } = comparisonMessages(
+      { epsilonK: summary.epsilonK, sigmaAngstrom: summary.sigmaAngstrom },
+      free,
+      estimate,
+      input.stdErr,
+      input.bounds,
+    );
     const boundNote = messages.length && /reaches the bound/.test(messages[messages.length - 1]) ? messages.pop()! : null;
     messages.push(...samplerWarnings);
     if (boundNote) messages.push(boundNote);
@@ -196,12 +207,16 @@ export async function densityPosterior(input: DensityPosteriorInput, options: De
       );
     }
     if (refusedPhase > 0) {
-      messages.push(`${percent(refusedPhase / proposals)} of the proposals were refused because a point of the fit would leave the fluid region or change phase there; the posterior is zero at such parameters.`);
+      messages.push(
+        `${percent(refusedPhase / proposals)} of the proposals were refused because a point of the fit would leave the fluid region or change phase there; the posterior is zero at such parameters.`,
+      );
     }
     if (options.prior) messages.push(priorNote(options.prior, linearised));
     const likelihoodWords =
       'exp(−½ Σ [r²/(s²v) + ln v]) with v = u² + u_MD², every density predicted by MBAR reweighting of the stored runs (no new run per proposal), u_MD its statistical error' +
-      (input.noiseScale === 1 ? ', s² = 1 (the stated uncertainties)' : `, s² = χ²/ν = ${input.noiseScale.toPrecision(4)} (uncertainties taken as relative, like the fit's covariance)`);
+      (input.noiseScale === 1
+        ? ', s² = 1 (the stated uncertainties)'
+        : `, s² = χ²/ν = ${input.noiseScale.toPrecision(4)} (uncertainties taken as relative, like the fit's covariance)`);
     return {
       ...rest,
       linearised,
@@ -209,7 +224,15 @@ export async function densityPosterior(input: DensityPosteriorInput, options: De
       priors: priorWords(free, input.bounds, undefined, options.prior),
       messages,
       ...(options.prior ? { priorSet: priorSetOf(options.prior) } : {}),
-      coverage: { proposals, refusedUncovered, refusedPhase, refusedFraction, extraRounds, extraRuns, refusedFractionBySampling: fractions },
+      coverage: {
+        proposals,
+        refusedUncovered,
+        refusedPhase,
+        refusedFraction,
+        extraRounds,
+        extraRuns,
+        refusedFractionBySampling: fractions,
+      },
     };
   }
 }

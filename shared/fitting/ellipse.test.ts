@@ -34,14 +34,50 @@ describe('joint 95 % confidence ellipse', () => {
   });
 
   it('the ellipse reaches ±√k·σ in each parameter (its bounding box)', () => {
-    const ellipse = ellipsePoints([0, 0], [[4, 1.2], [1.2, 1]], 1, 3600);
+    const ellipse = ellipsePoints(
+      [0, 0],
+      [
+        [4, 1.2],
+        [1.2, 1],
+      ],
+      1,
+      3600,
+    );
     expect(Math.max(...ellipse.map((p) => p[0]))).toBeCloseTo(2, 5);
     expect(Math.max(...ellipse.map((p) => p[1]))).toBeCloseTo(1, 5);
   });
 
   it('rejects a covariance that is not positive definite and too few points for the F region', () => {
-    expect(() => ellipsePoints([0, 0], [[1, 2], [2, 1]], 1)).toThrow('ellipsePoints: the covariance is not positive definite');
-    expect(() => ellipsePoints([0, 0], [[-1, 0], [0, 1]], 1)).toThrow('symmetric 2×2 matrix with positive diagonal');
-    expect(() => jointConfidenceEllipse([0, 0], [[1, 0], [0, 1]], 'reduced-chi2', 2)).toThrow('needs n > 2 points, got 2');
+    expect(() =>
+      ellipsePoints(
+        [0, 0],
+        [
+          [1, 2],
+          [2, 1],
+        ],
+        1,
+      ),
+    ).toThrow('ellipsePoints: the covariance is not positive definite');
+    expect(() =>
+      ellipsePoints(
+        [0, 0],
+        [
+          [-1, 0],
+          [0, 1],
+        ],
+        1,
+      ),
+    ).toThrow('symmetric 2×2 matrix with positive diagonal');
+    expect(() =>
+      jointConfidenceEllipse(
+        [0, 0],
+        [
+          [1, 0],
+          [0, 1],
+        ],
+        'reduced-chi2',
+        2,
+      ),
+    ).toThrow('needs n > 2 points, got 2');
   });
 });

@@ -27,11 +27,18 @@ export interface GasFitResult extends LjFitResult {
 /** Posterior draws kept on the result for plots (a few hundred keep the stored result small). */
 const DRAWS_KEPT = 400;
 
-export function gasPhaseFit(measurementSets: FitMeasurementSet[], options: GasFitOptions, onProgress?: (p: { fraction: number; stage: string }) => void): GasFitResult {
+export function gasPhaseFit(
+  measurementSets: FitMeasurementSet[],
+  options: GasFitOptions,
+  onProgress?: (p: { fraction: number; stage: string }) => void,
+): GasFitResult {
   const { model, fitRepulsiveExponent, posterior, ...fitOptions } = options;
-  const report = (from: number, to: number) => (p: { fraction: number; stage: string }) => onProgress?.({ fraction: from + (to - from) * p.fraction, stage: p.stage });
+  const report = (from: number, to: number) => (p: { fraction: number; stage: string }) =>
+    onProgress?.({ fraction: from + (to - from) * p.fraction, stage: p.stage });
   const fit: GasFitResult =
-    model === 'mie' && fitRepulsiveExponent ? fitMieWithExponent(measurementSets, fitOptions, report(0, 0.6)) : fitLennardJones(measurementSets, fitOptions, report(0, 0.6));
+    model === 'mie' && fitRepulsiveExponent
+      ? fitMieWithExponent(measurementSets, fitOptions, report(0, 0.6))
+      : fitLennardJones(measurementSets, fitOptions, report(0, 0.6));
   if (fit.status !== 'succeeded') return fit;
   const lenient = <T>(what: string, compute: () => T): T | undefined => {
     try {
@@ -41,15 +48,30 @@ export function gasPhaseFit(measurementSets: FitMeasurementSet[], options: GasFi
       return undefined;
     }
   };
-  const context = { molarMassGPerMol: fitOptions.molarMassGPerMol, quantumCorrection: fitOptions.quantumCorrection ?? false, ...(fit.repulsiveExponent !== undefined && fit.repulsiveExponent !== 12 ? { repulsiveExponent: fit.repulsiveExponent } : {}) };
+  const context = {
+    molarMassGPerMol: fitOptions.molarMassGPerMol,
+    quantumCorrection: fitOptions.quantumCorrection ?? false,
+    ...(fit.repulsiveExponent !== undefined && fit.repulsiveExponent !== 12 ? { repulsiveExponent: fit.repulsiveExponent } : {}),
+  };
   const points = fit.perMeasurementSet.reduce((s, d) => s + d.points, 0);
   const free = 2 - fit.heldParameters.length + (fitRepulsiveExponent ? 1 : 0);
-  fit.criterion = informationCriteria(fit.model === 'mie' ? `Mie ${fitRepulsiveExponent ? 'λr-6 (λr fitted)' : `${fit.repulsiveExponent}-6`}` : 'LJ 12-6', fit.chi2, points, free);
+  fit.criterion = informationCriteria(
+    fit.model === 'mie' ? `Mie ${fitRepulsiveExponent ? 'λr-6 (λr fitted)' : `${fit.repulsiveExponent}-6`}` : 'LJ 12-6',
+    fit.chi2,
+    points,
+    free,
+  );
   if (posterior) {
     onProgress?.({ fraction: 0.65, stage: 'sampling the posterior' });
     fit.posterior = lenient('the posterior', () => {
-      const p = ljPosterior(measurementSets, { ...fitOptions, repulsiveExponent: fit.repulsiveExponent }, fit, { ...posterior, drawsReturned: DRAWS_KEPT });
-      if (fitRepulsiveExponent) p.messages.push(`ε and σ were sampled at the best λr = ${fit.repulsiveExponent?.toFixed(2)}; λr itself is not sampled, so these intervals do not include its uncertainty.`);
+      const p = ljPosterior(measurementSets, { ...fitOptions, repulsiveExponent: fit.repulsiveExponent }, fit, {
+        ...posterior,
+        drawsReturned: DRAWS_KEPT,
+      });
+      if (fitRepulsiveExponent)
+        p.messages.push(
+          `ε and σ were sampled at the best λr = ${fit.repulsiveExponent?.toFixed(2)}; λr itself is not sampled, so these intervals do not include its uncertainty.`,
+        );
       return p;
     });
   }
@@ -60,7 +82,14 @@ export function gasPhaseFit(measurementSets: FitMeasurementSet[], options: GasFi
   }
   onProgress?.({ fraction: 0.95, stage: 'ranking the next measurements' });
   fit.nextMeasurements = lenient('the next-measurement ranking', () =>
-    rankNextMeasurements(fit, measurementSets, context, fit.model === 'mie' ? { kinds: ['b2'] } : { kinds: (['b2', 'viscosity'] as const).filter((k) => k === 'b2' || context.molarMassGPerMol !== undefined) }),
+    rankNextMeasurements(
+      fit,
+      measurementSets,
+      context,
+      fit.model === 'mie'
+        ? { kinds: ['b2'] }
+        : { kinds: (['b2', 'viscosity'] as const).filter((k) => k === 'b2' || context.molarMassGPerMol !== undefined) },
+    ),
   );
   onProgress?.({ fraction: 1, stage: 'done' });
   return fit;

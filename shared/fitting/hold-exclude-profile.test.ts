@@ -25,7 +25,8 @@ function measurementSet(u: (b2: number) => number, seed = 7, epsilonK = 210, sig
   };
 }
 
-const chi2Of = (d: FitMeasurementSet, eps: number, sigma: number) => d.rows.reduce((s, r) => s + ((b2WithGradient(r.temperatureK, eps, sigma).b2Cm3PerMol - r.value) / r.uncertainty) ** 2, 0);
+const chi2Of = (d: FitMeasurementSet, eps: number, sigma: number) =>
+  d.rows.reduce((s, r) => s + ((b2WithGradient(r.temperatureK, eps, sigma).b2Cm3PerMol - r.value) / r.uncertainty) ** 2, 0);
 
 describe('holding a parameter', () => {
   const data = measurementSet(() => 2);
@@ -51,7 +52,10 @@ describe('holding a parameter', () => {
     // (Press et al., "Numerical Recipes", 3rd ed. (2007), §15.4, from memory).
     const h = 1e-4 * held.epsilonK;
     const sumJ2 = data.rows.reduce((s, r) => {
-      const d = (b2WithGradient(r.temperatureK, held.epsilonK + h, 3.85).b2Cm3PerMol - b2WithGradient(r.temperatureK, held.epsilonK - h, 3.85).b2Cm3PerMol) / (2 * h);
+      const d =
+        (b2WithGradient(r.temperatureK, held.epsilonK + h, 3.85).b2Cm3PerMol -
+          b2WithGradient(r.temperatureK, held.epsilonK - h, 3.85).b2Cm3PerMol) /
+        (2 * h);
       return s + (d / r.uncertainty) ** 2;
     }, 0);
     const expected = Math.sqrt(held.chi2 / (TEMPERATURES.length - 1) / sumJ2);
@@ -66,7 +70,9 @@ describe('holding a parameter', () => {
   });
 
   it('refuses holding both parameters', () => {
-    expect(() => fitLennardJones([data], { fixed: { epsilonK: 200, sigmaAngstrom: 3.8 } })).toThrow(/only one of epsilonK and sigmaAngstrom can be held/);
+    expect(() => fitLennardJones([data], { fixed: { epsilonK: 200, sigmaAngstrom: 3.8 } })).toThrow(
+      /only one of epsilonK and sigmaAngstrom can be held/,
+    );
   });
 });
 
@@ -86,7 +92,8 @@ describe('leaving rows out', () => {
     expect(leftOut.residuals).toHaveLength(TEMPERATURES.length);
     const flagged = leftOut.residuals.filter((r) => r.excluded);
     expect(flagged.map((r) => r.rowNumber)).toEqual([2, 7]);
-    for (const r of flagged) expect(r.predicted).toBeCloseTo(b2WithGradient(r.temperatureK, leftOut.epsilonK, leftOut.sigmaAngstrom).b2Cm3PerMol, 8);
+    for (const r of flagged)
+      expect(r.predicted).toBeCloseTo(b2WithGradient(r.temperatureK, leftOut.epsilonK, leftOut.sigmaAngstrom).b2Cm3PerMol, 8);
     // χ² is the sum over the counted rows only.
     const counted = leftOut.residuals.filter((r) => !r.excluded).reduce((s, r) => s + r.residual ** 2, 0);
     expect(counted).toBeCloseTo(leftOut.chi2, 8);
@@ -107,9 +114,15 @@ describe('leaving rows out', () => {
 describe('profile χ²', () => {
   it('on an exactly quadratic χ² gives best ± √(threshold·C_aa) with the other parameter re-optimised', () => {
     // χ²(a, b) = χ²min + [Δa Δb] C⁻¹ [Δa Δb]ᵀ; minimised over b, Δχ² = Δa²/C_aa (Press et al. 2007, §15.6.5, from memory).
-    const C = [[4, 1.8], [1.8, 1]];
+    const C = [
+      [4, 1.8],
+      [1.8, 1],
+    ];
     const det = C[0][0] * C[1][1] - C[0][1] * C[1][0];
-    const inv = [[C[1][1] / det, -C[0][1] / det], [-C[1][0] / det, C[0][0] / det]];
+    const inv = [
+      [C[1][1] / det, -C[0][1] / det],
+      [-C[1][0] / det, C[0][0] / det],
+    ];
     const chi2 = (a: number, b: number) => 12 + inv[0][0] * (a - 5) ** 2 + 2 * inv[0][1] * (a - 5) * (b - 2) + inv[1][1] * (b - 2) ** 2;
     const curve = profileChi2({
       best: 5,

@@ -37,9 +37,10 @@ describe('weightedLeastSquares on NIST StRD nonlinear regression datasets', () =
     const problem = curveFitProblem({ x: MISRA1A.x, y: MISRA1A.y, uncertainty: MISRA1A.x.map(() => 1) }, exponentialRise, ['b1', 'b2']);
     const fit = weightedLeastSquares(problem, { initialParameters: MISRA1A.starts[1] });
     const factor = fit.chi2 / fit.dof;
-    for (let a = 0; a < 2; a++) for (let b = 0; b < 2; b++) {
-      expect(fit.covarianceScaled![a][b]).toBeCloseTo(fit.covarianceUnscaled![a][b] * factor, 20);
-    }
+    for (let a = 0; a < 2; a++)
+      for (let b = 0; b < 2; b++) {
+        expect(fit.covarianceScaled![a][b]).toBeCloseTo(fit.covarianceUnscaled![a][b] * factor, 20);
+      }
     const c = fit.covariance!;
     expect(fit.correlation![0][1]).toBeCloseTo(c[0][1] / Math.sqrt(c[0][0] * c[1][1]), 12);
     expect(Math.abs(fit.correlation![0][1])).toBeLessThan(1);
@@ -76,9 +77,10 @@ describe('covariance (JᵀWJ)⁻¹ against a finite-difference Hessian of χ²/2
     const fit = weightedLeastSquares(problem, { initialParameters: [150, 0.6] });
     const chi2 = (b: number[]) => Array.from(problem.evaluate(b).residuals).reduce((s, r) => s + r * r, 0);
     const fd = finiteDifferenceCovariance(chi2, fit.parameters);
-    for (let a = 0; a < 2; a++) for (let b = 0; b < 2; b++) {
-      expect(relativeError(fit.covarianceUnscaled![a][b], fd[a][b])).toBeLessThan(1e-6);
-    }
+    for (let a = 0; a < 2; a++)
+      for (let b = 0; b < 2; b++) {
+        expect(relativeError(fit.covarianceUnscaled![a][b], fd[a][b])).toBeLessThan(1e-6);
+      }
   });
 
   // With residuals the exact Hessian also holds Σ r_i ∇²r_i, which (JᵀJ) leaves out (Bates & Watts 1988, §2.2.1);
@@ -88,9 +90,10 @@ describe('covariance (JᵀWJ)⁻¹ against a finite-difference Hessian of χ²/2
     const fit = weightedLeastSquares(problem, { initialParameters: MISRA1A.starts[0] });
     const chi2 = (b: number[]) => Array.from(problem.evaluate(b).residuals).reduce((s, r) => s + r * r, 0);
     const fd = finiteDifferenceCovariance(chi2, fit.parameters);
-    for (let a = 0; a < 2; a++) for (let b = 0; b < 2; b++) {
-      expect(relativeError(fit.covarianceUnscaled![a][b], fd[a][b])).toBeLessThan(1e-2);
-    }
+    for (let a = 0; a < 2; a++)
+      for (let b = 0; b < 2; b++) {
+        expect(relativeError(fit.covarianceUnscaled![a][b], fd[a][b])).toBeLessThan(1e-2);
+      }
   });
 });
 
@@ -122,7 +125,8 @@ describe('weights', () => {
 });
 
 describe('trouble is reported, not hidden', () => {
-  const misraProblem = () => curveFitProblem({ x: MISRA1A.x, y: MISRA1A.y, uncertainty: MISRA1A.x.map(() => 0.1) }, exponentialRise, ['b1', 'b2']);
+  const misraProblem = () =>
+    curveFitProblem({ x: MISRA1A.x, y: MISRA1A.y, uncertainty: MISRA1A.x.map(() => 0.1) }, exponentialRise, ['b1', 'b2']);
 
   it('a solution on a bound is flagged in hitBounds and warnings', () => {
     const fit = weightedLeastSquares(misraProblem(), { initialParameters: [180, 5e-4], upperBounds: [200, 1], lowerBounds: [0, 0] });
@@ -190,16 +194,37 @@ describe('trouble is reported, not hidden', () => {
 describe('input validation', () => {
   const problem = curveFitProblem({ x: [1, 2, 3], y: [1, 2, 3], uncertainty: [1, 1, 1] }, exponentialRise, ['b1', 'b2']);
   it.each([
-    [() => weightedLeastSquares(curveFitProblem({ x: [1], y: [1], uncertainty: [1] }, exponentialRise, ['b1', 'b2']), { initialParameters: [1, 1] }), 'too few points: 1 point(s) for 2 parameter(s); need at least 2'],
+    [
+      () =>
+        weightedLeastSquares(curveFitProblem({ x: [1], y: [1], uncertainty: [1] }, exponentialRise, ['b1', 'b2']), {
+          initialParameters: [1, 1],
+        }),
+      'too few points: 1 point(s) for 2 parameter(s); need at least 2',
+    ],
     [() => weightedLeastSquares(problem, { initialParameters: [1] }), 'expected 2 starting values, got 1'],
     [() => weightedLeastSquares(problem, { initialParameters: [1, NaN] }), 'starting values must be finite numbers'],
-    [() => weightedLeastSquares(problem, { initialParameters: [1, 1], lowerBounds: [0, 2], upperBounds: [5, 1] }), 'bounds of b2 must satisfy lower < upper, got [2, 1]'],
+    [
+      () => weightedLeastSquares(problem, { initialParameters: [1, 1], lowerBounds: [0, 2], upperBounds: [5, 1] }),
+      'bounds of b2 must satisfy lower < upper, got [2, 1]',
+    ],
     [() => weightedLeastSquares(problem, { initialParameters: [1, 1], lowerBounds: [0] }), 'bounds must have 2 entries each'],
-    [() => weightedLeastSquares(problem, { initialParameters: [1, 1], maxIterations: 0 }), 'maxIterations must be a positive integer, got 0'],
-    [() => weightedLeastSquares(problem, { initialParameters: [1, 1], parameterTolerance: 2 }), 'parameterTolerance must lie in (0, 1), got 2'],
+    [
+      () => weightedLeastSquares(problem, { initialParameters: [1, 1], maxIterations: 0 }),
+      'maxIterations must be a positive integer, got 0',
+    ],
+    [
+      () => weightedLeastSquares(problem, { initialParameters: [1, 1], parameterTolerance: 2 }),
+      'parameterTolerance must lie in (0, 1), got 2',
+    ],
     [() => weightedLeastSquares(problem, { initialParameters: [1, 1], initialDamping: 0 }), 'initialDamping must be positive, got 0'],
-    [() => curveFitProblem({ x: [1, 2], y: [1, 2], uncertainty: [1, 0] }, exponentialRise, ['b1', 'b2']), 'uncertainty of point 1 must be a positive finite number, got 0'],
-    [() => curveFitProblem({ x: [1, 2], y: [1], uncertainty: [1, 1] }, exponentialRise, ['b1', 'b2']), 'x, y and uncertainty must have the same length (got 2, 1, 2)'],
+    [
+      () => curveFitProblem({ x: [1, 2], y: [1, 2], uncertainty: [1, 0] }, exponentialRise, ['b1', 'b2']),
+      'uncertainty of point 1 must be a positive finite number, got 0',
+    ],
+    [
+      () => curveFitProblem({ x: [1, 2], y: [1], uncertainty: [1, 1] }, exponentialRise, ['b1', 'b2']),
+      'x, y and uncertainty must have the same length (got 2, 1, 2)',
+    ],
   ])('throws LeastSquaresInputError (%#)', (call, message) => {
     expect(call).toThrow(LeastSquaresInputError);
     expect(call).toThrow(message);

@@ -117,9 +117,13 @@ export function weightedLeastSquares(problem: WeightedResidualProblem, options: 
   const start = [...options.initialParameters];
   if (p === 0) throw new LeastSquaresInputError('bad-option', 'at least one parameter is needed');
   if (start.length !== p) throw new LeastSquaresInputError('bad-start', `expected ${p} starting values, got ${start.length}`);
-  if (!start.every(Number.isFinite)) throw new LeastSquaresInputError('bad-start', `starting values must be finite numbers, got [${start.join(', ')}]`);
+  if (!start.every(Number.isFinite))
+    throw new LeastSquaresInputError('bad-start', `starting values must be finite numbers, got [${start.join(', ')}]`);
   if (n < p || n < 2) {
-    throw new LeastSquaresInputError('too-few-points', `too few points: ${n} point(s) for ${p} parameter(s); need at least ${Math.max(p, 2)}`);
+    throw new LeastSquaresInputError(
+      'too-few-points',
+      `too few points: ${n} point(s) for ${p} parameter(s); need at least ${Math.max(p, 2)}`,
+    );
   }
   const lower = options.lowerBounds ? [...options.lowerBounds] : new Array<number>(p).fill(-Infinity);
   const upper = options.upperBounds ? [...options.upperBounds] : new Array<number>(p).fill(Infinity);
@@ -132,15 +136,18 @@ export function weightedLeastSquares(problem: WeightedResidualProblem, options: 
   const maxIterations = options.maxIterations ?? 200;
   const tolerance = options.parameterTolerance ?? 1e-10;
   const scaling = options.covarianceScaling ?? 'reduced-chi2';
-  if (!(Number.isInteger(maxIterations) && maxIterations >= 1)) throw new LeastSquaresInputError('bad-option', `maxIterations must be a positive integer, got ${maxIterations}`);
-  if (!(tolerance > 0 && tolerance < 1)) throw new LeastSquaresInputError('bad-option', `parameterTolerance must lie in (0, 1), got ${tolerance}`);
+  if (!(Number.isInteger(maxIterations) && maxIterations >= 1))
+    throw new LeastSquaresInputError('bad-option', `maxIterations must be a positive integer, got ${maxIterations}`);
+  if (!(tolerance > 0 && tolerance < 1))
+    throw new LeastSquaresInputError('bad-option', `parameterTolerance must lie in (0, 1), got ${tolerance}`);
   let damping = options.initialDamping ?? 1e-2;
   if (!(damping > 0)) throw new LeastSquaresInputError('bad-option', `initialDamping must be positive, got ${damping}`);
 
   const warnings: string[] = [];
   for (let k = 0; k < p; k++) {
     const clamped = Math.min(Math.max(start[k], lower[k]), upper[k]);
-    if (clamped !== start[k]) warnings.push(`starting value of ${names[k]} (${start[k]}) lay outside its bounds and was moved to ${clamped}`);
+    if (clamped !== start[k])
+      warnings.push(`starting value of ${names[k]} (${start[k]}) lay outside its bounds and was moved to ${clamped}`);
     start[k] = clamped;
   }
 
@@ -162,7 +169,9 @@ export function weightedLeastSquares(problem: WeightedResidualProblem, options: 
       evaluation = null; // a model that cannot be evaluated there counts as an infinitely bad point
     }
     if (evaluation && (evaluation.residuals.length !== n || evaluation.jacobian.length !== n)) {
-      throw new Error(`the problem returned ${evaluation.residuals.length} residuals and ${evaluation.jacobian.length} Jacobian rows for ${n} points`);
+      throw new Error(
+        `the problem returned ${evaluation.residuals.length} residuals and ${evaluation.jacobian.length} Jacobian rows for ${n} points`,
+      );
     }
     if (evaluation && !allFinite(evaluation)) evaluation = null;
     if (cache.size > 8) cache.delete(cache.keys().next().value as string);
@@ -273,11 +282,16 @@ export function weightedLeastSquares(problem: WeightedResidualProblem, options: 
       );
     }
   }
-  if (dof === 0) warnings.push(`too few points: ${n} point(s) for ${p} parameter(s) leave no degrees of freedom, so χ²/ν and the scaled covariance are undefined`);
+  if (dof === 0)
+    warnings.push(
+      `too few points: ${n} point(s) for ${p} parameter(s) leave no degrees of freedom, so χ²/ν and the scaled covariance are undefined`,
+    );
 
   const cov = covarianceFromJacobian(jacobian, chi2, dof);
   if (cov.singular) {
-    warnings.push(`singular Jacobian (singular-value ratio ${cov.singularValueRatio.toExponential(2)}): the data do not determine all parameters, so no covariance is given`);
+    warnings.push(
+      `singular Jacobian (singular-value ratio ${cov.singularValueRatio.toExponential(2)}): the data do not determine all parameters, so no covariance is given`,
+    );
   }
   const covariance = scaling === 'reduced-chi2' ? cov.scaled : cov.unscaled;
   const reducedChi2 = dof > 0 ? chi2 / dof : null;
@@ -324,10 +338,14 @@ export type CurveModel = (x: number, parameters: readonly number[]) => { value: 
 export function curveFitProblem(data: CurveData, model: CurveModel, parameterNames: readonly string[]): WeightedResidualProblem {
   const n = data.x.length;
   if (data.y.length !== n || data.uncertainty.length !== n) {
-    throw new LeastSquaresInputError('bad-option', `x, y and uncertainty must have the same length (got ${n}, ${data.y.length}, ${data.uncertainty.length})`);
+    throw new LeastSquaresInputError(
+      'bad-option',
+      `x, y and uncertainty must have the same length (got ${n}, ${data.y.length}, ${data.uncertainty.length})`,
+    );
   }
   data.uncertainty.forEach((u, i) => {
-    if (!(u > 0) || !Number.isFinite(u)) throw new LeastSquaresInputError('bad-option', `uncertainty of point ${i} must be a positive finite number, got ${u}`);
+    if (!(u > 0) || !Number.isFinite(u))
+      throw new LeastSquaresInputError('bad-option', `uncertainty of point ${i} must be a positive finite number, got ${u}`);
   });
   return {
     parameterNames,

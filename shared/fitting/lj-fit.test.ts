@@ -27,7 +27,10 @@ function finiteDifferenceCovariance(measurementSets: FitMeasurementSet[], fit: L
       (sum, d) =>
         sum +
         d.rows.reduce((s, r) => {
-          const model = d.kind === 'b2' ? b2WithGradient(r.temperatureK, eps, sigma).b2Cm3PerMol : viscosityWithGradient(r.temperatureK, eps, sigma, molarMassGPerMol as number).viscosityMicroPaS;
+          const model =
+            d.kind === 'b2'
+              ? b2WithGradient(r.temperatureK, eps, sigma).b2Cm3PerMol
+              : viscosityWithGradient(r.temperatureK, eps, sigma, molarMassGPerMol as number).viscosityMicroPaS;
           return s + (((model - r.value) * (d.weight ?? 1)) / r.uncertainty) ** 2;
         }, 0),
       0,
@@ -44,7 +47,13 @@ function finiteDifferenceCovariance(measurementSets: FitMeasurementSet[], fit: L
   return inverse(hessian).to2DArray();
 }
 
-function syntheticB2(epsilonK: number, sigmaAngstrom: number, temperatures: number[], u: (b2: number) => number, gauss: () => number): FitMeasurementSet {
+function syntheticB2(
+  epsilonK: number,
+  sigmaAngstrom: number,
+  temperatures: number[],
+  u: (b2: number) => number,
+  gauss: () => number,
+): FitMeasurementSet {
   return {
     id: 'synthetic-b2',
     kind: 'b2',
@@ -56,7 +65,14 @@ function syntheticB2(epsilonK: number, sigmaAngstrom: number, temperatures: numb
   };
 }
 
-function syntheticViscosity(epsilonK: number, sigmaAngstrom: number, molarMass: number, temperatures: number[], relativeU: number, gauss: () => number): FitMeasurementSet {
+function syntheticViscosity(
+  epsilonK: number,
+  sigmaAngstrom: number,
+  molarMass: number,
+  temperatures: number[],
+  relativeU: number,
+  gauss: () => number,
+): FitMeasurementSet {
   return {
     id: 'synthetic-eta',
     kind: 'viscosity',
@@ -102,7 +118,7 @@ describe('fitLennardJones on argon B2 (CRC / Dymond & Smith 1980)', () => {
 
   it('standard errors match a finite-difference Hessian of χ²/2 (scaled by χ²/ν as reported)', () => {
     const fd = finiteDifferenceCovariance([argonMeasurementSet()], fit);
-    const scale = (fit.reducedChi2 as number);
+    const scale = fit.reducedChi2 as number;
     // The Gauss–Newton covariance leaves out Σ r ∇²r; on this real data set it matters at the percent level.
     expect(Math.abs(Math.sqrt(fd[0][0] * scale) / (fit.stdErr.epsilonK as number) - 1)).toBeLessThan(0.05);
     expect(Math.abs(Math.sqrt(fd[1][1] * scale) / (fit.stdErr.sigmaAngstrom as number) - 1)).toBeLessThan(0.05);
@@ -128,14 +144,21 @@ describe('fitLennardJones on synthetic data', () => {
   const temperatures = [90, 100, 115, 130, 150, 170, 190, 220, 250, 285, 320, 360, 410, 470, 540, 620, 720, 850, 1000, 1200];
 
   it('covariance equals a finite-difference inverse Hessian of χ²/2 on noise-free data (where Gauss–Newton is exact)', () => {
-    const data = syntheticB2(TRUE_EPS, TRUE_SIGMA, temperatures.slice(0, 10), (b) => 1 + 0.01 * Math.abs(b), () => 0);
+    const data = syntheticB2(
+      TRUE_EPS,
+      TRUE_SIGMA,
+      temperatures.slice(0, 10),
+      (b) => 1 + 0.01 * Math.abs(b),
+      () => 0,
+    );
     const fit = fitLennardJones([data], { restarts: 0 });
     expect(fit.epsilonK).toBeCloseTo(TRUE_EPS, 6);
     expect(fit.sigmaAngstrom).toBeCloseTo(TRUE_SIGMA, 8);
     const fd = finiteDifferenceCovariance([data], fit);
-    for (let a = 0; a < 2; a++) for (let b = 0; b < 2; b++) {
-      expect(Math.abs(fit.covarianceUnscaled![a][b] / fd[a][b] - 1)).toBeLessThan(1e-3);
-    }
+    for (let a = 0; a < 2; a++)
+      for (let b = 0; b < 2; b++) {
+        expect(Math.abs(fit.covarianceUnscaled![a][b] / fd[a][b] - 1)).toBeLessThan(1e-3);
+      }
   });
 
   it('recovers (ε, σ) within two reported standard errors in at least 90 % of 50 seeded noisy trials', () => {
@@ -178,7 +201,13 @@ describe('fitLennardJones on synthetic data', () => {
     expect(Math.abs(joint.sigmaAngstrom - TRUE_SIGMA)).toBeLessThan(4 * (joint.stdErr.sigmaAngstrom as number));
     // At the same parameters, unscaled variances can only shrink when data are added (JᵀWJ grows by a
     // positive semidefinite term): noise-free copies put all three fits on the true point.
-    const exactB2 = syntheticB2(TRUE_EPS, TRUE_SIGMA, temperatures.slice(0, 12), (b) => 1 + 0.02 * Math.abs(b), () => 0);
+    const exactB2 = syntheticB2(
+      TRUE_EPS,
+      TRUE_SIGMA,
+      temperatures.slice(0, 12),
+      (b) => 1 + 0.02 * Math.abs(b),
+      () => 0,
+    );
     const exactEta = syntheticViscosity(TRUE_EPS, TRUE_SIGMA, molarMass, [150, 250, 400, 600, 900, 1300], 0.005, () => 0);
     const jointExact = fitLennardJones([exactB2, exactEta], options);
     const b2Only = fitLennardJones([exactB2], options);
@@ -193,7 +222,13 @@ describe('fitLennardJones on synthetic data', () => {
   });
 
   it('automatic starting values work without a B2 sign change (all points below the Boyle temperature)', () => {
-    const data = syntheticB2(TRUE_EPS, TRUE_SIGMA, [100, 120, 140, 160, 180, 200, 250, 300], () => 1, () => 0);
+    const data = syntheticB2(
+      TRUE_EPS,
+      TRUE_SIGMA,
+      [100, 120, 140, 160, 180, 200, 250, 300],
+      () => 1,
+      () => 0,
+    );
     expect(boyleTemperatureFromB2(data.rows.map((r) => ({ kind: 'b2' as const, ...r })))).toBeNull();
     const fit = fitLennardJones([data], { restarts: 0 });
     expect(fit.start.method).toContain('epsilon scan');
@@ -203,7 +238,13 @@ describe('fitLennardJones on synthetic data', () => {
   });
 
   it('with a B2 sign change the start comes from the Boyle temperature (T_B / T*_B)', () => {
-    const data = syntheticB2(TRUE_EPS, TRUE_SIGMA, [150, 250, 350, 450, 600, 800], () => 1, () => 0);
+    const data = syntheticB2(
+      TRUE_EPS,
+      TRUE_SIGMA,
+      [150, 250, 350, 450, 600, 800],
+      () => 1,
+      () => 0,
+    );
     const fit = fitLennardJones([data], { restarts: 0 });
     expect(fit.start.method).toContain('Boyle temperature');
     expect(Math.abs(fit.start.epsilonK / TRUE_EPS - 1)).toBeLessThan(0.05);
@@ -233,7 +274,19 @@ describe('fitLennardJones reports trouble', () => {
   });
 
   it('two points fit exactly but leave no degrees of freedom, which is said', () => {
-    const fit = fitLennardJones([{ id: 1, kind: 'b2', rows: [{ temperatureK: 150, value: -86, uncertainty: 2 }, { temperatureK: 600, value: 12, uncertainty: 1 }] }], { restarts: 0 });
+    const fit = fitLennardJones(
+      [
+        {
+          id: 1,
+          kind: 'b2',
+          rows: [
+            { temperatureK: 150, value: -86, uncertainty: 2 },
+            { temperatureK: 600, value: 12, uncertainty: 1 },
+          ],
+        },
+      ],
+      { restarts: 0 },
+    );
     expect(fit.dof).toBe(0);
     expect(fit.ellipse95).toBeNull();
     expect(fit.warnings.join('\n')).toContain('leave no degrees of freedom');
@@ -252,16 +305,46 @@ describe('fitLennardJones input validation', () => {
   const row = { temperatureK: 300, value: 10, uncertainty: 1 };
   it.each([
     [[], {}, 'no-data', 'no measurement sets to fit'],
-    [[{ id: 'e', kind: 'viscosity', rows: [row, row, row] }], {}, 'missing-molar-mass', 'measurement set e: fitting the dilute-gas viscosity needs the molar mass (molarMassGPerMol)'],
-    [[{ id: 'b', kind: 'b2', rows: [row, row, row] }], { quantumCorrection: true }, 'missing-molar-mass', 'the quantum correction to B2 needs the molar mass'],
-    [[{ id: 'b', kind: 'b2', rows: [row, { ...row, uncertainty: 0 }] }], {}, 'bad-uncertainty', 'measurement set b, row 2: uncertainty must be a positive finite number, got 0'],
+    [
+      [{ id: 'e', kind: 'viscosity', rows: [row, row, row] }],
+      {},
+      'missing-molar-mass',
+      'measurement set e: fitting the dilute-gas viscosity needs the molar mass (molarMassGPerMol)',
+    ],
+    [
+      [{ id: 'b', kind: 'b2', rows: [row, row, row] }],
+      { quantumCorrection: true },
+      'missing-molar-mass',
+      'the quantum correction to B2 needs the molar mass',
+    ],
+    [
+      [{ id: 'b', kind: 'b2', rows: [row, { ...row, uncertainty: 0 }] }],
+      {},
+      'bad-uncertainty',
+      'measurement set b, row 2: uncertainty must be a positive finite number, got 0',
+    ],
     [[{ id: 'b', kind: 'b2', rows: [row, { ...row, uncertainty: -1 }] }], {}, 'bad-uncertainty', 'got -1'],
     [[{ id: 'b', kind: 'b2', rows: [row] }], {}, 'too-few-points', 'too few points: 1 point(s) for 2 parameters'],
     [[{ id: 'x', kind: 'enthalpy', rows: [row, row] }], {}, 'unknown-kind', 'measurement set x: unknown kind "enthalpy"'],
-    [[{ id: 'd', kind: 'density', rows: [row, row] }], { molarMassGPerMol: 40 }, 'bad-value', 'measurement set d, row 1: the fluid density (LJ equation of state) needs a positive pressureMPa'],
-    [[{ id: 'b', kind: 'b2', rows: [row, { ...row, temperatureK: -5 }] }], {}, 'bad-value', 'temperatureK must be a positive finite number, got -5'],
+    [
+      [{ id: 'd', kind: 'density', rows: [row, row] }],
+      { molarMassGPerMol: 40 },
+      'bad-value',
+      'measurement set d, row 1: the fluid density (LJ equation of state) needs a positive pressureMPa',
+    ],
+    [
+      [{ id: 'b', kind: 'b2', rows: [row, { ...row, temperatureK: -5 }] }],
+      {},
+      'bad-value',
+      'temperatureK must be a positive finite number, got -5',
+    ],
     [[{ id: 'b', kind: 'b2', weight: 0, rows: [row, row] }], {}, 'bad-weight', 'weight must be a positive finite number, got 0'],
-    [[{ id: 'b', kind: 'b2', rows: [row, row] }], { bounds: { epsilonK: [10, 5], sigmaAngstrom: [1, 5] } }, 'bad-option', 'bounds.epsilonK must satisfy 0 < lower < upper'],
+    [
+      [{ id: 'b', kind: 'b2', rows: [row, row] }],
+      { bounds: { epsilonK: [10, 5], sigmaAngstrom: [1, 5] } },
+      'bad-option',
+      'bounds.epsilonK must satisfy 0 < lower < upper',
+    ],
     [[{ id: 'b', kind: 'b2', rows: [row, row] }], { restarts: -1 }, 'bad-option', 'restarts must be a non-negative integer, got -1'],
   ])('rejects invalid input (%#)', (measurementSets, options, code, message) => {
     const call = () => fitLennardJones(measurementSets as FitMeasurementSet[], options as never);

@@ -8,7 +8,14 @@
 import type { LjEosModelId } from '../physics/eos/lj-eos-models';
 import { jointConfidenceEllipse } from './ellipse';
 import { DEFAULT_LJ_BOUNDS as FIT_DEFAULT_BOUNDS, DEFAULT_RESTARTS } from './fit-defaults';
-import { LeastSquaresInputError, weightedLeastSquares, type Convergence, type CovarianceScaling, type LeastSquaresResult, type WeightedResidualProblem } from './least-squares';
+import {
+  LeastSquaresInputError,
+  weightedLeastSquares,
+  type Convergence,
+  type CovarianceScaling,
+  type LeastSquaresResult,
+  type WeightedResidualProblem,
+} from './least-squares';
 import { estimateLjStart, type LjBounds, type StartPoint } from './lj-starting-values';
 import { MIE_KINDS_TEXT, PROPERTY_MODELS, isFitKind, type FitKind, type PropertyContext, type PropertyModel } from './property-models';
 import { profileChi2, type ProfileCurve } from './profile-chi2';
@@ -144,14 +151,7 @@ export interface LjFitResult {
 }
 
 export type LjFitInputErrorCode =
-  | 'no-data'
-  | 'unknown-kind'
-  | 'missing-molar-mass'
-  | 'bad-uncertainty'
-  | 'bad-value'
-  | 'bad-weight'
-  | 'too-few-points'
-  | 'bad-option';
+  'no-data' | 'unknown-kind' | 'missing-molar-mass' | 'bad-uncertainty' | 'bad-value' | 'bad-weight' | 'too-few-points' | 'bad-option';
 
 /** Invalid input to fitLennardJones; `code` names the problem for callers (API error codes, UI messages). */
 export class LjFitInputError extends Error {
@@ -190,47 +190,87 @@ interface FlatPoint {
   weight: number;
 }
 
-function validate(measurementSets: readonly FitMeasurementSet[], options: LjFitOptions): { allPoints: FlatPoint[]; points: FlatPoint[]; bounds: LjBounds; context: PropertyContext; held: Array<{ index: number; value: number }> } {
+function validate(
+  measurementSets: readonly FitMeasurementSet[],
+  options: LjFitOptions,
+): {
+  allPoints: FlatPoint[];
+  points: FlatPoint[];
+  bounds: LjBounds;
+  context: PropertyContext;
+  held: Array<{ index: number; value: number }>;
+} {
   if (!measurementSets || measurementSets.length === 0) throw new LjFitInputError('no-data', 'no measurement sets to fit');
   const points: FlatPoint[] = [];
   measurementSets.forEach((measurementSet, measurementSetIndex) => {
     // Named as the person sees it when the caller gives a label (the API passes the measurement set's name).
     const name = measurementSet.label ? `measurement set "${measurementSet.label}"` : `measurement set ${String(measurementSet.id)}`;
     if (!isFitKind(measurementSet.kind)) {
-      throw new LjFitInputError('unknown-kind', `${name}: unknown kind "${String(measurementSet.kind)}"; expected one of ${Object.keys(PROPERTY_MODELS).join(', ')}`);
+      throw new LjFitInputError(
+        'unknown-kind',
+        `${name}: unknown kind "${String(measurementSet.kind)}"; expected one of ${Object.keys(PROPERTY_MODELS).join(', ')}`,
+      );
     }
     const model = PROPERTY_MODELS[measurementSet.kind];
     if (model.needsMolarMass && options.molarMassGPerMol === undefined) {
       throw new LjFitInputError('missing-molar-mass', `${name}: fitting the ${model.label} needs the molar mass (molarMassGPerMol)`);
     }
     const weight = measurementSet.weight ?? 1;
-    if (!(weight > 0) || !Number.isFinite(weight)) throw new LjFitInputError('bad-weight', `${name}: weight must be a positive finite number, got ${weight}`);
+    if (!(weight > 0) || !Number.isFinite(weight))
+      throw new LjFitInputError('bad-weight', `${name}: weight must be a positive finite number, got ${weight}`);
     const excludeRows = new Set(measurementSet.excludeRows ?? []);
     for (const r of excludeRows) {
-      if (!Number.isInteger(r) || r < 1 || r > measurementSet.rows.length) throw new LjFitInputError('bad-value', `${name}: row ${r} cannot be left out: the rows are numbered 1 to ${measurementSet.rows.length}`);
+      if (!Number.isInteger(r) || r < 1 || r > measurementSet.rows.length)
+        throw new LjFitInputError(
+          'bad-value',
+          `${name}: row ${r} cannot be left out: the rows are numbered 1 to ${measurementSet.rows.length}`,
+        );
     }
     measurementSet.rows.forEach((row, i) => {
       if (!(row.temperatureK > 0) || !Number.isFinite(row.temperatureK)) {
-        throw new LjFitInputError('bad-value', `${name}, row ${i + 1}: temperatureK must be a positive finite number, got ${row.temperatureK}`);
+        throw new LjFitInputError(
+          'bad-value',
+          `${name}, row ${i + 1}: temperatureK must be a positive finite number, got ${row.temperatureK}`,
+        );
       }
-      if (!Number.isFinite(row.value)) throw new LjFitInputError('bad-value', `${name}, row ${i + 1}: value must be a finite number, got ${row.value}`);
+      if (!Number.isFinite(row.value))
+        throw new LjFitInputError('bad-value', `${name}, row ${i + 1}: value must be a finite number, got ${row.value}`);
       if (!(row.uncertainty > 0) || !Number.isFinite(row.uncertainty)) {
-        throw new LjFitInputError('bad-uncertainty', `${name}, row ${i + 1}: uncertainty must be a positive finite number, got ${row.uncertainty}`);
+        throw new LjFitInputError(
+          'bad-uncertainty',
+          `${name}, row ${i + 1}: uncertainty must be a positive finite number, got ${row.uncertainty}`,
+        );
       }
       if (model.needsPressure && !(Number(row.pressureMPa) > 0)) {
-        throw new LjFitInputError('bad-value', `${name}, row ${i + 1}: the ${model.label} needs a positive pressureMPa, got ${row.pressureMPa}`);
+        throw new LjFitInputError(
+          'bad-value',
+          `${name}, row ${i + 1}: the ${model.label} needs a positive pressureMPa, got ${row.pressureMPa}`,
+        );
       }
-      points.push({ measurementSetIndex, measurementSetId: measurementSet.id, kind: measurementSet.kind, rowNumber: i + 1, excluded: excludeRows.has(i + 1), temperatureK: row.temperatureK, ...(row.pressureMPa !== undefined ? { pressureMPa: row.pressureMPa } : {}), value: row.value, uncertainty: row.uncertainty, weight });
+      points.push({
+        measurementSetIndex,
+        measurementSetId: measurementSet.id,
+        kind: measurementSet.kind,
+        rowNumber: i + 1,
+        excluded: excludeRows.has(i + 1),
+        temperatureK: row.temperatureK,
+        ...(row.pressureMPa !== undefined ? { pressureMPa: row.pressureMPa } : {}),
+        value: row.value,
+        uncertainty: row.uncertainty,
+        weight,
+      });
     });
   });
   const held: Array<{ index: number; value: number }> = [];
   PARAMETER_NAMES.forEach((name, index) => {
     const value = options.fixed?.[name];
     if (value === undefined) return;
-    if (!(value > 0) || !Number.isFinite(value)) throw new LjFitInputError('bad-option', `fixed.${name} must be a positive finite number, got ${value}`);
+    if (!(value > 0) || !Number.isFinite(value))
+      throw new LjFitInputError('bad-option', `fixed.${name} must be a positive finite number, got ${value}`);
     held.push({ index, value });
   });
-  if (held.length > 1) throw new LjFitInputError('bad-option', 'only one of epsilonK and sigmaAngstrom can be held; with both held there is nothing to fit');
+  if (held.length > 1)
+    throw new LjFitInputError('bad-option', 'only one of epsilonK and sigmaAngstrom can be held; with both held there is nothing to fit');
   const included = points.filter((p) => !p.excluded);
   const free = PARAMETER_NAMES.length - held.length;
   if (included.length < Math.max(free, 2)) {
@@ -256,26 +296,48 @@ function validate(measurementSets: readonly FitMeasurementSet[], options: LjFitO
   if (repulsiveExponent !== LJ_REPULSIVE_EXPONENT) {
     for (const measurementSet of measurementSets) {
       const model: PropertyModel = PROPERTY_MODELS[measurementSet.kind];
-      if (!model.supportsMie) throw new LjFitInputError('bad-option', `measurement set ${String(measurementSet.id)}: the ${model.label} model is for the LJ 12-6 potential only; a ${potentialLabel(repulsiveExponent)} fit takes ${MIE_KINDS_TEXT} data today`);
+      if (!model.supportsMie)
+        throw new LjFitInputError(
+          'bad-option',
+          `measurement set ${String(measurementSet.id)}: the ${model.label} model is for the LJ 12-6 potential only; a ${potentialLabel(repulsiveExponent)} fit takes ${MIE_KINDS_TEXT} data today`,
+        );
     }
   }
   const bounds = options.bounds ?? DEFAULT_LJ_BOUNDS;
   for (const name of PARAMETER_NAMES) {
     const [lo, hi] = bounds[name];
-    if (!(lo > 0) || !(hi > lo) || !Number.isFinite(hi)) throw new LjFitInputError('bad-option', `bounds.${name} must satisfy 0 < lower < upper < ∞, got [${lo}, ${hi}]`);
+    if (!(lo > 0) || !(hi > lo) || !Number.isFinite(hi))
+      throw new LjFitInputError('bad-option', `bounds.${name} must satisfy 0 < lower < upper < ∞, got [${lo}, ${hi}]`);
   }
   if (options.start) {
     for (const name of PARAMETER_NAMES) {
       const v = options.start[name];
-      if (!(v > 0) || !Number.isFinite(v)) throw new LjFitInputError('bad-option', `start.${name} must be a positive finite number, got ${v}`);
+      if (!(v > 0) || !Number.isFinite(v))
+        throw new LjFitInputError('bad-option', `start.${name} must be a positive finite number, got ${v}`);
     }
   }
   const restarts = options.restarts ?? DEFAULT_RESTARTS;
-  if (!Number.isInteger(restarts) || restarts < 0) throw new LjFitInputError('bad-option', `restarts must be a non-negative integer, got ${restarts}`);
-  return { allPoints: points, points: included, bounds, held, context: { molarMassGPerMol: molar, quantumCorrection: options.quantumCorrection ?? false, ...(repulsiveExponent !== LJ_REPULSIVE_EXPONENT ? { repulsiveExponent } : {}), ...(options.eosModel ? { eosModel: options.eosModel } : {}) } };
+  if (!Number.isInteger(restarts) || restarts < 0)
+    throw new LjFitInputError('bad-option', `restarts must be a non-negative integer, got ${restarts}`);
+  return {
+    allPoints: points,
+    points: included,
+    bounds,
+    held,
+    context: {
+      molarMassGPerMol: molar,
+      quantumCorrection: options.quantumCorrection ?? false,
+      ...(repulsiveExponent !== LJ_REPULSIVE_EXPONENT ? { repulsiveExponent } : {}),
+      ...(options.eosModel ? { eosModel: options.eosModel } : {}),
+    },
+  };
 }
 
-const modelPoint = (p: { temperatureK: number; pressureMPa?: number; value: number }) => ({ temperatureK: p.temperatureK, pressureMPa: p.pressureMPa, measured: p.value });
+const modelPoint = (p: { temperatureK: number; pressureMPa?: number; value: number }) => ({
+  temperatureK: p.temperatureK,
+  pressureMPa: p.pressureMPa,
+  measured: p.value,
+});
 
 function problemFor(points: readonly FlatPoint[], context: PropertyContext): WeightedResidualProblem {
   return {
@@ -345,16 +407,27 @@ export function fitLennardJones(
   if (options.start) {
     start = { ...options.start, method: 'given' };
   } else {
-    const startPoints: StartPoint[] = points.map((p) => ({ kind: p.kind, temperatureK: p.temperatureK, pressureMPa: p.pressureMPa, value: p.value, uncertainty: p.uncertainty / p.weight }));
+    const startPoints: StartPoint[] = points.map((p) => ({
+      kind: p.kind,
+      temperatureK: p.temperatureK,
+      pressureMPa: p.pressureMPa,
+      value: p.value,
+      uncertainty: p.uncertainty / p.weight,
+    }));
     const estimate = estimateLjStart(startPoints, context, bounds);
     if (estimate) {
       start = { epsilonK: estimate.epsilonK, sigmaAngstrom: estimate.sigmaAngstrom, method: estimate.method };
     } else {
-      start = { epsilonK: Math.sqrt(bounds.epsilonK[0] * bounds.epsilonK[1]), sigmaAngstrom: Math.sqrt(bounds.sigmaAngstrom[0] * bounds.sigmaAngstrom[1]), method: 'geometric middle of the bounds (no automatic estimate was possible)' };
+      start = {
+        epsilonK: Math.sqrt(bounds.epsilonK[0] * bounds.epsilonK[1]),
+        sigmaAngstrom: Math.sqrt(bounds.sigmaAngstrom[0] * bounds.sigmaAngstrom[1]),
+        method: 'geometric middle of the bounds (no automatic estimate was possible)',
+      };
       warnings.push('no automatic starting values could be found; started from the middle of the bounds');
     }
   }
-  if (heldIndex !== null) start = { ...start, [PARAMETER_NAMES[heldIndex]]: held[0].value, method: `${start.method}; ${PARAMETER_NAMES[heldIndex]} held` };
+  if (heldIndex !== null)
+    start = { ...start, [PARAMETER_NAMES[heldIndex]]: held[0].value, method: `${start.method}; ${PARAMETER_NAMES[heldIndex]} held` };
 
   const fullProblem = problemFor(points, context);
   const problem = heldIndex === null ? fullProblem : holdParameter(fullProblem, heldIndex, held[0].value);
@@ -385,7 +458,12 @@ export function fitLennardJones(
     report(0.1 + (0.7 * index) / starts.length, index === 0 ? 'fitting' : `restart ${index} of ${restarts}`);
     let fit: LeastSquaresResult;
     try {
-      fit = weightedLeastSquares(problem, { initialParameters: initial, lowerBounds, upperBounds, maxIterations: options.maxIterations ?? 200 });
+      fit = weightedLeastSquares(problem, {
+        initialParameters: initial,
+        lowerBounds,
+        upperBounds,
+        maxIterations: options.maxIterations ?? 200,
+      });
     } catch (err) {
       if (err instanceof LeastSquaresInputError) throw new LjFitInputError('bad-option', err.message);
       throw err;
@@ -402,7 +480,11 @@ export function fitLennardJones(
     start = { epsilonK: e, sigmaAngstrom: s, method: `restart ${bestIndex} (perturbed from: ${start.method})` };
   }
   // Points the model cannot predict at the final parameters (saturation at or above T*c) make the fit fail, naming them.
-  const rangeProblems = rangeProblemsAt(allPoints.filter((p) => !p.excluded), toFull(fit.parameters), context);
+  const rangeProblems = rangeProblemsAt(
+    allPoints.filter((p) => !p.excluded),
+    toFull(fit.parameters),
+    context,
+  );
   const failed = fit.convergence === 'failed' || fit.convergence === 'max-iterations' || rangeProblems.length > 0;
 
   report(0.8, 'summarising');
@@ -440,18 +522,24 @@ export function fitLennardJones(
       points: allPoints.filter((p) => p.measurementSetIndex === measurementSetIndex && !p.excluded).length,
       excludedPoints: allPoints.filter((p) => p.measurementSetIndex === measurementSetIndex && p.excluded).length,
       rms: mine.length ? Math.sqrt(mine.reduce((s, r) => s + (r.predicted - r.measured) ** 2, 0) / mine.length) : NaN,
-      aadPercent: relative.length ? relative.reduce((s, r) => s + Math.abs(r.relativeDeviationPercent as number), 0) / relative.length : null,
+      aadPercent: relative.length
+        ? relative.reduce((s, r) => s + Math.abs(r.relativeDeviationPercent as number), 0) / relative.length
+        : null,
       chi2: mine.reduce((s, r) => s + r.residual * r.residual, 0),
     };
   });
   const excludedCount = allPoints.length - points.length;
-  if (excludedCount) warnings.push(`${excludedCount} point(s) were left out by the modeller: they are shown with their predictions but not counted in χ²`);
+  if (excludedCount)
+    warnings.push(`${excludedCount} point(s) were left out by the modeller: they are shown with their predictions but not counted in χ²`);
 
   // Covariance, standard errors and correlation in (ε, σ); the held parameter's row and column are zero.
   const embed = (m: number[][] | null): number[][] | null => {
     if (!m) return null;
     if (heldIndex === null) return m;
-    const out = [[0, 0], [0, 0]];
+    const out = [
+      [0, 0],
+      [0, 0],
+    ];
     out[freeIndices[0]][freeIndices[0]] = m[0][0];
     return out;
   };
@@ -462,7 +550,9 @@ export function fitLennardJones(
 
   let ellipse95: LjFitResult['ellipse95'] = null;
   if (fit.covariance && !fit.covariance.every((row, j) => row[j] > 0)) {
-    warnings.push('χ² is zero to rounding: the data lie exactly on the model, so the scaled covariance and the confidence ellipse collapse to a point');
+    warnings.push(
+      'χ² is zero to rounding: the data lie exactly on the model, so the scaled covariance and the confidence ellipse collapse to a point',
+    );
   } else if (fit.covariance && !failed && fit.dof > 0 && heldIndex === null) {
     const ellipse = jointConfidenceEllipse([epsilonK, sigmaAngstrom], fit.covariance, fit.covarianceScaling, points.length);
     ellipse95 = {
@@ -485,8 +575,15 @@ export function fitLennardJones(
       const otherValue = toFull(fit.parameters)[other];
       const chi2At = (value: number, warm: number[]): { chi2: number; others: number[] } | null => {
         try {
-          if (!otherFree) return { chi2: sumSquares(fullProblem.evaluate(k === 0 ? [value, otherValue] : [otherValue, value]).residuals), others: [] };
-          const sub = weightedLeastSquares(holdParameter(fullProblem, k, value), { initialParameters: warm, lowerBounds: [boundsOf(other)[0]], upperBounds: [boundsOf(other)[1]], maxIterations: 100, parameterTolerance: 1e-8 });
+          if (!otherFree)
+            return { chi2: sumSquares(fullProblem.evaluate(k === 0 ? [value, otherValue] : [otherValue, value]).residuals), others: [] };
+          const sub = weightedLeastSquares(holdParameter(fullProblem, k, value), {
+            initialParameters: warm,
+            lowerBounds: [boundsOf(other)[0]],
+            upperBounds: [boundsOf(other)[1]],
+            maxIterations: 100,
+            parameterTolerance: 1e-8,
+          });
           return Number.isFinite(sub.chi2) && sub.convergence !== 'failed' ? { chi2: sub.chi2, others: sub.parameters } : null;
         } catch {
           return null;
@@ -508,8 +605,8 @@ export function fitLennardJones(
     ? rangeProblems.length > 0
       ? `the fitted parameters leave ${rangeProblems.length} point(s) outside the model: ${rangeProblems.slice(0, 5).join('; ')}${rangeProblems.length > 5 ? '; …' : ''}`
       : fit.convergence === 'max-iterations'
-      ? `the fit did not converge within ${options.maxIterations ?? 200} iterations from any of ${starts.length} start(s)`
-      : `the fit failed from all ${starts.length} start(s): ${[...new Set(solveErrors)].join('; ')}`
+        ? `the fit did not converge within ${options.maxIterations ?? 200} iterations from any of ${starts.length} start(s)`
+        : `the fit failed from all ${starts.length} start(s): ${[...new Set(solveErrors)].join('; ')}`
     : undefined;
   const quantum = quantumDiagnostics(points, { epsilonK, sigmaAngstrom, covariance }, context.molarMassGPerMol, context.quantumCorrection);
   report(1, 'done');

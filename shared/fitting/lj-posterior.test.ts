@@ -73,7 +73,7 @@ describe('posterior of LJ parameters from B2', () => {
     expect(b).toEqual(a);
   });
 
-  it('the χ² it samples is the fit\'s χ² at the optimum', () => {
+  it("the χ² it samples is the fit's χ² at the optimum", () => {
     const gauss = gaussianGenerator(mulberry32(2));
     const data = [table([120, 180, 260, 400, 700], () => 2, gauss)];
     const fit = fitLennardJones(data, FIT);

@@ -89,7 +89,11 @@ export interface ParameterSetPrior {
  * The prior of the free parameters: the bivariate Gaussian itself when both are free; with one held, the Gaussian of
  * the other conditioned on the held value (mean μ₂ + C₂₁/C₁₁·(x₁ − μ₁), variance C₂₂ − C₂₁²/C₁₁).
  */
-export function priorOnFree(prior: ParameterSetPrior | undefined, free: readonly LjParameter[], held: Record<LjParameter, number>): MultivariateGaussianPrior | undefined {
+export function priorOnFree(
+  prior: ParameterSetPrior | undefined,
+  free: readonly LjParameter[],
+  held: Record<LjParameter, number>,
+): MultivariateGaussianPrior | undefined {
   if (!prior) return undefined;
   const mean = [prior.epsilonK, prior.sigmaAngstrom];
   const c = prior.covariance;
@@ -105,13 +109,22 @@ export function priorOnFree(prior: ParameterSetPrior | undefined, free: readonly
  * linear approximation (precision-weighted mean of the two Gaussians), so a tight prior far from the data's optimum
  * does not leave the ensemble to find it during the burn-in.
  */
-export function startingBall(estimate: readonly number[], covariance: ReadonlyArray<readonly number[]> | null, prior: MultivariateGaussianPrior | undefined): { initial: number[]; spread: number[] } | null {
+export function startingBall(
+  estimate: readonly number[],
+  covariance: ReadonlyArray<readonly number[]> | null,
+  prior: MultivariateGaussianPrior | undefined,
+): { initial: number[]; spread: number[] } | null {
   if (!covariance) return null;
   const p = estimate.length;
   const inv = (m: ReadonlyArray<readonly number[]>): number[][] | null => {
     if (p === 1) return m[0][0] > 0 ? [[1 / m[0][0]]] : null;
     const det = m[0][0] * m[1][1] - m[0][1] * m[1][0];
-    return det > 0 && m[0][0] > 0 ? [[m[1][1] / det, -m[0][1] / det], [-m[1][0] / det, m[0][0] / det]] : null;
+    return det > 0 && m[0][0] > 0
+      ? [
+          [m[1][1] / det, -m[0][1] / det],
+          [-m[1][0] / det, m[0][0] / det],
+        ]
+      : null;
   };
   const a = inv(covariance);
   if (!a) return null;
@@ -125,11 +138,18 @@ export function startingBall(estimate: readonly number[], covariance: ReadonlyAr
 }
 
 /** The words for the priors of the free parameters (flat within the bounds, times the set's Gaussian when given). */
-export function priorWords(free: readonly LjParameter[], bounds: Record<LjParameter, [number, number]>, priors?: LjPosteriorOptions['priors'], set?: ParameterSetPrior): string {
+export function priorWords(
+  free: readonly LjParameter[],
+  bounds: Record<LjParameter, [number, number]>,
+  priors?: LjPosteriorOptions['priors'],
+  set?: ParameterSetPrior,
+): string {
   const words = free.map((n) => {
     const p = priors?.[n];
     const [lo, hi] = bounds[n];
-    return p ? `${LABELS[n][0]}: Gaussian ${p.mean} ± ${p.standardDeviation} ${LABELS[n][1]} within [${lo}, ${hi}]` : `${LABELS[n][0]}: flat on [${lo}, ${hi}] ${LABELS[n][1]}`;
+    return p
+      ? `${LABELS[n][0]}: Gaussian ${p.mean} ± ${p.standardDeviation} ${LABELS[n][1]} within [${lo}, ${hi}]`
+      : `${LABELS[n][0]}: flat on [${lo}, ${hi}] ${LABELS[n][1]}`;
   });
   if (set) {
     const se = [Math.sqrt(set.covariance[0][0]), Math.sqrt(set.covariance[1][1])];
@@ -148,7 +168,9 @@ export function summariseRun(
   free: readonly LjParameter[],
   held: Record<LjParameter, number>,
   drawsWanted: number,
-): Pick<LjPosterior, 'epsilonK' | 'sigmaAngstrom' | 'correlation' | 'draws' | 'credibleRegion95' | 'diagnostics'> & { samplerWarnings: string[] } {
+): Pick<LjPosterior, 'epsilonK' | 'sigmaAngstrom' | 'correlation' | 'draws' | 'credibleRegion95' | 'diagnostics'> & {
+  samplerWarnings: string[];
+} {
   const full = (x: readonly number[]): [number, number] => {
     const values: Record<LjParameter, number> = { ...held };
     free.forEach((n, k) => (values[n] = x[k]));
@@ -163,7 +185,9 @@ export function summariseRun(
   let correlation: number | null = null;
   if (free.length === 2) {
     const [a, b] = [summaries.epsilonK, summaries.sigmaAngstrom];
-    correlation = run.samples.reduce((s, x) => s + (x[0] - a.mean) * (x[1] - b.mean), 0) / ((run.samples.length - 1) * a.standardDeviation * b.standardDeviation);
+    correlation =
+      run.samples.reduce((s, x) => s + (x[0] - a.mean) * (x[1] - b.mean), 0) /
+      ((run.samples.length - 1) * a.standardDeviation * b.standardDeviation);
   }
   const stride = Math.max(1, Math.floor(run.samples.length / drawsWanted));
   const draws: LjPosterior['draws'] = [];
@@ -171,7 +195,8 @@ export function summariseRun(
     const [e, s] = full(run.samples[i]);
     draws.push({ epsilonK: e, sigmaAngstrom: s });
   }
-  const credibleRegion95 = free.length === 2 ? credibleRegionOutline(run.samples, run.logPosterior).map(([e, s]) => ({ epsilonK: e, sigmaAngstrom: s })) : [];
+  const credibleRegion95 =
+    free.length === 2 ? credibleRegionOutline(run.samples, run.logPosterior).map(([e, s]) => ({ epsilonK: e, sigmaAngstrom: s })) : [];
   const perParameter = <T>(values: readonly T[]): Partial<Record<LjParameter, T>> => Object.fromEntries(free.map((n, k) => [n, values[k]]));
   return {
     epsilonK: summaries.epsilonK,
@@ -216,7 +241,10 @@ export function comparisonMessages(
     const width = summaries[n].upper95 - summaries[n].lower95;
     return summaries[n].lower95 - lo < 0.01 * width || hi - summaries[n].upper95 < 0.01 * width;
   });
-  if (hitBound.length) messages.push(`The posterior of ${hitBound.map((n) => LABELS[n][0]).join(' and ')} reaches the bound of the flat prior: the interval there is set by the bound, not by the data.`);
+  if (hitBound.length)
+    messages.push(
+      `The posterior of ${hitBound.map((n) => LABELS[n][0]).join(' and ')} reaches the bound of the flat prior: the interval there is set by the bound, not by the data.`,
+    );
   return { linearised, messages };
 }
 
@@ -234,26 +262,57 @@ interface Point {
 }
 
 /** One model value at (ε, σ): the interpolated B2 where it applies, the fit's own model otherwise. */
-export function modelValue(kind: FitKind, point: { temperatureK: number; pressureMPa?: number; measured?: number }, epsilonK: number, sigmaAngstrom: number, context: PropertyContext): number {
-  if (kind === 'b2' && !context.quantumCorrection) return b2Interpolated(point.temperatureK, epsilonK, sigmaAngstrom, context.repulsiveExponent ?? 12).b2Cm3PerMol;
+export function modelValue(
+  kind: FitKind,
+  point: { temperatureK: number; pressureMPa?: number; measured?: number },
+  epsilonK: number,
+  sigmaAngstrom: number,
+  context: PropertyContext,
+): number {
+  if (kind === 'b2' && !context.quantumCorrection)
+    return b2Interpolated(point.temperatureK, epsilonK, sigmaAngstrom, context.repulsiveExponent ?? 12).b2Cm3PerMol;
   return PROPERTY_MODELS[kind].evaluate(point, epsilonK, sigmaAngstrom, context).value;
 }
 
 /** χ² of the included rows of the measurement sets at (ε, σ), as lj-fit.ts defines it. */
-export function chi2Function(measurementSets: readonly FitMeasurementSet[], options: Pick<LjFitOptions, 'molarMassGPerMol' | 'quantumCorrection' | 'repulsiveExponent'>): (epsilonK: number, sigmaAngstrom: number) => number {
-  const context: PropertyContext = { molarMassGPerMol: options.molarMassGPerMol, quantumCorrection: options.quantumCorrection ?? false, ...(options.repulsiveExponent !== undefined && options.repulsiveExponent !== 12 ? { repulsiveExponent: options.repulsiveExponent } : {}) };
+export function chi2Function(
+  measurementSets: readonly FitMeasurementSet[],
+  options: Pick<LjFitOptions, 'molarMassGPerMol' | 'quantumCorrection' | 'repulsiveExponent'>,
+): (epsilonK: number, sigmaAngstrom: number) => number {
+  const context: PropertyContext = {
+    molarMassGPerMol: options.molarMassGPerMol,
+    quantumCorrection: options.quantumCorrection ?? false,
+    ...(options.repulsiveExponent !== undefined && options.repulsiveExponent !== 12
+      ? { repulsiveExponent: options.repulsiveExponent }
+      : {}),
+  };
   const points: Point[] = [];
   for (const d of measurementSets) {
     const excluded = new Set(d.excludeRows ?? []);
     d.rows.forEach((row, i) => {
       if (excluded.has(i + 1)) return;
-      points.push({ kind: d.kind, temperatureK: row.temperatureK, ...(row.pressureMPa !== undefined ? { pressureMPa: row.pressureMPa } : {}), value: row.value, scale: (d.weight ?? 1) / row.uncertainty });
+      points.push({
+        kind: d.kind,
+        temperatureK: row.temperatureK,
+        ...(row.pressureMPa !== undefined ? { pressureMPa: row.pressureMPa } : {}),
+        value: row.value,
+        scale: (d.weight ?? 1) / row.uncertainty,
+      });
     });
   }
   return (epsilonK, sigmaAngstrom) => {
     let chi2 = 0;
     for (const p of points) {
-      const r = (modelValue(p.kind, { temperatureK: p.temperatureK, pressureMPa: p.pressureMPa, measured: p.value }, epsilonK, sigmaAngstrom, context) - p.value) * p.scale;
+      const r =
+        (modelValue(
+          p.kind,
+          { temperatureK: p.temperatureK, pressureMPa: p.pressureMPa, measured: p.value },
+          epsilonK,
+          sigmaAngstrom,
+          context,
+        ) -
+          p.value) *
+        p.scale;
       chi2 += r * r;
     }
     return chi2;
@@ -261,11 +320,17 @@ export function chi2Function(measurementSets: readonly FitMeasurementSet[], opti
 }
 
 /** Samples the posterior of a succeeded fit (see file header). Throws when the fit did not succeed. */
-export function ljPosterior(measurementSets: readonly FitMeasurementSet[], fitOptions: LjFitOptions, fit: LjFitResult, options: LjPosteriorOptions = {}): LjPosterior {
+export function ljPosterior(
+  measurementSets: readonly FitMeasurementSet[],
+  fitOptions: LjFitOptions,
+  fit: LjFitResult,
+  options: LjPosteriorOptions = {},
+): LjPosterior {
   if (fit.status !== 'succeeded') throw new Error('a posterior needs a succeeded fit to start from');
   const chi2 = chi2Function(measurementSets, fitOptions);
   const noise = options.noise ?? 'as-fit';
-  const s2 = noise === 'as-fit' && fit.covarianceScaling === 'reduced-chi2' && fit.reducedChi2 !== null && fit.reducedChi2 > 0 ? fit.reducedChi2 : 1;
+  const s2 =
+    noise === 'as-fit' && fit.covarianceScaling === 'reduced-chi2' && fit.reducedChi2 !== null && fit.reducedChi2 > 0 ? fit.reducedChi2 : 1;
   const free = NAMES.filter((n) => !fit.heldParameters.includes(n));
   const held: Record<LjParameter, number> = { epsilonK: fit.epsilonK, sigmaAngstrom: fit.sigmaAngstrom };
   const full = (x: readonly number[]): [number, number] => {
@@ -281,7 +346,11 @@ export function ljPosterior(measurementSets: readonly FitMeasurementSet[], fitOp
   });
   if (multivariatePrior && fit.covariance) {
     const idx = free.map((n) => NAMES.indexOf(n));
-    const ball = startingBall(initial, idx.map((i) => idx.map((j) => fit.covariance![i][j])), multivariatePrior);
+    const ball = startingBall(
+      initial,
+      idx.map((i) => idx.map((j) => fit.covariance![i][j])),
+      multivariatePrior,
+    );
     if (ball) ({ initial, spread } = ball);
     initial = initial.map((x, k) => Math.min(Math.max(x, fit.bounds[free[k]][0]), fit.bounds[free[k]][1]));
   }
@@ -298,7 +367,13 @@ export function ljPosterior(measurementSets: readonly FitMeasurementSet[], fitOp
   });
   const summary = summariseRun(run, free, held, options.drawsReturned ?? 1000);
   const { samplerWarnings, ...rest } = summary;
-  const { linearised, messages } = comparisonMessages({ epsilonK: summary.epsilonK, sigmaAngstrom: summary.sigmaAngstrom }, free, held, fit.stdErr, fit.bounds);
+  const { linearised, messages } = comparisonMessages(
+    { epsilonK: summary.epsilonK, sigmaAngstrom: summary.sigmaAngstrom },
+    free,
+    held,
+    fit.stdErr,
+    fit.bounds,
+  );
   // Sampler warnings come after the disagreement notes and before the bound note, as they always have.
   const boundNote = messages.length && /reaches the bound/.test(messages[messages.length - 1]) ? messages.pop()! : null;
   messages.push(...samplerWarnings);
@@ -307,7 +382,10 @@ export function ljPosterior(measurementSets: readonly FitMeasurementSet[], fitOp
   return {
     ...rest,
     linearised,
-    likelihood: s2 === 1 ? 'exp(−χ²/2) with the stated uncertainties' : `exp(−χ²/2s²) with s² = χ²/ν = ${s2.toPrecision(4)} (uncertainties taken as relative, like the fit's covariance)`,
+    likelihood:
+      s2 === 1
+        ? 'exp(−χ²/2) with the stated uncertainties'
+        : `exp(−χ²/2s²) with s² = χ²/ν = ${s2.toPrecision(4)} (uncertainties taken as relative, like the fit's covariance)`,
     priors: priorWords(free, fit.bounds, options.priors, options.prior),
     messages,
     ...(options.prior ? { priorSet: priorSetOf(options.prior) } : {}),
@@ -316,7 +394,13 @@ export function ljPosterior(measurementSets: readonly FitMeasurementSet[], fitOp
 
 /** What the result keeps of the set behind the prior. */
 export function priorSetOf(prior: ParameterSetPrior): NonNullable<LjPosterior['priorSet']> {
-  return { parameterSetId: prior.parameterSetId, label: prior.label ?? null, epsilonK: prior.epsilonK, sigmaAngstrom: prior.sigmaAngstrom, covariance: prior.covariance.map((r) => [...r]) };
+  return {
+    parameterSetId: prior.parameterSetId,
+    label: prior.label ?? null,
+    epsilonK: prior.epsilonK,
+    sigmaAngstrom: prior.sigmaAngstrom,
+    covariance: prior.covariance.map((r) => [...r]),
+  };
 }
 
 /** One sentence naming the set behind the prior (the linearised intervals compared are the data's alone). */

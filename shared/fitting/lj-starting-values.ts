@@ -48,7 +48,12 @@ export function boyleTemperatureFromB2(points: readonly StartPoint[]): number | 
 }
 
 /** Best σ for a trial ε and its χ² (classical σ^k scaling), or null if no positive σ fits. */
-function sigmaForEpsilon(points: readonly StartPoint[], epsilonK: number, context: PropertyContext, bounds: LjBounds): { sigmaAngstrom: number; chi2: number } | null {
+function sigmaForEpsilon(
+  points: readonly StartPoint[],
+  epsilonK: number,
+  context: PropertyContext,
+  bounds: LjBounds,
+): { sigmaAngstrom: number; chi2: number } | null {
   const classical: PropertyContext = { ...context, quantumCorrection: false };
   const kinds = [...new Set(points.map((p) => p.kind))];
   // Per point: A_i = model at σ = 1, so that value ≈ A_i σ^k.
@@ -62,8 +67,7 @@ function sigmaForEpsilon(points: readonly StartPoint[], epsilonK: number, contex
       return null; // ε outside the model's range for these temperatures
     }
   }
-  const chi2At = (sigma: number) =>
-    unit.reduce((s, { point, a, k }) => s + ((a * sigma ** k - point.value) / point.uncertainty) ** 2, 0);
+  const chi2At = (sigma: number) => unit.reduce((s, { point, a, k }) => s + ((a * sigma ** k - point.value) / point.uncertainty) ** 2, 0);
   const candidates: number[] = [];
   for (const kind of kinds) {
     const rows = unit.filter((u) => u.point.kind === kind);
@@ -88,7 +92,12 @@ function sigmaForEpsilon(points: readonly StartPoint[], epsilonK: number, contex
       let sum = chi2At(sigma);
       for (const p of unscaled) {
         try {
-          const v = PROPERTY_MODELS[p.kind].evaluate({ temperatureK: p.temperatureK, pressureMPa: p.pressureMPa, measured: p.value }, epsilonK, sigma, classical).value;
+          const v = PROPERTY_MODELS[p.kind].evaluate(
+            { temperatureK: p.temperatureK, pressureMPa: p.pressureMPa, measured: p.value },
+            epsilonK,
+            sigma,
+            classical,
+          ).value;
           sum += ((v - p.value) / p.uncertainty) ** 2;
         } catch {
           return Infinity; // no fluid state of the model at this (ε, σ)
@@ -157,18 +166,23 @@ export function estimateLjStart(points: readonly StartPoint[], context: Property
   const trials: Array<{ epsilonK: number; method: string }> = [];
   // Without a closed form in σ (densities) each trial costs a 1-D search, so the ε grid is coarser.
   const scanPoints = points.some((p) => PROPERTY_MODELS[p.kind].sigmaExponent === null) ? 21 : SCAN_POINTS;
-  for (let i = 0; i < scanPoints; i++) trials.push({ epsilonK: lo * (hi / lo) ** (i / (scanPoints - 1)), method: 'epsilon scan with sigma solved per epsilon' });
+  for (let i = 0; i < scanPoints; i++)
+    trials.push({ epsilonK: lo * (hi / lo) ** (i / (scanPoints - 1)), method: 'epsilon scan with sigma solved per epsilon' });
   const boyleK = boyleTemperatureFromB2(points);
   if (boyleK !== null) {
     const epsilonK = boyleK / boyleReducedTemperature();
     if (epsilonK >= bounds.epsilonK[0] && epsilonK <= bounds.epsilonK[1]) {
-      trials.unshift({ epsilonK, method: `Boyle temperature ${boyleK.toPrecision(4)} K from the B2 sign change, sigma from the B2 magnitude` });
+      trials.unshift({
+        epsilonK,
+        method: `Boyle temperature ${boyleK.toPrecision(4)} K from the B2 sign change, sigma from the B2 magnitude`,
+      });
     }
   }
   let best: LjStart | null = null;
   for (const trial of trials) {
     const solved = sigmaForEpsilon(points, trial.epsilonK, context, bounds);
-    if (solved && (!best || solved.chi2 < best.chi2)) best = { epsilonK: trial.epsilonK, sigmaAngstrom: solved.sigmaAngstrom, chi2: solved.chi2, method: trial.method };
+    if (solved && (!best || solved.chi2 < best.chi2))
+      best = { epsilonK: trial.epsilonK, sigmaAngstrom: solved.sigmaAngstrom, chi2: solved.chi2, method: trial.method };
   }
   return best;
 }

@@ -11,7 +11,13 @@ import { mdStageFit, type MdRunSummary, type MdStagePoint, type MdStatePoint } f
 const TRUE = { epsilonK: 150, sigmaAngstrom: 3.6 };
 const M = 50;
 // Supercritical isotherms T* = 1.5 and 2.0: no state near a phase boundary.
-const STATES: Array<[number, number]> = [[225, 20], [225, 60], [300, 40], [300, 100], [300, 150]];
+const STATES: Array<[number, number]> = [
+  [225, 20],
+  [225, 60],
+  [300, 40],
+  [300, 100],
+  [300, 150],
+];
 
 function points(): MdStagePoint[] {
   return STATES.map(([T, P], i) => {
@@ -19,7 +25,17 @@ function points(): MdStagePoint[] {
     const rho = massDensityKgPerM3(ljEosDensity(s.reducedTemperature, s.reducedPressure).reducedDensity, M, TRUE.sigmaAngstrom);
     // A small deterministic scatter (±0.5 %) so χ² is not zero.
     const value = rho * (1 + 0.005 * Math.sin(1.3 * i + 0.4));
-    return { measurementSetId: 1, measurementSetIndex: 0, kind: 'density' as const, rowNumber: i + 1, temperatureK: T, pressureMPa: P, value, uncertainty: 0.01 * rho, weight: 1 };
+    return {
+      measurementSetId: 1,
+      measurementSetIndex: 0,
+      kind: 'density' as const,
+      rowNumber: i + 1,
+      temperatureK: T,
+      pressureMPa: P,
+      value,
+      uncertainty: 0.01 * rho,
+      weight: 1,
+    };
   });
 }
 
@@ -29,12 +45,22 @@ const eosPredictor = async (states: MdStatePoint[]): Promise<MdRunSummary[]> =>
     return { id: i, reused: false, reducedDensity: e.reducedDensity, stdErr: 1e-5, dRhoDT: e.dRhoDT, dRhoDP: e.dRhoDP, phase: 'fluid' };
   });
 
-const options = { bounds: { epsilonK: [50, 400] as [number, number], sigmaAngstrom: [2.5, 5] as [number, number] }, context: { molarMassGPerMol: M, quantumCorrection: false }, simulate: eosPredictor, maxIterations: 10, changeInStandardErrors: 0.25 };
+const options = {
+  bounds: { epsilonK: [50, 400] as [number, number], sigmaAngstrom: [2.5, 5] as [number, number] },
+  context: { molarMassGPerMol: M, quantumCorrection: false },
+  simulate: eosPredictor,
+  maxIterations: 10,
+  changeInStandardErrors: 0.25,
+};
 
 describe('simulation stage: held parameter and rows left out', () => {
   it('keeps a held σ exact, without standard error, and counts one parameter fewer', async () => {
     const free = await mdStageFit(points(), [{ id: 1, kind: 'density' }], { ...options, start: { epsilonK: 140, sigmaAngstrom: 3.5 } });
-    const held = await mdStageFit(points(), [{ id: 1, kind: 'density' }], { ...options, start: { epsilonK: 140, sigmaAngstrom: 3.6 }, held: 'sigmaAngstrom' });
+    const held = await mdStageFit(points(), [{ id: 1, kind: 'density' }], {
+      ...options,
+      start: { epsilonK: 140, sigmaAngstrom: 3.6 },
+      held: 'sigmaAngstrom',
+    });
     expect(held.sigmaAngstrom).toBe(3.6);
     expect(held.stdErr.sigmaAngstrom).toBeNull();
     expect(held.stdErr.epsilonK).toBeGreaterThan(0);
@@ -51,7 +77,11 @@ describe('simulation stage: held parameter and rows left out', () => {
     const data = points();
     data[2] = { ...data[2], value: data[2].value * 1.2, excluded: true };
     const result = await mdStageFit(data, [{ id: 1, kind: 'density' }], { ...options, start: { epsilonK: 140, sigmaAngstrom: 3.5 } });
-    const clean = await mdStageFit(points().filter((_, i) => i !== 2), [{ id: 1, kind: 'density' }], { ...options, start: { epsilonK: 140, sigmaAngstrom: 3.5 } });
+    const clean = await mdStageFit(
+      points().filter((_, i) => i !== 2),
+      [{ id: 1, kind: 'density' }],
+      { ...options, start: { epsilonK: 140, sigmaAngstrom: 3.5 } },
+    );
     expect(result.dof).toBe(STATES.length - 1 - 2);
     expect(result.residuals[2]).toMatchObject({ excluded: true, included: false, rowNumber: 3 });
     expect(result.residuals[2].predicted).toBeGreaterThan(0);

@@ -124,7 +124,21 @@ export interface MdResidual extends LjResidual {
 export interface MdStageResult extends LjFitResult {
   residuals: MdResidual[];
   mdIterations: MdIteration[];
-  mdRuns: Array<{ id: number; reused: boolean; temperatureK: number; pressureMPa: number; reducedTemperature: number; reducedPressure: number; reducedDensity: number; stdErr: number; phase: string; iteration: number; effectiveSamples: number | null; startedFrom: string | null; purpose?: 'posterior' }>;
+  mdRuns: Array<{
+    id: number;
+    reused: boolean;
+    temperatureK: number;
+    pressureMPa: number;
+    reducedTemperature: number;
+    reducedPressure: number;
+    reducedDensity: number;
+    stdErr: number;
+    phase: string;
+    iteration: number;
+    effectiveSamples: number | null;
+    startedFrom: string | null;
+    purpose?: 'posterior';
+  }>;
   /** Rounds of simulations (a round: the runs asked for at one point of (ε, σ), then the steps on reweighted predictions). */
   mdRounds: number;
   stoppedBy: 'converged' | 'round-limit';
@@ -178,7 +192,10 @@ class RunBook {
   /** Every run with frames, by id (the pool's own list is private). */
   readonly reweightRuns = new Map<number, ReweightRun>();
 
-  constructor(stored: ReweightRun[], readonly minEffectiveSamples: number) {
+  constructor(
+    stored: ReweightRun[],
+    readonly minEffectiveSamples: number,
+  ) {
     this.pool = new ReweightPool(stored, minEffectiveSamples);
     for (const r of stored) this.reweightRuns.set(r.id, r);
   }
@@ -193,7 +210,15 @@ class RunBook {
     let reweightRun: ReweightRun | null = null;
     if (run.reweightRun && run.reweightRun.volume.length > 0) reweightRun = run.reweightRun;
     else if (run.frames && run.frames.count > 0) {
-      reweightRun = reweightRunFromFrames(run.id, { reducedTemperature: run.reducedTemperature ?? state.reducedTemperature, reducedPressure: run.reducedPressure ?? state.reducedPressure, atoms: run.atoms ?? 0 }, run.frames);
+      reweightRun = reweightRunFromFrames(
+        run.id,
+        {
+          reducedTemperature: run.reducedTemperature ?? state.reducedTemperature,
+          reducedPressure: run.reducedPressure ?? state.reducedPressure,
+          atoms: run.atoms ?? 0,
+        },
+        run.frames,
+      );
     }
     if (reweightRun && !this.pool.has(run.id)) {
       this.pool.add(reweightRun);
@@ -206,11 +231,29 @@ class RunBook {
     const direct = this.direct.get(stateKey(state));
     const r = this.pool.size ? this.pool.predict(state) : null;
     if (r && r.ok) {
-      return { reducedDensity: r.reducedDensity, stdErr: r.stdErr, dRhoDT: r.dRhoDT, dRhoDP: r.dRhoDP, effectiveSamples: r.effectiveSamples, by: 'reweighted', runId: direct?.id ?? r.runs.reduce((a, b) => (b.weight > a.weight ? b : a)).id, reweightedOnly: !direct };
+      return {
+        reducedDensity: r.reducedDensity,
+        stdErr: r.stdErr,
+        dRhoDT: r.dRhoDT,
+        dRhoDP: r.dRhoDP,
+        effectiveSamples: r.effectiveSamples,
+        by: 'reweighted',
+        runId: direct?.id ?? r.runs.reduce((a, b) => (b.weight > a.weight ? b : a)).id,
+        reweightedOnly: !direct,
+      };
     }
     // A run at this very state is used even below the reweighting guard: it is the best there is (its own error says how good).
     if (direct) {
-      return { reducedDensity: direct.reducedDensity, stdErr: direct.stdErr, dRhoDT: direct.dRhoDT, dRhoDP: direct.dRhoDP, effectiveSamples: direct.effectiveSamples ?? null, by: 'run', runId: direct.id, reweightedOnly: false };
+      return {
+        reducedDensity: direct.reducedDensity,
+        stdErr: direct.stdErr,
+        dRhoDT: direct.dRhoDT,
+        dRhoDP: direct.dRhoDP,
+        effectiveSamples: direct.effectiveSamples ?? null,
+        by: 'run',
+        runId: direct.id,
+        reweightedOnly: false,
+      };
     }
     return null;
   }
@@ -219,7 +262,8 @@ class RunBook {
 function densityStates(points: MdStagePoint[], epsilonK: number, sigmaAngstrom: number): Map<number, MdStatePoint> {
   const out = new Map<number, MdStatePoint>();
   points.forEach((p, i) => {
-    if (p.kind === 'density') out.set(i, reducedStateOf({ temperatureK: p.temperatureK, pressureMPa: p.pressureMPa!, epsilonK, sigmaAngstrom }));
+    if (p.kind === 'density')
+      out.set(i, reducedStateOf({ temperatureK: p.temperatureK, pressureMPa: p.pressureMPa!, epsilonK, sigmaAngstrom }));
   });
   return out;
 }
@@ -232,14 +276,21 @@ function regionProblem(state: MdStatePoint): string | null {
   let problem = regionMemo.get(key);
   if (problem === undefined) {
     const r = ljRegionOf(state.reducedTemperature, state.reducedPressure);
-    problem = r.region === 'fluid' ? null : r.reason ?? r.region;
+    problem = r.region === 'fluid' ? null : (r.reason ?? r.region);
     if (regionMemo.size > 10_000) regionMemo.clear();
     regionMemo.set(key, problem);
   }
   return problem;
 }
 
-function evaluate(points: MdStagePoint[], epsilonK: number, sigmaAngstrom: number, options: MdStageOptions, book: RunBook, leftOut: Map<number, string>): Evaluation {
+function evaluate(
+  points: MdStagePoint[],
+  epsilonK: number,
+  sigmaAngstrom: number,
+  options: MdStageOptions,
+  book: RunBook,
+  leftOut: Map<number, string>,
+): Evaluation {
   const states = densityStates(points, epsilonK, sigmaAngstrom);
   const residuals: number[] = [];
   const jacobian: number[][] = [];
@@ -262,7 +313,12 @@ function evaluate(points: MdStagePoint[], epsilonK: number, sigmaAngstrom: numbe
   };
   points.forEach((p, i) => {
     if (p.kind !== 'density') {
-      const m = PROPERTY_MODELS[p.kind].evaluate({ temperatureK: p.temperatureK, pressureMPa: p.pressureMPa, measured: p.value }, epsilonK, sigmaAngstrom, options.context);
+      const m = PROPERTY_MODELS[p.kind].evaluate(
+        { temperatureK: p.temperatureK, pressureMPa: p.pressureMPa, measured: p.value },
+        epsilonK,
+        sigmaAngstrom,
+        options.context,
+      );
       const scale = p.excluded ? 0 : p.weight / p.uncertainty;
       residuals.push((m.value - p.value) * scale);
       jacobian.push([m.dEpsilonK * scale, m.dSigmaAngstrom * scale]);
@@ -290,13 +346,22 @@ function evaluate(points: MdStagePoint[], epsilonK: number, sigmaAngstrom: numbe
     if (pred.reweightedOnly) reweightedOnly++;
     const state = { temperatureK: p.temperatureK, pressureMPa: p.pressureMPa!, epsilonK, sigmaAngstrom };
     const g = densityWithGradient(pred, state, options.context.molarMassGPerMol);
-    const uModel = densityWithGradient({ reducedDensity: pred.stdErr, dRhoDT: 0, dRhoDP: 0 }, state, options.context.molarMassGPerMol).densityKgPerM3;
+    const uModel = densityWithGradient(
+      { reducedDensity: pred.stdErr, dRhoDT: 0, dRhoDP: 0 },
+      state,
+      options.context.molarMassGPerMol,
+    ).densityKgPerM3;
     if (p.excluded) return leave(p, null, g.densityKgPerM3, uModel);
     const ratio = g.densityKgPerM3 / p.value;
     if (ratio < 0.5 || ratio > 2) {
       // The simulated fluid is in another phase than the sample (e.g. the data say liquid, the run says gas):
       // no small change of ε and σ bridges that, so the point is reported and left out rather than averaged in.
-      return leave(p, `the simulated fluid (${g.densityKgPerM3.toFixed(1)} kg/m³) is in another phase than the measured one (${p.value} kg/m³)`, g.densityKgPerM3, uModel);
+      return leave(
+        p,
+        `the simulated fluid (${g.densityKgPerM3.toFixed(1)} kg/m³) is in another phase than the measured one (${p.value} kg/m³)`,
+        g.densityKgPerM3,
+        uModel,
+      );
     }
     const u = Math.hypot(p.uncertainty, uModel);
     const scale = p.weight / u;
@@ -307,7 +372,22 @@ function evaluate(points: MdStagePoint[], epsilonK: number, sigmaAngstrom: numbe
     included.push(true);
   });
   const chi2 = residuals.reduce((s, r) => s + r * r, 0);
-  return { epsilonK, sigmaAngstrom, residuals, jacobian, predicted, modelUncertainty, included, runIds, effectiveSamples, predictedBy, chi2, excluded, uncovered, reweightedOnly };
+  return {
+    epsilonK,
+    sigmaAngstrom,
+    residuals,
+    jacobian,
+    predicted,
+    modelUncertainty,
+    included,
+    runIds,
+    effectiveSamples,
+    predictedBy,
+    chi2,
+    excluded,
+    uncovered,
+    reweightedOnly,
+  };
 }
 
 /**
@@ -332,7 +412,17 @@ function posteriorOutcome(
     if (!includedAtFit[i]) continue;
     const p = points[i];
     if (p.kind !== 'density') {
-      const r = ((modelValue(p.kind, { temperatureK: p.temperatureK, pressureMPa: p.pressureMPa, measured: p.value }, epsilonK, sigmaAngstrom, options.context) - p.value) * p.weight) / p.uncertainty;
+      const r =
+        ((modelValue(
+          p.kind,
+          { temperatureK: p.temperatureK, pressureMPa: p.pressureMPa, measured: p.value },
+          epsilonK,
+          sigmaAngstrom,
+          options.context,
+        ) -
+          p.value) *
+          p.weight) /
+        p.uncertainty;
       sum += (r * r) / s2;
       continue;
     }
@@ -407,7 +497,10 @@ function freeColumns(jacobian: number[][], heldIndex: number | null): number[][]
 /** A free parameter's covariance back in (ε, σ), zero for the held one. */
 function embedCovariance(m: number[][] | null, heldIndex: number | null): number[][] | null {
   if (!m || heldIndex === null) return m;
-  const out = [[0, 0], [0, 0]];
+  const out = [
+    [0, 0],
+    [0, 0],
+  ];
   out[1 - heldIndex][1 - heldIndex] = m[0][0];
   return out;
 }
@@ -421,7 +514,11 @@ function embedStdErr(se: number[], heldIndex: number | null, heldValue: number):
 
 /** Solves the 2×2 damped normal equations (JᵀJ + λ·diag JᵀJ) δ = −Jᵀr; with a held parameter, the 1×1 equation of the other. */
 function lmStep(e: Evaluation, lambda: number, heldIndex: number | null = null): [number, number] {
-  let a = 0, b = 0, d = 0, g0 = 0, g1 = 0;
+  let a = 0,
+    b = 0,
+    d = 0,
+    g0 = 0,
+    g1 = 0;
   e.jacobian.forEach(([j0, j1], i) => {
     a += j0 * j0;
     b += j0 * j1;
@@ -440,7 +537,11 @@ function lmStep(e: Evaluation, lambda: number, heldIndex: number | null = null):
 
 const clamp = (x: number, [lo, hi]: [number, number]) => Math.min(Math.max(x, lo), hi);
 
-export async function mdStageFit(points: MdStagePoint[], measurementSets: Array<{ id: string | number; kind: FitKind }>, options: MdStageOptions): Promise<MdStageResult> {
+export async function mdStageFit(
+  points: MdStagePoint[],
+  measurementSets: Array<{ id: string | number; kind: FitKind }>,
+  options: MdStageOptions,
+): Promise<MdStageResult> {
   const maxIterations = options.maxIterations ?? 6;
   const heldIndex = options.held ? PARAMETER_NAMES.indexOf(options.held) : null;
   const freeCount = heldIndex === null ? 2 : 1;
@@ -462,28 +563,57 @@ export async function mdStageFit(points: MdStagePoint[], measurementSets: Array<
   let current: Evaluation | null = null;
   // Progress: round r fills [start(r), start(r + 1)), halves that shrink, so the bar never waits for a round limit.
   const roundStart = (r: number) => 0.05 + 0.9 * (1 - 0.5 ** (r - 1));
-  const describe = (t: { epsilonK: number; sigmaAngstrom: number }) => `ε/k_B = ${t.epsilonK.toFixed(2)} K, σ = ${t.sigmaAngstrom.toFixed(4)} Å`;
+  const describe = (t: { epsilonK: number; sigmaAngstrom: number }) =>
+    `ε/k_B = ${t.epsilonK.toFixed(2)} K, σ = ${t.sigmaAngstrom.toFixed(4)} Å`;
   const runsOfPoint = new Map<number, Set<number>>();
   /** Runs the wanted states, adds them to the book and the record; a run that froze or split leaves its point out (not for the posterior's runs). */
-  const runAt = async (wanted: Array<[number, MdStatePoint]>, iteration: number, onFinished: (finished: number) => void, purpose?: 'posterior'): Promise<MdRunSummary[]> => {
+  const runAt = async (
+    wanted: Array<[number, MdStatePoint]>,
+    iteration: number,
+    onFinished: (finished: number) => void,
+    purpose?: 'posterior',
+  ): Promise<MdRunSummary[]> => {
     let finished = 0;
-    const runs = wanted.length ? await options.simulate(wanted.map(([, st]) => st), () => onFinished(++finished)) : [];
+    const runs = wanted.length
+      ? await options.simulate(
+          wanted.map(([, st]) => st),
+          () => onFinished(++finished),
+        )
+      : [];
     runs.forEach((r, k) => {
       const [i, st] = wanted[k];
       book.add(st, r);
-      if (r.phase !== 'fluid' && !purpose) leftOut.set(i, r.phase === 'solid' ? 'the run froze into an ordered solid' : 'the run split into vapour and liquid');
+      if (r.phase !== 'fluid' && !purpose)
+        leftOut.set(i, r.phase === 'solid' ? 'the run froze into an ordered solid' : 'the run split into vapour and liquid');
       if (r.reused) reusedRuns++;
       else newRuns++;
       if (!runsOfPoint.has(i)) runsOfPoint.set(i, new Set());
       runsOfPoint.get(i)!.add(r.id);
       const p = points[i];
-      allRuns.push({ id: r.id, reused: r.reused, temperatureK: p.temperatureK, pressureMPa: p.pressureMPa!, ...st, reducedDensity: r.reducedDensity, stdErr: r.stdErr, phase: r.phase, iteration, effectiveSamples: r.effectiveSamples ?? null, startedFrom: r.startedFrom ?? null, ...(purpose ? { purpose } : {}) });
+      allRuns.push({
+        id: r.id,
+        reused: r.reused,
+        temperatureK: p.temperatureK,
+        pressureMPa: p.pressureMPa!,
+        ...st,
+        reducedDensity: r.reducedDensity,
+        stdErr: r.stdErr,
+        phase: r.phase,
+        iteration,
+        effectiveSamples: r.effectiveSamples ?? null,
+        startedFrom: r.startedFrom ?? null,
+        ...(purpose ? { purpose } : {}),
+      });
     });
     return runs;
   };
   const stepAndErrors = (e: Evaluation) => {
     const [d0, d1] = lmStep(e, lambda, heldIndex);
-    const cov = covarianceFromJacobian(freeColumns(e.jacobian, heldIndex), e.chi2, Math.max(1, e.included.filter(Boolean).length - freeCount));
+    const cov = covarianceFromJacobian(
+      freeColumns(e.jacobian, heldIndex),
+      e.chi2,
+      Math.max(1, e.included.filter(Boolean).length - freeCount),
+    );
     // The noise of the step itself: the standard errors from the stated and simulation uncertainties alone. (Scaled by
     // the reduced χ² they grow with the misfit, so a start far from the minimum would look converged.)
     const se = embedStdErr(cov.unscaled ? standardErrorsFromCovariance(cov.unscaled) : [Infinity, Infinity], heldIndex, Infinity);
@@ -503,16 +633,22 @@ export async function mdStageFit(points: MdStagePoint[], measurementSets: Array<
         seen.add(key);
       }
     }
-    const why = { start: 'first runs', uncovered: 'states beyond the reach of the stored runs', confirm: 'confirming the final point' }[reason];
+    const why = { start: 'first runs', uncovered: 'states beyond the reach of the stored runs', confirm: 'confirming the final point' }[
+      reason
+    ];
     report(lo, `simulation round ${round} (${why}): ${wanted.length} NPT run(s) at ${describe(theta)}`);
     const runs = await runAt(wanted, round, (finished) => {
-      report(lo + ((hi - lo) * 0.8 * finished) / wanted.length, `simulation round ${round} (${why}): ${finished} of ${wanted.length} run(s) finished`);
+      report(
+        lo + ((hi - lo) * 0.8 * finished) / wanted.length,
+        `simulation round ${round} (${why}): ${finished} of ${wanted.length} run(s) finished`,
+      );
     });
     const roundReason = reason;
     // 2. Levenberg–Marquardt on the predictions the stored runs give, while its trial points stay within their reach.
     let e = evaluate(points, theta.epsilonK, theta.sigmaAngstrom, options, book, leftOut);
     reweightedPoints += e.reweightedOnly;
-    if (e.uncovered.length) throw new Error(`the simulation stage has no prediction at ${e.uncovered.length} state(s) although their runs finished`);
+    if (e.uncovered.length)
+      throw new Error(`the simulation stage has no prediction at ${e.uncovered.length} state(s) although their runs finished`);
     let steps = 0;
     let converged = false;
     for (let guard = 0; guard < 200; guard++) {
@@ -529,7 +665,10 @@ export async function mdStageFit(points: MdStagePoint[], measurementSets: Array<
       let moved = false;
       let covered = false;
       for (const f of [1, 0.5, 0.25]) {
-        const trialTheta = { epsilonK: clamp(e.epsilonK + f * d0, options.bounds.epsilonK), sigmaAngstrom: clamp(e.sigmaAngstrom + f * d1, options.bounds.sigmaAngstrom) };
+        const trialTheta = {
+          epsilonK: clamp(e.epsilonK + f * d0, options.bounds.epsilonK),
+          sigmaAngstrom: clamp(e.sigmaAngstrom + f * d1, options.bounds.sigmaAngstrom),
+        };
         const trial = evaluate(points, trialTheta.epsilonK, trialTheta.sigmaAngstrom, options, book, leftOut);
         if (trial.uncovered.length) continue;
         covered = true;
@@ -545,13 +684,27 @@ export async function mdStageFit(points: MdStagePoint[], measurementSets: Array<
       }
       if (!covered) {
         // The step leaves the reach of every stored run: the next round runs there.
-        theta = { epsilonK: clamp(e.epsilonK + d0, options.bounds.epsilonK), sigmaAngstrom: clamp(e.sigmaAngstrom + d1, options.bounds.sigmaAngstrom) };
+        theta = {
+          epsilonK: clamp(e.epsilonK + d0, options.bounds.epsilonK),
+          sigmaAngstrom: clamp(e.sigmaAngstrom + d1, options.bounds.sigmaAngstrom),
+        };
         reason = 'uncovered';
         break;
       }
       void moved;
     }
-    iterations.push({ iteration: round, epsilonK: e.epsilonK, sigmaAngstrom: e.sigmaAngstrom, chi2: e.chi2, accepted: true, runs: runs.length, reusedRuns: runs.filter((r) => r.reused).length, reweightedSteps: steps, reason: roundReason, excludedPoints: e.excluded });
+    iterations.push({
+      iteration: round,
+      epsilonK: e.epsilonK,
+      sigmaAngstrom: e.sigmaAngstrom,
+      chi2: e.chi2,
+      accepted: true,
+      runs: runs.length,
+      reusedRuns: runs.filter((r) => r.reused).length,
+      reweightedSteps: steps,
+      reason: roundReason,
+      excludedPoints: e.excluded,
+    });
     current = e;
     report(hi, `simulation round ${round} done: ${describe(e)}, χ² = ${e.chi2.toFixed(2)}`);
     if (converged) break rounds;
@@ -576,7 +729,9 @@ export async function mdStageFit(points: MdStagePoint[], measurementSets: Array<
     uncertainty: p.uncertainty,
     predicted: final.predicted[i],
     // A point left out by the modeller shows where it would lie; it is not in χ².
-    residual: p.excluded ? ((final.predicted[i] - p.value) * p.weight) / Math.hypot(p.uncertainty, final.modelUncertainty[i]) : final.residuals[i],
+    residual: p.excluded
+      ? ((final.predicted[i] - p.value) * p.weight) / Math.hypot(p.uncertainty, final.modelUncertainty[i])
+      : final.residuals[i],
     relativeDeviationPercent: p.value !== 0 ? (100 * (final.predicted[i] - p.value)) / p.value : null,
     modelUncertainty: final.modelUncertainty[i],
     simulationId: final.runIds[i],
@@ -599,12 +754,17 @@ export async function mdStageFit(points: MdStagePoint[], measurementSets: Array<
   });
   // Points left out (frozen, split, or in another phase than the sample) are reported, never quietly averaged away.
   const phaseWarnings: string[] = [];
-  for (const it of iterations) for (const x of it.excludedPoints) phaseWarnings.push(`Round ${it.iteration}: the point at ${x.temperatureK.toFixed(2)} K, ${x.pressureMPa?.toFixed(3)} MPa was left out because ${x.reason}.`);
+  for (const it of iterations)
+    for (const x of it.excludedPoints)
+      phaseWarnings.push(
+        `Round ${it.iteration}: the point at ${x.temperatureK.toFixed(2)} K, ${x.pressureMPa?.toFixed(3)} MPa was left out because ${x.reason}.`,
+      );
   const warnings = [...phaseWarnings];
   if (stoppedBy !== 'converged') warnings.push(stoppingRule);
   const hitBounds: string[] = [];
   if (final.epsilonK <= options.bounds.epsilonK[0] || final.epsilonK >= options.bounds.epsilonK[1]) hitBounds.push('epsilonK');
-  if (final.sigmaAngstrom <= options.bounds.sigmaAngstrom[0] || final.sigmaAngstrom >= options.bounds.sigmaAngstrom[1]) hitBounds.push('sigmaAngstrom');
+  if (final.sigmaAngstrom <= options.bounds.sigmaAngstrom[0] || final.sigmaAngstrom >= options.bounds.sigmaAngstrom[1])
+    hitBounds.push('sigmaAngstrom');
   let ellipse95: LjFitResult['ellipse95'] = null;
   if (covariance && dof > 0 && heldIndex === null) {
     const e = jointConfidenceEllipse([final.epsilonK, final.sigmaAngstrom], covariance, cov.scaled ? 'reduced-chi2' : 'none', nIncluded);
@@ -614,7 +774,10 @@ export async function mdStageFit(points: MdStagePoint[], measurementSets: Array<
   const strongCorrelation = correlation !== null && Math.abs(correlation) > STRONG_CORRELATION;
   if (strongCorrelation) warnings.push(strongCorrelationWarning(correlation));
   const excludedByModeller = points.filter((p) => p.excluded).length;
-  if (excludedByModeller) warnings.push(`${excludedByModeller} point(s) were left out by the modeller: they are shown with their predictions but not counted in χ²`);
+  if (excludedByModeller)
+    warnings.push(
+      `${excludedByModeller} point(s) were left out by the modeller: they are shown with their predictions but not counted in χ²`,
+    );
   warnings.push(
     `No profile-χ² curves for the simulation stage: every point of a curve would need its own rounds of simulations; the intervals are the linearised ones${options.posterior ? ', with the posterior’s beside them' : ''}.`,
   );
@@ -655,7 +818,9 @@ export async function mdStageFit(points: MdStagePoint[], measurementSets: Array<
     mdRuns: allRuns,
     phaseWarnings,
     stoppingRule,
-    ...(options.context.repulsiveExponent !== undefined && options.context.repulsiveExponent !== 12 ? { model: 'mie' as const, repulsiveExponent: options.context.repulsiveExponent } : {}),
+    ...(options.context.repulsiveExponent !== undefined && options.context.repulsiveExponent !== 12
+      ? { model: 'mie' as const, repulsiveExponent: options.context.repulsiveExponent }
+      : {}),
   };
   if (options.posterior && result.status === 'succeeded' && covariance) {
     report(0.97, 'sampling the posterior on the reweighted predictions');
@@ -687,7 +852,12 @@ export async function mdStageFit(points: MdStagePoint[], measurementSets: Array<
               }
             }
             report(0.97, `posterior: ${wanted.length} extra NPT run(s) where the sampler's proposals left the reach of the runs`);
-            const runs = await runAt(wanted, extraRound, (n) => report(0.97, `posterior: ${n} of ${wanted.length} extra run(s) finished`), 'posterior');
+            const runs = await runAt(
+              wanted,
+              extraRound,
+              (n) => report(0.97, `posterior: ${n} of ${wanted.length} extra run(s) finished`),
+              'posterior',
+            );
             pools.reset();
             return runs.length;
           },
@@ -695,12 +865,17 @@ export async function mdStageFit(points: MdStagePoint[], measurementSets: Array<
         options.posterior,
       );
       if (pools.lowered.size) {
-        const list = [...pools.lowered].map(([i, l]) => `${points[i].temperatureK.toFixed(2)} K, ${points[i].pressureMPa?.toFixed(3)} MPa (${l.effectiveSamples.toFixed(1)})`);
+        const list = [...pools.lowered].map(
+          ([i, l]) => `${points[i].temperatureK.toFixed(2)} K, ${points[i].pressureMPa?.toFixed(3)} MPa (${l.effectiveSamples.toFixed(1)})`,
+        );
         result.posterior.messages.push(
           `At ${list.length} point(s) the runs carry fewer than ${book.minEffectiveSamples} effective samples even at the fit's own state: ${list.join('; ')}. There the sampler accepts reweighting down to half of that; longer runs (more steps) would make those predictions firmer.`,
         );
       }
-      if (stoppedBy !== 'converged') result.posterior.messages.push('The simulation stage stopped at its round limit, not converged: the posterior was sampled around its last point, which may not be the optimum.');
+      if (stoppedBy !== 'converged')
+        result.posterior.messages.push(
+          'The simulation stage stopped at its round limit, not converged: the posterior was sampled around its last point, which may not be the optimum.',
+        );
       result.newRuns = newRuns;
       result.reusedRuns = reusedRuns;
     } catch (err) {

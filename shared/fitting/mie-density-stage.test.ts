@@ -10,7 +10,12 @@ import { mdStageFit, type MdRunSummary, type MdStagePoint, type MdStatePoint } f
 const TRUE = { epsilonK: 150, sigmaAngstrom: 3.6 };
 const LAMBDA = 16;
 const M = 50;
-const STATES: Array<[number, number]> = [[225, 20], [225, 60], [300, 40], [300, 100]];
+const STATES: Array<[number, number]> = [
+  [225, 20],
+  [225, 60],
+  [300, 40],
+  [300, 100],
+];
 const ATOMS = 128;
 const STEPS = 5000;
 const bounds = { epsilonK: [50, 400] as [number, number], sigmaAngstrom: [2.5, 5] as [number, number] };
@@ -22,13 +27,26 @@ describe('Mie 16-6 density fit through the simulation stage (λr held)', () => {
       const r = runNpt({ ...s, atoms: ATOMS, steps: STEPS, seed: 900 + k, repulsiveExponent: LAMBDA });
       const rho = massDensityKgPerM3(r.reducedDensity, M, TRUE.sigmaAngstrom);
       const u = Math.hypot(0.01 * rho, massDensityKgPerM3(r.stdErr, M, TRUE.sigmaAngstrom));
-      return { measurementSetId: 1, measurementSetIndex: 0, kind: 'density' as const, temperatureK: T, pressureMPa: P, value: rho, uncertainty: u, weight: 1 };
+      return {
+        measurementSetId: 1,
+        measurementSetIndex: 0,
+        kind: 'density' as const,
+        temperatureK: T,
+        pressureMPa: P,
+        value: rho,
+        uncertainty: u,
+        weight: 1,
+      };
     });
     // The Mie 16-6 fluid is not the LJ fluid at the same reduced state: at least one density differs from the LJ
     // equation of state (Johnson et al. 1993) by more than its uncertainty, so the kernel matters to the answer.
     const ljGap = points.map((p) => {
       const s = reducedStateOf({ temperatureK: p.temperatureK, pressureMPa: p.pressureMPa!, ...TRUE });
-      return Math.abs(massDensityKgPerM3(ljEosDensity(s.reducedTemperature, s.reducedPressure).reducedDensity, M, TRUE.sigmaAngstrom) - p.value) / p.uncertainty;
+      return (
+        Math.abs(
+          massDensityKgPerM3(ljEosDensity(s.reducedTemperature, s.reducedPressure).reducedDensity, M, TRUE.sigmaAngstrom) - p.value,
+        ) / p.uncertainty
+      );
     });
     expect(Math.max(...ljGap)).toBeGreaterThan(1);
 
@@ -38,7 +56,18 @@ describe('Mie 16-6 density fit through the simulation stage (λr held)', () => {
         runs++;
         const r = runNpt({ ...s, atoms: ATOMS, steps: STEPS, seed: 3000 + runs, repulsiveExponent: LAMBDA });
         onRunFinished?.();
-        return { id: runs, reused: false, reducedDensity: r.reducedDensity, stdErr: r.stdErr, dRhoDT: r.dRhoDT, dRhoDP: r.dRhoDP, phase: r.phase, ...r.settings, effectiveSamples: r.effectiveSamples, frames: r.frames };
+        return {
+          id: runs,
+          reused: false,
+          reducedDensity: r.reducedDensity,
+          stdErr: r.stdErr,
+          dRhoDT: r.dRhoDT,
+          dRhoDP: r.dRhoDP,
+          phase: r.phase,
+          ...r.settings,
+          effectiveSamples: r.effectiveSamples,
+          frames: r.frames,
+        };
       });
     const result = await mdStageFit(points, [{ id: 1, kind: 'density' }], {
       start: { epsilonK: TRUE.epsilonK * 1.03, sigmaAngstrom: TRUE.sigmaAngstrom * 0.99 },

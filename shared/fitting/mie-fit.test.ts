@@ -9,7 +9,15 @@ import { gaussianGenerator, mulberry32 } from './random';
 function table(repulsiveExponent: number, seed: number): FitMeasurementSet {
   const g = gaussianGenerator(mulberry32(seed));
   const temps = [90, 105, 120, 140, 165, 200, 250, 320, 420, 560, 750, 1000, 1400];
-  return { id: `mie-${repulsiveExponent}`, kind: 'b2', rows: temps.map((t) => ({ temperatureK: t, value: b2WithGradient(t, 150, 3.7, undefined, { repulsiveExponent }).b2Cm3PerMol + 0.3 * g(), uncertainty: 0.3 })) };
+  return {
+    id: `mie-${repulsiveExponent}`,
+    kind: 'b2',
+    rows: temps.map((t) => ({
+      temperatureK: t,
+      value: b2WithGradient(t, 150, 3.7, undefined, { repulsiveExponent }).b2Cm3PerMol + 0.3 * g(),
+      uncertainty: 0.3,
+    })),
+  };
 }
 
 describe('Mie λr-6 fits', () => {
@@ -50,7 +58,15 @@ describe('Mie λr-6 fits', () => {
 
   it('refuses a Mie fit of a kind without a Mie model, naming the measurement set', () => {
     // Viscosity has a Mie model now (mie-viscosity-fit.test.ts); B3 still has none.
-    const b3: FitMeasurementSet = { id: 'b3-1', kind: 'b3', rows: [{ temperatureK: 300, value: 2000, uncertainty: 100 }, { temperatureK: 400, value: 1800, uncertainty: 100 }, { temperatureK: 500, value: 1600, uncertainty: 100 }] };
+    const b3: FitMeasurementSet = {
+      id: 'b3-1',
+      kind: 'b3',
+      rows: [
+        { temperatureK: 300, value: 2000, uncertainty: 100 },
+        { temperatureK: 400, value: 1800, uncertainty: 100 },
+        { temperatureK: 500, value: 1600, uncertainty: 100 },
+      ],
+    };
     expect(() => fitLennardJones([b3], { repulsiveExponent: 16, molarMassGPerMol: 58.1 })).toThrow(
       /b3-1: the third virial coefficient B3 model is for the LJ 12-6 potential only; a Mie 16-6 fit takes B2 and dilute-gas viscosity data today/,
     );

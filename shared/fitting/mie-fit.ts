@@ -32,14 +32,24 @@ const GRID = [8, 9, 10, 11, 12, 13, 14, 15, 16, 17, 18, 20, 22, 24, 27, 30, 33, 
 const GOLDEN = (Math.sqrt(5) - 1) / 2;
 
 /** Fits (ε, σ, λr): see the file header. Throws LjFitInputError on bad input like fitLennardJones. */
-export function fitMieWithExponent(measurementSets: FitMeasurementSet[], options: LjFitOptions, onProgress?: (p: { fraction: number; stage: string }) => void): MieFitResult {
+export function fitMieWithExponent(
+  measurementSets: FitMeasurementSet[],
+  options: LjFitOptions,
+  onProgress?: (p: { fraction: number; stage: string }) => void,
+): MieFitResult {
   const cache = new Map<number, LjFitResult>();
   let warm = options.start;
   const at = (n: number): LjFitResult => {
     const key = Number(n.toPrecision(12));
     let fit = cache.get(key);
     if (!fit) {
-      fit = fitLennardJones(measurementSets, { ...options, repulsiveExponent: key, profiles: false, restarts: warm ? 0 : options.restarts, ...(warm ? { start: warm } : {}) });
+      fit = fitLennardJones(measurementSets, {
+        ...options,
+        repulsiveExponent: key,
+        profiles: false,
+        restarts: warm ? 0 : options.restarts,
+        ...(warm ? { start: warm } : {}),
+      });
       if (fit.status === 'succeeded') warm = { epsilonK: fit.epsilonK, sigmaAngstrom: fit.sigmaAngstrom };
       cache.set(key, fit);
     }
@@ -52,7 +62,9 @@ export function fitMieWithExponent(measurementSets: FitMeasurementSet[], options
   // Scan from 12 outwards so every fit starts next to a converged one.
   const order = [...GRID.filter((n) => n >= 12), ...GRID.filter((n) => n < 12).reverse()];
   order.forEach((n, i) => {
-    if (n === 11) warm = cache.get(12)?.status === 'succeeded' ? { epsilonK: cache.get(12)!.epsilonK, sigmaAngstrom: cache.get(12)!.sigmaAngstrom } : warm;
+    if (n === 11)
+      warm =
+        cache.get(12)?.status === 'succeeded' ? { epsilonK: cache.get(12)!.epsilonK, sigmaAngstrom: cache.get(12)!.sigmaAngstrom } : warm;
     onProgress?.({ fraction: (0.7 * i) / order.length, stage: `λr = ${n}` });
     chi2(n);
   });
@@ -60,7 +72,14 @@ export function fitMieWithExponent(measurementSets: FitMeasurementSet[], options
   const k = values.indexOf(Math.min(...values));
   if (!Number.isFinite(values[k])) {
     const failed = at(12);
-    return { ...failed, status: 'failed', converged: false, failureReason: `no λr from 8 to 36 gave a converged fit: ${failed.failureReason ?? 'fit failed'}`, repulsiveExponentFitted: true, repulsiveExponentProfile: { values: GRID, chi2: values, best: 12, stdErr: null, lower95: null, upper95: null } };
+    return {
+      ...failed,
+      status: 'failed',
+      converged: false,
+      failureReason: `no λr from 8 to 36 gave a converged fit: ${failed.failureReason ?? 'fit failed'}`,
+      repulsiveExponentFitted: true,
+      repulsiveExponentProfile: { values: GRID, chi2: values, best: 12, stdErr: null, lower95: null, upper95: null },
+    };
   }
   // Golden-section search on the bracket around the best grid point.
   let a = GRID[Math.max(0, k - 1)];
@@ -76,7 +95,11 @@ export function fitMieWithExponent(measurementSets: FitMeasurementSet[], options
   let best = (a + b) / 2;
   if (chi2(GRID[k]) < chi2(best)) best = GRID[k];
   onProgress?.({ fraction: 0.8, stage: `final fit at λr = ${best.toFixed(3)}` });
-  const final = fitLennardJones(measurementSets, { ...options, repulsiveExponent: Number(best.toPrecision(12)), ...(warm ? { start: warm } : {}) });
+  const final = fitLennardJones(measurementSets, {
+    ...options,
+    repulsiveExponent: Number(best.toPrecision(12)),
+    ...(warm ? { start: warm } : {}),
+  });
   const s2 = final.covarianceScaling === 'reduced-chi2' && final.reducedChi2 !== null && final.reducedChi2 > 0 ? final.reducedChi2 : 1;
   const chiMin = final.chi2;
   // Where the profile crosses chiMin + level, by bisection between the best λr and each end of the range.
@@ -111,10 +134,23 @@ export function fitMieWithExponent(measurementSets: FitMeasurementSet[], options
     ...final.warnings,
     `λr was fitted by profiling χ² over 8–36 (best ${best.toFixed(2)}${profile.stdErr !== null ? ` ± ${profile.stdErr.toFixed(2)}` : ''}); the standard errors of ε and σ are those at the best λr and do not include its uncertainty.`,
   ];
-  if (best <= rLo + 1e-3 || best >= rHi - 1e-3) warnings.push(`the best λr lies on the edge of the range 8–36: the data ask for a ${best <= rLo + 1e-3 ? 'softer' : 'harder'} repulsion than a Mie λr-6 potential in this range gives`);
-  if (lower95 === null || upper95 === null) warnings.push(`the data do not bound λr within 8–36 at 95 % (${lower95 === null ? 'no lower' : 'no upper'} limit): a ${potentialLabel(best)} potential is one of a range that fits equally well`);
+  if (best <= rLo + 1e-3 || best >= rHi - 1e-3)
+    warnings.push(
+      `the best λr lies on the edge of the range 8–36: the data ask for a ${best <= rLo + 1e-3 ? 'softer' : 'harder'} repulsion than a Mie λr-6 potential in this range gives`,
+    );
+  if (lower95 === null || upper95 === null)
+    warnings.push(
+      `the data do not bound λr within 8–36 at 95 % (${lower95 === null ? 'no lower' : 'no upper'} limit): a ${potentialLabel(best)} potential is one of a range that fits equally well`,
+    );
   onProgress?.({ fraction: 1, stage: 'done' });
-  return { ...final, dof, reducedChi2: dof > 0 ? final.chi2 / dof : null, warnings, repulsiveExponentFitted: true, repulsiveExponentProfile: profile };
+  return {
+    ...final,
+    dof,
+    reducedChi2: dof > 0 ? final.chi2 / dof : null,
+    warnings,
+    repulsiveExponentFitted: true,
+    repulsiveExponentProfile: profile,
+  };
 }
 
 export interface ModelCriterion {
@@ -135,7 +171,10 @@ export function informationCriteria(label: string, chi2: number, points: number,
  * Plain-words comparison of two fits of the same data by BIC (lower is better); a difference above 10 is "very
  * strong" evidence, 6–10 "strong", 2–6 "positive", below 2 not worth more than a mention (Kass & Raftery 1995, §3.2).
  */
-export function compareModels(a: ModelCriterion, b: ModelCriterion): { preferred: string | null; deltaBic: number; deltaAic: number; text: string } {
+export function compareModels(
+  a: ModelCriterion,
+  b: ModelCriterion,
+): { preferred: string | null; deltaBic: number; deltaAic: number; text: string } {
   const deltaBic = b.bic - a.bic;
   const deltaAic = b.aic - a.aic;
   const [better, worse] = deltaBic > 0 ? [a, b] : [b, a];

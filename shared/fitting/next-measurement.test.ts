@@ -31,7 +31,9 @@ describe('the next measurement to make (D-optimal)', () => {
     // still well below the lowest measured 500 K (T* < 2).
     expect(ranked[0].temperatureK).toBeLessThan(300);
     expect(ranked[0].areaDecreasePercent).toBeGreaterThan(50);
-    expect(ranked[0].text).toMatch(/^B2 at [\d.]+ K \(expected -?[\d.]+ ± [\d.]+ cm3\/mol\) would make the joint 95 % region \d+ % smaller\.$/);
+    expect(ranked[0].text).toMatch(
+      /^B2 at [\d.]+ K \(expected -?[\d.]+ ± [\d.]+ cm3\/mol\) would make the joint 95 % region \d+ % smaller\.$/,
+    );
     // Ranked best first, and a point inside the measured range helps far less.
     for (let i = 1; i < ranked.length; i++) expect(ranked[i].determinantRatio).toBeGreaterThanOrEqual(ranked[i - 1].determinantRatio);
     const [inside] = rankNextMeasurements(fit, data, { quantumCorrection: false }, { candidates: [{ kind: 'b2', temperatureK: 750 }] });
@@ -47,11 +49,15 @@ describe('the next measurement to make (D-optimal)', () => {
     const p = b2WithGradient(160, fit.epsilonK, fit.sigmaAngstrom);
     const det = (m: number[][]) => m[0][0] * m[1][1] - m[0][1] * m[1][0];
     const before = covarianceFromJacobian(rows, 1, 1).unscaled!;
-    const after = covarianceFromJacobian([...rows, [p.dB2dEpsilonK / s.typicalUncertainty, p.dB2dSigmaAngstrom / s.typicalUncertainty]], 1, 1).unscaled!;
+    const after = covarianceFromJacobian(
+      [...rows, [p.dB2dEpsilonK / s.typicalUncertainty, p.dB2dSigmaAngstrom / s.typicalUncertainty]],
+      1,
+      1,
+    ).unscaled!;
     expect(s.determinantRatio / (det(after) / det(before))).toBeCloseTo(1, 6);
   });
 
-  it('offers viscosity candidates when the molar mass is known, and takes the typical uncertainty from the fit\'s own data', () => {
+  it("offers viscosity candidates when the molar mass is known, and takes the typical uncertainty from the fit's own data", () => {
     const ranked = rankNextMeasurements(fit, data, { molarMassGPerMol: 58.1, quantumCorrection: false }, { top: 200 });
     expect(ranked.some((s) => s.kind === 'viscosity')).toBe(true);
     // The B2 table states u = 1 cm³/mol everywhere, so a new B2 is assumed no better than that.

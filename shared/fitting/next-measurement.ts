@@ -82,13 +82,20 @@ export function typicalUncertaintyFromData(measurementSets: readonly FitMeasurem
 const geometric = (lo: number, hi: number, n: number) => Array.from({ length: n }, (_, i) => lo * Math.pow(hi / lo, i / (n - 1)));
 
 /** Default candidates: B2 over 0.6 ≤ T* ≤ 10, viscosity over 0.5 ≤ T* ≤ 30, densities over 0.7 ≤ T* ≤ 1.3 at a few pressures. */
-export function defaultCandidates(fit: Pick<LjFitResult, 'epsilonK'>, kinds: readonly FitKind[], densityPressuresMPa: readonly number[]): Candidate[] {
+export function defaultCandidates(
+  fit: Pick<LjFitResult, 'epsilonK'>,
+  kinds: readonly FitKind[],
+  densityPressuresMPa: readonly number[],
+): Candidate[] {
   const eps = fit.epsilonK;
   const round = (t: number) => Math.round(t * 10) / 10;
   const out: Candidate[] = [];
   if (kinds.includes('b2')) geometric(0.6, 10, 25).forEach((t) => out.push({ kind: 'b2', temperatureK: round(t * eps) }));
   if (kinds.includes('viscosity')) geometric(0.5, 30, 25).forEach((t) => out.push({ kind: 'viscosity', temperatureK: round(t * eps) }));
-  if (kinds.includes('density')) geometric(0.7, 1.3, 7).forEach((t) => densityPressuresMPa.forEach((p) => out.push({ kind: 'density', temperatureK: round(t * eps), pressureMPa: p })));
+  if (kinds.includes('density'))
+    geometric(0.7, 1.3, 7).forEach((t) =>
+      densityPressuresMPa.forEach((p) => out.push({ kind: 'density', temperatureK: round(t * eps), pressureMPa: p })),
+    );
   return out;
 }
 
@@ -98,14 +105,32 @@ const KIND_WORDS: Partial<Record<FitKind, string>> = { b2: 'B2', viscosity: 'a v
  * Ranks candidate measurements for a succeeded fit (best first). Candidates where the model cannot be evaluated are
  * skipped. Held parameters are left out of the determinant (only the free ones are uncertain).
  */
-export function rankNextMeasurements(fit: LjFitResult, measurementSets: readonly FitMeasurementSet[], context: PropertyContext, options: NextMeasurementOptions = {}): Suggestion[] {
-  if (fit.status !== 'succeeded' || !fit.covarianceUnscaled) throw new Error('ranking next measurements needs a succeeded fit with a covariance');
+export function rankNextMeasurements(
+  fit: LjFitResult,
+  measurementSets: readonly FitMeasurementSet[],
+  context: PropertyContext,
+  options: NextMeasurementOptions = {},
+): Suggestion[] {
+  if (fit.status !== 'succeeded' || !fit.covarianceUnscaled)
+    throw new Error('ranking next measurements needs a succeeded fit with a covariance');
   const names: LjParameter[] = ['epsilonK', 'sigmaAngstrom'];
   const free = [0, 1].filter((k) => !fit.heldParameters.includes(names[k]));
   const c = fit.covarianceUnscaled;
-  const kinds = options.kinds ?? (Object.keys(PROPERTY_MODELS) as FitKind[]).filter((k) => !PROPERTY_MODELS[k].needsMolarMass || context.molarMassGPerMol !== undefined);
-  const fitPressures = [...new Set(measurementSets.filter((d) => d.kind === 'density').flatMap((d) => d.rows.map((r) => r.pressureMPa).filter((p): p is number => p !== undefined)))];
-  const pressures = options.densityPressuresMPa ?? (fitPressures.length ? [Math.min(...fitPressures), median(fitPressures), Math.max(...fitPressures)].filter((p, i, a) => a.indexOf(p) === i) : [1, 10, 50]);
+  const kinds =
+    options.kinds ??
+    (Object.keys(PROPERTY_MODELS) as FitKind[]).filter((k) => !PROPERTY_MODELS[k].needsMolarMass || context.molarMassGPerMol !== undefined);
+  const fitPressures = [
+    ...new Set(
+      measurementSets
+        .filter((d) => d.kind === 'density')
+        .flatMap((d) => d.rows.map((r) => r.pressureMPa).filter((p): p is number => p !== undefined)),
+    ),
+  ];
+  const pressures =
+    options.densityPressuresMPa ??
+    (fitPressures.length
+      ? [Math.min(...fitPressures), median(fitPressures), Math.max(...fitPressures)].filter((p, i, a) => a.indexOf(p) === i)
+      : [1, 10, 50]);
   const candidates = options.candidates ?? defaultCandidates(fit, kinds, pressures);
   const uncertaintyOf = (kind: FitKind) => options.typicalUncertainty?.[kind] ?? typicalUncertaintyFromData(measurementSets, kind);
   const suggestions: Suggestion[] = [];

@@ -24,7 +24,16 @@ const FIT = { restarts: 0, profiles: false } as const;
 
 /** A set's prior: mean, standard errors and correlation as a parameter set stores them. */
 function setPrior(epsilonK: number, sigmaAngstrom: number, seE: number, seS: number, r: number): ParameterSetPrior {
-  return { parameterSetId: 7, label: 'Quillmoor gas LJ 12-6 set v1 (approved)', epsilonK, sigmaAngstrom, covariance: [[seE * seE, r * seE * seS], [r * seE * seS, seS * seS]] };
+  return {
+    parameterSetId: 7,
+    label: 'Quillmoor gas LJ 12-6 set v1 (approved)',
+    epsilonK,
+    sigmaAngstrom,
+    covariance: [
+      [seE * seE, r * seE * seS],
+      [r * seE * seS, seS * seS],
+    ],
+  };
 }
 
 describe('Gaussian prior from a previous parameter set', () => {
@@ -35,7 +44,13 @@ describe('Gaussian prior from a previous parameter set', () => {
 
   it('a very tight prior (1 % of the standard errors, 3 standard errors away): the posterior collapses onto the prior', () => {
     // Product of Gaussians: the mean moves from the prior's by (σ_p²/σ_L²)·Δ ≈ 10⁻⁴·3 se, far below the prior's width.
-    const prior = setPrior(fit.epsilonK + 3 * se.epsilonK, fit.sigmaAngstrom - 2 * se.sigmaAngstrom, 0.01 * se.epsilonK, 0.01 * se.sigmaAngstrom, 0.5);
+    const prior = setPrior(
+      fit.epsilonK + 3 * se.epsilonK,
+      fit.sigmaAngstrom - 2 * se.sigmaAngstrom,
+      0.01 * se.epsilonK,
+      0.01 * se.sigmaAngstrom,
+      0.5,
+    );
     const post = ljPosterior(data, {}, fit, { ...run, prior });
     const sd = { epsilonK: 0.01 * se.epsilonK, sigmaAngstrom: 0.01 * se.sigmaAngstrom };
     for (const n of ['epsilonK', 'sigmaAngstrom'] as const) {
@@ -52,12 +67,18 @@ describe('Gaussian prior from a previous parameter set', () => {
 
   it('a broad prior (100 times the standard errors): the posterior is the flat-prior one within sampling error', () => {
     const flat = ljPosterior(data, {}, fit, run);
-    const broad = ljPosterior(data, {}, fit, { ...run, prior: setPrior(fit.epsilonK, fit.sigmaAngstrom, 100 * se.epsilonK, 100 * se.sigmaAngstrom, -0.9) });
+    const broad = ljPosterior(data, {}, fit, {
+      ...run,
+      prior: setPrior(fit.epsilonK, fit.sigmaAngstrom, 100 * se.epsilonK, 100 * se.sigmaAngstrom, -0.9),
+    });
     for (const n of ['epsilonK', 'sigmaAngstrom'] as const) {
       // Two independent chains: the Monte-Carlo standard error of a median is √(π/2)·sd/√N_eff (N_eff = walkers·steps/τ,
       // from the sampler's own τ); the medians may differ by 3 of their combined errors, the 95 % ends by 6 (a tail quantile
       // is about twice as noisy as the median; common practice, no source).
-      const mcError = Math.sqrt(Math.PI / 2) * flat[n].standardDeviation * Math.sqrt(1 / flat.diagnostics.effectiveSamples + 1 / broad.diagnostics.effectiveSamples);
+      const mcError =
+        Math.sqrt(Math.PI / 2) *
+        flat[n].standardDeviation *
+        Math.sqrt(1 / flat.diagnostics.effectiveSamples + 1 / broad.diagnostics.effectiveSamples);
       expect(Math.abs(broad[n].median - flat[n].median)).toBeLessThan(3 * mcError);
       expect(Math.abs(broad[n].lower95 - flat[n].lower95)).toBeLessThan(6 * mcError);
       expect(Math.abs(broad[n].upper95 - flat[n].upper95)).toBeLessThan(6 * mcError);
@@ -65,7 +86,7 @@ describe('Gaussian prior from a previous parameter set', () => {
     }
   });
 
-  it('with σ held, the prior of ε is the set\'s Gaussian conditioned on the held σ', () => {
+  it("with σ held, the prior of ε is the set's Gaussian conditioned on the held σ", () => {
     const prior = setPrior(150, 3.7, 2, 0.02, -0.8);
     const conditional = priorOnFree(prior, ['epsilonK'], { epsilonK: 0, sigmaAngstrom: 3.72 })!;
     // μ_ε|σ = μ_ε + ρ s_ε/s_σ (σ − μ_σ) = 150 − 0.8·100·0.02 = 148.4; s² = s_ε²(1 − ρ²) = 4·0.36 (textbook Gaussian conditioning, no source).
@@ -74,7 +95,12 @@ describe('Gaussian prior from a previous parameter set', () => {
   });
 
   it('a covariance that is not positive definite is refused by the sampler', () => {
-    expect(choleskyLower([[1, 2], [2, 1]])).toBeNull();
+    expect(
+      choleskyLower([
+        [1, 2],
+        [2, 1],
+      ]),
+    ).toBeNull();
     expect(() => ljPosterior(data, {}, fit, { ...run, samples: 20, prior: setPrior(150, 3.7, 1, 0.01, 1.5) })).toThrow(/positive-definite/);
   });
 
@@ -92,7 +118,10 @@ describe('Gaussian prior from a previous parameter set', () => {
         free: ['epsilonK', 'sigmaAngstrom'],
         estimate: mean,
         stdErr: s,
-        covariance: [[4, -0.9 * 2 * 0.01], [-0.9 * 2 * 0.01, 1e-4]],
+        covariance: [
+          [4, -0.9 * 2 * 0.01],
+          [-0.9 * 2 * 0.01, 1e-4],
+        ],
         bounds: { epsilonK: [50, 400], sigmaAngstrom: [2.5, 5] },
         noiseScale: 1,
         evaluate: like,

@@ -1,5 +1,13 @@
 import { describe, expect, it } from 'vitest';
-import { credibleRegionOutline, gelmanRubin, integratedAutocorrelationTime, intervalDisagreement, PosteriorInputError, sampleEnsemble, summarise } from './posterior';
+import {
+  credibleRegionOutline,
+  gelmanRubin,
+  integratedAutocorrelationTime,
+  intervalDisagreement,
+  PosteriorInputError,
+  sampleEnsemble,
+  summarise,
+} from './posterior';
 import { gaussianGenerator, mulberry32 } from './random';
 
 // A correlated bivariate normal (means 10 and 3, s.d. 2 and 0.1, correlation −0.99): the exact central 95 %
@@ -15,7 +23,18 @@ function logNormal2(x: readonly number[]): number {
 const Z975 = 1.959964;
 
 describe('affine-invariant ensemble sampler (Goodman & Weare 2010)', () => {
-  const run = sampleEnsemble(logNormal2, { bounds: [[-100, 100], [-100, 100]], initial: [10.5, 2.95], initialSpread: [0.01, 0.001], walkers: 32, steps: 3000, burnIn: 500, seed: 7 });
+  const run = sampleEnsemble(logNormal2, {
+    bounds: [
+      [-100, 100],
+      [-100, 100],
+    ],
+    initial: [10.5, 2.95],
+    initialSpread: [0.01, 0.001],
+    walkers: 32,
+    steps: 3000,
+    burnIn: 500,
+    seed: 7,
+  });
 
   it('recovers the intervals of a strongly correlated normal within the Monte-Carlo error', () => {
     for (const k of [0, 1]) {
@@ -27,7 +46,9 @@ describe('affine-invariant ensemble sampler (Goodman & Weare 2010)', () => {
       expect(Math.abs(s.standardDeviation / SD[k] - 1)).toBeLessThan(0.05);
     }
     const [a, b] = [0, 1].map((k) => summarise(run.samples.map((x) => x[k])));
-    const c = run.samples.reduce((s, x) => s + (x[0] - a.mean) * (x[1] - b.mean), 0) / (run.samples.length * a.standardDeviation * b.standardDeviation);
+    const c =
+      run.samples.reduce((s, x) => s + (x[0] - a.mean) * (x[1] - b.mean), 0) /
+      (run.samples.length * a.standardDeviation * b.standardDeviation);
     expect(Math.abs(c - RHO)).toBeLessThan(0.003);
   });
 
@@ -45,7 +66,16 @@ describe('affine-invariant ensemble sampler (Goodman & Weare 2010)', () => {
   });
 
   it('is reproducible with a fixed seed and different with another', () => {
-    const opts = { bounds: [[-100, 100], [-100, 100]] as Array<[number, number]>, initial: [10, 3], initialSpread: [0.1, 0.01], steps: 50, burnIn: 10 };
+    const opts = {
+      bounds: [
+        [-100, 100],
+        [-100, 100],
+      ] as Array<[number, number]>,
+      initial: [10, 3],
+      initialSpread: [0.1, 0.01],
+      steps: 50,
+      burnIn: 10,
+    };
     const a = sampleEnsemble(logNormal2, { ...opts, seed: 1 });
     const b = sampleEnsemble(logNormal2, { ...opts, seed: 1 });
     const c = sampleEnsemble(logNormal2, { ...opts, seed: 2 });
@@ -55,11 +85,29 @@ describe('affine-invariant ensemble sampler (Goodman & Weare 2010)', () => {
 
   it('respects the flat prior bounds and a Gaussian prior', () => {
     // Flat target on [0, 1]² truncated by bounds [0, 0.5] in the first parameter: its median is 0.25.
-    const bounded = sampleEnsemble(() => 0, { bounds: [[0, 0.5], [0, 1]], initial: [0.25, 0.5], initialSpread: [0.05, 0.05], steps: 800, burnIn: 200, seed: 3 });
+    const bounded = sampleEnsemble(() => 0, {
+      bounds: [
+        [0, 0.5],
+        [0, 1],
+      ],
+      initial: [0.25, 0.5],
+      initialSpread: [0.05, 0.05],
+      steps: 800,
+      burnIn: 200,
+      seed: 3,
+    });
     expect(Math.max(...bounded.samples.map((x) => x[0]))).toBeLessThanOrEqual(0.5);
     expect(Math.abs(summarise(bounded.samples.map((x) => x[0])).median - 0.25)).toBeLessThan(0.02);
     // A Gaussian likelihood N(0, 1) times a Gaussian prior N(2, 1) is N(1, 1/2) (conjugate normal, common practice).
-    const prior = sampleEnsemble((x) => -0.5 * x[0] * x[0], { bounds: [[-50, 50]], initial: [1], initialSpread: [0.1], gaussianPriors: [{ mean: 2, standardDeviation: 1 }], steps: 3000, burnIn: 300, seed: 4 });
+    const prior = sampleEnsemble((x) => -0.5 * x[0] * x[0], {
+      bounds: [[-50, 50]],
+      initial: [1],
+      initialSpread: [0.1],
+      gaussianPriors: [{ mean: 2, standardDeviation: 1 }],
+      steps: 3000,
+      burnIn: 300,
+      seed: 4,
+    });
     const s = summarise(prior.samples.map((x) => x[0]));
     expect(Math.abs(s.mean - 1)).toBeLessThan(0.05);
     expect(Math.abs(s.standardDeviation - Math.SQRT1_2)).toBeLessThan(0.03);
@@ -103,7 +151,17 @@ describe('diagnostics', () => {
   });
 
   it('the credible-region outline surrounds the median and lies within the samples', () => {
-    const run = sampleEnsemble(logNormal2, { bounds: [[-100, 100], [-100, 100]], initial: [10, 3], initialSpread: [0.1, 0.01], steps: 400, burnIn: 200, seed: 5 });
+    const run = sampleEnsemble(logNormal2, {
+      bounds: [
+        [-100, 100],
+        [-100, 100],
+      ],
+      initial: [10, 3],
+      initialSpread: [0.1, 0.01],
+      steps: 400,
+      burnIn: 200,
+      seed: 5,
+    });
     const outline = credibleRegionOutline(run.samples, run.logPosterior);
     expect(outline.length).toBeGreaterThan(40);
     // Points of the 95 % region of a bivariate normal sit at Mahalanobis radius² ≈ χ²₂(0.95) = 5.99 (from memory).

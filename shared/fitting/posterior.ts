@@ -99,12 +99,16 @@ export class PosteriorInputError extends Error {
 function validate(options: EnsembleSamplerOptions): { p: number; walkers: number; steps: number; burnIn: number; seed: number } {
   const p = options.initial.length;
   if (p === 0) throw new PosteriorInputError('at least one parameter is needed');
-  if (options.bounds.length !== p || options.initialSpread.length !== p) throw new PosteriorInputError(`bounds, initial and initialSpread must all have ${p} entries`);
+  if (options.bounds.length !== p || options.initialSpread.length !== p)
+    throw new PosteriorInputError(`bounds, initial and initialSpread must all have ${p} entries`);
   options.bounds.forEach(([lo, hi], k) => {
-    if (!(hi > lo) || !Number.isFinite(lo) || !Number.isFinite(hi)) throw new PosteriorInputError(`bounds of parameter ${k + 1} must be finite with lower < upper, got [${lo}, ${hi}]`);
+    if (!(hi > lo) || !Number.isFinite(lo) || !Number.isFinite(hi))
+      throw new PosteriorInputError(`bounds of parameter ${k + 1} must be finite with lower < upper, got [${lo}, ${hi}]`);
     const x = options.initial[k];
-    if (!(x >= lo && x <= hi)) throw new PosteriorInputError(`the starting value of parameter ${k + 1} (${x}) lies outside its bounds [${lo}, ${hi}]`);
-    if (!(options.initialSpread[k] > 0) || !Number.isFinite(options.initialSpread[k])) throw new PosteriorInputError(`initialSpread of parameter ${k + 1} must be a positive finite number`);
+    if (!(x >= lo && x <= hi))
+      throw new PosteriorInputError(`the starting value of parameter ${k + 1} (${x}) lies outside its bounds [${lo}, ${hi}]`);
+    if (!(options.initialSpread[k] > 0) || !Number.isFinite(options.initialSpread[k]))
+      throw new PosteriorInputError(`initialSpread of parameter ${k + 1} must be a positive finite number`);
   });
   options.gaussianPriors?.forEach((prior, k) => {
     if (prior && (!Number.isFinite(prior.mean) || !(prior.standardDeviation > 0) || !Number.isFinite(prior.standardDeviation))) {
@@ -113,11 +117,14 @@ function validate(options: EnsembleSamplerOptions): { p: number; walkers: number
   });
   if (options.multivariatePrior) {
     const { mean, covariance } = options.multivariatePrior;
-    if (mean.length !== p || covariance.length !== p || covariance.some((row) => row.length !== p)) throw new PosteriorInputError(`the multivariate prior needs a mean of ${p} entries and a ${p}×${p} covariance`);
-    if (!mean.every(Number.isFinite) || !choleskyLower(covariance)) throw new PosteriorInputError('the multivariate prior needs a finite mean and a symmetric positive-definite covariance');
+    if (mean.length !== p || covariance.length !== p || covariance.some((row) => row.length !== p))
+      throw new PosteriorInputError(`the multivariate prior needs a mean of ${p} entries and a ${p}×${p} covariance`);
+    if (!mean.every(Number.isFinite) || !choleskyLower(covariance))
+      throw new PosteriorInputError('the multivariate prior needs a finite mean and a symmetric positive-definite covariance');
   }
   const walkers = options.walkers ?? Math.max(16, 4 * p);
-  if (!Number.isInteger(walkers) || walkers < 2 * p + 2 || walkers % 2 !== 0) throw new PosteriorInputError(`walkers must be an even integer of at least ${2 * p + 2}, got ${walkers}`);
+  if (!Number.isInteger(walkers) || walkers < 2 * p + 2 || walkers % 2 !== 0)
+    throw new PosteriorInputError(`walkers must be an even integer of at least ${2 * p + 2}, got ${walkers}`);
   const steps = options.steps ?? 1000;
   if (!Number.isInteger(steps) || steps < 10) throw new PosteriorInputError(`steps must be an integer of at least 10, got ${steps}`);
   const burnIn = options.burnIn ?? 300;
@@ -216,13 +223,18 @@ export async function sampleEnsembleAsync(
 }
 
 /** The sampler itself, pausing (yield) after every step of the ensemble. */
-function* ensembleSteps(logLikelihood: (parameters: readonly number[]) => number, options: EnsembleSamplerOptions): Generator<void, EnsembleRun, void> {
+function* ensembleSteps(
+  logLikelihood: (parameters: readonly number[]) => number,
+  options: EnsembleSamplerOptions,
+): Generator<void, EnsembleRun, void> {
   const { p, walkers, steps, burnIn, seed } = validate(options);
   const uniform = mulberry32(seed);
   const gaussian = gaussianGenerator(mulberry32(seed ^ 0x5bd1e995));
   const mvFactor = options.multivariatePrior ? choleskyLower(options.multivariatePrior.covariance)! : null;
   const logPosteriorOf = (x: readonly number[]): number => {
-    const prior = logPrior(x, options.bounds, options.gaussianPriors) + (mvFactor ? multivariateGaussianLog(x, options.multivariatePrior!, mvFactor) : 0);
+    const prior =
+      logPrior(x, options.bounds, options.gaussianPriors) +
+      (mvFactor ? multivariateGaussianLog(x, options.multivariatePrior!, mvFactor) : 0);
     if (prior === -Infinity) return -Infinity;
     let like: number;
     try {
@@ -292,10 +304,16 @@ function* ensembleSteps(logLikelihood: (parameters: readonly number[]) => number
   const effectiveSamples = Math.min(...autocorrelationTime.map((tau) => (walkers * steps) / tau));
   const warnings: string[] = [];
   autocorrelationTime.forEach((tau, k) => {
-    if (steps < MIN_CHAIN_OVER_TAU * tau) warnings.push(`parameter ${k + 1}: the chains are ${(steps / tau).toFixed(0)} autocorrelation times long (τ = ${tau.toFixed(1)} steps), fewer than ${MIN_CHAIN_OVER_TAU}: run more steps before trusting the intervals`);
+    if (steps < MIN_CHAIN_OVER_TAU * tau)
+      warnings.push(
+        `parameter ${k + 1}: the chains are ${(steps / tau).toFixed(0)} autocorrelation times long (τ = ${tau.toFixed(1)} steps), fewer than ${MIN_CHAIN_OVER_TAU}: run more steps before trusting the intervals`,
+      );
   });
   rHat.forEach((r, k) => {
-    if (!(r <= MAX_R_HAT)) warnings.push(`parameter ${k + 1}: the walkers disagree (R-hat ${r.toFixed(3)} > ${MAX_R_HAT}): they have not mixed; run more steps or a longer burn-in`);
+    if (!(r <= MAX_R_HAT))
+      warnings.push(
+        `parameter ${k + 1}: the walkers disagree (R-hat ${r.toFixed(3)} > ${MAX_R_HAT}): they have not mixed; run more steps or a longer burn-in`,
+      );
   });
   return {
     samples,
@@ -381,7 +399,13 @@ export function summarise(values: readonly number[]): ParameterSummary {
   const sorted = [...values].sort((x, y) => x - y);
   const mean = values.reduce((s, v) => s + v, 0) / values.length;
   const variance = values.reduce((s, v) => s + (v - mean) ** 2, 0) / Math.max(1, values.length - 1);
-  return { median: quantile(sorted, 0.5), lower95: quantile(sorted, 0.025), upper95: quantile(sorted, 0.975), mean, standardDeviation: Math.sqrt(variance) };
+  return {
+    median: quantile(sorted, 0.5),
+    lower95: quantile(sorted, 0.025),
+    upper95: quantile(sorted, 0.975),
+    mean,
+    standardDeviation: Math.sqrt(variance),
+  };
 }
 
 /**
@@ -409,7 +433,10 @@ export function intervalDisagreement(
     Math.abs(widthRatio - 1) > tolerance
       ? `the posterior interval is ${widthRatio > 1 ? `${((widthRatio - 1) * 100).toFixed(0)} % wider` : `${((1 - widthRatio) * 100).toFixed(0)} % narrower`} than the standard error suggests`
       : 'the posterior interval is shifted against the linearised one';
-  const skew = Math.abs(above - below) > tolerance * (above + below) ? `; it is lopsided, reaching further toward ${above > below ? 'larger' : 'smaller'} values` : '';
+  const skew =
+    Math.abs(above - below) > tolerance * (above + below)
+      ? `; it is lopsided, reaching further toward ${above > below ? 'larger' : 'smaller'} values`
+      : '';
   return `${label}: the posterior 95 % interval, ${fmt(posterior.lower95)} to ${fmt(posterior.upper95)} ${unit}, differs from the linearised one, ${fmt(linearised.lower95)} to ${fmt(linearised.upper95)} ${unit}: ${shape}${skew}. The χ² surface is not the parabola the standard error assumes; quote the posterior interval.`;
 }
 
@@ -419,7 +446,13 @@ export function intervalDisagreement(
  * coordinates scaled by the sample standard deviations) the one farthest out. Star-shaped regions (the usual
  * banana included) are traced faithfully; the outline goes once round.
  */
-export function credibleRegionOutline(samples: readonly number[][], logPosterior: readonly number[], a = 0, b = 1, sectors = 72): Array<[number, number]> {
+export function credibleRegionOutline(
+  samples: readonly number[][],
+  logPosterior: readonly number[],
+  a = 0,
+  b = 1,
+  sectors = 72,
+): Array<[number, number]> {
   if (samples.length < 10) return [];
   const sortedLp = [...logPosterior].sort((x, y) => x - y);
   const threshold = quantile(sortedLp, 0.05);

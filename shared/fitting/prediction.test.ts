@@ -58,7 +58,10 @@ describe('predictions with propagated uncertainty', () => {
       const f = (e: number, s: number) => PROPERTY_MODELS[kind].evaluate(state, e, s, CONTEXT).value;
       const he = 1e-4 * SET.epsilonK;
       const hs = 1e-4 * SET.sigmaAngstrom;
-      const g = [(f(SET.epsilonK + he, SET.sigmaAngstrom) - f(SET.epsilonK - he, SET.sigmaAngstrom)) / (2 * he), (f(SET.epsilonK, SET.sigmaAngstrom + hs) - f(SET.epsilonK, SET.sigmaAngstrom - hs)) / (2 * hs)];
+      const g = [
+        (f(SET.epsilonK + he, SET.sigmaAngstrom) - f(SET.epsilonK - he, SET.sigmaAngstrom)) / (2 * he),
+        (f(SET.epsilonK, SET.sigmaAngstrom + hs) - f(SET.epsilonK, SET.sigmaAngstrom - hs)) / (2 * hs),
+      ];
       const c = SET.covariance;
       const fd = Math.sqrt(g[0] * g[0] * c[0][0] + 2 * g[0] * g[1] * c[0][1] + g[1] * g[1] * c[1][1]);
       expect(Math.abs(p.standardError / fd - 1)).toBeLessThan(1e-4);

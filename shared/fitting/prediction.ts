@@ -42,22 +42,30 @@ export interface Prediction {
 }
 
 /** One property at each state, with its propagated uncertainty and a validity mark. */
-export function predictWithUncertainty(kind: FitKind, states: readonly PredictionState[], set: PredictionSet, context: PropertyContext): Prediction[] {
+export function predictWithUncertainty(
+  kind: FitKind,
+  states: readonly PredictionState[],
+  set: PredictionSet,
+  context: PropertyContext,
+): Prediction[] {
   const model = PROPERTY_MODELS[kind];
   const c = set.covariance;
   const band = set.draws && set.draws.length >= 40 ? posteriorPredictiveBand(kind, states, set.draws, context) : null;
   return states.map((state, i) => {
     if (!(state.temperatureK > 0)) throw new RangeError(`state ${i + 1}: temperatureK must be positive, got ${state.temperatureK}`);
-    if (model.needsPressure && !(Number(state.pressureMPa) > 0)) throw new RangeError(`state ${i + 1}: the ${model.label} needs a positive pressureMPa`);
+    if (model.needsPressure && !(Number(state.pressureMPa) > 0))
+      throw new RangeError(`state ${i + 1}: the ${model.label} needs a positive pressureMPa`);
     const p = model.evaluate(state, set.epsilonK, set.sigmaAngstrom, context);
     const g = [p.dEpsilonK, p.dSigmaAngstrom];
     const variance = g[0] * g[0] * c[0][0] + 2 * g[0] * g[1] * c[0][1] + g[1] * g[1] * c[1][1];
     const standardError = Math.sqrt(Math.max(0, variance));
     const reasons: string[] = [];
     const t = set.validity?.temperatureK;
-    if (t && (state.temperatureK < t[0] || state.temperatureK > t[1])) reasons.push(`${state.temperatureK} K lies outside the validity range ${t[0]}–${t[1]} K`);
+    if (t && (state.temperatureK < t[0] || state.temperatureK > t[1]))
+      reasons.push(`${state.temperatureK} K lies outside the validity range ${t[0]}–${t[1]} K`);
     const pr = set.validity?.pressureMPa;
-    if (pr && state.pressureMPa !== undefined && (state.pressureMPa < pr[0] || state.pressureMPa > pr[1])) reasons.push(`${state.pressureMPa} MPa lies outside the validity range ${pr[0]}–${pr[1]} MPa`);
+    if (pr && state.pressureMPa !== undefined && (state.pressureMPa < pr[0] || state.pressureMPa > pr[1]))
+      reasons.push(`${state.pressureMPa} MPa lies outside the validity range ${pr[0]}–${pr[1]} MPa`);
     const fromDraws = band?.[i];
     const useDraws = fromDraws !== undefined && Number.isFinite(fromDraws.lower95) && Number.isFinite(fromDraws.upper95);
     return {
@@ -71,7 +79,11 @@ export function predictWithUncertainty(kind: FitKind, states: readonly Predictio
       upper95: useDraws ? fromDraws.upper95 : p.value + Z_95 * standardError,
       intervalMethod: useDraws ? 'posterior draws' : 'linearised covariance',
       outsideValidity: reasons.length > 0,
-      ...(reasons.length ? { note: `Extrapolated: ${reasons.join('; ')}. The set was not fitted there and its uncertainty does not cover the model's own error.` } : {}),
+      ...(reasons.length
+        ? {
+            note: `Extrapolated: ${reasons.join('; ')}. The set was not fitted there and its uncertainty does not cover the model's own error.`,
+          }
+        : {}),
     };
   });
 }

@@ -51,7 +51,10 @@ export function profileChi2(scan: ProfileScan): ProfileCurve {
   const right: Array<{ v: number; d: number }> = [];
   const crossings: Array<number | null> = [null, null];
 
-  for (const [side, out] of [[-1, left], [1, right]] as const) {
+  for (const [side, out] of [
+    [-1, left],
+    [1, right],
+  ] as const) {
     let warm = scan.othersAtBest;
     let previous = { v: scan.best, d: 0, warm };
     for (let k = 1; k <= perSide; k++) {
@@ -82,5 +85,11 @@ export function profileChi2(scan: ProfileScan): ProfileCurve {
     }
   }
   const points = [...left.reverse(), { v: scan.best, d: 0 }, ...right];
-  return { values: points.map((p) => p.v), deltaChi2: points.map((p) => Math.max(0, p.d)), lower: crossings[0], upper: crossings[1], threshold: scan.threshold };
+  return {
+    values: points.map((p) => p.v),
+    deltaChi2: points.map((p) => Math.max(0, p.d)),
+    lower: crossings[0],
+    upper: crossings[1],
+    threshold: scan.threshold,
+  };
 }

@@ -67,8 +67,12 @@ export const PROPERTY_MODELS = {
     sigmaExponent: 3,
     supportsMie: true,
     evaluate(point, epsilonK, sigmaAngstrom, context) {
-      const quantum = context.quantumCorrection && context.molarMassGPerMol !== undefined ? { molarMassGPerMol: context.molarMassGPerMol } : undefined;
-      const p = context.repulsiveExponent === undefined ? b2WithGradient(point.temperatureK, epsilonK, sigmaAngstrom, quantum) : b2WithGradient(point.temperatureK, epsilonK, sigmaAngstrom, quantum, { repulsiveExponent: context.repulsiveExponent });
+      const quantum =
+        context.quantumCorrection && context.molarMassGPerMol !== undefined ? { molarMassGPerMol: context.molarMassGPerMol } : undefined;
+      const p =
+        context.repulsiveExponent === undefined
+          ? b2WithGradient(point.temperatureK, epsilonK, sigmaAngstrom, quantum)
+          : b2WithGradient(point.temperatureK, epsilonK, sigmaAngstrom, quantum, { repulsiveExponent: context.repulsiveExponent });
       return { value: p.b2Cm3PerMol, dEpsilonK: p.dB2dEpsilonK, dSigmaAngstrom: p.dB2dSigmaAngstrom };
     },
   },
@@ -104,7 +108,10 @@ export const PROPERTY_MODELS = {
         // Two fluid roots (below the critical temperature): the measurement says which phase it is.
         const measuredStar = reducedDensityOf(point.measured, context.molarMassGPerMol, sigmaAngstrom);
         const nearest = eos.roots.reduce((a, b) => (Math.abs(Math.log(b / measuredStar)) < Math.abs(Math.log(a / measuredStar)) ? b : a));
-        if (nearest !== eos.reducedDensity) eos = ljEosDensity(reduced.reducedTemperature, reduced.reducedPressure, { prefer: nearest < eos.reducedDensity ? 'vapour' : 'liquid' });
+        if (nearest !== eos.reducedDensity)
+          eos = ljEosDensity(reduced.reducedTemperature, reduced.reducedPressure, {
+            prefer: nearest < eos.reducedDensity ? 'vapour' : 'liquid',
+          });
       }
       const g = densityWithGradient(eos, state, context.molarMassGPerMol);
       return { value: g.densityKgPerM3, dEpsilonK: g.dRhodEpsilonK, dSigmaAngstrom: g.dRhodSigmaAngstrom };
@@ -151,7 +158,14 @@ export const PROPERTY_MODELS = {
     needsPressure: false,
     sigmaExponent: -3,
     evaluate(point, epsilonK, sigmaAngstrom, context) {
-      return saturationPrediction('vapourPressure', point.temperatureK, epsilonK, sigmaAngstrom, context.molarMassGPerMol, context.eosModel);
+      return saturationPrediction(
+        'vapourPressure',
+        point.temperatureK,
+        epsilonK,
+        sigmaAngstrom,
+        context.molarMassGPerMol,
+        context.eosModel,
+      );
     },
     rangeProblem: (point, epsilonK, _sigma, context) => saturationRangeProblem(point.temperatureK, epsilonK, context.eosModel),
   },

@@ -16,21 +16,45 @@ describe('quantum diagnostics of a fit', () => {
   });
 
   it('reports nothing quantum for a heavy gas and no Λ* without B2 or viscosity data', () => {
-    const argonLike = quantumDiagnostics([{ kind: 'b2', temperatureK: 300, uncertainty: 1 }], { epsilonK: 119.8, sigmaAngstrom: 3.405, covariance: null }, 39.948, false);
+    const argonLike = quantumDiagnostics(
+      [{ kind: 'b2', temperatureK: 300, uncertainty: 1 }],
+      { epsilonK: 119.8, sigmaAngstrom: 3.405, covariance: null },
+      39.948,
+      false,
+    );
     expect(argonLike.warnings).toEqual([]);
-    expect(quantumDiagnostics([{ kind: 'density', temperatureK: 300, uncertainty: 1 }], { epsilonK: 119.8, sigmaAngstrom: 3.405, covariance: null }, 39.948, false).deBoerParameter).toBeNull();
+    expect(
+      quantumDiagnostics(
+        [{ kind: 'density', temperatureK: 300, uncertainty: 1 }],
+        { epsilonK: 119.8, sigmaAngstrom: 3.405, covariance: null },
+        39.948,
+        false,
+      ).deBoerParameter,
+    ).toBeNull();
   });
 
   it('flags a classical fit to neon-like B2 as biased and reports Λ* with its standard error', () => {
     // Synthetic data: Feynman–Hibbs B2 of the neon-like gas at 45–200 K with u = 0.2 cm³/mol.
-    const data: FitMeasurementSet[] = [{ id: 'ne', kind: 'b2', rows: [45, 60, 80, 110, 150, 200].map((t) => ({ temperatureK: t, value: quantumB2(t, NE.epsilonK, NE.sigmaAngstrom, NE.molarMass).feynmanHibbsCm3PerMol, uncertainty: 0.2 })) }];
+    const data: FitMeasurementSet[] = [
+      {
+        id: 'ne',
+        kind: 'b2',
+        rows: [45, 60, 80, 110, 150, 200].map((t) => ({
+          temperatureK: t,
+          value: quantumB2(t, NE.epsilonK, NE.sigmaAngstrom, NE.molarMass).feynmanHibbsCm3PerMol,
+          uncertainty: 0.2,
+        })),
+      },
+    ];
     const classical = fitLennardJones(data, { molarMassGPerMol: NE.molarMass, profiles: false } as Parameters<typeof fitLennardJones>[1]);
     expect(classical.status).toBe('succeeded');
     expect(classical.deBoerParameter).toBeGreaterThan(0.55);
     expect(classical.deBoerParameter).toBeLessThan(0.65);
     expect(classical.deBoerParameterStdErr).toBeGreaterThan(0);
     expect(classical.warnings.join(' ')).toMatch(/classical fit is biased by quantum effects/);
-    const corrected = fitLennardJones(data, { molarMassGPerMol: NE.molarMass, quantumCorrection: true, profiles: false } as Parameters<typeof fitLennardJones>[1]);
+    const corrected = fitLennardJones(data, { molarMassGPerMol: NE.molarMass, quantumCorrection: true, profiles: false } as Parameters<
+      typeof fitLennardJones
+    >[1]);
     expect(corrected.warnings.join(' ')).not.toMatch(/classical fit is biased/);
     // The corrected fit lands nearer the true ε than the classical one (the bias the warning names).
     expect(Math.abs(corrected.epsilonK - NE.epsilonK)).toBeLessThan(Math.abs(classical.epsilonK - NE.epsilonK));

@@ -56,7 +56,11 @@ export function quantumDiagnostics(
       breakdown = { t: p.temperatureK, first: q.firstOrderCm3PerMol, classical: q.classicalCm3PerMol };
     }
     const shift = q.feynmanHibbsCm3PerMol - q.classicalCm3PerMol;
-    if (!quantumCorrection && Math.abs(shift) > p.uncertainty && (!bias || Math.abs(shift) / p.uncertainty > Math.abs(bias.shift) / bias.u)) {
+    if (
+      !quantumCorrection &&
+      Math.abs(shift) > p.uncertainty &&
+      (!bias || Math.abs(shift) / p.uncertainty > Math.abs(bias.shift) / bias.u)
+    ) {
       bias = { t: p.temperatureK, shift, u: p.uncertainty };
     }
   }

@@ -52,7 +52,9 @@ export function regionsOverlap(a: Region, b: Region): boolean {
   if (qb(a.center) <= 1 || qa(b.center) <= 1) return true;
   const at = (t: number): [number, number] => {
     const m = [0, 1].map((i) => [0, 1].map((j) => t * A[i][j] + (1 - t) * B[i][j]));
-    const rhs = [0, 1].map((i) => t * (A[i][0] * a.center[0] + A[i][1] * a.center[1]) + (1 - t) * (B[i][0] * b.center[0] + B[i][1] * b.center[1]));
+    const rhs = [0, 1].map(
+      (i) => t * (A[i][0] * a.center[0] + A[i][1] * a.center[1]) + (1 - t) * (B[i][0] * b.center[0] + B[i][1] * b.center[1]),
+    );
     const inv = inverse2(m);
     return [inv[0][0] * rhs[0] + inv[0][1] * rhs[1], inv[1][0] * rhs[0] + inv[1][1] * rhs[1]];
   };
@@ -90,7 +92,11 @@ export function kindTension(measurementSets: readonly FitMeasurementSet[], optio
     const mine = measurementSets.filter((d) => d.kind === kind);
     const points = mine.reduce((s, d) => s + d.rows.length - (d.excludeRows?.length ?? 0), 0);
     if (points < 3) {
-      regions.push({ kind, constrainsBoth: false, reason: `${points} point(s) of the ${LABEL(kind)} alone cannot fix two parameters with an uncertainty (3 are needed)` });
+      regions.push({
+        kind,
+        constrainsBoth: false,
+        reason: `${points} point(s) of the ${LABEL(kind)} alone cannot fix two parameters with an uncertainty (3 are needed)`,
+      });
       continue;
     }
     let fit: LjFitResult;
@@ -106,12 +112,20 @@ export function kindTension(measurementSets: readonly FitMeasurementSet[], optio
       continue;
     }
     shapes.set(kind, region);
-    regions.push({ kind, constrainsBoth: true, epsilonK: fit.epsilonK, sigmaAngstrom: fit.sigmaAngstrom, stdErr: fit.stdErr, ellipse95: fit.ellipse95?.points ?? [] });
+    regions.push({
+      kind,
+      constrainsBoth: true,
+      epsilonK: fit.epsilonK,
+      sigmaAngstrom: fit.sigmaAngstrom,
+      stdErr: fit.stdErr,
+      ellipse95: fit.ellipse95?.points ?? [],
+    });
   }
   const pairs: KindTension['pairs'] = [];
   const messages: string[] = [];
   const fitted = regions.filter((r) => r.constrainsBoth);
-  const describe = (r: KindRegion) => `${PROPERTY_MODELS[r.kind].label} alone: ε/k_B = ${r.epsilonK!.toPrecision(5)} ± ${r.stdErr!.epsilonK?.toPrecision(2)} K, σ = ${r.sigmaAngstrom!.toPrecision(5)} ± ${r.stdErr!.sigmaAngstrom?.toPrecision(2)} Å`;
+  const describe = (r: KindRegion) =>
+    `${PROPERTY_MODELS[r.kind].label} alone: ε/k_B = ${r.epsilonK!.toPrecision(5)} ± ${r.stdErr!.epsilonK?.toPrecision(2)} K, σ = ${r.sigmaAngstrom!.toPrecision(5)} ± ${r.stdErr!.sigmaAngstrom?.toPrecision(2)} Å`;
   for (let i = 0; i < fitted.length; i++) {
     for (let j = i + 1; j < fitted.length; j++) {
       const [a, b] = [fitted[i], fitted[j]];

@@ -76,7 +76,11 @@ describe('suggestColumnMapping', () => {
     expect(suggestColumnMapping(['T', 'P (bar)', 'rho (kg/m3)', 'comment']).kind).toBe('density');
     const s = suggestColumnMapping(['T', 'P (bar)', 'rho (kg/m3)', 'comment', 'eta (uPa s)'], 'density');
     expect(s.kind).toBe('density');
-    expect(s.mapping).toEqual({ 0: { quantity: 'temperature', unit: 'K' }, 1: { quantity: 'pressure', unit: 'bar' }, 2: { quantity: 'density', unit: 'kg/m3' } });
+    expect(s.mapping).toEqual({
+      0: { quantity: 'temperature', unit: 'K' },
+      1: { quantity: 'pressure', unit: 'bar' },
+      2: { quantity: 'density', unit: 'kg/m3' },
+    });
     expect(s.missingUnitColumns).toEqual([0]);
     expect(s.unrecognisedColumns).toEqual([3, 4]);
     expect(s.missingRequired).toEqual([]);

@@ -3,14 +3,7 @@
  * The quantity name is matched case-insensitively against the aliases in the kind registry; the
  * unit is the text in the last parentheses or brackets.
  */
-import {
-  PROPERTY_KIND_IDS,
-  PROPERTY_KINDS,
-  QUANTITIES,
-  kindQuantities,
-  type PropertyKind,
-  type QuantityKey,
-} from './property-kinds';
+import { PROPERTY_KIND_IDS, PROPERTY_KINDS, QUANTITIES, kindQuantities, type PropertyKind, type QuantityKey } from './property-kinds';
 
 export interface ParsedHeader {
   header: string;
@@ -35,7 +28,10 @@ export interface ColumnMappingEntry {
 export type ColumnMapping = Record<number, ColumnMappingEntry>;
 
 function nameKey(s: string): string {
-  return s.normalize('NFKC').toLowerCase().replace(/[\s_-]+/g, '');
+  return s
+    .normalize('NFKC')
+    .toLowerCase()
+    .replace(/[\s_-]+/g, '');
 }
 
 const ALIAS_INDEX: Map<string, QuantityKey> = (() => {
@@ -69,7 +65,14 @@ export function parseHeader(header: string): ParsedHeader {
   const bracket = /^(.*?)\s*[([]\s*([^()[\]]*?)\s*[)\]]\s*$/.exec(h);
   if (bracket && bracket[1] !== '') candidates.push({ name: bracket[1].replace(/\s*[/,:]\s*$/, ''), unitText: bracket[2] });
   const slash = /^([^/]+?)\s*\/\s*(.+)$/.exec(h);
-  if (slash) candidates.push({ name: slash[1], unitText: slash[2].trim().replace(/^\((.*)\)$/, '$1').trim() });
+  if (slash)
+    candidates.push({
+      name: slash[1],
+      unitText: slash[2]
+        .trim()
+        .replace(/^\((.*)\)$/, '$1')
+        .trim(),
+    });
   const inWord = /^(.+?)\s+in\s+(.+)$/i.exec(h);
   if (inWord) candidates.push({ name: inWord[1], unitText: inWord[2].trim() });
   for (const c of candidates) {

@@ -19,19 +19,93 @@ function expectClose(actual: number, expected: number, rel = 1e-12) {
 }
 
 describe('broken files: one problem each, with code, row and column', () => {
-  const cases: Array<{ file: string; code: string; row?: number; column?: string; field?: string; message: RegExp; options?: ParseOptions }> = [
-    { file: 'non-numeric-cell.csv', code: 'non-numeric', row: 4, column: 'B2 (cm3/mol)', message: /Row 4, column "B2 \(cm3\/mol\)": "n\/a" is not a number/ },
-    { file: 'missing-required-column.csv', code: 'missing-required-column', row: 1, field: 'pressureMPa', message: /No pressure column found .*"P \(MPa\)"/ },
-    { file: 'unknown-unit.csv', code: 'unknown-unit', row: 1, column: 'eta (cSt)', message: /Column "eta \(cSt\)": Unknown unit "cSt"\..*dynamic viscosity/ },
-    { file: 'wrong-dimension.csv', code: 'wrong-dimension', row: 1, column: 'P (kg/m3)', message: /Column "P \(kg\/m3\)": Unit "kg\/m3" is a mass density unit, but pressure needs a pressure unit/ },
-    { file: 'nonpositive-temperature.csv', code: 'nonpositive-temperature', row: 4, column: 'T (°C)', message: /Row 4, column "T \(°C\)": temperature -300 °C = -26\.85 K is not positive/ },
-    { file: 'nonpositive-pressure.csv', code: 'nonpositive-pressure', row: 3, column: 'P (MPa)', message: /Row 3, column "P \(MPa\)": pressure 0 MPa is not positive/ },
-    { file: 'nonpositive-density.csv', code: 'nonpositive-density', row: 4, column: 'rho (kg/m3)', message: /Row 4, column "rho \(kg\/m3\)": density -48 kg\/m³ is not positive/ },
-    { file: 'nonpositive-viscosity.csv', code: 'nonpositive-viscosity', row: 3, column: 'eta (uPa s)', message: /Row 3, column "eta \(uPa s\)": viscosity 0 µPa·s is not positive/ },
-    { file: 'nonpositive-uncertainty.csv', code: 'nonpositive-uncertainty', row: 3, column: 'u(B2) (cm3/mol)', message: /Row 3, column "u\(B2\) \(cm3\/mol\)": uncertainty of B2 -0\.5 cm³\/mol is not positive/ },
+  const cases: Array<{
+    file: string;
+    code: string;
+    row?: number;
+    column?: string;
+    field?: string;
+    message: RegExp;
+    options?: ParseOptions;
+  }> = [
+    {
+      file: 'non-numeric-cell.csv',
+      code: 'non-numeric',
+      row: 4,
+      column: 'B2 (cm3/mol)',
+      message: /Row 4, column "B2 \(cm3\/mol\)": "n\/a" is not a number/,
+    },
+    {
+      file: 'missing-required-column.csv',
+      code: 'missing-required-column',
+      row: 1,
+      field: 'pressureMPa',
+      message: /No pressure column found .*"P \(MPa\)"/,
+    },
+    {
+      file: 'unknown-unit.csv',
+      code: 'unknown-unit',
+      row: 1,
+      column: 'eta (cSt)',
+      message: /Column "eta \(cSt\)": Unknown unit "cSt"\..*dynamic viscosity/,
+    },
+    {
+      file: 'wrong-dimension.csv',
+      code: 'wrong-dimension',
+      row: 1,
+      column: 'P (kg/m3)',
+      message: /Column "P \(kg\/m3\)": Unit "kg\/m3" is a mass density unit, but pressure needs a pressure unit/,
+    },
+    {
+      file: 'nonpositive-temperature.csv',
+      code: 'nonpositive-temperature',
+      row: 4,
+      column: 'T (°C)',
+      message: /Row 4, column "T \(°C\)": temperature -300 °C = -26\.85 K is not positive/,
+    },
+    {
+      file: 'nonpositive-pressure.csv',
+      code: 'nonpositive-pressure',
+      row: 3,
+      column: 'P (MPa)',
+      message: /Row 3, column "P \(MPa\)": pressure 0 MPa is not positive/,
+    },
+    {
+      file: 'nonpositive-density.csv',
+      code: 'nonpositive-density',
+      row: 4,
+      column: 'rho (kg/m3)',
+      message: /Row 4, column "rho \(kg\/m3\)": density -48 kg\/m³ is not positive/,
+    },
+    {
+      file: 'nonpositive-viscosity.csv',
+      code: 'nonpositive-viscosity',
+      row: 3,
+      column: 'eta (uPa s)',
+      message: /Row 3, column "eta \(uPa s\)": viscosity 0 µPa·s is not positive/,
+    },
+    {
+      file: 'nonpositive-uncertainty.csv',
+      code: 'nonpositive-uncertainty',
+      row: 3,
+      column: 'u(B2) (cm3/mol)',
+      message: /Row 3, column "u\(B2\) \(cm3\/mol\)": uncertainty of B2 -0\.5 cm³\/mol is not positive/,
+    },
     // Row 5 writes row 2's state point as 26,850 °C and 1,0E1 bar: equal after parsing and conversion.
-    { file: 'duplicate-state-point.csv', code: 'duplicate-state-point', row: 5, column: 'T (°C)', message: /Row 5 \("T \(°C\)" = 26,850, "P \(bar\)" = 1,0E1\) repeats the state point of row 2 \(T = 300 K, P = 1 MPa\)/ },
-    { file: 'missing-molar-mass.csv', code: 'missing-molar-mass', row: 1, column: 'rho (mol/L)', message: /molar density; converting it to kg\/m³ needs the substance's molar mass/ },
+    {
+      file: 'duplicate-state-point.csv',
+      code: 'duplicate-state-point',
+      row: 5,
+      column: 'T (°C)',
+      message: /Row 5 \("T \(°C\)" = 26,850, "P \(bar\)" = 1,0E1\) repeats the state point of row 2 \(T = 300 K, P = 1 MPa\)/,
+    },
+    {
+      file: 'missing-molar-mass.csv',
+      code: 'missing-molar-mass',
+      row: 1,
+      column: 'rho (mol/L)',
+      message: /molar density; converting it to kg\/m³ needs the substance's molar mass/,
+    },
     { file: 'unknown-kind.csv', code: 'unknown-kind', row: 1, message: /Cannot tell which property .*"Temp", "Value", "Err"/ },
     { file: 'empty.csv', code: 'empty-file', message: /The file is empty/ },
     { file: 'header-only.csv', code: 'no-data-rows', message: /header line but no data rows/ },
@@ -51,7 +125,8 @@ describe('broken files: one problem each, with code, row and column', () => {
   });
 
   test('too many rows: generated, limit MAX_DATA_ROWS = 5000 by default and settable', () => {
-    const lines = (n: number) => ['T (K),eta (uPa s)', ...Array.from({ length: n }, (_, i) => `${100 + i * 0.1},${10 + i * 0.01}`)].join('\n');
+    const lines = (n: number) =>
+      ['T (K),eta (uPa s)', ...Array.from({ length: n }, (_, i) => `${100 + i * 0.1},${10 + i * 0.01}`)].join('\n');
     expect(MAX_DATA_ROWS).toBe(5000);
     const over = parseMeasurementCsv(lines(5001));
     expect(over.ok).toBe(false);
@@ -224,7 +299,11 @@ describe('good files', () => {
 
     const r = parseMeasurementCsv(text, {
       kind: 'b2',
-      mapping: { 0: { quantity: 'temperature', unit: 'degC' }, 1: { quantity: 'b2', unit: 'cm3/mol' }, 2: { quantity: 'uB2', unit: 'cm3/mol' } },
+      mapping: {
+        0: { quantity: 'temperature', unit: 'degC' },
+        1: { quantity: 'b2', unit: 'cm3/mol' },
+        2: { quantity: 'uB2', unit: 'cm3/mol' },
+      },
     });
     expect(r.problems).toEqual([]);
     const rows = r.rows as B2Row[];
@@ -293,7 +372,9 @@ describe('good files', () => {
       ['kind-mismatch', 1, 'B2 (cm3/mol)'],
       ['missing-required-column', 1, undefined],
     ]);
-    expect(r.problems[0].message).toMatch(/upload is for Dilute-gas shear viscosity η\(T\), but column "B2 \(cm3\/mol\)" holds second virial coefficient/);
+    expect(r.problems[0].message).toMatch(
+      /upload is for Dilute-gas shear viscosity η\(T\), but column "B2 \(cm3\/mol\)" holds second virial coefficient/,
+    );
   });
 
   test('template headers parse back to their own kind in canonical units', () => {

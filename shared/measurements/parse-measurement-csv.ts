@@ -125,24 +125,44 @@ function checkOptions(options: ParseOptions, problems: ProblemList) {
   let maxRows = MAX_DATA_ROWS;
   if (options.maxRows !== undefined) {
     if (!Number.isInteger(options.maxRows) || options.maxRows < 1) {
-      problems.add({ field: 'maxRows', code: 'invalid-option', message: `maxRows must be a positive integer, got ${String(options.maxRows)}.` });
+      problems.add({
+        field: 'maxRows',
+        code: 'invalid-option',
+        message: `maxRows must be a positive integer, got ${String(options.maxRows)}.`,
+      });
     } else maxRows = options.maxRows;
   }
   let molarMassGPerMol: number | undefined;
   if (options.molarMassGPerMol !== undefined) {
     const m = options.molarMassGPerMol;
     if (typeof m !== 'number' || !Number.isFinite(m) || m <= 0) {
-      problems.add({ field: 'molarMassGPerMol', code: 'invalid-molar-mass', message: `Molar mass must be a positive number of g/mol, got ${String(m)}.` });
+      problems.add({
+        field: 'molarMassGPerMol',
+        code: 'invalid-molar-mass',
+        message: `Molar mass must be a positive number of g/mol, got ${String(m)}.`,
+      });
     } else molarMassGPerMol = m;
   }
   if (options.kind !== undefined && !isPropertyKind(options.kind)) {
-    problems.add({ field: 'kind', code: 'invalid-option', message: `Unknown property kind "${String(options.kind)}"; expected one of ${PROPERTY_KIND_IDS.join(', ')}.` });
+    problems.add({
+      field: 'kind',
+      code: 'invalid-option',
+      message: `Unknown property kind "${String(options.kind)}"; expected one of ${PROPERTY_KIND_IDS.join(', ')}.`,
+    });
   }
   if (options.delimiter !== undefined && !DELIMITERS.includes(options.delimiter)) {
-    problems.add({ field: 'delimiter', code: 'invalid-option', message: `Delimiter must be comma, semicolon or tab, got "${String(options.delimiter)}".` });
+    problems.add({
+      field: 'delimiter',
+      code: 'invalid-option',
+      message: `Delimiter must be comma, semicolon or tab, got "${String(options.delimiter)}".`,
+    });
   }
   if (options.decimal !== undefined && options.decimal !== '.' && options.decimal !== ',') {
-    problems.add({ field: 'decimal', code: 'invalid-option', message: `Decimal separator must be "." or ",", got "${String(options.decimal)}".` });
+    problems.add({
+      field: 'decimal',
+      code: 'invalid-option',
+      message: `Decimal separator must be "." or ",", got "${String(options.decimal)}".`,
+    });
   }
   return { rel, maxRows, molarMassGPerMol };
 }
@@ -165,7 +185,8 @@ export function parseMeasurementCsv(text: string, options: ParseOptions = {}): P
   const problems = new ProblemList();
   const { rel, maxRows, molarMassGPerMol } = checkOptions(options, problems);
   const normalised = normaliseText(text ?? '');
-  const delimiter: Delimiter = options.delimiter && DELIMITERS.includes(options.delimiter) ? options.delimiter : detectDelimiter(normalised);
+  const delimiter: Delimiter =
+    options.delimiter && DELIMITERS.includes(options.delimiter) ? options.delimiter : detectDelimiter(normalised);
   const result = (partial: Partial<ParseResult>): ParseResult => {
     const list = problems.finish();
     const ok = list.length === 0;
@@ -184,22 +205,33 @@ export function parseMeasurementCsv(text: string, options: ParseOptions = {}): P
   };
 
   if (normalised.trim() === '') {
-    problems.add({ code: 'empty-file', message: 'The file is empty; expected a header line such as "T (K),B2 (cm3/mol)" followed by data rows.' });
+    problems.add({
+      code: 'empty-file',
+      message: 'The file is empty; expected a header line such as "T (K),B2 (cm3/mol)" followed by data rows.',
+    });
     return result({});
   }
   const { records, errors } = readRecords(normalised, delimiter);
   for (const e of errors) {
-    problems.add({ row: e.line, code: 'csv-syntax', message: `Row ${e.line}: the CSV cannot be read here (${e.message}); check quotes on this line.` });
+    problems.add({
+      row: e.line,
+      code: 'csv-syntax',
+      message: `Row ${e.line}: the CSV cannot be read here (${e.message}); check quotes on this line.`,
+    });
   }
   if (records.length === 0) {
-    problems.add({ code: 'empty-file', message: 'The file holds only comments or blank lines; expected a header line followed by data rows.' });
+    problems.add({
+      code: 'empty-file',
+      message: 'The file holds only comments or blank lines; expected a header line followed by data rows.',
+    });
     return result({});
   }
 
   const headerRecord = records[0];
   const headerLine = headerRecord.line;
   const dataRecords = records.slice(1);
-  const decimal: DecimalSeparator = options.decimal === '.' || options.decimal === ',' ? options.decimal : detectDecimal(dataRecords, delimiter);
+  const decimal: DecimalSeparator =
+    options.decimal === '.' || options.decimal === ',' ? options.decimal : detectDecimal(dataRecords, delimiter);
 
   // Column meaning: header recognition, then the caller's mapping on top.
   const parsedHeaders = headerRecord.cells.map((h) => parseHeader(h));
@@ -298,10 +330,23 @@ export function parseMeasurementCsv(text: string, options: ParseOptions = {}): P
       else col.convert = makeConverter(col.unitText, m.quantity, { molarMassGPerMol });
     } catch (e) {
       if (!(e instanceof UnitConversionError)) throw e;
-      problems.add({ row: headerLine, column: header, field: qdef.field, code: e.code as ProblemCode, message: `Column "${header}": ${e.message}` });
+      problems.add({
+        row: headerLine,
+        column: header,
+        field: qdef.field,
+        code: e.code as ProblemCode,
+        message: `Column "${header}": ${e.message}`,
+      });
     }
     used.push(col);
-    columns[index] = { index, header, quantity: m.quantity, field: qdef.field, unitText: m.unitText, canonicalUnit: qdef.canonicalUnitLabel };
+    columns[index] = {
+      index,
+      header,
+      quantity: m.quantity,
+      field: qdef.field,
+      unitText: m.unitText,
+      canonicalUnit: qdef.canonicalUnitLabel,
+    };
   });
 
   const unrecognised = unmappedColumns.map((i) => headerRecord.cells[i]).filter((h) => h !== '');
@@ -400,7 +445,8 @@ function validateRows(
       const v = col.convert(n.value);
       if (qdef.positivity === 'positive' && !(v > 0)) {
         const canonical = `${formatNumber(v)} ${qdef.canonicalUnitLabel}`;
-        const shown = col.unitText && normalisedEquals(col.unitText, qdef.canonicalUnit) ? canonical : `${text} ${col.unitText} = ${canonical}`;
+        const shown =
+          col.unitText && normalisedEquals(col.unitText, qdef.canonicalUnit) ? canonical : `${text} ${col.unitText} = ${canonical}`;
         problems.add({
           row: line,
           column: col.header,
@@ -411,9 +457,20 @@ function validateRows(
         rowOk = false;
         continue;
       }
-      const judged = Number.isFinite(v) ? judgeValue(col.field, v, qdef.label) : { verdict: 'refuse' as const, message: `${qdef.label} "${text}" ${col.unitText} does not fit in a number once converted to ${qdef.canonicalUnitLabel}.` };
+      const judged = Number.isFinite(v)
+        ? judgeValue(col.field, v, qdef.label)
+        : {
+            verdict: 'refuse' as const,
+            message: `${qdef.label} "${text}" ${col.unitText} does not fit in a number once converted to ${qdef.canonicalUnitLabel}.`,
+          };
       if (judged.verdict === 'refuse') {
-        problems.add({ row: line, column: col.header, field: col.field, code: 'implausible-value', message: `Row ${line}, column "${col.header}": ${judged.message}` });
+        problems.add({
+          row: line,
+          column: col.header,
+          field: col.field,
+          code: 'implausible-value',
+          message: `Row ${line}, column "${col.header}": ${judged.message}`,
+        });
         rowOk = false;
         continue;
       }
@@ -441,7 +498,13 @@ function validateRows(
     warnings.push(
       hint
         ? { row: seen.row, column: col.header, field: col.field, code: 'suspect-unit', message: `Column "${col.header}": ${hint}` }
-        : { row: seen.row, column: col.header, field: col.field, code: 'unusual-value', message: `Row ${seen.row}, column "${col.header}": ${seen.message}${more}` },
+        : {
+            row: seen.row,
+            column: col.header,
+            field: col.field,
+            code: 'unusual-value',
+            message: `Row ${seen.row}, column "${col.header}": ${seen.message}${more}`,
+          },
     );
   }
   return rows;
@@ -481,9 +544,7 @@ function findDuplicates(rows: CanonicalRow[], used: UsedColumn[], kind: Property
           return `${q.symbol} = ${formatNumber(get(later, f))} ${q.canonicalUnitLabel}`;
         })
         .join(', ');
-      const written = fields
-        .map((f) => `"${used.find((u) => u.field === f)?.header ?? f}" = ${later.raw[f] ?? ''}`)
-        .join(', ');
+      const written = fields.map((f) => `"${used.find((u) => u.field === f)?.header ?? f}" = ${later.raw[f] ?? ''}`).join(', ');
       problems.add({
         row: later.row,
         column: firstColumn?.header,

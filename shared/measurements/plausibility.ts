@@ -20,18 +20,74 @@ export interface PlausibleRange {
 }
 
 export const PLAUSIBLE_RANGES: Partial<Record<CanonicalField, PlausibleRange>> = {
-  temperatureK: { hardMin: 0, hardMax: 1e5, usualMin: 1, usualMax: 5000, unit: 'K', usual: 'fluid measurements lie between 1 K and 5000 K' },
-  pressureMPa: { hardMin: 0, hardMax: 1e5, usualMin: 1e-9, usualMax: 5000, unit: 'MPa', usual: 'fluid measurements lie below 5000 MPa (5 GPa)' },
+  temperatureK: {
+    hardMin: 0,
+    hardMax: 1e5,
+    usualMin: 1,
+    usualMax: 5000,
+    unit: 'K',
+    usual: 'fluid measurements lie between 1 K and 5000 K',
+  },
+  pressureMPa: {
+    hardMin: 0,
+    hardMax: 1e5,
+    usualMin: 1e-9,
+    usualMax: 5000,
+    unit: 'MPa',
+    usual: 'fluid measurements lie below 5000 MPa (5 GPa)',
+  },
   // |B2| reaches a few thousand cm³/mol for heavy or polar vapours near their triple point (water, n-alkanes:
   // from memory) and a few tens positive for helium-like gases at high temperature (from memory).
-  b2Cm3PerMol: { hardMin: -1e9, hardMax: 1e9, usualMin: -2e4, usualMax: 500, unit: 'cm³/mol', usual: 'measured gases have B2 between about −20 000 and +500 cm³/mol' },
-  uB2Cm3PerMol: { hardMin: 0, hardMax: 1e9, usualMin: 0, usualMax: 2e4, unit: 'cm³/mol', usual: 'uncertainties of B2 stay below 20 000 cm³/mol' },
+  b2Cm3PerMol: {
+    hardMin: -1e9,
+    hardMax: 1e9,
+    usualMin: -2e4,
+    usualMax: 500,
+    unit: 'cm³/mol',
+    usual: 'measured gases have B2 between about −20 000 and +500 cm³/mol',
+  },
+  uB2Cm3PerMol: {
+    hardMin: 0,
+    hardMax: 1e9,
+    usualMin: 0,
+    usualMax: 2e4,
+    unit: 'cm³/mol',
+    usual: 'uncertainties of B2 stay below 20 000 cm³/mol',
+  },
   // The densest liquid metal, mercury, is 13 534 kg/m³ at 298 K (from memory); no fluid exceeds 30 000 kg/m³.
-  densityKgPerM3: { hardMin: 0, hardMax: 1e6, usualMin: 1e-6, usualMax: 3e4, unit: 'kg/m³', usual: 'fluid densities lie below 30 000 kg/m³' },
-  uDensityKgPerM3: { hardMin: 0, hardMax: 1e6, usualMin: 0, usualMax: 3e4, unit: 'kg/m³', usual: 'uncertainties of density stay below 30 000 kg/m³' },
+  densityKgPerM3: {
+    hardMin: 0,
+    hardMax: 1e6,
+    usualMin: 1e-6,
+    usualMax: 3e4,
+    unit: 'kg/m³',
+    usual: 'fluid densities lie below 30 000 kg/m³',
+  },
+  uDensityKgPerM3: {
+    hardMin: 0,
+    hardMax: 1e6,
+    usualMin: 0,
+    usualMax: 3e4,
+    unit: 'kg/m³',
+    usual: 'uncertainties of density stay below 30 000 kg/m³',
+  },
   // Dilute gases: about 1–100 µPa·s (from memory); 10⁵ µPa·s = 0.1 Pa·s is already a viscous liquid.
-  viscosityMicroPaS: { hardMin: 0, hardMax: 1e12, usualMin: 0.1, usualMax: 1e5, unit: 'µPa·s', usual: 'dilute-gas viscosities lie between 0.1 and 100 000 µPa·s' },
-  uViscosityMicroPaS: { hardMin: 0, hardMax: 1e12, usualMin: 0, usualMax: 1e5, unit: 'µPa·s', usual: 'uncertainties of viscosity stay below 100 000 µPa·s' },
+  viscosityMicroPaS: {
+    hardMin: 0,
+    hardMax: 1e12,
+    usualMin: 0.1,
+    usualMax: 1e5,
+    unit: 'µPa·s',
+    usual: 'dilute-gas viscosities lie between 0.1 and 100 000 µPa·s',
+  },
+  uViscosityMicroPaS: {
+    hardMin: 0,
+    hardMax: 1e12,
+    usualMin: 0,
+    usualMax: 1e5,
+    unit: 'µPa·s',
+    usual: 'uncertainties of viscosity stay below 100 000 µPa·s',
+  },
 };
 
 export type Plausibility = { verdict: 'ok' } | { verdict: 'refuse' | 'warn'; message: string };
@@ -43,9 +99,13 @@ export function judgeValue(field: CanonicalField, value: number, label: string):
   const r = PLAUSIBLE_RANGES[field];
   if (!r) return { verdict: 'ok' };
   if (value < r.hardMin || value > r.hardMax) {
-    return { verdict: 'refuse', message: `${label} ${show(value)} ${r.unit} is impossible for a fluid (accepted: ${show(r.hardMin)} to ${show(r.hardMax)} ${r.unit}; ${r.usual}). Check the number and the unit in the header.` };
+    return {
+      verdict: 'refuse',
+      message: `${label} ${show(value)} ${r.unit} is impossible for a fluid (accepted: ${show(r.hardMin)} to ${show(r.hardMax)} ${r.unit}; ${r.usual}). Check the number and the unit in the header.`,
+    };
   }
-  if (value < r.usualMin || value > r.usualMax) return { verdict: 'warn', message: `${label} ${show(value)} ${r.unit} is unusual: ${r.usual}.` };
+  if (value < r.usualMin || value > r.usualMax)
+    return { verdict: 'warn', message: `${label} ${show(value)} ${r.unit} is unusual: ${r.usual}.` };
   return { verdict: 'ok' };
 }
 
@@ -61,7 +121,10 @@ export function unitSlipHint(field: CanonicalField, values: number[], unitText: 
   if (values.some(usual)) return null;
   for (const factor of [1e6, 1e-6, 1e3, 1e-3]) {
     if (values.every((v) => usual(v / factor))) {
-      const times = factor > 1 ? `${factor === 1e6 ? 'a million' : 'a thousand'} times too large` : `${factor === 1e-6 ? 'a million' : 'a thousand'} times too small`;
+      const times =
+        factor > 1
+          ? `${factor === 1e6 ? 'a million' : 'a thousand'} times too large`
+          : `${factor === 1e-6 ? 'a million' : 'a thousand'} times too small`;
       return `With the unit "${unitText}" these values are ${times} (${r.usual}); is the unit in the header right?`;
     }
   }

@@ -4,12 +4,23 @@
  * branching on the kind, so a new kind is one more entry here.
  */
 
-export type PropertyKind = 'b2' | 'density' | 'viscosity' | 'b3' | 'saturatedLiquidDensity' | 'saturatedVapourDensity' | 'vapourPressure' | 'b12';
+export type PropertyKind =
+  'b2' | 'density' | 'viscosity' | 'b3' | 'saturatedLiquidDensity' | 'saturatedVapourDensity' | 'vapourPressure' | 'b12';
 
-export const PROPERTY_KIND_IDS: readonly PropertyKind[] = ['b2', 'density', 'viscosity', 'b3', 'saturatedLiquidDensity', 'saturatedVapourDensity', 'vapourPressure', 'b12'];
+export const PROPERTY_KIND_IDS: readonly PropertyKind[] = [
+  'b2',
+  'density',
+  'viscosity',
+  'b3',
+  'saturatedLiquidDensity',
+  'saturatedVapourDensity',
+  'vapourPressure',
+  'b12',
+];
 
 /** Physical dimension of a column, checked on the unit written in its header. */
-export type Dimension = 'temperature' | 'pressure' | 'molarVolume' | 'molarVolumeSquared' | 'massDensity' | 'amountDensity' | 'dynamicViscosity';
+export type Dimension =
+  'temperature' | 'pressure' | 'molarVolume' | 'molarVolumeSquared' | 'massDensity' | 'amountDensity' | 'dynamicViscosity';
 
 /** Keys of the quantities a column can hold (used by the column mapping). */
 export type QuantityKey =
@@ -187,7 +198,18 @@ export const QUANTITIES: Record<QuantityKey, QuantityDefinition> = {
     label: 'uncertainty of viscosity',
     canonicalUnit: 'uPa s',
     canonicalUnitLabel: 'µPa·s',
-    aliases: ['u(eta)', 'u(η)', 'u(viscosity)', 'ueta', 'uη', 'δeta', 'δη', 'uncertaintyeta', 'uncertaintyviscosity', 'viscosityuncertainty'],
+    aliases: [
+      'u(eta)',
+      'u(η)',
+      'u(viscosity)',
+      'ueta',
+      'uη',
+      'δeta',
+      'δη',
+      'uncertaintyeta',
+      'uncertaintyviscosity',
+      'viscosityuncertainty',
+    ],
     dimensions: ['dynamicViscosity'],
     positivity: 'positive',
     nonPositiveCode: 'nonpositive-uncertainty',
@@ -256,7 +278,20 @@ export const QUANTITIES: Record<QuantityKey, QuantityDefinition> = {
     label: 'saturated vapour density',
     canonicalUnit: 'kg/m^3',
     canonicalUnitLabel: 'kg/m³',
-    aliases: ['rhovap', 'ρvap', 'rhov', 'ρv', 'rhovapour', 'rhovapor', "ρ''", 'ρ″', 'vapourdensity', 'vapordensity', 'saturatedvapourdensity', 'saturatedvapordensity'],
+    aliases: [
+      'rhovap',
+      'ρvap',
+      'rhov',
+      'ρv',
+      'rhovapour',
+      'rhovapor',
+      "ρ''",
+      'ρ″',
+      'vapourdensity',
+      'vapordensity',
+      'saturatedvapourdensity',
+      'saturatedvapordensity',
+    ],
     dimensions: ['massDensity', 'amountDensity'],
     positivity: 'positive',
     nonPositiveCode: 'nonpositive-density',
@@ -588,7 +623,8 @@ export interface B12Row extends RowCommon {
   uB12Cm3PerMol: number;
 }
 
-export type CanonicalRow = B2Row | DensityRow | ViscosityRow | B3Row | SaturatedLiquidDensityRow | SaturatedVapourDensityRow | VapourPressureRow | B12Row;
+export type CanonicalRow =
+  B2Row | DensityRow | ViscosityRow | B3Row | SaturatedLiquidDensityRow | SaturatedVapourDensityRow | VapourPressureRow | B12Row;
 
 /** Value and standard uncertainty of any row, read through the kind registry. */
 export function rowValueAndUncertainty(row: CanonicalRow): { value: number; uncertainty: number } {

@@ -13,7 +13,11 @@ import { parseMeasurementCsv } from './parse-measurement-csv';
 describe('substance bodies', () => {
   test('create: name 1–120 characters, molar mass in g/mol with 1 ≤ M < 10000', () => {
     // Argon 39.948 g/mol (IUPAC 2009 standard atomic weight, from memory).
-    expect(createSubstanceBody.parse({ name: ' Argon ', formula: 'Ar', molarMassGPerMol: 39.948 })).toEqual({ name: 'Argon', formula: 'Ar', molarMassGPerMol: 39.948 });
+    expect(createSubstanceBody.parse({ name: ' Argon ', formula: 'Ar', molarMassGPerMol: 39.948 })).toEqual({
+      name: 'Argon',
+      formula: 'Ar',
+      molarMassGPerMol: 39.948,
+    });
     expect(createSubstanceBody.safeParse({ name: '', molarMassGPerMol: 39.948 }).success).toBe(false);
     expect(createSubstanceBody.safeParse({ name: 'x'.repeat(121), molarMassGPerMol: 39.948 }).success).toBe(false);
     expect(createSubstanceBody.safeParse({ name: 'x'.repeat(120), molarMassGPerMol: 39.948 }).success).toBe(true);
@@ -41,14 +45,16 @@ describe('measurement set upload fields (multipart strings)', () => {
     expect(f).toEqual({ substanceId: 3, kind: 'density', name: 'Isotherms 2026', defaultRelativeUncertainty: 0.005 });
   });
   test('defaultRelativeUncertainty must satisfy 0 < x ≤ 1', () => {
-    for (const bad of ['0', '-0.1', '1.5', 'abc']) expect(measurementSetVersionFields.safeParse({ defaultRelativeUncertainty: bad }).success).toBe(false);
+    for (const bad of ['0', '-0.1', '1.5', 'abc'])
+      expect(measurementSetVersionFields.safeParse({ defaultRelativeUncertainty: bad }).success).toBe(false);
     expect(measurementSetVersionFields.parse({ defaultRelativeUncertainty: '1' }).defaultRelativeUncertainty).toBe(1);
   });
   test('DOI: pattern 10.<registrant>/<suffix> (DOI Handbook, sec. 2.2, from memory); resolver prefixes stripped', () => {
     expect(measurementSetVersionFields.parse({ doi: '10.1063/1.555555' }).doi).toBe('10.1063/1.555555');
     expect(measurementSetVersionFields.parse({ doi: 'https://doi.org/10.1021/je0000000' }).doi).toBe('10.1021/je0000000');
     expect(measurementSetVersionFields.parse({ doi: 'doi:10.1016/j.fluid.2020.112345' }).doi).toBe('10.1016/j.fluid.2020.112345');
-    for (const bad of ['1063/1.555', '10.12/abc', '10.1063/', 'not a doi']) expect(measurementSetVersionFields.safeParse({ doi: bad }).success).toBe(false);
+    for (const bad of ['1063/1.555', '10.12/abc', '10.1063/', 'not a doi'])
+      expect(measurementSetVersionFields.safeParse({ doi: bad }).success).toBe(false);
   });
   test('kind enum, delimiter and decimal names', () => {
     expect(measurementSetUploadFields.safeParse({ ...base, kind: 'enthalpy' }).success).toBe(false);
@@ -58,7 +64,10 @@ describe('measurement set upload fields (multipart strings)', () => {
   });
   test('mapping: a JSON string parsed and validated', () => {
     const mapping = '{"0":{"quantity":"temperature","unit":"degC"},"2":{"quantity":"ignore"}}';
-    expect(measurementSetVersionFields.parse({ mapping }).mapping).toEqual({ 0: { quantity: 'temperature', unit: 'degC' }, 2: { quantity: 'ignore' } });
+    expect(measurementSetVersionFields.parse({ mapping }).mapping).toEqual({
+      0: { quantity: 'temperature', unit: 'degC' },
+      2: { quantity: 'ignore' },
+    });
     const bad = measurementSetVersionFields.safeParse({ mapping: '{not json' });
     expect(bad.success).toBe(false);
     expect(bad.error?.issues[0].message).toMatch(/mapping must be JSON/);

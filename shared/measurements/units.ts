@@ -56,7 +56,10 @@ export function normaliseUnitText(unitText: string): string {
   let s = unitText.replace(/º/g, '°'); // ordinal indicator typed for a degree sign
   s = s.normalize('NFKC'); // ³ → 3, ⁻ → -, ℃ → °C, full-width letters → ASCII
   s = s.replace(/[µμ]/g, 'u').replace(/[\u2212\u2013]/g, '-'); // minus sign, en dash (from ⁻ after NFKC)
-  s = s.replace(/°\s*C\b/g, 'degC').replace(/°\s*F\b/g, 'degF').replace(/°\s*K\b/g, 'K');
+  s = s
+    .replace(/°\s*C\b/g, 'degC')
+    .replace(/°\s*F\b/g, 'degF')
+    .replace(/°\s*K\b/g, 'K');
   s = s.replace(/\bdeg\.?\s*C\b/gi, 'degC').replace(/\bdeg\.?\s*F\b/gi, 'degF');
   s = s.replace(/\bcelsius\b/gi, 'degC').replace(/\bkelvin\b/gi, 'K');
   s = s.replace(/\b(bar|psi)a\b/g, '$1'); // "bara", "psia": absolute pressure (gauge "barg" stays unknown)
@@ -64,7 +67,11 @@ export function normaliseUnitText(unitText: string): string {
   s = s.replace(/([A-Za-z])\.(?=[A-Za-z])/g, '$1 ');
   s = s.replace(/\b([a-zA-Z]?)Pas\b/g, '$1Pa s');
   s = s.replace(/([A-Za-z])\s*\^?\s*([-+]?\d+)\b/g, '$1^$2');
-  s = s.replace(/\s*\/\s*/g, '/').replace(/\s*\^\s*/g, '^').replace(/\s+/g, ' ').trim();
+  s = s
+    .replace(/\s*\/\s*/g, '/')
+    .replace(/\s*\^\s*/g, '^')
+    .replace(/\s+/g, ' ')
+    .trim();
   return s;
 }
 
@@ -137,7 +144,10 @@ export function makeConverter(unitText: string, quantity: QuantityKey, opts: Con
     parsed = parseUnit(unitText);
   } catch (e) {
     if (e instanceof UnitConversionError && e.code === 'missing-unit') {
-      throw new UnitConversionError('missing-unit', `No unit given for ${def.label}; expected ${acceptedUnitsText(quantity)} in parentheses, e.g. "${def.exampleHeader}".`);
+      throw new UnitConversionError(
+        'missing-unit',
+        `No unit given for ${def.label}; expected ${acceptedUnitsText(quantity)} in parentheses, e.g. "${def.exampleHeader}".`,
+      );
     }
     if (e instanceof UnitConversionError) {
       throw new UnitConversionError(e.code, `${e.message} Expected ${acceptedUnitsText(quantity)} for ${def.label}.`);
@@ -149,7 +159,10 @@ export function makeConverter(unitText: string, quantity: QuantityKey, opts: Con
     const got = dim ? `a ${DIMENSION_LABEL[dim].name} unit` : 'a unit of another dimension';
     // "C" and "F" parse as coulomb and farad; people mean degrees.
     const hint = quantity === 'temperature' && /^[CF]$/.test(unitText.trim()) ? ` For degrees Celsius write °C or degC.` : '';
-    throw new UnitConversionError('wrong-dimension', `Unit "${unitText}" is ${got}, but ${def.label} needs ${acceptedUnitsText(quantity)}.${hint}`);
+    throw new UnitConversionError(
+      'wrong-dimension',
+      `Unit "${unitText}" is ${got}, but ${def.label} needs ${acceptedUnitsText(quantity)}.${hint}`,
+    );
   }
   const difference = opts.difference ?? def.isUncertainty;
   const normalised = parsed.normalised;

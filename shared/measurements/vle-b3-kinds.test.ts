@@ -8,7 +8,11 @@ import { parseMeasurementCsv } from './parse-measurement-csv';
 import { templateHeaders } from './headers';
 import type { B3Row, SaturatedLiquidDensityRow, SaturatedVapourDensityRow, VapourPressureRow } from './property-kinds';
 
-const VLE = ['T (K), rho_liq (kg/m3), u(rho_liq) (kg/m3), rho_vap (kg/m3), u(rho_vap) (kg/m3), p_sat (kPa), u(p_sat) (kPa)', '120, 1200, 2, 8.5, 0.1, 250, 1.5', '130, 1150, 2, 14, 0.2, 480, 2.5'].join('\n');
+const VLE = [
+  'T (K), rho_liq (kg/m3), u(rho_liq) (kg/m3), rho_vap (kg/m3), u(rho_vap) (kg/m3), p_sat (kPa), u(p_sat) (kPa)',
+  '120, 1200, 2, 8.5, 0.1, 250, 1.5',
+  '130, 1150, 2, 14, 0.2, 480, 2.5',
+].join('\n');
 
 describe('B3 and saturation kinds', () => {
   it('reads a saturated liquid density table and infers the kind', () => {

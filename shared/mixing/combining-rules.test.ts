@@ -42,7 +42,10 @@ describe('combine: identities every rule must satisfy', () => {
     it(`${rule}: combining in other units then converting back gives the same result`, () => {
       // Unit consistency: each rule is homogeneous of degree 1 in ε and σ.
       const inK = combine(rule, small, large);
-      const toKcal = (p: LjParameters): LjParameters => ({ epsilonK: convertEpsilon(p.epsilonK, 'kcal/mol'), sigmaAngstrom: convertSigma(p.sigmaAngstrom, 'nm') });
+      const toKcal = (p: LjParameters): LjParameters => ({
+        epsilonK: convertEpsilon(p.epsilonK, 'kcal/mol'),
+        sigmaAngstrom: convertSigma(p.sigmaAngstrom, 'nm'),
+      });
       const inKcal = combine(rule, toKcal(small), toKcal(large));
       expect(inKcal.epsilonK / convertEpsilon(1, 'kcal/mol')).toBeCloseTo(inK.epsilonK, 9);
       expect(inKcal.sigmaAngstrom / convertSigma(1, 'nm')).toBeCloseTo(inK.sigmaAngstrom, 12);
@@ -109,9 +112,15 @@ describe('combine: Kong', () => {
 
 describe('combine: input checks', () => {
   it('refuses non-positive or non-finite parameters and unknown rules', () => {
-    expect(() => combine('kong', { epsilonK: 0, sigmaAngstrom: 3 }, argon)).toThrow('first species: epsilonK must be a finite number above 0 (got 0)');
-    expect(() => combine('kong', argon, { epsilonK: 100, sigmaAngstrom: Number.NaN })).toThrow('second species: sigmaAngstrom must be a finite number above 0 (got NaN)');
-    expect(() => combine('geometric' as CombiningRule, argon, krypton)).toThrow('unknown combining rule "geometric"; use one of lorentz-berthelot, kong, waldman-hagler');
+    expect(() => combine('kong', { epsilonK: 0, sigmaAngstrom: 3 }, argon)).toThrow(
+      'first species: epsilonK must be a finite number above 0 (got 0)',
+    );
+    expect(() => combine('kong', argon, { epsilonK: 100, sigmaAngstrom: Number.NaN })).toThrow(
+      'second species: sigmaAngstrom must be a finite number above 0 (got NaN)',
+    );
+    expect(() => combine('geometric' as CombiningRule, argon, krypton)).toThrow(
+      'unknown combining rule "geometric"; use one of lorentz-berthelot, kong, waldman-hagler',
+    );
   });
 });
 

@@ -53,8 +53,10 @@ export function isCombiningRule(value: unknown): value is CombiningRule {
 }
 
 function assertParameters(p: LjParameters, which: string): void {
-  if (!Number.isFinite(p.epsilonK) || p.epsilonK <= 0) throw new RangeError(`${which}: epsilonK must be a finite number above 0 (got ${p.epsilonK})`);
-  if (!Number.isFinite(p.sigmaAngstrom) || p.sigmaAngstrom <= 0) throw new RangeError(`${which}: sigmaAngstrom must be a finite number above 0 (got ${p.sigmaAngstrom})`);
+  if (!Number.isFinite(p.epsilonK) || p.epsilonK <= 0)
+    throw new RangeError(`${which}: epsilonK must be a finite number above 0 (got ${p.epsilonK})`);
+  if (!Number.isFinite(p.sigmaAngstrom) || p.sigmaAngstrom <= 0)
+    throw new RangeError(`${which}: sigmaAngstrom must be a finite number above 0 (got ${p.sigmaAngstrom})`);
 }
 
 /**
@@ -81,7 +83,7 @@ function kong(a: LjParameters, b: LjParameters): LjParameters {
   const c6 = Math.sqrt(epsRatio * sigmaRatio ** 6);
   const c12 = ((1 + (epsRatio * sigmaRatio ** 12) ** (1 / 13)) / 2) ** 13;
   const sigma6 = c12 / c6; // σ_ij⁶ / σ_a⁶
-  return { epsilonK: a.epsilonK * (c6 * c6) / c12, sigmaAngstrom: a.sigmaAngstrom * sigma6 ** (1 / 6) };
+  return { epsilonK: (a.epsilonK * (c6 * c6)) / c12, sigmaAngstrom: a.sigmaAngstrom * sigma6 ** (1 / 6) };
 }
 
 /**
@@ -175,7 +177,9 @@ export function mixtureTable(
     for (let j = i; j < sets.length; j++) {
       if (i === j) pairs.push({ i, j, kind: 'pure', epsilonK: sets[i].epsilonK, sigmaAngstrom: sets[i].sigmaAngstrom });
       else {
-        const f = fitted.find((p) => (p.setIdA === sets[i].id && p.setIdB === sets[j].id) || (p.setIdA === sets[j].id && p.setIdB === sets[i].id));
+        const f = fitted.find(
+          (p) => (p.setIdA === sets[i].id && p.setIdB === sets[j].id) || (p.setIdA === sets[j].id && p.setIdB === sets[i].id),
+        );
         if (f) pairs.push({ i, j, kind: 'fitted-pair-set', epsilonK: f.epsilonK, sigmaAngstrom: f.sigmaAngstrom, fitted: f });
         else pairs.push({ i, j, kind: 'combining-rule-estimate', ...combine(rule, sets[i], sets[j]) });
       }

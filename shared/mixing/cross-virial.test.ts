@@ -9,7 +9,11 @@ const B = { epsilonK: 231.0, sigmaAngstrom: 4.32, stdErr: { epsilonK: 1.2, sigma
 describe('cross second virial coefficient', () => {
   it('obeys the corresponding-states identity B12/b0(σ12) at T*12 = the pure reduced B2', () => {
     // Exact by construction of the LJ cross potential (Hirschfelder, Curtiss & Bird 1954, §3.7, from memory).
-    for (const [k, l] of [[0, 0], [0.04, 0], [0.05, 0.02]]) {
+    for (const [k, l] of [
+      [0, 0],
+      [0.04, 0],
+      [0.05, 0.02],
+    ]) {
       const { epsilon12K, sigma12Angstrom } = crossParameters(A, B, k, l);
       for (const tStar of [0.9, 1.7, 4]) {
         const b12 = crossB2(tStar * epsilon12K, A, B, k, l);
@@ -26,7 +30,11 @@ describe('cross second virial coefficient', () => {
 
   it('recovers k_ij from synthetic B12 (round trip) and propagates the pure sets’ errors', () => {
     const kTrue = 0.035;
-    const rows: B12Row[] = [200, 240, 280, 330, 400, 500].map((t) => ({ temperatureK: t, b12Cm3PerMol: crossB2(t, A, B, kTrue), uB12Cm3PerMol: 2 }));
+    const rows: B12Row[] = [200, 240, 280, 330, 400, 500].map((t) => ({
+      temperatureK: t,
+      b12Cm3PerMol: crossB2(t, A, B, kTrue),
+      uB12Cm3PerMol: 2,
+    }));
     const r = fitCrossInteraction(A, B, rows);
     expect(r.converged).toBe(true);
     expect(r.kij).toBeCloseTo(kTrue, 8);
@@ -38,7 +46,12 @@ describe('cross second virial coefficient', () => {
     const bareB = { ...B, correlation: 0 };
     const base = fitCrossInteraction(bare, bareB, rows);
     let variance = 0;
-    for (const [which, field] of [[0, 'epsilonK'], [0, 'sigmaAngstrom'], [1, 'epsilonK'], [1, 'sigmaAngstrom']] as const) {
+    for (const [which, field] of [
+      [0, 'epsilonK'],
+      [0, 'sigmaAngstrom'],
+      [1, 'epsilonK'],
+      [1, 'sigmaAngstrom'],
+    ] as const) {
       const src = which === 0 ? bare : bareB;
       const h = src.stdErr[field];
       const shifted = { ...src, [field]: src[field] + h };
@@ -51,7 +64,11 @@ describe('cross second virial coefficient', () => {
   });
 
   it('fits l_ij too when asked', () => {
-    const rows: B12Row[] = [180, 220, 260, 320, 400, 520, 700].map((t) => ({ temperatureK: t, b12Cm3PerMol: crossB2(t, A, B, 0.03, 0.015), uB12Cm3PerMol: 0.5 }));
+    const rows: B12Row[] = [180, 220, 260, 320, 400, 520, 700].map((t) => ({
+      temperatureK: t,
+      b12Cm3PerMol: crossB2(t, A, B, 0.03, 0.015),
+      uB12Cm3PerMol: 0.5,
+    }));
     const r = fitCrossInteraction(A, B, rows, { fitLij: true });
     expect(r.kij).toBeCloseTo(0.03, 6);
     expect(r.lij).toBeCloseTo(0.015, 6);

@@ -28,18 +28,28 @@ export interface CrossParameters {
 }
 
 export function crossParameters(a: PureSetParameters, b: PureSetParameters, kij: number, lij = 0): CrossParameters {
-  return { epsilon12K: (1 - kij) * Math.sqrt(a.epsilonK * b.epsilonK), sigma12Angstrom: ((1 - lij) * (a.sigmaAngstrom + b.sigmaAngstrom)) / 2 };
+  return {
+    epsilon12K: (1 - kij) * Math.sqrt(a.epsilonK * b.epsilonK),
+    sigma12Angstrom: ((1 - lij) * (a.sigmaAngstrom + b.sigmaAngstrom)) / 2,
+  };
 }
 
 /** B12 in cm³/mol at T for given k_ij, l_ij; throws RangeError when ε12 ≤ 0 or σ12 ≤ 0. */
 export function crossB2(temperatureK: number, a: PureSetParameters, b: PureSetParameters, kij: number, lij = 0): number {
   const { epsilon12K, sigma12Angstrom } = crossParameters(a, b, kij, lij);
-  if (!(epsilon12K > 0) || !(sigma12Angstrom > 0)) throw new RangeError(`k_ij = ${kij}, l_ij = ${lij} give ε12 = ${epsilon12K} K, σ12 = ${sigma12Angstrom} Å; both must be > 0`);
+  if (!(epsilon12K > 0) || !(sigma12Angstrom > 0))
+    throw new RangeError(`k_ij = ${kij}, l_ij = ${lij} give ε12 = ${epsilon12K} K, σ12 = ${sigma12Angstrom} Å; both must be > 0`);
   return b2WithGradient(temperatureK, epsilon12K, sigma12Angstrom).b2Cm3PerMol;
 }
 
 /** B12 and its partial derivatives in (k, l) and in the pure parameters (ε1, σ1, ε2, σ2). */
-function b12Derivatives(t: number, a: PureSetParameters, b: PureSetParameters, k: number, l: number): { value: number; dk: number; dl: number; dPure: number[] } {
+function b12Derivatives(
+  t: number,
+  a: PureSetParameters,
+  b: PureSetParameters,
+  k: number,
+  l: number,
+): { value: number; dk: number; dl: number; dPure: number[] } {
   const { epsilon12K: e12, sigma12Angstrom: s12 } = crossParameters(a, b, k, l);
   if (!(e12 > 0) || !(s12 > 0)) throw new RangeError(`k_ij = ${k}, l_ij = ${l} give ε12 = ${e12} K, σ12 = ${s12} Å; both must be > 0`);
   const g = b2WithGradient(t, e12, s12);
@@ -49,7 +59,12 @@ function b12Derivatives(t: number, a: PureSetParameters, b: PureSetParameters, k
     dk: g.dB2dEpsilonK * -root,
     dl: g.dB2dSigmaAngstrom * (-(a.sigmaAngstrom + b.sigmaAngstrom) / 2),
     // dε12/dε1 = ε12/(2ε1), dσ12/dσ1 = (1 − l)/2, likewise for 2.
-    dPure: [g.dB2dEpsilonK * (e12 / (2 * a.epsilonK)), g.dB2dSigmaAngstrom * ((1 - l) / 2), g.dB2dEpsilonK * (e12 / (2 * b.epsilonK)), g.dB2dSigmaAngstrom * ((1 - l) / 2)],
+    dPure: [
+      g.dB2dEpsilonK * (e12 / (2 * a.epsilonK)),
+      g.dB2dSigmaAngstrom * ((1 - l) / 2),
+      g.dB2dEpsilonK * (e12 / (2 * b.epsilonK)),
+      g.dB2dSigmaAngstrom * ((1 - l) / 2),
+    ],
   };
 }
 
@@ -92,14 +107,27 @@ function pureCovariance(p: PureSetParameters): number[][] {
   const se = p.stdErr?.epsilonK ?? 0;
   const ss = p.stdErr?.sigmaAngstrom ?? 0;
   const r = p.correlation ?? 0;
-  return [[se * se, r * se * ss], [r * se * ss, ss * ss]];
+  return [
+    [se * se, r * se * ss],
+    [r * se * ss, ss * ss],
+  ];
 }
 
 /** Fits k_ij (and l_ij when `fitLij`) to B12 rows with both pure sets fixed; uncertainties of the pure sets propagated. */
-export function fitCrossInteraction(a: PureSetParameters, b: PureSetParameters, rows: readonly B12Row[], options: { fitLij?: boolean } = {}): CrossFitResult {
-  for (const [name, p] of [['first pure set', a], ['second pure set', b]] as const) {
+export function fitCrossInteraction(
+  a: PureSetParameters,
+  b: PureSetParameters,
+  rows: readonly B12Row[],
+  options: { fitLij?: boolean } = {},
+): CrossFitResult {
+  for (const [name, p] of [
+    ['first pure set', a],
+    ['second pure set', b],
+  ] as const) {
     if (!(p.epsilonK > 0) || !(p.sigmaAngstrom > 0) || !Number.isFinite(p.epsilonK) || !Number.isFinite(p.sigmaAngstrom)) {
-      throw new CrossFitInputError(`${name}: epsilonK and sigmaAngstrom must be finite numbers > 0, got ${p.epsilonK} K, ${p.sigmaAngstrom} Å`);
+      throw new CrossFitInputError(
+        `${name}: epsilonK and sigmaAngstrom must be finite numbers > 0, got ${p.epsilonK} K, ${p.sigmaAngstrom} Å`,
+      );
     }
   }
   const fitLij = options.fitLij ?? false;
@@ -107,7 +135,9 @@ export function fitCrossInteraction(a: PureSetParameters, b: PureSetParameters, 
   if (rows.length < nParams) throw new CrossFitInputError(`too few B12 points: ${rows.length} for ${nParams} parameter(s)`);
   rows.forEach((r, i) => {
     if (!(r.temperatureK > 0) || !Number.isFinite(r.b12Cm3PerMol) || !(r.uB12Cm3PerMol > 0)) {
-      throw new CrossFitInputError(`B12 row ${i + 1}: temperatureK and uB12Cm3PerMol must be > 0 and b12Cm3PerMol finite, got T = ${r.temperatureK}, B12 = ${r.b12Cm3PerMol}, u = ${r.uB12Cm3PerMol}`);
+      throw new CrossFitInputError(
+        `B12 row ${i + 1}: temperatureK and uB12Cm3PerMol must be > 0 and b12Cm3PerMol finite, got T = ${r.temperatureK}, B12 = ${r.b12Cm3PerMol}, u = ${r.uB12Cm3PerMol}`,
+      );
     }
   });
   const at = (theta: readonly number[]) => ({ k: theta[0], l: fitLij ? theta[1] : 0 });
@@ -136,11 +166,15 @@ export function fitCrossInteraction(a: PureSetParameters, b: PureSetParameters, 
   // Sensitivity of θ to the pure parameters: dθ/dp = −(JᵀJ)⁻¹ Jᵀ (∂r/∂p), all in weighted residual units.
   const J = fit.jacobian;
   const dRdP = rows.map((r) => b12Derivatives(r.temperatureK, a, b, k, l).dPure.map((x) => x / r.uB12Cm3PerMol));
-  const jtj = Array.from({ length: nParams }, (_, i) => Array.from({ length: nParams }, (_, j) => J.reduce((s, row) => s + row[i] * row[j], 0)));
+  const jtj = Array.from({ length: nParams }, (_, i) =>
+    Array.from({ length: nParams }, (_, j) => J.reduce((s, row) => s + row[i] * row[j], 0)),
+  );
   const inv = invertSmall(jtj);
   let covPure: number[][] | null = null;
   if (inv) {
-    const jtdr = Array.from({ length: nParams }, (_, i) => Array.from({ length: 4 }, (_, c) => J.reduce((s, row, n) => s + row[i] * dRdP[n][c], 0)));
+    const jtdr = Array.from({ length: nParams }, (_, i) =>
+      Array.from({ length: 4 }, (_, c) => J.reduce((s, row, n) => s + row[i] * dRdP[n][c], 0)),
+    );
     const sens = inv.map((row) => Array.from({ length: 4 }, (_, c) => -row.reduce((s, v, m) => s + v * jtdr[m][c], 0)));
     const ca = pureCovariance(a);
     const cb = pureCovariance(b);
@@ -151,7 +185,9 @@ export function fitCrossInteraction(a: PureSetParameters, b: PureSetParameters, 
       [0, 0, cb[1][0], cb[1][1]],
     ];
     covPure = Array.from({ length: nParams }, (_, i) =>
-      Array.from({ length: nParams }, (_, j) => sens[i].reduce((s, si, p) => s + si * sigmaP[p].reduce((t, spq, q) => t + spq * sens[j][q], 0), 0)),
+      Array.from({ length: nParams }, (_, j) =>
+        sens[i].reduce((s, si, p) => s + si * sigmaP[p].reduce((t, spq, q) => t + spq * sens[j][q], 0), 0),
+      ),
     );
   }
   const covData = fit.covariance;
@@ -205,5 +241,8 @@ function invertSmall(m: number[][]): number[][] | null {
   const [[p, q], [r, s]] = m;
   const det = p * s - q * r;
   if (!(Math.abs(det) > 0)) return null;
-  return [[s / det, -q / det], [-r / det, p / det]];
+  return [
+    [s / det, -q / det],
+    [-r / det, p / det],
+  ];
 }

@@ -35,7 +35,12 @@ export function measurementSetDeviations(
     for (const p of mine) {
       let predicted: number;
       try {
-        predicted = PROPERTY_MODELS[p.kind].evaluate({ temperatureK: p.temperatureK, pressureMPa: p.pressureMPa, measured: p.measured }, epsilonK, sigmaAngstrom, context).value;
+        predicted = PROPERTY_MODELS[p.kind].evaluate(
+          { temperatureK: p.temperatureK, pressureMPa: p.pressureMPa, measured: p.measured },
+          epsilonK,
+          sigmaAngstrom,
+          context,
+        ).value;
       } catch {
         continue;
       }
@@ -46,6 +51,13 @@ export function measurementSetDeviations(
         nRel += 1;
       }
     }
-    return { measurementSetId: mine[0].measurementSetId, kind: mine[0].kind, points: mine.length, rms: n ? Math.sqrt(sumSq / n) : NaN, aadPercent: nRel ? sumRel / nRel : null, skipped: mine.length - n };
+    return {
+      measurementSetId: mine[0].measurementSetId,
+      kind: mine[0].kind,
+      points: mine.length,
+      rms: n ? Math.sqrt(sumSq / n) : NaN,
+      aadPercent: nRel ? sumRel / nRel : null,
+      skipped: mine.length - n,
+    };
   });
 }

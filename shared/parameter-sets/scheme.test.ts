@@ -11,8 +11,16 @@ describe('schemeOfFit', () => {
   });
 
   it('inherits the simulations’ scheme and cutoff', () => {
-    expect(schemeOfFit({ mdSettings: { scheme: 'truncated-tail', cutoff: 2.5 } })).toEqual({ scheme: 'truncated-tail', cutoffSigma: 2.5, cutoffOutOfRange: false });
-    expect(schemeOfFit({ mdSettings: { scheme: 'truncated-shifted', cutoff: 3 } })).toEqual({ scheme: 'truncated-shifted', cutoffSigma: 3, cutoffOutOfRange: false });
+    expect(schemeOfFit({ mdSettings: { scheme: 'truncated-tail', cutoff: 2.5 } })).toEqual({
+      scheme: 'truncated-tail',
+      cutoffSigma: 2.5,
+      cutoffOutOfRange: false,
+    });
+    expect(schemeOfFit({ mdSettings: { scheme: 'truncated-shifted', cutoff: 3 } })).toEqual({
+      scheme: 'truncated-shifted',
+      cutoffSigma: 3,
+      cutoffOutOfRange: false,
+    });
   });
 
   it('flags a simulation cutoff outside 2.5–4 σ and ignores unknown schemes', () => {

@@ -16,6 +16,7 @@ export interface SchemeOfFit {
 export function schemeOfFit(result: { mdSettings?: { scheme?: string; cutoff?: number } } | null | undefined): SchemeOfFit {
   const md = result?.mdSettings;
   const scheme = CUTOFF_SCHEMES.find((s) => s === md?.scheme);
-  if (!scheme || scheme === 'full-potential' || md?.cutoff === undefined) return { scheme: 'full-potential', cutoffSigma: null, cutoffOutOfRange: false };
+  if (!scheme || scheme === 'full-potential' || md?.cutoff === undefined)
+    return { scheme: 'full-potential', cutoffSigma: null, cutoffOutOfRange: false };
   return { scheme, cutoffSigma: md.cutoff, cutoffOutOfRange: md.cutoff < CUTOFF_SIGMA_RANGE.min || md.cutoff > CUTOFF_SIGMA_RANGE.max };
 }

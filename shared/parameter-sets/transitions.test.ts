@@ -1,6 +1,17 @@
 import { describe, expect, it } from 'vitest';
 import type { Role } from '../auth/roles';
-import { availableMoves, checkMove, isVisibleTo, MOVE_RULES, MOVES, PARAMETER_SET_STATES, type Move, type MoveActor, type MoveSubject, type ParameterSetState } from './transitions';
+import {
+  availableMoves,
+  checkMove,
+  isVisibleTo,
+  MOVE_RULES,
+  MOVES,
+  PARAMETER_SET_STATES,
+  type Move,
+  type MoveActor,
+  type MoveSubject,
+  type ParameterSetState,
+} from './transitions';
 
 // The review rules are the issue's own (four-eyes principle: the author of a change never approves it —
 // common practice in controlled-document review, no source). Every (move, state) pair is checked below.
@@ -18,7 +29,14 @@ const people: Record<string, MoveActor> = {
   system: { id: 'system', roles: [], system: true },
 };
 
-const subject = (state: ParameterSetState, extra: Partial<MoveSubject> = {}): MoveSubject => ({ state, version: 2, authorId: AUTHOR, fitAuthorId: FIT_AUTHOR, approvedVersion: null, ...extra });
+const subject = (state: ParameterSetState, extra: Partial<MoveSubject> = {}): MoveSubject => ({
+  state,
+  version: 2,
+  authorId: AUTHOR,
+  fitAuthorId: FIT_AUTHOR,
+  approvedVersion: null,
+  ...extra,
+});
 
 /** The full table of allowed moves: [move, from, who, to]. Everything not listed must be refused. */
 const ALLOWED: Array<[Move, ParameterSetState, keyof typeof people, ParameterSetState]> = [
@@ -62,17 +80,37 @@ describe('parameter-set moves', () => {
   it('answers 403 for the wrong role before looking at the state, 409 for the right role in the wrong state', () => {
     expect(checkMove('submit', subject('approved'), people.consumer)).toMatchObject({ ok: false, status: 403, code: 'forbidden' });
     expect(checkMove('submit', subject('approved'), people.author)).toMatchObject({ ok: false, status: 409, code: 'wrong_state' });
-    expect(checkMove('approve', subject('draft'), people.reviewer, { text: 'ok' })).toMatchObject({ ok: false, status: 409, code: 'wrong_state' });
-    expect(checkMove('retire', subject('draft'), people.admin, { text: 'old' })).toMatchObject({ ok: false, status: 409, code: 'wrong_state' });
+    expect(checkMove('approve', subject('draft'), people.reviewer, { text: 'ok' })).toMatchObject({
+      ok: false,
+      status: 409,
+      code: 'wrong_state',
+    });
+    expect(checkMove('retire', subject('draft'), people.admin, { text: 'old' })).toMatchObject({
+      ok: false,
+      status: 409,
+      code: 'wrong_state',
+    });
     expect(checkMove('edit', subject('approved'), people.author)).toMatchObject({ ok: false, status: 409, code: 'wrong_state' });
   });
 
   it('four-eyes: the author of the set or of its fit never approves or sends back, whatever roles they hold', () => {
     for (const move of ['approve', 'request_changes'] as const) {
-      expect(checkMove(move, subject('in_review'), people.authorWhoReviews, { text: 'fine' })).toMatchObject({ ok: false, status: 403, code: 'four_eyes' });
-      expect(checkMove(move, subject('in_review'), people.fitAuthorWhoReviews, { text: 'fine' })).toMatchObject({ ok: false, status: 403, code: 'four_eyes' });
+      expect(checkMove(move, subject('in_review'), people.authorWhoReviews, { text: 'fine' })).toMatchObject({
+        ok: false,
+        status: 403,
+        code: 'four_eyes',
+      });
+      expect(checkMove(move, subject('in_review'), people.fitAuthorWhoReviews, { text: 'fine' })).toMatchObject({
+        ok: false,
+        status: 403,
+        code: 'four_eyes',
+      });
       // An admin is not a reviewer: roles first.
-      expect(checkMove(move, subject('in_review'), people.admin, { text: 'fine' })).toMatchObject({ ok: false, status: 403, code: 'forbidden' });
+      expect(checkMove(move, subject('in_review'), people.admin, { text: 'fine' })).toMatchObject({
+        ok: false,
+        status: 403,
+        code: 'forbidden',
+      });
     }
   });
 
@@ -82,9 +120,21 @@ describe('parameter-set moves', () => {
   });
 
   it('a review needs a comment and a retirement a reason (400), after the role and state checks', () => {
-    expect(checkMove('approve', subject('in_review'), people.reviewer, { text: '  ' })).toMatchObject({ ok: false, status: 400, code: 'comment_required' });
-    expect(checkMove('request_changes', subject('in_review'), people.reviewer)).toMatchObject({ ok: false, status: 400, code: 'comment_required' });
-    expect(checkMove('retire', subject('approved'), people.reviewer, { text: '' })).toMatchObject({ ok: false, status: 400, code: 'reason_required' });
+    expect(checkMove('approve', subject('in_review'), people.reviewer, { text: '  ' })).toMatchObject({
+      ok: false,
+      status: 400,
+      code: 'comment_required',
+    });
+    expect(checkMove('request_changes', subject('in_review'), people.reviewer)).toMatchObject({
+      ok: false,
+      status: 400,
+      code: 'comment_required',
+    });
+    expect(checkMove('retire', subject('approved'), people.reviewer, { text: '' })).toMatchObject({
+      ok: false,
+      status: 400,
+      code: 'reason_required',
+    });
     expect(checkMove('submit', subject('draft'), people.author)).toEqual({ ok: true, to: 'in_review' });
   });
 
@@ -96,12 +146,23 @@ describe('parameter-set moves', () => {
   });
 
   it('an older version cannot be approved over a newer approved one; an equal or older approved one is superseded', () => {
-    expect(checkMove('approve', subject('in_review', { version: 2, approvedVersion: 3 }), people.reviewer, { text: 'ok' })).toMatchObject({ ok: false, status: 409, code: 'newer_version_approved' });
-    expect(checkMove('approve', subject('in_review', { version: 4, approvedVersion: 3 }), people.reviewer, { text: 'ok' })).toEqual({ ok: true, to: 'approved' });
+    expect(checkMove('approve', subject('in_review', { version: 2, approvedVersion: 3 }), people.reviewer, { text: 'ok' })).toMatchObject({
+      ok: false,
+      status: 409,
+      code: 'newer_version_approved',
+    });
+    expect(checkMove('approve', subject('in_review', { version: 4, approvedVersion: 3 }), people.reviewer, { text: 'ok' })).toEqual({
+      ok: true,
+      to: 'approved',
+    });
   });
 
   it('a set sent back is revised once', () => {
-    expect(checkMove('revise', subject('changes_requested', { revised: true }), people.author)).toMatchObject({ ok: false, status: 409, code: 'already_revised' });
+    expect(checkMove('revise', subject('changes_requested', { revised: true }), people.author)).toMatchObject({
+      ok: false,
+      status: 409,
+      code: 'already_revised',
+    });
   });
 
   it('offers each person exactly the moves the table allows', () => {

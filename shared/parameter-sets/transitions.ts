@@ -44,13 +44,69 @@ export interface MoveRule {
 }
 
 export const MOVE_RULES: Record<Move, MoveRule> = {
-  submit: { from: ['draft'], to: 'in_review', policy: 'parameterSet:draft', authorOnly: true, fourEyes: false, needsText: null, label: 'Submit for review' },
-  approve: { from: ['in_review'], to: 'approved', policy: 'parameterSet:review', authorOnly: false, fourEyes: true, needsText: 'comment', label: 'Approve' },
-  request_changes: { from: ['in_review'], to: 'changes_requested', policy: 'parameterSet:review', authorOnly: false, fourEyes: true, needsText: 'comment', label: 'Request changes' },
-  revise: { from: ['changes_requested'], to: 'changes_requested', policy: 'parameterSet:draft', authorOnly: false, fourEyes: false, needsText: null, label: 'Draft a revision' },
-  retire: { from: ['approved'], to: 'retired', policy: 'parameterSet:retire', authorOnly: false, fourEyes: false, needsText: 'reason', label: 'Retire' },
-  supersede: { from: ['approved'], to: 'superseded', policy: null, authorOnly: false, fourEyes: false, needsText: null, label: 'Superseded by a newer version' },
-  edit: { from: ['draft'], to: 'draft', policy: 'parameterSet:draft', authorOnly: true, fourEyes: false, needsText: null, label: 'Edit rationale and validity' },
+  submit: {
+    from: ['draft'],
+    to: 'in_review',
+    policy: 'parameterSet:draft',
+    authorOnly: true,
+    fourEyes: false,
+    needsText: null,
+    label: 'Submit for review',
+  },
+  approve: {
+    from: ['in_review'],
+    to: 'approved',
+    policy: 'parameterSet:review',
+    authorOnly: false,
+    fourEyes: true,
+    needsText: 'comment',
+    label: 'Approve',
+  },
+  request_changes: {
+    from: ['in_review'],
+    to: 'changes_requested',
+    policy: 'parameterSet:review',
+    authorOnly: false,
+    fourEyes: true,
+    needsText: 'comment',
+    label: 'Request changes',
+  },
+  revise: {
+    from: ['changes_requested'],
+    to: 'changes_requested',
+    policy: 'parameterSet:draft',
+    authorOnly: false,
+    fourEyes: false,
+    needsText: null,
+    label: 'Draft a revision',
+  },
+  retire: {
+    from: ['approved'],
+    to: 'retired',
+    policy: 'parameterSet:retire',
+    authorOnly: false,
+    fourEyes: false,
+    needsText: 'reason',
+    label: 'Retire',
+  },
+  supersede: {
+    from: ['approved'],
+    to: 'superseded',
+    policy: null,
+    authorOnly: false,
+    fourEyes: false,
+    needsText: null,
+    label: 'Superseded by a newer version',
+  },
+  edit: {
+    from: ['draft'],
+    to: 'draft',
+    policy: 'parameterSet:draft',
+    authorOnly: true,
+    fourEyes: false,
+    needsText: null,
+    label: 'Edit rationale and validity',
+  },
 };
 
 export interface MoveActor {
@@ -71,9 +127,7 @@ export interface MoveSubject {
   revised?: boolean;
 }
 
-export type MoveDecision =
-  | { ok: true; to: ParameterSetState }
-  | { ok: false; status: 400 | 403 | 409; code: string; message: string };
+export type MoveDecision = { ok: true; to: ParameterSetState } | { ok: false; status: 400 | 403 | 409; code: string; message: string };
 
 const refuse = (status: 400 | 403 | 409, code: string, message: string): MoveDecision => ({ ok: false, status, code, message });
 
@@ -85,22 +139,31 @@ export function checkMove(move: Move, subject: MoveSubject, actor: MoveActor, in
   const rule = MOVE_RULES[move];
   const verb = rule.label.toLowerCase();
   if (rule.policy === null) {
-    if (!actor.system) return refuse(403, 'system_only', `Nobody ${verb} a parameter set by hand: it happens when a newer version is approved.`);
+    if (!actor.system)
+      return refuse(403, 'system_only', `Nobody ${verb} a parameter set by hand: it happens when a newer version is approved.`);
   } else {
     if (actor.system || !hasPolicy(actor.roles, rule.policy)) return refuse(403, 'forbidden', refusalMessage(actor.roles, rule.policy));
-    if (rule.authorOnly && actor.id !== subject.authorId) return refuse(403, 'not_author', `Only the author of this parameter set may ${verb}.`);
-    if (rule.fourEyes && actor.id === subject.authorId) return refuse(403, 'four_eyes', 'You drafted this parameter set; another reviewer must decide on it.');
-    if (rule.fourEyes && actor.id === subject.fitAuthorId) return refuse(403, 'four_eyes', 'You ran the fit behind this parameter set; another reviewer must decide on it.');
+    if (rule.authorOnly && actor.id !== subject.authorId)
+      return refuse(403, 'not_author', `Only the author of this parameter set may ${verb}.`);
+    if (rule.fourEyes && actor.id === subject.authorId)
+      return refuse(403, 'four_eyes', 'You drafted this parameter set; another reviewer must decide on it.');
+    if (rule.fourEyes && actor.id === subject.fitAuthorId)
+      return refuse(403, 'four_eyes', 'You ran the fit behind this parameter set; another reviewer must decide on it.');
   }
   if (!rule.from.includes(subject.state)) {
     const allowed = rule.from.map((s) => STATE_LABELS[s]).join(' or ');
     return refuse(409, 'wrong_state', `This parameter set is ${STATE_LABELS[subject.state]}; "${rule.label}" needs it ${allowed}.`);
   }
   if (move === 'approve' && subject.approvedVersion != null && subject.approvedVersion > subject.version) {
-    return refuse(409, 'newer_version_approved', `v${subject.approvedVersion} of the same substance and scheme is already approved; an older version cannot replace it.`);
+    return refuse(
+      409,
+      'newer_version_approved',
+      `v${subject.approvedVersion} of the same substance and scheme is already approved; an older version cannot replace it.`,
+    );
   }
   if (move === 'revise' && subject.revised) return refuse(409, 'already_revised', 'A revision of this parameter set was already drafted.');
-  if (rule.needsText && !(input.text ?? '').trim()) return refuse(400, `${rule.needsText}_required`, `Give a ${rule.needsText} for "${rule.label}".`);
+  if (rule.needsText && !(input.text ?? '').trim())
+    return refuse(400, `${rule.needsText}_required`, `Give a ${rule.needsText} for "${rule.label}".`);
   return { ok: true, to: rule.to };
 }
 

@@ -11,13 +11,28 @@ describe('validity limits rounded where they are made', () => {
   });
 
   it('rounds outward so the range still holds every point, and leaves clean values alone', () => {
-    expect(roundValidity({ temperatureMinK: 243.156, temperatureMaxK: 300.001 })).toEqual({ temperatureMinK: 243.15, temperatureMaxK: 300.01 });
-    expect(roundValidity({ temperatureMinK: -30 + 273.15, temperatureMaxK: 500 + 273.15, pressureMinMPa: 0.1000000001, pressureMaxMPa: 2.00049 })).toEqual({
+    expect(roundValidity({ temperatureMinK: 243.156, temperatureMaxK: 300.001 })).toEqual({
+      temperatureMinK: 243.15,
+      temperatureMaxK: 300.01,
+    });
+    expect(
+      roundValidity({
+        temperatureMinK: -30 + 273.15,
+        temperatureMaxK: 500 + 273.15,
+        pressureMinMPa: 0.1000000001,
+        pressureMaxMPa: 2.00049,
+      }),
+    ).toEqual({
       temperatureMinK: 243.15,
       temperatureMaxK: 773.15,
       pressureMinMPa: 0.1,
       pressureMaxMPa: 2.001,
     });
-    expect(roundValidity({ temperatureMinK: 90, temperatureMaxK: 300, pressureMinMPa: null, pressureMaxMPa: null })).toEqual({ temperatureMinK: 90, temperatureMaxK: 300, pressureMinMPa: null, pressureMaxMPa: null });
+    expect(roundValidity({ temperatureMinK: 90, temperatureMaxK: 300, pressureMinMPa: null, pressureMaxMPa: null })).toEqual({
+      temperatureMinK: 90,
+      temperatureMaxK: 300,
+      pressureMinMPa: null,
+      pressureMaxMPa: null,
+    });
   });
 });

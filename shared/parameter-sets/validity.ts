@@ -20,7 +20,9 @@ export function roundValidityPressureMPa(value: number): number {
 }
 
 /** A lower limit rounded down and an upper limit rounded up, so the rounded range still holds every point. */
-export function roundValidity<V extends { temperatureMinK: number; temperatureMaxK: number; pressureMinMPa?: number | null; pressureMaxMPa?: number | null }>(v: V): V {
+export function roundValidity<
+  V extends { temperatureMinK: number; temperatureMaxK: number; pressureMinMPa?: number | null; pressureMaxMPa?: number | null },
+>(v: V): V {
   const down = (x: number, d: number) => Math.floor(roundTo(x * 10 ** d, 6)) / 10 ** d;
   const up = (x: number, d: number) => Math.ceil(roundTo(x * 10 ** d, 6)) / 10 ** d;
   return {

@@ -57,7 +57,7 @@ describe('deflection angle and cross-sections from the definition', () => {
     // (Landau & Lifshitz, Mechanics, §20 problem 2), summed over the r^−12 and r^−6 terms of 4(r^−12 − r^−6).
     const impulse = (b: number, e: number) => {
       const term = (n: number, alpha: number) =>
-        (Math.sqrt(Math.PI) * Number(gamma((n + 1) / 2))) / Number(gamma(n / 2)) * (alpha / (e * b ** n));
+        ((Math.sqrt(Math.PI) * Number(gamma((n + 1) / 2))) / Number(gamma(n / 2))) * (alpha / (e * b ** n));
       return term(12, 4) + term(6, -4);
     };
     for (const [b, e] of [

@@ -128,7 +128,8 @@ export function closestApproach(impactParameter: number, reducedEnergy: number, 
   let lo = Math.pow(wWall, -1 / 6);
   let hi = Math.max(b, 1);
   if (orbit) {
-    if (b > orbit.orbitImpactParameter) lo = orbit.orbitRadius; // outer root beyond the barrier
+    if (b > orbit.orbitImpactParameter)
+      lo = orbit.orbitRadius; // outer root beyond the barrier
     else if (b < orbit.orbitImpactParameter) hi = orbit.orbitRadius; // the particle passes over the barrier
   }
   let fLo = F(lo);
@@ -383,9 +384,14 @@ function interpolate(tStar: number, valueCol: number, slopeCol: number): [number
   const t2 = t * t;
   const t3 = t2 * t;
   const value =
-    (2 * t3 - 3 * t2 + 1) * a[valueCol] + (t3 - 2 * t2 + t) * h * a[slopeCol] + (-2 * t3 + 3 * t2) * b[valueCol] + (t3 - t2) * h * b[slopeCol];
+    (2 * t3 - 3 * t2 + 1) * a[valueCol] +
+    (t3 - 2 * t2 + t) * h * a[slopeCol] +
+    (-2 * t3 + 3 * t2) * b[valueCol] +
+    (t3 - t2) * h * b[slopeCol];
   const dValueDu =
-    ((6 * t2 - 6 * t) * a[valueCol] + (-6 * t2 + 6 * t) * b[valueCol]) / h + (3 * t2 - 4 * t + 1) * a[slopeCol] + (3 * t2 - 2 * t) * b[slopeCol];
+    ((6 * t2 - 6 * t) * a[valueCol] + (-6 * t2 + 6 * t) * b[valueCol]) / h +
+    (3 * t2 - 4 * t + 1) * a[slopeCol] +
+    (3 * t2 - 2 * t) * b[slopeCol];
   return [value, dValueDu / tStar];
 }
 
@@ -413,8 +419,7 @@ export function omega22WithDerivatives(tStar: number): { omega22: number; dOmega
   const { a, b, h, t } = tableInterval(tStar);
   const col = COL.omega22;
   const slope = COL.dOmega22;
-  const d2du2 =
-    ((12 * t - 6) * a[col] + (-12 * t + 6) * b[col]) / (h * h) + ((6 * t - 4) * a[slope] + (6 * t - 2) * b[slope]) / h;
+  const d2du2 = ((12 * t - 6) * a[col] + (-12 * t + 6) * b[col]) / (h * h) + ((6 * t - 4) * a[slope] + (6 * t - 2) * b[slope]) / h;
   const dValueDu = dValueDt * tStar;
   return { omega22: value, dOmega22dT: dValueDt, d2Omega22dT2: (d2du2 - dValueDu) / (tStar * tStar) };
 }

@@ -15,7 +15,10 @@ export interface StateInput {
   sigmaAngstrom: number;
 }
 
-export function reducedStateOf({ temperatureK, pressureMPa, epsilonK, sigmaAngstrom }: StateInput): { reducedTemperature: number; reducedPressure: number } {
+export function reducedStateOf({ temperatureK, pressureMPa, epsilonK, sigmaAngstrom }: StateInput): {
+  reducedTemperature: number;
+  reducedPressure: number;
+} {
   const sigmaM = sigmaAngstrom * ANGSTROM_M;
   return {
     reducedTemperature: temperatureK / epsilonK,

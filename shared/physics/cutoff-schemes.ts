@@ -8,10 +8,9 @@ export type CutoffScheme = (typeof CUTOFF_SCHEMES)[number];
 
 /** The schemes a molecular-dynamics run can use: every scheme but the full potential. */
 export type SimulationCutoffScheme = Exclude<CutoffScheme, 'full-potential'>;
-export const SIMULATION_CUTOFF_SCHEMES = CUTOFF_SCHEMES.filter((s): s is SimulationCutoffScheme => s !== 'full-potential') as readonly SimulationCutoffScheme[] as readonly [
-  SimulationCutoffScheme,
-  ...SimulationCutoffScheme[],
-];
+export const SIMULATION_CUTOFF_SCHEMES = CUTOFF_SCHEMES.filter(
+  (s): s is SimulationCutoffScheme => s !== 'full-potential',
+) as readonly SimulationCutoffScheme[] as readonly [SimulationCutoffScheme, ...SimulationCutoffScheme[]];
 
 /** How the screens name each scheme. */
 export const CUTOFF_SCHEME_LABELS: Record<CutoffScheme, string> = {

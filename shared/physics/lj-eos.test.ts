@@ -277,8 +277,7 @@ describe('tail corrections for a cut-off potential', () => {
     const u = (r: number) => 4 * (r ** -12 - r ** -6);
     const rDuDr = (r: number) => -48 * r ** -12 + 24 * r ** -6;
     const energy = 2 * Math.PI * rho * integrateToInfinity((r) => u(r) * r * r, rc, { relativeTolerance: 1e-12 }).value;
-    const pressure =
-      (-2 * Math.PI * rho * rho * integrateToInfinity((r) => rDuDr(r) * r * r, rc, { relativeTolerance: 1e-12 }).value) / 3;
+    const pressure = (-2 * Math.PI * rho * rho * integrateToInfinity((r) => rDuDr(r) * r * r, rc, { relativeTolerance: 1e-12 }).value) / 3;
     const tail = ljTailCorrections(rho, rc);
     expect(rel(tail.energyPerParticle, energy)).toBeLessThan(1e-9);
     expect(rel(tail.pressure, pressure)).toBeLessThan(1e-9);
@@ -295,11 +294,7 @@ describe('tail corrections for a cut-off potential', () => {
   it('turns truncated-and-shifted measurements into full-potential estimates', () => {
     // U_full/N = U_ts/N + u(rc) n_pairs/N + u_tail; P_full = P_ts + p_tail (Allen & Tildesley 2017, §2.8).
     const tail = ljTailCorrections(0.8, 2.5);
-    const full = ljTruncatedShiftedToFull(
-      { energyPerParticle: -5.0, virialPressure: 1.0, pairsWithinCutoffPerParticle: 26 },
-      0.8,
-      2.5,
-    );
+    const full = ljTruncatedShiftedToFull({ energyPerParticle: -5.0, virialPressure: 1.0, pairsWithinCutoffPerParticle: 26 }, 0.8, 2.5);
     expect(full.energyPerParticle).toBeCloseTo(-5.0 + 26 * -0.0163169 - 0.428346, 5);
     expect(full.virialPressure).toBeCloseTo(1.0 + tail.pressure, 12);
   });

@@ -65,7 +65,7 @@ const X: readonly number[] = [
   6.805916615864377e1, // x19
   -2.791293578795945e3, // x20
   -6.245128304568454, // x21
-  -8.116836104958410e3, // x22
+  -8.11683610495841e3, // x22
   1.488735559561229e1, // x23
   -1.059346754655084e4, // x24
   -1.131607632802822e2, // x25
@@ -83,24 +83,64 @@ type PowerSeries = readonly (readonly [number, number])[];
 
 // JZG Table 5: a_1..a_8 as functions of T*.
 const A_SERIES: readonly PowerSeries[] = [
-  [[X[1], 1], [X[2], 0.5], [X[3], 0], [X[4], -1], [X[5], -2]],
-  [[X[6], 1], [X[7], 0], [X[8], -1], [X[9], -2]],
-  [[X[10], 1], [X[11], 0], [X[12], -1]],
+  [
+    [X[1], 1],
+    [X[2], 0.5],
+    [X[3], 0],
+    [X[4], -1],
+    [X[5], -2],
+  ],
+  [
+    [X[6], 1],
+    [X[7], 0],
+    [X[8], -1],
+    [X[9], -2],
+  ],
+  [
+    [X[10], 1],
+    [X[11], 0],
+    [X[12], -1],
+  ],
   [[X[13], 0]],
-  [[X[14], -1], [X[15], -2]],
+  [
+    [X[14], -1],
+    [X[15], -2],
+  ],
   [[X[16], -1]],
-  [[X[17], -1], [X[18], -2]],
+  [
+    [X[17], -1],
+    [X[18], -2],
+  ],
   [[X[19], -2]],
 ];
 
 // JZG Table 6: b_1..b_6 as functions of T*.
 const B_SERIES: readonly PowerSeries[] = [
-  [[X[20], -2], [X[21], -3]],
-  [[X[22], -2], [X[23], -4]],
-  [[X[24], -2], [X[25], -3]],
-  [[X[26], -2], [X[27], -4]],
-  [[X[28], -2], [X[29], -3]],
-  [[X[30], -2], [X[31], -3], [X[32], -4]],
+  [
+    [X[20], -2],
+    [X[21], -3],
+  ],
+  [
+    [X[22], -2],
+    [X[23], -4],
+  ],
+  [
+    [X[24], -2],
+    [X[25], -3],
+  ],
+  [
+    [X[26], -2],
+    [X[27], -4],
+  ],
+  [
+    [X[28], -2],
+    [X[29], -3],
+  ],
+  [
+    [X[30], -2],
+    [X[31], -3],
+    [X[32], -4],
+  ],
 ];
 
 function seriesValue(series: PowerSeries, t: number): number {
@@ -259,9 +299,7 @@ function checkDensity(reducedDensity: number): void {
     reducedDensity < 0 ||
     reducedDensity > MAX_INPUT_REDUCED_DENSITY
   ) {
-    throw new RangeError(
-      `reducedDensity must be a finite number in [0, ${MAX_INPUT_REDUCED_DENSITY}], got ${String(reducedDensity)}`,
-    );
+    throw new RangeError(`reducedDensity must be a finite number in [0, ${MAX_INPUT_REDUCED_DENSITY}], got ${String(reducedDensity)}`);
   }
 }
 
@@ -418,11 +456,7 @@ function relativeChemicalPotential(rho: number, t: number): number {
  * Below T*c with a liquid and a vapour root, the liquid root is returned unless `prefer: 'vapour'`;
  * the note says which of the two has the lower chemical potential (the stable phase).
  */
-export function ljEosDensity(
-  reducedTemperature: number,
-  reducedPressure: number,
-  options: EosDensityOptions = {},
-): EosDensityResult {
+export function ljEosDensity(reducedTemperature: number, reducedPressure: number, options: EosDensityOptions = {}): EosDensityResult {
   checkTemperature(reducedTemperature);
   if (typeof reducedPressure !== 'number' || !Number.isFinite(reducedPressure) || reducedPressure <= 0) {
     throw new RangeError(
@@ -462,9 +496,7 @@ export function ljEosDensity(
 
   // Below T* ≈ 1.5 the polynomial turns over at ρ* ≈ 1.09–1.27 (inside the solid region, beyond the
   // fitted data) and then falls steeply; that branch is an artefact, so the search stops at the maximum.
-  const artefactIndex = breaks.findIndex(
-    (rho, k) => k > 0 && rho >= ARTEFACT_SEARCH_FROM && mbwrPressure(rho - 1e-9, t).dPdRho > 0,
-  );
+  const artefactIndex = breaks.findIndex((rho, k) => k > 0 && rho >= ARTEFACT_SEARCH_FROM && mbwrPressure(rho - 1e-9, t).dPdRho > 0);
   let highestFluidPressure: number | undefined;
   if (artefactIndex > 0 && artefactIndex < breaks.length - 1) {
     breaks.length = artefactIndex + 1;
@@ -614,8 +646,7 @@ export function ljTruncatedShiftedToFull(
     throw new RangeError(`measured.pairsWithinCutoffPerParticle must be >= 0, got ${measured.pairsWithinCutoffPerParticle}`);
   }
   return {
-    energyPerParticle:
-      measured.energyPerParticle + tail.potentialAtCutoff * measured.pairsWithinCutoffPerParticle + tail.energyPerParticle,
+    energyPerParticle: measured.energyPerParticle + tail.potentialAtCutoff * measured.pairsWithinCutoffPerParticle + tail.energyPerParticle,
     virialPressure: measured.virialPressure + tail.pressure,
   };
 }

@@ -48,7 +48,9 @@ describe('Mie λr-6 potential', () => {
   });
 
   it('rejects λr outside 8–36 naming the parameter', () => {
-    expect(() => b2WithGradient(300, 150, 3.7, undefined, { repulsiveExponent: 6 })).toThrow(/repulsiveExponent \(λr\) must be a number from 8 to 36, got 6/);
+    expect(() => b2WithGradient(300, 150, 3.7, undefined, { repulsiveExponent: 6 })).toThrow(
+      /repulsiveExponent \(λr\) must be a number from 8 to 36, got 6/,
+    );
     expect(() => reducedB2(1, 40)).toThrow(/from 8 to 36/);
   });
 });

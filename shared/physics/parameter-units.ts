@@ -18,9 +18,14 @@ export const ENERGY_FACTOR_FROM_K: Record<EnergyUnit, number> = {
 };
 
 /** Multiply σ in Å by this to get σ in the unit. */
-export const LENGTH_FACTOR_FROM_ANGSTROM: Record<LengthUnit, number> = { 'Å': 1, nm: 0.1 };
+export const LENGTH_FACTOR_FROM_ANGSTROM: Record<LengthUnit, number> = { Å: 1, nm: 0.1 };
 
-export const ENERGY_LABEL: Record<EnergyUnit, string> = { K: 'ε/k_B (K)', 'kJ/mol': 'ε (kJ/mol)', 'kcal/mol': 'ε (kcal/mol)', eV: 'ε (eV)' };
+export const ENERGY_LABEL: Record<EnergyUnit, string> = {
+  K: 'ε/k_B (K)',
+  'kJ/mol': 'ε (kJ/mol)',
+  'kcal/mol': 'ε (kcal/mol)',
+  eV: 'ε (eV)',
+};
 
 export function convertEpsilon(epsilonK: number, unit: EnergyUnit): number {
   return epsilonK * ENERGY_FACTOR_FROM_K[unit];

@@ -18,7 +18,10 @@ describe('de Boer parameter', () => {
 
   it('propagates the standard errors of ε and σ', () => {
     // σ(Λ*)/Λ* = sqrt((σε/2ε)² + (σσ/σ)²) for uncorrelated errors (first-order propagation, common practice).
-    const r = deBoerParameterWithError(35.6, 2.749, 20.18, [[0.36, 0], [0, 0.0001]]);
+    const r = deBoerParameterWithError(35.6, 2.749, 20.18, [
+      [0.36, 0],
+      [0, 0.0001],
+    ]);
     expect(r.stdErr! / r.value).toBeCloseTo(Math.sqrt((0.6 / (2 * 35.6)) ** 2 + (0.01 / 2.749) ** 2), 10);
   });
 });
@@ -53,7 +56,10 @@ describe('Feynman–Hibbs B2', () => {
     // few per cent; the FH B2 at 273.15 K is near the measured 11.8 cm³/mol (Dymond & Smith 1980, from memory).
     const cold = quantumB2(20, HE.epsilonK, HE.sigmaAngstrom, HE.molarMass);
     expect(Math.abs(cold.firstOrderCm3PerMol)).toBeGreaterThan(Math.abs(cold.classicalCm3PerMol));
-    expect(cold.firstOrderCm3PerMol).toBeCloseTo(b2WithGradient(20, HE.epsilonK, HE.sigmaAngstrom, { molarMassGPerMol: HE.molarMass }).quantumCorrectionCm3PerMol, 8);
+    expect(cold.firstOrderCm3PerMol).toBeCloseTo(
+      b2WithGradient(20, HE.epsilonK, HE.sigmaAngstrom, { molarMassGPerMol: HE.molarMass }).quantumCorrectionCm3PerMol,
+      8,
+    );
     const warm = quantumB2(273.15, HE.epsilonK, HE.sigmaAngstrom, HE.molarMass);
     expect(warm.firstOrderCm3PerMol / warm.classicalCm3PerMol).toBeLessThan(0.05);
     expectReferenceCheck(referenceCheckById('quantum.feynman-hibbs.he.273'));

@@ -22,7 +22,11 @@ const QUAD: QuadratureOptions = { relativeTolerance: 1e-12, absoluteTolerance: 1
 
 /** de Boer parameter Λ* = h/(σ√(mε)), m = M/N_A, ε = k_B·(ε/k_B). */
 export function deBoerParameter(epsilonK: number, sigmaAngstrom: number, molarMassGPerMol: number): number {
-  for (const [name, v] of [['epsilonK', epsilonK], ['sigmaAngstrom', sigmaAngstrom], ['molarMassGPerMol', molarMassGPerMol]] as const) {
+  for (const [name, v] of [
+    ['epsilonK', epsilonK],
+    ['sigmaAngstrom', sigmaAngstrom],
+    ['molarMassGPerMol', molarMassGPerMol],
+  ] as const) {
     if (!(v > 0) || !Number.isFinite(v)) throw new RangeError(`${name} must be a finite number > 0 (got ${String(v)})`);
   }
   const massKg = (molarMassGPerMol * 1e-3) / AVOGADRO_PER_MOL;
@@ -33,7 +37,12 @@ export function deBoerParameter(epsilonK: number, sigmaAngstrom: number, molarMa
  * Λ* and its standard error from those of ε and σ (first-order propagation: ∂ln Λ* ÷ ∂ln σ = −1,
  * ∂ln Λ* ÷ ∂ln ε = −1/2); covariance [[εε, εσ], [σε, σσ]] or null.
  */
-export function deBoerParameterWithError(epsilonK: number, sigmaAngstrom: number, molarMassGPerMol: number, covariance: number[][] | null): { value: number; stdErr: number | null } {
+export function deBoerParameterWithError(
+  epsilonK: number,
+  sigmaAngstrom: number,
+  molarMassGPerMol: number,
+  covariance: number[][] | null,
+): { value: number; stdErr: number | null } {
   const value = deBoerParameter(epsilonK, sigmaAngstrom, molarMassGPerMol);
   if (!covariance) return { value, stdErr: null };
   const ge = -0.5 / epsilonK;
@@ -48,7 +57,8 @@ export function deBoerParameterWithError(epsilonK: number, sigmaAngstrom: number
  */
 export function reducedFeynmanHibbsB2(tStar: number, lambdaStarSquared: number): [number, number, number] {
   if (!(tStar > 0) || !Number.isFinite(tStar)) throw new RangeError(`tStar must be a finite number > 0 (got ${String(tStar)})`);
-  if (!(lambdaStarSquared >= 0) || !Number.isFinite(lambdaStarSquared)) throw new RangeError(`lambdaStarSquared must be a finite number ≥ 0 (got ${String(lambdaStarSquared)})`);
+  if (!(lambdaStarSquared >= 0) || !Number.isFinite(lambdaStarSquared))
+    throw new RangeError(`lambdaStarSquared must be a finite number ≥ 0 (got ${String(lambdaStarSquared)})`);
   const c = lambdaStarSquared / (48 * Math.PI * Math.PI);
   const invT = 1 / tStar;
   const integrand = (x: number): number[] => {
@@ -67,7 +77,8 @@ export function reducedFeynmanHibbsB2(tStar: number, lambdaStarSquared: number):
   const inner = integrateVector(integrand, 0, 1, 3, QUAD, [0.5, 0.8, 0.9]);
   const well = integrateVector(integrand, 1, X_MIN, 3, QUAD);
   const tail = integrateVector((t) => integrand(X_MIN / t).map((v) => (v * X_MIN) / (t * t)), 0, 1, 3, QUAD);
-  if (!inner.converged || !well.converged || !tail.converged) throw new Error(`Feynman–Hibbs B2 quadrature did not reach its tolerance at tStar = ${tStar}`);
+  if (!inner.converged || !well.converged || !tail.converged)
+    throw new Error(`Feynman–Hibbs B2 quadrature did not reach its tolerance at tStar = ${tStar}`);
   return [0, 1, 2].map((k) => inner.values[k] + well.values[k] + tail.values[k]) as [number, number, number];
 }
 

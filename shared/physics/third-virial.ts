@@ -92,7 +92,12 @@ function cumulativeTable(f: (x: number) => number, rMax: number): (r: number) =>
     const t = r / G_STEP - k;
     const t2 = t * t;
     const t3 = t2 * t;
-    return (2 * t3 - 3 * t2 + 1) * value[k] + (t3 - 2 * t2 + t) * G_STEP * slope[k] + (-2 * t3 + 3 * t2) * value[k + 1] + (t3 - t2) * G_STEP * slope[k + 1];
+    return (
+      (2 * t3 - 3 * t2 + 1) * value[k] +
+      (t3 - 2 * t2 + t) * G_STEP * slope[k] +
+      (-2 * t3 + 3 * t2) * value[k + 1] +
+      (t3 - t2) * G_STEP * slope[k + 1]
+    );
   };
 }
 
@@ -221,7 +226,11 @@ export interface B3Point {
  * ∂B3/∂σ = 6 B3/σ and ∂B3/∂ε = −b0² (T* ÷ ε) d(B3*)/dT*.
  */
 export function b3WithGradient(temperatureK: number, epsilonK: number, sigmaAngstrom: number): B3Point {
-  for (const [name, v] of [['temperatureK', temperatureK], ['epsilonK', epsilonK], ['sigmaAngstrom', sigmaAngstrom]] as const) {
+  for (const [name, v] of [
+    ['temperatureK', temperatureK],
+    ['epsilonK', epsilonK],
+    ['sigmaAngstrom', sigmaAngstrom],
+  ] as const) {
     if (!(v > 0) || !Number.isFinite(v)) throw new RangeError(`${name} must be a finite number > 0 (got ${String(v)})`);
   }
   const tStar = temperatureK / epsilonK;

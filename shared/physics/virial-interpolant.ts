@@ -47,7 +47,12 @@ export function reducedB2Interpolated(tStar: number, repulsiveExponent = 12): { 
 }
 
 /** Classical B2 in cm³/mol with its gradient, like b2WithGradient without the quantum term, from the interpolant. */
-export function b2Interpolated(temperatureK: number, epsilonK: number, sigmaAngstrom: number, repulsiveExponent = 12): { b2Cm3PerMol: number; dB2dEpsilonK: number; dB2dSigmaAngstrom: number } {
+export function b2Interpolated(
+  temperatureK: number,
+  epsilonK: number,
+  sigmaAngstrom: number,
+  repulsiveExponent = 12,
+): { b2Cm3PerMol: number; dB2dEpsilonK: number; dB2dSigmaAngstrom: number } {
   const b0 = b2ZeroCm3PerMol(sigmaAngstrom);
   const { b2Reduced, tDb2dT } = reducedB2Interpolated(temperatureK / epsilonK, repulsiveExponent);
   const b2 = b0 * b2Reduced;

@@ -1,11 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import {
-  b2WithGradient,
-  b2ZeroCm3PerMol,
-  boyleReducedTemperature,
-  reducedB2,
-  reducedB2Derivative,
-} from './virial';
+import { b2WithGradient, b2ZeroCm3PerMol, boyleReducedTemperature, reducedB2, reducedB2Derivative } from './virial';
 import { hcbSeries } from '../validation/independent-references';
 import { B2_CHECKS, QUANTUM_B2_CHECKS } from '../validation/checks/virial-checks';
 import { itPassesReferenceChecks } from '../validation/reference-check-tests';

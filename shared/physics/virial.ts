@@ -15,7 +15,13 @@
  * ∂u*∕∂λr = u*·d ln C∕dλr − C x^−λr ln x.
  */
 import { AVOGADRO_PER_MOL, ANGSTROM_M, BOLTZMANN_J_PER_K, PLANCK_J_S } from './constants';
-import { LJ_REPULSIVE_EXPONENT, mieMinimumPosition, miePrefactor, miePrefactorLogDerivative, requireRepulsiveExponent } from './mie-potential';
+import {
+  LJ_REPULSIVE_EXPONENT,
+  mieMinimumPosition,
+  miePrefactor,
+  miePrefactorLogDerivative,
+  requireRepulsiveExponent,
+} from './mie-potential';
 import { integrateVector, type QuadratureOptions } from './quadrature';
 
 /** Reduced temperatures outside this span are rejected (e^{1/T*} overflows far below it; nothing physical lies beyond). */
@@ -81,13 +87,18 @@ const minimumOf = (n: number) => (n === LJ_REPULSIVE_EXPONENT ? X_MIN : mieMinim
 /** [B2*, d(B2*)/dT*] in one pass (the derivative is taken under the integral sign). */
 function classicalReduced(tStar: number, n = LJ_REPULSIVE_EXPONENT): [number, number] {
   const invT = 1 / tStar;
-  const [b, db] = integrateSplit((x) => {
-    const { u } = reducedPotential(x, n);
-    const x2 = x * x;
-    const boltz = Math.exp(-u * invT);
-    // expm1 keeps full precision in the tail where |u/T*| ≪ 1.
-    return [-3 * Math.expm1(-u * invT) * x2, -3 * boltz * u * invT * invT * x2];
-  }, 2, tStar, minimumOf(n));
+  const [b, db] = integrateSplit(
+    (x) => {
+      const { u } = reducedPotential(x, n);
+      const x2 = x * x;
+      const boltz = Math.exp(-u * invT);
+      // expm1 keeps full precision in the tail where |u/T*| ≪ 1.
+      return [-3 * Math.expm1(-u * invT) * x2, -3 * boltz * u * invT * invT * x2];
+    },
+    2,
+    tStar,
+    minimumOf(n),
+  );
   return [b, db];
 }
 
@@ -96,23 +107,33 @@ function classicalReducedExponentDerivative(tStar: number, n: number): number {
   const invT = 1 / tStar;
   const c = miePrefactor(n);
   const dLnC = miePrefactorLogDerivative(n);
-  const [d] = integrateSplit((x) => {
-    const { u } = reducedPotential(x, n);
-    const du = u * dLnC - c * Math.pow(x, -n) * Math.log(x);
-    return [3 * invT * Math.exp(-u * invT) * du * x * x];
-  }, 1, tStar, minimumOf(n));
+  const [d] = integrateSplit(
+    (x) => {
+      const { u } = reducedPotential(x, n);
+      const du = u * dLnC - c * Math.pow(x, -n) * Math.log(x);
+      return [3 * invT * Math.exp(-u * invT) * du * x * x];
+    },
+    1,
+    tStar,
+    minimumOf(n),
+  );
   return d;
 }
 
 /** [B_I*, d(B_I*)/dT*] of the first quantum correction (see file header). */
 function quantumReduced(tStar: number, n = LJ_REPULSIVE_EXPONENT): [number, number] {
   const invT = 1 / tStar;
-  const [i0, i1] = integrateSplit((x) => {
-    const { u, xDu } = reducedPotential(x, n);
-    // (d(u*)/dx)² x² = (x d(u*)/dx)²
-    const k = Math.exp(-u * invT) * xDu * xDu;
-    return [k, k * u * invT * invT];
-  }, 2, tStar, minimumOf(n));
+  const [i0, i1] = integrateSplit(
+    (x) => {
+      const { u, xDu } = reducedPotential(x, n);
+      // (d(u*)/dx)² x² = (x d(u*)/dx)²
+      const k = Math.exp(-u * invT) * xDu * xDu;
+      return [k, k * u * invT * invT];
+    },
+    2,
+    tStar,
+    minimumOf(n),
+  );
   const c = 1 / (16 * Math.PI * Math.PI);
   const t3 = tStar * tStar * tStar;
   return [(c * i0) / t3, (c * i1) / t3 - (3 * c * i0) / (t3 * tStar)];

@@ -45,7 +45,7 @@ describe('Chapman–Enskog dilute-gas viscosity (first approximation)', () => {
   });
 });
 
-describe("optional Kihara second approximation f_η = 1 + (3/196)(8E* − 7)²", () => {
+describe('optional Kihara second approximation f_η = 1 + (3/196)(8E* − 7)²', () => {
   it('f_η stays in [1, 1.01] for T* ≤ 100 (its agreement with Kim & Monroe 2014: registry entry viscosity.kihara-factor)', () => {
     for (let t = 0.5; t <= 100; t *= 1.5) {
       const f = kiharaViscosityFactor(t).factor;

@@ -5,7 +5,10 @@ const DATE_ONLY = /^\d{4}-\d{2}-\d{2}$/;
 const instant = z
   .string()
   .trim()
-  .refine((s) => (DATE_ONLY.test(s) || /^\d{4}-\d{2}-\d{2}T/.test(s)) && !Number.isNaN(Date.parse(s)), 'expected an ISO date (2026-12-01) or date-time');
+  .refine(
+    (s) => (DATE_ONLY.test(s) || /^\d{4}-\d{2}-\d{2}T/.test(s)) && !Number.isNaN(Date.parse(s)),
+    'expected an ISO date (2026-12-01) or date-time',
+  );
 
 /** Query of GET /api/audit (the route and the audit filters read it). */
 export const auditQuery = z
@@ -19,7 +22,10 @@ export const auditQuery = z
     limit: z.coerce.number().int().min(1).max(500).default(100),
     before: z.coerce.number().int().positive().optional(),
   })
-  .refine((q) => !q.from || !q.to || toInstant(q.from, 'start') < toInstant(q.to, 'end'), { path: ['to'], message: '"to" must come after "from"' });
+  .refine((q) => !q.from || !q.to || toInstant(q.from, 'start') < toInstant(q.to, 'end'), {
+    path: ['to'],
+    message: '"to" must come after "from"',
+  });
 
 /**
  * A date alone means the whole day in UTC: `from=2026-12-01` starts at its midnight, `to=2026-12-01`

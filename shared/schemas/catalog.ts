@@ -9,7 +9,10 @@ import { EXPORT_FORMATS } from '../export/parameter-set-export';
 import { CUTOFF_SCHEMES } from '../physics/cutoff-schemes';
 
 const temperature = (name: string) =>
-  z.coerce.number({ error: `${name} must be a temperature in K` }).gt(0, `${name} must be above 0 K`).max(100000, `${name} must be at most 100000 K`);
+  z.coerce
+    .number({ error: `${name} must be a temperature in K` })
+    .gt(0, `${name} must be above 0 K`)
+    .max(100000, `${name} must be at most 100000 K`);
 
 /** GET /api/catalog — every filter optional; a temperature range keeps the sets whose validity overlaps it. */
 export const catalogQuery = z
@@ -18,7 +21,12 @@ export const catalogQuery = z
     scheme: z.enum(CUTOFF_SCHEMES, { error: `scheme must be one of ${CUTOFF_SCHEMES.join(', ')}` }).optional(),
     kind: z
       .string()
-      .transform((s) => s.split(',').map((x) => x.trim()).filter(Boolean))
+      .transform((s) =>
+        s
+          .split(',')
+          .map((x) => x.trim())
+          .filter(Boolean),
+      )
       .pipe(z.array(z.enum(PROPERTY_KIND_IDS as [string, ...string[]], { error: `kind must be among ${PROPERTY_KIND_IDS.join(', ')}` })))
       .optional(),
     tMinK: temperature('tMinK').optional(),
@@ -26,7 +34,8 @@ export const catalogQuery = z
   })
   .strict()
   .superRefine((v, ctx) => {
-    if (v.tMinK !== undefined && v.tMaxK !== undefined && v.tMinK > v.tMaxK) ctx.addIssue({ code: 'custom', path: ['tMaxK'], message: 'tMaxK must not be below tMinK' });
+    if (v.tMinK !== undefined && v.tMaxK !== undefined && v.tMinK > v.tMaxK)
+      ctx.addIssue({ code: 'custom', path: ['tMaxK'], message: 'tMaxK must not be below tMinK' });
   });
 export type CatalogQuery = z.infer<typeof catalogQuery>;
 
@@ -41,8 +50,23 @@ export const exportQuery = z
 const numberList = (name: string, unit: string) =>
   z
     .string({ error: `give ${name} as comma-separated numbers in ${unit}` })
-    .transform((s) => s.split(',').map((x) => x.trim()).filter(Boolean))
-    .pipe(z.array(z.coerce.number<string>({ error: `each of ${name} must be a number` }).positive(`each of ${name} must be above 0`).finite()).min(1, `give at least one of ${name}`).max(200, `at most 200 ${name}`));
+    .transform((s) =>
+      s
+        .split(',')
+        .map((x) => x.trim())
+        .filter(Boolean),
+    )
+    .pipe(
+      z
+        .array(
+          z.coerce
+            .number<string>({ error: `each of ${name} must be a number` })
+            .positive(`each of ${name} must be above 0`)
+            .finite(),
+        )
+        .min(1, `give at least one of ${name}`)
+        .max(200, `at most 200 ${name}`),
+    );
 
 /** GET /api/parameter-sets/:id/predictions — a property at the consumer's own states (pressures for densities, one per temperature). */
 export const predictionQuery = z
@@ -53,8 +77,10 @@ export const predictionQuery = z
   })
   .strict()
   .superRefine((v, ctx) => {
-    if (v.kind === 'density' && v.pressuresMPa?.length !== v.temperaturesK.length) ctx.addIssue({ code: 'custom', path: ['pressuresMPa'], message: 'densities need one pressure per temperature (pressuresMPa)' });
-    if (v.kind !== 'density' && v.pressuresMPa !== undefined) ctx.addIssue({ code: 'custom', path: ['pressuresMPa'], message: `pressures are only used for densities, not for ${v.kind}` });
+    if (v.kind === 'density' && v.pressuresMPa?.length !== v.temperaturesK.length)
+      ctx.addIssue({ code: 'custom', path: ['pressuresMPa'], message: 'densities need one pressure per temperature (pressuresMPa)' });
+    if (v.kind !== 'density' && v.pressuresMPa !== undefined)
+      ctx.addIssue({ code: 'custom', path: ['pressuresMPa'], message: `pressures are only used for densities, not for ${v.kind}` });
   });
 
 export type PredictionQuery = z.infer<typeof predictionQuery>;
@@ -64,10 +90,20 @@ export const mixtureQuery = z
   .object({
     sets: z
       .string({ error: 'give sets as comma-separated parameter set ids' })
-      .transform((s) => s.split(',').map((x) => x.trim()).filter(Boolean))
+      .transform((s) =>
+        s
+          .split(',')
+          .map((x) => x.trim())
+          .filter(Boolean),
+      )
       .pipe(
         z
-          .array(z.coerce.number<string>({ error: 'each set id must be a number' }).int('each set id must be an integer').positive('each set id must be positive'))
+          .array(
+            z.coerce
+              .number<string>({ error: 'each set id must be a number' })
+              .int('each set id must be an integer')
+              .positive('each set id must be positive'),
+          )
           .min(2, 'a mixture needs at least two parameter sets')
           .max(12, 'at most 12 parameter sets')
           .refine((ids) => new Set(ids).size === ids.length, 'each parameter set may appear once'),

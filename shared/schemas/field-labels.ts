@@ -81,7 +81,11 @@ export function fieldLabel(path: string): string {
   const index = /^measurementSets\.(\d+)/.exec(path);
   const which = index ? ` (measurement set ${Number(index[1]) + 1} of the request)` : '';
   if (direct) return `${direct}${which}`;
-  const last = pattern.split('.').filter((p) => p !== '*').pop() ?? path;
+  const last =
+    pattern
+      .split('.')
+      .filter((p) => p !== '*')
+      .pop() ?? path;
   if (FIELD_LABELS[last]) return `${FIELD_LABELS[last]}${which}`;
   // camelCase to words, as a last resort.
   const words = last.replace(/([a-z])([A-Z])/g, '$1 $2').toLowerCase();

@@ -21,7 +21,12 @@ export const createFitBody = z.object({
         weight: z.number().gt(0, 'weight must be greater than 0').lte(100, 'weight must be at most 100').optional(),
         /** Row numbers (1-based, as the measurement set page shows them) left out of the fit; predicted, never counted. */
         excludeRows: z
-          .array(z.number({ error: 'row numbers are whole numbers from 1' }).int('row numbers are whole numbers from 1').positive('row numbers are whole numbers from 1'))
+          .array(
+            z
+              .number({ error: 'row numbers are whole numbers from 1' })
+              .int('row numbers are whole numbers from 1')
+              .positive('row numbers are whole numbers from 1'),
+          )
           .max(10000)
           .refine((rows) => new Set(rows).size === rows.length, { message: 'a row may be left out only once' })
           .optional(),
@@ -36,7 +41,10 @@ export const createFitBody = z.object({
   fixed: z
     .object({ epsilonK: z.number().gt(0).lte(10000).optional(), sigmaAngstrom: z.number().gt(0).lte(30).optional() })
     .strict()
-    .refine((f) => f.epsilonK === undefined || f.sigmaAngstrom === undefined, { message: 'hold ε or σ, not both: with both held there is nothing to fit', path: ['sigmaAngstrom'] })
+    .refine((f) => f.epsilonK === undefined || f.sigmaAngstrom === undefined, {
+      message: 'hold ε or σ, not both: with both held there is nothing to fit',
+      path: ['sigmaAngstrom'],
+    })
     .optional(),
   options: z
     .object({
@@ -50,16 +58,28 @@ export const createFitBody = z.object({
       /** 'lj-12-6' (default) or 'mie': a Mie λr-6 potential with repulsiveExponent held or fitRepulsiveExponent. */
       model: z.enum(['lj-12-6', 'mie']).optional(),
       /** λr of the Mie potential, held (8–36). */
-      repulsiveExponent: z.number().min(8, 'the repulsive exponent λr is at least 8').max(36, 'the repulsive exponent λr is at most 36').optional(),
+      repulsiveExponent: z
+        .number()
+        .min(8, 'the repulsive exponent λr is at least 8')
+        .max(36, 'the repulsive exponent λr is at most 36')
+        .optional(),
       /** Fit λr as a third parameter (by profiling χ² over 8–36). */
       fitRepulsiveExponent: z.boolean().optional(),
       /** Sample the Bayesian posterior of (ε, σ) after the fit (ensemble sampler, fixed seed). */
       posterior: z
         .object({
           samples: z.number().int().min(100, 'at least 100 steps per walker').max(20000, 'at most 20000 steps per walker').optional(),
-          seed: z.number().int().min(0).max(2 ** 32 - 1).optional(),
+          seed: z
+            .number()
+            .int()
+            .min(0)
+            .max(2 ** 32 - 1)
+            .optional(),
           /** A bivariate Gaussian prior on (ε, σ): the values and covariance of a previous approved (or superseded) set of the same model. */
-          prior: z.object({ parameterSetId: z.number({ error: 'choose a parameter set' }).int().positive() }).strict().optional(),
+          prior: z
+            .object({ parameterSetId: z.number({ error: 'choose a parameter set' }).int().positive() })
+            .strict()
+            .optional(),
         })
         .strict()
         .optional(),
@@ -69,10 +89,21 @@ export const createFitBody = z.object({
     .strict()
     .superRefine((o, ctx) => {
       const mie = o.model === 'mie';
-      if (!mie && (o.repulsiveExponent !== undefined || o.fitRepulsiveExponent)) ctx.addIssue({ code: 'custom', path: ['model'], message: 'a repulsive exponent needs model "mie"' });
-      if (mie && (o.repulsiveExponent === undefined) === !o.fitRepulsiveExponent) ctx.addIssue({ code: 'custom', path: ['repulsiveExponent'], message: 'a Mie fit needs either repulsiveExponent (held) or fitRepulsiveExponent: true, not both' });
+      if (!mie && (o.repulsiveExponent !== undefined || o.fitRepulsiveExponent))
+        ctx.addIssue({ code: 'custom', path: ['model'], message: 'a repulsive exponent needs model "mie"' });
+      if (mie && (o.repulsiveExponent === undefined) === !o.fitRepulsiveExponent)
+        ctx.addIssue({
+          code: 'custom',
+          path: ['repulsiveExponent'],
+          message: 'a Mie fit needs either repulsiveExponent (held) or fitRepulsiveExponent: true, not both',
+        });
       // A Mie fit with density data runs the simulation stage with λr held; fitting λr would need rounds of runs per λr.
-      if (mie && o.density && o.fitRepulsiveExponent) ctx.addIssue({ code: 'custom', path: ['fitRepulsiveExponent'], message: 'the simulation stage of a density fit holds λr: give repulsiveExponent instead of fitting it' });
+      if (mie && o.density && o.fitRepulsiveExponent)
+        ctx.addIssue({
+          code: 'custom',
+          path: ['fitRepulsiveExponent'],
+          message: 'the simulation stage of a density fit holds λr: give repulsiveExponent instead of fitting it',
+        });
     })
     .optional(),
 });

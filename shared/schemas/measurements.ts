@@ -26,7 +26,9 @@ const molarMass = z
 /** Warnings for a molar mass that is possible but unusual (the substance is still saved). */
 export function molarMassWarnings(molarMassGPerMol: number | undefined): string[] {
   if (molarMassGPerMol === undefined || molarMassGPerMol <= MOLAR_MASS_USUAL_MAX_G_PER_MOL) return [];
-  return [`A molar mass of ${molarMassGPerMol} g/mol is unusual for a single Lennard-Jones site (most are below ${MOLAR_MASS_USUAL_MAX_G_PER_MOL} g/mol); check that it is per mole of molecules, in g/mol.`];
+  return [
+    `A molar mass of ${molarMassGPerMol} g/mol is unusual for a single Lennard-Jones site (most are below ${MOLAR_MASS_USUAL_MAX_G_PER_MOL} g/mol); check that it is per mole of molecules, in g/mol.`,
+  ];
 }
 
 /**
@@ -34,7 +36,8 @@ export function molarMassWarnings(molarMassGPerMol: number | undefined): string[
  * form), runs of white space as one space, trimmed. Uniqueness compares these, ignoring letter case.
  */
 export const normaliseSubstanceName = (name: string) => name.normalize('NFKC').replace(/\s+/g, ' ').trim();
-const substanceName = (required: string) => z.string().overwrite(normaliseSubstanceName).min(1, required).max(120, 'at most 120 characters');
+const substanceName = (required: string) =>
+  z.string().overwrite(normaliseSubstanceName).min(1, required).max(120, 'at most 120 characters');
 
 /** POST /substances body. */
 export const createSubstanceBody = acceptOldFields(
@@ -101,7 +104,10 @@ export const columnMappingEntrySchema = z.object({
 });
 
 /** Column index (0-based, as a decimal string key) → entry. */
-export const columnMappingSchema = z.record(z.string().regex(/^\d{1,4}$/, 'column keys are 0-based column numbers'), columnMappingEntrySchema);
+export const columnMappingSchema = z.record(
+  z.string().regex(/^\d{1,4}$/, 'column keys are 0-based column numbers'),
+  columnMappingEntrySchema,
+);
 
 /** The mapping arrives as a JSON string in a multipart field; an object is accepted too (JSON bodies). */
 export const mappingFieldSchema = z.preprocess((v, ctx) => {
@@ -234,4 +240,6 @@ export const apiRowSchemas = {
 } as const;
 
 /** POST /api/measurement-sets/:id/withdraw (the withdraw form validates with it too). */
-export const withdrawMeasurementSetBody = z.object({ reason: z.string().trim().min(3, 'give a reason of at least 3 characters').max(2000) });
+export const withdrawMeasurementSetBody = z.object({
+  reason: z.string().trim().min(3, 'give a reason of at least 3 characters').max(2000),
+});

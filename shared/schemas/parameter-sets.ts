@@ -25,19 +25,32 @@ export const validitySchema = z
   })
   .strict()
   .superRefine((v, ctx) => {
-    if (v.temperatureMinK >= v.temperatureMaxK) ctx.addIssue({ code: 'custom', path: ['temperatureMaxK'], message: 'the upper temperature must be above the lower one' });
-    if ((v.pressureMinMPa === undefined) !== (v.pressureMaxMPa === undefined)) ctx.addIssue({ code: 'custom', path: ['pressureMaxMPa'], message: 'give both pressure bounds or neither' });
-    else if (v.pressureMinMPa !== undefined && v.pressureMaxMPa !== undefined && v.pressureMinMPa >= v.pressureMaxMPa) ctx.addIssue({ code: 'custom', path: ['pressureMaxMPa'], message: 'the upper pressure must be above the lower one' });
+    if (v.temperatureMinK >= v.temperatureMaxK)
+      ctx.addIssue({ code: 'custom', path: ['temperatureMaxK'], message: 'the upper temperature must be above the lower one' });
+    if ((v.pressureMinMPa === undefined) !== (v.pressureMaxMPa === undefined))
+      ctx.addIssue({ code: 'custom', path: ['pressureMaxMPa'], message: 'give both pressure bounds or neither' });
+    else if (v.pressureMinMPa !== undefined && v.pressureMaxMPa !== undefined && v.pressureMinMPa >= v.pressureMaxMPa)
+      ctx.addIssue({ code: 'custom', path: ['pressureMaxMPa'], message: 'the upper pressure must be above the lower one' });
   });
 export type Validity = z.infer<typeof validitySchema>;
 
-const rationale = z.string({ error: 'rationale is required' }).trim().min(3, 'give a rationale of at least 3 characters').max(5000, 'at most 5000 characters');
+const rationale = z
+  .string({ error: 'rationale is required' })
+  .trim()
+  .min(3, 'give a rationale of at least 3 characters')
+  .max(5000, 'at most 5000 characters');
 
 /** A truncated scheme needs its cutoff; the full potential has none. */
 function schemeNeedsCutoff(v: { scheme?: CutoffScheme; cutoffSigma?: number }, ctx: z.RefinementCtx) {
   const scheme = v.scheme ?? 'full-potential';
-  if (scheme === 'full-potential' && v.cutoffSigma !== undefined) ctx.addIssue({ code: 'custom', path: ['cutoffSigma'], message: 'the full potential has no cutoff; leave the cutoff empty' });
-  if (scheme !== 'full-potential' && v.cutoffSigma === undefined) ctx.addIssue({ code: 'custom', path: ['cutoffSigma'], message: `the scheme “${CUTOFF_SCHEME_LABELS[scheme]}” needs a cutoff (${CUTOFF_SIGMA_RANGE.min}–${CUTOFF_SIGMA_RANGE.max} σ)` });
+  if (scheme === 'full-potential' && v.cutoffSigma !== undefined)
+    ctx.addIssue({ code: 'custom', path: ['cutoffSigma'], message: 'the full potential has no cutoff; leave the cutoff empty' });
+  if (scheme !== 'full-potential' && v.cutoffSigma === undefined)
+    ctx.addIssue({
+      code: 'custom',
+      path: ['cutoffSigma'],
+      message: `the scheme “${CUTOFF_SCHEME_LABELS[scheme]}” needs a cutoff (${CUTOFF_SIGMA_RANGE.min}–${CUTOFF_SIGMA_RANGE.max} σ)`,
+    });
 }
 
 /** POST /api/parameter-sets */
@@ -81,7 +94,20 @@ acceptOldFields(updateParameterSetBody, [['datasets', 'measurementSets']]); // v
 export type UpdateParameterSetBody = z.infer<typeof updateParameterSetBody>;
 
 /** Fields a PATCH can never change: they are frozen at creation (answered 409, not 400). */
-export const FROZEN_FIELDS = ['epsilonK', 'sigmaAngstrom', 'stdErr', 'correlation', 'scheme', 'cutoffSigma', 'version', 'fitId', 'substanceId', 'model', 'measurementSets', 'state'] as const;
+export const FROZEN_FIELDS = [
+  'epsilonK',
+  'sigmaAngstrom',
+  'stdErr',
+  'correlation',
+  'scheme',
+  'cutoffSigma',
+  'version',
+  'fitId',
+  'substanceId',
+  'model',
+  'measurementSets',
+  'state',
+] as const;
 
 /** POST /api/parameter-sets/:id/review */
 export const reviewParameterSetBody = z
@@ -94,8 +120,16 @@ export type ReviewParameterSetBody = z.infer<typeof reviewParameterSetBody>;
 
 /** POST /api/parameter-sets/:id/retire */
 export const retireParameterSetBody = z
-  .object({ reason: z.string({ error: 'give a reason' }).trim().min(3, 'give a reason of at least 3 characters').max(2000, 'at most 2000 characters') })
+  .object({
+    reason: z
+      .string({ error: 'give a reason' })
+      .trim()
+      .min(3, 'give a reason of at least 3 characters')
+      .max(2000, 'at most 2000 characters'),
+  })
   .strict();
 
 /** POST /api/parameter-sets/:id/comments */
-export const commentBody = z.object({ body: z.string({ error: 'the comment is empty' }).trim().min(1, 'the comment is empty').max(5000, 'at most 5000 characters') }).strict();
+export const commentBody = z
+  .object({ body: z.string({ error: 'the comment is empty' }).trim().min(1, 'the comment is empty').max(5000, 'at most 5000 characters') })
+  .strict();

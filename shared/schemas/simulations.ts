@@ -15,7 +15,12 @@ export const mdSettingsSchema = z.object({
   steps: z.number().int().min(SIMULATION_LIMITS.minSteps).max(SIMULATION_LIMITS.maxSteps).optional(),
   cutoff: z.number().min(2).max(4).optional(),
   scheme: z.enum(SIMULATION_CUTOFF_SCHEMES).optional(),
-  seed: z.number().int().min(0).max(2 ** 32 - 1).optional(),
+  seed: z
+    .number()
+    .int()
+    .min(0)
+    .max(2 ** 32 - 1)
+    .optional(),
 });
 export type MdSettings = z.infer<typeof mdSettingsSchema>;
 
@@ -24,7 +29,11 @@ export function withinWorkLimit(settings: { atoms?: number; steps?: number }, ct
   const atoms = settings.atoms ?? 500;
   const steps = settings.steps ?? 10000;
   if (atoms * steps > SIMULATION_LIMITS.maxAtomSteps) {
-    ctx.addIssue({ code: 'custom', path: ['steps'], message: `atoms × steps must be at most ${SIMULATION_LIMITS.maxAtomSteps.toLocaleString('en-GB')} (asked ${atoms} × ${steps}); use fewer atoms or steps` });
+    ctx.addIssue({
+      code: 'custom',
+      path: ['steps'],
+      message: `atoms × steps must be at most ${SIMULATION_LIMITS.maxAtomSteps.toLocaleString('en-GB')} (asked ${atoms} × ${steps}); use fewer atoms or steps`,
+    });
   }
 }
 
@@ -38,13 +47,15 @@ export const createSimulationBody = mdSettingsSchema
 export type CreateSimulationBody = z.infer<typeof createSimulationBody>;
 
 /** POST /api/simulations/from-measurement-set: state points of a density set, mapped to reduced units with trial ε and σ. */
-export const simulationsFromMeasurementSetBody = mdSettingsSchema.extend({
-  measurementSetId: z.number().int().positive(),
-  version: z.number().int().positive().optional(),
-  /** File rows (as shown on the measurement set page) to simulate; all rows when absent. */
-  rows: z.array(z.number().int().positive()).max(200).optional(),
-  epsilonK: z.number().gt(0).max(10000),
-  sigmaAngstrom: z.number().gt(0).max(30),
-}).superRefine(withinWorkLimit);
+export const simulationsFromMeasurementSetBody = mdSettingsSchema
+  .extend({
+    measurementSetId: z.number().int().positive(),
+    version: z.number().int().positive().optional(),
+    /** File rows (as shown on the measurement set page) to simulate; all rows when absent. */
+    rows: z.array(z.number().int().positive()).max(200).optional(),
+    epsilonK: z.number().gt(0).max(10000),
+    sigmaAngstrom: z.number().gt(0).max(30),
+  })
+  .superRefine(withinWorkLimit);
 acceptOldFields(simulationsFromMeasurementSetBody, [['datasetId', 'measurementSetId']]); // vocabulary: keep (the old name, still accepted)
 export type SimulationsFromMeasurementSetBody = z.infer<typeof simulationsFromMeasurementSetBody>;

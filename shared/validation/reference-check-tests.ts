@@ -23,6 +23,12 @@ export function expectReferenceCheck(check: ReferenceCheck): number {
 
 /** A value computed another way (through the command line, say) held to a registry entry's reference and tolerance. */
 export function expectWithinReference(ours: number, check: ReferenceCheck): void {
-  const outcome = { id: check.id, ours, difference: ours - check.reference, passed: withinTolerance(ours, check.reference, check.tolerance), durationMs: 0 };
+  const outcome = {
+    id: check.id,
+    ours,
+    difference: ours - check.reference,
+    passed: withinTolerance(ours, check.reference, check.tolerance),
+    durationMs: 0,
+  };
   expect(outcome.passed, explainOutcome(check, outcome)).toBe(true);
 }

@@ -28,7 +28,8 @@ export type ValidationArea = (typeof VALIDATION_AREAS)[number];
  * absolute: |ours − reference| < value; relative: |ours − reference|/|reference| < value;
  * range: lower < ours < upper (a published spread, or a bound the source states), the reference shown beside it.
  */
-export type Tolerance = { kind: 'absolute'; value: number } | { kind: 'relative'; value: number } | { kind: 'range'; lower: number; upper: number };
+export type Tolerance =
+  { kind: 'absolute'; value: number } | { kind: 'relative'; value: number } | { kind: 'range'; lower: number; upper: number };
 
 export interface ReferenceCheck {
   /** Stable id, e.g. "b2.hcb-table.t1"; tests and the page name checks by it. */
@@ -106,9 +107,22 @@ export function runReferenceCheck(check: ReferenceCheck, now: () => number = () 
   try {
     const ours = check.compute();
     const durationMs = now() - start;
-    return { id: check.id, ours, difference: ours - check.reference, passed: withinTolerance(ours, check.reference, check.tolerance), durationMs };
+    return {
+      id: check.id,
+      ours,
+      difference: ours - check.reference,
+      passed: withinTolerance(ours, check.reference, check.tolerance),
+      durationMs,
+    };
   } catch (e) {
-    return { id: check.id, ours: null, difference: null, passed: false, durationMs: now() - start, error: e instanceof Error ? e.message : String(e) };
+    return {
+      id: check.id,
+      ours: null,
+      difference: null,
+      passed: false,
+      durationMs: now() - start,
+      error: e instanceof Error ? e.message : String(e),
+    };
   }
 }
 

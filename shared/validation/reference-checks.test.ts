@@ -24,7 +24,12 @@ describe('registry of reference checks', () => {
   });
 
   it('turns a computation that throws into a failed outcome with its message', () => {
-    const outcome = runReferenceCheck({ ...REFERENCE_CHECKS[0], compute: () => { throw new RangeError('tStar out of range'); } });
+    const outcome = runReferenceCheck({
+      ...REFERENCE_CHECKS[0],
+      compute: () => {
+        throw new RangeError('tStar out of range');
+      },
+    });
     expect(outcome.passed).toBe(false);
     expect(outcome.error).toBe('tStar out of range');
     expect(outcome.ours).toBeNull();

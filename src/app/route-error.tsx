@@ -10,7 +10,9 @@ export function RouteError() {
       <p className="text-sm font-semibold uppercase tracking-wider text-ink-faint">{status ?? 'Error'}</p>
       <h1 className="mt-2 text-2xl font-bold">{status === 404 ? 'Not found' : 'This page failed to load'}</h1>
       <p className="mt-2 text-ink-soft">{message}</p>
-      <Link to="/" className="mt-6 inline-block font-semibold text-copper underline underline-offset-4">Back to the workbench</Link>
+      <Link to="/" className="mt-6 inline-block font-semibold text-copper underline underline-offset-4">
+        Back to the workbench
+      </Link>
     </div>
   );
 }

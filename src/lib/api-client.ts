@@ -51,7 +51,12 @@ export async function api<T>(path: string, options: RequestOptions = {}): Promis
   const data = text ? safeJson(text) : undefined;
   if (!response.ok) {
     const e = (data as { error?: { code?: string; message?: string; details?: ApiErrorDetail[] } })?.error;
-    throw new ApiError(response.status, e?.code ?? 'http_error', e?.message ?? `The server answered ${response.status}.`, Array.isArray(e?.details) ? e.details : undefined);
+    throw new ApiError(
+      response.status,
+      e?.code ?? 'http_error',
+      e?.message ?? `The server answered ${response.status}.`,
+      Array.isArray(e?.details) ? e.details : undefined,
+    );
   }
   return data as T;
 }

@@ -6,7 +6,16 @@ export function quantityHeading(quantity: QuantityKey): string {
   return `${q.exampleHeader.replace(/\s*[([].*$/, '')} (${q.canonicalUnitLabel})`;
 }
 
-const AXIS_SYMBOLS: Partial<Record<PropertyKind, string>> = { b2: 'B2', b3: 'B3', b12: 'B12', density: 'ρ', viscosity: 'η', saturatedLiquidDensity: 'ρ_liq', saturatedVapourDensity: 'ρ_vap', vapourPressure: 'p_sat' };
+const AXIS_SYMBOLS: Partial<Record<PropertyKind, string>> = {
+  b2: 'B2',
+  b3: 'B3',
+  b12: 'B12',
+  density: 'ρ',
+  viscosity: 'η',
+  saturatedLiquidDensity: 'ρ_liq',
+  saturatedVapourDensity: 'ρ_vap',
+  vapourPressure: 'p_sat',
+};
 
 /** Axis title of a kind's measured value, with its canonical unit (measurement-set charts and fit curves alike). */
 export function valueAxisTitle(kind: PropertyKind): string {

@@ -5,7 +5,12 @@ import type { TestApp } from './test-app';
 type Agent = Awaited<ReturnType<TestApp['signIn']>>;
 
 /** Synthetic B2 table from invented parameters with a small deterministic wiggle (cm³/mol). */
-export function syntheticB2Csv(epsilonK: number, sigmaAngstrom: number, shift = 0, temperaturesK = Array.from({ length: 12 }, (_, i) => 180 + i * 40)): Buffer {
+export function syntheticB2Csv(
+  epsilonK: number,
+  sigmaAngstrom: number,
+  shift = 0,
+  temperaturesK = Array.from({ length: 12 }, (_, i) => 180 + i * 40),
+): Buffer {
   const lines = ['T (K),B2 (cm3/mol),u(B2) (cm3/mol)'];
   temperaturesK.forEach((T, i) => {
     const b2 = b2WithGradient(T, epsilonK, sigmaAngstrom).b2Cm3PerMol;
@@ -24,7 +29,16 @@ export async function newSubstance(modeller: Agent, name: string, molarMass = 40
 export async function approvedSet(
   t: TestApp,
   people: { modeller: Agent; reviewer: Agent },
-  input: { substanceId: number; epsilonK: number; sigmaAngstrom: number; shift?: number; temperaturesK?: number[]; doi?: string; scheme?: 'truncated-shifted'; cutoffSigma?: number },
+  input: {
+    substanceId: number;
+    epsilonK: number;
+    sigmaAngstrom: number;
+    shift?: number;
+    temperaturesK?: number[];
+    doi?: string;
+    scheme?: 'truncated-shifted';
+    cutoffSigma?: number;
+  },
 ): Promise<{ setId: number; fitId: number; measurementSetId: number }> {
   const { modeller, reviewer } = people;
   const up = await modeller
@@ -34,7 +48,10 @@ export async function approvedSet(
     .field('name', `Synthetic B2 ${input.epsilonK} K`)
     .field('source', 'Fenwick Thermophysics Laboratory, invented catalog run')
     .field('doi', input.doi ?? '10.1000/epsigma.catalog.1')
-    .attach('file', syntheticB2Csv(input.epsilonK, input.sigmaAngstrom, input.shift, input.temperaturesK), { filename: 'b2.csv', contentType: 'text/csv' });
+    .attach('file', syntheticB2Csv(input.epsilonK, input.sigmaAngstrom, input.shift, input.temperaturesK), {
+      filename: 'b2.csv',
+      contentType: 'text/csv',
+    });
   expect(up.status, JSON.stringify(up.body)).toBe(201);
   const fit = await modeller.post('/api/fits').send({ substanceId: input.substanceId, measurementSets: [{ id: up.body.id }] });
   expect(fit.status).toBe(202);
@@ -47,7 +64,9 @@ export async function approvedSet(
   });
   expect(draft.status, JSON.stringify(draft.body)).toBe(201);
   expect((await modeller.post(`/api/parameter-sets/${draft.body.id}/submit`)).status).toBe(200);
-  const approve = await reviewer.post(`/api/parameter-sets/${draft.body.id}/review`).send({ decision: 'approve', comment: 'Checked against the data; approved.' });
+  const approve = await reviewer
+    .post(`/api/parameter-sets/${draft.body.id}/review`)
+    .send({ decision: 'approve', comment: 'Checked against the data; approved.' });
   expect(approve.status, JSON.stringify(approve.body)).toBe(200);
   return { setId: draft.body.id, fitId: fit.body.id, measurementSetId: up.body.id };
 }

@@ -76,7 +76,12 @@ describe('GET /api/audit', () => {
     expect(follows.events.every((e) => e.actorEmail === EMAIL.consumer)).toBe(true);
 
     const byActor = await audit({ actor: 'CONSUMER@demo' });
-    expect(byActor.events.map((e) => e.action).sort()).toEqual(['substance.followed', 'substance.followed', 'substance.followed', 'substance.unfollowed']);
+    expect(byActor.events.map((e) => e.action).sort()).toEqual([
+      'substance.followed',
+      'substance.followed',
+      'substance.followed',
+      'substance.unfollowed',
+    ]);
 
     const oneTarget = await audit({ targetType: 'substance', targetId: String(substanceIds[1]) });
     expect(oneTarget.events.map((e) => e.action).sort()).toEqual(['substance.created', 'substance.followed', 'substance.unfollowed']);

@@ -65,7 +65,11 @@ describe('sign-in', () => {
   });
 
   it('refuses state-changing requests without this site as Origin', async () => {
-    const res = await t.client().post('/api/auth/login').set('Origin', 'https://elsewhere.example').send({ email: EMAIL.admin, password: TEST_PASSWORD });
+    const res = await t
+      .client()
+      .post('/api/auth/login')
+      .set('Origin', 'https://elsewhere.example')
+      .send({ email: EMAIL.admin, password: TEST_PASSWORD });
     expect(res.status).toBe(403);
     expect(res.body.error.code).toBe('origin_rejected');
   });
@@ -88,7 +92,11 @@ describe('sign-in', () => {
   it('an expired session is refused', async () => {
     const agent = await t.signIn(EMAIL.reviewer);
     const user = await t.ctx.db.selectFrom('user').select('id').where('email', '=', EMAIL.reviewer).executeTakeFirstOrThrow();
-    await t.ctx.db.updateTable('session').set({ expiresAt: Math.floor(Date.now() / 1000) - 10 }).where('userId', '=', user.id).execute();
+    await t.ctx.db
+      .updateTable('session')
+      .set({ expiresAt: Math.floor(Date.now() / 1000) - 10 })
+      .where('userId', '=', user.id)
+      .execute();
     expect((await agent.get('/api/me')).status).toBe(401);
   });
 
@@ -101,7 +109,9 @@ describe('sign-in', () => {
     const short = await agent.post('/api/me/password').send({ currentPassword: TEST_PASSWORD, newPassword: 'short' });
     expect(short.status).toBe(400);
     expect(short.body.error.details[0].field).toBe('newPassword');
-    expect((await agent.post('/api/me/password').send({ currentPassword: TEST_PASSWORD, newPassword: 'a-new-password-123' })).status).toBe(204);
+    expect((await agent.post('/api/me/password').send({ currentPassword: TEST_PASSWORD, newPassword: 'a-new-password-123' })).status).toBe(
+      204,
+    );
     expect((await agent.get('/api/me')).status).toBe(200);
     expect((await other.get('/api/me')).status).toBe(401);
     await t.signIn(EMAIL.reviewer, 'a-new-password-123');
@@ -123,7 +133,8 @@ describe('sign-in rate limit', () => {
   it('answers 429 after too many attempts for one address', async () => {
     const limited = await startTestApp({ SIGN_IN_LIMIT: '3' });
     try {
-      for (let i = 0; i < 3; i++) expect((await limited.client().post('/api/auth/login').send({ email: EMAIL.admin, password: 'wrong' })).status).toBe(401);
+      for (let i = 0; i < 3; i++)
+        expect((await limited.client().post('/api/auth/login').send({ email: EMAIL.admin, password: 'wrong' })).status).toBe(401);
       const res = await limited.client().post('/api/auth/login').send({ email: EMAIL.admin, password: TEST_PASSWORD });
       expect(res.status).toBe(429);
       expect(res.body.error.code).toBe('too_many_attempts');

@@ -14,7 +14,10 @@ describe('catalog reads after changes', () => {
   let consumer: Awaited<ReturnType<TestApp['signIn']>>;
   let setId: number;
   let substanceId: number;
-  const names = async () => ((await consumer.get('/api/catalog')).body.sets as Array<{ id: number; substanceName: string }>).map((s) => `${s.id}:${s.substanceName}`);
+  const names = async () =>
+    ((await consumer.get('/api/catalog')).body.sets as Array<{ id: number; substanceName: string }>).map(
+      (s) => `${s.id}:${s.substanceName}`,
+    );
 
   beforeAll(async () => {
     t = await startTestApp();

@@ -42,9 +42,24 @@ beforeAll(async () => {
   v2 = (await approvedSet(t, people, { substanceId: catalogiumId, epsilonK: 120, sigmaAngstrom: 3.4, shift: -1.5 })).setId;
   // A name a spreadsheet would run as a formula (OWASP CSV injection), at higher temperatures only.
   formulaId = await newSubstance(modeller, '=HYPERLINK("http://x.invalid","Sulfane")', 34.08);
-  formulaSet = (await approvedSet(t, people, { substanceId: formulaId, epsilonK: 300, sigmaAngstrom: 3.7, temperaturesK: Array.from({ length: 10 }, (_, i) => 600 + 50 * i) })).setId;
+  formulaSet = (
+    await approvedSet(t, people, {
+      substanceId: formulaId,
+      epsilonK: 300,
+      sigmaAngstrom: 3.7,
+      temperaturesK: Array.from({ length: 10 }, (_, i) => 600 + 50 * i),
+    })
+  ).setId;
   const shiftedSub = await newSubstance(modeller, 'Truncatane', 16.04);
-  shiftedSet = (await approvedSet(t, people, { substanceId: shiftedSub, epsilonK: 150, sigmaAngstrom: 3.7, scheme: 'truncated-shifted', cutoffSigma: 2.5 })).setId;
+  shiftedSet = (
+    await approvedSet(t, people, {
+      substanceId: shiftedSub,
+      epsilonK: 150,
+      sigmaAngstrom: 3.7,
+      scheme: 'truncated-shifted',
+      cutoffSigma: 2.5,
+    })
+  ).setId;
   // A draft nobody approved.
   const fit = (await modeller.get(`/api/substances/${catalogiumId}/fits`)).body.fits[0].id;
   draftId = (await modeller.post('/api/parameter-sets').send({ fitId: fit, rationale: 'Not yet reviewed draft.' })).body.id;
@@ -54,7 +69,14 @@ afterAll(() => t.close());
 describe('route families', () => {
   it('401 without a session or token on every catalog and export route', async () => {
     const c = t.client();
-    for (const path of ['/api/catalog', `/api/catalog/${v2}`, `/api/parameter-sets/${v2}/export?format=json`, `/api/mixtures?sets=${v2},${formulaSet}&rule=kong`, '/api/me/preferences', '/api/tokens']) {
+    for (const path of [
+      '/api/catalog',
+      `/api/catalog/${v2}`,
+      `/api/parameter-sets/${v2}/export?format=json`,
+      `/api/mixtures?sets=${v2},${formulaSet}&rule=kong`,
+      '/api/me/preferences',
+      '/api/tokens',
+    ]) {
       expect((await c.get(path)).status, path).toBe(401);
     }
     expect((await c.put('/api/me/preferences').send({ energyUnit: 'eV' })).status).toBe(401);
@@ -67,7 +89,9 @@ describe('route families', () => {
       expect(res.body.error.code).toBe('validation_failed');
       return res.body.error.details.map((d: { field: string }) => d.field);
     };
-    expect(await fields('/api/catalog?scheme=cut-and-hope&tMinK=-3&kind=b2,enthalpy')).toEqual(expect.arrayContaining(['scheme', 'tMinK', 'kind.1']));
+    expect(await fields('/api/catalog?scheme=cut-and-hope&tMinK=-3&kind=b2,enthalpy')).toEqual(
+      expect.arrayContaining(['scheme', 'tMinK', 'kind.1']),
+    );
     expect(await fields('/api/catalog?tMinK=400&tMaxK=300')).toEqual(['tMaxK']);
     expect(await fields('/api/catalog?colour=blue')).toEqual(['query']);
     expect(await fields(`/api/parameter-sets/${v2}/export`)).toEqual(['format']);
@@ -92,7 +116,16 @@ describe('catalog', () => {
     expect(all).not.toContain(v1);
     expect(all).not.toContain(draftId);
     const row = (await consumer.get('/api/catalog?q=catalog')).body.sets[0];
-    expect(row).toMatchObject({ id: v2, version: 2, state: 'approved', scheme: 'full-potential', kinds: ['b2'], olderVersions: 1, approvedByName: expect.any(String), approvedAt: expect.any(String) });
+    expect(row).toMatchObject({
+      id: v2,
+      version: 2,
+      state: 'approved',
+      scheme: 'full-potential',
+      kinds: ['b2'],
+      olderVersions: 1,
+      approvedByName: expect.any(String),
+      approvedAt: expect.any(String),
+    });
   });
 
   it('filters by name, scheme, data kind and overlap with a temperature range', async () => {
@@ -112,7 +145,11 @@ describe('catalog', () => {
   it('the card shows approval, sources, fit statistics and the versions with what changed', async () => {
     const card = (await consumer.get(`/api/catalog/${v1}`)).body;
     expect(card).toMatchObject({ id: v1, state: 'superseded', exportable: true, currentApprovedId: v2 });
-    expect(card.measurementSets[0]).toMatchObject({ kind: 'b2', doi: '10.1000/epsigma.catalog.1', source: expect.stringContaining('Fenwick') });
+    expect(card.measurementSets[0]).toMatchObject({
+      kind: 'b2',
+      doi: '10.1000/epsigma.catalog.1',
+      source: expect.stringContaining('Fenwick'),
+    });
     expect(card.fit.reducedChi2).toEqual(expect.any(Number));
     expect(card.versions.map((v: { id: number }) => v.id)).toEqual([v1, v2]);
     const [first, second] = card.versions;
@@ -128,7 +165,14 @@ describe('catalog', () => {
 
 describe('export', () => {
   it('serves every format as an attachment with its content type', async () => {
-    const expected: Record<string, RegExp> = { json: /^application\/json/, csv: /^text\/csv/, 'lammps-real': /^text\/plain/, 'lammps-metal': /^text\/plain/, 'lammps-lj': /^text\/plain/, gromacs: /^text\/plain/ };
+    const expected: Record<string, RegExp> = {
+      json: /^application\/json/,
+      csv: /^text\/csv/,
+      'lammps-real': /^text\/plain/,
+      'lammps-metal': /^text\/plain/,
+      'lammps-lj': /^text\/plain/,
+      gromacs: /^text\/plain/,
+    };
     for (const [format, type] of Object.entries(expected)) {
       const res = await consumer.get(`/api/parameter-sets/${v2}/export?format=${format}`).buffer(true);
       expect(res.status, format).toBe(200);
@@ -225,7 +269,11 @@ describe('mixtures', () => {
     // Waldman & Hagler, J. Comput. Chem. 14, 1077 (1993), eqs. for σ_ij (sixth-power mean) and ε_ij.
     const s6 = (a.sigmaAngstrom ** 6 + b.sigmaAngstrom ** 6) / 2;
     expect(wh.sigmaAngstrom).toBeCloseTo(s6 ** (1 / 6), 10);
-    expect(wh.epsilonK).toBeCloseTo((2 * Math.sqrt(a.epsilonK * b.epsilonK) * a.sigmaAngstrom ** 3 * b.sigmaAngstrom ** 3) / (a.sigmaAngstrom ** 6 + b.sigmaAngstrom ** 6), 9);
+    expect(wh.epsilonK).toBeCloseTo(
+      (2 * Math.sqrt(a.epsilonK * b.epsilonK) * a.sigmaAngstrom ** 3 * b.sigmaAngstrom ** 3) /
+        (a.sigmaAngstrom ** 6 + b.sigmaAngstrom ** 6),
+      9,
+    );
     const kong = (await consumer.get(`/api/mixtures?sets=${v2},${formulaSet}&rule=kong`)).body.pairs[1];
     // Kong, J. Chem. Phys. 59, 2464 (1973), Table I: εσ⁶ geometric; εσ¹² by the 1/13-power mean.
     const c6 = Math.sqrt(a.epsilonK * a.sigmaAngstrom ** 6 * b.epsilonK * b.sigmaAngstrom ** 6);
@@ -251,8 +299,16 @@ describe('mixtures', () => {
 describe('preferences', () => {
   it('defaults, partial updates, validation and forgetting the scheme', async () => {
     expect((await consumer.get('/api/me/preferences')).body).toEqual({ energyUnit: 'K', lengthUnit: 'Å' });
-    expect((await consumer.put('/api/me/preferences').send({ energyUnit: 'kJ/mol', scheme: 'truncated-shifted' })).body).toEqual({ energyUnit: 'kJ/mol', lengthUnit: 'Å', scheme: 'truncated-shifted' });
-    expect((await consumer.put('/api/me/preferences').send({ lengthUnit: 'nm' })).body).toEqual({ energyUnit: 'kJ/mol', lengthUnit: 'nm', scheme: 'truncated-shifted' });
+    expect((await consumer.put('/api/me/preferences').send({ energyUnit: 'kJ/mol', scheme: 'truncated-shifted' })).body).toEqual({
+      energyUnit: 'kJ/mol',
+      lengthUnit: 'Å',
+      scheme: 'truncated-shifted',
+    });
+    expect((await consumer.put('/api/me/preferences').send({ lengthUnit: 'nm' })).body).toEqual({
+      energyUnit: 'kJ/mol',
+      lengthUnit: 'nm',
+      scheme: 'truncated-shifted',
+    });
     const bad = await consumer.put('/api/me/preferences').send({ energyUnit: 'Hartree', colour: 'red' });
     expect(bad.status).toBe(400);
     expect(bad.body.error.details.map((d: { field: string }) => d.field)).toEqual(expect.arrayContaining(['energyUnit']));
@@ -270,7 +326,9 @@ describe('published descriptions', () => {
     const doc = JSON.parse((await c.get('/api/openapi.json')).text);
     expect(doc.openapi).toBe('3.1.0');
     expect(doc.components.securitySchemes.bearerToken).toMatchObject({ type: 'http', scheme: 'bearer' });
-    expect(Object.keys(doc.paths)).toEqual(expect.arrayContaining(['/catalog', '/parameter-sets/{id}/export', '/mixtures', '/schemas/{name}', '/openapi.json']));
+    expect(Object.keys(doc.paths)).toEqual(
+      expect.arrayContaining(['/catalog', '/parameter-sets/{id}/export', '/mixtures', '/schemas/{name}', '/openapi.json']),
+    );
     // Every route a token reaches is described, and nothing else.
     const described = Object.keys(doc.paths).map((p) => `GET /api${p.replace(/\{(\w+)\}/g, ':$1')}`);
     expect(described.sort()).toEqual(TOKEN_ROUTES.map((r) => r.route).sort());

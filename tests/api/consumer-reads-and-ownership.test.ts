@@ -16,13 +16,25 @@ const OTHER_MODELLER = 'wren.aldous@quillmoor.example';
 beforeAll(async () => {
   t = await startTestApp();
   admin = await t.signIn(EMAIL.admin);
-  const created = await admin.post('/api/people').send({ email: OTHER_MODELLER, name: 'Wren Aldous', roles: ['modeller'], password: TEST_PASSWORD });
+  const created = await admin
+    .post('/api/people')
+    .send({ email: OTHER_MODELLER, name: 'Wren Aldous', roles: ['modeller'], password: TEST_PASSWORD });
   expect(created.status, JSON.stringify(created.body)).toBe(201);
-  [modeller, other, reviewer, consumer] = await Promise.all([t.signIn(EMAIL.modeller), t.signIn(OTHER_MODELLER), t.signIn(EMAIL.reviewer), t.signIn(EMAIL.consumer)]);
+  [modeller, other, reviewer, consumer] = await Promise.all([
+    t.signIn(EMAIL.modeller),
+    t.signIn(OTHER_MODELLER),
+    t.signIn(EMAIL.reviewer),
+    t.signIn(EMAIL.consumer),
+  ]);
   substanceId = await newSubstance(modeller, 'quillgas QG-7', 58.1);
   published = await approvedSet(t, { modeller, reviewer }, { substanceId, epsilonK: 210, sigmaAngstrom: 3.9 });
   // Unpublished work of the same modeller: a second measurement set and its fit, never drafted into a set.
-  const up = await modeller.post('/api/measurement-sets').field('substanceId', substanceId).field('kind', 'b2').field('name', 'Unpublished B2 run').attach('file', syntheticB2Csv(205, 3.95, 0.5), { filename: 'b2-draft.csv', contentType: 'text/csv' });
+  const up = await modeller
+    .post('/api/measurement-sets')
+    .field('substanceId', substanceId)
+    .field('kind', 'b2')
+    .field('name', 'Unpublished B2 run')
+    .attach('file', syntheticB2Csv(205, 3.95, 0.5), { filename: 'b2-draft.csv', contentType: 'text/csv' });
   expect(up.status).toBe(201);
   draftMeasurementSetId = up.body.id;
   const fit = await modeller.post('/api/fits').send({ substanceId, measurementSets: [{ id: draftMeasurementSetId }] });
@@ -43,7 +55,14 @@ describe('what a consumer may read', () => {
   });
 
   it('lists no fits of a substance, no measurement sets, no set detail and no original file', async () => {
-    for (const p of [`/api/substances/${substanceId}/fits`, '/api/measurement-sets', `/api/measurement-sets?substanceId=${substanceId}`, `/api/measurement-sets/${draftMeasurementSetId}`, `/api/measurement-sets/${published.measurementSetId}`, `/api/measurement-sets/${draftMeasurementSetId}/versions/1/original`]) {
+    for (const p of [
+      `/api/substances/${substanceId}/fits`,
+      '/api/measurement-sets',
+      `/api/measurement-sets?substanceId=${substanceId}`,
+      `/api/measurement-sets/${draftMeasurementSetId}`,
+      `/api/measurement-sets/${published.measurementSetId}`,
+      `/api/measurement-sets/${draftMeasurementSetId}/versions/1/original`,
+    ]) {
       const res = await consumer.get(p);
       expect(res.status, p).toBe(403);
       expect(res.body.error.code).toBe('forbidden');
@@ -88,31 +107,57 @@ describe('ownership rule: the author or an admin changes a fit or a measurement 
 
   it('an admin cancels a running fit of someone else, and the audit trail says so', async () => {
     const density = (await modeller.get('/api/measurement-sets')).body.measurementSets.find((d: { kind: string }) => d.kind === 'density');
-    const fit = await modeller.post('/api/fits').send({ substanceId: density.substanceId, measurementSets: [{ id: density.id }], options: { density: { atoms: 256, steps: 400000 } } });
+    const fit = await modeller.post('/api/fits').send({
+      substanceId: density.substanceId,
+      measurementSets: [{ id: density.id }],
+      options: { density: { atoms: 256, steps: 400000 } },
+    });
     expect(fit.status, JSON.stringify(fit.body)).toBe(202);
     const res = await admin.post(`/api/fits/${fit.body.id}/cancel`);
     expect(res.status, JSON.stringify(res.body)).toBe(200);
     expect(res.body.status).toBe('cancelled');
-    const audit = await t.ctx.db.selectFrom('auditEvent').select(['actorEmail', 'summary']).where('action', '=', 'fit.cancelled').where('targetId', '=', String(fit.body.id)).executeTakeFirstOrThrow();
+    const audit = await t.ctx.db
+      .selectFrom('auditEvent')
+      .select(['actorEmail', 'summary'])
+      .where('action', '=', 'fit.cancelled')
+      .where('targetId', '=', String(fit.body.id))
+      .executeTakeFirstOrThrow();
     expect(audit.actorEmail).toBe(EMAIL.admin);
     expect(audit.summary).toContain("as admin; the fit is Milo Carraway's");
   });
 
   it('another modeller may neither version nor withdraw a measurement set; the author may, and an admin may withdraw', async () => {
-    const version = await other.post(`/api/measurement-sets/${draftMeasurementSetId}/versions`).attach('file', syntheticB2Csv(205, 3.95, 0.7), { filename: 'b2-v2.csv', contentType: 'text/csv' });
+    const version = await other
+      .post(`/api/measurement-sets/${draftMeasurementSetId}/versions`)
+      .attach('file', syntheticB2Csv(205, 3.95, 0.7), { filename: 'b2-v2.csv', contentType: 'text/csv' });
     expect(version.status).toBe(403);
     expect(version.body.error.code).toBe('not_author');
     const withdraw = await other.post(`/api/measurement-sets/${draftMeasurementSetId}/withdraw`).send({ reason: 'Not mine to keep' });
     expect(withdraw.status).toBe(403);
     expect(withdraw.body.error.code).toBe('not_author');
-    expect((await t.ctx.db.selectFrom('measurementSetWithdrawal').select('measurementSetId').where('measurementSetId', '=', draftMeasurementSetId).execute())).toHaveLength(0);
+    expect(
+      await t.ctx.db
+        .selectFrom('measurementSetWithdrawal')
+        .select('measurementSetId')
+        .where('measurementSetId', '=', draftMeasurementSetId)
+        .execute(),
+    ).toHaveLength(0);
 
-    const own = await modeller.post(`/api/measurement-sets/${draftMeasurementSetId}/versions`).attach('file', syntheticB2Csv(205, 3.95, 0.7), { filename: 'b2-v2.csv', contentType: 'text/csv' });
+    const own = await modeller
+      .post(`/api/measurement-sets/${draftMeasurementSetId}/versions`)
+      .attach('file', syntheticB2Csv(205, 3.95, 0.7), { filename: 'b2-v2.csv', contentType: 'text/csv' });
     expect(own.status, JSON.stringify(own.body)).toBe(201);
     expect(own.body.version).toBe(2);
-    const byAdmin = await admin.post(`/api/measurement-sets/${draftMeasurementSetId}/withdraw`).send({ reason: 'Duplicate of the published run' });
+    const byAdmin = await admin
+      .post(`/api/measurement-sets/${draftMeasurementSetId}/withdraw`)
+      .send({ reason: 'Duplicate of the published run' });
     expect(byAdmin.status).toBe(200);
-    const audit = await t.ctx.db.selectFrom('auditEvent').select(['actorEmail', 'summary']).where('action', '=', 'dataset.withdrawn').where('targetId', '=', String(draftMeasurementSetId)).executeTakeFirstOrThrow();
+    const audit = await t.ctx.db
+      .selectFrom('auditEvent')
+      .select(['actorEmail', 'summary'])
+      .where('action', '=', 'dataset.withdrawn')
+      .where('targetId', '=', String(draftMeasurementSetId))
+      .executeTakeFirstOrThrow();
     expect(audit.actorEmail).toBe(EMAIL.admin);
     expect(audit.summary).toContain('as admin');
   });

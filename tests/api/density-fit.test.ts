@@ -15,7 +15,16 @@ beforeAll(async () => {
 });
 afterAll(() => t.close());
 
-const simulationCount = async () => Number((await t.ctx.db.selectFrom('job').select((eb) => eb.fn.countAll<number>().as('n')).where('kind', '=', 'simulation').executeTakeFirstOrThrow()).n);
+const simulationCount = async () =>
+  Number(
+    (
+      await t.ctx.db
+        .selectFrom('job')
+        .select((eb) => eb.fn.countAll<number>().as('n'))
+        .where('kind', '=', 'simulation')
+        .executeTakeFirstOrThrow()
+    ).n,
+  );
 
 // Plumbing of the joint B2 + density fit with small, fast simulations; the physics of the simulation stage is
 // checked in shared/fitting/md-stage.test.ts and by `npm run -s bench:fit`.
@@ -73,8 +82,12 @@ describe('a joint B2 + density fit through the API', () => {
   }, 600_000);
 
   it('refuses engine settings out of range with 400 naming the field', async () => {
-    const res = await modeller.post('/api/fits').send({ substanceId, measurementSets: [{ id: measurementSets[0].id }], options: { density: { atoms: 5, cutoff: 9 } } });
+    const res = await modeller
+      .post('/api/fits')
+      .send({ substanceId, measurementSets: [{ id: measurementSets[0].id }], options: { density: { atoms: 5, cutoff: 9 } } });
     expect(res.status).toBe(400);
-    expect(res.body.error.details.map((d: { field: string }) => d.field)).toEqual(expect.arrayContaining(['options.density.atoms', 'options.density.cutoff']));
+    expect(res.body.error.details.map((d: { field: string }) => d.field)).toEqual(
+      expect.arrayContaining(['options.density.atoms', 'options.density.cutoff']),
+    );
   });
 });

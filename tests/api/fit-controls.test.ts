@@ -71,7 +71,9 @@ describe('holding a parameter (item 12)', () => {
   });
 
   it('refuses holding both, naming the field as the form labels it', async () => {
-    const res = await modeller.post('/api/fits').send({ substanceId, measurementSets: [{ id: measurementSetId }], fixed: { epsilonK: 180, sigmaAngstrom: 3.7 } });
+    const res = await modeller
+      .post('/api/fits')
+      .send({ substanceId, measurementSets: [{ id: measurementSetId }], fixed: { epsilonK: 180, sigmaAngstrom: 3.7 } });
     expect(res.status).toBe(400);
     expect(res.body.error.details[0]).toMatchObject({ field: 'fixed.sigmaAngstrom', label: 'Hold σ (Å)' });
     expect(res.body.error.message).toBe('Hold σ (Å): hold ε or σ, not both: with both held there is nothing to fit.');
@@ -80,13 +82,17 @@ describe('holding a parameter (item 12)', () => {
 
 describe('leaving rows out (item 13)', () => {
   it('records the rows and the reason, flags them in the residuals and leaves them out of χ² and ν', async () => {
-    const { body } = await runFit({ measurementSets: [{ id: measurementSetId, excludeRows: [5, 2], excludeReason: 'Readings after the pump fault' }] });
+    const { body } = await runFit({
+      measurementSets: [{ id: measurementSetId, excludeRows: [5, 2], excludeReason: 'Readings after the pump fault' }],
+    });
     expect(body.measurementSets[0]).toMatchObject({ excludeRows: [2, 5], excludeReason: 'Readings after the pump fault' });
     const r = body.result;
     expect(r.dof).toBe(10);
     expect(r.residuals).toHaveLength(14);
     expect(r.residuals.filter((x: { excluded: boolean }) => x.excluded).map((x: { rowNumber: number }) => x.rowNumber)).toEqual([2, 5]);
-    const counted = r.residuals.filter((x: { excluded: boolean }) => !x.excluded).reduce((s: number, x: { residual: number }) => s + x.residual ** 2, 0);
+    const counted = r.residuals
+      .filter((x: { excluded: boolean }) => !x.excluded)
+      .reduce((s: number, x: { residual: number }) => s + x.residual ** 2, 0);
     expect(counted).toBeCloseTo(r.chi2, 8);
     expect(r.perMeasurementSet[0]).toMatchObject({ points: 12, excludedPoints: 2 });
     const list = await modeller.get(`/api/substances/${substanceId}/fits`);
@@ -99,9 +105,14 @@ describe('leaving rows out (item 13)', () => {
     expect(res.body.error.code).toBe('unknown_row');
     expect(res.body.error.message).toContain('there is no row 15 to leave out');
     expect(res.body.error.details).toEqual([expect.objectContaining({ field: 'measurementSets.0.excludeRows', row: 15 })]);
-    const all = await modeller.post('/api/fits').send({ substanceId, measurementSets: [{ id: measurementSetId, excludeRows: Array.from({ length: 13 }, (_, i) => i + 1) }] });
+    const all = await modeller
+      .post('/api/fits')
+      .send({ substanceId, measurementSets: [{ id: measurementSetId, excludeRows: Array.from({ length: 13 }, (_, i) => i + 1) }] });
     expect(all.status).toBe(422);
-    expect(all.body.error).toMatchObject({ code: 'too_few_points', message: 'Leaving out these rows leaves 1 point(s) for 2 free parameter(s); the fit needs at least 2.' });
+    expect(all.body.error).toMatchObject({
+      code: 'too_few_points',
+      message: 'Leaving out these rows leaves 1 point(s) for 2 free parameter(s); the fit needs at least 2.',
+    });
     const bad = await modeller.post('/api/fits').send({ substanceId, measurementSets: [{ id: measurementSetId, excludeRows: [0] }] });
     expect(bad.status).toBe(400);
     expect(bad.body.error.message).toMatch(/^Rows left out \(measurement set 1 of the request\): row numbers are whole numbers from 1\.$/);
@@ -112,7 +123,9 @@ describe('correlation and profiles (item 14), failed fits (item 4)', () => {
   it('warns in plain words when |corr(ε, σ)| > 0.95 and gives profile-χ² intervals around the best values', async () => {
     // B2 over a narrow range of T* constrains mainly one combination of ε and σ (common practice, no source):
     // the six lowest isotherms alone give |corr| > 0.95; all fourteen do not.
-    const narrow = (await runFit({ measurementSets: [{ id: measurementSetId, excludeRows: [7, 8, 9, 10, 11, 12, 13, 14] }], options: { restarts: 0 } })).body.result;
+    const narrow = (
+      await runFit({ measurementSets: [{ id: measurementSetId, excludeRows: [7, 8, 9, 10, 11, 12, 13, 14] }], options: { restarts: 0 } })
+    ).body.result;
     expect(Math.abs(narrow.correlation)).toBeGreaterThan(0.95);
     expect(narrow.strongCorrelation).toBe(true);
     expect(narrow.warnings.join(' ')).toContain('the data pin down a combination of the two');
@@ -134,7 +147,10 @@ describe('correlation and profiles (item 14), failed fits (item 4)', () => {
   });
 
   it('a fit that does not converge shows its last iterate, not converged, the same in the list and on its page', async () => {
-    const { id, body } = await runFit({ measurementSets: [{ id: measurementSetId }], options: { start: { epsilonK: 40, sigmaAngstrom: 6 }, restarts: 0, maxIterations: 5 } });
+    const { id, body } = await runFit({
+      measurementSets: [{ id: measurementSetId }],
+      options: { start: { epsilonK: 40, sigmaAngstrom: 6 }, restarts: 0, maxIterations: 5 },
+    });
     expect(body.status).toBe('failed');
     const r = body.result;
     expect(r.converged).toBe(false);
@@ -142,15 +158,29 @@ describe('correlation and profiles (item 14), failed fits (item 4)', () => {
     expect(r.stdErr).toEqual({ epsilonK: null, sigmaAngstrom: null });
     expect(r.residuals).toHaveLength(14);
     const item = (await modeller.get(`/api/substances/${substanceId}/fits`)).body.fits.find((f: { id: number }) => f.id === id);
-    expect(item).toMatchObject({ status: 'failed', converged: false, epsilonK: r.epsilonK, sigmaAngstrom: r.sigmaAngstrom, stdErr: { epsilonK: null, sigmaAngstrom: null } });
+    expect(item).toMatchObject({
+      status: 'failed',
+      converged: false,
+      epsilonK: r.epsilonK,
+      sigmaAngstrom: r.sigmaAngstrom,
+      stdErr: { epsilonK: null, sigmaAngstrom: null },
+    });
   });
 });
 
 describe('audit and notices of fits (items 9 and 16)', () => {
   it('audits completion and failure, naming the fit as the screens do, and tells its author in-app and by mail', async () => {
     const ok = await runFit({ measurementSets: [{ id: measurementSetId }], options: { restarts: 0 } });
-    const failed = await runFit({ measurementSets: [{ id: measurementSetId }], options: { start: { epsilonK: 40, sigmaAngstrom: 6 }, restarts: 0, maxIterations: 5 } });
-    const audit = (await admin.get('/api/audit?targetType=fit&limit=500')).body.events as Array<{ action: string; targetId: string; targetLabel: string; summary: string }>;
+    const failed = await runFit({
+      measurementSets: [{ id: measurementSetId }],
+      options: { start: { epsilonK: 40, sigmaAngstrom: 6 }, restarts: 0, maxIterations: 5 },
+    });
+    const audit = (await admin.get('/api/audit?targetType=fit&limit=500')).body.events as Array<{
+      action: string;
+      targetId: string;
+      targetLabel: string;
+      summary: string;
+    }>;
     const done = audit.find((e) => e.action === 'fit.succeeded' && e.targetId === String(ok.id))!;
     expect(done.targetLabel).toBe(`Fit #${ok.number} of Halvane`);
     expect(done.summary).toBe(`Fit #${ok.number} of Halvane finished`);
@@ -169,8 +199,20 @@ describe('audit and notices of fits (items 9 and 16)', () => {
     expect((await reviewer.get('/api/notices')).body.notices.some((n: { text: string }) => n.text.includes('Halvane'))).toBe(false);
     expect((await t.client().get('/api/notices')).status).toBe(401);
 
-    const mail = await t.ctx.db.selectFrom('mailOutbox').select(['toJson', 'subject', 'reason']).where('reason', 'in', ['fit.succeeded', 'fit.failed']).execute();
-    expect(mail).toEqual(expect.arrayContaining([expect.objectContaining({ toJson: JSON.stringify([EMAIL.modeller]), subject: `Finished: Fit #${ok.number} of Halvane`, reason: 'fit.succeeded' })]));
+    const mail = await t.ctx.db
+      .selectFrom('mailOutbox')
+      .select(['toJson', 'subject', 'reason'])
+      .where('reason', 'in', ['fit.succeeded', 'fit.failed'])
+      .execute();
+    expect(mail).toEqual(
+      expect.arrayContaining([
+        expect.objectContaining({
+          toJson: JSON.stringify([EMAIL.modeller]),
+          subject: `Finished: Fit #${ok.number} of Halvane`,
+          reason: 'fit.succeeded',
+        }),
+      ]),
+    );
     expect(mail.some((m) => m.subject === `Failed: Fit #${failed.number} of Halvane`)).toBe(true);
   });
 });
@@ -202,25 +244,49 @@ describe('parameter sets (items 2, 5, 7, 9, 16)', () => {
 
   it('lists drafts, sets to review and sets sent back under "needs my action"', async () => {
     const mine = (await modeller.get('/api/workbench/needs-action')).body.items;
-    expect(mine).toEqual(expect.arrayContaining([expect.objectContaining({ kind: 'draft', parameterSetId: v1, substanceName: 'Halvane', version: 1, state: 'draft' })]));
+    expect(mine).toEqual(
+      expect.arrayContaining([
+        expect.objectContaining({ kind: 'draft', parameterSetId: v1, substanceName: 'Halvane', version: 1, state: 'draft' }),
+      ]),
+    );
     expect((await modeller.post(`/api/parameter-sets/${v1}/submit`)).status).toBe(200);
     const review = (await reviewer.get('/api/workbench/needs-action')).body.items;
     expect(review).toEqual(expect.arrayContaining([expect.objectContaining({ kind: 'awaiting-my-review', parameterSetId: v1 })]));
-    expect((await modeller.get('/api/workbench/needs-action')).body.items.some((i: { parameterSetId: number }) => i.parameterSetId === v1)).toBe(false);
-    expect((await reviewer.post(`/api/parameter-sets/${v1}/review`).send({ decision: 'request_changes', comment: 'Say why the lowest isotherm is kept.' })).status).toBe(200);
-    expect((await modeller.get('/api/workbench/needs-action')).body.items).toEqual(expect.arrayContaining([expect.objectContaining({ kind: 'changes-requested', parameterSetId: v1 })]));
+    expect(
+      (await modeller.get('/api/workbench/needs-action')).body.items.some((i: { parameterSetId: number }) => i.parameterSetId === v1),
+    ).toBe(false);
+    expect(
+      (
+        await reviewer
+          .post(`/api/parameter-sets/${v1}/review`)
+          .send({ decision: 'request_changes', comment: 'Say why the lowest isotherm is kept.' })
+      ).status,
+    ).toBe(200);
+    expect((await modeller.get('/api/workbench/needs-action')).body.items).toEqual(
+      expect.arrayContaining([expect.objectContaining({ kind: 'changes-requested', parameterSetId: v1 })]),
+    );
     expect((await t.client().get('/api/workbench/needs-action')).status).toBe(401);
   });
 
   it('a revision takes the scheme under the first-draft rules, the audit says what happened, and the diff shows the changes', async () => {
-    const noCutoff = await modeller.post(`/api/parameter-sets/${v1}/revise`).send({ scheme: 'truncated-tail', rationale: 'Meant for simulations.' });
+    const noCutoff = await modeller
+      .post(`/api/parameter-sets/${v1}/revise`)
+      .send({ scheme: 'truncated-tail', rationale: 'Meant for simulations.' });
     expect(noCutoff.status).toBe(400);
     expect(noCutoff.body.error.details[0]).toMatchObject({ field: 'cutoffSigma' });
-    const rev = await modeller.post(`/api/parameter-sets/${v1}/revise`).send({ scheme: 'truncated-tail', cutoffSigma: 3, rationale: 'Meant for simulations at r_c = 3 σ; the lowest isotherm is within its uncertainty.' });
+    const rev = await modeller.post(`/api/parameter-sets/${v1}/revise`).send({
+      scheme: 'truncated-tail',
+      cutoffSigma: 3,
+      rationale: 'Meant for simulations at r_c = 3 σ; the lowest isotherm is within its uncertainty.',
+    });
     expect(rev.status, JSON.stringify(rev.body)).toBe(201);
     v2 = rev.body.id;
     expect(rev.body).toMatchObject({ scheme: 'truncated-tail', cutoffSigma: 3, version: 1 });
-    const events = (await admin.get(`/api/audit?targetType=parameterSet&targetId=${v1}`)).body.events as Array<{ action: string; summary: string; targetLabel: string }>;
+    const events = (await admin.get(`/api/audit?targetType=parameterSet&targetId=${v1}`)).body.events as Array<{
+      action: string;
+      summary: string;
+      targetLabel: string;
+    }>;
     const revised = events.find((e) => e.action === 'parameterSet.revised')!;
     expect(revised.summary).not.toMatch(/Changes requested → Changes requested/);
     expect(revised.summary).toMatch(/— Revised as v1 \(Truncated with tail corrections\)$/);
@@ -238,18 +304,28 @@ describe('parameter sets (items 2, 5, 7, 9, 16)', () => {
     expect((await consumer.get(`/api/parameter-sets/${v2}/diff`)).status).toBe(404);
   });
 
-  it('without a scheme in the body, a revision takes the fit\'s scheme (full potential for a B2 fit)', async () => {
+  it("without a scheme in the body, a revision takes the fit's scheme (full potential for a B2 fit)", async () => {
     expect((await modeller.post(`/api/parameter-sets/${v2}/submit`)).status).toBe(200);
-    expect((await reviewer.post(`/api/parameter-sets/${v2}/review`).send({ decision: 'request_changes', comment: 'A B2 fit describes the full potential.' })).status).toBe(200);
+    expect(
+      (
+        await reviewer
+          .post(`/api/parameter-sets/${v2}/review`)
+          .send({ decision: 'request_changes', comment: 'A B2 fit describes the full potential.' })
+      ).status,
+    ).toBe(200);
     const rev = await modeller.post(`/api/parameter-sets/${v2}/revise`).send({ rationale: 'Back to the scheme of the fit.' });
     expect(rev.status, JSON.stringify(rev.body)).toBe(201);
     expect(rev.body).toMatchObject({ scheme: 'full-potential', cutoffSigma: null, version: 2 });
   });
 
   it('approved, the JSON and CSV exports carry the rounded limits', async () => {
-    const fresh = await modeller.post('/api/parameter-sets').send({ fitId, rationale: 'Fits the invented B2 table; for export.', scheme: 'truncated-shifted', cutoffSigma: 2.5 });
+    const fresh = await modeller
+      .post('/api/parameter-sets')
+      .send({ fitId, rationale: 'Fits the invented B2 table; for export.', scheme: 'truncated-shifted', cutoffSigma: 2.5 });
     expect((await modeller.post(`/api/parameter-sets/${fresh.body.id}/submit`)).status).toBe(200);
-    expect((await reviewer.post(`/api/parameter-sets/${fresh.body.id}/review`).send({ decision: 'approve', comment: 'Checked.' })).status).toBe(200);
+    expect(
+      (await reviewer.post(`/api/parameter-sets/${fresh.body.id}/review`).send({ decision: 'approve', comment: 'Checked.' })).status,
+    ).toBe(200);
     const json = await modeller.get(`/api/parameter-sets/${fresh.body.id}/export?format=json`);
     expect(json.status).toBe(200);
     const text = json.text ?? json.body.toString();
@@ -264,7 +340,9 @@ describe('parameter sets (items 2, 5, 7, 9, 16)', () => {
   it('a set whose measurement set cites no source cannot go to review; the upload warns', async () => {
     const up = await upload('Halvane B2, uncited', null);
     expect(up.status).toBe(201);
-    expect(up.body.warnings).toEqual([expect.stringContaining('cannot be submitted for review until a version that cites its source is uploaded')]);
+    expect(up.body.warnings).toEqual([
+      expect.stringContaining('cannot be submitted for review until a version that cites its source is uploaded'),
+    ]);
     const fit = await runFit({ measurementSets: [{ id: up.body.id }], options: { restarts: 0 } });
     const draft = await modeller.post('/api/parameter-sets').send({ fitId: fit.id, rationale: 'Uncited data.' });
     const res = await modeller.post(`/api/parameter-sets/${draft.body.id}/submit`);

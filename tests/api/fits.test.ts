@@ -24,7 +24,12 @@ beforeAll(async () => {
   t = await startTestApp();
   modeller = await t.signIn(EMAIL.modeller);
   substanceId = (await modeller.post('/api/substances').send({ name: 'Fittium', molarMassGPerMol: 83.8 })).body.id;
-  const up = await modeller.post('/api/measurement-sets').field('substanceId', substanceId).field('kind', 'b2').field('name', 'Synthetic B2').attach('file', syntheticB2Csv(), { filename: 'b2.csv', contentType: 'text/csv' });
+  const up = await modeller
+    .post('/api/measurement-sets')
+    .field('substanceId', substanceId)
+    .field('kind', 'b2')
+    .field('name', 'Synthetic B2')
+    .attach('file', syntheticB2Csv(), { filename: 'b2.csv', contentType: 'text/csv' });
   expect(up.status).toBe(201);
   b2MeasurementSetId = up.body.id;
 });
@@ -32,12 +37,21 @@ afterAll(() => t.close());
 
 describe('fits', () => {
   it('route family: 401 without session, 403 for roles that may not run fits, 400 per field', async () => {
-    expect((await t.client().post('/api/fits').send({ substanceId, measurementSets: [{ id: b2MeasurementSetId }] })).status).toBe(401);
+    expect(
+      (
+        await t
+          .client()
+          .post('/api/fits')
+          .send({ substanceId, measurementSets: [{ id: b2MeasurementSetId }] })
+      ).status,
+    ).toBe(401);
     for (const email of [EMAIL.consumer, EMAIL.reviewer, EMAIL.admin]) {
       const agent = await t.signIn(email);
       expect((await agent.post('/api/fits').send({ substanceId, measurementSets: [{ id: b2MeasurementSetId }] })).status).toBe(403);
     }
-    const bad = await modeller.post('/api/fits').send({ substanceId: 'x', measurementSets: [], options: { bounds: { epsilonK: [10, 5], sigmaAngstrom: [1, 9] }, colour: 'red' } });
+    const bad = await modeller
+      .post('/api/fits')
+      .send({ substanceId: 'x', measurementSets: [], options: { bounds: { epsilonK: [10, 5], sigmaAngstrom: [1, 9] }, colour: 'red' } });
     expect(bad.status).toBe(400);
     const fields = bad.body.error.details.map((d: { field: string }) => d.field);
     expect(fields).toEqual(expect.arrayContaining(['substanceId', 'measurementSets', 'options.bounds.epsilonK']));
@@ -66,12 +80,26 @@ describe('fits', () => {
     expect(r).toMatchObject({ dof: 12, covarianceScaling: 'reduced-chi2' });
     expect(r.residuals).toHaveLength(14);
     expect(r.perMeasurementSet[0]).toMatchObject({ measurementSetId: b2MeasurementSetId, points: 14 });
-    expect(fit.body.measurementSets).toEqual([{ measurementSetId: b2MeasurementSetId, version: 1, versionId: expect.any(Number), kind: 'b2', valueUnit: 'cm^3/mol', name: 'Synthetic B2', weight: 1, excludeRows: [], excludeReason: null }]);
+    expect(fit.body.measurementSets).toEqual([
+      {
+        measurementSetId: b2MeasurementSetId,
+        version: 1,
+        versionId: expect.any(Number),
+        kind: 'b2',
+        valueUnit: 'cm^3/mol',
+        name: 'Synthetic B2',
+        weight: 1,
+        excludeRows: [],
+        excludeReason: null,
+      },
+    ]);
     expect(fit.body.codeVersion).toMatch(/^\d+\.\d+\.\d+/);
   });
 
   it('numbers fits per substance and lists them', async () => {
-    const res = await modeller.post('/api/fits').send({ substanceId, measurementSets: [{ id: b2MeasurementSetId }], options: { restarts: 0 } });
+    const res = await modeller
+      .post('/api/fits')
+      .send({ substanceId, measurementSets: [{ id: b2MeasurementSetId }], options: { restarts: 0 } });
     expect(res.body.number).toBe(2);
     await t.ctx.jobs.waitFor(res.body.jobId);
     const list = await modeller.get(`/api/substances/${substanceId}/fits`);
@@ -84,7 +112,11 @@ describe('fits', () => {
   });
 
   it('says plainly when the fit ended on a bound', async () => {
-    const res = await modeller.post('/api/fits').send({ substanceId, measurementSets: [{ id: b2MeasurementSetId }], options: { bounds: { epsilonK: [10, 120], sigmaAngstrom: [2, 6] }, restarts: 0 } });
+    const res = await modeller.post('/api/fits').send({
+      substanceId,
+      measurementSets: [{ id: b2MeasurementSetId }],
+      options: { bounds: { epsilonK: [10, 120], sigmaAngstrom: [2, 6] }, restarts: 0 },
+    });
     await t.ctx.jobs.waitFor(res.body.jobId);
     const fit = await modeller.get(`/api/fits/${res.body.id}`);
     expect(fit.body.result.hitBounds).toContain('epsilonK');

@@ -21,7 +21,14 @@ type Ctx = Awaited<ReturnType<typeof createContext>>;
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 /** A simulation request as the density fit and the API make it (defaults filled in, cache key of the state). */
-function simulation(state: { reducedTemperature: number; reducedPressure: number; atoms: number; steps: number; seed: number; cutoff?: number }) {
+function simulation(state: {
+  reducedTemperature: number;
+  reducedPressure: number;
+  atoms: number;
+  steps: number;
+  seed: number;
+  cutoff?: number;
+}) {
   const s = normaliseState(state);
   const input: SimulationInput = { state: s };
   return { kind: 'simulation', input, seed: s.seed, cacheKey: simulationCacheKey(s) };
@@ -32,19 +39,63 @@ const LONG = { reducedTemperature: 1.5, reducedPressure: 0.5, atoms: 108, steps:
 
 /** A B2 table made from the invented Quillgas QG-1 truth (ε/k_B = 131.5 K, σ = 3.524 Å, fixtures/demo/scenario.ts), in the database. */
 async function seedB2Fit(ctx: Ctx) {
-  await ctx.db.insertInto('user').values({ id: 'u1', email: 'queue@test', name: 'Queue', passwordHash: 'x', createdAt: new Date().toISOString() }).execute();
-  const s = await ctx.db.insertInto('substance').values({ name: 'Quillgas QG-1', molarMassGramsPerMol: 44.62, createdBy: 'u1', createdAt: '', updatedAt: '' }).returning('id').executeTakeFirstOrThrow();
-  const d = await ctx.db.insertInto('measurementSet').values({ substanceId: s.id, kind: 'b2', name: 'b2', createdBy: 'u1', createdAt: '' }).returning('id').executeTakeFirstOrThrow();
+  await ctx.db
+    .insertInto('user')
+    .values({ id: 'u1', email: 'queue@test', name: 'Queue', passwordHash: 'x', createdAt: new Date().toISOString() })
+    .execute();
+  const s = await ctx.db
+    .insertInto('substance')
+    .values({ name: 'Quillgas QG-1', molarMassGramsPerMol: 44.62, createdBy: 'u1', createdAt: '', updatedAt: '' })
+    .returning('id')
+    .executeTakeFirstOrThrow();
+  const d = await ctx.db
+    .insertInto('measurementSet')
+    .values({ substanceId: s.id, kind: 'b2', name: 'b2', createdBy: 'u1', createdAt: '' })
+    .returning('id')
+    .executeTakeFirstOrThrow();
   const v = await ctx.db
     .insertInto('measurementSetVersion')
-    .values({ measurementSetId: d.id, version: 1, sha256: 'x', originalFilename: 'x.csv', originalBytes: Buffer.from('x'), defaultRelativeUncertainty: 0.01, delimiter: ',', decimal: '.', columnsJson: '[]', rowCount: 10, uploadedBy: 'u1', uploadedAt: '' })
+    .values({
+      measurementSetId: d.id,
+      version: 1,
+      sha256: 'x',
+      originalFilename: 'x.csv',
+      originalBytes: Buffer.from('x'),
+      defaultRelativeUncertainty: 0.01,
+      delimiter: ',',
+      decimal: '.',
+      columnsJson: '[]',
+      rowCount: 10,
+      uploadedBy: 'u1',
+      uploadedAt: '',
+    })
     .returning('id')
     .executeTakeFirstOrThrow();
   for (let i = 0; i < 10; i++) {
     const T = 160 + 50 * i;
-    await ctx.db.insertInto('measurementRow').values({ measurementSetVersionId: v.id, position: i, fileRow: i + 2, temperatureK: T, pressureMpa: null, value: b2WithGradient(T, 131.5, 3.524).b2Cm3PerMol, uncertainty: 0.5, uncertaintySource: 'measured', rawJson: '{}' }).execute();
+    await ctx.db
+      .insertInto('measurementRow')
+      .values({
+        measurementSetVersionId: v.id,
+        position: i,
+        fileRow: i + 2,
+        temperatureK: T,
+        pressureMpa: null,
+        value: b2WithGradient(T, 131.5, 3.524).b2Cm3PerMol,
+        uncertainty: 0.5,
+        uncertaintySource: 'measured',
+        rawJson: '{}',
+      })
+      .execute();
   }
-  return { kind: 'fit', seed: 0, input: { measurementSets: [{ measurementSetId: d.id, version: 1, versionId: v.id, kind: 'b2', name: 'b2', weight: 1 }], options: { restarts: 4, maxIterations: 400 } } };
+  return {
+    kind: 'fit',
+    seed: 0,
+    input: {
+      measurementSets: [{ measurementSetId: d.id, version: 1, versionId: v.id, kind: 'b2', name: 'b2', weight: 1 }],
+      options: { restarts: 4, maxIterations: 400 },
+    },
+  };
 }
 
 async function until<T>(what: string, read: () => Promise<T>, ok: (v: T) => boolean, timeoutMs = 30_000): Promise<T> {
@@ -64,7 +115,12 @@ describe.each(['sqlite', 'redis'] as const)('job queue contract, %s driver', (dr
   let ctx: Ctx;
   let fit: Awaited<ReturnType<typeof seedB2Fit>>;
   const env = () =>
-    loadEnv({ NODE_ENV: 'test', DATABASE_PATH: path.join(dir, 'jobs.sqlite'), LOG_REQUESTS: '0', ...(redis ? { REDIS_URL: redis.url, WORKERS: '0', QUEUE_LOCK_MS: '4000' } : { WORKERS: '1' }) });
+    loadEnv({
+      NODE_ENV: 'test',
+      DATABASE_PATH: path.join(dir, 'jobs.sqlite'),
+      LOG_REQUESTS: '0',
+      ...(redis ? { REDIS_URL: redis.url, WORKERS: '0', QUEUE_LOCK_MS: '4000' } : { WORKERS: '1' }),
+    });
   const status = (id: number) => ctx.jobs.get(id).then((j) => j!);
 
   beforeAll(async () => {
@@ -88,7 +144,11 @@ describe.each(['sqlite', 'redis'] as const)('job queue contract, %s driver', (dr
     const req = simulation({ ...SHORT, steps: 4000, seed: 11 });
     const { id, reused } = await ctx.jobs.enqueue(req);
     expect(reused).toBe(false);
-    const seen = await until('progress', () => status(id), (j) => (j.status === 'running' && j.progress > 0 && j.progress < 1) || j.status === 'succeeded');
+    const seen = await until(
+      'progress',
+      () => status(id),
+      (j) => (j.status === 'running' && j.progress > 0 && j.progress < 1) || j.status === 'succeeded',
+    );
     expect(seen.status, 'a progress report arrives before the end').toBe('running');
     expect(seen.stage).toMatch(/melting|tuning|production|extension/);
     const done = await ctx.jobs.waitFor(id);
@@ -127,7 +187,11 @@ describe.each(['sqlite', 'redis'] as const)('job queue contract, %s driver', (dr
 
   it('cancel: a queued job never starts; a running job stops within seconds and frees its worker for the next job', async () => {
     const long = await ctx.jobs.enqueue(simulation({ ...LONG, seed: 21 }));
-    await until('the long run to start', () => status(long.id), (j) => j.status === 'running');
+    await until(
+      'the long run to start',
+      () => status(long.id),
+      (j) => j.status === 'running',
+    );
     const queued = await ctx.jobs.enqueue(simulation({ ...SHORT, seed: 22 }));
     const next = await ctx.jobs.enqueue(simulation({ ...SHORT, seed: 23 }));
     expect(await ctx.jobs.cancel(queued.id)).toBe(true);
@@ -138,7 +202,12 @@ describe.each(['sqlite', 'redis'] as const)('job queue contract, %s driver', (dr
     const cancelledAt = Date.now();
     expect(await ctx.jobs.cancel(long.id)).toBe(true);
     // The one worker thread is free again only when the long run has really stopped.
-    await until('the next job to start', () => status(next.id), (j) => j.status !== 'queued', 10_000);
+    await until(
+      'the next job to start',
+      () => status(next.id),
+      (j) => j.status !== 'queued',
+      10_000,
+    );
     const stoppedWithinMs = Date.now() - cancelledAt;
     expect(stoppedWithinMs).toBeLessThan(8000);
     expect((await ctx.jobs.waitFor(next.id)).status).toBe('succeeded');
@@ -160,9 +229,18 @@ describe.each(['sqlite', 'redis'] as const)('job queue contract, %s driver', (dr
   it('a fast job (a B2 fit) never waits behind simulations', async () => {
     const long = await ctx.jobs.enqueue(simulation({ ...LONG, seed: 31 }));
     const waiting = await ctx.jobs.enqueue(simulation({ ...LONG, seed: 32 }));
-    await until('the long run to start', () => status(long.id), (j) => j.status === 'running');
+    await until(
+      'the long run to start',
+      () => status(long.id),
+      (j) => j.status === 'running',
+    );
     const b2 = await ctx.jobs.enqueue(fit);
-    const done = await until('the B2 fit', () => status(b2.id), (j) => !['queued', 'running'].includes(j.status), 20_000);
+    const done = await until(
+      'the B2 fit',
+      () => status(b2.id),
+      (j) => !['queued', 'running'].includes(j.status),
+      20_000,
+    );
     expect(done.status, done.error ?? '').toBe('succeeded');
     expect((done.result as { epsilonK: number }).epsilonK).toBeCloseTo(131.5, 2);
     expect((await status(long.id)).status, 'the simulation is still running').toBe('running');
@@ -184,7 +262,12 @@ describe.each(['sqlite', 'redis'] as const)('job queue contract, %s driver', (dr
     expect(db.result).toEqual(da.result);
     expect(da.attempts).toBe(1);
     expect(await ctx.jobs.enqueue(req)).toEqual({ id: a.id, reused: true });
-    const rows = await ctx.db.selectFrom('job').select('id').where('kind', '=', 'simulation').where('cacheKey', 'like', `%${req.cacheKey}`).execute();
+    const rows = await ctx.db
+      .selectFrom('job')
+      .select('id')
+      .where('kind', '=', 'simulation')
+      .where('cacheKey', 'like', `%${req.cacheKey}`)
+      .execute();
     expect(rows).toHaveLength(1);
     if (redis) {
       // One BullMQ job for the row, whoever asked.
@@ -203,7 +286,11 @@ describe.each(['sqlite', 'redis'] as const)('job queue contract, %s driver', (dr
 
   it('a restart of the web process loses no job: the result of a run under way is stored', async () => {
     const { id } = await ctx.jobs.enqueue(simulation({ ...SHORT, steps: 5000, seed: 51 }));
-    await until('the run to start', () => status(id), (j) => j.status === 'running');
+    await until(
+      'the run to start',
+      () => status(id),
+      (j) => j.status === 'running',
+    );
     await ctx.close();
     ctx = await createContext(env(), () => {});
     const done = await ctx.jobs.waitFor(id);

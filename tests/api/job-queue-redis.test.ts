@@ -17,10 +17,18 @@ const workers: WorkerProcess[] = [];
 
 /** A signed-in modeller against a server in another process: cookie + this site's Origin, like a browser tab. */
 async function signedIn(url: string) {
-  const login = await fetch(`${url}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json', origin: url }, body: JSON.stringify({ email: 'modeller@demo.epsigma.test', password: DEMO_PASSWORD }) });
+  const login = await fetch(`${url}/api/auth/login`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json', origin: url },
+    body: JSON.stringify({ email: 'modeller@demo.epsigma.test', password: DEMO_PASSWORD }),
+  });
   const cookie = login.headers.get('set-cookie')!.split(';')[0];
   return async (method: string, p: string, body?: unknown) => {
-    const res = await fetch(`${url}/api${p}`, { method, headers: { cookie, origin: url, ...(body ? { 'content-type': 'application/json' } : {}) }, body: body ? JSON.stringify(body) : undefined });
+    const res = await fetch(`${url}/api${p}`, {
+      method,
+      headers: { cookie, origin: url, ...(body ? { 'content-type': 'application/json' } : {}) },
+      body: body ? JSON.stringify(body) : undefined,
+    });
     return { status: res.status, body: await res.json() };
   };
 }
@@ -69,21 +77,33 @@ afterAll(async () => {
 describe('web process with WORKERS=0 and worker processes through Redis', () => {
   it('a worker killed with SIGKILL mid-run loses nothing: all four runs succeed, none completes twice, and a B2 fit meanwhile finishes in seconds', async () => {
     const api = await signedIn(app.url);
-    workers.push(await startWorkerProcess(redis.url, { WORKERS: '1', QUEUE_LOCK_MS: LOCK_MS }), await startWorkerProcess(redis.url, { WORKERS: '1', QUEUE_LOCK_MS: LOCK_MS }));
+    workers.push(
+      await startWorkerProcess(redis.url, { WORKERS: '1', QUEUE_LOCK_MS: LOCK_MS }),
+      await startWorkerProcess(redis.url, { WORKERS: '1', QUEUE_LOCK_MS: LOCK_MS }),
+    );
     const [a, b] = workers;
     const health = (await api('GET', '/health')).body.queue;
     expect(health).toMatchObject({ driver: 'redis', workers: 2 });
 
     const ids: number[] = [];
     for (const [i, t] of [1.4, 1.5, 1.6, 1.7].entries()) {
-      const res = await api('POST', '/simulations', { reducedTemperature: t, reducedPressure: 0.5, atoms: 108, steps: 10000, seed: 100 + i });
+      const res = await api('POST', '/simulations', {
+        reducedTemperature: t,
+        reducedPressure: 0.5,
+        atoms: 108,
+        steps: 10000,
+        seed: 100 + i,
+      });
       expect(res.status).toBe(202);
       ids.push(res.body.id);
     }
     // Both workers busy, then one dies without warning.
     const running = await until<Answer[]>(
       'a run on each worker',
-      async () => (await api('GET', '/simulations')).body.simulations.filter((s: { id: number; status: string }) => ids.includes(s.id) && s.status === 'running'),
+      async () =>
+        (await api('GET', '/simulations')).body.simulations.filter(
+          (s: { id: number; status: string }) => ids.includes(s.id) && s.status === 'running',
+        ),
       (list) => new Set(list.map((s) => s.ranOn)).size === 2,
       60_000,
     );
@@ -93,14 +113,23 @@ describe('web process with WORKERS=0 and worker processes through Redis', () => 
     // A B2 fit now: the fast lane of the surviving worker takes it at once, beside its simulation.
     const substances = (await api('GET', '/substances')).body.substances;
     const substanceId = substances.find((s: { name: string }) => s.name === 'Quillgas QG-1').id;
-    const b2 = (await api('GET', `/measurement-sets?substanceId=${substanceId}`)).body.measurementSets.find((d: { kind: string }) => d.kind === 'b2');
+    const b2 = (await api('GET', `/measurement-sets?substanceId=${substanceId}`)).body.measurementSets.find(
+      (d: { kind: string }) => d.kind === 'b2',
+    );
     const submitted = Date.now();
     const fit = await api('POST', '/fits', { substanceId, measurementSets: [{ id: b2.id }] });
     expect(fit.status).toBe(202);
-    const fitDone = await until<Answer>('the B2 fit', async () => (await api('GET', `/fits/${fit.body.id}`)).body, (f) => !['queued', 'running'].includes(f.status), 30_000);
+    const fitDone = await until<Answer>(
+      'the B2 fit',
+      async () => (await api('GET', `/fits/${fit.body.id}`)).body,
+      (f) => !['queued', 'running'].includes(f.status),
+      30_000,
+    );
     expect(fitDone.status, fitDone.error ?? '').toBe('succeeded');
     const fitSeconds = (Date.now() - submitted) / 1000;
-    const stillRunning = (await api('GET', '/simulations')).body.simulations.filter((s: { id: number; status: string }) => ids.includes(s.id) && s.status !== 'succeeded');
+    const stillRunning = (await api('GET', '/simulations')).body.simulations.filter(
+      (s: { id: number; status: string }) => ids.includes(s.id) && s.status !== 'succeeded',
+    );
     expect(stillRunning.length, `the fit took ${fitSeconds} s and did not wait for the simulations`).toBeGreaterThan(0);
     // The invented truth behind the demo B2 table is ε/k_B = 131.5 K (fixtures/demo/scenario.ts); B2 alone pins it to a few %.
     expect(Math.abs(fitDone.result.epsilonK - 131.5)).toBeLessThan(10);
@@ -127,7 +156,10 @@ describe('web process with WORKERS=0 and worker processes through Redis', () => 
     const api = await signedIn(app.url);
     for (const w of workers.splice(0)) await w.stop();
     const ids: number[] = [];
-    for (const seed of [201, 202]) ids.push((await api('POST', '/simulations', { reducedTemperature: 1.5, reducedPressure: 0.5, atoms: 108, steps: 2000, seed })).body.id);
+    for (const seed of [201, 202])
+      ids.push(
+        (await api('POST', '/simulations', { reducedTemperature: 1.5, reducedPressure: 0.5, atoms: 108, steps: 2000, seed })).body.id,
+      );
     await sleep(500);
     expect((await api('GET', '/health')).body.queue.lanes.simulation.waiting).toBe(2);
     await redis.kill();

@@ -13,19 +13,59 @@ const env = loadEnv({ NODE_ENV: 'test', DATABASE_PATH: path.join(dir, 'jobs.sqli
 
 /** A fit job input over an in-database B2 version (fits are the first job kind). */
 async function seedFitInput(ctx: Awaited<ReturnType<typeof createContext>>) {
-  await ctx.db.insertInto('user').values({ id: 'u1', email: 'jobs@test', name: 'Jobs', passwordHash: 'x', createdAt: new Date().toISOString() }).execute();
-  const s = await ctx.db.insertInto('substance').values({ name: 'Jobium', molarMassGramsPerMol: 40, createdBy: 'u1', createdAt: '', updatedAt: '' }).returning('id').executeTakeFirstOrThrow();
-  const d = await ctx.db.insertInto('measurementSet').values({ substanceId: s.id, kind: 'b2', name: 'b2', createdBy: 'u1', createdAt: '' }).returning('id').executeTakeFirstOrThrow();
+  await ctx.db
+    .insertInto('user')
+    .values({ id: 'u1', email: 'jobs@test', name: 'Jobs', passwordHash: 'x', createdAt: new Date().toISOString() })
+    .execute();
+  const s = await ctx.db
+    .insertInto('substance')
+    .values({ name: 'Jobium', molarMassGramsPerMol: 40, createdBy: 'u1', createdAt: '', updatedAt: '' })
+    .returning('id')
+    .executeTakeFirstOrThrow();
+  const d = await ctx.db
+    .insertInto('measurementSet')
+    .values({ substanceId: s.id, kind: 'b2', name: 'b2', createdBy: 'u1', createdAt: '' })
+    .returning('id')
+    .executeTakeFirstOrThrow();
   const v = await ctx.db
     .insertInto('measurementSetVersion')
-    .values({ measurementSetId: d.id, version: 1, sha256: 'x', originalFilename: 'x.csv', originalBytes: Buffer.from('x'), defaultRelativeUncertainty: 0.01, delimiter: ',', decimal: '.', columnsJson: '[]', rowCount: 10, uploadedBy: 'u1', uploadedAt: '' })
+    .values({
+      measurementSetId: d.id,
+      version: 1,
+      sha256: 'x',
+      originalFilename: 'x.csv',
+      originalBytes: Buffer.from('x'),
+      defaultRelativeUncertainty: 0.01,
+      delimiter: ',',
+      decimal: '.',
+      columnsJson: '[]',
+      rowCount: 10,
+      uploadedBy: 'u1',
+      uploadedAt: '',
+    })
     .returning('id')
     .executeTakeFirstOrThrow();
   for (let i = 0; i < 10; i++) {
     const T = 150 + 50 * i;
-    await ctx.db.insertInto('measurementRow').values({ measurementSetVersionId: v.id, position: i, fileRow: i + 2, temperatureK: T, pressureMpa: null, value: b2WithGradient(T, 120, 3.4).b2Cm3PerMol, uncertainty: 0.5, uncertaintySource: 'measured', rawJson: '{}' }).execute();
+    await ctx.db
+      .insertInto('measurementRow')
+      .values({
+        measurementSetVersionId: v.id,
+        position: i,
+        fileRow: i + 2,
+        temperatureK: T,
+        pressureMpa: null,
+        value: b2WithGradient(T, 120, 3.4).b2Cm3PerMol,
+        uncertainty: 0.5,
+        uncertaintySource: 'measured',
+        rawJson: '{}',
+      })
+      .execute();
   }
-  return { measurementSets: [{ measurementSetId: d.id, version: 1, versionId: v.id, kind: 'b2', name: 'b2', weight: 1 }], options: { restarts: 8, maxIterations: 400 } };
+  return {
+    measurementSets: [{ measurementSetId: d.id, version: 1, versionId: v.id, kind: 'b2', name: 'b2', weight: 1 }],
+    options: { restarts: 8, maxIterations: 400 },
+  };
 }
 
 describe('job runner', () => {

@@ -127,13 +127,23 @@ describe('follows', () => {
     const mine = await modeller.get('/api/me/follows');
     expect(mine.status).toBe(200);
     expect(mine.body.follows).toEqual([{ substanceId, substanceName: 'Mailium', followedAt: expect.any(String) }]);
-    const events = await t.ctx.db.selectFrom('auditEvent').selectAll().where('action', '=', 'substance.followed').where('actorEmail', '=', EMAIL.modeller).execute();
+    const events = await t.ctx.db
+      .selectFrom('auditEvent')
+      .selectAll()
+      .where('action', '=', 'substance.followed')
+      .where('actorEmail', '=', EMAIL.modeller)
+      .execute();
     expect(events).toHaveLength(1);
     expect(events[0]).toMatchObject({ targetType: 'substance', targetId: String(substanceId) });
 
     expect((await modeller.delete(`/api/substances/${substanceId}/follow`)).body).toEqual({ substanceId, following: false });
     expect((await modeller.get('/api/me/follows')).body.follows).toEqual([]);
-    const unfollowed = await t.ctx.db.selectFrom('auditEvent').select('id').where('action', '=', 'substance.unfollowed').where('actorEmail', '=', EMAIL.modeller).execute();
+    const unfollowed = await t.ctx.db
+      .selectFrom('auditEvent')
+      .select('id')
+      .where('action', '=', 'substance.unfollowed')
+      .where('actorEmail', '=', EMAIL.modeller)
+      .execute();
     expect(unfollowed).toHaveLength(1);
   });
 
@@ -174,12 +184,15 @@ describe('with SMTP_URL pointing at a closed port', () => {
   });
 
   it('records each failure, retries with doubling waits, gives up after the last attempt, and never blocks requests', async () => {
-    await broken.ctx.db.transaction().execute((tx) => queueMail(tx, { to: [EMAIL.admin], subject: 'Unreachable', ...mailBody(['x']), reason: 'test.failure' }));
+    await broken.ctx.db
+      .transaction()
+      .execute((tx) => queueMail(tx, { to: [EMAIL.admin], subject: 'Unreachable', ...mailBody(['x']), reason: 'test.failure' }));
     const consumer = await broken.signIn(EMAIL.consumer);
     // Requests go on while the mail waits in the outbox.
     expect((await consumer.get('/api/me/follows')).status).toBe(200);
 
-    const read = async () => (await broken.ctx.db.selectFrom('mailOutbox').selectAll().where('subject', '=', 'Unreachable').executeTakeFirstOrThrow());
+    const read = async () =>
+      await broken.ctx.db.selectFrom('mailOutbox').selectAll().where('subject', '=', 'Unreachable').executeTakeFirstOrThrow();
     let row = await read();
     for (let i = 0; i < 50 && row.attempts === 0; i++) {
       await broken.ctx.mail.flush();
@@ -208,6 +221,15 @@ describe('with SMTP_URL pointing at a closed port', () => {
     expect(outbox.status).toBe(200);
     expect(outbox.body.mode).toBe('smtp');
     expect(outbox.body.counts.failed).toBe(1);
-    expect(outbox.body.messages).toEqual([expect.objectContaining({ subject: 'Unreachable', status: 'failed', attempts: MAX_MAIL_ATTEMPTS, to: [EMAIL.admin], nextAttemptAt: null, lastError: expect.stringMatching(/ECONNREFUSED/) })]);
+    expect(outbox.body.messages).toEqual([
+      expect.objectContaining({
+        subject: 'Unreachable',
+        status: 'failed',
+        attempts: MAX_MAIL_ATTEMPTS,
+        to: [EMAIL.admin],
+        nextAttemptAt: null,
+        lastError: expect.stringMatching(/ECONNREFUSED/),
+      }),
+    ]);
   });
 });

@@ -17,7 +17,13 @@ describe('Origin check and forwarding headers without TRUST_PROXY', () => {
   const host = () => new URL(t.baseUrl).host;
 
   it('ignores X-Forwarded-Host: a foreign Origin naming the forwarded host is refused', async () => {
-    const res = await t.client().post('/api/auth/login').set('Origin', 'https://evil.example').set('X-Forwarded-Host', 'evil.example').set('X-Forwarded-Proto', 'https').send({ email: EMAIL.admin, password: TEST_PASSWORD });
+    const res = await t
+      .client()
+      .post('/api/auth/login')
+      .set('Origin', 'https://evil.example')
+      .set('X-Forwarded-Host', 'evil.example')
+      .set('X-Forwarded-Proto', 'https')
+      .send({ email: EMAIL.admin, password: TEST_PASSWORD });
     expect(res.status).toBe(403);
     expect(res.body.error.code).toBe('origin_rejected');
   });
@@ -48,7 +54,13 @@ describe('Origin check behind a trusted proxy (TRUST_PROXY=loopback)', () => {
 
   it('uses X-Forwarded-Host and X-Forwarded-Proto from the trusted proxy, scheme included', async () => {
     const viaProxy = (origin: string) =>
-      t.client().post('/api/auth/login').set('Origin', origin).set('X-Forwarded-Host', 'epsigma.quillmoor.example').set('X-Forwarded-Proto', 'https').send({ email: EMAIL.admin, password: TEST_PASSWORD });
+      t
+        .client()
+        .post('/api/auth/login')
+        .set('Origin', origin)
+        .set('X-Forwarded-Host', 'epsigma.quillmoor.example')
+        .set('X-Forwarded-Proto', 'https')
+        .send({ email: EMAIL.admin, password: TEST_PASSWORD });
     expect((await viaProxy('https://epsigma.quillmoor.example')).status).toBe(200);
     expect((await viaProxy('http://epsigma.quillmoor.example')).status).toBe(403);
     expect((await viaProxy(t.baseUrl)).status).toBe(403);
@@ -64,13 +76,22 @@ describe('malformed requests answer 400/415 in the error shape, never 500', () =
   const noUnexpected = () => expect(t.logs.filter((l) => l.includes('unexpected error'))).toEqual([]);
 
   it.each(['gzip', 'deflate', 'br', 'bogus', 'gzip, identity'])('JSON with Content-Encoding: %s but a plain body', async (encoding) => {
-    const res = await t.client().post('/api/auth/login').set('Content-Type', 'application/json').set('Content-Encoding', encoding).send(JSON.stringify({ email: EMAIL.admin, password: 'x' }));
+    const res = await t
+      .client()
+      .post('/api/auth/login')
+      .set('Content-Type', 'application/json')
+      .set('Content-Encoding', encoding)
+      .send(JSON.stringify({ email: EMAIL.admin, password: 'x' }));
     expectClientError(res, [400, 415]);
     noUnexpected();
   });
 
   it.each(['latin1', 'iso-8859-1', 'bogus'])('JSON with charset=%s', async (charset) => {
-    const res = await t.client().post('/api/auth/login').set('Content-Type', `application/json; charset=${charset}`).send(JSON.stringify({ email: EMAIL.admin, password: 'x' }));
+    const res = await t
+      .client()
+      .post('/api/auth/login')
+      .set('Content-Type', `application/json; charset=${charset}`)
+      .send(JSON.stringify({ email: EMAIL.admin, password: 'x' }));
     expectClientError(res, [415]);
     expect(res.body.error.code).toBe('unsupported_charset');
     noUnexpected();
@@ -88,8 +109,16 @@ describe('malformed requests answer 400/415 in the error shape, never 500', () =
       ['an empty boundary', 'multipart/form-data; boundary=', '--\r\n'],
       ['a truncated body', 'multipart/form-data; boundary=quill', part('quill').slice(0, 150)],
       ['a body cut after a part', 'multipart/form-data; boundary=quill', part('quill')],
-      ['malformed part headers', 'multipart/form-data; boundary=quill', '--quill\r\nContent-Disposition form-data name=file\r\n\u0000\u0001garbage\r\n\r\nabc\r\n--quill--\r\n'],
-      ['a part without Content-Disposition', 'multipart/form-data; boundary=quill', '--quill\r\nContent-Type: text/csv\r\n\r\nT (K)\r\n--quill--\r\n'],
+      [
+        'malformed part headers',
+        'multipart/form-data; boundary=quill',
+        '--quill\r\nContent-Disposition form-data name=file\r\n\u0000\u0001garbage\r\n\r\nabc\r\n--quill--\r\n',
+      ],
+      [
+        'a part without Content-Disposition',
+        'multipart/form-data; boundary=quill',
+        '--quill\r\nContent-Type: text/csv\r\n\r\nT (K)\r\n--quill--\r\n',
+      ],
     ];
     it.each(cases)('POST /api/measurement-sets with %s', async (_label, contentType, body) => {
       const res = await modeller.post('/api/measurement-sets').set('Content-Type', contentType).send(body);

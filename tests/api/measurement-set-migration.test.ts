@@ -22,7 +22,15 @@ import { approvedSet, newSubstance, syntheticB2Csv } from './approved-set';
 import { EMAIL, TEST_PASSWORD, startTestApp } from './test-app';
 
 const PREVIOUS = '20261202_0013_mie_parameter_sets';
-const RENAMED_TABLES = ['measurement_set', 'measurement_set_version', 'measurement_row', 'measurement_set_withdrawal', 'fit', 'parameter_set', 'pair_set'];
+const RENAMED_TABLES = [
+  'measurement_set',
+  'measurement_set_version',
+  'measurement_row',
+  'measurement_set_withdrawal',
+  'fit',
+  'parameter_set',
+  'pair_set',
+];
 const OLD_TABLES = ['dataset', 'dataset_version', 'measurement_row', 'dataset_withdrawal', 'fit', 'parameter_set', 'pair_set'];
 
 const dir = mkdtempSync(path.join(tmpdir(), 'epsigma-rename-'));
@@ -51,11 +59,28 @@ beforeAll(async () => {
   const setB = await approvedSet(t, { modeller, reviewer }, { substanceId: b, epsilonK: 220, sigmaAngstrom: 4.2 });
   fitId = setA.fitId;
   measurementSetId = setA.measurementSetId;
-  const lines = ['T (K),B12 (cm3/mol),u(B12) (cm3/mol)', ...[180, 220, 260, 320, 400, 500].map((T) => `${T},${crossB2(T, { epsilonK: 140, sigmaAngstrom: 3.5 }, { epsilonK: 220, sigmaAngstrom: 4.2 }, 0.04).toFixed(4)},1`)];
-  const b12 = await modeller.post('/api/measurement-sets').field('substanceId', a).field('kind', 'b12').field('name', 'Invented B12').attach('file', Buffer.from(lines.join('\n')), { filename: 'b12.csv', contentType: 'text/csv' });
+  const lines = [
+    'T (K),B12 (cm3/mol),u(B12) (cm3/mol)',
+    ...[180, 220, 260, 320, 400, 500].map(
+      (T) => `${T},${crossB2(T, { epsilonK: 140, sigmaAngstrom: 3.5 }, { epsilonK: 220, sigmaAngstrom: 4.2 }, 0.04).toFixed(4)},1`,
+    ),
+  ];
+  const b12 = await modeller
+    .post('/api/measurement-sets')
+    .field('substanceId', a)
+    .field('kind', 'b12')
+    .field('name', 'Invented B12')
+    .attach('file', Buffer.from(lines.join('\n')), { filename: 'b12.csv', contentType: 'text/csv' });
   expect(b12.status).toBe(201);
-  expect((await modeller.post('/api/pair-sets').send({ parameterSetIds: [setA.setId, setB.setId], measurementSetId: b12.body.id })).status).toBe(201);
-  const spare = await modeller.post('/api/measurement-sets').field('substanceId', b).field('kind', 'b2').field('name', 'Spare B2').attach('file', syntheticB2Csv(220, 4.2), { filename: 'b2.csv', contentType: 'text/csv' });
+  expect(
+    (await modeller.post('/api/pair-sets').send({ parameterSetIds: [setA.setId, setB.setId], measurementSetId: b12.body.id })).status,
+  ).toBe(201);
+  const spare = await modeller
+    .post('/api/measurement-sets')
+    .field('substanceId', b)
+    .field('kind', 'b2')
+    .field('name', 'Spare B2')
+    .attach('file', syntheticB2Csv(220, 4.2), { filename: 'b2.csv', contentType: 'text/csv' });
   expect((await modeller.post(`/api/measurement-sets/${spare.body.id}/withdraw`).send({ reason: 'a spare run' })).status).toBe(200);
   await t.ctx.sqlite.backup(file);
   await t.close();
@@ -71,16 +96,24 @@ beforeAll(async () => {
   expect(countsBefore.every((n) => n > 0)).toBe(true);
 
   // 3. A fit stored the way the old code stored it: a copy of the approved set's fit and its job, with old keys.
-  const job = sqlite.prepare('SELECT job.* FROM job JOIN fit ON fit.job_id = job.id WHERE fit.id = ?').get(fitId) as Record<string, unknown>;
+  const job = sqlite.prepare('SELECT job.* FROM job JOIN fit ON fit.job_id = job.id WHERE fit.id = ?').get(fitId) as Record<
+    string,
+    unknown
+  >;
   expect(String(job.input_json)).toContain('"measurementSets"');
   const jobCols = Object.keys(job).filter((c) => c !== 'id');
   const jobCopy = { ...job, input_json: oldKeys(String(job.input_json)), result_json: oldKeys(String(job.result_json)), cache_key: null };
-  const newJobId = sqlite.prepare(`INSERT INTO job (${jobCols.join(', ')}) VALUES (${jobCols.map((c) => `@${c}`).join(', ')})`).run(jobCopy).lastInsertRowid;
+  const newJobId = sqlite
+    .prepare(`INSERT INTO job (${jobCols.join(', ')}) VALUES (${jobCols.map((c) => `@${c}`).join(', ')})`)
+    .run(jobCopy).lastInsertRowid;
   const fit = sqlite.prepare('SELECT * FROM fit WHERE id = ?').get(fitId) as Record<string, unknown>;
   expect(fit.datasets_json).toBeDefined();
   const fitCols = Object.keys(fit).filter((c) => c !== 'id');
   const fitCopy = { ...fit, number: Number(fit.number) + 100, job_id: newJobId, datasets_json: oldKeys(String(fit.datasets_json)) };
-  oldStyleFitId = Number(sqlite.prepare(`INSERT INTO fit (${fitCols.join(', ')}) VALUES (${fitCols.map((c) => `@${c}`).join(', ')})`).run(fitCopy).lastInsertRowid);
+  oldStyleFitId = Number(
+    sqlite.prepare(`INSERT INTO fit (${fitCols.join(', ')}) VALUES (${fitCols.map((c) => `@${c}`).join(', ')})`).run(fitCopy)
+      .lastInsertRowid,
+  );
   expect(String(fitCopy.datasets_json)).toContain('"datasetId"');
   await db.destroy();
 
@@ -109,18 +142,26 @@ const signIn = async (email: string) => {
 
 describe('migration 0014 (measurement set vocabulary) on a database with data', () => {
   it('keeps every row of the renamed tables', () => {
-    expect(RENAMED_TABLES.map((table) => count(after.sqlite, table))).toEqual(countsBefore.map((n, i) => (OLD_TABLES[i] === 'fit' ? n + 1 : n)));
-    const names = (after.sqlite.prepare("SELECT name FROM sqlite_master WHERE type = 'table'").all() as Array<{ name: string }>).map((r) => r.name);
+    expect(RENAMED_TABLES.map((table) => count(after.sqlite, table))).toEqual(
+      countsBefore.map((n, i) => (OLD_TABLES[i] === 'fit' ? n + 1 : n)),
+    );
+    const names = (after.sqlite.prepare("SELECT name FROM sqlite_master WHERE type = 'table'").all() as Array<{ name: string }>).map(
+      (r) => r.name,
+    );
     expect(names).toEqual(expect.arrayContaining(['measurement_set', 'measurement_set_version', 'measurement_set_withdrawal']));
     expect(names).not.toEqual(expect.arrayContaining(['dataset']));
   });
 
   it('leaves no old name in the schema but one constraint name: tables, columns, indexes and triggers say measurement_set', () => {
-    const schema = after.sqlite.prepare('SELECT name, sql FROM sqlite_master WHERE sql IS NOT NULL').all() as Array<{ name: string; sql: string }>;
+    const schema = after.sqlite.prepare('SELECT name, sql FROM sqlite_master WHERE sql IS NOT NULL').all() as Array<{
+      name: string;
+      sql: string;
+    }>;
     // SQLite cannot rename a table constraint without rebuilding the table; the name is never referenced.
     const withoutConstraintName = (sql: string) => sql.replace('constraint "dataset_version_unique"', '');
     expect(schema.filter((r) => /dataset/i.test(withoutConstraintName(r.sql)) || /dataset/i.test(r.name)).map((r) => r.name)).toEqual([]);
-    const columns = (table: string) => (after.sqlite.prepare(`PRAGMA table_info(${table})`).all() as Array<{ name: string }>).map((c) => c.name);
+    const columns = (table: string) =>
+      (after.sqlite.prepare(`PRAGMA table_info(${table})`).all() as Array<{ name: string }>).map((c) => c.name);
     expect(columns('measurement_set')).toContain('kind');
     expect(columns('measurement_set_version')).toContain('measurement_set_id');
     expect(columns('measurement_row')).toContain('measurement_set_version_id');
@@ -146,23 +187,31 @@ describe('migration 0014 (measurement set vocabulary) on a database with data', 
 
   it('keeps the foreign keys: every reference resolves and a dangling one is refused', () => {
     expect(after.sqlite.prepare('PRAGMA foreign_key_check').all()).toEqual([]);
-    const fk = (table: string) => (after.sqlite.prepare(`PRAGMA foreign_key_list(${table})`).all() as Array<{ table: string; from: string }>).map((r) => `${r.from}→${r.table}`);
+    const fk = (table: string) =>
+      (after.sqlite.prepare(`PRAGMA foreign_key_list(${table})`).all() as Array<{ table: string; from: string }>).map(
+        (r) => `${r.from}→${r.table}`,
+      );
     expect(fk('measurement_set_version')).toContain('measurement_set_id→measurement_set');
     expect(fk('measurement_row')).toContain('measurement_set_version_id→measurement_set_version');
     expect(fk('measurement_set_withdrawal')).toContain('measurement_set_id→measurement_set');
     expect(fk('pair_set')).toContain('measurement_set_version_id→measurement_set_version');
     expect(() =>
       after.sqlite
-        .prepare("INSERT INTO measurement_set_withdrawal (measurement_set_id, withdrawn_by, withdrawn_at, reason) SELECT 999999, id, '', 'x' FROM user LIMIT 1")
+        .prepare(
+          "INSERT INTO measurement_set_withdrawal (measurement_set_id, withdrawn_by, withdrawn_at, reason) SELECT 999999, id, '', 'x' FROM user LIMIT 1",
+        )
         .run(),
     ).toThrow(/FOREIGN KEY/);
   });
 
   it('keeps the indexes on the renamed columns', () => {
-    const indexColumns = (index: string) => (after.sqlite.prepare(`PRAGMA index_info(${index})`).all() as Array<{ name: string }>).map((c) => c.name);
+    const indexColumns = (index: string) =>
+      (after.sqlite.prepare(`PRAGMA index_info(${index})`).all() as Array<{ name: string }>).map((c) => c.name);
     expect(indexColumns('measurement_set_substance_idx')).toEqual(['substance_id']);
     expect(indexColumns('measurement_row_version_idx')).toEqual(['measurement_set_version_id', 'position']);
-    const plan = after.sqlite.prepare('EXPLAIN QUERY PLAN SELECT * FROM measurement_set WHERE substance_id = 1').all() as Array<{ detail: string }>;
+    const plan = after.sqlite.prepare('EXPLAIN QUERY PLAN SELECT * FROM measurement_set WHERE substance_id = 1').all() as Array<{
+      detail: string;
+    }>;
     expect(plan.map((p) => p.detail).join(' ')).toMatch(/measurement_set_substance_idx/);
   });
 

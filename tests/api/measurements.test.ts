@@ -21,8 +21,19 @@ afterAll(() => t.close());
 
 async function counts() {
   const n = async (table: 'measurementSet' | 'measurementSetVersion' | 'measurementRow') =>
-    Number((await t.ctx.db.selectFrom(table).select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow()).n);
-  return { measurementSet: await n('measurementSet'), measurementSetVersion: await n('measurementSetVersion'), measurementRow: await n('measurementRow') };
+    Number(
+      (
+        await t.ctx.db
+          .selectFrom(table)
+          .select((eb) => eb.fn.countAll<number>().as('n'))
+          .executeTakeFirstOrThrow()
+      ).n,
+    );
+  return {
+    measurementSet: await n('measurementSet'),
+    measurementSetVersion: await n('measurementSetVersion'),
+    measurementRow: await n('measurementRow'),
+  };
 }
 
 function upload(agent: typeof modeller, file: Buffer, fields: Record<string, string | number>, filename = 'table.csv') {
@@ -58,12 +69,22 @@ describe('substances', () => {
 
 describe('measurement set upload', () => {
   it('stores a °C + bar density table in canonical units (K, MPa, kg/m³)', async () => {
-    const res = await upload(modeller, fixture('good-density-celsius-bar.csv'), { substanceId, kind: 'density', name: 'Density test', source: 'Invented for tests', doi: '10.1000/test.1' });
+    const res = await upload(modeller, fixture('good-density-celsius-bar.csv'), {
+      substanceId,
+      kind: 'density',
+      name: 'Density test',
+      source: 'Invented for tests',
+      doi: '10.1000/test.1',
+    });
     expect(res.status).toBe(201);
     expect(res.body).toMatchObject({ id: expect.any(Number), version: 1, rowCount: 4 });
     const got = await modeller.get(`/api/measurement-sets/${res.body.id}`);
     expect(got.status).toBe(200);
-    expect(got.body).toMatchObject({ kind: 'density', version: 1, sha256: createHash('sha256').update(fixture('good-density-celsius-bar.csv')).digest('hex') });
+    expect(got.body).toMatchObject({
+      kind: 'density',
+      version: 1,
+      sha256: createHash('sha256').update(fixture('good-density-celsius-bar.csv')).digest('hex'),
+    });
     // 25 °C = 298.15 K (ITS-90 / SI Brochure 9th ed. §2.3.1: t/°C = T/K − 273.15); 10 bar = 1 MPa (NIST SP 811, App. B.8).
     expect(got.body.rows[0].temperatureK).toBeCloseTo(298.15, 10);
     expect(got.body.rows[0].pressureMPa).toBeCloseTo(1.0, 12);
@@ -84,7 +105,11 @@ describe('measurement set upload', () => {
   });
 
   it('takes a semicolon, decimal-comma viscosity table', async () => {
-    const res = await upload(modeller, fixture('good-viscosity-semicolon-decimal-comma.csv'), { substanceId, kind: 'viscosity', name: 'Viscosity test' });
+    const res = await upload(modeller, fixture('good-viscosity-semicolon-decimal-comma.csv'), {
+      substanceId,
+      kind: 'viscosity',
+      name: 'Viscosity test',
+    });
     expect(res.status).toBe(201);
     const got = await modeller.get(`/api/measurement-sets/${res.body.id}`);
     expect(got.body.rows.map((r: { viscosityMicroPaS: number }) => r.viscosityMicroPaS)).toEqual([18.5, 22.5, 26, 29.5]);
@@ -93,8 +118,17 @@ describe('measurement set upload', () => {
   });
 
   it('accepts an explicit column mapping for unrecognised headers', async () => {
-    const mapping = { 0: { quantity: 'temperature', unit: 'degC' }, 1: { quantity: 'b2', unit: 'cm3/mol' }, 2: { quantity: 'uB2', unit: 'cm3/mol' } };
-    const res = await upload(modeller, fixture('good-needs-mapping.csv'), { substanceId, kind: 'b2', name: 'Mapped B2', mapping: JSON.stringify(mapping) });
+    const mapping = {
+      0: { quantity: 'temperature', unit: 'degC' },
+      1: { quantity: 'b2', unit: 'cm3/mol' },
+      2: { quantity: 'uB2', unit: 'cm3/mol' },
+    };
+    const res = await upload(modeller, fixture('good-needs-mapping.csv'), {
+      substanceId,
+      kind: 'b2',
+      name: 'Mapped B2',
+      mapping: JSON.stringify(mapping),
+    });
     expect(res.status).toBe(201);
     const without = await upload(modeller, fixture('good-needs-mapping.csv'), { substanceId, kind: 'b2', name: 'Unmapped B2' });
     expect(without.status).toBe(422);
@@ -159,15 +193,28 @@ describe('measurement set upload', () => {
   });
 
   it('rejects a file that is not a CSV with 400', async () => {
-    const res = await modeller.post('/api/measurement-sets').field('substanceId', substanceId).field('kind', 'b2').field('name', 'png').attach('file', Buffer.from([0x89, 0x50, 0x4e, 0x47]), { filename: 'plot.png', contentType: 'image/png' });
+    const res = await modeller
+      .post('/api/measurement-sets')
+      .field('substanceId', substanceId)
+      .field('kind', 'b2')
+      .field('name', 'png')
+      .attach('file', Buffer.from([0x89, 0x50, 0x4e, 0x47]), { filename: 'plot.png', contentType: 'image/png' });
     expect(res.status).toBe(400);
     expect(res.body.error.code).toBe('not_csv');
   });
 
   it('answers 400 per field for bad multipart fields and a missing file', async () => {
-    const res = await upload(modeller, fixture('good-b2-parentheses.csv'), { substanceId: 'abc', kind: 'enthalpy', name: '', defaultRelativeUncertainty: 2, doi: 'not-a-doi' });
+    const res = await upload(modeller, fixture('good-b2-parentheses.csv'), {
+      substanceId: 'abc',
+      kind: 'enthalpy',
+      name: '',
+      defaultRelativeUncertainty: 2,
+      doi: 'not-a-doi',
+    });
     expect(res.status).toBe(400);
-    expect(res.body.error.details.map((d: { field: string }) => d.field)).toEqual(expect.arrayContaining(['substanceId', 'kind', 'name', 'defaultRelativeUncertainty', 'doi']));
+    expect(res.body.error.details.map((d: { field: string }) => d.field)).toEqual(
+      expect.arrayContaining(['substanceId', 'kind', 'name', 'defaultRelativeUncertainty', 'doi']),
+    );
     const noFile = await modeller.post('/api/measurement-sets').field('substanceId', substanceId).field('kind', 'b2').field('name', 'n');
     expect(noFile.status).toBe(400);
     expect(noFile.body.error.details[0].field).toBe('file');
@@ -190,13 +237,19 @@ describe('measurement set versions', () => {
     expect(first.status).toBe(201);
     const id = first.body.id;
     const v1Before = await modeller.get(`/api/measurement-sets/${id}?version=1`);
-    const original1 = await modeller.get(`/api/measurement-sets/${id}/versions/1/original`).buffer(true).parse((res, cb) => {
-      const chunks: Buffer[] = [];
-      res.on('data', (c: Buffer) => chunks.push(c));
-      res.on('end', () => cb(null, Buffer.concat(chunks)));
-    });
+    const original1 = await modeller
+      .get(`/api/measurement-sets/${id}/versions/1/original`)
+      .buffer(true)
+      .parse((res, cb) => {
+        const chunks: Buffer[] = [];
+        res.on('data', (c: Buffer) => chunks.push(c));
+        res.on('end', () => cb(null, Buffer.concat(chunks)));
+      });
 
-    const second = await modeller.post(`/api/measurement-sets/${id}/versions`).field('source', 'Invented, corrected').attach('file', fixture('good-b2-brackets.csv'), { filename: 'corrected.csv', contentType: 'text/csv' });
+    const second = await modeller
+      .post(`/api/measurement-sets/${id}/versions`)
+      .field('source', 'Invented, corrected')
+      .attach('file', fixture('good-b2-brackets.csv'), { filename: 'corrected.csv', contentType: 'text/csv' });
     expect(second.status).toBe(201);
     expect(second.body).toMatchObject({ id, version: 2 });
 
@@ -204,11 +257,14 @@ describe('measurement set versions', () => {
     expect(v1After.body.sha256).toBe(v1Before.body.sha256);
     expect(v1After.body.sha256).toBe(createHash('sha256').update(v1Bytes).digest('hex'));
     expect(v1After.body.rows).toEqual(v1Before.body.rows);
-    const original1After = await modeller.get(`/api/measurement-sets/${id}/versions/1/original`).buffer(true).parse((res, cb) => {
-      const chunks: Buffer[] = [];
-      res.on('data', (c: Buffer) => chunks.push(c));
-      res.on('end', () => cb(null, Buffer.concat(chunks)));
-    });
+    const original1After = await modeller
+      .get(`/api/measurement-sets/${id}/versions/1/original`)
+      .buffer(true)
+      .parse((res, cb) => {
+        const chunks: Buffer[] = [];
+        res.on('data', (c: Buffer) => chunks.push(c));
+        res.on('end', () => cb(null, Buffer.concat(chunks)));
+      });
     expect(Buffer.compare(original1.body as Buffer, v1Bytes)).toBe(0);
     expect(Buffer.compare(original1After.body as Buffer, v1Bytes)).toBe(0);
 
@@ -224,7 +280,9 @@ describe('measurement set versions', () => {
     const list = await modeller.get(`/api/measurement-sets?substanceId=${substanceId}`);
     const id = list.body.measurementSets.find((d: { name: string }) => d.name === 'Versioned B2').id;
     const before = await counts();
-    const res = await modeller.post(`/api/measurement-sets/${id}/versions`).attach('file', fixture('non-numeric-cell.csv'), { filename: 'bad.csv', contentType: 'text/csv' });
+    const res = await modeller
+      .post(`/api/measurement-sets/${id}/versions`)
+      .attach('file', fixture('non-numeric-cell.csv'), { filename: 'bad.csv', contentType: 'text/csv' });
     expect(res.status).toBe(422);
     expect(await counts()).toEqual(before);
   });
@@ -242,7 +300,9 @@ describe('measurement set versions', () => {
     const got = await modeller.get(`/api/measurement-sets/${id}`);
     expect(got.body.withdrawn.reason).toBe('Calibration error found');
     expect((await modeller.post(`/api/measurement-sets/${id}/withdraw`).send({ reason: 'again' })).status).toBe(409);
-    const again = await modeller.post(`/api/measurement-sets/${id}/versions`).attach('file', fixture('good-b2-brackets.csv'), { filename: 'x.csv', contentType: 'text/csv' });
+    const again = await modeller
+      .post(`/api/measurement-sets/${id}/versions`)
+      .attach('file', fixture('good-b2-brackets.csv'), { filename: 'x.csv', contentType: 'text/csv' });
     expect(again.status).toBe(409);
   });
 

@@ -12,7 +12,8 @@ beforeAll(async () => {
   modeller = await t.signIn(EMAIL.modeller);
   const list = await modeller.get('/api/substances');
   substanceId = list.body.substances.find((s: { name: string }) => s.name === 'Quillgas QG-1').id;
-  const sets: Array<{ id: number; kind: string }> = (await modeller.get(`/api/measurement-sets?substanceId=${substanceId}`)).body.measurementSets;
+  const sets: Array<{ id: number; kind: string }> = (await modeller.get(`/api/measurement-sets?substanceId=${substanceId}`)).body
+    .measurementSets;
   b2AndDensity = sets.filter((d) => d.kind === 'b2' || d.kind === 'density').map((d) => ({ id: d.id }));
   densityOnly = sets.filter((d) => d.kind === 'density').map((d) => ({ id: d.id }));
 });
@@ -24,7 +25,11 @@ const SMALL = { atoms: 128, steps: 2000 };
 
 describe('a Mie 16-6 fit with density data through the API (λr held)', () => {
   it('starts from the Mie B2 fit, simulates with λr in every run, samples the posterior on the reweighted runs', async () => {
-    const res = await modeller.post('/api/fits').send({ substanceId, measurementSets: b2AndDensity, options: { model: 'mie', repulsiveExponent: 16, restarts: 0, density: SMALL, posterior: { samples: 100 } } });
+    const res = await modeller.post('/api/fits').send({
+      substanceId,
+      measurementSets: b2AndDensity,
+      options: { model: 'mie', repulsiveExponent: 16, restarts: 0, density: SMALL, posterior: { samples: 100 } },
+    });
     expect(res.status, JSON.stringify(res.body)).toBe(202);
     const done = await t.ctx.jobs.waitFor(res.body.jobId);
     expect(done.status, done.error ?? '').toBe('succeeded');
@@ -52,11 +57,15 @@ describe('a Mie 16-6 fit with density data through the API (λr held)', () => {
   }, 900_000);
 
   it('refuses to fit λr with density data, naming the field', async () => {
-    const res = await modeller.post('/api/fits').send({ substanceId, measurementSets: densityOnly, options: { model: 'mie', fitRepulsiveExponent: true } });
+    const res = await modeller
+      .post('/api/fits')
+      .send({ substanceId, measurementSets: densityOnly, options: { model: 'mie', fitRepulsiveExponent: true } });
     expect(res.status).toBe(422);
     expect(res.body.error.code).toBe('mie_density_needs_held_exponent');
     expect(res.body.error.details[0].field).toBe('options.fitRepulsiveExponent');
-    const withSettings = await modeller.post('/api/fits').send({ substanceId, measurementSets: densityOnly, options: { model: 'mie', fitRepulsiveExponent: true, density: SMALL } });
+    const withSettings = await modeller
+      .post('/api/fits')
+      .send({ substanceId, measurementSets: densityOnly, options: { model: 'mie', fitRepulsiveExponent: true, density: SMALL } });
     expect(withSettings.status).toBe(400);
     expect(withSettings.body.error.details.map((d: { field: string }) => d.field)).toContain('options.fitRepulsiveExponent');
   });

@@ -18,7 +18,11 @@ let b2Id: number;
 // an independent mpmath quadrature in mie-potential.test.ts), with a small deterministic wiggle; not real data.
 function mieB2Csv(): Buffer {
   const lines = ['T (K),B2 (cm3/mol),u(B2) (cm3/mol)'];
-  [100, 120, 145, 175, 210, 260, 330, 420, 550, 720, 950].forEach((T, i) => lines.push(`${T},${(b2WithGradient(T, 150, 3.7, undefined, { repulsiveExponent: 16 }).b2Cm3PerMol + 0.2 * Math.sin(1.7 * i)).toFixed(4)},0.4`));
+  [100, 120, 145, 175, 210, 260, 330, 420, 550, 720, 950].forEach((T, i) =>
+    lines.push(
+      `${T},${(b2WithGradient(T, 150, 3.7, undefined, { repulsiveExponent: 16 }).b2Cm3PerMol + 0.2 * Math.sin(1.7 * i)).toFixed(4)},0.4`,
+    ),
+  );
   return Buffer.from(lines.join('\n'));
 }
 
@@ -26,7 +30,14 @@ beforeAll(async () => {
   t = await startTestApp();
   [modeller, reviewer, consumer] = await Promise.all([t.signIn(EMAIL.modeller), t.signIn(EMAIL.reviewer), t.signIn(EMAIL.consumer)]);
   substanceId = await newSubstance(modeller, 'Quillgas QG-7', 58.1);
-  const up = await modeller.post('/api/measurement-sets').field('substanceId', substanceId).field('kind', 'b2').field('name', 'QG-7 B2, Fenwick cell B').field('source', 'Fenwick Thermophysics Laboratory, invented run 7').field('doi', '10.1000/epsigma.mie.7').attach('file', mieB2Csv(), { filename: 'b2.csv', contentType: 'text/csv' });
+  const up = await modeller
+    .post('/api/measurement-sets')
+    .field('substanceId', substanceId)
+    .field('kind', 'b2')
+    .field('name', 'QG-7 B2, Fenwick cell B')
+    .field('source', 'Fenwick Thermophysics Laboratory, invented run 7')
+    .field('doi', '10.1000/epsigma.mie.7')
+    .attach('file', mieB2Csv(), { filename: 'b2.csv', contentType: 'text/csv' });
   expect(up.status, JSON.stringify(up.body)).toBe(201);
   b2Id = up.body.id;
 });
@@ -43,7 +54,11 @@ describe('Mie λr-6 fits with a posterior, through review and export', () => {
   });
 
   it('fits a Mie 16-6 model with a posterior, ranks next measurements and states the criterion; the set goes through review and export', async () => {
-    const res = await modeller.post('/api/fits').send({ substanceId, measurementSets: [{ id: b2Id }], options: { model: 'mie', repulsiveExponent: 16, posterior: { samples: 300 } } });
+    const res = await modeller.post('/api/fits').send({
+      substanceId,
+      measurementSets: [{ id: b2Id }],
+      options: { model: 'mie', repulsiveExponent: 16, posterior: { samples: 300 } },
+    });
     expect(res.status, JSON.stringify(res.body)).toBe(202);
     expect((await t.ctx.jobs.waitFor(res.body.jobId)).status).toBe('succeeded');
     const fit = (await modeller.get(`/api/fits/${res.body.id}`)).body;
@@ -59,12 +74,16 @@ describe('Mie λr-6 fits with a posterior, through review and export', () => {
     expect(r.nextMeasurements[0]).toMatchObject({ kind: 'b2', text: expect.stringMatching(/^B2 at /) });
     expect(r.criterion).toMatchObject({ parameters: 2, points: 11 });
 
-    const draft = await modeller.post('/api/parameter-sets').send({ fitId: res.body.id, rationale: 'Mie 16-6 fits the QG-7 B2 table within its uncertainty.' });
+    const draft = await modeller
+      .post('/api/parameter-sets')
+      .send({ fitId: res.body.id, rationale: 'Mie 16-6 fits the QG-7 B2 table within its uncertainty.' });
     expect(draft.status, JSON.stringify(draft.body)).toBe(201);
     expect(draft.body).toMatchObject({ potential: 'mie', repulsiveExponent: 16, potentialLabel: 'Mie 16-6' });
     expect(draft.body.label).toMatch(/Mie 16-6/);
     expect((await modeller.post(`/api/parameter-sets/${draft.body.id}/submit`)).status).toBe(200);
-    const approve = await reviewer.post(`/api/parameter-sets/${draft.body.id}/review`).send({ decision: 'approve', comment: 'Mie form checked; approved.' });
+    const approve = await reviewer
+      .post(`/api/parameter-sets/${draft.body.id}/review`)
+      .send({ decision: 'approve', comment: 'Mie form checked; approved.' });
     expect(approve.status, JSON.stringify(approve.body)).toBe(200);
 
     const lammps = await consumer.get(`/api/parameter-sets/${draft.body.id}/export?format=lammps-real`);
@@ -83,10 +102,15 @@ describe('Mie λr-6 fits with a posterior, through review and export', () => {
     // Predictions with an API token: B2 from the Mie model at the set's values, interval from the fit's posterior
     // draws, and a mark outside the validity range (the data span 100–950 K).
     const token = (await consumer.post('/api/tokens').send({ name: 'QG-7 predictions' })).body.token as string;
-    const pred = await t.client().get(`/api/parameter-sets/${draft.body.id}/predictions?kind=b2&temperaturesK=150,2000`).set({ Authorization: `Bearer ${token}` });
+    const pred = await t
+      .client()
+      .get(`/api/parameter-sets/${draft.body.id}/predictions?kind=b2&temperaturesK=150,2000`)
+      .set({ Authorization: `Bearer ${token}` });
     expect(pred.status, JSON.stringify(pred.body)).toBe(200);
     const [inside, outside] = pred.body.predictions;
-    expect(inside.value).toBe(b2WithGradient(150, draft.body.epsilonK, draft.body.sigmaAngstrom, undefined, { repulsiveExponent: 16 }).b2Cm3PerMol);
+    expect(inside.value).toBe(
+      b2WithGradient(150, draft.body.epsilonK, draft.body.sigmaAngstrom, undefined, { repulsiveExponent: 16 }).b2Cm3PerMol,
+    );
     expect(inside).toMatchObject({ unit: 'cm3/mol', intervalMethod: 'posterior draws', outsideValidity: false });
     expect(inside.lower95).toBeLessThan(inside.value);
     expect(inside.upper95).toBeGreaterThan(inside.value);
@@ -96,7 +120,9 @@ describe('Mie λr-6 fits with a posterior, through review and export', () => {
     // Viscosity has a Mie model (Mie collision integrals): η of the 16-6 set with the interval from the posterior draws.
     const eta = await consumer.get(`/api/parameter-sets/${draft.body.id}/predictions?kind=viscosity&temperaturesK=300`);
     expect(eta.status, JSON.stringify(eta.body)).toBe(200);
-    expect(eta.body.predictions[0].value).toBe(viscosityWithGradient(300, draft.body.epsilonK, draft.body.sigmaAngstrom, 58.1, { repulsiveExponent: 16 }).viscosityMicroPaS);
+    expect(eta.body.predictions[0].value).toBe(
+      viscosityWithGradient(300, draft.body.epsilonK, draft.body.sigmaAngstrom, 58.1, { repulsiveExponent: 16 }).viscosityMicroPaS,
+    );
     expect(eta.body.predictions[0]).toMatchObject({ unit: 'uPa s', intervalMethod: 'posterior draws', outsideValidity: false });
     // Density has none outside the simulation stage: still refused, saying which kinds a Mie set predicts.
     const rho = await consumer.get(`/api/parameter-sets/${draft.body.id}/predictions?kind=density&temperaturesK=300&pressuresMPa=5`);
@@ -124,6 +150,8 @@ describe('Mie λr-6 fits with a posterior, through review and export', () => {
     const a = { epsilonK: 150.0, sigmaAngstrom: 3.7, stdErr: { epsilonK: 0.1, sigmaAngstrom: 0.001 }, chi2: 1.5 };
     expect(resultDifferences(a, JSON.parse(JSON.stringify(a)))).toEqual([]);
     expect(resultDifferences(a, { ...a, epsilonK: 150.00000000000003 }).map((d) => d.field)).toEqual(['epsilonK']);
-    expect(resultDifferences(a, { ...a, stdErr: { ...a.stdErr, sigmaAngstrom: 0.0010000000000000002 } }).map((d) => d.field)).toEqual(['stdErr.sigmaAngstrom']);
+    expect(resultDifferences(a, { ...a, stdErr: { ...a.stdErr, sigmaAngstrom: 0.0010000000000000002 } }).map((d) => d.field)).toEqual([
+      'stdErr.sigmaAngstrom',
+    ]);
   });
 });

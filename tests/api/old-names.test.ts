@@ -61,14 +61,25 @@ describe('old routes: /api/datasets/…', () => {
   it('POST /api/datasets/:id/versions adds a version, and the roles still apply', async () => {
     const csv = syntheticB2Csv(150, 3.6, 0.2);
     const consumer = await t.signIn(EMAIL.consumer);
-    expect((await consumer.post(`/api/datasets/${oldUploadId}/versions`).attach('file', csv, { filename: 'b2.csv', contentType: 'text/csv' })).status).toBe(403);
-    const res = await modeller.post(`/api/datasets/${oldUploadId}/versions`).field('source', 'Corrected run').attach('file', csv, { filename: 'b2.csv', contentType: 'text/csv' });
+    expect(
+      (await consumer.post(`/api/datasets/${oldUploadId}/versions`).attach('file', csv, { filename: 'b2.csv', contentType: 'text/csv' }))
+        .status,
+    ).toBe(403);
+    const res = await modeller
+      .post(`/api/datasets/${oldUploadId}/versions`)
+      .field('source', 'Corrected run')
+      .attach('file', csv, { filename: 'b2.csv', contentType: 'text/csv' });
     expect(res.status, JSON.stringify(res.body)).toBe(201);
     expect(res.body.version).toBe(2);
   });
 
   it('POST /api/datasets/:id/withdraw withdraws it (Origin check included)', async () => {
-    const spare = await modeller.post('/api/measurement-sets').field('substanceId', substanceId).field('kind', 'b2').field('name', 'Spare').attach('file', syntheticB2Csv(150, 3.6), { filename: 'b2.csv', contentType: 'text/csv' });
+    const spare = await modeller
+      .post('/api/measurement-sets')
+      .field('substanceId', substanceId)
+      .field('kind', 'b2')
+      .field('name', 'Spare')
+      .attach('file', syntheticB2Csv(150, 3.6), { filename: 'b2.csv', contentType: 'text/csv' });
     const noOrigin = await t.client().post(`/api/datasets/${spare.body.id}/withdraw`).unset('Origin').send({ reason: 'no origin' });
     expect([401, 403]).toContain(noOrigin.status);
     const res = await modeller.post(`/api/datasets/${spare.body.id}/withdraw`).send({ reason: 'a spare run' });
@@ -78,11 +89,18 @@ describe('old routes: /api/datasets/…', () => {
 
   it('POST /api/simulations/from-dataset takes `datasetId` and reaches the route (an unknown row is named)', async () => {
     const csv = ['T (K),p (MPa),rho (kg/m3),u(rho) (kg/m3)', '300,20,300,3', '320,20,280,3', '340,20,260,3'].join('\n');
-    const up = await modeller.post('/api/measurement-sets').field('substanceId', substanceId).field('kind', 'density').field('name', 'dens').attach('file', Buffer.from(csv), { filename: 'd.csv', contentType: 'text/csv' });
+    const up = await modeller
+      .post('/api/measurement-sets')
+      .field('substanceId', substanceId)
+      .field('kind', 'density')
+      .field('name', 'dens')
+      .attach('file', Buffer.from(csv), { filename: 'd.csv', contentType: 'text/csv' });
     expect(up.status, JSON.stringify(up.body)).toBe(201);
     const body = { datasetId: up.body.id, rows: [99], epsilonK: 120, sigmaAngstrom: 3.4 };
     const old = await modeller.post('/api/simulations/from-dataset').send(body);
-    const renamed = await modeller.post('/api/simulations/from-measurement-set').send({ ...body, datasetId: undefined, measurementSetId: up.body.id });
+    const renamed = await modeller
+      .post('/api/simulations/from-measurement-set')
+      .send({ ...body, datasetId: undefined, measurementSetId: up.body.id });
     expect(old.status).toBe(422);
     expect(old.body).toEqual(renamed.body);
   });
@@ -95,7 +113,9 @@ describe('old routes: /api/users/…', () => {
     const list = await admin.get('/api/users');
     expect(list.status).toBe(200);
     expect(list.body).toEqual((await admin.get('/api/people')).body);
-    const created = await admin.post('/api/users').send({ email: 'old.route@demo.epsigma.test', name: 'Old Route', roles: ['consumer'], password: TEST_PASSWORD });
+    const created = await admin
+      .post('/api/users')
+      .send({ email: 'old.route@demo.epsigma.test', name: 'Old Route', roles: ['consumer'], password: TEST_PASSWORD });
     expect(created.status, JSON.stringify(created.body)).toBe(201);
     const changed = await admin.patch(`/api/users/${created.body.id}`).send({ roles: ['modeller'] });
     expect(changed.status).toBe(200);
@@ -111,7 +131,9 @@ describe('old request fields', () => {
     const fit = await modeller.get(`/api/fits/${res.body.id}`);
     expect(fit.body.measurementSets[0]).toMatchObject({ measurementSetId: oldUploadId, version: 1 });
     // The new name wins when both are sent.
-    const both = await modeller.post('/api/fits').send({ substanceId, measurementSets: [{ id: oldUploadId, version: 2 }], datasets: [{ id: 999999 }] });
+    const both = await modeller
+      .post('/api/fits')
+      .send({ substanceId, measurementSets: [{ id: oldUploadId, version: 2 }], datasets: [{ id: 999999 }] });
     expect(both.status, JSON.stringify(both.body)).toBe(202);
   });
 
@@ -129,13 +151,24 @@ describe('old request fields', () => {
     const setA = await approvedSet(t, { modeller, reviewer }, { substanceId, epsilonK: 140, sigmaAngstrom: 3.5 });
     const setB = await approvedSet(t, { modeller, reviewer }, { substanceId: other, epsilonK: 220, sigmaAngstrom: 4.2 });
     const pure: Array<{ epsilonK: number; sigmaAngstrom: number }> = [];
-    for (const s of [setA, setB]) pure.push((await modeller.get(`/api/parameter-sets/${s.setId}`)).body as { epsilonK: number; sigmaAngstrom: number });
-    const lines = ['T (K),B12 (cm3/mol),u(B12) (cm3/mol)', ...[180, 220, 260, 320, 400, 500].map((T) => `${T},${crossB2(T, pure[0], pure[1], 0.04).toFixed(4)},1`)];
-    const b12 = await modeller.post('/api/measurement-sets').field('substanceId', substanceId).field('kind', 'b12').field('name', 'Invented B12').attach('file', Buffer.from(lines.join('\n')), { filename: 'b12.csv', contentType: 'text/csv' });
+    for (const s of [setA, setB])
+      pure.push((await modeller.get(`/api/parameter-sets/${s.setId}`)).body as { epsilonK: number; sigmaAngstrom: number });
+    const lines = [
+      'T (K),B12 (cm3/mol),u(B12) (cm3/mol)',
+      ...[180, 220, 260, 320, 400, 500].map((T) => `${T},${crossB2(T, pure[0], pure[1], 0.04).toFixed(4)},1`),
+    ];
+    const b12 = await modeller
+      .post('/api/measurement-sets')
+      .field('substanceId', substanceId)
+      .field('kind', 'b12')
+      .field('name', 'Invented B12')
+      .attach('file', Buffer.from(lines.join('\n')), { filename: 'b12.csv', contentType: 'text/csv' });
     expect(b12.status).toBe(201);
     const pair = await modeller.post('/api/pair-sets').send({ parameterSetIds: [setA.setId, setB.setId], datasetId: b12.body.id });
     expect(pair.status, JSON.stringify(pair.body)).toBe(201);
-    expect(pair.body.measurementSet ?? (await modeller.get(`/api/pair-sets/${pair.body.id}`)).body.measurementSet).toMatchObject({ id: b12.body.id });
+    expect(pair.body.measurementSet ?? (await modeller.get(`/api/pair-sets/${pair.body.id}`)).body.measurementSet).toMatchObject({
+      id: b12.body.id,
+    });
 
     const refused = await modeller.patch(`/api/parameter-sets/${setA.setId}`).send({ datasets: [] });
     const refusedNew = await modeller.patch(`/api/parameter-sets/${setA.setId}`).send({ measurementSets: [] });

@@ -31,8 +31,16 @@ beforeAll(async () => {
     const body = (await modeller.get(`/api/parameter-sets/${s.setId}`)).body;
     pure.push({ epsilonK: body.epsilonK, sigmaAngstrom: body.sigmaAngstrom });
   }
-  const lines = ['T (K),B12 (cm3/mol),u(B12) (cm3/mol)', ...[180, 220, 260, 320, 400, 500].map((T) => `${T},${crossB2(T, pure[0], pure[1], K_TRUE).toFixed(4)},1`)];
-  const up = await modeller.post('/api/measurement-sets').field('substanceId', substanceA).field('kind', 'b12').field('name', 'Invented B12').attach('file', Buffer.from(lines.join('\n')), { filename: 'b12.csv', contentType: 'text/csv' });
+  const lines = [
+    'T (K),B12 (cm3/mol),u(B12) (cm3/mol)',
+    ...[180, 220, 260, 320, 400, 500].map((T) => `${T},${crossB2(T, pure[0], pure[1], K_TRUE).toFixed(4)},1`),
+  ];
+  const up = await modeller
+    .post('/api/measurement-sets')
+    .field('substanceId', substanceA)
+    .field('kind', 'b12')
+    .field('name', 'Invented B12')
+    .attach('file', Buffer.from(lines.join('\n')), { filename: 'b12.csv', contentType: 'text/csv' });
   expect(up.status).toBe(201);
   b12Id = up.body.id;
 });
@@ -44,18 +52,27 @@ describe('pair sets', () => {
   it('checks roles and input: 401, 403, 400 per field, 422 naming the field', async () => {
     expect((await t.client().post('/api/pair-sets').send({})).status).toBe(401);
     const consumer = await t.signIn(EMAIL.consumer);
-    expect((await consumer.post('/api/pair-sets').send({ parameterSetIds: [setA.setId, setB.setId], measurementSetId: b12Id })).status).toBe(403);
+    expect(
+      (await consumer.post('/api/pair-sets').send({ parameterSetIds: [setA.setId, setB.setId], measurementSetId: b12Id })).status,
+    ).toBe(403);
     const bad = await modeller.post('/api/pair-sets').send({ parameterSetIds: [setA.setId], measurementSetId: 'x' });
     expect(bad.status).toBe(400);
-    expect(bad.body.error.details.map((d: { field: string }) => d.field)).toEqual(expect.arrayContaining(['parameterSetIds', 'measurementSetId']));
-    const wrongKind = await modeller.post('/api/pair-sets').send({ parameterSetIds: [setA.setId, setB.setId], measurementSetId: (await modeller.get(`/api/measurement-sets?substanceId=${substanceA}`)).body.measurementSets.find((d: { kind: string }) => d.kind === 'b2').id });
+    expect(bad.body.error.details.map((d: { field: string }) => d.field)).toEqual(
+      expect.arrayContaining(['parameterSetIds', 'measurementSetId']),
+    );
+    const wrongKind = await modeller.post('/api/pair-sets').send({
+      parameterSetIds: [setA.setId, setB.setId],
+      measurementSetId: (await modeller.get(`/api/measurement-sets?substanceId=${substanceA}`)).body.measurementSets.find(
+        (d: { kind: string }) => d.kind === 'b2',
+      ).id,
+    });
     expect(wrongKind.status).toBe(422);
     expect(wrongKind.body.error.details[0].field).toBe('measurementSetId');
   });
 
   it('fits k_ij with the pure sets fixed and sends the pair set to review', async () => {
     const res = await modeller.post('/api/pair-sets').send({ parameterSetIds: [setB.setId, setA.setId], measurementSetId: b12Id });
-    
+
     expect(res.status).toBe(201);
     pairSetId = res.body.id;
     expect(res.body.state).toBe('in_review');
@@ -71,7 +88,9 @@ describe('pair sets', () => {
   it('refuses the author’s own review and approves with a second person', async () => {
     const self = await t.signIn('modeller@demo.epsigma.test');
     expect((await self.post(`/api/pair-sets/${pairSetId}/review`).send({ decision: 'approve' })).status).toBe(403);
-    const ok = await reviewer.post(`/api/pair-sets/${pairSetId}/review`).send({ decision: 'approve', comment: 'B12 residuals within uncertainty.' });
+    const ok = await reviewer
+      .post(`/api/pair-sets/${pairSetId}/review`)
+      .send({ decision: 'approve', comment: 'B12 residuals within uncertainty.' });
     expect(ok.status).toBe(200);
     expect(ok.body.state).toBe('approved');
     expect((await reviewer.post(`/api/pair-sets/${pairSetId}/review`).send({ decision: 'approve' })).status).toBe(409);

@@ -7,7 +7,12 @@ beforeAll(async () => {
 });
 afterAll(() => t.close());
 
-const newPerson = { email: 'new.modeller@demo.epsigma.test', name: 'Noor Falk', roles: ['modeller', 'reviewer'], password: 'initial-password-1' };
+const newPerson = {
+  email: 'new.modeller@demo.epsigma.test',
+  name: 'Noor Falk',
+  roles: ['modeller', 'reviewer'],
+  password: 'initial-password-1',
+};
 
 describe('people administration', () => {
   it('answers 401 without a session', async () => {
@@ -41,7 +46,12 @@ describe('people administration', () => {
     expect(JSON.stringify(res.body)).not.toMatch(/password|hash/i);
     const agent = await t.signIn(newPerson.email, newPerson.password);
     expect((await agent.get('/api/me')).body.roles).toEqual(['modeller', 'reviewer']);
-    const audit = await t.ctx.db.selectFrom('auditEvent').selectAll().where('action', '=', 'user.created').where('targetId', '=', res.body.id).execute();
+    const audit = await t.ctx.db
+      .selectFrom('auditEvent')
+      .selectAll()
+      .where('action', '=', 'user.created')
+      .where('targetId', '=', res.body.id)
+      .execute();
     expect(audit).toHaveLength(1);
     expect(JSON.stringify(audit)).not.toContain(newPerson.password);
     const dup = await admin.post('/api/people').send(newPerson);
@@ -56,7 +66,12 @@ describe('people administration', () => {
     const changed = await admin.patch(`/api/people/${person.id}`).send({ roles: ['consumer'] });
     expect(changed.status).toBe(200);
     expect(changed.body.roles).toEqual(['consumer']);
-    const audit = await t.ctx.db.selectFrom('auditEvent').selectAll().where('action', '=', 'user.roles_changed').where('targetId', '=', person.id).executeTakeFirstOrThrow();
+    const audit = await t.ctx.db
+      .selectFrom('auditEvent')
+      .selectAll()
+      .where('action', '=', 'user.roles_changed')
+      .where('targetId', '=', person.id)
+      .executeTakeFirstOrThrow();
     expect(JSON.parse(audit.beforeJson!).roles).toEqual(['modeller', 'reviewer']);
     expect(JSON.parse(audit.afterJson!).roles).toEqual(['consumer']);
     expect((await agent.get('/api/me')).body.roles).toEqual(['consumer']);

@@ -16,7 +16,13 @@ beforeAll(async () => {
 afterAll(() => t.close());
 
 const upload = (csv: string, kind = 'b2') =>
-  modeller.post('/api/measurement-sets').field('substanceId', substanceId).field('kind', kind).field('name', `Check ${Math.random()}`).field('source', 'Fenwick Thermophysics Laboratory, invented run').attach('file', Buffer.from(csv), { filename: 'check.csv', contentType: 'text/csv' });
+  modeller
+    .post('/api/measurement-sets')
+    .field('substanceId', substanceId)
+    .field('kind', kind)
+    .field('name', `Check ${Math.random()}`)
+    .field('source', 'Fenwick Thermophysics Laboratory, invented run')
+    .attach('file', Buffer.from(csv), { filename: 'check.csv', contentType: 'text/csv' });
 
 describe('substances', () => {
   it('refuses a molar mass below a hydrogen atom (5e-324 g/mol), naming the field', async () => {
@@ -75,7 +81,11 @@ describe('measurement uploads', () => {
   it('warns about one unusual value and says how many more', async () => {
     const res = await upload('T (K),B2 (cm3/mol)\n200,-30000\n250,-25000\n300,-150\n');
     expect(res.status).toBe(201);
-    expect(res.body.warnings).toEqual([expect.stringMatching(/^Row 2, column "B2 \(cm3\/mol\)": second virial coefficient B2 -30000 cm³\/mol is unusual.*\(1 more row in this column\)$/)]);
+    expect(res.body.warnings).toEqual([
+      expect.stringMatching(
+        /^Row 2, column "B2 \(cm3\/mol\)": second virial coefficient B2 -30000 cm³\/mol is unusual.*\(1 more row in this column\)$/,
+      ),
+    ]);
   });
 
   it('accepts ordinary values without warnings, and refuses an impossible density', async () => {

@@ -17,7 +17,11 @@ beforeAll(async () => {
   [modeller, reviewer] = await Promise.all([t.signIn(EMAIL.modeller), t.signIn(EMAIL.reviewer)]);
   substanceId = await newSubstance(modeller, 'Quillgas QG-9 prior', 44.1);
   // Synthetic B2 of invented parameters (ε/k_B = 160 K, σ = 3.6 Å), approved through the review API.
-  approved = await approvedSet(t, { modeller, reviewer }, { substanceId, epsilonK: 160, sigmaAngstrom: 3.6, doi: '10.1000/epsigma.prior.1' });
+  approved = await approvedSet(
+    t,
+    { modeller, reviewer },
+    { substanceId, epsilonK: 160, sigmaAngstrom: 3.6, doi: '10.1000/epsigma.prior.1' },
+  );
   // A second, newer table of the same gas at other temperatures: the fit the prior is used in.
   const up = await modeller
     .post('/api/measurement-sets')
@@ -33,7 +37,11 @@ beforeAll(async () => {
 afterAll(() => t.close());
 
 const fitWithPrior = (parameterSetId: unknown, options: Record<string, unknown> = {}) =>
-  modeller.post('/api/fits').send({ substanceId, measurementSets: [{ id: secondB2 }], options: { restarts: 0, ...options, posterior: { samples: 300, prior: { parameterSetId } } } });
+  modeller.post('/api/fits').send({
+    substanceId,
+    measurementSets: [{ id: secondB2 }],
+    options: { restarts: 0, ...options, posterior: { samples: 300, prior: { parameterSetId } } },
+  });
 
 describe('a Gaussian prior from a previous approved set (options.posterior.prior)', () => {
   it('uses the approved set: the result names it and holds its values and covariance', async () => {
@@ -82,7 +90,11 @@ describe('a Gaussian prior from a previous approved set (options.posterior.prior
     const wrong = await fitWithPrior('seven');
     expect(wrong.status).toBe(400);
     expect(wrong.body.error.details.map((d: { field: string }) => d.field)).toContain(FIELD);
-    const extra = await modeller.post('/api/fits').send({ substanceId, measurementSets: [{ id: secondB2 }], options: { posterior: { prior: { parameterSetId: approved.setId, epsilonK: 1 } } } });
+    const extra = await modeller.post('/api/fits').send({
+      substanceId,
+      measurementSets: [{ id: secondB2 }],
+      options: { posterior: { prior: { parameterSetId: approved.setId, epsilonK: 1 } } },
+    });
     expect(extra.status).toBe(400);
   });
 });

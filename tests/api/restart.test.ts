@@ -9,10 +9,18 @@ afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
 /** A tiny client for a server in another process: cookie + this site's Origin, like a browser tab. */
 async function signedIn(url: string) {
-  const login = await fetch(`${url}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json', origin: url }, body: JSON.stringify({ email: 'modeller@demo.epsigma.test', password: DEMO_PASSWORD }) });
+  const login = await fetch(`${url}/api/auth/login`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json', origin: url },
+    body: JSON.stringify({ email: 'modeller@demo.epsigma.test', password: DEMO_PASSWORD }),
+  });
   const cookie = login.headers.get('set-cookie')!.split(';')[0];
   return async (method: string, p: string, body?: unknown) => {
-    const res = await fetch(`${url}/api${p}`, { method, headers: { cookie, origin: url, ...(body ? { 'content-type': 'application/json' } : {}) }, body: body ? JSON.stringify(body) : undefined });
+    const res = await fetch(`${url}/api${p}`, {
+      method,
+      headers: { cookie, origin: url, ...(body ? { 'content-type': 'application/json' } : {}) },
+      body: body ? JSON.stringify(body) : undefined,
+    });
     return { status: res.status, body: await res.json() };
   };
 }

@@ -82,11 +82,17 @@ const PROBES: Record<string, Probe> = {
   'GET /api/catalog/:id': { path: (i) => `/api/catalog/${i.publishedSet}` },
   'GET /api/parameter-sets/:id/export': {
     path: (i) => `/api/parameter-sets/${i.publishedSet}/export?format=json`,
-    published: (i) => ({ published: `/api/parameter-sets/${i.publishedSet}/export?format=json`, unpublished: `/api/parameter-sets/${i.draftSet}/export?format=json` }),
+    published: (i) => ({
+      published: `/api/parameter-sets/${i.publishedSet}/export?format=json`,
+      unpublished: `/api/parameter-sets/${i.draftSet}/export?format=json`,
+    }),
   },
   'GET /api/parameter-sets/:id/predictions': {
     path: (i) => `/api/parameter-sets/${i.publishedSet}/predictions?kind=b2&temperaturesK=300`,
-    published: (i) => ({ published: `/api/parameter-sets/${i.publishedSet}/predictions?kind=b2&temperaturesK=300`, unpublished: `/api/parameter-sets/${i.draftSet}/predictions?kind=b2&temperaturesK=300` }),
+    published: (i) => ({
+      published: `/api/parameter-sets/${i.publishedSet}/predictions?kind=b2&temperaturesK=300`,
+      unpublished: `/api/parameter-sets/${i.draftSet}/predictions?kind=b2&temperaturesK=300`,
+    }),
   },
   'GET /api/mixtures': { path: (i) => `/api/mixtures?sets=${i.publishedSet}&rule=lorentz-berthelot` },
   'GET /api/substances': { path: () => '/api/substances' },
@@ -98,20 +104,34 @@ const PROBES: Record<string, Probe> = {
   'GET /api/me/follows': { path: () => '/api/me/follows' },
   'GET /api/measurement-sets': { path: () => '/api/measurement-sets' },
   'GET /api/measurement-sets/:id': { path: (i) => `/api/measurement-sets/${i.modellerMeasurementSet}` },
-  'GET /api/measurement-sets/:id/versions/:version/original': { path: (i) => `/api/measurement-sets/${i.modellerMeasurementSet}/versions/1/original` },
+  'GET /api/measurement-sets/:id/versions/:version/original': {
+    path: (i) => `/api/measurement-sets/${i.modellerMeasurementSet}/versions/1/original`,
+  },
   'POST /api/measurement-sets': { path: () => '/api/measurement-sets' },
   'POST /api/measurement-sets/:id/versions': {
     path: (i) => `/api/measurement-sets/${i.modellerMeasurementSet}/versions`,
-    own: (i) => ({ mine: `/api/measurement-sets/${i.modellerMeasurementSet}/versions`, others: `/api/measurement-sets/${i.otherMeasurementSet}/versions` }),
+    own: (i) => ({
+      mine: `/api/measurement-sets/${i.modellerMeasurementSet}/versions`,
+      others: `/api/measurement-sets/${i.otherMeasurementSet}/versions`,
+    }),
   },
   'POST /api/measurement-sets/:id/withdraw': {
     path: (i) => `/api/measurement-sets/${i.modellerMeasurementSet}/withdraw`,
-    own: (i) => ({ mine: `/api/measurement-sets/${i.modellerMeasurementSet}/withdraw`, others: `/api/measurement-sets/${i.otherMeasurementSet}/withdraw` }),
+    own: (i) => ({
+      mine: `/api/measurement-sets/${i.modellerMeasurementSet}/withdraw`,
+      others: `/api/measurement-sets/${i.otherMeasurementSet}/withdraw`,
+    }),
   },
   'POST /api/fits': { path: () => '/api/fits' },
-  'GET /api/fits/:id': { path: (i) => `/api/fits/${i.draftFit}`, published: (i) => ({ published: `/api/fits/${i.publishedFit}`, unpublished: `/api/fits/${i.draftFit}` }) },
+  'GET /api/fits/:id': {
+    path: (i) => `/api/fits/${i.draftFit}`,
+    published: (i) => ({ published: `/api/fits/${i.publishedFit}`, unpublished: `/api/fits/${i.draftFit}` }),
+  },
   'GET /api/substances/:id/fits': { path: (i) => `/api/substances/${i.substance}/fits` },
-  'POST /api/fits/:id/cancel': { path: (i) => `/api/fits/${i.draftFit}/cancel`, own: (i) => ({ mine: `/api/fits/${i.draftFit}/cancel`, others: `/api/fits/${i.otherFit}/cancel` }) },
+  'POST /api/fits/:id/cancel': {
+    path: (i) => `/api/fits/${i.draftFit}/cancel`,
+    own: (i) => ({ mine: `/api/fits/${i.draftFit}/cancel`, others: `/api/fits/${i.otherFit}/cancel` }),
+  },
   'GET /api/simulations': { path: () => '/api/simulations' },
   'GET /api/simulations/queue': { path: () => '/api/simulations/queue' },
   'GET /api/simulations/:id': { path: () => `/api/simulations/${NONE}` },
@@ -121,17 +141,38 @@ const PROBES: Record<string, Probe> = {
   'POST /api/simulations/:id/retry': { path: () => `/api/simulations/${NONE}/retry` },
   'GET /api/parameter-sets': { path: () => '/api/parameter-sets' },
   'GET /api/substances/:id/parameter-sets': { path: (i) => `/api/substances/${i.substance}/parameter-sets` },
-  'GET /api/parameter-sets/:id': { path: (i) => `/api/parameter-sets/${i.draftSet}`, published: (i) => ({ published: `/api/parameter-sets/${i.publishedSet}`, unpublished: `/api/parameter-sets/${i.draftSet}` }) },
-  'GET /api/parameter-sets/:id/diff': { path: (i) => `/api/parameter-sets/${i.draftSet}/diff`, published: (i) => ({ published: `/api/parameter-sets/${i.publishedSet}/diff`, unpublished: `/api/parameter-sets/${i.draftSet}/diff` }) },
-  'GET /api/parameter-sets/:id/manifest': { path: (i) => `/api/parameter-sets/${i.draftSet}/manifest`, published: (i) => ({ published: `/api/parameter-sets/${i.publishedSet}/manifest`, unpublished: `/api/parameter-sets/${i.draftSet}/manifest` }) },
-  'GET /api/parameter-sets/:id/rerun': { path: (i) => `/api/parameter-sets/${i.draftSet}/rerun`, published: (i) => ({ published: `/api/parameter-sets/${i.publishedSet}/rerun`, unpublished: `/api/parameter-sets/${i.draftSet}/rerun` }) },
+  'GET /api/parameter-sets/:id': {
+    path: (i) => `/api/parameter-sets/${i.draftSet}`,
+    published: (i) => ({ published: `/api/parameter-sets/${i.publishedSet}`, unpublished: `/api/parameter-sets/${i.draftSet}` }),
+  },
+  'GET /api/parameter-sets/:id/diff': {
+    path: (i) => `/api/parameter-sets/${i.draftSet}/diff`,
+    published: (i) => ({ published: `/api/parameter-sets/${i.publishedSet}/diff`, unpublished: `/api/parameter-sets/${i.draftSet}/diff` }),
+  },
+  'GET /api/parameter-sets/:id/manifest': {
+    path: (i) => `/api/parameter-sets/${i.draftSet}/manifest`,
+    published: (i) => ({
+      published: `/api/parameter-sets/${i.publishedSet}/manifest`,
+      unpublished: `/api/parameter-sets/${i.draftSet}/manifest`,
+    }),
+  },
+  'GET /api/parameter-sets/:id/rerun': {
+    path: (i) => `/api/parameter-sets/${i.draftSet}/rerun`,
+    published: (i) => ({
+      published: `/api/parameter-sets/${i.publishedSet}/rerun`,
+      unpublished: `/api/parameter-sets/${i.draftSet}/rerun`,
+    }),
+  },
   'POST /api/parameter-sets': { path: () => '/api/parameter-sets' },
   'PATCH /api/parameter-sets/:id': {
     path: (i) => `/api/parameter-sets/${i.draftSet}`,
     body: { rationale: 'Fits the synthetic B2 table within its uncertainty; wording checked.' },
     own: (i) => ({ mine: `/api/parameter-sets/${i.draftSet}`, others: `/api/parameter-sets/${i.otherDraftSet}` }),
   },
-  'POST /api/parameter-sets/:id/submit': { path: (i) => `/api/parameter-sets/${i.draftSet}/submit`, own: (i) => ({ mine: `/api/parameter-sets/${i.draftSet}/submit`, others: `/api/parameter-sets/${i.otherDraftSet}/submit` }) },
+  'POST /api/parameter-sets/:id/submit': {
+    path: (i) => `/api/parameter-sets/${i.draftSet}/submit`,
+    own: (i) => ({ mine: `/api/parameter-sets/${i.draftSet}/submit`, others: `/api/parameter-sets/${i.otherDraftSet}/submit` }),
+  },
   'POST /api/parameter-sets/:id/revise': { path: () => `/api/parameter-sets/${NONE}/revise` },
   'POST /api/parameter-sets/:id/review': { path: () => `/api/parameter-sets/${NONE}/review` },
   'POST /api/parameter-sets/:id/retire': { path: () => `/api/parameter-sets/${NONE}/retire` },
@@ -146,7 +187,10 @@ const PROBES: Record<string, Probe> = {
   'GET /api/mail/outbox': { path: () => '/api/mail/outbox' },
   'GET /api/admin/validation-suite': { path: () => '/api/admin/validation-suite' },
   'GET /api/pair-sets': { path: () => '/api/pair-sets' },
-  'GET /api/pair-sets/:id': { path: (i) => `/api/pair-sets/${i.pairSetInReview}`, published: (i) => ({ published: `/api/pair-sets/${i.approvedPairSet}`, unpublished: `/api/pair-sets/${i.pairSetInReview}` }) },
+  'GET /api/pair-sets/:id': {
+    path: (i) => `/api/pair-sets/${i.pairSetInReview}`,
+    published: (i) => ({ published: `/api/pair-sets/${i.approvedPairSet}`, unpublished: `/api/pair-sets/${i.pairSetInReview}` }),
+  },
   'POST /api/pair-sets': { path: () => '/api/pair-sets' },
   'POST /api/pair-sets/:id/review': { path: () => `/api/pair-sets/${NONE}/review` },
 };
@@ -159,18 +203,34 @@ const OTHER_MODELLER = 'hollis.wren@quillmoor.example';
 beforeAll(async () => {
   t = await startTestApp();
   const admin = await t.signIn(EMAIL.admin);
-  expect((await admin.post('/api/people').send({ email: OTHER_MODELLER, name: 'Hollis Wren', roles: ['modeller'], password: TEST_PASSWORD })).status).toBe(201);
-  const [modeller, reviewer, consumer, other] = await Promise.all([t.signIn(EMAIL.modeller), t.signIn(EMAIL.reviewer), t.signIn(EMAIL.consumer), t.signIn(OTHER_MODELLER)]);
+  expect(
+    (await admin.post('/api/people').send({ email: OTHER_MODELLER, name: 'Hollis Wren', roles: ['modeller'], password: TEST_PASSWORD }))
+      .status,
+  ).toBe(201);
+  const [modeller, reviewer, consumer, other] = await Promise.all([
+    t.signIn(EMAIL.modeller),
+    t.signIn(EMAIL.reviewer),
+    t.signIn(EMAIL.consumer),
+    t.signIn(OTHER_MODELLER),
+  ]);
   people = { admin, modeller, reviewer, consumer };
   const substance = await newSubstance(modeller, 'norrane N-7', 72.2);
   const published = await approvedSet(t, { modeller, reviewer }, { substanceId: substance, epsilonK: 240, sigmaAngstrom: 4.1 });
   const draftOf = async (agent: Agent, name: string) => {
-    const up = await agent.post('/api/measurement-sets').field('substanceId', substance).field('kind', 'b2').field('name', name).field('source', 'Fenwick Thermophysics Laboratory, invented run').attach('file', syntheticB2Csv(236, 4.12, 0.4), { filename: 'b2.csv', contentType: 'text/csv' });
+    const up = await agent
+      .post('/api/measurement-sets')
+      .field('substanceId', substance)
+      .field('kind', 'b2')
+      .field('name', name)
+      .field('source', 'Fenwick Thermophysics Laboratory, invented run')
+      .attach('file', syntheticB2Csv(236, 4.12, 0.4), { filename: 'b2.csv', contentType: 'text/csv' });
     expect(up.status, JSON.stringify(up.body)).toBe(201);
     const fit = await agent.post('/api/fits').send({ substanceId: substance, measurementSets: [{ id: up.body.id }] });
     expect(fit.status).toBe(202);
     expect((await t.ctx.jobs.waitFor(fit.body.jobId)).status).toBe('succeeded');
-    const set = await agent.post('/api/parameter-sets').send({ fitId: fit.body.id, rationale: 'Fits the synthetic B2 table within its uncertainty.' });
+    const set = await agent
+      .post('/api/parameter-sets')
+      .send({ fitId: fit.body.id, rationale: 'Fits the synthetic B2 table within its uncertainty.' });
     expect(set.status, JSON.stringify(set.body)).toBe(201);
     return { measurementSet: up.body.id as number, fit: fit.body.id as number, set: set.body.id as number };
   };
@@ -178,17 +238,37 @@ beforeAll(async () => {
   const theirs = await draftOf(other, 'Norrane B2, Hollis run');
   const consumerUser = await t.ctx.db.selectFrom('user').select('id').where('email', '=', EMAIL.consumer).executeTakeFirstOrThrow();
   // Two pair sets of the published set and a second substance's: one approved, one waiting for review.
-  const partner = await approvedSet(t, { modeller, reviewer }, { substanceId: await newSubstance(modeller, 'quillgas QG-4', 44.6), epsilonK: 150, sigmaAngstrom: 3.6 });
-  const b12 = ['T (K),B12 (cm3/mol),u(B12) (cm3/mol)', '200,-160.2,2', '260,-101.5,2', '330,-66.3,2', '420,-40.8,2', '520,-24.9,2'].join('\n');
-  const up = await modeller.post('/api/measurement-sets').field('substanceId', substance).field('kind', 'b12').field('name', 'Invented B12 of norrane and quillgas').field('source', 'Fenwick Thermophysics Laboratory, invented run').attach('file', Buffer.from(b12), { filename: 'b12.csv', contentType: 'text/csv' });
+  const partner = await approvedSet(
+    t,
+    { modeller, reviewer },
+    { substanceId: await newSubstance(modeller, 'quillgas QG-4', 44.6), epsilonK: 150, sigmaAngstrom: 3.6 },
+  );
+  const b12 = ['T (K),B12 (cm3/mol),u(B12) (cm3/mol)', '200,-160.2,2', '260,-101.5,2', '330,-66.3,2', '420,-40.8,2', '520,-24.9,2'].join(
+    '\n',
+  );
+  const up = await modeller
+    .post('/api/measurement-sets')
+    .field('substanceId', substance)
+    .field('kind', 'b12')
+    .field('name', 'Invented B12 of norrane and quillgas')
+    .field('source', 'Fenwick Thermophysics Laboratory, invented run')
+    .attach('file', Buffer.from(b12), { filename: 'b12.csv', contentType: 'text/csv' });
   expect(up.status, JSON.stringify(up.body)).toBe(201);
   const pairSet = async () => {
-    const res = await modeller.post('/api/pair-sets').send({ parameterSetIds: [published.setId, partner.setId], measurementSetId: up.body.id });
+    const res = await modeller
+      .post('/api/pair-sets')
+      .send({ parameterSetIds: [published.setId, partner.setId], measurementSetId: up.body.id });
     expect(res.status, JSON.stringify(res.body)).toBe(201);
     return res.body.id as number;
   };
   const approvedPairSet = await pairSet();
-  expect((await reviewer.post(`/api/pair-sets/${approvedPairSet}/review`).send({ decision: 'approve', comment: 'B12 residuals within uncertainty.' })).status).toBe(200);
+  expect(
+    (
+      await reviewer
+        .post(`/api/pair-sets/${approvedPairSet}/review`)
+        .send({ decision: 'approve', comment: 'B12 residuals within uncertainty.' })
+    ).status,
+  ).toBe(200);
   const pairSetInReview = await pairSet();
   ids = {
     substance,
@@ -220,7 +300,8 @@ describe('README roles table', () => {
     const served: string[] = [];
     const walk = (stack: Array<{ route?: { path: string; methods: Record<string, boolean> }; handle?: { stack?: unknown[] } }>) => {
       for (const layer of stack) {
-        if (layer.route) for (const method of Object.keys(layer.route.methods)) served.push(`${method.toUpperCase()} /api${layer.route.path}`);
+        if (layer.route)
+          for (const method of Object.keys(layer.route.methods)) served.push(`${method.toUpperCase()} /api${layer.route.path}`);
         else if (layer.handle?.stack) walk(layer.handle.stack as typeof stack);
       }
     };

@@ -13,7 +13,8 @@ import { migrateToLatest, openDatabase } from '../../server/db/database';
 import { EMAIL, startTestApp, TEST_PASSWORD, type TestApp } from './test-app';
 
 const sha256 = (s: string) => createHash('sha256').update(s).digest('hex');
-const login = (t: TestApp, email: string, password: string, headers: Record<string, string> = {}) => t.client().post('/api/auth/login').set(headers).send({ email, password });
+const login = (t: TestApp, email: string, password: string, headers: Record<string, string> = {}) =>
+  t.client().post('/api/auth/login').set(headers).send({ email, password });
 
 describe('sign-in limiter (SIGN_IN_LIMIT=3)', () => {
   let t: TestApp;
@@ -24,7 +25,15 @@ describe('sign-in limiter (SIGN_IN_LIMIT=3)', () => {
 
   it('keys on the e-mail as validation reads it: spaces, tabs, case, no-break and full-width spellings share the lock, right password included', async () => {
     for (let i = 0; i < 3; i++) expect((await login(t, EMAIL.admin, 'wrong-password')).status).toBe(401);
-    const variants = [EMAIL.admin, `  ${EMAIL.admin}`, `${EMAIL.admin} `, `\t${EMAIL.admin}`, EMAIL.admin.toUpperCase(), `\u00a0${EMAIL.admin}`, `\uff41dmin@demo.epsigma.test`];
+    const variants = [
+      EMAIL.admin,
+      `  ${EMAIL.admin}`,
+      `${EMAIL.admin} `,
+      `\t${EMAIL.admin}`,
+      EMAIL.admin.toUpperCase(),
+      `\u00a0${EMAIL.admin}`,
+      `\uff41dmin@demo.epsigma.test`,
+    ];
     for (const email of variants) {
       const res = await login(t, email, TEST_PASSWORD);
       expect(res.status, JSON.stringify(email)).toBe(429);
@@ -65,7 +74,10 @@ describe('sign-in limiter (SIGN_IN_LIMIT=3)', () => {
       const base = `http://127.0.0.1:${port}`;
       const res = await request(base).post('/api/auth/login').set('Origin', base).send({ email: EMAIL.admin, password: TEST_PASSWORD });
       expect(res.status).toBe(429);
-      const other = await request(base).post('/api/auth/login').set('Origin', base).send({ email: EMAIL.consumer, password: TEST_PASSWORD });
+      const other = await request(base)
+        .post('/api/auth/login')
+        .set('Origin', base)
+        .send({ email: EMAIL.consumer, password: TEST_PASSWORD });
       expect(other.status).toBe(200);
     } finally {
       await new Promise<void>((resolve) => server.close(() => resolve()));
@@ -105,7 +117,14 @@ describe('secrets at rest', () => {
     expect(ids).not.toContain(token);
     expect(ids).toContain(sha256(token));
     // The stored value does not open a session: only the token does.
-    expect((await t.client().get('/api/me').set('Cookie', `epsigma_session=${sha256(token)}`)).status).toBe(401);
+    expect(
+      (
+        await t
+          .client()
+          .get('/api/me')
+          .set('Cookie', `epsigma_session=${sha256(token)}`)
+      ).status,
+    ).toBe(401);
     expect((await t.client().get('/api/me').set('Cookie', `epsigma_session=${token}`)).status).toBe(200);
     // Sign-out removes the hashed row.
     await t.client().post('/api/auth/logout').set('Cookie', `epsigma_session=${token}`);
@@ -136,7 +155,17 @@ describe('secrets at rest', () => {
       const migrator = new Migrator({ db: handle.db, provider: { getMigrations: async () => MIGRATIONS } });
       const before = await migrator.migrateTo('20261201_0006_tokens_preferences');
       expect(before.error).toBeUndefined();
-      await handle.db.insertInto('user').values({ id: 'u1', email: 'ada@quillmoor.example', name: 'Ada Fenwick', passwordHash: 'x', active: 1, createdAt: '2026-12-01T00:00:00Z' } as never).execute();
+      await handle.db
+        .insertInto('user')
+        .values({
+          id: 'u1',
+          email: 'ada@quillmoor.example',
+          name: 'Ada Fenwick',
+          passwordHash: 'x',
+          active: 1,
+          createdAt: '2026-12-01T00:00:00Z',
+        } as never)
+        .execute();
       await handle.db.insertInto('session').values({ id: 'plain-token-from-before', expiresAt: 4102444800, userId: 'u1' }).execute();
       await migrateToLatest(handle.db);
       const rows = await handle.db.selectFrom('session').select('id').execute();

@@ -22,24 +22,38 @@ describe('simulations', () => {
     expect((await reviewer.post('/api/simulations').send({ reducedTemperature: 1, reducedPressure: 1 })).status).toBe(403);
     const bad = await modeller.post('/api/simulations').send({ reducedTemperature: 0.1, reducedPressure: -1, cutoff: 9 });
     expect(bad.status).toBe(400);
-    expect(bad.body.error.details.map((d: { field: string }) => d.field)).toEqual(expect.arrayContaining(['reducedTemperature', 'reducedPressure', 'cutoff']));
+    expect(bad.body.error.details.map((d: { field: string }) => d.field)).toEqual(
+      expect.arrayContaining(['reducedTemperature', 'reducedPressure', 'cutoff']),
+    );
   });
 
   it('states per-request limits: at most 4 000 atoms, 500 000 steps and 250 000 000 atom-steps per run', async () => {
-    const huge = await modeller.post('/api/simulations').send({ reducedTemperature: 1.2, reducedPressure: 0.5, atoms: 20000, steps: 2_000_000 });
+    const huge = await modeller
+      .post('/api/simulations')
+      .send({ reducedTemperature: 1.2, reducedPressure: 0.5, atoms: 20000, steps: 2_000_000 });
     expect(huge.status).toBe(400);
     expect(huge.body.error.details.map((d: { field: string }) => d.field)).toEqual(expect.arrayContaining(['atoms', 'steps']));
     // Each within its own cap, too much together: 4 000 × 100 000 = 4·10⁸.
-    const product = await modeller.post('/api/simulations').send({ reducedTemperature: 1.2, reducedPressure: 0.5, atoms: 4000, steps: 100_000 });
+    const product = await modeller
+      .post('/api/simulations')
+      .send({ reducedTemperature: 1.2, reducedPressure: 0.5, atoms: 4000, steps: 100_000 });
     expect(product.status).toBe(400);
-    expect(product.body.error.details).toEqual([expect.objectContaining({ field: 'steps', message: expect.stringContaining('atoms × steps') })]);
-    const fromSet = await modeller.post('/api/simulations/from-measurement-set').send({ measurementSetId: 1, epsilonK: 131.5, sigmaAngstrom: 3.524, atoms: 4000, steps: 100_000 });
+    expect(product.body.error.details).toEqual([
+      expect.objectContaining({ field: 'steps', message: expect.stringContaining('atoms × steps') }),
+    ]);
+    const fromSet = await modeller
+      .post('/api/simulations/from-measurement-set')
+      .send({ measurementSetId: 1, epsilonK: 131.5, sigmaAngstrom: 3.524, atoms: 4000, steps: 100_000 });
     expect(fromSet.status).toBe(400);
   });
 
   it('health reports the queue (counts only); signed-in people see the worker processes', async () => {
     const health = await t.client().get('/api/health');
-    expect(health.body.queue).toMatchObject({ driver: 'sqlite', workers: 1, lanes: { simulation: expect.any(Object), fast: expect.any(Object) } });
+    expect(health.body.queue).toMatchObject({
+      driver: 'sqlite',
+      workers: 1,
+      lanes: { simulation: expect.any(Object), fast: expect.any(Object) },
+    });
     expect(health.body.queue.workerList).toBeUndefined();
     expect((await t.client().get('/api/simulations/queue')).status).toBe(401);
     const admin = await t.signIn(EMAIL.admin);
@@ -73,16 +87,31 @@ describe('simulations', () => {
   it('maps density rows to reduced states with the given ε and σ', async () => {
     const substanceId = (await modeller.post('/api/substances').send({ name: 'Simium', molarMassGPerMol: 40 })).body.id;
     const csv = 'T (K),P (MPa),rho (kg/m3)\n240,10,500\n300,20,600\n';
-    const up = await modeller.post('/api/measurement-sets').field('substanceId', substanceId).field('kind', 'density').field('name', 'dens').attach('file', Buffer.from(csv), { filename: 'd.csv', contentType: 'text/csv' });
-    const res = await modeller.post('/api/simulations/from-measurement-set').send({ measurementSetId: up.body.id, rows: [3], epsilonK: 120, sigmaAngstrom: 3.4, ...SHORT });
+    const up = await modeller
+      .post('/api/measurement-sets')
+      .field('substanceId', substanceId)
+      .field('kind', 'density')
+      .field('name', 'dens')
+      .attach('file', Buffer.from(csv), { filename: 'd.csv', contentType: 'text/csv' });
+    const res = await modeller
+      .post('/api/simulations/from-measurement-set')
+      .send({ measurementSetId: up.body.id, rows: [3], epsilonK: 120, sigmaAngstrom: 3.4, ...SHORT });
     expect(res.status).toBe(202);
     expect(res.body.runs).toHaveLength(1);
     const expected = reducedStateOf({ temperatureK: 300, pressureMPa: 20, epsilonK: 120, sigmaAngstrom: 3.4 });
     expect(res.body.runs[0].state.reducedTemperature).toBeCloseTo(expected.reducedTemperature, 8);
     expect(res.body.runs[0].state.reducedPressure).toBeCloseTo(expected.reducedPressure, 8);
     const sim = await modeller.get(`/api/simulations/${res.body.runs[0].id}`);
-    expect(sim.body.origin).toMatchObject({ measurementSetId: up.body.id, fileRow: 3, temperatureK: 300, pressureMPa: 20, densityKgPerM3: 600 });
-    const missing = await modeller.post('/api/simulations/from-measurement-set').send({ measurementSetId: up.body.id, rows: [99], epsilonK: 120, sigmaAngstrom: 3.4 });
+    expect(sim.body.origin).toMatchObject({
+      measurementSetId: up.body.id,
+      fileRow: 3,
+      temperatureK: 300,
+      pressureMPa: 20,
+      densityKgPerM3: 600,
+    });
+    const missing = await modeller
+      .post('/api/simulations/from-measurement-set')
+      .send({ measurementSetId: up.body.id, rows: [99], epsilonK: 120, sigmaAngstrom: 3.4 });
     expect(missing.status).toBe(422);
     await t.ctx.jobs.cancel(res.body.runs[0].id);
   });

@@ -24,7 +24,16 @@ export const EMAIL = {
 export async function startTestApp(envOverrides: Record<string, string> = {}) {
   const dir = mkdtempSync(path.join(tmpdir(), 'epsigma-api-'));
   const logs: string[] = [];
-  const env = loadEnv({ NODE_ENV: 'test', DATABASE_PATH: path.join(dir, 'test.sqlite'), DEMO_PASSWORD: TEST_PASSWORD, LOG_REQUESTS: '1', SIGN_IN_LIMIT: '1000', WORKERS: '1', CHECK_RESPONSES: process.env.CHECK_RESPONSES ?? '1', ...envOverrides });
+  const env = loadEnv({
+    NODE_ENV: 'test',
+    DATABASE_PATH: path.join(dir, 'test.sqlite'),
+    DEMO_PASSWORD: TEST_PASSWORD,
+    LOG_REQUESTS: '1',
+    SIGN_IN_LIMIT: '1000',
+    WORKERS: '1',
+    CHECK_RESPONSES: process.env.CHECK_RESPONSES ?? '1',
+    ...envOverrides,
+  });
   const ctx = await createContext(env, (m) => logs.push(m));
   await seedDemo(ctx, { demoPassword: TEST_PASSWORD });
   const app = createApp(ctx);

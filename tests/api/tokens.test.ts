@@ -24,7 +24,13 @@ beforeAll(async () => {
   modeller = await t.signIn(EMAIL.modeller);
   const reviewer = await t.signIn(EMAIL.reviewer);
   const substanceId = await newSubstance(modeller, 'Tokenium', 20.18);
-  setId = (await approvedSet(t, { modeller, reviewer }, { substanceId, epsilonK: 40, sigmaAngstrom: 2.8, temperaturesK: Array.from({ length: 12 }, (_, i) => 60 + 30 * i) })).setId;
+  setId = (
+    await approvedSet(
+      t,
+      { modeller, reviewer },
+      { substanceId, epsilonK: 40, sigmaAngstrom: 2.8, temperaturesK: Array.from({ length: 12 }, (_, i) => 60 + 30 * i) },
+    )
+  ).setId;
   const other = await newSubstance(modeller, 'Othertokenium', 28);
   otherSetId = (await approvedSet(t, { modeller, reviewer }, { substanceId: other, epsilonK: 95, sigmaAngstrom: 3.7 })).setId;
   const created = await consumer.post('/api/tokens').send({ name: 'Nightly simulation setup' });
@@ -84,7 +90,18 @@ describe('using a token', () => {
 
   it('is refused (403) on every other route and on every write, even with a matching Origin', async () => {
     const c = t.client(); // sends this site's Origin header
-    const reads = ['/api/me', '/api/tokens', '/api/me/preferences', '/api/substances', `/api/parameter-sets/${setId}`, '/api/fits/1', '/api/audit', '/api/review-queue', '/api/health', '/api/no-such-route'];
+    const reads = [
+      '/api/me',
+      '/api/tokens',
+      '/api/me/preferences',
+      '/api/substances',
+      `/api/parameter-sets/${setId}`,
+      '/api/fits/1',
+      '/api/audit',
+      '/api/review-queue',
+      '/api/health',
+      '/api/no-such-route',
+    ];
     for (const path of reads) {
       const res = await c.get(path).set(bearer(token));
       expect(res.status, path).toBe(403);
@@ -112,8 +129,10 @@ describe('using a token', () => {
 
   it('judges the path spellings Express also routes (any case, trailing slash) the same way', async () => {
     const c = t.client();
-    for (const path of ['/api/CATALOG', '/api/catalog/', `/api/Parameter-Sets/${setId}/Export?format=csv`]) expect((await c.get(path).set(bearer(token))).status, path).toBe(200);
-    for (const path of ['/api/Tokens', '/api/tokens/', '/api/ME/preferences', `/api/parameter-sets/${setId}/`, '/api/catalog/1/comments']) expect((await c.get(path).set(bearer(token))).status, path).toBe(403);
+    for (const path of ['/api/CATALOG', '/api/catalog/', `/api/Parameter-Sets/${setId}/Export?format=csv`])
+      expect((await c.get(path).set(bearer(token))).status, path).toBe(200);
+    for (const path of ['/api/Tokens', '/api/tokens/', '/api/ME/preferences', `/api/parameter-sets/${setId}/`, '/api/catalog/1/comments'])
+      expect((await c.get(path).set(bearer(token))).status, path).toBe(403);
     expect((await c.head('/api/catalog').set(bearer(token))).status).toBe(200);
   });
 
@@ -159,10 +178,17 @@ describe('revoking', () => {
     expect(res.body).toMatchObject({ id: tokenId, active: false, revokedAt: expect.any(String) });
     expect((await t.client().get('/api/catalog').set(bearer(token))).status).toBe(401);
     expect((await consumer.delete(`/api/tokens/${tokenId}`)).status).toBe(200);
-    const audit = await t.ctx.db.selectFrom('auditEvent').select('action').where('targetType', '=', 'apiToken').where('targetId', '=', String(tokenId)).execute();
+    const audit = await t.ctx.db
+      .selectFrom('auditEvent')
+      .select('action')
+      .where('targetType', '=', 'apiToken')
+      .where('targetId', '=', String(tokenId))
+      .execute();
     expect(audit.map((a) => a.action).sort()).toEqual(['token.created', 'token.revoked']);
     // The database refuses to bring a revoked token back.
-    await expect(t.ctx.db.updateTable('apiToken').set({ revokedAt: null }).where('id', '=', tokenId).execute()).rejects.toThrow(/stays revoked/);
+    await expect(t.ctx.db.updateTable('apiToken').set({ revokedAt: null }).where('id', '=', tokenId).execute()).rejects.toThrow(
+      /stays revoked/,
+    );
   });
 
   it('a token of a deactivated person stops working', async () => {

@@ -18,14 +18,21 @@ describe('GET /api/admin/validation-suite', () => {
     const run = res.body as ValidationSuiteRun;
     expect(run.summary.total).toBe(REFERENCE_CHECKS.length);
     expect(run.checks.map((c) => c.id)).toEqual(REFERENCE_CHECKS.map((c) => c.id));
-    const failed = run.checks.filter((c) => !c.passed).map((c) => `${c.id}: ours ${c.ours}, reference ${c.reference} (${c.error ?? c.toleranceText})`);
+    const failed = run.checks
+      .filter((c) => !c.passed)
+      .map((c) => `${c.id}: ours ${c.ours}, reference ${c.reference} (${c.error ?? c.toleranceText})`);
     expect(failed).toEqual([]);
     expect(run.summary).toMatchObject({ passed: REFERENCE_CHECKS.length, failed: 0, testSuiteOnly: TEST_SUITE_ONLY_CHECKS.length });
     expect(run.codeVersion).toBe(t.ctx.codeVersion);
     expect(Date.parse(run.ranAt)).not.toBeNaN();
     // Each row carries what the page shows: source, reference, ours, the difference, tolerance and duration.
     const b2 = run.checks.find((c) => c.id === 'b2.hcb-table.t1')!;
-    expect(b2).toMatchObject({ area: 'B2', source: 'Hirschfelder, Curtiss & Bird 1954, Table I-B (from memory)', reference: -2.538, toleranceText: '± 0.0005' });
+    expect(b2).toMatchObject({
+      area: 'B2',
+      source: 'Hirschfelder, Curtiss & Bird 1954, Table I-B (from memory)',
+      reference: -2.538,
+      toleranceText: '± 0.0005',
+    });
     expect(b2.difference).toBeCloseTo((b2.ours as number) - b2.reference, 12);
     expect(b2.durationMs).toBeGreaterThanOrEqual(0);
     expect(run.testSuiteOnly.every((c) => c.why.startsWith('run in the test suite only (too slow for a page)'))).toBe(true);

@@ -21,7 +21,12 @@ beforeAll(async () => {
 afterAll(() => t.close());
 
 async function upload(kind: string, name: string, file: Buffer, filename: string) {
-  return modeller.post('/api/measurement-sets').field('substanceId', substanceId).field('kind', kind).field('name', name).attach('file', file, { filename, contentType: 'text/csv' });
+  return modeller
+    .post('/api/measurement-sets')
+    .field('substanceId', substanceId)
+    .field('kind', kind)
+    .field('name', name)
+    .attach('file', file, { filename, contentType: 'text/csv' });
 }
 
 describe('new measurement kinds over the API', () => {
@@ -45,9 +50,17 @@ describe('new measurement kinds over the API', () => {
   });
 
   it('uploads B3 and B12 tables, and refuses a B3 file in the wrong unit naming the column', async () => {
-    const b3 = await upload('b3', 'Invented B3', Buffer.from('T (K),B3 (cm6/mol2),u(B3) (cm6/mol2)\n200,2100,150\n300,1800,120\n'), 'b3.csv');
+    const b3 = await upload(
+      'b3',
+      'Invented B3',
+      Buffer.from('T (K),B3 (cm6/mol2),u(B3) (cm6/mol2)\n200,2100,150\n300,1800,120\n'),
+      'b3.csv',
+    );
     expect(b3.status).toBe(201);
-    expect((await modeller.get(`/api/measurement-sets/${b3.body.id}`)).body.rows[1]).toMatchObject({ b3Cm6PerMol2: 1800, uB3Cm6PerMol2: 120 });
+    expect((await modeller.get(`/api/measurement-sets/${b3.body.id}`)).body.rows[1]).toMatchObject({
+      b3Cm6PerMol2: 1800,
+      uB3Cm6PerMol2: 120,
+    });
     const b12 = await upload('b12', 'Invented B12', demoFile('quillgas-qg1-norrane-b12.csv'), 'b12.csv');
     expect(b12.status).toBe(201);
     const bad = await upload('b3', 'Wrong unit', Buffer.from('T (K),B3 (cm3/mol)\n200,2100\n'), 'bad.csv');
@@ -59,12 +72,17 @@ describe('new measurement kinds over the API', () => {
     const qg = (await modeller.get('/api/substances')).body.substances.find((s: { name: string }) => s.name === 'Quillgas QG-1');
     const list = await modeller.get(`/api/measurement-sets?substanceId=${qg.id}`);
     const kinds = list.body.measurementSets.map((d: { kind: string }) => d.kind);
-    expect(kinds).toEqual(expect.arrayContaining(['b2', 'viscosity', 'density', 'saturatedLiquidDensity', 'saturatedVapourDensity', 'vapourPressure', 'b12']));
+    expect(kinds).toEqual(
+      expect.arrayContaining(['b2', 'viscosity', 'density', 'saturatedLiquidDensity', 'saturatedVapourDensity', 'vapourPressure', 'b12']),
+    );
   });
 
   it('runs a joint B2 + VLE fit of the demo gas and recovers its hidden parameters', async () => {
     const qg = (await modeller.get('/api/substances')).body.substances.find((s: { name: string }) => s.name === 'Quillgas QG-1');
-    const list = (await modeller.get(`/api/measurement-sets?substanceId=${qg.id}`)).body.measurementSets as Array<{ id: number; kind: string }>;
+    const list = (await modeller.get(`/api/measurement-sets?substanceId=${qg.id}`)).body.measurementSets as Array<{
+      id: number;
+      kind: string;
+    }>;
     const pick = (k: string) => list.find((d) => d.kind === k)!.id;
     const res = await modeller.post('/api/fits').send({
       substanceId: qg.id,
@@ -88,8 +106,13 @@ describe('new measurement kinds over the API', () => {
 
   it('refuses a B12 set in a pure-substance fit', async () => {
     const qg = (await modeller.get('/api/substances')).body.substances.find((s: { name: string }) => s.name === 'Quillgas QG-1');
-    const list = (await modeller.get(`/api/measurement-sets?substanceId=${qg.id}`)).body.measurementSets as Array<{ id: number; kind: string }>;
-    const res = await modeller.post('/api/fits').send({ substanceId: qg.id, measurementSets: [{ id: list.find((d) => d.kind === 'b12')!.id }] });
+    const list = (await modeller.get(`/api/measurement-sets?substanceId=${qg.id}`)).body.measurementSets as Array<{
+      id: number;
+      kind: string;
+    }>;
+    const res = await modeller
+      .post('/api/fits')
+      .send({ substanceId: qg.id, measurementSets: [{ id: list.find((d) => d.kind === 'b12')!.id }] });
     expect(res.status).toBe(422);
     expect(res.body.error.code).toBe('kind_not_fittable');
   });

@@ -45,7 +45,10 @@ describe.skipIf(!available)('catalog in Chromium', () => {
     await page.reload();
     await page.getByText('Different scheme.').waitFor();
     await expect.poll(async () => (await page.getByTestId('card-epsilon').textContent()) ?? '').toMatch(/kJ\/mol$/);
-    await page.getByText(/not validated property data for pressure, safety or process design/).first().waitFor();
+    await page
+      .getByText(/not validated property data for pressure, safety or process design/)
+      .first()
+      .waitFor();
     await screenshot(page, 'catalog-card');
 
     // Two downloads: the file names and contents come from the server.

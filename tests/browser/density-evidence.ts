@@ -9,20 +9,33 @@ import { screenshot, signIn } from './harness';
 
 /** Σ(residual²) drawn in each (model − meas.)/u residual panel of a region of the page, in page order. */
 const residualSums = (page: Page, scope: string) =>
-  page.locator(`${scope} [data-residual-sum-squares][aria-label="Residuals: (model − meas.)/u"]`).evaluateAll((els) => els.map((e) => Number(e.getAttribute('data-residual-sum-squares'))));
+  page
+    .locator(`${scope} [data-residual-sum-squares][aria-label="Residuals: (model − meas.)/u"]`)
+    .evaluateAll((els) => els.map((e) => Number(e.getAttribute('data-residual-sum-squares'))));
 
 /** Everything behind a density fit must be on the page: both density plots, the simulation stage and profile χ². */
 export async function expectDensityEvidence(page: Page, where: string) {
   const evidence = page.getByTestId('fit-evidence');
   await evidence.getByRole('heading', { name: 'Fluid density against temperature, per isobar' }).waitFor();
-  for (const heading of ['Fluid density against pressure, per isotherm', 'Second virial coefficient', 'Simulation stage', 'Per measurement set']) {
+  for (const heading of [
+    'Fluid density against pressure, per isotherm',
+    'Second virial coefficient',
+    'Simulation stage',
+    'Per measurement set',
+  ]) {
     expect(await evidence.getByRole('heading', { name: heading }).count(), `${where}: ${heading}`).toBe(1);
   }
   expect(await evidence.getByRole('heading', { name: /Profile χ²/ }).count(), `${where}: profile χ²`).toBe(1);
-  expect(await evidence.getByRole('table', { name: 'Simulations behind the fit' }).getByRole('row').count(), `${where}: simulation runs`).toBeGreaterThan(8);
+  expect(
+    await evidence.getByRole('table', { name: 'Simulations behind the fit' }).getByRole('row').count(),
+    `${where}: simulation runs`,
+  ).toBeGreaterThan(8);
   expect(await evidence.getByRole('table', { name: 'Stages of the fit' }).count(), `${where}: stage table`).toBe(1);
   expect(await evidence.getByRole('img', { name: 'Residuals: deviation (%)' }).count(), `${where}: deviations in %`).toBe(1);
-  expect(await evidence.getByRole('img', { name: 'Residuals: (model − meas.)/u' }).count(), `${where}: residual axis`).toBeGreaterThanOrEqual(2);
+  expect(
+    await evidence.getByRole('img', { name: 'Residuals: (model − meas.)/u' }).count(),
+    `${where}: residual axis`,
+  ).toBeGreaterThanOrEqual(2);
 }
 
 /** On the page of a succeeded joint B2 + density fit: What if? names what its χ² is and redraws every residual panel. */
@@ -49,7 +62,10 @@ export async function expectDensityWhatIf(page: Page) {
 /** Drafts and submits a set from the fit, then shows the same evidence to the reviewer and, once approved, on the card. */
 export async function expectDensityEvidenceAtReviewAndCard(page: Page, url: string, fitId: number) {
   const headers = { Origin: url };
-  const drafted = await page.request.post(`${url}/api/parameter-sets`, { headers, data: { fitId, rationale: 'Joint B2 and liquid density fit for simulations with a 2.5 σ cutoff.' } });
+  const drafted = await page.request.post(`${url}/api/parameter-sets`, {
+    headers,
+    data: { fitId, rationale: 'Joint B2 and liquid density fit for simulations with a 2.5 σ cutoff.' },
+  });
   expect(drafted.status()).toBe(201);
   const setId = (await drafted.json()).id as number;
   expect((await page.request.post(`${url}/api/parameter-sets/${setId}/submit`, { headers })).status()).toBe(200);

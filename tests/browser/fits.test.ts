@@ -54,7 +54,8 @@ describe.skipIf(!available)('fits in Chromium', () => {
       await page.getByRole('link', { name: 'New fit' }).click();
       // B2 and densities only: untick every other set the form ticks by default.
       await page.getByLabel('Use QG-1 B2, Burnett runs 2026').waitFor();
-      for (const box of await page.getByRole('checkbox', { name: /^Use / }).all()) if ((await box.isEnabled()) && (await box.isChecked())) await box.uncheck();
+      for (const box of await page.getByRole('checkbox', { name: /^Use / }).all())
+        if ((await box.isEnabled()) && (await box.isChecked())) await box.uncheck();
       await page.getByLabel('Use QG-1 B2, Burnett runs 2026').check();
       await page.getByLabel('Use QG-1 liquid and supercritical densities').check();
       // Small, quick runs: this checks the flow; the physics has its own tests.
@@ -62,8 +63,16 @@ describe.skipIf(!available)('fits in Chromium', () => {
       await page.getByLabel('MD steps per run').fill('3000');
       await page.getByRole('button', { name: 'Run fit' }).click();
       await page.waitForURL(/\/fits\/\d+$/);
-      await page.getByRole('progressbar').or(page.getByText('Succeeded', { exact: true })).first().waitFor();
-      await page.getByText('Succeeded', { exact: true }).or(page.getByText('Failed', { exact: true })).first().waitFor({ timeout: 400_000 });
+      await page
+        .getByRole('progressbar')
+        .or(page.getByText('Succeeded', { exact: true }))
+        .first()
+        .waitFor();
+      await page
+        .getByText('Succeeded', { exact: true })
+        .or(page.getByText('Failed', { exact: true }))
+        .first()
+        .waitFor({ timeout: 400_000 });
       expect(await page.getByText('Succeeded', { exact: true }).count(), 'the joint fit succeeds').toBe(1);
     };
     await runJointFit();

@@ -13,7 +13,10 @@ async function json<T>(page: Page, url: string): Promise<T> {
 async function qg1(page: Page, url: string) {
   const { substances } = await json<{ substances: Array<{ id: number; name: string }> }>(page, `${url}/api/substances`);
   const substanceId = substances.find((s) => s.name === 'Quillgas QG-1')!.id;
-  const { measurementSets } = await json<{ measurementSets: Array<{ id: number; kind: string; name: string }> }>(page, `${url}/api/measurement-sets?substanceId=${substanceId}`);
+  const { measurementSets } = await json<{ measurementSets: Array<{ id: number; kind: string; name: string }> }>(
+    page,
+    `${url}/api/measurement-sets?substanceId=${substanceId}`,
+  );
   return { substanceId, b2: measurementSets.find((d) => d.kind === 'b2')! };
 }
 
@@ -29,7 +32,8 @@ describe.skipIf(!available)('what a fitter expects: hold, leave out, notices, ne
     await page.goto(`${app.url}/substances/${substanceId}/fits/new`);
     // Only the B2 set: untick every other set the form offers.
     await page.getByLabel(`Use ${b2.name}`).waitFor();
-    for (const box of await page.getByRole('checkbox', { name: /^Use / }).all()) if ((await box.isEnabled()) && (await box.isChecked())) await box.uncheck();
+    for (const box of await page.getByRole('checkbox', { name: /^Use / }).all())
+      if ((await box.isEnabled()) && (await box.isChecked())) await box.uncheck();
     await page.getByLabel(`Use ${b2.name}`).check();
     // Tick rows 1 and 2 of the B2 set out, with a reason.
     const b2Row = page.getByRole('row').filter({ has: page.getByLabel(`Use ${b2.name}`) });
@@ -50,17 +54,29 @@ describe.skipIf(!available)('what a fitter expects: hold, leave out, notices, ne
     expect((await page.getByTestId('sigma-value').textContent())!.trim()).toBe('3.5200 Å');
     expect(await page.getByText('held at this value').count()).toBe(1);
     // Left out: named with the reason; counted apart in the statistics; hollow in the plots and outside χ².
-    expect(await page.getByText('Left out of QG-1 B2, Burnett runs 2026 v1: rows 1, 2 — “Gauge drift in the first two runs”.').count()).toBe(1);
+    expect(
+      await page.getByText('Left out of QG-1 B2, Burnett runs 2026 v1: rows 1, 2 — “Gauge drift in the first two runs”.').count(),
+    ).toBe(1);
     expect(await page.getByText('(+2 left out)').count()).toBe(1);
     await page.getByText('open markers are points left out of the fit').first().waitFor();
-    const fit = await json<{ result: { chi2: number; dof: number; residuals: Array<{ excluded: boolean; residual: number }> } }>(page, `${app.url}/api/fits/${fitUrl.split('/').pop()}`);
+    const fit = await json<{ result: { chi2: number; dof: number; residuals: Array<{ excluded: boolean; residual: number }> } }>(
+      page,
+      `${app.url}/api/fits/${fitUrl.split('/').pop()}`,
+    );
     const counted = fit.result.residuals.filter((r) => !r.excluded).length;
     // One parameter fitted (σ held): dof = counted points − 1.
     expect(fit.result.dof).toBe(counted - 1);
-    const sums = await page.locator('[data-testid="fit-evidence"] [data-residual-sum-squares]').evaluateAll((els) => els.map((e) => Number(e.getAttribute('data-residual-sum-squares'))));
+    const sums = await page
+      .locator('[data-testid="fit-evidence"] [data-residual-sum-squares]')
+      .evaluateAll((els) => els.map((e) => Number(e.getAttribute('data-residual-sum-squares'))));
     const apiSum = fit.result.residuals.filter((r) => !r.excluded).reduce((a, r) => a + r.residual ** 2, 0);
-    expect(Math.abs(apiSum - fit.result.chi2) / fit.result.chi2, `Σ counted residuals² ${apiSum} against χ² ${fit.result.chi2}`).toBeLessThan(1e-9);
-    expect(Math.abs(sums[0] - fit.result.chi2) / fit.result.chi2, `the panel's Σ ${sums[0]} against χ² ${fit.result.chi2}`).toBeLessThan(1e-9);
+    expect(
+      Math.abs(apiSum - fit.result.chi2) / fit.result.chi2,
+      `Σ counted residuals² ${apiSum} against χ² ${fit.result.chi2}`,
+    ).toBeLessThan(1e-9);
+    expect(Math.abs(sums[0] - fit.result.chi2) / fit.result.chi2, `the panel's Σ ${sums[0]} against χ² ${fit.result.chi2}`).toBeLessThan(
+      1e-9,
+    );
     // Profile χ² of ε beside its linearised interval; σ is held.
     expect(await page.getByTestId('profile-interval-epsilonK').textContent()).toMatch(/\d+(\.\d+)? … \d+(\.\d+)? K/);
     expect(await page.getByTestId('profile-interval-sigmaAngstrom').textContent()).toBe('held');
@@ -91,8 +107,17 @@ describe.skipIf(!available)('what a fitter expects: hold, leave out, notices, ne
     const started = await page.request.post(`${app.url}/api/fits`, { headers, data: { substanceId, measurementSets: [{ id: b2.id }] } });
     expect(started.status()).toBe(202);
     const fitId = (await started.json()).id as number;
-    for (let i = 0; i < 120 && (await json<{ status: string }>(page, `${app.url}/api/fits/${fitId}`)).status !== 'succeeded'; i++) await page.waitForTimeout(500);
-    const drafted = await page.request.post(`${app.url}/api/parameter-sets`, { headers, data: { fitId, scheme: 'truncated-tail', cutoffSigma: 2.5, rationale: 'B2 fit for simulations truncated at 2.5 σ with tail corrections.' } });
+    for (let i = 0; i < 120 && (await json<{ status: string }>(page, `${app.url}/api/fits/${fitId}`)).status !== 'succeeded'; i++)
+      await page.waitForTimeout(500);
+    const drafted = await page.request.post(`${app.url}/api/parameter-sets`, {
+      headers,
+      data: {
+        fitId,
+        scheme: 'truncated-tail',
+        cutoffSigma: 2.5,
+        rationale: 'B2 fit for simulations truncated at 2.5 σ with tail corrections.',
+      },
+    });
     expect(drafted.status()).toBe(201);
     const setId = (await drafted.json()).id as number;
     // A draft of mine waits on the Workbench.
@@ -140,7 +165,15 @@ describe.skipIf(!available)('what a fitter expects: hold, leave out, notices, ne
     await page.getByRole('navigation', { name: 'Main' }).waitFor();
     const { substanceId } = await qg1(page, app.url);
     const csv = Buffer.from(['T (K),B2 (cm3/mol),u(B2) (cm3/mol)', '300,-20.1,0.5', '400,-5.2,0.5', '500,3.3,0.5'].join('\n'));
-    const upload = await page.request.post(`${app.url}/api/measurement-sets`, { headers: { Origin: app.url }, multipart: { substanceId: String(substanceId), kind: 'b2', name: 'QG-1 B2, uncited bench check', file: { name: 'b2.csv', mimeType: 'text/csv', buffer: csv } } });
+    const upload = await page.request.post(`${app.url}/api/measurement-sets`, {
+      headers: { Origin: app.url },
+      multipart: {
+        substanceId: String(substanceId),
+        kind: 'b2',
+        name: 'QG-1 B2, uncited bench check',
+        file: { name: 'b2.csv', mimeType: 'text/csv', buffer: csv },
+      },
+    });
     expect(upload.status()).toBe(201);
     expect(((await upload.json()) as { warnings: string[] }).warnings.length).toBeGreaterThan(0);
     await page.goto(`${app.url}/measurement-sets/${(await upload.json()).id}`);

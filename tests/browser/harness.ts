@@ -45,7 +45,16 @@ export async function openBrowser(): Promise<OpenBrowser> {
   const context = await chromium.launchPersistentContext(profile, {
     executablePath: findChromium(),
     viewport: { width: 1360, height: 900 },
-    args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+    args: [
+      '--headless',
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-quic',
+      '--no-first-run',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+    ],
   });
   return {
     context,

@@ -39,7 +39,10 @@ describe.skipIf(!available)('Simulations screen with worker processes', () => {
     await page.getByLabel('MD steps').fill('3000');
     await page.getByRole('button', { name: 'Run NPT simulation' }).click();
     // The notice follows the run (queued → running → finished); on a quiet machine the first state may already be gone.
-    await page.getByRole('status').getByText(/is queued|is running|has finished/).waitFor();
+    await page
+      .getByRole('status')
+      .getByText(/is queued|is running|has finished/)
+      .waitFor();
     await page.getByText(`ran on ${worker!.name}`).waitFor({ timeout: 60_000 });
     await screenshot(page, 'simulations-ran-on');
     await page.close();

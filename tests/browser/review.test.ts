@@ -26,7 +26,13 @@ async function succeededFit(page: Page, url: string): Promise<number> {
   substanceId = (await substance.json()).id;
   const upload = await page.request.post(`${url}/api/measurement-sets`, {
     headers,
-    multipart: { substanceId: String(substanceId), kind: 'b2', name: 'Reviewite B2', source: 'Fenwick Thermophysics Laboratory, invented run 31', file: { name: 'b2.csv', mimeType: 'text/csv', buffer: syntheticB2Csv() } },
+    multipart: {
+      substanceId: String(substanceId),
+      kind: 'b2',
+      name: 'Reviewite B2',
+      source: 'Fenwick Thermophysics Laboratory, invented run 31',
+      file: { name: 'b2.csv', mimeType: 'text/csv', buffer: syntheticB2Csv() },
+    },
   });
   expect(upload.status()).toBe(201);
   measurementSetId = (await upload.json()).id;
@@ -34,7 +40,10 @@ async function succeededFit(page: Page, url: string): Promise<number> {
 }
 
 async function fitOf(page: Page, url: string, measurementSet: { id: number; version?: number }): Promise<number> {
-  const fit = await page.request.post(`${url}/api/fits`, { headers: { Origin: url }, data: { substanceId, measurementSets: [measurementSet] } });
+  const fit = await page.request.post(`${url}/api/fits`, {
+    headers: { Origin: url },
+    data: { substanceId, measurementSets: [measurementSet] },
+  });
   expect(fit.status()).toBe(202);
   const fitId = (await fit.json()).id;
   for (let i = 0; i < 120; i++) {
@@ -69,7 +78,9 @@ describe.skipIf(!available)('parameter-set review in Chromium', () => {
     await page.getByRole('heading', { name: 'Reviewite v1' }).waitFor();
     const caution = page.getByRole('note');
     await caution.waitFor();
-    expect(await caution.textContent()).toContain('Fitted model parameters are not validated property data for pressure, safety or process design; defer to local codes and licensed engineering practice.');
+    expect(await caution.textContent()).toContain(
+      'Fitted model parameters are not validated property data for pressure, safety or process design; defer to local codes and licensed engineering practice.',
+    );
     await page.getByRole('button', { name: 'Submit for review' }).click();
     await page.getByRole('heading', { name: 'Actions' }).waitFor();
     await page.getByText('Nothing for you to do on this set now (In review).').waitFor();
@@ -92,7 +103,12 @@ describe.skipIf(!available)('parameter-set review in Chromium', () => {
     // Approved: the reviewer's only move left is to retire it with a reason.
     await page.getByLabel('Reason for retiring').waitFor();
     expect(await page.getByRole('button', { name: 'Approve' }).count()).toBe(0);
-    expect(await page.locator('header', { has: page.getByRole('heading', { name: 'Reviewite v1' }) }).getByText('Approved', { exact: true }).count()).toBe(1);
+    expect(
+      await page
+        .locator('header', { has: page.getByRole('heading', { name: 'Reviewite v1' }) })
+        .getByText('Approved', { exact: true })
+        .count(),
+    ).toBe(1);
     await page.getByText('Residuals flat, σ well determined; approved for full-potential use.').first().waitFor();
     await screenshot(page, 'parameter-set-approved');
 
@@ -119,10 +135,19 @@ describe.skipIf(!available)('parameter-set review in Chromium', () => {
     await page.getByRole('navigation', { name: 'Main' }).waitFor();
     const headers = { Origin: app.url };
     // A corrected table (every B2 value 1.5 cm³/mol higher) as version 2 of the measurement set, fitted again.
-    const v2data = await page.request.post(`${app.url}/api/measurement-sets/${measurementSetId}/versions`, { headers, multipart: { source: 'Fenwick Thermophysics Laboratory, invented run 31, recalibrated', file: { name: 'b2-v2.csv', mimeType: 'text/csv', buffer: syntheticB2Csv(1.5) } } });
+    const v2data = await page.request.post(`${app.url}/api/measurement-sets/${measurementSetId}/versions`, {
+      headers,
+      multipart: {
+        source: 'Fenwick Thermophysics Laboratory, invented run 31, recalibrated',
+        file: { name: 'b2-v2.csv', mimeType: 'text/csv', buffer: syntheticB2Csv(1.5) },
+      },
+    });
     expect(v2data.status()).toBe(201);
     const fitId = await fitOf(page, app.url, { id: measurementSetId, version: 2 });
-    const drafted = await page.request.post(`${app.url}/api/parameter-sets`, { headers, data: { fitId, rationale: 'Recalibrated B2 table.' } });
+    const drafted = await page.request.post(`${app.url}/api/parameter-sets`, {
+      headers,
+      data: { fitId, rationale: 'Recalibrated B2 table.' },
+    });
     expect(drafted.status()).toBe(201);
     const setId = (await drafted.json()).id;
     expect((await page.request.post(`${app.url}/api/parameter-sets/${setId}/submit`, { headers })).status()).toBe(200);
@@ -147,7 +172,9 @@ describe.skipIf(!available)('parameter-set review in Chromium', () => {
     await page.getByRole('navigation', { name: 'Main' }).waitFor();
     await page.goto(`${app.url}/parameter-sets/${setId}`);
     const revise = page.getByRole('form', { name: 'Draft a revision' });
-    await revise.getByLabel('Rationale of the revision').fill('Recalibrated B2 table: the pressure gauge offset moved every B2 by +1.5 cm³/mol, hence the lower ε.');
+    await revise
+      .getByLabel('Rationale of the revision')
+      .fill('Recalibrated B2 table: the pressure gauge offset moved every B2 by +1.5 cm³/mol, hence the lower ε.');
     await revise.getByRole('button', { name: 'Draft revision' }).click();
     await page.getByRole('heading', { name: 'Reviewite v3' }).waitFor();
     await page.getByRole('link', { name: 'the set sent back' }).waitFor();

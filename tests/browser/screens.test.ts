@@ -19,7 +19,8 @@ function watchConsole(page: Page) {
 }
 
 /** True when the document is no wider than the window (nothing scrolls sideways). */
-const fitsWidth = (page: Page) => page.evaluate(() => ({ scrollWidth: document.scrollingElement!.scrollWidth, innerWidth: window.innerWidth }));
+const fitsWidth = (page: Page) =>
+  page.evaluate(() => ({ scrollWidth: document.scrollingElement!.scrollWidth, innerWidth: window.innerWidth }));
 
 // Dates are written "2 Dec 2026, 05:58": never as 12/2/2026 (common practice, no source).
 const UNAMBIGUOUS = /\d{1,2} (Jan|Feb|Mar|Apr|May|Jun|Jul|Aug|Sep|Oct|Nov|Dec) \d{4}, \d{2}:\d{2}/;
@@ -48,7 +49,24 @@ describe.skipIf(!available)('screens on a phone and a wide screen', () => {
       await page.waitForLoadState('networkidle');
       expect(await menu.getAttribute('aria-expanded'), `${name}: the menu closes after a choice`).toBe('false');
       const { scrollWidth, innerWidth } = await fitsWidth(page);
-      if (scrollWidth > innerWidth) console.log('WIDE', name, await page.evaluate(() => [...document.querySelectorAll('main *')].filter((e) => e.getBoundingClientRect().right > window.innerWidth + 1 && ![...e.children].some((c) => c.getBoundingClientRect().right > window.innerWidth + 1)).slice(0, 8).map((e) => `${e.tagName}.${e.className.toString().slice(0, 60)} ${Math.round(e.getBoundingClientRect().right)} ${(e.textContent ?? '').slice(0, 40)}`)));
+      if (scrollWidth > innerWidth)
+        console.log(
+          'WIDE',
+          name,
+          await page.evaluate(() =>
+            [...document.querySelectorAll('main *')]
+              .filter(
+                (e) =>
+                  e.getBoundingClientRect().right > window.innerWidth + 1 &&
+                  ![...e.children].some((c) => c.getBoundingClientRect().right > window.innerWidth + 1),
+              )
+              .slice(0, 8)
+              .map(
+                (e) =>
+                  `${e.tagName}.${e.className.toString().slice(0, 60)} ${Math.round(e.getBoundingClientRect().right)} ${(e.textContent ?? '').slice(0, 40)}`,
+              ),
+          ),
+        );
       expect(scrollWidth, `${name} is ${scrollWidth} px wide in a ${innerWidth} px window`).toBeLessThanOrEqual(innerWidth);
       await screenshot(page, `phone-${name.toLowerCase().replace(/ /g, '-')}`);
     }
@@ -88,10 +106,16 @@ describe.skipIf(!available)('screens on a phone and a wide screen', () => {
     await page.setViewportSize({ width: 390, height: 844 });
     await signIn(page, app.url, 'modeller@demo.epsigma.test');
     await page.getByRole('heading', { name: /Good to see you/ }).waitFor();
-    const { substances } = (await (await page.request.get(`${app.url}/api/substances`)).json()) as { substances: Array<{ id: number; name: string }> };
+    const { substances } = (await (await page.request.get(`${app.url}/api/substances`)).json()) as {
+      substances: Array<{ id: number; name: string }>;
+    };
     const id = substances.find((x) => x.name === 'Quillgas QG-1')!.id;
-    const { fits } = (await (await page.request.get(`${app.url}/api/substances/${id}/fits`)).json()) as { fits: Array<{ id: number; status: string }> };
-    const { parameterSets } = (await (await page.request.get(`${app.url}/api/substances/${id}/parameter-sets`)).json()) as { parameterSets: Array<{ id: number }> };
+    const { fits } = (await (await page.request.get(`${app.url}/api/substances/${id}/fits`)).json()) as {
+      fits: Array<{ id: number; status: string }>;
+    };
+    const { parameterSets } = (await (await page.request.get(`${app.url}/api/substances/${id}/parameter-sets`)).json()) as {
+      parameterSets: Array<{ id: number }>;
+    };
     const pages: Array<[string, string]> = [
       ['substance', `/substances/${id}`],
       ['fits', `/substances/${id}/fits`],
@@ -106,7 +130,24 @@ describe.skipIf(!available)('screens on a phone and a wide screen', () => {
       await page.waitForLoadState('networkidle');
       await screenshot(page, `phone-${name}`);
       const { scrollWidth, innerWidth } = await fitsWidth(page);
-      if (scrollWidth > innerWidth) console.log('WIDE', name, await page.evaluate(() => [...document.querySelectorAll('main *')].filter((e) => e.getBoundingClientRect().right > window.innerWidth + 1 && ![...e.children].some((c) => c.getBoundingClientRect().right > window.innerWidth + 1)).slice(0, 8).map((e) => `${e.tagName}.${e.className.toString().slice(0, 60)} ${Math.round(e.getBoundingClientRect().right)} ${(e.textContent ?? '').slice(0, 40)}`)));
+      if (scrollWidth > innerWidth)
+        console.log(
+          'WIDE',
+          name,
+          await page.evaluate(() =>
+            [...document.querySelectorAll('main *')]
+              .filter(
+                (e) =>
+                  e.getBoundingClientRect().right > window.innerWidth + 1 &&
+                  ![...e.children].some((c) => c.getBoundingClientRect().right > window.innerWidth + 1),
+              )
+              .slice(0, 8)
+              .map(
+                (e) =>
+                  `${e.tagName}.${e.className.toString().slice(0, 60)} ${Math.round(e.getBoundingClientRect().right)} ${(e.textContent ?? '').slice(0, 40)}`,
+              ),
+          ),
+        );
       expect(scrollWidth, `${name} is ${scrollWidth} px wide in a ${innerWidth} px window`).toBeLessThanOrEqual(innerWidth);
     }
     await page.close();
@@ -163,7 +204,10 @@ describe.skipIf(!available)('screens on a phone and a wide screen', () => {
     await page.locator('a[href^="/catalog/"]').first().click();
     const panel = page.locator('section').filter({ has: page.getByRole('heading', { name: 'Data and model' }) });
     await panel.locator('canvas').first().waitFor();
-    const [panelWidth, canvasWidth] = await panel.evaluate((el) => [el.getBoundingClientRect().width, el.querySelector('canvas')!.getBoundingClientRect().width]);
+    const [panelWidth, canvasWidth] = await panel.evaluate((el) => [
+      el.getBoundingClientRect().width,
+      el.querySelector('canvas')!.getBoundingClientRect().width,
+    ]);
     expect(canvasWidth / panelWidth, `plot ${canvasWidth} px in a ${panelWidth} px card`).toBeGreaterThan(0.85);
     await screenshot(page, 'wide-catalog-card');
     await page.close();

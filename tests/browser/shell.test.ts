@@ -8,7 +8,11 @@ const NAVIGATION: Record<string, { email: string; sees: string[]; doesNotSee: st
   admin: { email: 'admin@demo.epsigma.test', sees: ['Workbench', 'People'], doesNotSee: ['Review desk'] },
   modeller: { email: 'modeller@demo.epsigma.test', sees: ['Workbench', 'Substances'], doesNotSee: ['People', 'Review desk'] },
   reviewer: { email: 'reviewer@demo.epsigma.test', sees: ['Workbench', 'Substances', 'Review desk'], doesNotSee: ['People'] },
-  consumer: { email: 'consumer@demo.epsigma.test', sees: ['Workbench', 'Catalog', 'Mixtures'], doesNotSee: ['People', 'Substances', 'Review desk'] },
+  consumer: {
+    email: 'consumer@demo.epsigma.test',
+    sees: ['Workbench', 'Catalog', 'Mixtures'],
+    doesNotSee: ['People', 'Substances', 'Review desk'],
+  },
 };
 
 describe.skipIf(!available)('app shell in Chromium', () => {

@@ -14,7 +14,12 @@ describe.skipIf(!available)('VLE, B12 and pair sets in Chromium', () => {
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Substances' }).click();
     await page.getByRole('link', { name: 'Quillgas QG-1' }).click();
     // The demo seeds the three saturation sets and the B12 set of the QG-1 + norrane pair.
-    for (const name of ['QG-1 saturated liquid density, VLE cell', 'QG-1 saturated vapour density, VLE cell', 'QG-1 vapour pressure, VLE cell', 'QG-1 + norrane cross B2 (B12)']) {
+    for (const name of [
+      'QG-1 saturated liquid density, VLE cell',
+      'QG-1 saturated vapour density, VLE cell',
+      'QG-1 vapour pressure, VLE cell',
+      'QG-1 + norrane cross B2 (B12)',
+    ]) {
       await page.getByRole('link', { name }).first().waitFor();
     }
     await page.getByRole('link', { name: 'Upload measurements' }).click();
@@ -68,21 +73,36 @@ describe.skipIf(!available)('VLE, B12 and pair sets in Chromium', () => {
     await pick('#pair-set-b', 'Norrane');
     await pick('#pair-set-data', 'QG-1 + norrane cross B2 (B12)');
     await page.getByRole('button', { name: 'Fit k_ij and send to review' }).click();
-    await page.getByRole('status').filter({ hasText: /Pair set #\d+ fitted: k_ij = / }).waitFor();
+    await page
+      .getByRole('status')
+      .filter({ hasText: /Pair set #\d+ fitted: k_ij = / })
+      .waitFor();
     await page.getByRole('table', { name: 'Pair sets' }).getByText('In review').waitFor();
     await screenshot(page, 'pair-set-submitted');
 
     await signIn(page, app.url, 'reviewer@demo.epsigma.test');
     await page.getByRole('navigation', { name: 'Main' }).waitFor();
     await page.goto(`${app.url}/pair-sets`);
-    await page.getByLabel(/Comment on pair set/).first().fill('B12 residuals within their uncertainty.');
-    await page.getByRole('button', { name: /Approve pair set/ }).first().click();
+    await page
+      .getByLabel(/Comment on pair set/)
+      .first()
+      .fill('B12 residuals within their uncertainty.');
+    await page
+      .getByRole('button', { name: /Approve pair set/ })
+      .first()
+      .click();
     await page.getByRole('table', { name: 'Pair sets' }).getByText('Approved', { exact: true }).waitFor();
 
     await page.goto(`${app.url}/mixtures`);
-    await page.getByLabel(/Quillgas QG-1 v/).first().check();
+    await page
+      .getByLabel(/Quillgas QG-1 v/)
+      .first()
+      .check();
     await page.waitForURL(/sets=\d+/); // the picks live in the address: let the first one land before the second
-    await page.getByLabel(/Norrane v/).first().check();
+    await page
+      .getByLabel(/Norrane v/)
+      .first()
+      .check();
     const table = page.getByRole('table', { name: 'Mixture pairs' });
     await table.getByText(/Fitted pair set #\d+/).waitFor();
     expect(await table.getByText(/estimate/).count()).toBe(0);

@@ -21,13 +21,28 @@ export interface RunningApp {
  * Starts the real server entry point (server/index.ts) on a random port. With `dir`, the database in that
  * folder is used and kept (for restart tests); otherwise a fresh folder is made and removed on stop.
  */
-export async function startApp(extraEnv: Record<string, string> = {}, options: { dir?: string; requireClient?: boolean } = {}): Promise<RunningApp> {
-  if ((options.requireClient ?? true) && !existsSync(path.join(root, 'dist', 'client', 'index.html'))) throw new Error('The client is not built: run `vite build` first (npm test does).');
+export async function startApp(
+  extraEnv: Record<string, string> = {},
+  options: { dir?: string; requireClient?: boolean } = {},
+): Promise<RunningApp> {
+  if ((options.requireClient ?? true) && !existsSync(path.join(root, 'dist', 'client', 'index.html')))
+    throw new Error('The client is not built: run `vite build` first (npm test does).');
   const dir = options.dir ?? mkdtempSync(path.join(tmpdir(), 'epsigma-app-'));
   let output = '';
   const child: ChildProcess = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
     cwd: root,
-    env: { ...process.env, NODE_ENV: 'production', PORT: '0', HOST: '127.0.0.1', DATABASE_PATH: path.join(dir, 'app.sqlite'), DEMO_PASSWORD, LOG_REQUESTS: '0', WORKERS: '1', CHECK_RESPONSES: '1', ...extraEnv },
+    env: {
+      ...process.env,
+      NODE_ENV: 'production',
+      PORT: '0',
+      HOST: '127.0.0.1',
+      DATABASE_PATH: path.join(dir, 'app.sqlite'),
+      DEMO_PASSWORD,
+      LOG_REQUESTS: '0',
+      WORKERS: '1',
+      CHECK_RESPONSES: '1',
+      ...extraEnv,
+    },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
   const url = await new Promise<string>((resolve, reject) => {

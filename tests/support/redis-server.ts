@@ -59,7 +59,26 @@ export async function startRedis(): Promise<TestRedis> {
   const url = `redis://127.0.0.1:${port}`;
   let child: ChildProcess;
   const launch = async () => {
-    child = spawn(REDIS_SERVER, ['--port', String(port), '--bind', '127.0.0.1', '--save', '', '--appendonly', 'yes', '--appendfsync', 'always', '--maxmemory-policy', 'noeviction', '--dir', dir], { stdio: 'ignore' });
+    child = spawn(
+      REDIS_SERVER,
+      [
+        '--port',
+        String(port),
+        '--bind',
+        '127.0.0.1',
+        '--save',
+        '',
+        '--appendonly',
+        'yes',
+        '--appendfsync',
+        'always',
+        '--maxmemory-policy',
+        'noeviction',
+        '--dir',
+        dir,
+      ],
+      { stdio: 'ignore' },
+    );
     await waitForPing(url);
   };
   const kill = async () => {

@@ -9,7 +9,9 @@ describe('cli b3', () => {
   it('prints B3/b0² per reduced temperature, and cm6/mol2 when given ε and σ', async () => {
     const out = await runCli(['b3', '--reduced-temperatures', '1,2', '--epsilon-k', '150', '--sigma-angstrom', '3.8', '--json']);
     expect(out.code).toBe(0);
-    const json = JSON.parse(out.stdout) as { rows: Array<{ reducedTemperature: number; b3Reduced: number; temperatureK: number; b3Cm6PerMol2: number }> };
+    const json = JSON.parse(out.stdout) as {
+      rows: Array<{ reducedTemperature: number; b3Reduced: number; temperatureK: number; b3Cm6PerMol2: number }>;
+    };
     expect(json.rows.map((r) => r.reducedTemperature)).toEqual([1, 2]);
     // Hirschfelder, Curtiss & Bird 1954, Table I-C: C*(1.00) = 0.4297 (from memory): registry entry b3.hcb-table.t1.
     expectWithinReference(json.rows[0].b3Reduced, referenceCheckById('b3.hcb-table.t1'));

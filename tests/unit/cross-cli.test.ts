@@ -12,11 +12,21 @@ describe('cli cross', () => {
     const b = { epsilonK: 231, sigmaAngstrom: 4.32 };
     const dir = mkdtempSync(join(tmpdir(), 'epsigma-cross-'));
     const file = join(dir, 'b12.csv');
-    const lines = ['T (K),B12 (cm3/mol),u(B12) (cm3/mol)', ...[200, 250, 300, 400, 550].map((t) => `${t},${crossB2(t, a, b, 0.04).toFixed(6)},2`)];
+    const lines = [
+      'T (K),B12 (cm3/mol),u(B12) (cm3/mol)',
+      ...[200, 250, 300, 400, 550].map((t) => `${t},${crossB2(t, a, b, 0.04).toFixed(6)},2`),
+    ];
     writeFileSync(file, lines.join('\n'));
     const out = await runCli(['cross', '--pure', '152.4,3.71,0.8,0.006,-0.9', '--pure', '231,4.32,1.2,0.009', '--data', file, '--json']);
     expect(out.code).toBe(0);
-    const json = JSON.parse(out.stdout) as { kij: number; kijStdErr: number; kijStdErrPure: number; epsilon12K: number; sigma12Angstrom: number; lij: null };
+    const json = JSON.parse(out.stdout) as {
+      kij: number;
+      kijStdErr: number;
+      kijStdErrPure: number;
+      epsilon12K: number;
+      sigma12Angstrom: number;
+      lij: null;
+    };
     expect(json.kij).toBeCloseTo(0.04, 5);
     expect(json.kijStdErrPure).toBeGreaterThan(0);
     expect(json.kijStdErr).toBeGreaterThanOrEqual(json.kijStdErrPure);

@@ -12,7 +12,18 @@ describe('cli eos', () => {
     const out = await cli('eos', '--reduced-temperature', '1.0', '--reduced-pressure', '0.1', '--json');
     expect(out.code).toBe(0);
     const json = JSON.parse(out.stdout) as Record<string, unknown>;
-    expect(Object.keys(json).sort()).toEqual(['chosenRoot', 'dRhoDP', 'dRhoDT', 'model', 'note', 'phase', 'reducedDensity', 'roots', 'source', 'stablePhase']);
+    expect(Object.keys(json).sort()).toEqual([
+      'chosenRoot',
+      'dRhoDP',
+      'dRhoDT',
+      'model',
+      'note',
+      'phase',
+      'reducedDensity',
+      'roots',
+      'source',
+      'stablePhase',
+    ]);
     expect(json.phase).toBe('liquid');
     expect(json.model).toBe('thol2016');
     expect(json.source).toBe(THOL_2016_SOURCE);
@@ -32,20 +43,31 @@ describe('cli eos', () => {
   it('answers the stable vapour at T* = 0.9, P* = 0.01 and says so; --prefer liquid gives the metastable liquid', async () => {
     // p*sat(0.9) ≈ 0.0118 (Thol 2016 equation; NIST SRSW TMMC ≈ 0.0117, from memory), so P* = 0.01 is a stable vapour.
     const out = await cli('eos', '--reduced-temperature', '0.9', '--reduced-pressure', '0.01', '--json');
-    const json = JSON.parse(out.stdout) as { reducedDensity: number; phase: string; chosenRoot: string; stablePhase: string; roots: number[]; note: string };
+    const json = JSON.parse(out.stdout) as {
+      reducedDensity: number;
+      phase: string;
+      chosenRoot: string;
+      stablePhase: string;
+      roots: number[];
+      note: string;
+    };
     expect(json.phase).toBe('vapour');
     expect(json.chosenRoot).toBe('stable');
     expect(json.roots).toHaveLength(2);
     expect(json.reducedDensity).toBe(json.roots[0]);
     expect(json.note).toMatch(/liquid root is metastable/);
-    const liquid = JSON.parse((await cli('eos', '--reduced-temperature', '0.9', '--reduced-pressure', '0.01', '--prefer', 'liquid')).stdout) as typeof json;
+    const liquid = JSON.parse(
+      (await cli('eos', '--reduced-temperature', '0.9', '--reduced-pressure', '0.01', '--prefer', 'liquid')).stdout,
+    ) as typeof json;
     expect(liquid.phase).toBe('liquid');
     expect(liquid.chosenRoot).toBe('liquid');
     expect(liquid.stablePhase).toBe('vapour');
   });
 
   it('keeps JZG 1993 selectable', async () => {
-    const json = JSON.parse((await cli('eos', '--reduced-temperature', '1.0', '--reduced-pressure', '0.1', '--model', 'jzg1993')).stdout) as { reducedDensity: number; source: string };
+    const json = JSON.parse(
+      (await cli('eos', '--reduced-temperature', '1.0', '--reduced-pressure', '0.1', '--model', 'jzg1993')).stdout,
+    ) as { reducedDensity: number; source: string };
     expect(json.source).toBe(LJ_EOS_SOURCE);
     expect(Math.abs(ljEosPressure(json.reducedDensity, 1.0) - 0.1)).toBeLessThan(1e-11);
   });

@@ -22,19 +22,51 @@ function writeCsv(name: string, text: string): string {
 // smoothed from Dymond & Smith (1980); retrieved with the search tool. Uncertainty: 2 cm³/mol or 2 %, our assumption.
 const ARGON_B2_CSV = [
   'T (K),B2 (cm3/mol),u(B2) (cm3/mol)',
-  ...[[100, -184], [120, -131], [140, -98], [160, -76], [180, -60], [200, -48], [300, -16], [400, -1], [500, 7], [600, 12], [700, 15], [800, 18], [900, 20], [1000, 22]].map(
-    ([t, b]) => `${t},${b},${Math.max(2, 0.02 * Math.abs(b))}`,
-  ),
+  ...[
+    [100, -184],
+    [120, -131],
+    [140, -98],
+    [160, -76],
+    [180, -60],
+    [200, -48],
+    [300, -16],
+    [400, -1],
+    [500, 7],
+    [600, 12],
+    [700, 15],
+    [800, 18],
+    [900, 20],
+    [1000, 22],
+  ].map(([t, b]) => `${t},${b},${Math.max(2, 0.02 * Math.abs(b))}`),
 ].join('\n');
 
 // Argon low-pressure viscosity, µPa·s: CRC Handbook of Chemistry and Physics, "Viscosity of Gases" (low-pressure
 // limiting values); retrieved with the search tool. The table quotes uncertainties "usually less than 3 %"; we use 1 %.
 const ARGON_ETA_CSV = [
   'T (K),eta (uPa s),u(eta) (uPa s)',
-  ...[[200, 15.9], [300, 22.7], [400, 28.6], [500, 33.9], [600, 38.8]].map(([t, eta]) => `${t},${eta},${(0.01 * eta).toFixed(3)}`),
+  ...[
+    [200, 15.9],
+    [300, 22.7],
+    [400, 28.6],
+    [500, 33.9],
+    [600, 38.8],
+  ].map(([t, eta]) => `${t},${eta},${(0.01 * eta).toFixed(3)}`),
 ].join('\n');
 
-const EXPECTED_KEYS = ['chi2', 'convergence', 'correlation', 'deBoerParameter', 'deBoerParameterStdErr', 'dof', 'epsilonK', 'reducedChi2', 'sigmaAngstrom', 'status', 'stdErr', 'warnings'];
+const EXPECTED_KEYS = [
+  'chi2',
+  'convergence',
+  'correlation',
+  'deBoerParameter',
+  'deBoerParameterStdErr',
+  'dof',
+  'epsilonK',
+  'reducedChi2',
+  'sigmaAngstrom',
+  'status',
+  'stdErr',
+  'warnings',
+];
 
 describe('cli fit', () => {
   it('fits argon B2 from an upload-format CSV and prints the documented JSON', async () => {
@@ -60,9 +92,12 @@ describe('cli fit', () => {
   it('fits argon B2 and viscosity together with --molar-mass', async () => {
     const out = await cli(
       'fit',
-      '--data', writeCsv('argon-b2-joint.csv', ARGON_B2_CSV),
-      '--data', writeCsv('argon-eta.csv', ARGON_ETA_CSV),
-      '--molar-mass', '39.948',
+      '--data',
+      writeCsv('argon-b2-joint.csv', ARGON_B2_CSV),
+      '--data',
+      writeCsv('argon-eta.csv', ARGON_ETA_CSV),
+      '--molar-mass',
+      '39.948',
       '--json',
     );
     expect(out.code).toBe(0);
@@ -109,7 +144,10 @@ describe('cli fit (in-process)', () => {
     [['--data', 'B2', '--restarts', '1.5'], '--restarts must be a non-negative integer, got "1.5"'],
     [['--data', 'BAD'], 'Cannot tell which property the file holds'],
     [['--data', 'B2', '--frobnicate'], "Unknown option '--frobnicate'"],
-    [['--data', 'fixtures/demo/quillgas-qg1-density.csv', '--molar-mass', '28', '--model', 'mie', '--repulsive-exponent', '16'], 'the command line runs density fits with LJ 12-6 only'],
+    [
+      ['--data', 'fixtures/demo/quillgas-qg1-density.csv', '--molar-mass', '28', '--model', 'mie', '--repulsive-exponent', '16'],
+      'the command line runs density fits with LJ 12-6 only',
+    ],
   ])('rejects bad input with a message (%#)', async (args, message) => {
     const files: Record<string, string> = {
       B2: writeCsv('b2.csv', ARGON_B2_CSV),

@@ -7,8 +7,22 @@ const cli = (...args: string[]): Promise<CliOutcome> => runCli(args, 120_000);
 describe('cli md', () => {
   it('prints an NPT result as JSON with the contract fields and the settings echoed', async () => {
     const out = await cli(
-      'md', '--reduced-temperature', '2.0', '--reduced-pressure', '5.0', '--atoms', '256', '--steps', '4000',
-      '--cutoff', '2.5', '--scheme', 'truncated-tail', '--seed', '4', '--json',
+      'md',
+      '--reduced-temperature',
+      '2.0',
+      '--reduced-pressure',
+      '5.0',
+      '--atoms',
+      '256',
+      '--steps',
+      '4000',
+      '--cutoff',
+      '2.5',
+      '--scheme',
+      'truncated-tail',
+      '--seed',
+      '4',
+      '--json',
     );
     expect(out.stderr).toBe('');
     expect(out.code).toBe(0);
@@ -20,7 +34,15 @@ describe('cli md', () => {
     expect(json.effectiveSamples).toBeGreaterThan(0);
     expect(json.statisticalInefficiency).toBeGreaterThanOrEqual(1);
     expect(json.startedFrom).toBe('melted-lattice');
-    expect(json.settings).toMatchObject({ reducedTemperature: 2, reducedPressure: 5, atoms: 256, steps: 4000, cutoff: 2.5, scheme: 'truncated-tail', seed: 4 });
+    expect(json.settings).toMatchObject({
+      reducedTemperature: 2,
+      reducedPressure: 5,
+      atoms: 256,
+      steps: 4000,
+      cutoff: 2.5,
+      scheme: 'truncated-tail',
+      seed: 4,
+    });
     expect(json.phase).toBe('fluid');
     // Supercritical fluid: JZG 1993 EOS density at T* = 2, P* = 5; a short run, so 3 % tolerance.
     const eos = ljEosDensity(2, 5).reducedDensity;

@@ -72,17 +72,29 @@ describe('cli collision', () => {
 
 describe('cli viscosity', () => {
   it('prints viscosity rows for argon matching the library, with the correction statement', async () => {
-    const out = await cli('viscosity', '--epsilon-k', '122.4', '--sigma-angstrom', '3.432', '--molar-mass', '39.948', '--temperatures', '300,500', '--json');
+    const out = await cli(
+      'viscosity',
+      '--epsilon-k',
+      '122.4',
+      '--sigma-angstrom',
+      '3.432',
+      '--molar-mass',
+      '39.948',
+      '--temperatures',
+      '300,500',
+      '--json',
+    );
     expect(out.code).toBe(0);
     const json = JSON.parse(out.stdout) as { rows: { temperatureK: number; viscosityMicroPaS: number }[]; higherOrderCorrection: string };
     expect(json.rows.map((r) => Object.keys(r).sort())).toEqual(Array(2).fill(['temperatureK', 'viscosityMicroPaS']));
-    for (const r of json.rows) expect(r.viscosityMicroPaS).toBe(viscosityWithGradient(r.temperatureK, 122.4, 3.432, 39.948).viscosityMicroPaS);
+    for (const r of json.rows)
+      expect(r.viscosityMicroPaS).toBe(viscosityWithGradient(r.temperatureK, 122.4, 3.432, 39.948).viscosityMicroPaS);
     // measured argon: 22.7 µPa·s at 300 K (Lemmon & Jacobsen 2004, from memory): registry entry viscosity.argon-300.
     expectWithinReference(json.rows[0].viscosityMicroPaS, referenceCheckById('viscosity.argon-300'));
     expect(json.higherOrderCorrection).toBe('none (first Chapman–Enskog approximation)');
   });
 
-  it('applies Kihara\'s factor with --higher-order-correction kihara and rejects other values', async () => {
+  it("applies Kihara's factor with --higher-order-correction kihara and rejects other values", async () => {
     const args = ['--epsilon-k', '122.4', '--sigma-angstrom', '3.432', '--molar-mass', '39.948', '--temperatures', '1500'];
     const out = await cli('viscosity', ...args, '--higher-order-correction', 'kihara', '--json');
     expect(out.code).toBe(0);

@@ -26,7 +26,11 @@ export function authRoutes(ctx: AppContext): Router {
     const waitSeconds = await limiter.begin(key);
     if (waitSeconds > 0) {
       res.set('Retry-After', String(waitSeconds));
-      throw new AppError(429, 'too_many_attempts', `Too many failed sign-ins for this address. Wait ${Math.ceil(waitSeconds / 60)} minute${waitSeconds > 60 ? 's' : ''} and try again.`);
+      throw new AppError(
+        429,
+        'too_many_attempts',
+        `Too many failed sign-ins for this address. Wait ${Math.ceil(waitSeconds / 60)} minute${waitSeconds > 60 ? 's' : ''} and try again.`,
+      );
     }
     const user = await findPersonByEmail(db, body.email);
     let ok = false;
@@ -72,7 +76,13 @@ export function authRoutes(ctx: AppContext): Router {
     const passwordHash = await hashPassword(body.newPassword);
     await db.transaction().execute(async (tx) => {
       await tx.updateTable('user').set({ passwordHash }).where('id', '=', me.id).execute();
-      await recordAudit(tx, { actor: me, action: 'user.password_changed', targetType: 'user', targetId: me.id, summary: `${me.email} changed their password` });
+      await recordAudit(tx, {
+        actor: me,
+        action: 'user.password_changed',
+        targetType: 'user',
+        targetId: me.id,
+        summary: `${me.email} changed their password`,
+      });
     });
     // Other sessions of this user end; this one stays.
     await db.deleteFrom('session').where('userId', '=', me.id).where('id', '!=', sessionIdHash(res.locals.session!.id)).execute();

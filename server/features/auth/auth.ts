@@ -61,7 +61,12 @@ export class HashedSessionStore implements Adapter {
   }
   async getUserSessions(userId: string): Promise<DatabaseSession[]> {
     // Only hashes are stored: these ids cannot open a session.
-    return (this.byUser.all(userId) as Array<{ id: string; expiresAt: number; userId: string }>).map((r) => ({ id: r.id, userId: r.userId, expiresAt: new Date(r.expiresAt * 1000), attributes: {} }));
+    return (this.byUser.all(userId) as Array<{ id: string; expiresAt: number; userId: string }>).map((r) => ({
+      id: r.id,
+      userId: r.userId,
+      expiresAt: new Date(r.expiresAt * 1000),
+      attributes: {},
+    }));
   }
   async setSession(session: DatabaseSession): Promise<void> {
     this.insert.run(sessionIdHash(session.id), Math.floor(session.expiresAt.getTime() / 1000), session.userId);

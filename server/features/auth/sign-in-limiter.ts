@@ -29,7 +29,10 @@ export function signInLimiter(db: Db, limit: number) {
           .limit(limit)
           .execute();
         if (rows.length >= limit) return Math.max(1, Math.ceil((rows[rows.length - 1].atMs + SIGN_IN_WINDOW_MS - nowMs) / 1000));
-        await tx.deleteFrom('signInFailure').where('atMs', '<=', nowMs - SIGN_IN_WINDOW_MS).execute();
+        await tx
+          .deleteFrom('signInFailure')
+          .where('atMs', '<=', nowMs - SIGN_IN_WINDOW_MS)
+          .execute();
         await tx.insertInto('signInFailure').values({ key, atMs: nowMs }).execute();
         return 0;
       });

@@ -1,6 +1,13 @@
 import { type CombiningRule, COMBINING_RULE_INFO, mixtureTable } from '../../../shared/mixing/combining-rules';
 import { commonValidity, ExportError, mixtureCutoff } from '../../../shared/export/export-common';
-import { exportMixture, exportOptionsFromQuery, exportParameterSet, type ExportableParameterSet, type ExportFormat, type ExportResult } from '../../../shared/export/parameter-set-export';
+import {
+  exportMixture,
+  exportOptionsFromQuery,
+  exportParameterSet,
+  type ExportableParameterSet,
+  type ExportFormat,
+  type ExportResult,
+} from '../../../shared/export/parameter-set-export';
 import { isVisibleTo, PUBLISHED_STATES, STATE_LABELS, type ParameterSetState } from '../../../shared/parameter-sets/transitions';
 import type { CatalogEntry, MixtureAnswer, ParameterCard } from '../../../shared/contracts/catalog';
 import type { PropertyKind } from '../../../shared/measurements/property-kinds';
@@ -38,7 +45,10 @@ function matchesQuery(e: CatalogEntry, query: CatalogQuery): boolean {
 /** Every current approved set as the catalog lists it: two queries, whatever the number of sets. */
 async function loadCatalogEntries(db: Db): Promise<CatalogEntry[]> {
   const rows = await listCatalogRows(db, ['approved']);
-  const approvalsById = await approvals(db, rows.map((r) => r.approveTransitionId).filter((x): x is number => x != null));
+  const approvalsById = await approvals(
+    db,
+    rows.map((r) => r.approveTransitionId).filter((x): x is number => x != null),
+  );
   return rows.map((r) => toCatalogEntryView(r, r.approveTransitionId != null ? approvalsById.get(r.approveTransitionId) : undefined));
 }
 
@@ -101,7 +111,13 @@ export async function parameterCard(db: Db, id: number, viewer: CurrentUser): Pr
     exportable: EXPORTABLE_STATES.includes(row.state),
     currentApprovedId: current?.id ?? null,
     // Oldest first; each version's change is against the published version before it.
-    versions: versions.map((v, k) => toParameterCardVersionView(v, k > 0 ? versions[k - 1] : null, v.approveTransitionId != null ? approvalsById.get(v.approveTransitionId) : undefined)),
+    versions: versions.map((v, k) =>
+      toParameterCardVersionView(
+        v,
+        k > 0 ? versions[k - 1] : null,
+        v.approveTransitionId != null ? approvalsById.get(v.approveTransitionId) : undefined,
+      ),
+    ),
   };
 }
 
@@ -113,10 +129,19 @@ export async function exportableSet(db: Db, id: number, viewer: CurrentUser, fie
   const row = await findCatalogRow(db, id);
   if (!row || !isVisibleTo(row.state, viewer.roles)) throw notFound(`Parameter set ${id}`);
   if (!EXPORTABLE_STATES.includes(row.state)) {
-    throw new AppError(409, 'not_exportable', `Parameter set ${id} is ${STATE_LABELS[row.state]}; only approved and superseded sets are exported.`, [{ field, message: `set ${id} is ${row.state}` }]);
+    throw new AppError(
+      409,
+      'not_exportable',
+      `Parameter set ${id} is ${STATE_LABELS[row.state]}; only approved and superseded sets are exported.`,
+      [{ field, message: `set ${id} is ${row.state}` }],
+    );
   }
-  const sources = await versionSources(db, readMeasurementSetRefs(row.measurementSetsJson).map((r) => r.versionId));
-  const approval = row.approveTransitionId != null ? (await approvals(db, [row.approveTransitionId])).get(row.approveTransitionId) : undefined;
+  const sources = await versionSources(
+    db,
+    readMeasurementSetRefs(row.measurementSetsJson).map((r) => r.versionId),
+  );
+  const approval =
+    row.approveTransitionId != null ? (await approvals(db, [row.approveTransitionId])).get(row.approveTransitionId) : undefined;
   return toExportableParameterSet(row, approval, sources);
 }
 
@@ -125,7 +150,10 @@ export function runExport(fn: () => ExportResult, field: string): ExportResult {
   try {
     return fn();
   } catch (err) {
-    if (err instanceof ExportError) throw new AppError(400, err.code.replace(/-/g, '_'), err.message, [{ field: err.code === 'unknown-unit' ? 'units' : field, message: err.message }]);
+    if (err instanceof ExportError)
+      throw new AppError(400, err.code.replace(/-/g, '_'), err.message, [
+        { field: err.code === 'unknown-unit' ? 'units' : field, message: err.message },
+      ]);
     throw err;
   }
 }
@@ -134,7 +162,12 @@ export function exportSetFile(set: ExportableParameterSet, format: ExportFormat,
   return runExport(() => exportParameterSet(set, format, exportOptionsFromQuery(units)), 'format');
 }
 
-export function exportMixtureFile(sets: ExportableParameterSet[], rule: CombiningRule, format: ExportFormat, units: string | undefined): ExportResult {
+export function exportMixtureFile(
+  sets: ExportableParameterSet[],
+  rule: CombiningRule,
+  format: ExportFormat,
+  units: string | undefined,
+): ExportResult {
   return runExport(() => exportMixture(sets, rule, format, exportOptionsFromQuery(units)), 'sets');
 }
 
@@ -147,7 +180,17 @@ export function mixtureJson(sets: ExportableParameterSet[], rule: CombiningRule)
     ruleName: info.name,
     formulas: info.formulas,
     reference: info.reference,
-    components: sets.map((s, index) => ({ index, setId: s.id, version: s.version, state: s.state, substanceName: s.substance.name, scheme: s.scheme, cutoffSigma: s.cutoffSigma, epsilonK: s.epsilonK, sigmaAngstrom: s.sigmaAngstrom })),
+    components: sets.map((s, index) => ({
+      index,
+      setId: s.id,
+      version: s.version,
+      state: s.state,
+      substanceName: s.substance.name,
+      scheme: s.scheme,
+      cutoffSigma: s.cutoffSigma,
+      epsilonK: s.epsilonK,
+      sigmaAngstrom: s.sigmaAngstrom,
+    })),
     pairs: table.pairs.map((p) => ({
       i: p.i,
       j: p.j,
@@ -160,7 +203,14 @@ export function mixtureJson(sets: ExportableParameterSet[], rule: CombiningRule)
       kind: p.kind,
       // Fitted pairs carry their pair set, k_ij (l_ij) and the standard errors of the cross parameters.
       ...(p.fitted
-        ? { pairSetId: p.fitted.pairSetId, kij: p.fitted.kij, kijStdErr: p.fitted.kijStdErr, lij: p.fitted.lij, epsilonStdErrK: p.fitted.epsilonStdErrK, sigmaStdErrAngstrom: p.fitted.sigmaStdErrAngstrom }
+        ? {
+            pairSetId: p.fitted.pairSetId,
+            kij: p.fitted.kij,
+            kijStdErr: p.fitted.kijStdErr,
+            lij: p.fitted.lij,
+            epsilonStdErrK: p.fitted.epsilonStdErrK,
+            sigmaStdErrAngstrom: p.fitted.sigmaStdErrAngstrom,
+          }
         : {}),
     })),
     note: table.note,

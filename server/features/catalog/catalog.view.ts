@@ -9,7 +9,8 @@ import type { CatalogRow } from './catalog.repository';
 export type Approval = { at: string; actorName: string | null; comment: string | null };
 
 /** The kinds of data behind a set, sorted, from its stored measurement set references. */
-export const kindsOf = (row: { measurementSetsJson: string }): PropertyKind[] => [...new Set(readMeasurementSetRefs(row.measurementSetsJson).map((d) => d.kind))].sort();
+export const kindsOf = (row: { measurementSetsJson: string }): PropertyKind[] =>
+  [...new Set(readMeasurementSetRefs(row.measurementSetsJson).map((d) => d.kind))].sort();
 
 /** A catalog entry: the set's values (the one parameter-set mapping) with substance, approval, data kinds and older versions. */
 export const toCatalogEntryView = (row: CatalogRow, approval: Approval | undefined): CatalogEntry => ({
@@ -23,7 +24,11 @@ export const toCatalogEntryView = (row: CatalogRow, approval: Approval | undefin
 });
 
 /** One published version on the card, with its change against the version before it (null for the first). */
-export function toParameterCardVersionView(v: CatalogRow, previous: CatalogRow | null, approval: Approval | undefined): ParameterCard['versions'][number] {
+export function toParameterCardVersionView(
+  v: CatalogRow,
+  previous: CatalogRow | null,
+  approval: Approval | undefined,
+): ParameterCard['versions'][number] {
   return {
     id: v.id,
     version: v.version,
@@ -37,7 +42,9 @@ export function toParameterCardVersionView(v: CatalogRow, previous: CatalogRow |
     fitId: v.fitId,
     approvedAt: approval?.at ?? null,
     approvedByName: approval?.actorName ?? null,
-    change: previous ? { fromVersion: previous.version, epsilonK: v.epsilonK - previous.epsilonK, sigmaAngstrom: v.sigmaAngstrom - previous.sigmaAngstrom } : null,
+    change: previous
+      ? { fromVersion: previous.version, epsilonK: v.epsilonK - previous.epsilonK, sigmaAngstrom: v.sigmaAngstrom - previous.sigmaAngstrom }
+      : null,
   };
 }
 

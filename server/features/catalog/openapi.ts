@@ -48,8 +48,17 @@ function queryParameter(shape: z.ZodObject, name: string, description: string, r
   return { name, in: 'query', required, description, schema };
 }
 
-const errorResponse = (description: string) => ({ description, content: { 'application/json': { schema: { $ref: '#/components/schemas/Error' } } } });
-const idParameter: OpenApiParameter = { name: 'id', in: 'path', required: true, description: 'parameter set id', schema: { type: 'integer', minimum: 1 } };
+const errorResponse = (description: string) => ({
+  description,
+  content: { 'application/json': { schema: { $ref: '#/components/schemas/Error' } } },
+});
+const idParameter: OpenApiParameter = {
+  name: 'id',
+  in: 'path',
+  required: true,
+  description: 'parameter set id',
+  schema: { type: 'integer', minimum: 1 },
+};
 const fileResponse = (what: string) => ({
   description: `${what} as a file (Content-Disposition: attachment). JSON follows the published schema; CSV is RFC 4180 with units in the headers; the LAMMPS and GROMACS fragments are plain text.`,
   headers: { 'Content-Disposition': { schema: { type: 'string' }, description: 'attachment; filename="…"' } },
@@ -93,12 +102,28 @@ export function openApiDocument(): OpenApiDocument {
           parameters: [
             queryParameter(catalogShape, 'q', 'substance name or formula contains this text (case-insensitive)'),
             queryParameter(catalogShape, 'scheme', 'cutoff scheme the set was fitted for'),
-            { name: 'kind', in: 'query', description: `comma-separated data kinds that must all be behind the set (${PROPERTY_KIND_IDS.join(', ')})`, schema: { type: 'string' } },
+            {
+              name: 'kind',
+              in: 'query',
+              description: `comma-separated data kinds that must all be behind the set (${PROPERTY_KIND_IDS.join(', ')})`,
+              schema: { type: 'string' },
+            },
             queryParameter(catalogShape, 'tMinK', 'keep sets whose validity reaches up to at least this temperature (K)'),
             queryParameter(catalogShape, 'tMaxK', 'keep sets whose validity starts at or below this temperature (K)'),
           ],
           responses: {
-            '200': { description: 'matching sets', content: { 'application/json': { schema: { type: 'object', required: ['sets'], properties: { sets: { type: 'array', items: { $ref: '#/components/schemas/CatalogEntry' } } } } } } },
+            '200': {
+              description: 'matching sets',
+              content: {
+                'application/json': {
+                  schema: {
+                    type: 'object',
+                    required: ['sets'],
+                    properties: { sets: { type: 'array', items: { $ref: '#/components/schemas/CatalogEntry' } } },
+                  },
+                },
+              },
+            },
             '400': errorResponse('a query parameter is invalid (details name each field)'),
             '401': errorResponse('no session and no valid token'),
           },
@@ -110,7 +135,10 @@ export function openApiDocument(): OpenApiDocument {
           summary: 'One published parameter set with its approval, measurement sets, fit statistics and versions',
           parameters: [idParameter],
           responses: {
-            '200': { description: 'the parameter card', content: { 'application/json': { schema: { $ref: '#/components/schemas/CatalogEntry' } } } },
+            '200': {
+              description: 'the parameter card',
+              content: { 'application/json': { schema: { $ref: '#/components/schemas/CatalogEntry' } } },
+            },
             '401': errorResponse('no session and no valid token'),
             '404': errorResponse('no published set with this id'),
           },
@@ -122,8 +150,19 @@ export function openApiDocument(): OpenApiDocument {
           summary: 'One approved or superseded parameter set as a file',
           parameters: [
             idParameter,
-            { name: 'format', in: 'query', required: true, description: 'file format', schema: { type: 'string', enum: [...EXPORT_FORMATS] } },
-            { name: 'units', in: 'query', description: `extra CSV columns: at most one of ${ENERGY_UNITS.join(', ')} and one of ${LENGTH_UNITS.join(', ')} (A for Å), comma-separated`, schema: { type: 'string' } },
+            {
+              name: 'format',
+              in: 'query',
+              required: true,
+              description: 'file format',
+              schema: { type: 'string', enum: [...EXPORT_FORMATS] },
+            },
+            {
+              name: 'units',
+              in: 'query',
+              description: `extra CSV columns: at most one of ${ENERGY_UNITS.join(', ')} and one of ${LENGTH_UNITS.join(', ')} (A for Å), comma-separated`,
+              schema: { type: 'string' },
+            },
           ],
           responses: {
             '200': fileResponse('the set'),
@@ -137,17 +176,50 @@ export function openApiDocument(): OpenApiDocument {
       '/parameter-sets/{id}/predictions': {
         get: {
           operationId: 'predictParameterSet',
-          summary: 'B2, dilute-gas viscosity or density predicted by an approved or superseded set at your own states, with the propagated uncertainty and a mark outside the validity range',
+          summary:
+            'B2, dilute-gas viscosity or density predicted by an approved or superseded set at your own states, with the propagated uncertainty and a mark outside the validity range',
           parameters: [
             idParameter,
-            { name: 'kind', in: 'query', required: true, description: 'kind of the predicted quantity', schema: { type: 'string', enum: ['b2', 'viscosity', 'density'] } },
-            { name: 'temperaturesK', in: 'query', required: true, description: 'comma-separated temperatures in K (1–200)', schema: { type: 'string', examples: ['150,200,300'] } },
-            { name: 'pressuresMPa', in: 'query', description: 'for densities: one pressure in MPa per temperature, comma-separated', schema: { type: 'string' } },
+            {
+              name: 'kind',
+              in: 'query',
+              required: true,
+              description: 'kind of the predicted quantity',
+              schema: { type: 'string', enum: ['b2', 'viscosity', 'density'] },
+            },
+            {
+              name: 'temperaturesK',
+              in: 'query',
+              required: true,
+              description: 'comma-separated temperatures in K (1–200)',
+              schema: { type: 'string', examples: ['150,200,300'] },
+            },
+            {
+              name: 'pressuresMPa',
+              in: 'query',
+              description: 'for densities: one pressure in MPa per temperature, comma-separated',
+              schema: { type: 'string' },
+            },
           ],
           responses: {
             '200': {
-              description: 'one prediction per state: value, standardError, lower95, upper95 (in unit), intervalMethod, outsideValidity and a note when outside',
-              content: { 'application/json': { schema: { type: 'object', required: ['parameterSetId', 'kind', 'unit', 'predictions'], properties: { parameterSetId: { type: 'integer' }, kind: { type: 'string' }, unit: { type: 'string' }, method: { type: 'string' }, predictions: { type: 'array', items: { type: 'object' } } } } } },
+              description:
+                'one prediction per state: value, standardError, lower95, upper95 (in unit), intervalMethod, outsideValidity and a note when outside',
+              content: {
+                'application/json': {
+                  schema: {
+                    type: 'object',
+                    required: ['parameterSetId', 'kind', 'unit', 'predictions'],
+                    properties: {
+                      parameterSetId: { type: 'integer' },
+                      kind: { type: 'string' },
+                      unit: { type: 'string' },
+                      method: { type: 'string' },
+                      predictions: { type: 'array', items: { type: 'object' } },
+                    },
+                  },
+                },
+              },
             },
             '400': errorResponse('bad query'),
             '401': errorResponse('no session and no valid token'),
@@ -162,15 +234,30 @@ export function openApiDocument(): OpenApiDocument {
           operationId: 'mixture',
           summary: 'Pure and cross pairs of several sets under a combining rule; cross pairs are estimates, not fitted values',
           parameters: [
-            { name: 'sets', in: 'query', required: true, description: 'comma-separated ids of 2–12 approved or superseded sets, in component order', schema: { type: 'string', examples: ['3,7'] } },
+            {
+              name: 'sets',
+              in: 'query',
+              required: true,
+              description: 'comma-separated ids of 2–12 approved or superseded sets, in component order',
+              schema: { type: 'string', examples: ['3,7'] },
+            },
             queryParameter(mixtureQuery as unknown as z.ZodObject, 'rule', 'combining rule', true),
-            { name: 'format', in: 'query', description: 'omit for the JSON table; give a format for a file', schema: { type: 'string', enum: [...EXPORT_FORMATS] } },
+            {
+              name: 'format',
+              in: 'query',
+              description: 'omit for the JSON table; give a format for a file',
+              schema: { type: 'string', enum: [...EXPORT_FORMATS] },
+            },
             { name: 'units', in: 'query', description: 'extra CSV columns, as for the set export', schema: { type: 'string' } },
           ],
           responses: {
             '200': {
               description: 'the pair table (no format) or the file (with format)',
-              content: { 'application/json': { schema: { $ref: '#/components/schemas/Mixture' } }, 'text/csv': { schema: { type: 'string' } }, 'text/plain': { schema: { type: 'string' } } },
+              content: {
+                'application/json': { schema: { $ref: '#/components/schemas/Mixture' } },
+                'text/csv': { schema: { type: 'string' } },
+                'text/plain': { schema: { type: 'string' } },
+              },
             },
             '400': errorResponse('bad query (fewer than two sets, a set twice, unknown rule or format)'),
             '401': errorResponse('no session and no valid token'),
@@ -184,17 +271,38 @@ export function openApiDocument(): OpenApiDocument {
           operationId: 'exportSchema',
           summary: 'JSON Schema (draft 2020-12) of an export format; public',
           security: [],
-          parameters: [{ name: 'name', in: 'path', required: true, description: 'schema file', schema: { type: 'string', enum: ['parameter-set-1.json', 'mixture-1.json'] } }],
-          responses: { '200': { description: 'the schema', content: { 'application/schema+json': { schema: { type: 'object' } } } }, '404': errorResponse('no such schema') },
+          parameters: [
+            {
+              name: 'name',
+              in: 'path',
+              required: true,
+              description: 'schema file',
+              schema: { type: 'string', enum: ['parameter-set-1.json', 'mixture-1.json'] },
+            },
+          ],
+          responses: {
+            '200': { description: 'the schema', content: { 'application/schema+json': { schema: { type: 'object' } } } },
+            '404': errorResponse('no such schema'),
+          },
         },
       },
       '/openapi.json': {
-        get: { operationId: 'openApi', summary: 'This document; public', security: [], responses: { '200': { description: 'OpenAPI 3.1 document', content: { 'application/json': { schema: { type: 'object' } } } } } },
+        get: {
+          operationId: 'openApi',
+          summary: 'This document; public',
+          security: [],
+          responses: { '200': { description: 'OpenAPI 3.1 document', content: { 'application/json': { schema: { type: 'object' } } } } },
+        },
       },
     },
     components: {
       securitySchemes: {
-        bearerToken: { type: 'http', scheme: 'bearer', description: 'personal read-only API token (43 characters, base64url); only its SHA-256 is stored, so a lost token cannot be shown again: revoke it and create another' },
+        bearerToken: {
+          type: 'http',
+          scheme: 'bearer',
+          description:
+            'personal read-only API token (43 characters, base64url); only its SHA-256 is stored, so a lost token cannot be shown again: revoke it and create another',
+        },
         sessionCookie: { type: 'apiKey', in: 'cookie', name: 'epsigma_session', description: 'the session of a signed-in browser' },
       },
       schemas: {
@@ -205,13 +313,32 @@ export function openApiDocument(): OpenApiDocument {
             error: {
               type: 'object',
               required: ['code', 'message'],
-              properties: { code: str('machine-readable code'), message: str('what went wrong, for people'), details: { type: 'array', items: { type: 'object', properties: { field: str('offending field'), message: str('what is wrong with it') } } } },
+              properties: {
+                code: str('machine-readable code'),
+                message: str('what went wrong, for people'),
+                details: {
+                  type: 'array',
+                  items: { type: 'object', properties: { field: str('offending field'), message: str('what is wrong with it') } },
+                },
+              },
             },
           },
         },
         CatalogEntry: {
           type: 'object',
-          required: ['id', 'substanceId', 'substanceName', 'version', 'state', 'scheme', 'epsilonK', 'sigmaAngstrom', 'stdErr', 'validity', 'kinds'],
+          required: [
+            'id',
+            'substanceId',
+            'substanceName',
+            'version',
+            'state',
+            'scheme',
+            'epsilonK',
+            'sigmaAngstrom',
+            'stdErr',
+            'validity',
+            'kinds',
+          ],
           properties: {
             id: { type: 'integer' },
             substanceId: { type: 'integer' },
@@ -223,13 +350,25 @@ export function openApiDocument(): OpenApiDocument {
             cutoffSigma: numOrNull('rc/σ for the truncated schemes; null for the full potential'),
             epsilonK: num('ε/k_B in K'),
             sigmaAngstrom: num('σ in Å'),
-            stdErr: { type: 'object', properties: { epsilonK: numOrNull('standard error of ε/k_B, K'), sigmaAngstrom: numOrNull('standard error of σ, Å') } },
+            stdErr: {
+              type: 'object',
+              properties: { epsilonK: numOrNull('standard error of ε/k_B, K'), sigmaAngstrom: numOrNull('standard error of σ, Å') },
+            },
             correlation: numOrNull('correlation of the ε and σ estimates'),
             validity: {
               type: 'object',
-              properties: { temperatureMinK: num('K'), temperatureMaxK: num('K'), pressureMinMPa: numOrNull('MPa'), pressureMaxMPa: numOrNull('MPa') },
+              properties: {
+                temperatureMinK: num('K'),
+                temperatureMaxK: num('K'),
+                pressureMinMPa: numOrNull('MPa'),
+                pressureMaxMPa: numOrNull('MPa'),
+              },
             },
-            kinds: { type: 'array', items: { type: 'string', enum: [...PROPERTY_KIND_IDS] }, description: 'kinds of measurement behind the fit' },
+            kinds: {
+              type: 'array',
+              items: { type: 'string', enum: [...PROPERTY_KIND_IDS] },
+              description: 'kinds of measurement behind the fit',
+            },
             approvedAt: strOrNull('ISO 8601 time of approval'),
             approvedByName: strOrNull('reviewer who approved'),
             olderVersions: { type: 'integer', description: 'superseded or retired earlier versions of the same substance and scheme' },

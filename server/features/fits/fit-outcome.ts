@@ -8,7 +8,12 @@ import { addNotice } from '../notices/notices.service';
  * person who started it, all in one transaction. `result` is the fit's result (its status says whether
  * the least squares converged); `error` is set when the job itself stopped with an error.
  */
-export async function recordFitOutcome(db: Db, jobId: number, result: { status?: string; failureReason?: string } | null, error: string | null): Promise<void> {
+export async function recordFitOutcome(
+  db: Db,
+  jobId: number,
+  result: { status?: string; failureReason?: string } | null,
+  error: string | null,
+): Promise<void> {
   const fit = await db
     .selectFrom('fit')
     .innerJoin('substance', 'substance.id', 'fit.substanceId')
@@ -36,7 +41,12 @@ export async function recordFitOutcome(db: Db, jobId: number, result: { status?:
       await queueMail(tx, {
         to: [fit.email],
         subject: succeeded ? `Finished: ${name}` : `Failed: ${name}`,
-        ...mailBody([text, succeeded ? 'Open the fit to read its values, residuals and warnings.' : 'Open the fit to see its last iterate and the per-point misfit.']),
+        ...mailBody([
+          text,
+          succeeded
+            ? 'Open the fit to read its values, residuals and warnings.'
+            : 'Open the fit to see its last iterate and the per-point misfit.',
+        ]),
         link,
         reason: succeeded ? 'fit.succeeded' : 'fit.failed',
       });

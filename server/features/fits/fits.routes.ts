@@ -35,14 +35,22 @@ export function fitRoutes(ctx: AppContext): Router {
   router.post('/fits/:id/cancel', requireUser, async (req, res) => {
     const { id } = validParams(idParams, req);
     const actor = currentUser(res);
-    if (!hasPolicy(actor.roles, 'fit:run') && !actor.roles.includes('admin')) throw forbidden(refusalMessage(actor.roles, 'fit:run', ['admin']));
+    if (!hasPolicy(actor.roles, 'fit:run') && !actor.roles.includes('admin'))
+      throw forbidden(refusalMessage(actor.roles, 'fit:run', ['admin']));
     const fit = await requireFit(db, id);
     if (!mayChangeWorkOf(actor, fit.createdBy, 'fit:run')) {
       throw new AppError(403, 'not_author', `Only the author of Fit #${fit.number} (${fit.createdByName}) or an admin may cancel it.`);
     }
-    if (!(await ctx.jobs.cancel(fit.jobId))) throw conflict(`Fit #${fit.number} is ${fit.status}; only a queued or running fit can be cancelled.`);
+    if (!(await ctx.jobs.cancel(fit.jobId)))
+      throw conflict(`Fit #${fit.number} is ${fit.status}; only a queued or running fit can be cancelled.`);
     const onBehalf = actor.id === fit.createdBy ? '' : ` (as admin; the fit is ${fit.createdByName}'s)`;
-    await recordAudit(db, { actor, action: 'fit.cancelled', targetType: 'fit', targetId: id, summary: `${actor.email} cancelled Fit #${fit.number} of ${fit.substanceName}${onBehalf}` });
+    await recordAudit(db, {
+      actor,
+      action: 'fit.cancelled',
+      targetType: 'fit',
+      targetId: id,
+      summary: `${actor.email} cancelled Fit #${fit.number} of ${fit.substanceName}${onBehalf}`,
+    });
     sendView(res, fitView, toFitView(await requireFit(db, id)));
   });
 

@@ -10,7 +10,8 @@ const readResult = (json: string | null): FitResult | null => (json ? fitResultS
 const readRefs = (json: string) => measurementSetRefs.parse(readStoredJson(json));
 
 /** The fit record says succeeded only when the computation ran and the least squares converged to an answer. */
-const fitStatus = (jobStatus: FitView['status'], result: FitResult | null) => (jobStatus === 'succeeded' && result?.status === 'failed' ? 'failed' : jobStatus);
+const fitStatus = (jobStatus: FitView['status'], result: FitResult | null) =>
+  jobStatus === 'succeeded' && result?.status === 'failed' ? 'failed' : jobStatus;
 
 /** The one place a fit row becomes its API view (shared/contracts/fit.ts). */
 export function toFitView(row: FitRow): FitView {
@@ -24,7 +25,12 @@ export function toFitView(row: FitRow): FitView {
     status: fitStatus(row.status, result),
     progress: row.progress,
     stage: row.stage,
-    measurementSets: readRefs(row.measurementSetsJson).map((d) => ({ ...d, valueUnit: valueUnitOf(d.kind), excludeRows: d.excludeRows ?? [], excludeReason: d.excludeReason ?? null })),
+    measurementSets: readRefs(row.measurementSetsJson).map((d) => ({
+      ...d,
+      valueUnit: valueUnitOf(d.kind),
+      excludeRows: d.excludeRows ?? [],
+      excludeReason: d.excludeReason ?? null,
+    })),
     options: storedFitOptions.parse(JSON.parse(row.optionsJson)),
     codeVersion: row.codeVersion,
     createdAt: row.createdAt,
@@ -48,7 +54,13 @@ export function toFitListItemView(r: FitListRow): FitListItem {
     createdByName: r.createdByName,
     status: fitStatus(r.status, result),
     progress: r.progress,
-    measurementSets: readRefs(r.measurementSetsJson).map((d) => ({ measurementSetId: d.measurementSetId, name: d.name, kind: d.kind, version: d.version, excludeRows: d.excludeRows ?? [] })),
+    measurementSets: readRefs(r.measurementSetsJson).map((d) => ({
+      measurementSetId: d.measurementSetId,
+      name: d.name,
+      kind: d.kind,
+      version: d.version,
+      excludeRows: d.excludeRows ?? [],
+    })),
     // As on the fit page: a failed fit shows its last iterate, marked not converged, without standard errors.
     epsilonK: result?.epsilonK ?? null,
     sigmaAngstrom: result?.sigmaAngstrom ?? null,

@@ -14,19 +14,36 @@ const PRIOR_STATES = ['approved', 'superseded'] as const;
  * as the covariance. Refused (422, naming the field) when the set does not exist, is not approved or superseded, is of
  * another model (potential or λr) than the fit, or has no standard error for one of the two.
  */
-export async function resolvePosteriorPrior(db: Db, parameterSetId: number, fit: { model?: 'lj-12-6' | 'mie'; repulsiveExponent?: number; fitRepulsiveExponent?: boolean }): Promise<ParameterSetPrior> {
+export async function resolvePosteriorPrior(
+  db: Db,
+  parameterSetId: number,
+  fit: { model?: 'lj-12-6' | 'mie'; repulsiveExponent?: number; fitRepulsiveExponent?: boolean },
+): Promise<ParameterSetPrior> {
   const set = await findParameterSet(db, parameterSetId);
   const refuse = (code: string, message: string, detail: string): never => {
     throw new AppError(422, code, message, [{ field: FIELD, message: detail }]);
   };
-  if (!set) return refuse('unknown_parameter_set', `Parameter set ${parameterSetId} does not exist, so it cannot give the prior.`, 'no such parameter set');
+  if (!set)
+    return refuse(
+      'unknown_parameter_set',
+      `Parameter set ${parameterSetId} does not exist, so it cannot give the prior.`,
+      'no such parameter set',
+    );
   const name = `${set.substanceName} ${potentialLabel(set.repulsiveExponent)} set v${set.version}`;
   if (!(PRIOR_STATES as readonly string[]).includes(set.state)) {
-    refuse('prior_not_approved', `${name} is ${set.state.replace('_', ' ')}: a prior must come from an approved (or superseded) set.`, `the set is ${set.state.replace('_', ' ')}, not approved or superseded`);
+    refuse(
+      'prior_not_approved',
+      `${name} is ${set.state.replace('_', ' ')}: a prior must come from an approved (or superseded) set.`,
+      `the set is ${set.state.replace('_', ' ')}, not approved or superseded`,
+    );
   }
   const model = fit.model ?? 'lj-12-6';
   if (set.potential !== model) {
-    refuse('prior_model_mismatch', `${name} is a ${potentialLabel(set.repulsiveExponent)} set and this fit is ${model === 'mie' ? 'a Mie' : 'an LJ 12-6'} fit: a prior must come from a set of the same model.`, 'the set is of another model');
+    refuse(
+      'prior_model_mismatch',
+      `${name} is a ${potentialLabel(set.repulsiveExponent)} set and this fit is ${model === 'mie' ? 'a Mie' : 'an LJ 12-6'} fit: a prior must come from a set of the same model.`,
+      'the set is of another model',
+    );
   }
   if (model === 'mie' && (fit.fitRepulsiveExponent || fit.repulsiveExponent !== set.repulsiveExponent)) {
     refuse(
@@ -37,7 +54,11 @@ export async function resolvePosteriorPrior(db: Db, parameterSetId: number, fit:
   }
   const se = [set.epsilonStdErrK, set.sigmaStdErrAngstrom];
   if (!(se[0]! > 0) || !(se[1]! > 0)) {
-    refuse('prior_without_uncertainty', `${name} has no standard error for ${!(se[0]! > 0) ? 'ε/k_B' : 'σ'} (it was held in its fit), so it gives no Gaussian prior.`, 'the set has no standard error for one parameter');
+    refuse(
+      'prior_without_uncertainty',
+      `${name} has no standard error for ${!(se[0]! > 0) ? 'ε/k_B' : 'σ'} (it was held in its fit), so it gives no Gaussian prior.`,
+      'the set has no standard error for one parameter',
+    );
   }
   const r = set.correlation ?? 0;
   const c = r * se[0]! * se[1]!;

@@ -1,7 +1,12 @@
 import type { Db, Tx } from '../../db/database';
 
 export async function isFollowing(db: Db | Tx, userId: string, substanceId: number): Promise<boolean> {
-  const row = await db.selectFrom('substanceFollow').select('userId').where('userId', '=', userId).where('substanceId', '=', substanceId).executeTakeFirst();
+  const row = await db
+    .selectFrom('substanceFollow')
+    .select('userId')
+    .where('userId', '=', userId)
+    .where('substanceId', '=', substanceId)
+    .executeTakeFirst();
   return row !== undefined;
 }
 
@@ -11,7 +16,11 @@ export async function insertFollow(db: Db | Tx, userId: string, substanceId: num
 
 /** Returns whether a follow was removed. */
 export async function deleteFollow(db: Db | Tx, userId: string, substanceId: number): Promise<boolean> {
-  const result = await db.deleteFrom('substanceFollow').where('userId', '=', userId).where('substanceId', '=', substanceId).executeTakeFirst();
+  const result = await db
+    .deleteFrom('substanceFollow')
+    .where('userId', '=', userId)
+    .where('substanceId', '=', substanceId)
+    .executeTakeFirst();
   return Number(result.numDeletedRows) > 0;
 }
 

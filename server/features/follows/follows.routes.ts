@@ -24,7 +24,13 @@ export function followRoutes(ctx: AppContext): Router {
       // Following twice is not an error and not a second event.
       if (await isFollowing(tx, actor.id, id)) return;
       await insertFollow(tx, actor.id, id);
-      await recordAudit(tx, { actor, action: 'substance.followed', targetType: 'substance', targetId: id, summary: `${actor.email} follows ${substance.name}` });
+      await recordAudit(tx, {
+        actor,
+        action: 'substance.followed',
+        targetType: 'substance',
+        targetId: id,
+        summary: `${actor.email} follows ${substance.name}`,
+      });
     });
     sendView(res, followStateView, { substanceId: id, following: true });
   });
@@ -36,7 +42,13 @@ export function followRoutes(ctx: AppContext): Router {
       const substance = await findSubstance(tx, id);
       if (!substance) throw notFound(`Substance ${id}`);
       if (await deleteFollow(tx, actor.id, id)) {
-        await recordAudit(tx, { actor, action: 'substance.unfollowed', targetType: 'substance', targetId: id, summary: `${actor.email} stopped following ${substance.name}` });
+        await recordAudit(tx, {
+          actor,
+          action: 'substance.unfollowed',
+          targetType: 'substance',
+          targetId: id,
+          summary: `${actor.email} stopped following ${substance.name}`,
+        });
       }
     });
     sendView(res, followStateView, { substanceId: id, following: false });

@@ -30,7 +30,8 @@ describe('encoded words in headers (RFC 2047)', () => {
 });
 
 describe('quoted-printable bodies (RFC 2045 §6.7)', () => {
-  const qp = (body: string) => parseMail(rawMessage(['Content-Type: text/plain; charset=utf-8', 'Content-Transfer-Encoding: quoted-printable'], body));
+  const qp = (body: string) =>
+    parseMail(rawMessage(['Content-Type: text/plain; charset=utf-8', 'Content-Transfer-Encoding: quoted-printable'], body));
   it('joins soft line breaks (rule 5) and decodes =XX octets (rule 1)', async () => {
     // RFC 2045 §6.7 rule 5 example, from memory.
     expect((await qp("Now's the time =\r\nfor all folk to come=\r\n to the aid of their country.")).text).toBe(

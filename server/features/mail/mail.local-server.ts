@@ -33,7 +33,8 @@ export async function startLocalMailServer(db: Db, log: (message: string) => voi
       stream.on('data', (chunk: Buffer) => chunks.push(chunk));
       stream.on('error', (err) => callback(err));
       stream.on('end', () => {
-        if (stream.sizeExceeded) return callback(Object.assign(new Error('Message exceeds the 1 MiB limit of the local mailbox'), { responseCode: 552 }));
+        if (stream.sizeExceeded)
+          return callback(Object.assign(new Error('Message exceeds the 1 MiB limit of the local mailbox'), { responseCode: 552 }));
         const raw = Buffer.concat(chunks);
         const envelopeTo = session.envelope.rcptTo.map((a) => a.address);
         const envelopeFrom = session.envelope.mailFrom ? session.envelope.mailFrom.address : '';

@@ -33,7 +33,11 @@ export async function dueOutboxRows(db: Db, now: Date, limit = 20) {
 
 /** Counts per outbox status, for health checks and tests. */
 export async function outboxCounts(db: Db) {
-  const rows = await db.selectFrom('mailOutbox').select(['status', sql<number>`count(*)`.as('n')]).groupBy('status').execute();
+  const rows = await db
+    .selectFrom('mailOutbox')
+    .select(['status', sql<number>`count(*)`.as('n')])
+    .groupBy('status')
+    .execute();
   return { queued: 0, sent: 0, failed: 0, ...Object.fromEntries(rows.map((r) => [r.status, Number(r.n)])) } as OutboxCounts;
 }
 

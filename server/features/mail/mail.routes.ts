@@ -26,7 +26,11 @@ export function mailRoutes(ctx: AppContext): Router {
   router.get('/mailbox', requirePolicy('mailbox:read'), async (req, res) => {
     const { to, limit } = validQuery(mailboxQuery, req);
     if (ctx.mail.mode !== 'local') {
-      throw new AppError(409, 'mailbox_unavailable', 'The mailbox only exists with the local mail service; this server sends mail to SMTP_URL.');
+      throw new AppError(
+        409,
+        'mailbox_unavailable',
+        'The mailbox only exists with the local mail service; this server sends mail to SMTP_URL.',
+      );
     }
     const rows = await listMailbox(db, { to: to || undefined, limit });
     sendView(res, mailboxView, { messages: rows.map(toMailboxMessageView) });

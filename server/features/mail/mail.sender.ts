@@ -106,7 +106,13 @@ export class MailSender {
           text: link ? `${row.text}\n\nOpen in Epsigma: ${link}` : row.text,
           html: link ? `${row.html}\n<p><a href="${escapeHtml(link)}">Open in Epsigma</a></p>` : row.html,
         });
-        await updateOutboxRow(this.db, row.id, { status: 'sent', attempts: row.attempts + 1, sentAt: new Date().toISOString(), messageId: info.messageId ?? null, lastError: null });
+        await updateOutboxRow(this.db, row.id, {
+          status: 'sent',
+          attempts: row.attempts + 1,
+          sentAt: new Date().toISOString(),
+          messageId: info.messageId ?? null,
+          lastError: null,
+        });
       } catch (err) {
         const attempts = row.attempts + 1;
         const message = (err instanceof Error ? err.message : String(err)).slice(0, 500);

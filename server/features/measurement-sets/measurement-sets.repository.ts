@@ -26,7 +26,11 @@ export async function findMeasurementSet(db: Db | Tx, id: number) {
     .selectFrom('measurementSet')
     .leftJoin('measurementSetWithdrawal', 'measurementSetWithdrawal.measurementSetId', 'measurementSet.id')
     .selectAll('measurementSet')
-    .select(['measurementSetWithdrawal.withdrawnAt', 'measurementSetWithdrawal.reason as withdrawnReason', 'measurementSetWithdrawal.withdrawnBy'])
+    .select([
+      'measurementSetWithdrawal.withdrawnAt',
+      'measurementSetWithdrawal.reason as withdrawnReason',
+      'measurementSetWithdrawal.withdrawnBy',
+    ])
     .where('measurementSet.id', '=', id)
     .executeTakeFirst();
 }
@@ -51,11 +55,21 @@ export async function latestVersionNumber(db: Db | Tx, measurementSetId: number)
 }
 
 export async function findVersionRow(db: Db | Tx, measurementSetId: number, version: number) {
-  return db.selectFrom('measurementSetVersion').selectAll().where('measurementSetId', '=', measurementSetId).where('version', '=', version).executeTakeFirst();
+  return db
+    .selectFrom('measurementSetVersion')
+    .selectAll()
+    .where('measurementSetId', '=', measurementSetId)
+    .where('version', '=', version)
+    .executeTakeFirst();
 }
 
 export async function rowsOfVersion(db: Db | Tx, measurementSetVersionId: number) {
-  return db.selectFrom('measurementRow').selectAll().where('measurementSetVersionId', '=', measurementSetVersionId).orderBy('position').execute();
+  return db
+    .selectFrom('measurementRow')
+    .selectAll()
+    .where('measurementSetVersionId', '=', measurementSetVersionId)
+    .orderBy('position')
+    .execute();
 }
 
 /** Every measurement set of a substance with its newest version's summary. */
@@ -82,13 +96,22 @@ export async function listMeasurementSetsOfSubstance(db: Db | Tx, substanceId?: 
       'measurementSetWithdrawal.withdrawnAt',
     ])
     .where(({ eb, selectFrom }) =>
-      eb('measurementSetVersion.version', '=', selectFrom('measurementSetVersion as v2').select((e) => e.fn.max('v2.version').as('m')).whereRef('v2.measurementSetId', '=', 'measurementSet.id')),
+      eb(
+        'measurementSetVersion.version',
+        '=',
+        selectFrom('measurementSetVersion as v2')
+          .select((e) => e.fn.max('v2.version').as('m'))
+          .whereRef('v2.measurementSetId', '=', 'measurementSet.id'),
+      ),
     );
   if (substanceId !== undefined) q = q.where('measurementSet.substanceId', '=', substanceId);
   return q.orderBy('measurementSet.kind').orderBy('measurementSet.name').execute();
 }
 
-export async function insertWithdrawal(tx: Tx, values: { measurementSetId: number; withdrawnBy: string; withdrawnAt: string; reason: string }) {
+export async function insertWithdrawal(
+  tx: Tx,
+  values: { measurementSetId: number; withdrawnBy: string; withdrawnAt: string; reason: string },
+) {
   await tx.insertInto('measurementSetWithdrawal').values(values).execute();
 }
 
@@ -107,17 +130,28 @@ export async function insertVersion(tx: Tx, values: Insertable<MeasurementSetVer
 
 /** Inserts in chunks: SQLite limits bound parameters per statement. */
 export async function insertRows(tx: Tx, values: Insertable<MeasurementRowTable>[]) {
-  for (let i = 0; i < values.length; i += 200) await tx.insertInto('measurementRow').values(values.slice(i, i + 200)).execute();
+  for (let i = 0; i < values.length; i += 200)
+    await tx
+      .insertInto('measurementRow')
+      .values(values.slice(i, i + 200))
+      .execute();
 }
 
 /** Source, citation and checksum of measurement set versions, by version id (the data behind a fit or a parameter set). */
 export async function versionSources(db: Db | Tx, versionIds: readonly number[]) {
   if (!versionIds.length) return [];
-  return db.selectFrom('measurementSetVersion').select(['id', 'source', 'doi', 'method', 'rowCount', 'sha256']).where('id', 'in', [...versionIds]).execute();
+  return db
+    .selectFrom('measurementSetVersion')
+    .select(['id', 'source', 'doi', 'method', 'rowCount', 'sha256'])
+    .where('id', 'in', [...versionIds])
+    .execute();
 }
 
 /** Lowest and highest pressure (MPa) among the rows of some versions; null when none has a pressure. */
-export async function pressureSpanOfVersions(db: Db | Tx, versionIds: readonly number[]): Promise<{ lo: number | null; hi: number | null }> {
+export async function pressureSpanOfVersions(
+  db: Db | Tx,
+  versionIds: readonly number[],
+): Promise<{ lo: number | null; hi: number | null }> {
   if (!versionIds.length) return { lo: null, hi: null };
   const p = await db
     .selectFrom('measurementRow')

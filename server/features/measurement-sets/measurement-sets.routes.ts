@@ -2,7 +2,12 @@ import { Router, type RequestHandler } from 'express';
 import multer from 'multer';
 import { z } from 'zod';
 import { measurementSetUploadFields, measurementSetVersionFields, withdrawMeasurementSetBody } from '../../../shared/schemas/measurements';
-import { measurementSetDetailView, measurementSetListView, measurementSetUploadView, measurementSetWithdrawView } from '../../../shared/contracts/measurement-set';
+import {
+  measurementSetDetailView,
+  measurementSetListView,
+  measurementSetUploadView,
+  measurementSetWithdrawView,
+} from '../../../shared/contracts/measurement-set';
 import { hasPolicy, mayChangeWorkOf, refusalMessage } from '../../../shared/auth/roles';
 import { currentUser, requirePolicy, requireUser } from '../../common/auth-middleware';
 import { AppError, badRequest, conflict, forbidden, notFound } from '../../common/errors';
@@ -11,7 +16,15 @@ import { idParams, validBody, validParams, validQuery } from '../../common/valid
 import type { AppContext } from '../../app-context';
 import { recordAudit } from '../audit/audit.service';
 import { findSubstance } from '../substances/substances.repository';
-import { findMeasurementSet, findVersionRow, insertWithdrawal, listMeasurementSetsOfSubstance, listVersions, personName, rowsOfVersion } from './measurement-sets.repository';
+import {
+  findMeasurementSet,
+  findVersionRow,
+  insertWithdrawal,
+  listMeasurementSetsOfSubstance,
+  listVersions,
+  personName,
+  rowsOfVersion,
+} from './measurement-sets.repository';
 import { parseUpload, storeVersion, type UploadedFile } from './measurement-sets.service';
 import { toMeasurementSetDetailView, toMeasurementSetSummaryView } from './measurement-sets.view';
 
@@ -23,9 +36,20 @@ const upload = multer({
   limits: { fileSize: UPLOAD_LIMIT_BYTES, files: 1, fields: 20 },
   fileFilter: (_req, file, cb) => {
     const csvName = /\.(csv|txt|tsv)$/i.test(file.originalname);
-    const csvType = ['text/csv', 'text/plain', 'application/csv', 'application/vnd.ms-excel', 'text/tab-separated-values', 'application/octet-stream'].includes(file.mimetype);
+    const csvType = [
+      'text/csv',
+      'text/plain',
+      'application/csv',
+      'application/vnd.ms-excel',
+      'text/tab-separated-values',
+      'application/octet-stream',
+    ].includes(file.mimetype);
     if (csvName && csvType) return cb(null, true);
-    cb(new AppError(400, 'not_csv', `Only CSV files are accepted; "${file.originalname}" (${file.mimetype}) is not one.`, [{ field: 'file', message: 'expected a .csv file' }]));
+    cb(
+      new AppError(400, 'not_csv', `Only CSV files are accepted; "${file.originalname}" (${file.mimetype}) is not one.`, [
+        { field: 'file', message: 'expected a .csv file' },
+      ]),
+    );
   },
 });
 
@@ -37,7 +61,14 @@ const parseSingleCsv: RequestHandler = upload.single('file');
 const singleCsv: RequestHandler = (req, res, next) => {
   parseSingleCsv(req, res, (err?: unknown) => {
     if (!err || err instanceof AppError || (err as { name?: string }).name === 'MulterError') return next(err);
-    next(new AppError(400, 'bad_multipart', `The upload is not valid multipart/form-data (${err instanceof Error ? err.message : String(err)}); send the CSV in the form field "file".`, [{ field: 'file', message: 'unreadable multipart body' }]));
+    next(
+      new AppError(
+        400,
+        'bad_multipart',
+        `The upload is not valid multipart/form-data (${err instanceof Error ? err.message : String(err)}); send the CSV in the form field "file".`,
+        [{ field: 'file', message: 'unreadable multipart body' }],
+      ),
+    );
   });
 };
 
@@ -55,7 +86,11 @@ const versionParams = z.object({ id: z.coerce.number().int().positive(), version
  * unusual values (shared/measurements/plausibility.ts, e.g. a unit slip of 10⁶) are stored and warned about too.
  */
 function citationWarnings(source: string | undefined | null): string[] {
-  return source && source.trim() ? [] : ['No source citation was given. A parameter set fitted to this measurement set cannot be submitted for review until a version that cites its source is uploaded.'];
+  return source && source.trim()
+    ? []
+    : [
+        'No source citation was given. A parameter set fitted to this measurement set cannot be submitted for review until a version that cites its source is uploaded.',
+      ];
 }
 
 export function measurementSetRoutes(ctx: AppContext): Router {
@@ -64,7 +99,9 @@ export function measurementSetRoutes(ctx: AppContext): Router {
 
   router.get('/measurement-sets', requirePolicy('measurement-set:read'), async (req, res) => {
     const { substanceId } = validQuery(listQuery, req);
-    sendView(res, measurementSetListView, { measurementSets: (await listMeasurementSetsOfSubstance(db, substanceId)).map(toMeasurementSetSummaryView) });
+    sendView(res, measurementSetListView, {
+      measurementSets: (await listMeasurementSetsOfSubstance(db, substanceId)).map(toMeasurementSetSummaryView),
+    });
   });
 
   router.post('/measurement-sets', requirePolicy('measurement-set:upload'), singleCsv, async (req, res) => {
@@ -72,12 +109,26 @@ export function measurementSetRoutes(ctx: AppContext): Router {
     const file = requireFile(req.file);
     const actor = currentUser(res);
     const substance = await findSubstance(db, fields.substanceId);
-    if (!substance) throw new AppError(422, 'unknown_substance', `Substance ${fields.substanceId} does not exist.`, [{ field: 'substanceId', message: 'no such substance' }]);
+    if (!substance)
+      throw new AppError(422, 'unknown_substance', `Substance ${fields.substanceId} does not exist.`, [
+        { field: 'substanceId', message: 'no such substance' },
+      ]);
     const parsed = parseUpload(file, fields.kind, fields, substance.molarMassGramsPerMol);
     const stored = await db.transaction().execute((tx) =>
-      storeVersion(tx, { newMeasurementSet: { substanceId: substance.id, kind: fields.kind, name: fields.name }, file, fields, parsed, actor }),
+      storeVersion(tx, {
+        newMeasurementSet: { substanceId: substance.id, kind: fields.kind, name: fields.name },
+        file,
+        fields,
+        parsed,
+        actor,
+      }),
     );
-    sendView(res, measurementSetUploadView, { ...stored, warnings: [...parsed.warnings.map((w) => w.message), ...citationWarnings(fields.source)] }, 201);
+    sendView(
+      res,
+      measurementSetUploadView,
+      { ...stored, warnings: [...parsed.warnings.map((w) => w.message), ...citationWarnings(fields.source)] },
+      201,
+    );
   });
 
   /**
@@ -87,12 +138,17 @@ export function measurementSetRoutes(ctx: AppContext): Router {
   const requireMeasurementSetAuthorOrAdmin: RequestHandler = async (req, res, next) => {
     const { id } = validParams(idParams, req);
     const actor = currentUser(res);
-    if (!hasPolicy(actor.roles, 'measurement-set:upload') && !actor.roles.includes('admin')) throw forbidden(refusalMessage(actor.roles, 'measurement-set:upload', ['admin']));
+    if (!hasPolicy(actor.roles, 'measurement-set:upload') && !actor.roles.includes('admin'))
+      throw forbidden(refusalMessage(actor.roles, 'measurement-set:upload', ['admin']));
     const measurementSet = await findMeasurementSet(db, id);
     if (!measurementSet) throw notFound(`Measurement set ${id}`);
     if (!mayChangeWorkOf(actor, measurementSet.createdBy, 'measurement-set:upload')) {
       const author = await personName(db, measurementSet.createdBy);
-      throw new AppError(403, 'not_author', `Only the author of measurement set "${measurementSet.name}" (${author ?? 'unknown'}) or an admin may change it.`);
+      throw new AppError(
+        403,
+        'not_author',
+        `Only the author of measurement set "${measurementSet.name}" (${author ?? 'unknown'}) or an admin may change it.`,
+      );
     }
     next();
   };
@@ -108,7 +164,12 @@ export function measurementSetRoutes(ctx: AppContext): Router {
     const substance = await findSubstance(db, measurementSet.substanceId);
     const parsed = parseUpload(file, measurementSet.kind, fields, substance!.molarMassGramsPerMol);
     const stored = await db.transaction().execute((tx) => storeVersion(tx, { measurementSetId: id, file, fields, parsed, actor }));
-    sendView(res, measurementSetUploadView, { ...stored, warnings: [...parsed.warnings.map((w) => w.message), ...citationWarnings(fields.source)] }, 201);
+    sendView(
+      res,
+      measurementSetUploadView,
+      { ...stored, warnings: [...parsed.warnings.map((w) => w.message), ...citationWarnings(fields.source)] },
+      201,
+    );
   });
 
   router.get('/measurement-sets/:id', requirePolicy('measurement-set:read'), async (req, res) => {
@@ -121,7 +182,11 @@ export function measurementSetRoutes(ctx: AppContext): Router {
     if (!chosen) throw notFound(`Version ${wanted} of measurement set ${id}`);
     const rows = await rowsOfVersion(db, chosen.id);
     const substance = await findSubstance(db, measurementSet.substanceId);
-    sendView(res, measurementSetDetailView, toMeasurementSetDetailView({ set: measurementSet, substanceName: substance!.name, versions, chosen, rows }));
+    sendView(
+      res,
+      measurementSetDetailView,
+      toMeasurementSetDetailView({ set: measurementSet, substanceName: substance!.name, versions, chosen, rows }),
+    );
   });
 
   router.get('/measurement-sets/:id/versions/:version/original', requirePolicy('measurement-set:read'), async (req, res) => {
@@ -144,7 +209,13 @@ export function measurementSetRoutes(ctx: AppContext): Router {
       if (!measurementSet) throw notFound(`Measurement set ${id}`);
       if (measurementSet.withdrawnAt) throw conflict(`Measurement set ${id} is already withdrawn.`);
       await insertWithdrawal(tx, { measurementSetId: id, withdrawnBy: actor.id, withdrawnAt: new Date().toISOString(), reason });
-      await recordAudit(tx, { actor, action: 'dataset.withdrawn', targetType: 'dataset', targetId: id, summary: `${actor.email} withdrew measurement set ${measurementSet.name}${measurementSet.createdBy === actor.id ? '' : ' (as admin; not the author)'}: ${reason}` });
+      await recordAudit(tx, {
+        actor,
+        action: 'dataset.withdrawn',
+        targetType: 'dataset',
+        targetId: id,
+        summary: `${actor.email} withdrew measurement set ${measurementSet.name}${measurementSet.createdBy === actor.id ? '' : ' (as admin; not the author)'}: ${reason}`,
+      });
     });
     sendView(res, measurementSetWithdrawView, { id, withdrawn: true });
   });

@@ -39,7 +39,10 @@ export function parseUpload(file: UploadedFile, kind: PropertyKind, fields: Vers
   if (!parsed.ok) {
     const n = parsed.problems.length;
     const first = parsed.problems[0];
-    throw unprocessable(`The file was not stored: ${n} problem${n === 1 ? '' : 's'} found${first ? ` — ${first.message}` : ''}.`, parsed.problems);
+    throw unprocessable(
+      `The file was not stored: ${n} problem${n === 1 ? '' : 's'} found${first ? ` — ${first.message}` : ''}.`,
+      parsed.problems,
+    );
   }
   return parsed;
 }
@@ -62,13 +65,20 @@ export async function storeVersion(
   const now = new Date().toISOString();
   let measurementSetId = input.measurementSetId;
   if (measurementSetId === undefined) {
-    if (!input.newMeasurementSet) throw new AppError(500, 'internal_error', 'storeVersion needs a measurement set id or a new measurement set.');
+    if (!input.newMeasurementSet)
+      throw new AppError(500, 'internal_error', 'storeVersion needs a measurement set id or a new measurement set.');
     measurementSetId = await insertMeasurementSet(tx, { ...input.newMeasurementSet, createdBy: input.actor.id, createdAt: now });
   }
   const version = (await latestVersionNumber(tx, measurementSetId)) + 1;
   const sha256 = createHash('sha256').update(input.file.buffer).digest('hex');
   const { parsed, fields } = input;
-  const columns: StoredColumn[] = parsed.columns.map((c) => ({ index: c.index, header: c.header, quantity: c.quantity ?? null, unitText: c.unitText ?? null, canonicalUnit: c.canonicalUnit ?? null }));
+  const columns: StoredColumn[] = parsed.columns.map((c) => ({
+    index: c.index,
+    header: c.header,
+    quantity: c.quantity ?? null,
+    unitText: c.unitText ?? null,
+    canonicalUnit: c.canonicalUnit ?? null,
+  }));
   const versionId = await insertVersion(tx, {
     measurementSetId,
     version,
@@ -87,7 +97,10 @@ export async function storeVersion(
     uploadedBy: input.actor.id,
     uploadedAt: now,
   });
-  await insertRows(tx, parsed.rows.map((row, position) => toStoredRow(row, versionId, position)));
+  await insertRows(
+    tx,
+    parsed.rows.map((row, position) => toStoredRow(row, versionId, position)),
+  );
   await recordAudit(tx, {
     actor: input.actor,
     action: version === 1 ? 'dataset.uploaded' : 'dataset.version_uploaded',

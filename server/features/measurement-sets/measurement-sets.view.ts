@@ -1,4 +1,10 @@
-import { storedColumns, storedRawCells, type MeasurementSetDetail, type MeasurementSetRow, type MeasurementSetSummary } from '../../../shared/contracts/measurement-set';
+import {
+  storedColumns,
+  storedRawCells,
+  type MeasurementSetDetail,
+  type MeasurementSetRow,
+  type MeasurementSetSummary,
+} from '../../../shared/contracts/measurement-set';
 import { PROPERTY_KINDS, type PropertyKind } from '../../../shared/measurements/property-kinds';
 import type { findMeasurementSet, listMeasurementSetsOfSubstance, listVersions, rowsOfVersion } from './measurement-sets.repository';
 
@@ -40,7 +46,13 @@ export function toMeasurementSetRowView(kind: PropertyKind, row: StoredRow): Mea
 }
 
 /** One version of a set (`chosen`, one of `versions`, newest first) with its rows. */
-export function toMeasurementSetDetailView(input: { set: SetRow; substanceName: string; versions: VersionRow[]; chosen: VersionRow; rows: StoredRow[] }): MeasurementSetDetail {
+export function toMeasurementSetDetailView(input: {
+  set: SetRow;
+  substanceName: string;
+  versions: VersionRow[];
+  chosen: VersionRow;
+  rows: StoredRow[];
+}): MeasurementSetDetail {
   const { set, chosen, versions } = input;
   const def = PROPERTY_KINDS[set.kind];
   return {
@@ -69,7 +81,15 @@ export function toMeasurementSetDetailView(input: { set: SetRow; substanceName: 
     uploadedAt: chosen.uploadedAt,
     uploadedByName: chosen.uploadedByName,
     withdrawn: set.withdrawnAt ? { at: set.withdrawnAt, reason: set.withdrawnReason ?? '' } : null,
-    versions: versions.map((v) => ({ version: v.version, sha256: v.sha256, rowCount: v.rowCount, uploadedAt: v.uploadedAt, uploadedByName: v.uploadedByName, originalFilename: v.originalFilename, source: v.source })),
+    versions: versions.map((v) => ({
+      version: v.version,
+      sha256: v.sha256,
+      rowCount: v.rowCount,
+      uploadedAt: v.uploadedAt,
+      uploadedByName: v.uploadedByName,
+      originalFilename: v.originalFilename,
+      source: v.source,
+    })),
     rows: input.rows.map((r) => toMeasurementSetRowView(set.kind, r)),
   };
 }

@@ -9,7 +9,18 @@ export async function pairMemberOf(db: Db | Tx, id: number) {
   return db
     .selectFrom('parameterSet')
     .innerJoin('substance', 'substance.id', 'parameterSet.substanceId')
-    .select(['parameterSet.id', 'parameterSet.version', 'parameterSet.state', 'parameterSet.substanceId', 'substance.name as substanceName', 'parameterSet.epsilonK', 'parameterSet.sigmaAngstrom', 'parameterSet.epsilonStdErrK', 'parameterSet.sigmaStdErrAngstrom', 'parameterSet.correlation'])
+    .select([
+      'parameterSet.id',
+      'parameterSet.version',
+      'parameterSet.state',
+      'parameterSet.substanceId',
+      'substance.name as substanceName',
+      'parameterSet.epsilonK',
+      'parameterSet.sigmaAngstrom',
+      'parameterSet.epsilonStdErrK',
+      'parameterSet.sigmaStdErrAngstrom',
+      'parameterSet.correlation',
+    ])
     .where('parameterSet.id', '=', id)
     .executeTakeFirst();
 }
@@ -20,13 +31,24 @@ export async function measurementSetForPair(db: Db | Tx, id: number) {
   return db
     .selectFrom('measurementSet')
     .leftJoin('measurementSetWithdrawal', 'measurementSetWithdrawal.measurementSetId', 'measurementSet.id')
-    .select(['measurementSet.id', 'measurementSet.name', 'measurementSet.kind', 'measurementSet.substanceId', 'measurementSetWithdrawal.withdrawnAt'])
+    .select([
+      'measurementSet.id',
+      'measurementSet.name',
+      'measurementSet.kind',
+      'measurementSet.substanceId',
+      'measurementSetWithdrawal.withdrawnAt',
+    ])
     .where('measurementSet.id', '=', id)
     .executeTakeFirst();
 }
 
 export async function latestVersionOf(db: Db | Tx, measurementSetId: number) {
-  return db.selectFrom('measurementSetVersion').select(['id', 'version']).where('measurementSetId', '=', measurementSetId).orderBy('version', 'desc').executeTakeFirstOrThrow();
+  return db
+    .selectFrom('measurementSetVersion')
+    .select(['id', 'version'])
+    .where('measurementSetId', '=', measurementSetId)
+    .orderBy('version', 'desc')
+    .executeTakeFirstOrThrow();
 }
 
 /** The measurement set version a pair set was fitted to, with its set's id and name. */

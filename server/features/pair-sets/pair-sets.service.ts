@@ -13,7 +13,16 @@ import type { Db, Tx } from '../../db/database';
 import { recordAudit } from '../audit/audit.service';
 import { loadVersionForFit } from '../measurement-sets/measurement-sets.service';
 import {
-  approvedPairRows, findPairSet, fittedVersionOf, insertPairSet, latestVersionOf, measurementSetForPair, pairMemberOf, pairSetRows, personName, updatePairSet,
+  approvedPairRows,
+  findPairSet,
+  fittedVersionOf,
+  insertPairSet,
+  latestVersionOf,
+  measurementSetForPair,
+  pairMemberOf,
+  pairSetRows,
+  personName,
+  updatePairSet,
   type PairSetRow,
 } from './pair-sets.repository';
 import type { PairSetState } from './pair-sets.table';
@@ -26,27 +35,58 @@ export async function createPairSet(db: Db, actor: CurrentUser, body: PairSetCre
     sets.forEach((s, k) => {
       const field = `parameterSetIds.${body.parameterSetIds.indexOf(k === 0 ? idA : idB)}`;
       if (!s) throw unprocessable(`Parameter set ${k === 0 ? idA : idB} was not found.`, [{ field, message: 'no such parameter set' }]);
-      if (s.state !== 'approved') throw unprocessable(`Parameter set ${s.id} is ${s.state.replace('_', ' ')}; a pair set needs two approved sets.`, [{ field, message: `state ${s.state}, not approved` }]);
+      if (s.state !== 'approved')
+        throw unprocessable(`Parameter set ${s.id} is ${s.state.replace('_', ' ')}; a pair set needs two approved sets.`, [
+          { field, message: `state ${s.state}, not approved` },
+        ]);
     });
     const [a, b] = sets as NonNullable<(typeof sets)[number]>[];
-    if (a.substanceId === b.substanceId) throw unprocessable('Both parameter sets belong to the same substance; a pair needs two substances.', [{ field: 'parameterSetIds', message: 'same substance' }]);
+    if (a.substanceId === b.substanceId)
+      throw unprocessable('Both parameter sets belong to the same substance; a pair needs two substances.', [
+        { field: 'parameterSetIds', message: 'same substance' },
+      ]);
     const measurementSet = await measurementSetForPair(tx, body.measurementSetId);
-    if (!measurementSet) throw unprocessable(`Measurement set ${body.measurementSetId} was not found.`, [{ field: 'measurementSetId', message: 'no such measurement set' }]);
-    if (measurementSet.kind !== 'b12') throw unprocessable(`Measurement set "${measurementSet.name}" holds ${measurementSet.kind} data; a pair set is fitted to cross second virial coefficients (B12).`, [{ field: 'measurementSetId', message: `kind ${measurementSet.kind}, not b12` }]);
-    if (measurementSet.withdrawnAt) throw unprocessable(`Measurement set "${measurementSet.name}" was withdrawn.`, [{ field: 'measurementSetId', message: 'withdrawn' }]);
+    if (!measurementSet)
+      throw unprocessable(`Measurement set ${body.measurementSetId} was not found.`, [
+        { field: 'measurementSetId', message: 'no such measurement set' },
+      ]);
+    if (measurementSet.kind !== 'b12')
+      throw unprocessable(
+        `Measurement set "${measurementSet.name}" holds ${measurementSet.kind} data; a pair set is fitted to cross second virial coefficients (B12).`,
+        [{ field: 'measurementSetId', message: `kind ${measurementSet.kind}, not b12` }],
+      );
+    if (measurementSet.withdrawnAt)
+      throw unprocessable(`Measurement set "${measurementSet.name}" was withdrawn.`, [{ field: 'measurementSetId', message: 'withdrawn' }]);
     if (measurementSet.substanceId !== a.substanceId && measurementSet.substanceId !== b.substanceId) {
-      throw unprocessable(`Measurement set "${measurementSet.name}" belongs to neither substance of the pair.`, [{ field: 'measurementSetId', message: 'not a measurement set of either substance' }]);
+      throw unprocessable(`Measurement set "${measurementSet.name}" belongs to neither substance of the pair.`, [
+        { field: 'measurementSetId', message: 'not a measurement set of either substance' },
+      ]);
     }
     const version = await latestVersionOf(tx, measurementSet.id);
     const rows = await loadVersionForFit(tx, version.id);
-    const pure = (s: typeof a) => ({ epsilonK: s.epsilonK, sigmaAngstrom: s.sigmaAngstrom, stdErr: { epsilonK: s.epsilonStdErrK, sigmaAngstrom: s.sigmaStdErrAngstrom }, correlation: s.correlation });
+    const pure = (s: typeof a) => ({
+      epsilonK: s.epsilonK,
+      sigmaAngstrom: s.sigmaAngstrom,
+      stdErr: { epsilonK: s.epsilonStdErrK, sigmaAngstrom: s.sigmaStdErrAngstrom },
+      correlation: s.correlation,
+    });
     let result;
     try {
-      result = fitCrossInteraction(pure(a), pure(b), rows.map((r) => ({ temperatureK: r.temperatureK, b12Cm3PerMol: r.value, uB12Cm3PerMol: r.uncertainty })), { fitLij: body.fitLij ?? false });
+      result = fitCrossInteraction(
+        pure(a),
+        pure(b),
+        rows.map((r) => ({ temperatureK: r.temperatureK, b12Cm3PerMol: r.value, uB12Cm3PerMol: r.uncertainty })),
+        { fitLij: body.fitLij ?? false },
+      );
     } catch (err) {
-      throw unprocessable(`The pair-set fit cannot run: ${err instanceof Error ? err.message : String(err)}`, [{ field: 'measurementSetId', message: 'fit input refused' }]);
+      throw unprocessable(`The pair-set fit cannot run: ${err instanceof Error ? err.message : String(err)}`, [
+        { field: 'measurementSetId', message: 'fit input refused' },
+      ]);
     }
-    if (!result.converged) throw new AppError(422, 'fit_failed', 'The k_ij fit did not converge; check the B12 table.', [{ field: 'measurementSetId', message: 'fit did not converge' }]);
+    if (!result.converged)
+      throw new AppError(422, 'fit_failed', 'The k_ij fit did not converge; check the B12 table.', [
+        { field: 'measurementSetId', message: 'fit did not converge' },
+      ]);
     const now = new Date().toISOString();
     const pairSetId = await insertPairSet(tx, {
       firstSetId: a.id,
@@ -72,7 +112,14 @@ export async function createPairSet(db: Db, actor: CurrentUser, body: PairSetCre
       targetType: 'pair_set',
       targetId: pairSetId,
       summary: `${actor.email} fitted k_ij = ${result.kij.toFixed(4)} ± ${result.kijStdErr?.toFixed(4) ?? '?'} for ${a.substanceName} + ${b.substanceName} and sent it to review`,
-      after: { firstSetId: a.id, secondSetId: b.id, measurementSetVersionId: version.id, kij: result.kij, kijStdErr: result.kijStdErr, lij: result.lij },
+      after: {
+        firstSetId: a.id,
+        secondSetId: b.id,
+        measurementSetVersionId: version.id,
+        kij: result.kij,
+        kijStdErr: result.kijStdErr,
+        lij: result.lij,
+      },
     });
     return (await pairSetView(tx, pairSetId))!;
   });
@@ -104,13 +151,22 @@ export async function listPairSets(db: Db, state?: PairSetState): Promise<PairSe
 }
 
 /** Approve or send back a pair set in review; never the author's own (four eyes). */
-export async function reviewPairSet(db: Db, actor: CurrentUser, id: number, decision: 'approve' | 'request-changes', comment: string | undefined): Promise<PairSetView> {
+export async function reviewPairSet(
+  db: Db,
+  actor: CurrentUser,
+  id: number,
+  decision: 'approve' | 'request-changes',
+  comment: string | undefined,
+): Promise<PairSetView> {
   return db.transaction().execute(async (tx) => {
     const r = await findPairSet(tx, id);
     if (!r) throw notFound(`Pair set ${id}`);
     if (r.state !== 'in_review') throw conflict(`Pair set ${id} is ${r.state.replace('_', ' ')}, not in review.`);
     if (r.createdBy === actor.id) throw new AppError(403, 'four_eyes', 'A pair set is reviewed by someone other than its author.');
-    if (decision === 'request-changes' && !comment) throw new AppError(400, 'validation_failed', 'Say what should change.', [{ field: 'comment', message: 'required when requesting changes' }]);
+    if (decision === 'request-changes' && !comment)
+      throw new AppError(400, 'validation_failed', 'Say what should change.', [
+        { field: 'comment', message: 'required when requesting changes' },
+      ]);
     const state = decision === 'approve' ? 'approved' : 'changes_requested';
     const now = new Date().toISOString();
     await updatePairSet(tx, id, { state, reviewedBy: actor.id, reviewedAt: now, reviewComment: comment ?? null });
@@ -137,7 +193,18 @@ export async function approvedPairsFor(db: Db | Tx, setIds: readonly number[]): 
     const key = `${r.firstSetId}-${r.secondSetId}`;
     if (seen.has(key)) continue;
     seen.add(key);
-    out.push({ pairSetId: r.id, setIdA: r.firstSetId, setIdB: r.secondSetId, kij: r.kij, kijStdErr: r.kijStdErr, lij: r.lij, epsilonK: r.epsilon12K, sigmaAngstrom: r.sigma12Angstrom, epsilonStdErrK: r.epsilon12StdErrK, sigmaStdErrAngstrom: r.sigma12StdErrAngstrom });
+    out.push({
+      pairSetId: r.id,
+      setIdA: r.firstSetId,
+      setIdB: r.secondSetId,
+      kij: r.kij,
+      kijStdErr: r.kijStdErr,
+      lij: r.lij,
+      epsilonK: r.epsilon12K,
+      sigmaAngstrom: r.sigma12Angstrom,
+      epsilonStdErrK: r.epsilon12StdErrK,
+      sigmaStdErrAngstrom: r.sigma12StdErrAngstrom,
+    });
   }
   return out;
 }

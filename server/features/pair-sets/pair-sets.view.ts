@@ -11,7 +11,14 @@ export interface PairSetRelated {
   reviewedBy: { id: string; name: string } | null;
 }
 
-const member = (s: PairMember) => ({ id: s.id, version: s.version, substanceId: s.substanceId, substanceName: s.substanceName, epsilonK: s.epsilonK, sigmaAngstrom: s.sigmaAngstrom });
+const member = (s: PairMember) => ({
+  id: s.id,
+  version: s.version,
+  substanceId: s.substanceId,
+  substanceName: s.substanceName,
+  epsilonK: s.epsilonK,
+  sigmaAngstrom: s.sigmaAngstrom,
+});
 
 /** One pair set as the API shows it; result_json is parsed with its contract (after renaming old keys). */
 export function toPairSetView(r: PairSetRow, related: PairSetRelated): PairSetView {

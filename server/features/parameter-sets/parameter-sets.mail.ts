@@ -7,7 +7,12 @@ const values = (row: ParameterSetRow) => `ε/k_B = ${row.epsilonK.toPrecision(6)
 
 export const submittedMail = (row: ParameterSetRow, actorName: string) => ({
   subject: `In review: ${setLabel(row)}`,
-  ...mailBody([`${actorName} submitted ${setLabel(row)} for review.`, `${values(row)}, from Fit #${row.fitNumber}.`, `Rationale: ${row.rationale}`, 'It waits on the Review desk.']),
+  ...mailBody([
+    `${actorName} submitted ${setLabel(row)} for review.`,
+    `${values(row)}, from Fit #${row.fitNumber}.`,
+    `Rationale: ${row.rationale}`,
+    'It waits on the Review desk.',
+  ]),
 });
 
 export const changesRequestedMail = (row: ParameterSetRow, actorName: string, comment: string) => ({

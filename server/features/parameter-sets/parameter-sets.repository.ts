@@ -44,7 +44,9 @@ function baseQuery(db: Db | Tx) {
     .innerJoin('fit', 'fit.id', 'parameterSet.fitId')
     .innerJoin('user as author', 'author.id', 'parameterSet.createdBy')
     .select(SET_COLUMNS)
-    .select((eb) => eb.selectFrom('parameterSet as rev').select('rev.id').whereRef('rev.revisionOf', '=', 'parameterSet.id').as('revisedBy'));
+    .select((eb) =>
+      eb.selectFrom('parameterSet as rev').select('rev.id').whereRef('rev.revisionOf', '=', 'parameterSet.id').as('revisedBy'),
+    );
 }
 
 export type ParameterSetRow = NonNullable<Awaited<ReturnType<typeof findParameterSet>>>;
@@ -64,7 +66,12 @@ export async function listParameterSets(db: Db | Tx, filter: { substanceId?: num
 export async function listReviewQueue(db: Db | Tx, reviewerId: string) {
   return baseQuery(db)
     .select((eb) =>
-      eb.selectFrom('parameterSetTransition as t').select((e) => e.fn.max('t.at').as('at')).whereRef('t.parameterSetId', '=', 'parameterSet.id').where('t.toState', '=', 'in_review').as('submittedAt'),
+      eb
+        .selectFrom('parameterSetTransition as t')
+        .select((e) => e.fn.max('t.at').as('at'))
+        .whereRef('t.parameterSetId', '=', 'parameterSet.id')
+        .where('t.toState', '=', 'in_review')
+        .as('submittedAt'),
     )
     .where('parameterSet.state', '=', 'in_review')
     .where('parameterSet.createdBy', '!=', reviewerId)
@@ -74,7 +81,12 @@ export async function listReviewQueue(db: Db | Tx, reviewerId: string) {
 }
 
 export async function nextVersion(tx: Tx, substanceId: number, scheme: CutoffScheme): Promise<number> {
-  const row = await tx.selectFrom('parameterSet').select((eb) => eb.fn.max('version').as('v')).where('substanceId', '=', substanceId).where('scheme', '=', scheme).executeTakeFirst();
+  const row = await tx
+    .selectFrom('parameterSet')
+    .select((eb) => eb.fn.max('version').as('v'))
+    .where('substanceId', '=', substanceId)
+    .where('scheme', '=', scheme)
+    .executeTakeFirst();
   return Number(row?.v ?? 0) + 1;
 }
 
@@ -125,11 +137,23 @@ export async function insertTransition(tx: Tx, values: Insertable<ParameterSetTr
   await tx.insertInto('parameterSetTransition').values(values).execute();
 }
 
-export async function updateParameterSet(tx: Tx, id: number, values: Partial<Pick<ParameterSetTable, 'state' | 'rationale' | 'temperatureMinK' | 'temperatureMaxK' | 'pressureMinMpa' | 'pressureMaxMpa' | 'updatedAt'>>) {
+export async function updateParameterSet(
+  tx: Tx,
+  id: number,
+  values: Partial<
+    Pick<
+      ParameterSetTable,
+      'state' | 'rationale' | 'temperatureMinK' | 'temperatureMaxK' | 'pressureMinMpa' | 'pressureMaxMpa' | 'updatedAt'
+    >
+  >,
+) {
   await tx.updateTable('parameterSet').set(values).where('id', '=', id).execute();
 }
 
-export async function insertComment(tx: Tx, values: { parameterSetId: number; authorId: string; body: string; createdAt: string }): Promise<number> {
+export async function insertComment(
+  tx: Tx,
+  values: { parameterSetId: number; authorId: string; body: string; createdAt: string },
+): Promise<number> {
   const { id } = await tx.insertInto('parameterSetComment').values(values).returning('id').executeTakeFirstOrThrow();
   return id;
 }

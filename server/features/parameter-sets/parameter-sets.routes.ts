@@ -92,7 +92,12 @@ export function parameterSetRoutes(ctx: AppContext): Router {
     const { id } = validParams(idParams, req);
     const sent = withNewFieldNames(updateParameterSetBody, req.body);
     const raw = sent && typeof sent === 'object' ? (sent as Record<string, unknown>) : {};
-    await refuseUnlessEditable(db, currentUser(res), id, FROZEN_FIELDS.filter((f) => f in raw));
+    await refuseUnlessEditable(
+      db,
+      currentUser(res),
+      id,
+      FROZEN_FIELDS.filter((f) => f in raw),
+    );
     const body = validBody(updateParameterSetBody, req);
     sendView(res, parameterSetDetailView, await editDraft(db, currentUser(res), id, body));
   });

@@ -1,7 +1,16 @@
 import { hasPolicy } from '../../../shared/auth/roles';
 import { schemeOfFit } from '../../../shared/parameter-sets/scheme';
 import { roundValidity } from '../../../shared/parameter-sets/validity';
-import { availableMoves, checkMove, isVisibleTo, STATE_LABELS, type Move, type MoveActor, type MoveSubject, type ParameterSetState } from '../../../shared/parameter-sets/transitions';
+import {
+  availableMoves,
+  checkMove,
+  isVisibleTo,
+  STATE_LABELS,
+  type Move,
+  type MoveActor,
+  type MoveSubject,
+  type ParameterSetState,
+} from '../../../shared/parameter-sets/transitions';
 import { CUTOFF_SCHEME_LABELS, type CutoffScheme } from '../../../shared/physics/cutoff-schemes';
 import {
   CUTOFF_SIGMA_RANGE,
@@ -77,11 +86,26 @@ export async function requireVisibleSet(db: Db | Tx, id: number, viewer: Current
  * Makes one move through the state machine: refuses with its status and code, or writes the transition
  * row, the new state and the audit row. Runs inside the caller's transaction.
  */
-async function applyMove(tx: Tx, row: ParameterSetRow, move: Move, actor: CurrentUser | null, text: string | null, extra: { summary?: string } = {}): Promise<ParameterSetState> {
+async function applyMove(
+  tx: Tx,
+  row: ParameterSetRow,
+  move: Move,
+  actor: CurrentUser | null,
+  text: string | null,
+  extra: { summary?: string } = {},
+): Promise<ParameterSetState> {
   const decision = checkMove(move, await subjectOf(tx, row), actor ? moveActor(actor) : SYSTEM, { text });
   if (!decision.ok) throw new AppError(decision.status, decision.code, decision.message);
   const at = new Date().toISOString();
-  await insertTransition(tx, { parameterSetId: row.id, move, fromState: row.state, toState: decision.to, actorId: actor?.id ?? null, comment: text, at });
+  await insertTransition(tx, {
+    parameterSetId: row.id,
+    move,
+    fromState: row.state,
+    toState: decision.to,
+    actorId: actor?.id ?? null,
+    comment: text,
+    at,
+  });
   if (decision.to !== row.state) await updateParameterSet(tx, row.id, { state: decision.to, updatedAt: at });
   const who = actor?.email ?? 'Epsigma';
   await recordAudit(tx, {
@@ -107,9 +131,19 @@ async function usableFit(db: Db | Tx, fitId: number, field = 'fitId') {
   if (!row) throw new AppError(422, 'unknown_fit', `Fit ${fitId} does not exist.`, [{ field, message: 'no such fit' }]);
   const fit = toFitView(row);
   if (fit.status !== 'succeeded' || !fit.result || fit.result.status !== 'succeeded') {
-    throw new AppError(409, 'fit_not_succeeded', `Fit #${fit.number} of ${fit.substanceName} is ${fit.status}; only a succeeded fit can back a parameter set.`, [{ field, message: `fit is ${fit.status}` }]);
+    throw new AppError(
+      409,
+      'fit_not_succeeded',
+      `Fit #${fit.number} of ${fit.substanceName} is ${fit.status}; only a succeeded fit can back a parameter set.`,
+      [{ field, message: `fit is ${fit.status}` }],
+    );
   }
-  if (fit.model !== 'lj-12-6' && fit.model !== 'mie') throw new AppError(409, 'unsupported_model', `Fit #${fit.number} used model ${fit.model}; parameter sets hold LJ 12-6 or Mie λr-6 parameters.`);
+  if (fit.model !== 'lj-12-6' && fit.model !== 'mie')
+    throw new AppError(
+      409,
+      'unsupported_model',
+      `Fit #${fit.number} used model ${fit.model}; parameter sets hold LJ 12-6 or Mie λr-6 parameters.`,
+    );
   return { fit, result: fit.result as LjFitResult };
 }
 
@@ -127,40 +161,55 @@ async function dataSpan(db: Db | Tx, fit: Awaited<ReturnType<typeof usableFit>>[
 async function insertSet(
   tx: Tx,
   actor: CurrentUser,
-  input: { fit: Awaited<ReturnType<typeof usableFit>>; scheme: CutoffScheme; cutoffSigma: number | null; validity: Validity; rationale: string; revisionOf: ParameterSetRow | null },
+  input: {
+    fit: Awaited<ReturnType<typeof usableFit>>;
+    scheme: CutoffScheme;
+    cutoffSigma: number | null;
+    validity: Validity;
+    rationale: string;
+    revisionOf: ParameterSetRow | null;
+  },
 ) {
   const { fit, result } = input.fit;
   const version = await nextVersion(tx, fit.substanceId, input.scheme);
   const validity = roundValidity(input.validity);
   const now = new Date().toISOString();
   const id = await insertParameterSet(tx, {
-      substanceId: fit.substanceId,
-      scheme: input.scheme,
-      cutoffSigma: input.cutoffSigma,
-      version,
-      fitId: fit.id,
-      revisionOf: input.revisionOf?.id ?? null,
-      model: 'lj-12-6',
-      potential: result.model === 'mie' ? 'mie' : 'lj-12-6',
-      repulsiveExponent: result.repulsiveExponent ?? 12,
-      epsilonK: result.epsilonK,
-      sigmaAngstrom: result.sigmaAngstrom,
-      epsilonStdErrK: result.stdErr.epsilonK,
-      sigmaStdErrAngstrom: result.stdErr.sigmaAngstrom,
-      correlation: result.correlation,
-      measurementSetsJson: JSON.stringify(fit.measurementSets),
-      temperatureMinK: validity.temperatureMinK,
-      temperatureMaxK: validity.temperatureMaxK,
-      pressureMinMpa: validity.pressureMinMPa ?? null,
-      pressureMaxMpa: validity.pressureMaxMPa ?? null,
-      rationale: input.rationale,
-      state: 'draft',
-      createdBy: actor.id,
-      createdAt: now,
-      updatedAt: now,
+    substanceId: fit.substanceId,
+    scheme: input.scheme,
+    cutoffSigma: input.cutoffSigma,
+    version,
+    fitId: fit.id,
+    revisionOf: input.revisionOf?.id ?? null,
+    model: 'lj-12-6',
+    potential: result.model === 'mie' ? 'mie' : 'lj-12-6',
+    repulsiveExponent: result.repulsiveExponent ?? 12,
+    epsilonK: result.epsilonK,
+    sigmaAngstrom: result.sigmaAngstrom,
+    epsilonStdErrK: result.stdErr.epsilonK,
+    sigmaStdErrAngstrom: result.stdErr.sigmaAngstrom,
+    correlation: result.correlation,
+    measurementSetsJson: JSON.stringify(fit.measurementSets),
+    temperatureMinK: validity.temperatureMinK,
+    temperatureMaxK: validity.temperatureMaxK,
+    pressureMinMpa: validity.pressureMinMPa ?? null,
+    pressureMaxMpa: validity.pressureMaxMPa ?? null,
+    rationale: input.rationale,
+    state: 'draft',
+    createdBy: actor.id,
+    createdAt: now,
+    updatedAt: now,
   });
   const comment = input.revisionOf ? `Revision of v${input.revisionOf.version} after changes were requested` : null;
-  await insertTransition(tx, { parameterSetId: id, move: 'create', fromState: null, toState: 'draft', actorId: actor.id, comment, at: now });
+  await insertTransition(tx, {
+    parameterSetId: id,
+    move: 'create',
+    fromState: null,
+    toState: 'draft',
+    actorId: actor.id,
+    comment,
+    at: now,
+  });
   const row = (await findParameterSet(tx, id))!;
   await recordAudit(tx, {
     actor,
@@ -177,7 +226,12 @@ async function insertSet(
 function defaultScheme(result: LjFitResult): { scheme: CutoffScheme; cutoffSigma: number | null } {
   const d = schemeOfFit(result as LjFitResult & { mdSettings?: { scheme?: string; cutoff?: number } });
   if (d.cutoffOutOfRange) {
-    throw new AppError(422, 'cutoff_out_of_range', `The fit's simulations used r_c = ${d.cutoffSigma} σ, outside the ${CUTOFF_SIGMA_RANGE.min}–${CUTOFF_SIGMA_RANGE.max} σ a parameter set accepts; name the scheme and cutoff yourself.`, [{ field: 'cutoffSigma', message: `simulation cutoff ${d.cutoffSigma} σ out of range` }]);
+    throw new AppError(
+      422,
+      'cutoff_out_of_range',
+      `The fit's simulations used r_c = ${d.cutoffSigma} σ, outside the ${CUTOFF_SIGMA_RANGE.min}–${CUTOFF_SIGMA_RANGE.max} σ a parameter set accepts; name the scheme and cutoff yourself.`,
+      [{ field: 'cutoffSigma', message: `simulation cutoff ${d.cutoffSigma} σ out of range` }],
+    );
   }
   return { scheme: d.scheme, cutoffSigma: d.cutoffSigma };
 }
@@ -187,38 +241,71 @@ export async function createParameterSet(db: Db, actor: CurrentUser, body: Creat
   const fit = await usableFit(db, body.fitId);
   const validity = body.validity ?? (await dataSpan(db, fit.fit));
   const { scheme, cutoffSigma } = body.scheme ? { scheme: body.scheme, cutoffSigma: body.cutoffSigma ?? null } : defaultScheme(fit.result);
-  const row = await db.transaction().execute((tx) => insertSet(tx, actor, { fit, scheme, cutoffSigma, validity, rationale: body.rationale, revisionOf: null }));
+  const row = await db
+    .transaction()
+    .execute((tx) => insertSet(tx, actor, { fit, scheme, cutoffSigma, validity, rationale: body.rationale, revisionOf: null }));
   return toParameterSetView(row);
 }
 
 /** POST /api/parameter-sets/:id/revise: the set sent back stays as it is; its revision is the next version, a new draft. */
-export async function reviseParameterSet(db: Db, actor: CurrentUser, id: number, body: ReviseParameterSetBody): Promise<ParameterSetSummary> {
+export async function reviseParameterSet(
+  db: Db,
+  actor: CurrentUser,
+  id: number,
+  body: ReviseParameterSetBody,
+): Promise<ParameterSetSummary> {
   const before = await requireVisibleSet(db, id, actor);
   // Role and state first, so a refused move answers 403/409 whatever the body holds.
   const allowed = checkMove('revise', await subjectOf(db, before), moveActor(actor));
   if (!allowed.ok) throw new AppError(allowed.status, allowed.code, allowed.message);
   const fitId = body.fitId ?? before.fitId;
   const fit = await usableFit(db, fitId);
-  if (fit.fit.substanceId !== before.substanceId) throw new AppError(422, 'wrong_substance', `Fit #${fit.fit.number} is a fit of ${fit.fit.substanceName}, not of ${before.substanceName}.`, [{ field: 'fitId', message: 'fit of another substance' }]);
-  if (fit.fit.id < before.fitId) throw new AppError(422, 'older_fit', `A revision is drafted from the same fit (#${before.fitNumber}) or a newer one.`, [{ field: 'fitId', message: 'older than the fit of the set sent back' }]);
+  if (fit.fit.substanceId !== before.substanceId)
+    throw new AppError(
+      422,
+      'wrong_substance',
+      `Fit #${fit.fit.number} is a fit of ${fit.fit.substanceName}, not of ${before.substanceName}.`,
+      [{ field: 'fitId', message: 'fit of another substance' }],
+    );
+  if (fit.fit.id < before.fitId)
+    throw new AppError(422, 'older_fit', `A revision is drafted from the same fit (#${before.fitNumber}) or a newer one.`, [
+      { field: 'fitId', message: 'older than the fit of the set sent back' },
+    ]);
   // Like a first draft: the scheme and cutoff the fit was made for, unless the author names them.
   const inherited = body.scheme ? { scheme: body.scheme, cutoffSigma: body.cutoffSigma ?? null } : defaultScheme(fit.result);
   if (!body.scheme && body.cutoffSigma !== undefined) {
-    if (inherited.scheme === 'full-potential') throw new AppError(400, 'validation_failed', 'Cutoff r_c (σ): the full potential has no cutoff; leave the cutoff empty or choose a truncated scheme.', [{ field: 'cutoffSigma', message: 'the full potential has no cutoff; leave the cutoff empty' }]);
+    if (inherited.scheme === 'full-potential')
+      throw new AppError(
+        400,
+        'validation_failed',
+        'Cutoff r_c (σ): the full potential has no cutoff; leave the cutoff empty or choose a truncated scheme.',
+        [{ field: 'cutoffSigma', message: 'the full potential has no cutoff; leave the cutoff empty' }],
+      );
     inherited.cutoffSigma = body.cutoffSigma;
   }
   const sameFit = fit.fit.id === before.fitId;
   const validity: Validity =
     body.validity ??
     (sameFit
-      ? { temperatureMinK: before.temperatureMinK, temperatureMaxK: before.temperatureMaxK, ...(before.pressureMinMpa !== null ? { pressureMinMPa: before.pressureMinMpa, pressureMaxMPa: before.pressureMaxMpa! } : {}) }
+      ? {
+          temperatureMinK: before.temperatureMinK,
+          temperatureMaxK: before.temperatureMaxK,
+          ...(before.pressureMinMpa !== null ? { pressureMinMPa: before.pressureMinMpa, pressureMaxMPa: before.pressureMaxMpa! } : {}),
+        }
       : await dataSpan(db, fit.fit));
   const row = await db.transaction().execute(async (tx) => {
     const current = (await findParameterSet(tx, id))!;
     const version = await nextVersion(tx, current.substanceId, inherited.scheme);
     const schemeChange = inherited.scheme !== current.scheme ? ` (${CUTOFF_SCHEME_LABELS[inherited.scheme]})` : '';
     await applyMove(tx, current, 'revise', actor, `Revised as v${version}${schemeChange}`);
-    return insertSet(tx, actor, { fit, scheme: inherited.scheme, cutoffSigma: inherited.cutoffSigma, validity, rationale: body.rationale, revisionOf: current });
+    return insertSet(tx, actor, {
+      fit,
+      scheme: inherited.scheme,
+      cutoffSigma: inherited.cutoffSigma,
+      validity,
+      rationale: body.rationale,
+      revisionOf: current,
+    });
   });
   return toParameterSetView(row);
 }
@@ -228,7 +315,10 @@ const link = (id: number) => `/parameter-sets/${id}`;
 /** 422 naming every measurement set (name and version) whose version behind the set has no source citation. */
 async function requireCitations(tx: Tx, refs: MeasurementSetRef[]) {
   if (!refs.length) return;
-  const versions = await versionSources(tx, refs.map((r) => r.versionId));
+  const versions = await versionSources(
+    tx,
+    refs.map((r) => r.versionId),
+  );
   const missing = refs.filter((r) => !(versions.find((v) => v.id === r.versionId)?.source ?? '').trim());
   if (!missing.length) return;
   const names = missing.map((r) => `"${r.name}" v${r.version}`);
@@ -236,7 +326,12 @@ async function requireCitations(tx: Tx, refs: MeasurementSetRef[]) {
     422,
     'citation_missing',
     `A parameter set goes to review only when every measurement set behind it cites its source. ${names.length === 1 ? `${names[0]} has` : `${names.join(', ')} have`} no source citation: upload a new version with the citation and draft a revision from a fit that uses it.`,
-    missing.map((r) => ({ field: 'measurementSets', measurementSetId: r.measurementSetId, version: r.version, message: `measurement set "${r.name}" v${r.version} has no source citation` })),
+    missing.map((r) => ({
+      field: 'measurementSets',
+      measurementSetId: r.measurementSetId,
+      version: r.version,
+      message: `measurement set "${r.name}" v${r.version} has no source citation`,
+    })),
   );
 }
 
@@ -263,7 +358,13 @@ export async function submitParameterSet(db: Db, actor: CurrentUser, id: number)
 }
 
 /** POST /api/parameter-sets/:id/review: approve (superseding the approved older version) or send back. */
-export async function reviewParameterSet(db: Db, actor: CurrentUser, id: number, decision: 'approve' | 'request_changes', comment: string): Promise<ParameterSetDetail> {
+export async function reviewParameterSet(
+  db: Db,
+  actor: CurrentUser,
+  id: number,
+  decision: 'approve' | 'request_changes',
+  comment: string,
+): Promise<ParameterSetDetail> {
   await requireVisibleSet(db, id, actor);
   await db.transaction().execute(async (tx) => {
     const row = (await findParameterSet(tx, id))!;
@@ -282,7 +383,9 @@ export async function reviewParameterSet(db: Db, actor: CurrentUser, id: number,
     const superseded: string[] = [];
     for (const older of await approvedOf(tx, row.substanceId, row.scheme, row.potential)) {
       if (older.id === row.id) continue;
-      await applyMove(tx, older, 'supersede', null, `Superseded by v${row.version}`, { summary: `${setLabel(older)} superseded by v${row.version}, approved by ${actor.email}` });
+      await applyMove(tx, older, 'supersede', null, `Superseded by v${row.version}`, {
+        summary: `${setLabel(older)} superseded by v${row.version}, approved by ${actor.email}`,
+      });
       superseded.push(`v${older.version}`);
     }
     await queueMail(tx, {
@@ -326,7 +429,12 @@ export async function refuseUnlessEditable(db: Db, actor: CurrentUser, id: numbe
   const decision = checkMove('edit', await subjectOf(db, row), moveActor(actor));
   if (!decision.ok) throw new AppError(decision.status, decision.code, decision.message);
   if (frozenFieldsInBody.length) {
-    throw new AppError(409, 'values_frozen', `The values of a parameter set are frozen at creation (${frozenFieldsInBody.join(', ')}); draft a new parameter set from a fit instead.`, frozenFieldsInBody.map((field) => ({ field, message: 'frozen at creation' })));
+    throw new AppError(
+      409,
+      'values_frozen',
+      `The values of a parameter set are frozen at creation (${frozenFieldsInBody.join(', ')}); draft a new parameter set from a fit instead.`,
+      frozenFieldsInBody.map((field) => ({ field, message: 'frozen at creation' })),
+    );
   }
 }
 
@@ -336,11 +444,18 @@ export async function editDraft(db: Db, actor: CurrentUser, id: number, body: Up
     const row = (await requireVisibleSet(tx, id, actor))!;
     const changed = [body.rationale !== undefined ? 'rationale' : null, body.validity ? 'validity' : null].filter(Boolean).join(' and ');
     const validity = body.validity ? roundValidity(body.validity) : null;
-    await applyMove(tx, row, 'edit', actor, `Changed the ${changed}`, { summary: `${actor.email} edited the ${changed} of ${setLabel(row)}` });
+    await applyMove(tx, row, 'edit', actor, `Changed the ${changed}`, {
+      summary: `${actor.email} edited the ${changed} of ${setLabel(row)}`,
+    });
     await updateParameterSet(tx, id, {
       ...(body.rationale !== undefined ? { rationale: body.rationale } : {}),
       ...(validity
-        ? { temperatureMinK: validity.temperatureMinK, temperatureMaxK: validity.temperatureMaxK, pressureMinMpa: validity.pressureMinMPa ?? null, pressureMaxMpa: validity.pressureMaxMPa ?? null }
+        ? {
+            temperatureMinK: validity.temperatureMinK,
+            temperatureMaxK: validity.temperatureMaxK,
+            pressureMinMpa: validity.pressureMinMPa ?? null,
+            pressureMaxMpa: validity.pressureMaxMPa ?? null,
+          }
         : {}),
       updatedAt: new Date().toISOString(),
     });
@@ -354,7 +469,14 @@ export async function addComment(db: Db, actor: CurrentUser, id: number, body: s
     const row = await requireVisibleSet(tx, id, actor);
     const createdAt = new Date().toISOString();
     const commentId = await insertComment(tx, { parameterSetId: id, authorId: actor.id, body, createdAt });
-    await recordAudit(tx, { actor, action: 'parameterSet.commented', targetType: 'parameterSet', targetId: id, summary: `${actor.email} commented on ${setLabel(row)}`, after: { commentId } });
+    await recordAudit(tx, {
+      actor,
+      action: 'parameterSet.commented',
+      targetType: 'parameterSet',
+      targetId: id,
+      summary: `${actor.email} commented on ${setLabel(row)}`,
+      after: { commentId },
+    });
     return { id: commentId, authorId: actor.id, authorName: actor.name, body, createdAt };
   });
 }
@@ -368,7 +490,10 @@ export async function getParameterSetDetail(db: Db, id: number, viewer: CurrentU
     approvedOf(db, row.substanceId, row.scheme, row.potential),
     findFit(db, row.fitId),
     subjectOf(db, row),
-    versionSources(db, readMeasurementSetRefs(row.measurementSetsJson).map((r) => r.versionId)),
+    versionSources(
+      db,
+      readMeasurementSetRefs(row.measurementSetsJson).map((r) => r.versionId),
+    ),
   ]);
   const current = approved.find((a) => a.id !== row.id) ?? null;
   return toParameterSetDetailView({
@@ -405,7 +530,11 @@ function fitOfSet(fit: ReturnType<typeof toFitView>): ParameterSetDetail['fit'] 
 }
 
 /** Sets a viewer may see, by substance and/or state (consumers: published sets only). */
-export async function listVisible(db: Db, viewer: CurrentUser, filter: { substanceId?: number; states?: ParameterSetState[] }): Promise<ParameterSetSummary[]> {
+export async function listVisible(
+  db: Db,
+  viewer: CurrentUser,
+  filter: { substanceId?: number; states?: ParameterSetState[] },
+): Promise<ParameterSetSummary[]> {
   const rows = await listParameterSets(db, filter);
   return rows.filter((r) => isVisibleTo(r.state, viewer.roles)).map(toParameterSetView);
 }

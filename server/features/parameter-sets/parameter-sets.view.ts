@@ -16,14 +16,37 @@ import type { ParameterSetTable } from './parameter-sets.table';
 /** The columns every view of a set reads (a parameter-set row, a catalog row), with the substance's name. */
 export type ParameterSetValueColumns = Pick<
   Selectable<ParameterSetTable>,
-  | 'id' | 'substanceId' | 'version' | 'scheme' | 'cutoffSigma' | 'model' | 'potential' | 'repulsiveExponent' | 'state' | 'epsilonK' | 'sigmaAngstrom'
-  | 'epsilonStdErrK' | 'sigmaStdErrAngstrom' | 'correlation' | 'temperatureMinK' | 'temperatureMaxK' | 'pressureMinMpa' | 'pressureMaxMpa' | 'fitId'
+  | 'id'
+  | 'substanceId'
+  | 'version'
+  | 'scheme'
+  | 'cutoffSigma'
+  | 'model'
+  | 'potential'
+  | 'repulsiveExponent'
+  | 'state'
+  | 'epsilonK'
+  | 'sigmaAngstrom'
+  | 'epsilonStdErrK'
+  | 'sigmaStdErrAngstrom'
+  | 'correlation'
+  | 'temperatureMinK'
+  | 'temperatureMaxK'
+  | 'pressureMinMpa'
+  | 'pressureMaxMpa'
+  | 'fitId'
 > & { substanceName: string };
 
 /** The stored measurement set versions behind a set (measurement_sets_json), parsed with their contract. */
 export const readMeasurementSetRefs = (json: string): MeasurementSetRef[] => measurementSetRefs.parse(readStoredJson(json));
 
-export function setLabel(row: { substanceName: string; version: number; scheme: CutoffScheme; cutoffSigma: number | null; repulsiveExponent?: number }): string {
+export function setLabel(row: {
+  substanceName: string;
+  version: number;
+  scheme: CutoffScheme;
+  cutoffSigma: number | null;
+  repulsiveExponent?: number;
+}): string {
   const cutoff = row.cutoffSigma === null ? '' : `, r_c = ${row.cutoffSigma} σ`;
   const potential = row.repulsiveExponent !== undefined && row.repulsiveExponent !== 12 ? `, ${potentialLabel(row.repulsiveExponent)}` : '';
   return `${row.substanceName} v${row.version} (${CUTOFF_SCHEME_LABELS[row.scheme]}${cutoff}${potential})`;
@@ -47,7 +70,12 @@ export const toParameterSetValuesView = (row: ParameterSetValueColumns): Paramet
   sigmaAngstrom: row.sigmaAngstrom,
   stdErr: { epsilonK: row.epsilonStdErrK, sigmaAngstrom: row.sigmaStdErrAngstrom },
   correlation: row.correlation,
-  validity: { temperatureMinK: row.temperatureMinK, temperatureMaxK: row.temperatureMaxK, pressureMinMPa: row.pressureMinMpa, pressureMaxMPa: row.pressureMaxMpa },
+  validity: {
+    temperatureMinK: row.temperatureMinK,
+    temperatureMaxK: row.temperatureMaxK,
+    pressureMinMPa: row.pressureMinMpa,
+    pressureMaxMPa: row.pressureMaxMpa,
+  },
   fitId: row.fitId,
 });
 
@@ -88,7 +116,10 @@ const toTransitionView = (h: TransitionRow): ParameterSetDetail['history'][numbe
 type VersionSource = { id: number; source: string | null; doi: string | null; method: string | null; rowCount: number; sha256: string };
 
 /** A stored reference with the source of its version (null when the version is gone from the read). */
-export function toParameterSetMeasurementSetView(r: MeasurementSetRef, v: Partial<VersionSource> | undefined): ParameterSetDetail['measurementSets'][number] {
+export function toParameterSetMeasurementSetView(
+  r: MeasurementSetRef,
+  v: Partial<VersionSource> | undefined,
+): ParameterSetDetail['measurementSets'][number] {
   return {
     measurementSetId: r.measurementSetId,
     name: r.name,
@@ -120,7 +151,12 @@ export function toParameterSetDetailView(parts: {
     ...toParameterSetView(row),
     rationale: row.rationale,
     fit: parts.fit,
-    measurementSets: readMeasurementSetRefs(row.measurementSetsJson).map((r) => toParameterSetMeasurementSetView(r, parts.versions.find((x) => x.id === r.versionId))),
+    measurementSets: readMeasurementSetRefs(row.measurementSetsJson).map((r) =>
+      toParameterSetMeasurementSetView(
+        r,
+        parts.versions.find((x) => x.id === r.versionId),
+      ),
+    ),
     history: parts.history.map(toTransitionView),
     comments: parts.comments.map(toParameterSetCommentView),
     currentApproved: parts.currentApproved ? toParameterSetView(parts.currentApproved) : null,

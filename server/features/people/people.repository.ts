@@ -15,13 +15,15 @@ export async function rolesOf(db: Db | Tx, userId: string): Promise<Role[]> {
 }
 
 export async function listPeopleWithRoles(db: Db | Tx) {
-  const users = await db
-    .selectFrom('user')
-    .select(['id', 'email', 'name', 'active', 'createdAt'])
-    .orderBy('name')
-    .execute();
+  const users = await db.selectFrom('user').select(['id', 'email', 'name', 'active', 'createdAt']).orderBy('name').execute();
   const roles = await db.selectFrom('userRole').select(['userId', 'role']).execute();
-  return users.map((u) => ({ ...u, roles: roles.filter((r) => r.userId === u.id).map((r) => r.role).sort() }));
+  return users.map((u) => ({
+    ...u,
+    roles: roles
+      .filter((r) => r.userId === u.id)
+      .map((r) => r.role)
+      .sort(),
+  }));
 }
 
 /** One person with their roles, or undefined. */
@@ -39,10 +41,7 @@ export async function deleteSessionsOf(db: Db | Tx, userId: string): Promise<voi
   await db.deleteFrom('session').where('userId', '=', userId).execute();
 }
 
-export async function insertPerson(
-  db: Db | Tx,
-  user: { id: string; email: string; name: string; passwordHash: string; roles: Role[] },
-) {
+export async function insertPerson(db: Db | Tx, user: { id: string; email: string; name: string; passwordHash: string; roles: Role[] }) {
   await db
     .insertInto('user')
     .values({ id: user.id, email: user.email, name: user.name, passwordHash: user.passwordHash, createdAt: new Date().toISOString() })
@@ -52,11 +51,18 @@ export async function insertPerson(
 
 export async function replaceRoles(db: Db | Tx, userId: string, roles: Role[]) {
   await db.deleteFrom('userRole').where('userId', '=', userId).execute();
-  if (roles.length) await db.insertInto('userRole').values(roles.map((role) => ({ userId, role }))).execute();
+  if (roles.length)
+    await db
+      .insertInto('userRole')
+      .values(roles.map((role) => ({ userId, role })))
+      .execute();
 }
 
 export async function countPeople(db: Db | Tx): Promise<number> {
-  const row = await db.selectFrom('user').select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow();
+  const row = await db
+    .selectFrom('user')
+    .select((eb) => eb.fn.countAll<number>().as('n'))
+    .executeTakeFirstOrThrow();
   return Number(row.n);
 }
 

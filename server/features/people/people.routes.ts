@@ -82,7 +82,11 @@ export function peopleRoutes(ctx: AppContext): Router {
       if (body.roles) await replaceRoles(tx, id, [...new Set(body.roles)].sort());
       if (body.active === false) await deleteSessionsOf(tx, id);
       const before = { name: target.name, active: target.active === 1, roles: beforeRoles };
-      const after = { name: body.name ?? target.name, active: body.active ?? target.active === 1, roles: body.roles ? [...new Set(body.roles)].sort() : beforeRoles };
+      const after = {
+        name: body.name ?? target.name,
+        active: body.active ?? target.active === 1,
+        roles: body.roles ? [...new Set(body.roles)].sort() : beforeRoles,
+      };
       const changes = [
         body.roles && `roles ${beforeRoles.join(', ')} → ${after.roles.join(', ')}`,
         body.active !== undefined && before.active !== after.active && (after.active ? 'reactivated' : 'deactivated'),

@@ -49,7 +49,15 @@ export async function storeSimulationFrames(db: Db | Tx, jobId: number, result: 
   return { ...rest, framesStored: h.length };
 }
 
-type FramesRow = { jobId: number; reducedTemperature: number; reducedPressure: number; atoms: number; statisticalInefficiency: number; hamiltonianPotential: Uint8Array; volume: Uint8Array };
+type FramesRow = {
+  jobId: number;
+  reducedTemperature: number;
+  reducedPressure: number;
+  atoms: number;
+  statisticalInefficiency: number;
+  hamiltonianPotential: Uint8Array;
+  volume: Uint8Array;
+};
 
 const toRun = (row: FramesRow): ReweightRun => ({
   id: row.jobId,
@@ -61,11 +69,18 @@ const toRun = (row: FramesRow): ReweightRun => ({
   volume: float64FromBytes(row.volume),
 });
 
-const COLUMNS = ['jobId', 'reducedTemperature', 'reducedPressure', 'atoms', 'statisticalInefficiency', 'hamiltonianPotential', 'volume'] as const;
+const COLUMNS = [
+  'jobId',
+  'reducedTemperature',
+  'reducedPressure',
+  'atoms',
+  'statisticalInefficiency',
+  'hamiltonianPotential',
+  'volume',
+] as const;
 
 /** The frames of one run, or undefined when none are stored. */
 export async function loadRunFrames(db: Db, jobId: number): Promise<ReweightRun | undefined> {
   const row = await db.selectFrom('simulationFrames').select(COLUMNS).where('jobId', '=', jobId).executeTakeFirst();
   return row ? toRun(row) : undefined;
 }
-

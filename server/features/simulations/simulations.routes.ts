@@ -5,7 +5,13 @@ import { currentUser, requirePolicy } from '../../common/auth-middleware';
 import { conflict, notFound } from '../../common/errors';
 import { idParams, validBody, validParams } from '../../common/validate';
 import { recordAudit } from '../audit/audit.service';
-import { queueView, simulationListView, simulationStartView, simulationsFromMeasurementSetView, simulationView } from '../../../shared/contracts/simulation';
+import {
+  queueView,
+  simulationListView,
+  simulationStartView,
+  simulationsFromMeasurementSetView,
+  simulationView,
+} from '../../../shared/contracts/simulation';
 import { sendView } from '../../common/respond';
 import { findSimulationJob } from './simulations.repository';
 import { createSimulation, createSimulationsFromMeasurementSet, listSimulations } from './simulations.service';
@@ -50,7 +56,13 @@ export function simulationRoutes(ctx: AppContext): Router {
     await load(id);
     if (!(await ctx.jobs.cancel(id))) throw conflict('Only a queued or running simulation can be cancelled.');
     const actor = currentUser(res);
-    await recordAudit(db, { actor, action: 'simulation.cancelled', targetType: 'job', targetId: id, summary: `${actor.email} cancelled simulation ${id}` });
+    await recordAudit(db, {
+      actor,
+      action: 'simulation.cancelled',
+      targetType: 'job',
+      targetId: id,
+      summary: `${actor.email} cancelled simulation ${id}`,
+    });
     sendView(res, simulationView, toSimulationView(await load(id), { withTrace: false }));
   });
 

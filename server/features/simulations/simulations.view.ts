@@ -1,4 +1,9 @@
-import { simulationSummarySchema, storedSimulationInput, storedSimulationResult, type Simulation } from '../../../shared/contracts/simulation';
+import {
+  simulationSummarySchema,
+  storedSimulationInput,
+  storedSimulationResult,
+  type Simulation,
+} from '../../../shared/contracts/simulation';
 import { readStoredJson } from '../../../shared/schemas/old-names';
 import type { SimulationJobRow } from './simulations.repository';
 

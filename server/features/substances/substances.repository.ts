@@ -17,7 +17,9 @@ export async function listSubstances(db: Db | Tx) {
       'substance.createdAt',
       'substance.updatedAt',
       sql<number>`count(measurement_set.id) filter (where measurement_set_withdrawal.measurement_set_id is null)`.as('measurementSetCount'),
-      sql<string | null>`group_concat(distinct case when measurement_set_withdrawal.measurement_set_id is null then measurement_set.kind end)`.as('kinds'),
+      sql<
+        string | null
+      >`group_concat(distinct case when measurement_set_withdrawal.measurement_set_id is null then measurement_set.kind end)`.as('kinds'),
     ])
     .groupBy('substance.id')
     .orderBy('substance.name')
@@ -47,7 +49,11 @@ export async function findSubstanceByName(db: Db | Tx, name: string) {
 }
 
 export async function countMeasurementSetsOf(db: Db | Tx, substanceId: number): Promise<number> {
-  const row = await db.selectFrom('measurementSet').select((eb) => eb.fn.countAll<number>().as('n')).where('substanceId', '=', substanceId).executeTakeFirstOrThrow();
+  const row = await db
+    .selectFrom('measurementSet')
+    .select((eb) => eb.fn.countAll<number>().as('n'))
+    .where('substanceId', '=', substanceId)
+    .executeTakeFirstOrThrow();
   return Number(row.n);
 }
 

@@ -10,7 +10,14 @@ import type { AppContext } from '../../app-context';
 import { recordAudit } from '../audit/audit.service';
 import { listMeasurementSetsOfSubstance } from '../measurement-sets/measurement-sets.repository';
 import { toMeasurementSetSummaryView } from '../measurement-sets/measurement-sets.view';
-import { countMeasurementSetsOf, findSubstance, findSubstanceByName, insertSubstance, listSubstances, updateSubstance } from './substances.repository';
+import {
+  countMeasurementSetsOf,
+  findSubstance,
+  findSubstanceByName,
+  insertSubstance,
+  listSubstances,
+  updateSubstance,
+} from './substances.repository';
 import { toSubstanceListItemView, toSubstanceView } from './substances.view';
 
 export function substanceRoutes(ctx: AppContext): Router {
@@ -32,8 +39,23 @@ export function substanceRoutes(ctx: AppContext): Router {
       if (await findSubstanceByName(tx, body.name)) {
         throw conflict(`A substance named "${body.name}" already exists.`, [{ field: 'name', message: 'already in use' }]);
       }
-      const row = await insertSubstance(tx, { name: body.name, formula: body.formula ?? null, description: body.description ?? null, molarMassGramsPerMol: body.molarMassGPerMol, createdBy: actor.id, createdAt: now, updatedAt: now });
-      await recordAudit(tx, { actor, action: 'substance.created', targetType: 'substance', targetId: row.id, summary: `${actor.email} created substance ${row.name}`, after: toSubstanceView(row) });
+      const row = await insertSubstance(tx, {
+        name: body.name,
+        formula: body.formula ?? null,
+        description: body.description ?? null,
+        molarMassGramsPerMol: body.molarMassGPerMol,
+        createdBy: actor.id,
+        createdAt: now,
+        updatedAt: now,
+      });
+      await recordAudit(tx, {
+        actor,
+        action: 'substance.created',
+        targetType: 'substance',
+        targetId: row.id,
+        summary: `${actor.email} created substance ${row.name}`,
+        after: toSubstanceView(row),
+      });
       return row;
     });
     sendView(res, substanceWriteView, { ...toSubstanceView(created), warnings: molarMassWarnings(body.molarMassGPerMol) }, 201);
@@ -44,9 +66,14 @@ export function substanceRoutes(ctx: AppContext): Router {
     const substance = await findSubstance(db, id);
     if (!substance) throw notFound(`Substance ${id}`);
     // Measurement sets are unpublished work: only the roles that may read them get the list.
-    if (!hasPolicy(currentUser(res).roles, 'measurement-set:read')) return sendView(res, substanceDetailView, { ...toSubstanceView(substance), createdByName: substance.createdByName });
+    if (!hasPolicy(currentUser(res).roles, 'measurement-set:read'))
+      return sendView(res, substanceDetailView, { ...toSubstanceView(substance), createdByName: substance.createdByName });
     const measurementSets = await listMeasurementSetsOfSubstance(db, id);
-    sendView(res, substanceDetailView, { ...toSubstanceView(substance), createdByName: substance.createdByName, measurementSets: measurementSets.map(toMeasurementSetSummaryView) });
+    sendView(res, substanceDetailView, {
+      ...toSubstanceView(substance),
+      createdByName: substance.createdByName,
+      measurementSets: measurementSets.map(toMeasurementSetSummaryView),
+    });
   });
 
   router.patch('/substances/:id', requirePolicy('substance:write'), async (req, res) => {
@@ -61,8 +88,14 @@ export function substanceRoutes(ctx: AppContext): Router {
         throw conflict(`A substance named "${body.name}" already exists.`, [{ field: 'name', message: 'already in use' }]);
       }
       // The molar mass converts molar densities at upload, so it is fixed once measurements exist.
-      if (body.molarMassGPerMol !== undefined && body.molarMassGPerMol !== before.molarMassGramsPerMol && (await countMeasurementSetsOf(tx, id)) > 0) {
-        throw conflict('The molar mass cannot change once the substance has measurement sets: stored densities depend on it.', [{ field: 'molarMassGPerMol', message: 'fixed once measurement sets exist' }]);
+      if (
+        body.molarMassGPerMol !== undefined &&
+        body.molarMassGPerMol !== before.molarMassGramsPerMol &&
+        (await countMeasurementSetsOf(tx, id)) > 0
+      ) {
+        throw conflict('The molar mass cannot change once the substance has measurement sets: stored densities depend on it.', [
+          { field: 'molarMassGPerMol', message: 'fixed once measurement sets exist' },
+        ]);
       }
       const row = await updateSubstance(tx, id, {
         ...(body.name !== undefined ? { name: body.name } : {}),
@@ -71,7 +104,15 @@ export function substanceRoutes(ctx: AppContext): Router {
         ...(body.molarMassGPerMol !== undefined ? { molarMassGramsPerMol: body.molarMassGPerMol } : {}),
         updatedAt: new Date().toISOString(),
       });
-      await recordAudit(tx, { actor, action: 'substance.updated', targetType: 'substance', targetId: id, summary: `${actor.email} edited substance ${row.name}`, before: toSubstanceView(before), after: toSubstanceView(row) });
+      await recordAudit(tx, {
+        actor,
+        action: 'substance.updated',
+        targetType: 'substance',
+        targetId: id,
+        summary: `${actor.email} edited substance ${row.name}`,
+        before: toSubstanceView(before),
+        after: toSubstanceView(row),
+      });
       return row;
     });
     sendView(res, substanceWriteView, { ...toSubstanceView(updated), warnings: molarMassWarnings(body.molarMassGPerMol) });

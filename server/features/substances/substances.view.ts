@@ -3,7 +3,9 @@ import type { SubstanceTable } from './substances.table';
 import type { listSubstances } from './substances.repository';
 
 /** The one place a substance row becomes its API names (shared/contracts/substance.ts): molarMassGramsPerMol → molarMassGPerMol. */
-export const toSubstanceView = (s: Pick<SubstanceTable, 'name' | 'formula' | 'description' | 'molarMassGramsPerMol' | 'createdAt' | 'updatedAt'> & { id: number }): Substance => ({
+export const toSubstanceView = (
+  s: Pick<SubstanceTable, 'name' | 'formula' | 'description' | 'molarMassGramsPerMol' | 'createdAt' | 'updatedAt'> & { id: number },
+): Substance => ({
   id: s.id,
   name: s.name,
   formula: s.formula,
@@ -14,7 +16,14 @@ export const toSubstanceView = (s: Pick<SubstanceTable, 'name' | 'formula' | 'de
 });
 
 /** A list entry; the count and kinds of measurement sets only for roles that may read them. */
-export function toSubstanceListItemView(s: Awaited<ReturnType<typeof listSubstances>>[number], withMeasurementSets: boolean): SubstanceListItem {
+export function toSubstanceListItemView(
+  s: Awaited<ReturnType<typeof listSubstances>>[number],
+  withMeasurementSets: boolean,
+): SubstanceListItem {
   if (!withMeasurementSets) return toSubstanceView(s);
-  return { ...toSubstanceView(s), measurementSetCount: Number(s.measurementSetCount), kinds: s.kinds ? (s.kinds.split(',').sort() as SubstanceListItem['kinds']) : [] };
+  return {
+    ...toSubstanceView(s),
+    measurementSetCount: Number(s.measurementSetCount),
+    kinds: s.kinds ? (s.kinds.split(',').sort() as SubstanceListItem['kinds']) : [],
+  };
 }

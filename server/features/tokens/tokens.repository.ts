@@ -27,7 +27,11 @@ export async function tokensOf(db: Db | Tx, userId: string) {
 
 /** One token with its owner's id, or undefined. */
 export async function findToken(db: Db | Tx, id: number) {
-  return db.selectFrom('apiToken').select([...TOKEN_COLUMNS, 'userId']).where('id', '=', id).executeTakeFirst();
+  return db
+    .selectFrom('apiToken')
+    .select([...TOKEN_COLUMNS, 'userId'])
+    .where('id', '=', id)
+    .executeTakeFirst();
 }
 
 export async function setTokenRevoked(db: Db | Tx, id: number, revokedAt: string): Promise<void> {

@@ -5,7 +5,15 @@ import type { Db, Tx } from '../../db/database';
 import type { TokenView } from '../../../shared/contracts/token';
 import { recordAudit } from '../audit/audit.service';
 import { rolesOf } from '../people/people.repository';
-import { countActiveTokens, findToken, findTokenByHash, insertToken, setTokenLastUsed, setTokenRevoked, tokensOf } from './tokens.repository';
+import {
+  countActiveTokens,
+  findToken,
+  findTokenByHash,
+  insertToken,
+  setTokenLastUsed,
+  setTokenRevoked,
+  tokensOf,
+} from './tokens.repository';
 import { toTokenView } from './tokens.view';
 
 /** Tokens a person may hold at once that are not revoked; enough for a few scripts, few enough to review. */
@@ -32,7 +40,8 @@ export async function createToken(db: Db, actor: CurrentUser, name: string) {
   const secret = newTokenSecret();
   const now = new Date().toISOString();
   const row = await db.transaction().execute(async (tx) => {
-    if ((await countActiveTokens(tx, actor.id)) >= MAX_ACTIVE_TOKENS) throw conflict(`You hold ${MAX_ACTIVE_TOKENS} active tokens; revoke one you no longer use first.`);
+    if ((await countActiveTokens(tx, actor.id)) >= MAX_ACTIVE_TOKENS)
+      throw conflict(`You hold ${MAX_ACTIVE_TOKENS} active tokens; revoke one you no longer use first.`);
     const created = await insertToken(tx, {
       userId: actor.id,
       name,
@@ -42,7 +51,14 @@ export async function createToken(db: Db, actor: CurrentUser, name: string) {
       lastUsedAt: null,
       revokedAt: null,
     });
-    await recordAudit(tx, { actor, action: 'token.created', targetType: 'apiToken', targetId: created.id, summary: `${actor.email} created the read-only API token "${name}" (${created.prefix}…)`, after: { name, prefix: created.prefix } });
+    await recordAudit(tx, {
+      actor,
+      action: 'token.created',
+      targetType: 'apiToken',
+      targetId: created.id,
+      summary: `${actor.email} created the read-only API token "${name}" (${created.prefix}…)`,
+      after: { name, prefix: created.prefix },
+    });
     return created;
   });
   return { ...toTokenView(row), token: secret };
@@ -62,7 +78,15 @@ export async function revokeToken(db: Db, actor: CurrentUser, id: number): Promi
     if (row.revokedAt) return toTokenView(row);
     const revokedAt = new Date().toISOString();
     await setTokenRevoked(tx, id, revokedAt);
-    await recordAudit(tx, { actor, action: 'token.revoked', targetType: 'apiToken', targetId: id, summary: `${actor.email} revoked the API token "${row.name}" (${row.prefix}…)`, before: { revokedAt: null }, after: { revokedAt } });
+    await recordAudit(tx, {
+      actor,
+      action: 'token.revoked',
+      targetType: 'apiToken',
+      targetId: id,
+      summary: `${actor.email} revoked the API token "${row.name}" (${row.prefix}…)`,
+      before: { revokedAt: null },
+      after: { revokedAt },
+    });
     return toTokenView({ ...row, revokedAt });
   });
 }
@@ -85,7 +109,14 @@ export async function touchToken(db: Db, id: number, lastUsedAt: string | null, 
 export async function authenticateToken(db: Db, secret: string): Promise<CurrentUser | null> {
   const token = await findActiveToken(db, secret);
   if (!token || token.revokedAt !== null || token.active !== 1) return null;
-  const user: CurrentUser = { id: token.userId, email: token.email, name: token.name, roles: await rolesOf(db, token.userId), via: 'token', tokenId: token.id };
+  const user: CurrentUser = {
+    id: token.userId,
+    email: token.email,
+    name: token.name,
+    roles: await rolesOf(db, token.userId),
+    via: 'token',
+    tokenId: token.id,
+  };
   await touchToken(db, token.id, token.lastUsedAt);
   return user;
 }

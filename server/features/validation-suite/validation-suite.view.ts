@@ -1,5 +1,10 @@
 import type { ValidationCheckResult, ValidationTestSuiteOnly } from '../../../shared/contracts/validation-suite';
-import { describeTolerance, type CheckOutcome, type ReferenceCheck, type TestSuiteOnlyCheck } from '../../../shared/validation/reference-checks';
+import {
+  describeTolerance,
+  type CheckOutcome,
+  type ReferenceCheck,
+  type TestSuiteOnlyCheck,
+} from '../../../shared/validation/reference-checks';
 
 /** One registry entry with the outcome of running it here, as the validation suite page shows it. */
 export function toValidationCheckResultView(check: ReferenceCheck, outcome: CheckOutcome): ValidationCheckResult {
@@ -24,5 +29,16 @@ export function toValidationCheckResultView(check: ReferenceCheck, outcome: Chec
 
 /** A check only the test suite runs, listed as it is in the registry. */
 export function toValidationTestSuiteOnlyView(c: TestSuiteOnlyCheck): ValidationTestSuiteOnly {
-  return { id: c.id, area: c.area, quantity: c.quantity, unit: c.unit, state: c.state, source: c.source, reference: c.reference, tolerance: c.tolerance, testFile: c.testFile, why: c.why };
+  return {
+    id: c.id,
+    area: c.area,
+    quantity: c.quantity,
+    unit: c.unit,
+    state: c.state,
+    source: c.source,
+    reference: c.reference,
+    tolerance: c.tolerance,
+    testFile: c.testFile,
+    why: c.why,
+  };
 }

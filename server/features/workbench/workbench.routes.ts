@@ -16,7 +16,11 @@ export function workbenchRoutes(ctx: AppContext): Router {
 
   router.get('/workbench/needs-action', requireUser, async (_req, res) => {
     const me = currentUser(res);
-    const item = (kind: NeedsActionKind, r: { id: number; substanceId: number; substanceName: string; version: number; state: keyof typeof STATE_LABELS; updatedAt: string }, since: string) => ({
+    const item = (
+      kind: NeedsActionKind,
+      r: { id: number; substanceId: number; substanceName: string; version: number; state: keyof typeof STATE_LABELS; updatedAt: string },
+      since: string,
+    ) => ({
       kind,
       parameterSetId: r.id,
       substanceId: r.substanceId,

@@ -168,7 +168,9 @@ function pressureAndSlope(rho: number, t: number): { pressure: number; dPdRho: n
   const rho2 = rho * rho;
   const f = Math.exp(-GAMMA * rho2);
   let pressure = rho * t * z + t * k.deltaB2 * rho2 * (1 - 2 * GAMMA * rho2) * f;
-  let dPdRho = t * (z + eta * hardSphereZDerivative(eta)) + t * k.deltaB2 * f * (2 * rho - 10 * GAMMA * rho2 * rho + 4 * GAMMA * GAMMA * rho2 * rho2 * rho);
+  let dPdRho =
+    t * (z + eta * hardSphereZDerivative(eta)) +
+    t * k.deltaB2 * f * (2 * rho - 10 * GAMMA * rho2 * rho + 4 * GAMMA * GAMMA * rho2 * rho2 * rho);
   for (let j = 2; j <= 6; j++) {
     pressure += j * k.c[j] * rho ** (j + 1);
     dPdRho += j * (j + 1) * k.c[j] * rho ** j;
@@ -202,9 +204,7 @@ function checkDensity(reducedDensity: number): void {
     reducedDensity < 0 ||
     reducedDensity > KN_MAX_REDUCED_DENSITY + 0.1
   ) {
-    throw new RangeError(
-      `reducedDensity must be a finite number in [0, ${KN_MAX_REDUCED_DENSITY + 0.1}], got ${String(reducedDensity)}`,
-    );
+    throw new RangeError(`reducedDensity must be a finite number in [0, ${KN_MAX_REDUCED_DENSITY + 0.1}], got ${String(reducedDensity)}`);
   }
 }
 
@@ -403,11 +403,7 @@ export interface KnDensityResult extends KnRoot {
  * Fluid density at (T*, P*) from KN. Throws RangeError when the requested phase has no root (for example
  * 'liquid' at a pressure below the liquid spinodal, or 'vapour' above the vapour spinodal).
  */
-export function knDensity(
-  reducedTemperature: number,
-  reducedPressure: number,
-  options: KnDensityOptions = {},
-): KnDensityResult {
+export function knDensity(reducedTemperature: number, reducedPressure: number, options: KnDensityOptions = {}): KnDensityResult {
   const want = options.phase ?? 'stable';
   if (want !== 'stable' && want !== 'liquid' && want !== 'vapour') {
     throw new RangeError(`phase must be 'stable', 'liquid' or 'vapour', got ${String(options.phase)}`);

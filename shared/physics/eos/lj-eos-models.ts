@@ -4,9 +4,30 @@
  * (1993) and Kolafa–Nezbeda (1994). Each is wrapped as `EosFunctions` so one set of solvers
  * (phase-equilibrium.ts) gives the critical point, coexistence and the stable density for all three.
  */
-import { LJ_EOS_SOURCE, ljEosCompressibilityDerivative, ljEosInternalEnergy, ljEosPressure, ljEosResidualHelmholtz, ljEosThermalPressureCoefficient } from '../lj-eos';
-import { KOLAFA_NEZBEDA_1994_SOURCE, knChemicalPotential, knInternalEnergy, knPressure, knPressureDerivatives } from './kolafa-nezbeda-1994';
-import { findCriticalPoint, solveCoexistence, solveDensity, type Coexistence, type CriticalPoint, type EosFunctions, type StableDensity } from './phase-equilibrium';
+import {
+  LJ_EOS_SOURCE,
+  ljEosCompressibilityDerivative,
+  ljEosInternalEnergy,
+  ljEosPressure,
+  ljEosResidualHelmholtz,
+  ljEosThermalPressureCoefficient,
+} from '../lj-eos';
+import {
+  KOLAFA_NEZBEDA_1994_SOURCE,
+  knChemicalPotential,
+  knInternalEnergy,
+  knPressure,
+  knPressureDerivatives,
+} from './kolafa-nezbeda-1994';
+import {
+  findCriticalPoint,
+  solveCoexistence,
+  solveDensity,
+  type Coexistence,
+  type CriticalPoint,
+  type EosFunctions,
+  type StableDensity,
+} from './phase-equilibrium';
 import { THOL_2016, THOL_2016_SOURCE } from './thol-2016';
 
 export type LjEosModelId = 'thol2016' | 'jzg1993' | 'kn1994';
@@ -83,6 +104,11 @@ export function ljCoexistence(reducedTemperature: number, model: LjEosModelId = 
 }
 
 /** Density at (T*, P*): the stable root unless `prefer` names a phase. */
-export function ljStableDensity(reducedTemperature: number, reducedPressure: number, model: LjEosModelId = DEFAULT_LJ_EOS_MODEL, prefer?: 'liquid' | 'vapour'): StableDensity {
+export function ljStableDensity(
+  reducedTemperature: number,
+  reducedPressure: number,
+  model: LjEosModelId = DEFAULT_LJ_EOS_MODEL,
+  prefer?: 'liquid' | 'vapour',
+): StableDensity {
   return solveDensity(LJ_EOS_MODELS[model].functions, reducedTemperature, reducedPressure, ljCriticalPoint(model), prefer);
 }

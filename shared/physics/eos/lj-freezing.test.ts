@@ -12,7 +12,7 @@ describe('LJ freezing line (Mastny & de Pablo 2007, eq. 21)', () => {
     expect(freezingLiquidDensity(1.0)).toBeGreaterThan(freezingLiquidDensity(0.8));
     expect(freezingLiquidDensity(2.0)).toBeGreaterThan(freezingLiquidDensity(1.0));
     // At high temperature the soft-sphere scaling ρ ∝ T^{1/4} takes over (Hoover et al. 1970): ρ β^{1/4} → 0.90735.
-    expect(freezingLiquidDensity(1e4) * (1e-4) ** 0.25).toBeCloseTo(0.90735 - 0.2712e-4, 4);
+    expect(freezingLiquidDensity(1e4) * 1e-4 ** 0.25).toBeCloseTo(0.90735 - 0.2712e-4, 4);
     expect(() => freezingLiquidDensity(-1)).toThrow(/reducedTemperature/);
   });
 

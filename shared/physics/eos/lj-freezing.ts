@@ -66,17 +66,29 @@ export function ljRegionOf(reducedTemperature: number, reducedPressure: number):
   try {
     roots = knDensityRoots(reducedTemperature, reducedPressure);
   } catch (err) {
-    return { region: 'no-fluid-root', reason: `the equation of state has no fluid density at ${state}: ${err instanceof Error ? err.message : String(err)}` };
+    return {
+      region: 'no-fluid-root',
+      reason: `the equation of state has no fluid density at ${state}: ${err instanceof Error ? err.message : String(err)}`,
+    };
   }
-  if (roots.length === 0) return { region: 'no-fluid-root', reason: `the equation of state (Kolafa–Nezbeda 1994) has no fluid density at ${state}` };
+  if (roots.length === 0)
+    return { region: 'no-fluid-root', reason: `the equation of state (Kolafa–Nezbeda 1994) has no fluid density at ${state}` };
   const stable = roots.reduce((a, b) => (b.chemicalPotential < a.chemicalPotential ? b : a));
   const rho = stable.reducedDensity;
   if (reducedTemperature < LJ_TRIPLE_POINT_TEMPERATURE && stable.phase !== 'vapour') {
-    return { region: 'solid', reducedDensity: rho, reason: `${state} lies below the triple-point temperature T* ≈ ${LJ_TRIPLE_POINT_TEMPERATURE}, where the dense phase is the solid` };
+    return {
+      region: 'solid',
+      reducedDensity: rho,
+      reason: `${state} lies below the triple-point temperature T* ≈ ${LJ_TRIPLE_POINT_TEMPERATURE}, where the dense phase is the solid`,
+    };
   }
   const freeze = freezingLiquidDensity(reducedTemperature);
   if (rho > freeze) {
-    return { region: 'solid', reducedDensity: rho, reason: `${state} lies in the solid region: the fluid would have ρ* = ${rho.toFixed(3)}, denser than the liquid at freezing (ρ* = ${freeze.toFixed(3)}, Mastny & de Pablo 2007)` };
+    return {
+      region: 'solid',
+      reducedDensity: rho,
+      reason: `${state} lies in the solid region: the fluid would have ρ* = ${rho.toFixed(3)}, denser than the liquid at freezing (ρ* = ${freeze.toFixed(3)}, Mastny & de Pablo 2007)`,
+    };
   }
   return { region: 'fluid', reducedDensity: rho };
 }

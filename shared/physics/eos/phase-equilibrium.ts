@@ -164,7 +164,8 @@ export function solveCoexistence(eos: EosFunctions, t: number, critical: Critica
   };
   let lo = Math.max(pBottom, pTop * 1e-12);
   let hi = pTop;
-  if (eos.pressure(spin.liquidTop, t) < hi) throw new RangeError(`T* = ${t}: the ${eos.id} liquid branch does not reach the spinodal pressure`);
+  if (eos.pressure(spin.liquidTop, t) < hi)
+    throw new RangeError(`T* = ${t}: the ${eos.id} liquid branch does not reach the spinodal pressure`);
   let fLo = deltaMu(lo);
   let fHi = deltaMu(hi);
   // At very low T* the liquid spinodal pressure is far below zero and the saturation pressure tiny: walk down.
@@ -238,14 +239,26 @@ export interface StableDensity extends DensityRoot {
 
 function rootAt(eos: EosFunctions, rho: number, t: number, phase: FluidPhase): DensityRoot {
   const slope = eos.dPdRho(rho, t);
-  return { reducedDensity: rho, phase, chemicalPotential: eos.chemicalPotential(rho, t), dRhoDT: -eos.dPdT(rho, t) / slope, dRhoDP: 1 / slope };
+  return {
+    reducedDensity: rho,
+    phase,
+    chemicalPotential: eos.chemicalPotential(rho, t),
+    dRhoDT: -eos.dPdT(rho, t) / slope,
+    dRhoDP: 1 / slope,
+  };
 }
 
 /**
  * Density at (T*, P*). Below T*c both a vapour and a liquid root can exist (one of them metastable); the
  * root with the lower chemical potential (the stable phase) is returned unless `prefer` names a phase.
  */
-export function solveDensity(eos: EosFunctions, t: number, p: number, critical: CriticalPoint, prefer?: 'liquid' | 'vapour'): StableDensity {
+export function solveDensity(
+  eos: EosFunctions,
+  t: number,
+  p: number,
+  critical: CriticalPoint,
+  prefer?: 'liquid' | 'vapour',
+): StableDensity {
   if (!(t > 0) || !Number.isFinite(t)) throw new RangeError(`reduced temperature must be a finite number > 0, got ${String(t)}`);
   if (!(p > 0) || !Number.isFinite(p)) throw new RangeError(`reduced pressure must be a finite number > 0, got ${String(p)}`);
   const roots: DensityRoot[] = [];
@@ -253,14 +266,17 @@ export function solveDensity(eos: EosFunctions, t: number, p: number, critical: 
     const spin = spinodals(eos, t);
     if (p <= eos.pressure(spin.vapour, t)) roots.push(rootAt(eos, vapourRoot(eos, spin.vapour, t, p), t, 'vapour'));
     const pLiquidLow = eos.pressure(spin.liquid, t);
-    if (p >= pLiquidLow && p <= eos.pressure(spin.liquidTop, t)) roots.push(rootAt(eos, solveIncreasing(eos, spin.liquid, spin.liquidTop, t, p), t, 'liquid'));
+    if (p >= pLiquidLow && p <= eos.pressure(spin.liquidTop, t))
+      roots.push(rootAt(eos, solveIncreasing(eos, spin.liquid, spin.liquidTop, t, p), t, 'liquid'));
   } else if (p <= eos.pressure(eos.maxDensity, t)) {
     let lo = Math.min(p / t, eos.maxDensity) * 0.5;
     while (eos.pressure(lo, t) > p) lo *= 0.1;
     roots.push(rootAt(eos, solveIncreasing(eos, lo, eos.maxDensity, t, p), t, 'supercritical'));
   }
   if (roots.length === 0) {
-    throw new RangeError(`no fluid root of the ${eos.id} equation of state at T* = ${t}, P* = ${p} below ρ* = ${eos.maxDensity} (solid or beyond the fitted range)`);
+    throw new RangeError(
+      `no fluid root of the ${eos.id} equation of state at T* = ${t}, P* = ${p} below ρ* = ${eos.maxDensity} (solid or beyond the fitted range)`,
+    );
   }
   const stable = roots.reduce((a, b) => (b.chemicalPotential < a.chemicalPotential ? b : a));
   if (roots.length === 1) {
@@ -271,7 +287,7 @@ export function solveDensity(eos: EosFunctions, t: number, p: number, critical: 
         : `one root: ${only.phase}`;
     return { ...only, chosen: 'only root', roots, stablePhase: only.phase, note };
   }
-  const chosen = prefer ? roots.find((r) => r.phase === prefer) ?? stable : stable;
+  const chosen = prefer ? (roots.find((r) => r.phase === prefer) ?? stable) : stable;
   const other = roots.find((r) => r !== stable)!;
   const note = prefer
     ? `liquid and vapour roots both exist; returned the ${prefer} root as asked; the stable phase is the ${stable.phase} (lower chemical potential)`

@@ -57,7 +57,9 @@ describe('Thol et al. (2016) LJ equation of state', () => {
 
   it('refuses saturation at or above its critical temperature with a clear message', () => {
     expect(() => tholCoexistence(1.33)).toThrow(AboveCriticalError);
-    expect(() => tholCoexistence(1.33)).toThrow(/at or above the critical temperature of the thol2016 equation of state \(T\*c = 1\.3200\)/);
+    expect(() => tholCoexistence(1.33)).toThrow(
+      /at or above the critical temperature of the thol2016 equation of state \(T\*c = 1\.3200\)/,
+    );
   });
 
   it('returns the stable root at (T*, P*) and says which it chose', () => {

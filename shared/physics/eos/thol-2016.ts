@@ -18,7 +18,15 @@
  * Thol fitted simulation data for 0.661 ≤ T* ≤ 9 and ρ* ≤ 1.08 or so (from memory); outside, it extrapolates
  * (smoothly; Thol designed the terms to behave physically far beyond the data).
  */
-import { findCriticalPoint, solveCoexistence, solveDensity, type Coexistence, type CriticalPoint, type EosFunctions, type StableDensity } from './phase-equilibrium';
+import {
+  findCriticalPoint,
+  solveCoexistence,
+  solveDensity,
+  type Coexistence,
+  type CriticalPoint,
+  type EosFunctions,
+  type StableDensity,
+} from './phase-equilibrium';
 
 export const THOL_2016_SOURCE =
   'M. Thol, G. Rutkai, A. Köster, R. Lustig, R. Span, J. Vrabec, "Equation of state for the Lennard-Jones fluid", ' +
@@ -120,7 +128,8 @@ export function tholAlpha(rho: number, t: number): TholAlpha {
 
 function check(rho: number, t: number): void {
   if (!(t > 0) || !Number.isFinite(t)) throw new RangeError(`reducedTemperature must be a finite number > 0, got ${String(t)}`);
-  if (!(rho >= 0) || !Number.isFinite(rho) || rho > 2) throw new RangeError(`reducedDensity must be a finite number in [0, 2], got ${String(rho)}`);
+  if (!(rho >= 0) || !Number.isFinite(rho) || rho > 2)
+    throw new RangeError(`reducedDensity must be a finite number in [0, 2], got ${String(rho)}`);
 }
 
 /** P* = ρ*T*(1 + δα_r,δ). */

@@ -36,7 +36,7 @@ function vanDerWaalsDensity(tStar: number, pStar: number): number {
       for (let it = 0; it < 80; it++) {
         const midRho = 0.5 * (lo + hi);
         const fm = pressure(midRho, tStar) - pStar;
-        if ((fm < 0) === (pressure(lo, tStar) - pStar < 0)) lo = midRho;
+        if (fm < 0 === pressure(lo, tStar) - pStar < 0) lo = midRho;
         else hi = midRho;
       }
       roots.push(0.5 * (lo + hi));

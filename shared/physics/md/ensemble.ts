@@ -112,7 +112,10 @@ export class Ensemble {
     const s = this.system;
     const shifted = sums.potentialTruncated - sums.pairsInside * ljPairEnergy(s.cutoff, s.repulsiveExponent);
     if (this.settings.scheme === 'truncated-shifted') return shifted;
-    return shifted + s.n * (tailEnergyPerAtom(density, s.cutoff, s.repulsiveExponent) + meanFieldShiftPerAtom(density, s.cutoff, s.repulsiveExponent));
+    return (
+      shifted +
+      s.n * (tailEnergyPerAtom(density, s.cutoff, s.repulsiveExponent) + meanFieldShiftPerAtom(density, s.cutoff, s.repulsiveExponent))
+    );
   }
 
   /** One velocity-Verlet step followed by the CSVR thermostat; `withEnergy` also refreshes the pair sums. */
@@ -222,7 +225,9 @@ export class Ensemble {
     series.kinetic.push(k);
     series.temperature.push((2 * k) / this.degreesOfFreedom);
     series.potentialTruncatedPerAtom.push(sums.potentialTruncated / n);
-    series.potentialPerAtom.push(tail ? sums.potentialTruncated / n + tailEnergyPerAtom(rho, s.cutoff, s.repulsiveExponent) : shiftedTotal / n);
+    series.potentialPerAtom.push(
+      tail ? sums.potentialTruncated / n + tailEnergyPerAtom(rho, s.cutoff, s.repulsiveExponent) : shiftedTotal / n,
+    );
     series.hamiltonianPotential.push(hpot);
     series.pressureTruncated.push(pTrunc);
     series.pressure.push(tail ? pTrunc + tailPressure(rho, s.cutoff, s.repulsiveExponent) : pTrunc);

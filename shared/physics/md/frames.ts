@@ -52,7 +52,7 @@ export function decodeFloat64(text: string): Float64Array {
   const bytes = new Uint8Array(Math.floor((clean.length * 3) / 4));
   let j = 0;
   for (let i = 0; i < clean.length; i += 4) {
-    const c = [0, 1, 2, 3].map((k) => (i + k < clean.length ? LOOKUP[clean.charCodeAt(i + k)] ?? -1 : 0));
+    const c = [0, 1, 2, 3].map((k) => (i + k < clean.length ? (LOOKUP[clean.charCodeAt(i + k)] ?? -1) : 0));
     if (c.some((v) => v < 0)) throw new RangeError('frames: not base64 text');
     const n = (c[0] << 18) | (c[1] << 12) | (c[2] << 6) | c[3];
     if (j < bytes.length) bytes[j++] = (n >> 16) & 255;

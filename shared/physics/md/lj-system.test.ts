@@ -119,12 +119,12 @@ describe('LjSystem', () => {
         const jac = rc / (t * t);
         const ir6 = 1 / r ** 6;
         iu += r * r * 4 * ir6 * (ir6 - 1) * jac;
-        ip += r * r * r * (-48 * ir6 * ir6 + 24 * ir6) / r * jac;
+        ip += ((r * r * r * (-48 * ir6 * ir6 + 24 * ir6)) / r) * jac;
       }
       iu /= m;
       ip /= m;
       expect(tailEnergyPerAtom(rho, rc)).toBeCloseTo(2 * Math.PI * rho * iu, 8);
-      expect(tailPressure(rho, rc)).toBeCloseTo((-2 * Math.PI / 3) * rho * rho * ip, 8);
+      expect(tailPressure(rho, rc)).toBeCloseTo(((-2 * Math.PI) / 3) * rho * rho * ip, 8);
     }
     // u(2^(1/6)) = −1 (minimum of the LJ potential, ε = 1).
     expect(ljPairEnergy(Math.pow(2, 1 / 6))).toBeCloseTo(-1, 12);

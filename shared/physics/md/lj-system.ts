@@ -52,7 +52,7 @@ export function tailPressure(reducedDensity: number, cutoff: number, repulsiveEx
  * usual truncated-force virial + P_tail (derivation in the doc comment of npt.ts).
  */
 export function meanFieldShiftPerAtom(reducedDensity: number, cutoff: number, repulsiveExponent = LJ_REPULSIVE_EXPONENT): number {
-  return (2 * Math.PI / 3) * reducedDensity * cutoff * cutoff * cutoff * ljPairEnergy(cutoff, repulsiveExponent);
+  return ((2 * Math.PI) / 3) * reducedDensity * cutoff * cutoff * cutoff * ljPairEnergy(cutoff, repulsiveExponent);
 }
 
 /** Sums over pairs inside rc from the last energy evaluation. */
@@ -375,8 +375,19 @@ export class LjSystem {
     this.ensureCapacity(Math.max(n * 48, maxCandidates));
     for (;;) {
       const p = findPairs(
-        np, this.rlist2, nc3, this.rangesPerCell, cellStart, this.rangeLo, this.rangeHi, this.rangeShift, this.rangeZero,
-        this.nbStart, this.nbMid, this.nbList, maxCandidates,
+        np,
+        this.rlist2,
+        nc3,
+        this.rangesPerCell,
+        cellStart,
+        this.rangeLo,
+        this.rangeHi,
+        this.rangeShift,
+        this.rangeZero,
+        this.nbStart,
+        this.nbMid,
+        this.nbList,
+        maxCandidates,
       );
       if (p >= 0) break;
       this.ensureCapacity(this.nbList.length * 2);

@@ -10,12 +10,14 @@ import { decodeFloat64, encodeFloat64 } from './frames';
  * direct run are independent, so they agree within 3 combined standard errors (common practice, no source).
  */
 const BASE = { reducedTemperature: 1.5, reducedPressure: 0.5 };
-const run = (state: { reducedTemperature: number; reducedPressure: number }, seed: number) => runNpt({ ...state, atoms: 128, steps: 5000, seed });
+const run = (state: { reducedTemperature: number; reducedPressure: number }, seed: number) =>
+  runNpt({ ...state, atoms: 128, steps: 5000, seed });
 
 describe('frames', () => {
   it('round-trip Float64 values through base64 exactly', () => {
     const values = [0, -1.5, Math.PI, 1e-300, -7.25e12, Number.MIN_VALUE, 123456.789];
-    for (let n = 0; n <= values.length; n++) expect(Array.from(decodeFloat64(encodeFloat64(values.slice(0, n))))).toEqual(values.slice(0, n));
+    for (let n = 0; n <= values.length; n++)
+      expect(Array.from(decodeFloat64(encodeFloat64(values.slice(0, n))))).toEqual(values.slice(0, n));
     expect(() => decodeFloat64('@@@@')).toThrow(/base64/);
   });
 });
@@ -44,15 +46,19 @@ describe('MBAR reweighting of NPT runs', () => {
     { reducedTemperature: 1.5, reducedPressure: 0.52 },
     { reducedTemperature: 1.48, reducedPressure: 0.49 },
   ];
-  it.each(nearby)('agrees with a direct run at T* = $reducedTemperature, P* = $reducedPressure', (state) => {
-    const predicted = pool.predict(state);
-    if (!predicted.ok) throw new Error(predicted.reason);
-    const direct = run(state, 29);
-    expect(Math.abs(predicted.reducedDensity - direct.reducedDensity)).toBeLessThan(3 * Math.hypot(predicted.stdErr, direct.stdErr));
-    // A neighbouring state holds fewer effective samples than the run's own.
-    expect(predicted.effectiveSamples).toBeLessThan(base.effectiveSamples);
-    expect(predicted.stdErr).toBeGreaterThan(0);
-  }, 300_000);
+  it.each(nearby)(
+    'agrees with a direct run at T* = $reducedTemperature, P* = $reducedPressure',
+    (state) => {
+      const predicted = pool.predict(state);
+      if (!predicted.ok) throw new Error(predicted.reason);
+      const direct = run(state, 29);
+      expect(Math.abs(predicted.reducedDensity - direct.reducedDensity)).toBeLessThan(3 * Math.hypot(predicted.stdErr, direct.stdErr));
+      // A neighbouring state holds fewer effective samples than the run's own.
+      expect(predicted.effectiveSamples).toBeLessThan(base.effectiveSamples);
+      expect(predicted.stdErr).toBeGreaterThan(0);
+    },
+    300_000,
+  );
 
   it('refuses a distant state by the effective-sample-size guard', () => {
     const far = pool.predict({ reducedTemperature: 2.0, reducedPressure: 1.0 });
@@ -63,7 +69,10 @@ describe('MBAR reweighting of NPT runs', () => {
 
   it('pools two runs: the prediction between them carries more effective samples than either alone', () => {
     const second = run({ reducedTemperature: 1.53, reducedPressure: 0.52 }, 12);
-    const both = new ReweightPool([reweightRunFromFrames(1, base.settings, base.frames), reweightRunFromFrames(2, second.settings, second.frames)], 0);
+    const both = new ReweightPool(
+      [reweightRunFromFrames(1, base.settings, base.frames), reweightRunFromFrames(2, second.settings, second.frames)],
+      0,
+    );
     const alone = new ReweightPool([reweightRunFromFrames(1, base.settings, base.frames)], 0);
     const middle = { reducedTemperature: 1.515, reducedPressure: 0.51 };
     const a = both.predict(middle);

@@ -300,7 +300,10 @@ export class ReweightPool {
   private readonly runs: ReweightRun[] = [];
   private solve: MbarSolve | null = null;
 
-  constructor(runs: ReweightRun[] = [], readonly minEffectiveSamples = DEFAULT_MIN_REWEIGHT_SAMPLES) {
+  constructor(
+    runs: ReweightRun[] = [],
+    readonly minEffectiveSamples = DEFAULT_MIN_REWEIGHT_SAMPLES,
+  ) {
     for (const r of runs) this.add(r);
   }
 
@@ -314,8 +317,10 @@ export class ReweightPool {
 
   add(run: ReweightRun): void {
     if (this.has(run.id)) return;
-    if (this.runs.length && run.atoms !== this.runs[0].atoms) throw new RangeError(`run ${run.id} has ${run.atoms} atoms, the pool ${this.runs[0].atoms}`);
-    if (run.volume.length === 0 || run.volume.length !== run.hamiltonianPotential.length) throw new RangeError(`run ${run.id} has no usable frames`);
+    if (this.runs.length && run.atoms !== this.runs[0].atoms)
+      throw new RangeError(`run ${run.id} has ${run.atoms} atoms, the pool ${this.runs[0].atoms}`);
+    if (run.volume.length === 0 || run.volume.length !== run.hamiltonianPotential.length)
+      throw new RangeError(`run ${run.id} has no usable frames`);
     this.runs.push(run);
     this.solve = null;
   }
@@ -329,7 +334,11 @@ export class ReweightPool {
     if (!this.solve) this.solve = new MbarSolve([...this.runs].sort((a, b) => a.id - b.id));
     const { prediction } = this.solve.predict(target);
     if (!(prediction.effectiveSamples >= 1)) {
-      return { ok: false, effectiveSamples: prediction.effectiveSamples, reason: `no stored run overlaps T* = ${target.reducedTemperature.toFixed(4)}, P* = ${target.reducedPressure.toFixed(4)}` };
+      return {
+        ok: false,
+        effectiveSamples: prediction.effectiveSamples,
+        reason: `no stored run overlaps T* = ${target.reducedTemperature.toFixed(4)}, P* = ${target.reducedPressure.toFixed(4)}`,
+      };
     }
     if (!(prediction.effectiveSamples >= this.minEffectiveSamples)) {
       return {

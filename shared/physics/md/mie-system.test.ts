@@ -98,50 +98,93 @@ describe('Mie λr-6 pair kernel', () => {
       ip += c * (n * r ** -n - 6 * r ** -6) * r * r * dr; // r³(−du/dr) = c(n r^−n − 6 r^−6)·r²
     }
     expect(Math.abs(tailEnergyPerAtom(rho, rc, n) / (2 * Math.PI * rho * iu) - 1)).toBeLessThan(1e-6);
-    expect(Math.abs(tailPressure(rho, rc, n) / ((2 * Math.PI / 3) * rho * rho * ip) - 1)).toBeLessThan(1e-6);
-    expect(meanFieldShiftPerAtom(rho, rc, n)).toBeCloseTo((2 * Math.PI / 3) * rho * rc ** 3 * ljPairEnergy(rc, n), 14);
+    expect(Math.abs(tailPressure(rho, rc, n) / (((2 * Math.PI) / 3) * rho * rho * ip) - 1)).toBeLessThan(1e-6);
+    expect(meanFieldShiftPerAtom(rho, rc, n)).toBeCloseTo(((2 * Math.PI) / 3) * rho * rc ** 3 * ljPairEnergy(rc, n), 14);
   });
 
   it('NVE with the Mie 16-6 kernel conserves the shifted energy', () => {
     // Velocity Verlet drift at dt = 0.004 over 400 steps stays within 1e-3 ε per atom for a stiff repulsion (common practice).
-    const r = runNve({ atoms: 256, steps: 400, reducedDensity: 0.8, reducedTemperature: 1.2, timestep: 0.004, thermoEvery: 20, repulsiveExponent: 16 });
+    const r = runNve({
+      atoms: 256,
+      steps: 400,
+      reducedDensity: 0.8,
+      reducedTemperature: 1.2,
+      timestep: 0.004,
+      thermoEvery: 20,
+      repulsiveExponent: 16,
+    });
     expect(Math.abs(r.energyRangePerAtom)).toBeLessThan(1e-3);
     expect(r.final.temperature).toBeGreaterThan(0.3);
   });
 
-  it.skipIf(!has('lmp'))('potential energy, pressure and tail corrections equal LAMMPS pair_style mie/cut on the same configuration', () => {
-    const n = 16;
-    const { pos, box } = jiggled(256, 0.7, 0.05, 9);
-    const s = new LjSystem(pos, box, 2.5, 0.3, n);
-    s.buildList();
-    const sums = s.computeForcesAndEnergy();
-    const atoms = pos.length / 3;
-    const ours = { pe: sums.potentialTruncated, press: sums.virial / (3 * s.volume) };
-    const dir = mkdtempSync(join(tmpdir(), 'epsigma-mie-'));
-    try {
-      const lines = ['Mie test configuration', '', `${atoms} atoms`, '1 atom types', '', `0 ${box} xlo xhi`, `0 ${box} ylo yhi`, `0 ${box} zlo zhi`, '', 'Masses', '', '1 1.0', '', 'Atoms # atomic', ''];
-      for (let i = 0; i < atoms; i++) {
-        const w = (v: number) => ((v % box) + box) % box;
-        lines.push(`${i + 1} 1 ${w(s.pos[3 * i]).toPrecision(17)} ${w(s.pos[3 * i + 1]).toPrecision(17)} ${w(s.pos[3 * i + 2]).toPrecision(17)}`);
+  it.skipIf(!has('lmp'))(
+    'potential energy, pressure and tail corrections equal LAMMPS pair_style mie/cut on the same configuration',
+    () => {
+      const n = 16;
+      const { pos, box } = jiggled(256, 0.7, 0.05, 9);
+      const s = new LjSystem(pos, box, 2.5, 0.3, n);
+      s.buildList();
+      const sums = s.computeForcesAndEnergy();
+      const atoms = pos.length / 3;
+      const ours = { pe: sums.potentialTruncated, press: sums.virial / (3 * s.volume) };
+      const dir = mkdtempSync(join(tmpdir(), 'epsigma-mie-'));
+      try {
+        const lines = [
+          'Mie test configuration',
+          '',
+          `${atoms} atoms`,
+          '1 atom types',
+          '',
+          `0 ${box} xlo xhi`,
+          `0 ${box} ylo yhi`,
+          `0 ${box} zlo zhi`,
+          '',
+          'Masses',
+          '',
+          '1 1.0',
+          '',
+          'Atoms # atomic',
+          '',
+        ];
+        for (let i = 0; i < atoms; i++) {
+          const w = (v: number) => ((v % box) + box) % box;
+          lines.push(
+            `${i + 1} 1 ${w(s.pos[3 * i]).toPrecision(17)} ${w(s.pos[3 * i + 1]).toPrecision(17)} ${w(s.pos[3 * i + 2]).toPrecision(17)}`,
+          );
+        }
+        writeFileSync(join(dir, 'conf.data'), lines.join('\n') + '\n');
+        const run = (tail: 'yes' | 'no') => {
+          writeFileSync(
+            join(dir, 'in.mie'),
+            [
+              'units lj',
+              'atom_style atomic',
+              'boundary p p p',
+              'read_data conf.data',
+              `pair_style mie/cut 2.5`,
+              `pair_coeff 1 1 1.0 1.0 ${n} 6`,
+              `pair_modify tail ${tail}`,
+              'thermo_style custom step pe press',
+              'thermo_modify norm no format float %22.15g',
+              'run 0',
+            ].join('\n'),
+          );
+          const out = execFileSync('lmp', ['-in', 'in.mie', '-log', 'none'], { cwd: dir, encoding: 'utf8' }).split('\n');
+          const k = out.findIndex((l) => /^\s*Step\s+PotEng\s+Press/.test(l));
+          expect(k).toBeGreaterThan(-1);
+          const [, pe, press] = out[k + 1].trim().split(/\s+/).map(Number);
+          return { pe, press };
+        };
+        const plain = run('no');
+        expect(Math.abs(plain.pe - ours.pe)).toBeLessThan(1e-9 * Math.abs(ours.pe));
+        expect(Math.abs(plain.press - ours.press)).toBeLessThan(1e-9 * Math.abs(ours.press) + 1e-12);
+        const tail = run('yes');
+        const rho = atoms / s.volume;
+        expect(Math.abs(tail.pe - plain.pe - atoms * tailEnergyPerAtom(rho, 2.5, n))).toBeLessThan(1e-9 * Math.abs(plain.pe));
+        expect(Math.abs(tail.press - plain.press - tailPressure(rho, 2.5, n))).toBeLessThan(1e-9 * Math.abs(plain.press) + 1e-12);
+      } finally {
+        rmSync(dir, { recursive: true, force: true });
       }
-      writeFileSync(join(dir, 'conf.data'), lines.join('\n') + '\n');
-      const run = (tail: 'yes' | 'no') => {
-        writeFileSync(join(dir, 'in.mie'), ['units lj', 'atom_style atomic', 'boundary p p p', 'read_data conf.data', `pair_style mie/cut 2.5`, `pair_coeff 1 1 1.0 1.0 ${n} 6`, `pair_modify tail ${tail}`, 'thermo_style custom step pe press', 'thermo_modify norm no format float %22.15g', 'run 0'].join('\n'));
-        const out = execFileSync('lmp', ['-in', 'in.mie', '-log', 'none'], { cwd: dir, encoding: 'utf8' }).split('\n');
-        const k = out.findIndex((l) => /^\s*Step\s+PotEng\s+Press/.test(l));
-        expect(k).toBeGreaterThan(-1);
-        const [, pe, press] = out[k + 1].trim().split(/\s+/).map(Number);
-        return { pe, press };
-      };
-      const plain = run('no');
-      expect(Math.abs(plain.pe - ours.pe)).toBeLessThan(1e-9 * Math.abs(ours.pe));
-      expect(Math.abs(plain.press - ours.press)).toBeLessThan(1e-9 * Math.abs(ours.press) + 1e-12);
-      const tail = run('yes');
-      const rho = atoms / s.volume;
-      expect(Math.abs(tail.pe - plain.pe - atoms * tailEnergyPerAtom(rho, 2.5, n))).toBeLessThan(1e-9 * Math.abs(plain.pe));
-      expect(Math.abs(tail.press - plain.press - tailPressure(rho, 2.5, n))).toBeLessThan(1e-9 * Math.abs(plain.press) + 1e-12);
-    } finally {
-      rmSync(dir, { recursive: true, force: true });
-    }
-  });
+    },
+  );
 });

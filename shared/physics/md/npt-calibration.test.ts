@@ -39,11 +39,17 @@ describe('calibration of the reported standard errors', () => {
         const s2 = values.reduce((a, b) => a + (b - m) ** 2, 0) / (values.length - 1);
         return s2 / (errors.reduce((a, b) => a + b * b, 0) / errors.length);
       };
-      const density = ratio(runs.map((r) => r.reducedDensity), runs.map((r) => r.stdErr));
+      const density = ratio(
+        runs.map((r) => r.reducedDensity),
+        runs.map((r) => r.stdErr),
+      );
       expect(density * DOF).toBeGreaterThan(BAND[0]);
       expect(density * DOF).toBeLessThan(BAND[1]);
       // The fluctuation derivative (∂ρ*/∂P*)_T carries its own error bar, calibrated the same way.
-      const slope = ratio(runs.map((r) => r.dRhoDP), runs.map((r) => r.dRhoDPStdErr));
+      const slope = ratio(
+        runs.map((r) => r.dRhoDP),
+        runs.map((r) => r.dRhoDPStdErr),
+      );
       expect(slope * DOF).toBeGreaterThan(BAND[0]);
       expect(slope * DOF).toBeLessThan(BAND[1]);
     }, 600_000);

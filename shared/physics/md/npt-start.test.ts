@@ -43,7 +43,15 @@ describe('starts that cannot superheat', () => {
     // The same state started from the melted lattice either freezes (flagged solid) or stays a glassy, over-dense
     // fluid well above the liquid at freezing (ρ* = 0.85 at T* = 0.6 from Mastny & de Pablo's eq. 21 extrapolated):
     // never a normal liquid density. Q6 and the local-density checks are the ones a real freezing run relies on.
-    const r = runNpt({ reducedTemperature: 0.6, reducedPressure: 8, atoms: 256, steps: 3000, minEffectiveSamples: 0, seed: 1, start: 'melted-lattice' });
+    const r = runNpt({
+      reducedTemperature: 0.6,
+      reducedPressure: 8,
+      atoms: 256,
+      steps: 3000,
+      minEffectiveSamples: 0,
+      seed: 1,
+      start: 'melted-lattice',
+    });
     expect(r.startedFrom).toBe('melted-lattice');
     expect(r.diagnostics.meltSteps).toBeGreaterThanOrEqual(500);
     if (r.phase !== 'solid') expect(r.reducedDensity).toBeGreaterThan(1.0);

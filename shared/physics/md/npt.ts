@@ -18,7 +18,6 @@ import { requireInteger, requireNumber } from './validate';
 import { encodeFloat64, type RunFrames } from './frames';
 import { ljRegionOf } from '../eos/lj-freezing';
 
-
 /**
  * Default total MD steps (20 % barostat tuning + production): at N = 500 a liquid density comes out with a standard
  * error of about 0.2–0.3 % in about 5 s of one core (measured 0.13–0.19 % with 20000 steps in ~10 CPU-seconds).
@@ -258,7 +257,9 @@ export function runNpt(options: NptOptions, onProgress?: ProgressCallback): NptR
     throw new RangeError(`start must be 'auto', 'melted-lattice' or 'fcc-lattice', got ${String(options.start)}`);
   }
   if (Math.cbrt(atoms / initialDensity) <= 2 * cutoff) {
-    throw new RangeError(`atoms: ${atoms} atoms at ρ* ≈ ${initialDensity.toFixed(3)} give a box smaller than 2·cutoff; use more atoms or a smaller cutoff`);
+    throw new RangeError(
+      `atoms: ${atoms} atoms at ρ* ≈ ${initialDensity.toFixed(3)} give a box smaller than 2·cutoff; use more atoms or a smaller cutoff`,
+    );
   }
   const startedFrom: StartedFrom =
     startChoice === 'auto' ? (ljRegionOf(t, p).region === 'solid' ? 'fcc-lattice' : 'melted-lattice') : startChoice;

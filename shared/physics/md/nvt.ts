@@ -64,8 +64,23 @@ export interface NvtResult {
   kineticEnergyVarianceCanonical: number;
   phase: Phase;
   orderParameter: PhaseCheck;
-  settings: { reducedTemperature: number; atoms: number; steps: number; cutoff: number; scheme: SimulationCutoffScheme; timestep: number; seed: number; thermostatTau: number };
-  diagnostics: { equilibrationSample: number; productionSamples: number; statisticalInefficiency: number; listBuilds: number; wallSeconds: number };
+  settings: {
+    reducedTemperature: number;
+    atoms: number;
+    steps: number;
+    cutoff: number;
+    scheme: SimulationCutoffScheme;
+    timestep: number;
+    seed: number;
+    thermostatTau: number;
+  };
+  diagnostics: {
+    equilibrationSample: number;
+    productionSamples: number;
+    statisticalInefficiency: number;
+    listBuilds: number;
+    wallSeconds: number;
+  };
   trace: MdTrace;
 }
 

@@ -77,14 +77,7 @@ export interface BondOrder {
  * Global Q6 of a configuration using a half neighbour list (each pair once; Y6m is even in r̂, so one direction
  * per bond suffices). Pairs are taken with the minimum image.
  */
-export function globalQ6(
-  pos: Float64Array,
-  box: number,
-  nbStart: Int32Array,
-  nbList: Int32Array,
-  n: number,
-  bondLength = 1.5,
-): BondOrder {
+export function globalQ6(pos: Float64Array, box: number, nbStart: Int32Array, nbList: Int32Array, n: number, bondLength = 1.5): BondOrder {
   const re = new Float64Array(L + 1);
   const im = new Float64Array(L + 1);
   const rb2 = bondLength * bondLength;

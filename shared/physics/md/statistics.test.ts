@@ -1,5 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import { autocorrelation, blockingStdErr, detectEquilibration, estimateCovariance, estimateMean, statisticalInefficiency } from './statistics';
+import {
+  autocorrelation,
+  blockingStdErr,
+  detectEquilibration,
+  estimateCovariance,
+  estimateMean,
+  statisticalInefficiency,
+} from './statistics';
 import { Xoshiro128 } from './rng';
 
 /** AR(1) process x_t = φ x_{t−1} + e_t: integrated autocorrelation gives g = (1 + φ)/(1 − φ) (Chodera et al. 2007, eq. 14 ff.; standard result for AR(1)). */

@@ -19,7 +19,8 @@ const argon: LjParameters = { epsilonK: 119.8, sigmaAngstrom: 3.405 };
 const krypton: LjParameters = { epsilonK: 171, sigmaAngstrom: 3.6 };
 const small: LjParameters = { epsilonK: 10.22, sigmaAngstrom: 2.556 };
 const large: LjParameters = { epsilonK: 221, sigmaAngstrom: 4.1 };
-const pair = (a: LjParameters, b: LjParameters) => `ε/k = ${a.epsilonK} K, σ = ${a.sigmaAngstrom} Å with ε/k = ${b.epsilonK} K, σ = ${b.sigmaAngstrom} Å`;
+const pair = (a: LjParameters, b: LjParameters) =>
+  `ε/k = ${a.epsilonK} K, σ = ${a.sigmaAngstrom} Å with ε/k = ${b.epsilonK} K, σ = ${b.sigmaAngstrom} Å`;
 const c6 = (p: LjParameters) => p.epsilonK * p.sigmaAngstrom ** 6;
 const c12 = (p: LjParameters) => p.epsilonK * p.sigmaAngstrom ** 12;
 const LAMMPS_SIXTHPOWER = 'LAMMPS documentation, pair_modify "mix sixthpower" formulas';
@@ -56,7 +57,9 @@ export const COMBINING_RULE_CHECKS: ReferenceCheck[] = [
     unit: 'K',
     state: pair(small, large),
     source: `${LAMMPS_SIXTHPOWER}: 2√(εiεj) σi³σj³/(σi⁶ + σj⁶)`,
-    reference: (2 * Math.sqrt(small.epsilonK * large.epsilonK) * small.sigmaAngstrom ** 3 * large.sigmaAngstrom ** 3) / (small.sigmaAngstrom ** 6 + large.sigmaAngstrom ** 6),
+    reference:
+      (2 * Math.sqrt(small.epsilonK * large.epsilonK) * small.sigmaAngstrom ** 3 * large.sigmaAngstrom ** 3) /
+      (small.sigmaAngstrom ** 6 + large.sigmaAngstrom ** 6),
     tolerance: closeToDigits(10),
     testFile: COMBINING_TEST,
     compute: () => combine('waldman-hagler', small, large).epsilonK,
@@ -127,11 +130,29 @@ const CODATA = 'CODATA 2018 (Tiesinga et al., Rev. Mod. Phys. 93, 025010, 2021),
 const SP811 = 'NIST SP 811 (Thompson & Taylor 2008), Appendix B.8 (from memory)';
 
 /** A unit conversion from a measurement column to the canonical unit, checked to 1e-12 relative unless stated. */
-const conversion = (id: string, value: number, unitText: string, quantity: string, expected: number, source: string, tolerance = relative(1e-12), molarMassGPerMol?: number): ReferenceCheck => ({
+const conversion = (
+  id: string,
+  value: number,
+  unitText: string,
+  quantity: string,
+  expected: number,
+  source: string,
+  tolerance = relative(1e-12),
+  molarMassGPerMol?: number,
+): ReferenceCheck => ({
   id: `units.${id}`,
   area: 'Units and constants',
   quantity: `${value} ${unitText} in the canonical unit of ${quantity}`,
-  unit: quantity === 'pressure' ? 'MPa' : quantity === 'viscosity' ? 'µPa·s' : quantity === 'temperature' ? 'K' : quantity === 'density' ? 'kg/m³' : 'cm³/mol',
+  unit:
+    quantity === 'pressure'
+      ? 'MPa'
+      : quantity === 'viscosity'
+        ? 'µPa·s'
+        : quantity === 'temperature'
+          ? 'K'
+          : quantity === 'density'
+            ? 'kg/m³'
+            : 'cm³/mol',
   state: molarMassGPerMol ? `M = ${molarMassGPerMol} g/mol` : 'exact factor',
   source,
   reference: expected,
@@ -141,12 +162,78 @@ const conversion = (id: string, value: number, unitText: string, quantity: strin
 });
 
 export const UNIT_CHECKS: ReferenceCheck[] = [
-  { id: 'units.epsilon.kj-per-mol', area: 'Units and constants', quantity: 'ε of 1 K in kJ/mol (R)', unit: 'kJ/mol', state: 'ε/k_B = 1 K', source: CODATA, reference: 8.314462618e-3, tolerance: closeToDigits(12), testFile: PARAMETER_UNITS_TEST, compute: () => convertEpsilon(1, 'kJ/mol') },
-  { id: 'units.epsilon.kcal-per-mol', area: 'Units and constants', quantity: 'ε of 1 K in kcal/mol', unit: 'kcal/mol', state: 'ε/k_B = 1 K', source: `${CODATA}; thermochemical calorie 4.184 J (NIST SP 811, B.8)`, reference: 8.314462618e-3 / 4.184, tolerance: closeToDigits(12), testFile: PARAMETER_UNITS_TEST, compute: () => convertEpsilon(1, 'kcal/mol') },
-  { id: 'units.epsilon.ev', area: 'Units and constants', quantity: 'ε of 1 K in eV (k_B/e)', unit: 'eV', state: 'ε/k_B = 1 K', source: CODATA, reference: 8.617333262e-5, tolerance: closeToDigits(13), testFile: PARAMETER_UNITS_TEST, compute: () => convertEpsilon(1, 'eV') },
-  { id: 'units.sigma.nm', area: 'Units and constants', quantity: 'σ of 3.405 Å in nm', unit: 'nm', state: 'σ = 3.405 Å', source: '1 Å = 0.1 nm exactly (SI Brochure 9th ed., Table 8)', reference: 0.3405, tolerance: closeToDigits(14), testFile: PARAMETER_UNITS_TEST, compute: () => convertSigma(3.405, 'nm') },
-  { id: 'units.epsilon.argon-kj', area: 'Units and constants', quantity: 'argon ε in kJ/mol', unit: 'kJ/mol', state: 'ε/k_B = 119.8 K', source: 'common textbook value (from memory)', reference: 0.996, tolerance: closeToDigits(3), testFile: PARAMETER_UNITS_TEST, compute: () => convertEpsilon(119.8, 'kJ/mol') },
-  { id: 'units.epsilon.argon-kcal', area: 'Units and constants', quantity: 'argon ε in kcal/mol', unit: 'kcal/mol', state: 'ε/k_B = 119.8 K', source: 'common textbook value (from memory)', reference: 0.238, tolerance: closeToDigits(3), testFile: PARAMETER_UNITS_TEST, compute: () => convertEpsilon(119.8, 'kcal/mol') },
+  {
+    id: 'units.epsilon.kj-per-mol',
+    area: 'Units and constants',
+    quantity: 'ε of 1 K in kJ/mol (R)',
+    unit: 'kJ/mol',
+    state: 'ε/k_B = 1 K',
+    source: CODATA,
+    reference: 8.314462618e-3,
+    tolerance: closeToDigits(12),
+    testFile: PARAMETER_UNITS_TEST,
+    compute: () => convertEpsilon(1, 'kJ/mol'),
+  },
+  {
+    id: 'units.epsilon.kcal-per-mol',
+    area: 'Units and constants',
+    quantity: 'ε of 1 K in kcal/mol',
+    unit: 'kcal/mol',
+    state: 'ε/k_B = 1 K',
+    source: `${CODATA}; thermochemical calorie 4.184 J (NIST SP 811, B.8)`,
+    reference: 8.314462618e-3 / 4.184,
+    tolerance: closeToDigits(12),
+    testFile: PARAMETER_UNITS_TEST,
+    compute: () => convertEpsilon(1, 'kcal/mol'),
+  },
+  {
+    id: 'units.epsilon.ev',
+    area: 'Units and constants',
+    quantity: 'ε of 1 K in eV (k_B/e)',
+    unit: 'eV',
+    state: 'ε/k_B = 1 K',
+    source: CODATA,
+    reference: 8.617333262e-5,
+    tolerance: closeToDigits(13),
+    testFile: PARAMETER_UNITS_TEST,
+    compute: () => convertEpsilon(1, 'eV'),
+  },
+  {
+    id: 'units.sigma.nm',
+    area: 'Units and constants',
+    quantity: 'σ of 3.405 Å in nm',
+    unit: 'nm',
+    state: 'σ = 3.405 Å',
+    source: '1 Å = 0.1 nm exactly (SI Brochure 9th ed., Table 8)',
+    reference: 0.3405,
+    tolerance: closeToDigits(14),
+    testFile: PARAMETER_UNITS_TEST,
+    compute: () => convertSigma(3.405, 'nm'),
+  },
+  {
+    id: 'units.epsilon.argon-kj',
+    area: 'Units and constants',
+    quantity: 'argon ε in kJ/mol',
+    unit: 'kJ/mol',
+    state: 'ε/k_B = 119.8 K',
+    source: 'common textbook value (from memory)',
+    reference: 0.996,
+    tolerance: closeToDigits(3),
+    testFile: PARAMETER_UNITS_TEST,
+    compute: () => convertEpsilon(119.8, 'kJ/mol'),
+  },
+  {
+    id: 'units.epsilon.argon-kcal',
+    area: 'Units and constants',
+    quantity: 'argon ε in kcal/mol',
+    unit: 'kcal/mol',
+    state: 'ε/k_B = 119.8 K',
+    source: 'common textbook value (from memory)',
+    reference: 0.238,
+    tolerance: closeToDigits(3),
+    testFile: PARAMETER_UNITS_TEST,
+    compute: () => convertEpsilon(119.8, 'kcal/mol'),
+  },
   {
     id: 'units.argon-pressure-unit',
     area: 'Units and constants',
@@ -182,15 +269,36 @@ export const UNIT_CHECKS: ReferenceCheck[] = [
   conversion('celsius', 26.85, 'degC', 'temperature', 300, 'NIST SP 811 Sec. 4.2.1.1: T/K = t/°C + 273.15'),
   conversion('gram-per-cubic-centimetre', 1, 'g/cm^3', 'density', 1000, `${SP811}: g/cm³ → kg/m³ = 1.0 E+03 (exact)`),
   conversion('litre-per-mole', -0.0155, 'L/mol', 'b2', -15.5, `${SP811}: liter → m³ = 1.0 E-03 (exact)`),
-  conversion('argon-mol-per-litre', 1, 'mol/L', 'density', 39.948, 'IUPAC standard atomic weight of argon 39.948 (Wieser & Coplen 2011, from memory)', relative(1e-12), 39.948),
+  conversion(
+    'argon-mol-per-litre',
+    1,
+    'mol/L',
+    'density',
+    39.948,
+    'IUPAC standard atomic weight of argon 39.948 (Wieser & Coplen 2011, from memory)',
+    relative(1e-12),
+    39.948,
+  ),
 ];
 
 // Argon B2(T), cm³/mol: CRC Handbook of Chemistry and Physics, table "Virial Coefficients of Selected Gases"
 // (H. V. Kehiaian), values smoothed from Dymond & Smith (1980). Retrieved with the search tool (not from memory).
 // The table gives no uncertainties; u = max(2 cm³/mol, 2 % of |B2|) (common practice, no source).
 export const ARGON_B2_CRC: Array<[number, number]> = [
-  [100, -184], [120, -131], [140, -98], [160, -76], [180, -60], [200, -48], [300, -16],
-  [400, -1], [500, 7], [600, 12], [700, 15], [800, 18], [900, 20], [1000, 22],
+  [100, -184],
+  [120, -131],
+  [140, -98],
+  [160, -76],
+  [180, -60],
+  [200, -48],
+  [300, -16],
+  [400, -1],
+  [500, 7],
+  [600, 12],
+  [700, 15],
+  [800, 18],
+  [900, 20],
+  [1000, 22],
 ];
 export const argonB2MeasurementSet = (): FitMeasurementSet => ({
   id: 'argon-crc',
@@ -202,7 +310,13 @@ export const argonB2MeasurementSet = (): FitMeasurementSet => ({
 export const argonViscosityMeasurementSet = (): FitMeasurementSet => ({
   id: 'argon-crc-eta',
   kind: 'viscosity',
-  rows: [[200, 15.9], [300, 22.7], [400, 28.6], [500, 33.9], [600, 38.8]].map(([temperatureK, value]) => ({ temperatureK, value, uncertainty: 0.01 * value })),
+  rows: [
+    [200, 15.9],
+    [300, 22.7],
+    [400, 28.6],
+    [500, 33.9],
+    [600, 38.8],
+  ].map(([temperatureK, value]) => ({ temperatureK, value, uncertainty: 0.01 * value })),
 });
 export const ARGON_MOLAR_MASS_G_PER_MOL = 39.948; // IUPAC standard atomic weight of Ar (from memory)
 

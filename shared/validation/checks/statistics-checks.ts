@@ -38,7 +38,10 @@ export const STATISTICS_CHECKS: DistributionCheck[] = [
     quantity: 'upper 5 % point of the F distribution',
     unit: '1',
     state: `ν1 = ${d1}, ν2 = ${d2}`,
-    source: d2 <= 3 ? 'atozmath.com "F Distribution" table (retrieved with the search tool)' : 'NIST/SEMATECH e-Handbook §1.3.6.7.3 (from memory)',
+    source:
+      d2 <= 3
+        ? 'atozmath.com "F Distribution" table (retrieved with the search tool)'
+        : 'NIST/SEMATECH e-Handbook §1.3.6.7.3 (from memory)',
     reference: value,
     // Half a unit of the table's last decimal: the table's rounding.
     tolerance: absolute(0.5 * 10 ** -decimals + 1e-9),
@@ -46,12 +49,14 @@ export const STATISTICS_CHECKS: DistributionCheck[] = [
     degreesOfFreedom: [d1, d2],
     compute: () => fQuantile(0.95, d1, d2),
   })),
-  ...([
-    [1, 3.841],
-    [2, 5.991],
-    [10, 18.307],
-    [30, 43.773],
-  ] as const).map(([dof, value]): DistributionCheck => ({
+  ...(
+    [
+      [1, 3.841],
+      [2, 5.991],
+      [10, 18.307],
+      [30, 43.773],
+    ] as const
+  ).map(([dof, value]): DistributionCheck => ({
     id: `statistics.chi2-95.${dof}`,
     area: 'Statistics distributions',
     quantity: 'upper 5 % point of the χ² distribution',
@@ -64,10 +69,12 @@ export const STATISTICS_CHECKS: DistributionCheck[] = [
     degreesOfFreedom: [dof],
     compute: () => chiSquareQuantile(0.95, dof),
   })),
-  ...([
-    [0.005, 6.844],
-    [0.995, 38.582],
-  ] as const).map(([p, value]): DistributionCheck => ({
+  ...(
+    [
+      [0.005, 6.844],
+      [0.995, 38.582],
+    ] as const
+  ).map(([p, value]): DistributionCheck => ({
     id: `statistics.chi2-19.${p}`,
     area: 'Statistics distributions',
     quantity: `χ² quantile at probability ${p}`,
@@ -99,7 +106,7 @@ export const MISRA1A = {
     [250, 5e-4],
   ],
   certified: [2.3894212918e2, 5.5015643181e-4],
-  certifiedStdDev: [2.7070075241e0, 7.2668688436e-6],
+  certifiedStdDev: [2.7070075241, 7.2668688436e-6],
   residualSumOfSquares: 1.2455138894e-1,
   dof: 12,
   source: 'NIST StRD Nonlinear Regression, Misra1a.dat, certified values (retrieved with the search tool)',
@@ -138,7 +145,13 @@ export interface StrdCheck extends ReferenceCheck {
 // Parameters to 6+ and standard errors to 4+ significant digits; the residual sum of squares to 1e-8.
 export const LEAST_SQUARES_CHECKS: StrdCheck[] = [MISRA1A, BOXBOD].flatMap((set) =>
   set.starts.flatMap((start, startIndex): StrdCheck[] => {
-    const common = { area: 'Least squares (NIST StRD)' as const, source: set.source, testFile: LEAST_SQUARES_TEST, dataSet: set, startIndex };
+    const common = {
+      area: 'Least squares (NIST StRD)' as const,
+      source: set.source,
+      testFile: LEAST_SQUARES_TEST,
+      dataSet: set,
+      startIndex,
+    };
     const state = `${set.name}, start ${startIndex + 1} (b1 = ${start[0]}, b2 = ${start[1]})`;
     const prefix = `strd.${set.name.toLowerCase()}.start${startIndex + 1}`;
     return [

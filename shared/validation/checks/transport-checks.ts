@@ -8,7 +8,8 @@ const COLLISION_TEST = 'shared/physics/collision-integrals.test.ts';
 const VISCOSITY_TEST = 'shared/physics/viscosity.test.ts';
 const rel = (a: number, b: number) => Math.abs(a / b - 1);
 
-const NEUFELD = 'Neufeld, Janzen & Aziz, J. Chem. Phys. 57, 1100 (1972), correlation (coefficients from memory, checked against Chung et al. 1988)';
+const NEUFELD =
+  'Neufeld, Janzen & Aziz, J. Chem. Phys. 57, 1100 (1972), correlation (coefficients from memory, checked against Chung et al. 1988)';
 const KIM_MONROE = 'Kim & Monroe, J. Comput. Phys. 273, 358 (2014), correlation of their quadrature (±0.007 %)';
 const BSL_E2 = 'Bird, Stewart & Lightfoot, Transport Phenomena, 2nd ed. 2002, Table E.2 (Monchick & Mason 1961)';
 
@@ -34,7 +35,8 @@ export const COLLISION_INTEGRAL_CHECKS: ReferenceCheck[] = [
     reference: 0,
     tolerance: absolute(2e-3),
     testFile: COLLISION_TEST,
-    compute: () => largest(logSpaced(0.3, 100, 80), (t) => (kind === '11' ? rel(omega11(t), neufeldOmega11(t)) : rel(omega22(t), neufeldOmega22(t)))),
+    compute: () =>
+      largest(logSpaced(0.3, 100, 80), (t) => (kind === '11' ? rel(omega11(t), neufeldOmega11(t)) : rel(omega22(t), neufeldOmega22(t)))),
   })),
   ...(['11', '22'] as const).map((kind): ReferenceCheck => ({
     id: `collision.kim-monroe.omega${kind}`,
@@ -46,11 +48,36 @@ export const COLLISION_INTEGRAL_CHECKS: ReferenceCheck[] = [
     reference: 0,
     tolerance: absolute(2e-4),
     testFile: COLLISION_TEST,
-    compute: () => largest(logSpaced(0.3, 400, 60), (t) => rel(kind === '11' ? omega11(t) : omega22(t), kimMonroe(kind === '11' ? 'omega11' : 'omega22', t).value)),
+    compute: () =>
+      largest(logSpaced(0.3, 400, 60), (t) =>
+        rel(kind === '11' ? omega11(t) : omega22(t), kimMonroe(kind === '11' ? 'omega11' : 'omega22', t).value),
+      ),
   })),
   ...BSL_ROWS.flatMap(([t, o22, o11]): ReferenceCheck[] => [
-    { id: `collision.bsl.omega22.t${t}`, area: 'Collision integrals', quantity: 'Ω(2,2)*', unit: '1', state: `T* = ${t}`, source: BSL_E2, reference: o22, tolerance: relative(1e-3), testFile: COLLISION_TEST, compute: () => omega22(t) },
-    { id: `collision.bsl.omega11.t${t}`, area: 'Collision integrals', quantity: 'Ω(1,1)*', unit: '1', state: `T* = ${t}`, source: BSL_E2, reference: o11, tolerance: relative(1e-3), testFile: COLLISION_TEST, compute: () => omega11(t) },
+    {
+      id: `collision.bsl.omega22.t${t}`,
+      area: 'Collision integrals',
+      quantity: 'Ω(2,2)*',
+      unit: '1',
+      state: `T* = ${t}`,
+      source: BSL_E2,
+      reference: o22,
+      tolerance: relative(1e-3),
+      testFile: COLLISION_TEST,
+      compute: () => omega22(t),
+    },
+    {
+      id: `collision.bsl.omega11.t${t}`,
+      area: 'Collision integrals',
+      quantity: 'Ω(1,1)*',
+      unit: '1',
+      state: `T* = ${t}`,
+      source: BSL_E2,
+      reference: o11,
+      tolerance: relative(1e-3),
+      testFile: COLLISION_TEST,
+      compute: () => omega11(t),
+    },
   ]),
   // Near the ends of its range the correlation's slope is less accurate than its value, so the check stops inside.
   ...(['11', '22'] as const).map((kind): ReferenceCheck => ({
@@ -65,7 +92,9 @@ export const COLLISION_INTEGRAL_CHECKS: ReferenceCheck[] = [
     testFile: COLLISION_TEST,
     compute: () =>
       largest(logSpaced(0.5, 100, 25), (t) =>
-        kind === '11' ? rel(omega11Derivative(t), kimMonroe('omega11', t).derivative) : rel(omega22Derivative(t), kimMonroe('omega22', t).derivative),
+        kind === '11'
+          ? rel(omega11Derivative(t), kimMonroe('omega11', t).derivative)
+          : rel(omega22Derivative(t), kimMonroe('omega22', t).derivative),
       ),
   })),
   {
@@ -165,7 +194,8 @@ export const VISCOSITY_CHECKS: ReferenceCheck[] = [
     testFile: VISCOSITY_TEST,
     compute: () => {
       let worst = 0;
-      for (let t = 0.5; t <= 200; t *= 1.4) worst = Math.max(worst, rel(omega22(t) + (t / 4) * omega22Derivative(t), kimMonroe('omega23', t).value));
+      for (let t = 0.5; t <= 200; t *= 1.4)
+        worst = Math.max(worst, rel(omega22(t) + (t / 4) * omega22Derivative(t), kimMonroe('omega23', t).value));
       return worst;
     },
   },

@@ -129,7 +129,12 @@ const AR = { name: 'Ar', epsilonK: 119.8, sigmaAngstrom: 3.405, molarMass: 39.94
 const gasState = (g: typeof HE) => `${g.name}: ε/k = ${g.epsilonK} K, σ = ${g.sigmaAngstrom} Å, M = ${g.molarMass} g/mol`;
 
 export const QUANTUM_B2_CHECKS: ReferenceCheck[] = [
-  ...([[HE, 2.67], [NE, 0.59]] as const).map(([g, value]): ReferenceCheck => ({
+  ...(
+    [
+      [HE, 2.67],
+      [NE, 0.59],
+    ] as const
+  ).map(([g, value]): ReferenceCheck => ({
     id: `quantum.de-boer-squared.${g.name.toLowerCase()}`,
     area: 'Quantum B2',
     quantity: 'reduced de Boer parameter Λ* (from Λ*² of the Wigner–Kirkwood term)',
@@ -153,7 +158,14 @@ export const QUANTUM_B2_CHECKS: ReferenceCheck[] = [
     testFile: VIRIAL_TEST,
     compute: () => largest([0.5, 1, 2.5, 10, 100], (t) => rel(reducedQuantumB2Coefficient(t), quantumSeries(t))),
   },
-  ...([[HE, 2.67], [H2, 1.73], [NE, 0.59], [AR, 0.19]] as const).map(([g, value]): ReferenceCheck => ({
+  ...(
+    [
+      [HE, 2.67],
+      [H2, 1.73],
+      [NE, 0.59],
+      [AR, 0.19],
+    ] as const
+  ).map(([g, value]): ReferenceCheck => ({
     id: `quantum.de-boer.${g.name.toLowerCase()}`,
     area: 'Quantum B2',
     quantity: 'reduced de Boer parameter Λ*',
@@ -167,7 +179,13 @@ export const QUANTUM_B2_CHECKS: ReferenceCheck[] = [
   })),
   // Normal hydrogen, experimental B2 (Dymond & Smith 1980, from memory); the test also asks that Feynman–Hibbs beats
   // the classical value at each temperature.
-  ...([[77.3, -11.3], [100, -2.0], [300, 14.8]] as const).map(([t, measured]): ReferenceCheck => ({
+  ...(
+    [
+      [77.3, -11.3],
+      [100, -2.0],
+      [300, 14.8],
+    ] as const
+  ).map(([t, measured]): ReferenceCheck => ({
     id: `quantum.feynman-hibbs.h2.${t}`,
     area: 'Quantum B2',
     quantity: 'Feynman–Hibbs B2 of hydrogen (HCB constants)',
@@ -208,7 +226,11 @@ export const B3_CHECKS: ReferenceCheck[] = [
     reference: 0.625,
     tolerance: closeToDigits(5),
     testFile: B3_TEST,
-    compute: () => reducedB3OfMayer({ f: (x) => (x < 1 ? -1 : 0) }, { breakpoints: Array.from({ length: 41 }, (_, i) => i * 0.025), pointsPerPanel: 8 })[0],
+    compute: () =>
+      reducedB3OfMayer(
+        { f: (x) => (x < 1 ? -1 : 0) },
+        { breakpoints: Array.from({ length: 41 }, (_, i) => i * 0.025), pointsPerPanel: 8 },
+      )[0],
   },
   {
     id: 'b3.hcb-table.t1',
@@ -255,12 +277,48 @@ export const B3_CHECKS: ReferenceCheck[] = [
 // The 12-6 row agrees with Hirschfelder, Curtiss & Bird (1954), Table I-B (B2*(1) = −2.5381, B2*(5) = 0.2433; from memory).
 /* eslint-disable no-loss-of-precision -- the reference values are kept digit for digit as the quadrature printed them */
 export const MIE_B2_REFERENCE: Record<number, Array<[number, number, number]>> = {
-  8: [[0.7, -7.014306456209609, 0.983401785026], [1, -3.978412894908942, 0.620667837508], [2, -1.284874654890129, 0.284193479369], [5, -0.03753485807233207, 0.117799959344], [20, 0.3969305795015096, 0.0464582818541]],
-  10: [[0.7, -5.56433621990935, 0.536263524904], [1, -3.068801863304489, 0.334352846611], [2, -0.8694619413187904, 0.152396673805], [5, 0.1375790010837311, 0.0655683105352], [20, 0.4721591633840856, 0.0308859531999]],
-  12: [[0.7, -4.71003731595488, 0.340852980797], [1, -2.538081336319327, 0.21099183253], [2, -0.6276252881164595, 0.0961632175673], [5, 0.2433435027746588, 0.0428302832089], [20, 0.5253742041723858, 0.0230527801207]],
-  16: [[0.7, -3.733545489394112, 0.175517477126], [1, -1.935978690794231, 0.107819331073], [2, -0.35273496946765, 0.0493597523963], [5, 0.3690790698466669, 0.0232598068018], [20, 0.59930897149292, 0.0149347420958]],
-  20: [[0.7, -3.183093971473268, 0.108118034656], [1, -1.598479475266587, 0.0661720080197], [2, -0.1978226980111982, 0.030466491162], [5, 0.4435651771925475, 0.01496308941], [20, 0.6497872639571895, 0.01068851346]],
-  36: [[0.7, -2.23877535162104, 0.0326399993242], [1, -1.021927859710587, 0.0198895920007], [2, 0.06965426795333967, 0.0093109514166], [5, 0.5805467691309264, 0.00497861594979], [20, 0.7571867737316787, 0.00424460229804]],
+  8: [
+    [0.7, -7.014306456209609, 0.983401785026],
+    [1, -3.978412894908942, 0.620667837508],
+    [2, -1.284874654890129, 0.284193479369],
+    [5, -0.03753485807233207, 0.117799959344],
+    [20, 0.3969305795015096, 0.0464582818541],
+  ],
+  10: [
+    [0.7, -5.56433621990935, 0.536263524904],
+    [1, -3.068801863304489, 0.334352846611],
+    [2, -0.8694619413187904, 0.152396673805],
+    [5, 0.1375790010837311, 0.0655683105352],
+    [20, 0.4721591633840856, 0.0308859531999],
+  ],
+  12: [
+    [0.7, -4.71003731595488, 0.340852980797],
+    [1, -2.538081336319327, 0.21099183253],
+    [2, -0.6276252881164595, 0.0961632175673],
+    [5, 0.2433435027746588, 0.0428302832089],
+    [20, 0.5253742041723858, 0.0230527801207],
+  ],
+  16: [
+    [0.7, -3.733545489394112, 0.175517477126],
+    [1, -1.935978690794231, 0.107819331073],
+    [2, -0.35273496946765, 0.0493597523963],
+    [5, 0.3690790698466669, 0.0232598068018],
+    [20, 0.59930897149292, 0.0149347420958],
+  ],
+  20: [
+    [0.7, -3.183093971473268, 0.108118034656],
+    [1, -1.598479475266587, 0.0661720080197],
+    [2, -0.1978226980111982, 0.030466491162],
+    [5, 0.4435651771925475, 0.01496308941],
+    [20, 0.6497872639571895, 0.01068851346],
+  ],
+  36: [
+    [0.7, -2.23877535162104, 0.0326399993242],
+    [1, -1.021927859710587, 0.0198895920007],
+    [2, 0.06965426795333967, 0.0093109514166],
+    [5, 0.5805467691309264, 0.00497861594979],
+    [20, 0.7571867737316787, 0.00424460229804],
+  ],
 };
 /* eslint-enable no-loss-of-precision */
 const MPMATH = 'independent 30-digit quadrature (mpmath 1.3.0 tanh-sinh mp.quad; mp.diff for ∂/∂λr), script in the test';
@@ -275,9 +333,25 @@ export interface MieB2Check extends ReferenceCheck {
 export const MIE_B2_CHECKS: MieB2Check[] = Object.entries(MIE_B2_REFERENCE).flatMap(([nText, rows]) =>
   rows.flatMap(([tStar, b2Star, dB2dn]): MieB2Check[] => {
     const n = Number(nText);
-    const common = { area: 'Mie B2' as const, unit: 'b0', state: `λr = ${n}, T* = ${tStar}`, source: MPMATH, testFile: MIE_TEST, repulsiveExponent: n, reducedTemperature: tStar };
+    const common = {
+      area: 'Mie B2' as const,
+      unit: 'b0',
+      state: `λr = ${n}, T* = ${tStar}`,
+      source: MPMATH,
+      testFile: MIE_TEST,
+      repulsiveExponent: n,
+      reducedTemperature: tStar,
+    };
     return [
-      { ...common, id: `mie-b2.${n}.t${tStar}`, kind: 'b2', quantity: 'B2*', reference: b2Star, tolerance: absolute(1e-11 * (1 + Math.abs(b2Star))), compute: () => reducedB2(tStar, n) },
+      {
+        ...common,
+        id: `mie-b2.${n}.t${tStar}`,
+        kind: 'b2',
+        quantity: 'B2*',
+        reference: b2Star,
+        tolerance: absolute(1e-11 * (1 + Math.abs(b2Star))),
+        compute: () => reducedB2(tStar, n),
+      },
       {
         ...common,
         id: `mie-b2.${n}.t${tStar}.d-lambda`,
@@ -286,7 +360,8 @@ export const MIE_B2_CHECKS: MieB2Check[] = Object.entries(MIE_B2_REFERENCE).flat
         reference: dB2dn,
         tolerance: absolute(1e-9 * (1 + Math.abs(dB2dn))),
         compute: () =>
-          (b2WithGradient(tStar * 150, 150, 3.7, undefined, { repulsiveExponent: n, exponentDerivative: true }).dB2dRepulsiveExponent as number) / b2ZeroCm3PerMol(3.7),
+          (b2WithGradient(tStar * 150, 150, 3.7, undefined, { repulsiveExponent: n, exponentDerivative: true })
+            .dB2dRepulsiveExponent as number) / b2ZeroCm3PerMol(3.7),
       },
     ];
   }),

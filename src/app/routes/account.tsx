@@ -53,16 +53,28 @@ export function AccountRoute() {
               {...form.register('newPassword')}
             />
           </Field>
-          {change.isError && <p role="alert" className="text-sm text-changes">{change.error.message}</p>}
-          {change.isSuccess && <p role="status" className="text-sm text-approved">Password changed.</p>}
+          {change.isError && (
+            <p role="alert" className="text-sm text-changes">
+              {change.error.message}
+            </p>
+          )}
+          {change.isSuccess && (
+            <p role="status" className="text-sm text-approved">
+              Password changed.
+            </p>
+          )}
           <div>
-            <Button type="submit" variant="primary" busy={change.isPending}>Change password</Button>
+            <Button type="submit" variant="primary" busy={change.isPending}>
+              Change password
+            </Button>
           </div>
         </form>
       </Panel>
       <Panel title="API tokens" className="mt-6 max-w-md">
         <p className="text-sm text-ink-soft">Read-only tokens let your scripts read the catalog and download exports as you.</p>
-        <Link className="mt-2 inline-block text-sm font-semibold text-copper underline" to="/account/tokens">Manage API tokens</Link>
+        <Link className="mt-2 inline-block text-sm font-semibold text-copper underline" to="/account/tokens">
+          Manage API tokens
+        </Link>
       </Panel>
     </>
   );

@@ -10,7 +10,10 @@ export function AuditTrailRoute() {
   return (
     <>
       <PageHeader eyebrow="Admin" title="Audit trail" subtitle="Every change, who made it and when. Entries are never edited or removed." />
-      <Authorization policy="audit:read" fallback={<EmptyState title="Not allowed for your roles">The audit trail is for admins.</EmptyState>}>
+      <Authorization
+        policy="audit:read"
+        fallback={<EmptyState title="Not allowed for your roles">The audit trail is for admins.</EmptyState>}
+      >
         <AuditTrail />
       </Authorization>
     </>
@@ -32,7 +35,16 @@ function AuditTrail() {
       <Panel>
         <AuditFilters key={params.toString()} value={filter} onApply={(f) => setParams(Object.entries(f) as [string, string][])} />
       </Panel>
-      <Panel title="Events" actions={events.isSuccess && <span className="num text-sm text-ink-faint">{rows.length} shown{events.hasNextPage ? ', more below' : ''}</span>}>
+      <Panel
+        title="Events"
+        actions={
+          events.isSuccess && (
+            <span className="num text-sm text-ink-faint">
+              {rows.length} shown{events.hasNextPage ? ', more below' : ''}
+            </span>
+          )
+        }
+      >
         {events.isPending ? (
           <LoadingState />
         ) : events.isError ? (

@@ -32,7 +32,11 @@ export function CatalogCardRoute() {
   return (
     <>
       <PageHeader
-        eyebrow={<Link to="/catalog" className="hover:underline">Catalog</Link>}
+        eyebrow={
+          <Link to="/catalog" className="hover:underline">
+            Catalog
+          </Link>
+        }
         title={`${c.substanceName} v${c.version}`}
         subtitle={
           <span className="flex flex-wrap items-center gap-2">
@@ -48,17 +52,35 @@ export function CatalogCardRoute() {
         <ParameterSetCaution />
         {c.state === 'superseded' && c.currentApprovedId && (
           <p role="status" className="rounded-md bg-slate-soft px-4 py-2 text-sm text-slate">
-            Superseded: the current approved version is <Link className="underline" to={`/catalog/${c.currentApprovedId}`}>v{c.versions.find((v) => v.id === c.currentApprovedId)?.version}</Link>. This version stays here and in exports for reproducing earlier work.
+            Superseded: the current approved version is{' '}
+            <Link className="underline" to={`/catalog/${c.currentApprovedId}`}>
+              v{c.versions.find((v) => v.id === c.currentApprovedId)?.version}
+            </Link>
+            . This version stays here and in exports for reproducing earlier work.
           </p>
         )}
-        {c.state === 'retired' && <p role="status" className="rounded-md bg-changes-soft px-4 py-2 text-sm text-changes">Retired: do not use for new work. Retired sets are not exported.</p>}
+        {c.state === 'retired' && (
+          <p role="status" className="rounded-md bg-changes-soft px-4 py-2 text-sm text-changes">
+            Retired: do not use for new work. Retired sets are not exported.
+          </p>
+        )}
         <div className="grid gap-6 lg:grid-cols-[3fr_2fr]">
-          <Panel title="Parameters" actions={<UnitSwitch energy={energy} length={length} onChange={(u) => update.mutate({ energyUnit: u.energy, lengthUnit: u.length })} />}>
+          <Panel
+            title="Parameters"
+            actions={
+              <UnitSwitch energy={energy} length={length} onChange={(u) => update.mutate({ energyUnit: u.energy, lengthUnit: u.length })} />
+            }
+          >
             <ParameterValues card={c} energy={energy} length={length} />
           </Panel>
           <Panel title="Use it">
             <div className="grid gap-5">
-              <SchemeCheck fitted={c.scheme} cutoffSigma={c.cutoffSigma} used={prefs.data?.scheme} onChange={(scheme) => update.mutate({ scheme })} />
+              <SchemeCheck
+                fitted={c.scheme}
+                cutoffSigma={c.cutoffSigma}
+                used={prefs.data?.scheme}
+                onChange={(scheme) => update.mutate({ scheme })}
+              />
               {c.exportable ? (
                 <ExportLinks
                   hrefOf={(f) => exportHref(c.id, f, f === 'csv' ? csvUnits : undefined)}
@@ -79,14 +101,24 @@ export function CatalogCardRoute() {
         <Panel title="Approval">
           <p className="text-sm">
             {c.approvedAt ? (
-              <>Approved by <span className="font-semibold">{c.approvedByName ?? 'a reviewer'}</span> on <time dateTime={c.approvedAt}>{formatDateTime(c.approvedAt)}</time>.</>
+              <>
+                Approved by <span className="font-semibold">{c.approvedByName ?? 'a reviewer'}</span> on{' '}
+                <time dateTime={c.approvedAt}>{formatDateTime(c.approvedAt)}</time>.
+              </>
             ) : (
               'No approval recorded.'
             )}{' '}
-            <Link className="text-copper underline" to={`/parameter-sets/${c.id}`}>Full review record</Link>
+            <Link className="text-copper underline" to={`/parameter-sets/${c.id}`}>
+              Full review record
+            </Link>
           </p>
-          {c.approvalComment && <blockquote className="mt-2 border-l-2 border-rule pl-3 text-sm text-ink-soft">{c.approvalComment}</blockquote>}
-          <p className="mt-3 whitespace-pre-line text-sm"><span className="text-ink-faint">Rationale: </span>{c.rationale}</p>
+          {c.approvalComment && (
+            <blockquote className="mt-2 border-l-2 border-rule pl-3 text-sm text-ink-soft">{c.approvalComment}</blockquote>
+          )}
+          <p className="mt-3 whitespace-pre-line text-sm">
+            <span className="text-ink-faint">Rationale: </span>
+            {c.rationale}
+          </p>
         </Panel>
         <FitEvidenceOfCard card={c} energy={energy} length={length} />
         <Panel title="Measurement sets and their sources">
@@ -107,5 +139,14 @@ function FitEvidenceOfCard({ card, energy, length }: { card: ParameterCard; ener
   if (fit.isError) return <ErrorState error={fit.error} onRetry={() => fit.refetch()} />;
   const result = fit.data.result as LjFitResult | null;
   if (!hasEvidence(result)) return null;
-  return <FitEvidence fit={fit.data} result={result} curves={[{ label: `v${card.version}`, epsilonK: card.epsilonK, sigmaAngstrom: card.sigmaAngstrom }]} energy={energy} length={length} parametersTitle={`Fit #${fit.data.number}: parameters and statistics`} />;
+  return (
+    <FitEvidence
+      fit={fit.data}
+      result={result}
+      curves={[{ label: `v${card.version}`, epsilonK: card.epsilonK, sigmaAngstrom: card.sigmaAngstrom }]}
+      energy={energy}
+      length={length}
+      parametersTitle={`Fit #${fit.data.number}: parameters and statistics`}
+    />
+  );
 }

@@ -10,7 +10,8 @@ import { ParameterSetCaution } from '@/features/parameter-sets/components/cautio
 
 /** Filters live in the address, so a search can be bookmarked and shared. */
 function filtersFrom(params: URLSearchParams): CatalogFilters {
-  const num = (k: string) => (params.get(k) !== null && Number.isFinite(Number(params.get(k))) && params.get(k) !== '' ? Number(params.get(k)) : undefined);
+  const num = (k: string) =>
+    params.get(k) !== null && Number.isFinite(Number(params.get(k))) && params.get(k) !== '' ? Number(params.get(k)) : undefined;
   const scheme = params.get('scheme');
   return {
     q: params.get('q') ?? undefined,
@@ -36,20 +37,34 @@ export function CatalogRoute() {
         eyebrow="Catalog"
         title="Approved parameter sets"
         subtitle="One row per substance and scheme: the current approved version. Older versions are on each set's card."
-        action={<Link className="rounded-md bg-copper px-3.5 py-1.5 text-sm font-semibold text-white shadow-sm hover:bg-copper-dark" to="/mixtures">Build a mixture</Link>}
+        action={
+          <Link
+            className="rounded-md bg-copper px-3.5 py-1.5 text-sm font-semibold text-white shadow-sm hover:bg-copper-dark"
+            to="/mixtures"
+          >
+            Build a mixture
+          </Link>
+        }
       />
       <div className="grid gap-6">
         <ParameterSetCaution />
         <Panel>
           <CatalogFilterBar filters={filters} onChange={(f) => setParams(new URLSearchParams(catalogSearch(f)), { replace: true })} />
         </Panel>
-        <Panel actions={<UnitSwitch energy={energy} length={length} onChange={(u) => update.mutate({ energyUnit: u.energy, lengthUnit: u.length })} />} title={sets.data ? `${sets.data.length} ${sets.data.length === 1 ? 'set' : 'sets'}` : 'Sets'}>
+        <Panel
+          actions={
+            <UnitSwitch energy={energy} length={length} onChange={(u) => update.mutate({ energyUnit: u.energy, lengthUnit: u.length })} />
+          }
+          title={sets.data ? `${sets.data.length} ${sets.data.length === 1 ? 'set' : 'sets'}` : 'Sets'}
+        >
           {sets.isPending ? (
             <LoadingState />
           ) : sets.isError ? (
             <ErrorState error={sets.error} onRetry={() => sets.refetch()} />
           ) : sets.data.length === 0 ? (
-            <EmptyState title="No approved set matches">Widen the temperature range, clear a filter, or follow a substance to hear when a set is approved.</EmptyState>
+            <EmptyState title="No approved set matches">
+              Widen the temperature range, clear a filter, or follow a substance to hear when a set is approved.
+            </EmptyState>
           ) : (
             <CatalogTable sets={sets.data} energy={energy} length={length} />
           )}

@@ -30,18 +30,31 @@ export function FitDetailRoute() {
   return (
     <>
       <PageHeader
-        eyebrow={<Link to={`/substances/${f.substanceId}`} className="hover:underline">{f.substanceName}</Link>}
+        eyebrow={
+          <Link to={`/substances/${f.substanceId}`} className="hover:underline">
+            {f.substanceName}
+          </Link>
+        }
         title={`Fit #${f.number}`}
         subtitle={
           <span className="flex flex-wrap items-center gap-2">
-            <FitStatusBadge status={f.status} /> {r?.model === 'mie' && r.repulsiveExponent !== undefined ? `Mie ${Number(r.repulsiveExponent.toFixed(2))}-6` : 'LJ 12-6'} on {f.measurementSets.map((d) => `${d.name} v${d.version}${d.weight !== 1 ? ` (weight ${d.weight})` : ''}`).join(', ')}
+            <FitStatusBadge status={f.status} />{' '}
+            {r?.model === 'mie' && r.repulsiveExponent !== undefined ? `Mie ${Number(r.repulsiveExponent.toFixed(2))}-6` : 'LJ 12-6'} on{' '}
+            {f.measurementSets.map((d) => `${d.name} v${d.version}${d.weight !== 1 ? ` (weight ${d.weight})` : ''}`).join(', ')}
           </span>
         }
-        action={<Link to={`/substances/${f.substanceId}/fits`} className="text-sm font-semibold text-copper underline underline-offset-4">All fits of {f.substanceName}</Link>}
+        action={
+          <Link to={`/substances/${f.substanceId}/fits`} className="text-sm font-semibold text-copper underline underline-offset-4">
+            All fits of {f.substanceName}
+          </Link>
+        }
       />
       {(f.status === 'queued' || f.status === 'running') && (
         <Panel title="Running" className="mb-6">
-          <ProgressBar fraction={f.progress} label={f.status === 'queued' ? 'Waiting for a free worker…' : f.stage ?? 'Starting the fit…'} />
+          <ProgressBar
+            fraction={f.progress}
+            label={f.status === 'queued' ? 'Waiting for a free worker…' : (f.stage ?? 'Starting the fit…')}
+          />
           {canRun && (
             <Button className="mt-4" variant="danger" busy={cancel.isPending} onClick={() => cancel.mutate()}>
               Cancel fit
@@ -87,11 +100,28 @@ export function FitDetailRoute() {
       )}
       <Panel title="Record" className="mt-6">
         <dl className="grid grid-cols-[max-content_1fr] gap-x-4 gap-y-1 text-sm">
-          <dt className="text-ink-faint">Run by</dt><dd>{f.createdByName}, {formatDateTime(f.createdAt)}</dd>
-          <dt className="text-ink-faint">Finished</dt><dd>{f.finishedAt ? formatDateTime(f.finishedAt) : '—'}</dd>
-          <dt className="text-ink-faint">Code version</dt><dd className="break-all font-mono text-xs">{f.codeVersion}</dd>
-          <dt className="text-ink-faint">Molar mass</dt><dd className="num">{f.options.molarMassGPerMol ?? '—'} g/mol</dd>
-          <dt className="text-ink-faint">Data versions</dt><dd>{f.measurementSets.map((d) => <Link key={d.measurementSetId} className="mr-3 text-copper underline" to={`/measurement-sets/${d.measurementSetId}?version=${d.version}`}>{d.name} v{d.version}</Link>)}</dd>
+          <dt className="text-ink-faint">Run by</dt>
+          <dd>
+            {f.createdByName}, {formatDateTime(f.createdAt)}
+          </dd>
+          <dt className="text-ink-faint">Finished</dt>
+          <dd>{f.finishedAt ? formatDateTime(f.finishedAt) : '—'}</dd>
+          <dt className="text-ink-faint">Code version</dt>
+          <dd className="break-all font-mono text-xs">{f.codeVersion}</dd>
+          <dt className="text-ink-faint">Molar mass</dt>
+          <dd className="num">{f.options.molarMassGPerMol ?? '—'} g/mol</dd>
+          <dt className="text-ink-faint">Data versions</dt>
+          <dd>
+            {f.measurementSets.map((d) => (
+              <Link
+                key={d.measurementSetId}
+                className="mr-3 text-copper underline"
+                to={`/measurement-sets/${d.measurementSetId}?version=${d.version}`}
+              >
+                {d.name} v{d.version}
+              </Link>
+            ))}
+          </dd>
         </dl>
       </Panel>
     </>

@@ -28,9 +28,18 @@ function rowColumns(kind: keyof typeof PROPERTY_KINDS): TableColumns<Measurement
   ];
   for (const c of def.columns) {
     const q = QUANTITIES[c.quantity as QuantityKey];
-    cols.push({ accessorKey: q.field, header: quantityHeading(c.quantity), meta: { numeric: true }, cell: (ctx) => formatMeasured(Number(ctx.getValue())) });
+    cols.push({
+      accessorKey: q.field,
+      header: quantityHeading(c.quantity),
+      meta: { numeric: true },
+      cell: (ctx) => formatMeasured(Number(ctx.getValue())),
+    });
   }
-  cols.push({ accessorKey: 'uncertaintySource', header: 'u from', cell: (ctx) => (ctx.getValue() === 'measured' ? 'file' : <span className="text-review">default</span>) });
+  cols.push({
+    accessorKey: 'uncertaintySource',
+    header: 'u from',
+    cell: (ctx) => (ctx.getValue() === 'measured' ? 'file' : <span className="text-review">default</span>),
+  });
   return cols;
 }
 
@@ -55,11 +64,20 @@ export function MeasurementSetDetailRoute() {
   if (measurementSet.isError) return <ErrorState error={measurementSet.error} onRetry={() => measurementSet.refetch()} />;
   const d = measurementSet.data;
   const def = PROPERTY_KINDS[d.kind];
-  const plotRows = d.rows.map((r) => ({ temperatureK: r.temperatureK, pressureMPa: r.pressureMPa, value: Number(r[def.valueField]), uncertainty: Number(r[def.uncertaintyField]) }));
+  const plotRows = d.rows.map((r) => ({
+    temperatureK: r.temperatureK,
+    pressureMPa: r.pressureMPa,
+    value: Number(r[def.valueField]),
+    uncertainty: Number(r[def.uncertaintyField]),
+  }));
   return (
     <>
       <PageHeader
-        eyebrow={<Link to={`/substances/${d.substanceId}`} className="hover:underline">{d.substanceName}</Link>}
+        eyebrow={
+          <Link to={`/substances/${d.substanceId}`} className="hover:underline">
+            {d.substanceName}
+          </Link>
+        }
         title={d.name}
         subtitle={
           <span className="flex flex-wrap items-center gap-2">
@@ -68,8 +86,12 @@ export function MeasurementSetDetailRoute() {
           </span>
         }
         action={
-          canUpload && !d.withdrawn && (
-            <Link to={`/measurement-sets/${id}/new-version`} className="rounded-md bg-copper px-3.5 py-1.5 text-sm font-semibold text-white shadow-sm hover:bg-copper-dark">
+          canUpload &&
+          !d.withdrawn && (
+            <Link
+              to={`/measurement-sets/${id}/new-version`}
+              className="rounded-md bg-copper px-3.5 py-1.5 text-sm font-semibold text-white shadow-sm hover:bg-copper-dark"
+            >
               Upload corrected version
             </Link>
           )
@@ -78,12 +100,17 @@ export function MeasurementSetDetailRoute() {
       {uploadWarnings.length > 0 && (
         <div role="status" className="mb-4 rounded-md border border-review/40 bg-review-soft/70 px-4 py-2 text-sm">
           <p className="font-semibold text-review">Stored, with a warning</p>
-          <ul className="list-disc pl-5">{uploadWarnings.map((w) => <li key={w}>{w}</li>)}</ul>
+          <ul className="list-disc pl-5">
+            {uploadWarnings.map((w) => (
+              <li key={w}>{w}</li>
+            ))}
+          </ul>
         </div>
       )}
       {!d.source && !d.withdrawn && uploadWarnings.length === 0 && (
         <p role="status" className="mb-4 rounded-md bg-review-soft px-3 py-2 text-sm text-review">
-          No source citation: a parameter set that uses this measurement set cannot be submitted for review until a version with a citation is uploaded.
+          No source citation: a parameter set that uses this measurement set cannot be submitted for review until a version with a citation
+          is uploaded.
         </p>
       )}
       {d.version !== d.latestVersion && (
@@ -105,7 +132,15 @@ export function MeasurementSetDetailRoute() {
             <dt className="text-ink-faint">Source</dt>
             <dd>{d.source ?? '—'}</dd>
             <dt className="text-ink-faint">DOI</dt>
-            <dd>{d.doi ? <a className="text-copper underline" href={`https://doi.org/${d.doi}`} target="_blank" rel="noreferrer">{d.doi}</a> : '—'}</dd>
+            <dd>
+              {d.doi ? (
+                <a className="text-copper underline" href={`https://doi.org/${d.doi}`} target="_blank" rel="noreferrer">
+                  {d.doi}
+                </a>
+              ) : (
+                '—'
+              )}
+            </dd>
             <dt className="text-ink-faint">Method</dt>
             <dd>{d.method ?? '—'}</dd>
             <dt className="text-ink-faint">Notes</dt>
@@ -120,12 +155,18 @@ export function MeasurementSetDetailRoute() {
             <dd className="break-all font-mono text-xs">{d.sha256}</dd>
             <dt className="text-ink-faint">Read as</dt>
             <dd>
-              delimiter “{d.delimiter === '\t' ? 'tab' : d.delimiter}”, decimal “{d.decimal}”; {d.columns.filter((c) => c.quantity).map((c) => `${c.header} → ${c.canonicalUnit}`).join('; ')}
+              delimiter “{d.delimiter === '\t' ? 'tab' : d.delimiter}”, decimal “{d.decimal}”;{' '}
+              {d.columns
+                .filter((c) => c.quantity)
+                .map((c) => `${c.header} → ${c.canonicalUnit}`)
+                .join('; ')}
             </dd>
             <dt className="text-ink-faint">Default u</dt>
             <dd className="num">{(d.defaultRelativeUncertainty * 100).toFixed(2)} % relative, for rows without an uncertainty</dd>
             <dt className="text-ink-faint">Uploaded</dt>
-            <dd>{formatDateTime(d.uploadedAt)} by {d.uploadedByName}</dd>
+            <dd>
+              {formatDateTime(d.uploadedAt)} by {d.uploadedByName}
+            </dd>
           </dl>
         </Panel>
         <Panel title="Rows (canonical units)" className="lg:col-span-1">
@@ -135,8 +176,15 @@ export function MeasurementSetDetailRoute() {
           <Panel title="Version history">
             <ol className="space-y-2 text-sm">
               {d.versions.map((v) => (
-                <li key={v.version} className={`rounded-md border px-3 py-2 ${v.version === d.version ? 'border-copper bg-copper-soft/40' : 'border-rule'}`}>
-                  <button type="button" className="font-semibold hover:underline" onClick={() => setParams(v.version === d.latestVersion ? {} : { version: String(v.version) })}>
+                <li
+                  key={v.version}
+                  className={`rounded-md border px-3 py-2 ${v.version === d.version ? 'border-copper bg-copper-soft/40' : 'border-rule'}`}
+                >
+                  <button
+                    type="button"
+                    className="font-semibold hover:underline"
+                    onClick={() => setParams(v.version === d.latestVersion ? {} : { version: String(v.version) })}
+                  >
                     v{v.version}
                   </button>{' '}
                   · {v.rowCount} points · {formatDate(v.uploadedAt)} by {v.uploadedByName}
@@ -152,12 +200,18 @@ export function MeasurementSetDetailRoute() {
           )}
           {canUpload && !d.withdrawn && (
             <Panel title="Withdraw">
-              <p className="mb-3 text-sm text-ink-soft">A withdrawn set stays readable with all its versions but is offered to no new fit.</p>
+              <p className="mb-3 text-sm text-ink-soft">
+                A withdrawn set stays readable with all its versions but is offered to no new fit.
+              </p>
               <form noValidate className="grid gap-3" onSubmit={withdrawForm.handleSubmit((body) => withdraw.mutate(body.reason))}>
                 <Field label={FIELD_LABELS.reason} htmlFor="withdraw-reason" error={reasonError}>
                   <Input id="withdraw-reason" {...invalidProps('withdraw-reason', reasonError)} {...withdrawForm.register('reason')} />
                 </Field>
-                {withdraw.isError && <p role="alert" className="text-sm text-changes">{withdraw.error.message}</p>}
+                {withdraw.isError && (
+                  <p role="alert" className="text-sm text-changes">
+                    {withdraw.error.message}
+                  </p>
+                )}
                 <div>
                   <Button type="submit" variant="danger" busy={withdraw.isPending} disabled={reason.trim().length < 3}>
                     Withdraw set

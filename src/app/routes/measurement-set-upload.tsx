@@ -13,8 +13,22 @@ export function MeasurementSetUploadRoute() {
   if (substance.isError) return <ErrorState error={substance.error} onRetry={() => substance.refetch()} />;
   return (
     <>
-      <PageHeader eyebrow={<Link to={`/substances/${substanceId}`} className="hover:underline">{substance.data.name}</Link>} title="Upload measurements" subtitle="A CSV table of B2(T), ρ(T, P) or η(T). Nothing is stored until every row passes." />
-      <UploadWizard substanceId={substanceId} molarMassGPerMol={substance.data.molarMassGPerMol} onStored={(r) => navigate(`/measurement-sets/${r.id}`, { state: { uploadWarnings: (r as { warnings?: string[] }).warnings ?? [] } })} />
+      <PageHeader
+        eyebrow={
+          <Link to={`/substances/${substanceId}`} className="hover:underline">
+            {substance.data.name}
+          </Link>
+        }
+        title="Upload measurements"
+        subtitle="A CSV table of B2(T), ρ(T, P) or η(T). Nothing is stored until every row passes."
+      />
+      <UploadWizard
+        substanceId={substanceId}
+        molarMassGPerMol={substance.data.molarMassGPerMol}
+        onStored={(r) =>
+          navigate(`/measurement-sets/${r.id}`, { state: { uploadWarnings: (r as { warnings?: string[] }).warnings ?? [] } })
+        }
+      />
     </>
   );
 }
@@ -31,12 +45,22 @@ export function MeasurementSetNewVersionRoute() {
   const d = measurementSet.data;
   return (
     <>
-      <PageHeader eyebrow={<Link to={`/measurement-sets/${measurementSetId}`} className="hover:underline">{d.name}</Link>} title={`Corrected version v${d.latestVersion + 1}`} subtitle="Version history is kept: the earlier versions stay readable and downloadable, byte for byte." />
+      <PageHeader
+        eyebrow={
+          <Link to={`/measurement-sets/${measurementSetId}`} className="hover:underline">
+            {d.name}
+          </Link>
+        }
+        title={`Corrected version v${d.latestVersion + 1}`}
+        subtitle="Version history is kept: the earlier versions stay readable and downloadable, byte for byte."
+      />
       <UploadWizard
         substanceId={d.substanceId}
         molarMassGPerMol={substance.data!.molarMassGPerMol}
         existing={{ measurementSetId, kind: d.kind, name: d.name, source: d.source, doi: d.doi, method: d.method }}
-        onStored={(r) => navigate(`/measurement-sets/${r.id}`, { state: { uploadWarnings: (r as { warnings?: string[] }).warnings ?? [] } })}
+        onStored={(r) =>
+          navigate(`/measurement-sets/${r.id}`, { state: { uploadWarnings: (r as { warnings?: string[] }).warnings ?? [] } })
+        }
       />
     </>
   );

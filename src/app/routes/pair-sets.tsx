@@ -14,7 +14,12 @@ export function PairSetsRoute() {
         title="Pair sets"
         subtitle={
           <>
-            ε12 = (1 − k_ij)√(ε1ε2) fitted to cross second virial coefficients with both approved sets fixed. Approved pair sets replace the combining rule on the <Link className="text-copper underline" to="/mixtures">Mixtures</Link> page and in mixture exports.
+            ε12 = (1 − k_ij)√(ε1ε2) fitted to cross second virial coefficients with both approved sets fixed. Approved pair sets replace the
+            combining rule on the{' '}
+            <Link className="text-copper underline" to="/mixtures">
+              Mixtures
+            </Link>{' '}
+            page and in mixture exports.
           </>
         }
       />

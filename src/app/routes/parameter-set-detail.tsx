@@ -23,7 +23,10 @@ export function ParameterSetDetailRoute() {
   const query = useParameterSet(id);
   const navigate = useNavigate();
   const substanceId = query.data?.substanceId;
-  const fits = useQuery({ ...substanceFitsQueryOptions(substanceId ?? 0), enabled: substanceId !== undefined && !!query.data?.allowedMoves.includes('revise') });
+  const fits = useQuery({
+    ...substanceFitsQueryOptions(substanceId ?? 0),
+    enabled: substanceId !== undefined && !!query.data?.allowedMoves.includes('revise'),
+  });
   if (query.isPending) return <LoadingState />;
   if (query.isError) return <ErrorState error={query.error} onRetry={() => query.refetch()} />;
   const s = query.data;
@@ -31,11 +34,19 @@ export function ParameterSetDetailRoute() {
   return (
     <>
       <PageHeader
-        eyebrow={<Link to={`/substances/${s.substanceId}`} className="hover:underline">{s.substanceName} · parameter sets</Link>}
+        eyebrow={
+          <Link to={`/substances/${s.substanceId}`} className="hover:underline">
+            {s.substanceName} · parameter sets
+          </Link>
+        }
         title={`${s.substanceName} v${s.version}`}
         subtitle={
           <span className="flex flex-wrap items-center gap-2">
-            <ParameterSetStateBadge state={s.state} /> {schemeText(s)} · from <Link className="text-copper underline" to={`/fits/${s.fitId}`}>Fit #{s.fitNumber}</Link> · drafted by {s.createdByName}
+            <ParameterSetStateBadge state={s.state} /> {schemeText(s)} · from{' '}
+            <Link className="text-copper underline" to={`/fits/${s.fitId}`}>
+              Fit #{s.fitNumber}
+            </Link>{' '}
+            · drafted by {s.createdByName}
           </span>
         }
       />
@@ -50,7 +61,13 @@ export function ParameterSetDetailRoute() {
             <ParameterSetActions
               set={s}
               onRevised={(r) => navigate(`/parameter-sets/${r.id}`)}
-              fitChoices={(fits.data ?? []).filter((f) => f.status === 'succeeded').map((f) => ({ id: f.id, number: f.number, label: `Fit #${f.number} — ${formatDate(f.createdAt)}, ${f.epsilonK !== null ? `ε/k_B ${formatSignificant(f.epsilonK, 5)} K` : ''}${f.sigmaAngstrom !== null ? `, σ ${formatSignificant(f.sigmaAngstrom, 5)} Å` : ''}` }))}
+              fitChoices={(fits.data ?? [])
+                .filter((f) => f.status === 'succeeded')
+                .map((f) => ({
+                  id: f.id,
+                  number: f.number,
+                  label: `Fit #${f.number} — ${formatDate(f.createdAt)}, ${f.epsilonK !== null ? `ε/k_B ${formatSignificant(f.epsilonK, 5)} K` : ''}${f.sigmaAngstrom !== null ? `, σ ${formatSignificant(f.sigmaAngstrom, 5)} Å` : ''}`,
+                }))}
             />
           </Panel>
         </div>
@@ -81,18 +98,75 @@ export function ParameterSetDetailRoute() {
 
 function Notices({ set, lastComment }: { set: ParameterSetDetail; lastComment: string | null }) {
   const notes: Array<{ tone: 'changes' | 'slate' | 'neutral'; text: React.ReactNode }> = [];
-  if (set.state === 'retired') notes.push({ tone: 'changes', text: <>Retired: do not use for new work. {lastComment && <span className="text-ink-soft">Reason: {lastComment}</span>}</> });
-  if (set.state === 'superseded' && set.currentApproved) notes.push({ tone: 'slate', text: <>Superseded by <Link className="underline" to={`/parameter-sets/${set.currentApproved.id}`}>v{set.currentApproved.version}</Link>.</> });
-  if (set.revisedBy) notes.push({ tone: 'neutral', text: <>Revised as <Link className="underline" to={`/parameter-sets/${set.revisedBy}`}>a new draft</Link>.</> });
-  if (set.revisionOf) notes.push({ tone: 'neutral', text: <>Revision of <Link className="underline" to={`/parameter-sets/${set.revisionOf}`}>the set sent back</Link>.</> });
-  if (set.fit.dataSpan && (set.validity.temperatureMinK < set.fit.dataSpan.temperatureMinK || set.validity.temperatureMaxK > set.fit.dataSpan.temperatureMaxK)) {
-    notes.push({ tone: 'changes', text: <>The validity range reaches beyond the fitted data ({set.fit.dataSpan.temperatureMinK}–{set.fit.dataSpan.temperatureMaxK} K): outside it the values are an extrapolation.</> });
+  if (set.state === 'retired')
+    notes.push({
+      tone: 'changes',
+      text: <>Retired: do not use for new work. {lastComment && <span className="text-ink-soft">Reason: {lastComment}</span>}</>,
+    });
+  if (set.state === 'superseded' && set.currentApproved)
+    notes.push({
+      tone: 'slate',
+      text: (
+        <>
+          Superseded by{' '}
+          <Link className="underline" to={`/parameter-sets/${set.currentApproved.id}`}>
+            v{set.currentApproved.version}
+          </Link>
+          .
+        </>
+      ),
+    });
+  if (set.revisedBy)
+    notes.push({
+      tone: 'neutral',
+      text: (
+        <>
+          Revised as{' '}
+          <Link className="underline" to={`/parameter-sets/${set.revisedBy}`}>
+            a new draft
+          </Link>
+          .
+        </>
+      ),
+    });
+  if (set.revisionOf)
+    notes.push({
+      tone: 'neutral',
+      text: (
+        <>
+          Revision of{' '}
+          <Link className="underline" to={`/parameter-sets/${set.revisionOf}`}>
+            the set sent back
+          </Link>
+          .
+        </>
+      ),
+    });
+  if (
+    set.fit.dataSpan &&
+    (set.validity.temperatureMinK < set.fit.dataSpan.temperatureMinK || set.validity.temperatureMaxK > set.fit.dataSpan.temperatureMaxK)
+  ) {
+    notes.push({
+      tone: 'changes',
+      text: (
+        <>
+          The validity range reaches beyond the fitted data ({set.fit.dataSpan.temperatureMinK}–{set.fit.dataSpan.temperatureMaxK} K):
+          outside it the values are an extrapolation.
+        </>
+      ),
+    });
   }
   if (!notes.length) return null;
   return (
     <div className="grid gap-2">
       {notes.map((n, i) => (
-        <p key={i} role="status" className={`rounded-md px-4 py-2 text-sm ${n.tone === 'changes' ? 'bg-changes-soft text-changes' : n.tone === 'slate' ? 'bg-slate-soft text-slate' : 'bg-paper-deep'}`}>{n.text}</p>
+        <p
+          key={i}
+          role="status"
+          className={`rounded-md px-4 py-2 text-sm ${n.tone === 'changes' ? 'bg-changes-soft text-changes' : n.tone === 'slate' ? 'bg-slate-soft text-slate' : 'bg-paper-deep'}`}
+        >
+          {n.text}
+        </p>
       ))}
     </div>
   );
@@ -107,7 +181,12 @@ function FitEvidenceOfSet({ set }: { set: ParameterSetDetail }) {
   if (!hasEvidence(result)) return null;
   const { names, context } = fitContext(fit.data);
   const approved = set.currentApproved;
-  const curves = [{ label: `This set v${set.version}`, epsilonK: set.epsilonK, sigmaAngstrom: set.sigmaAngstrom }, ...(approved && approved.id !== set.id ? [{ label: `Approved v${approved.version}`, epsilonK: approved.epsilonK, sigmaAngstrom: approved.sigmaAngstrom }] : [])];
+  const curves = [
+    { label: `This set v${set.version}`, epsilonK: set.epsilonK, sigmaAngstrom: set.sigmaAngstrom },
+    ...(approved && approved.id !== set.id
+      ? [{ label: `Approved v${approved.version}`, epsilonK: approved.epsilonK, sigmaAngstrom: approved.sigmaAngstrom }]
+      : []),
+  ];
   return (
     <FitEvidence
       fit={fit.data}

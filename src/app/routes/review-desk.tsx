@@ -7,13 +7,18 @@ export function ReviewDeskRoute() {
   const queue = useReviewQueue();
   return (
     <>
-      <PageHeader title="Review desk" subtitle="Parameter sets waiting for a decision. Sets you drafted, or whose fit you ran, go to another reviewer." />
+      <PageHeader
+        title="Review desk"
+        subtitle="Parameter sets waiting for a decision. Sets you drafted, or whose fit you ran, go to another reviewer."
+      />
       {queue.isPending ? (
         <LoadingState />
       ) : queue.isError ? (
         <ErrorState error={queue.error} onRetry={() => queue.refetch()} />
       ) : queue.data.length === 0 ? (
-        <EmptyState title="Nothing waits for you">When a modeller submits a parameter set, it appears here and you receive an e-mail.</EmptyState>
+        <EmptyState title="Nothing waits for you">
+          When a modeller submits a parameter set, it appears here and you receive an e-mail.
+        </EmptyState>
       ) : (
         <Panel title={`${queue.data.length} in review`}>
           <ParameterSetTable sets={queue.data} caption="Parameter sets in review" withSubstance queue />

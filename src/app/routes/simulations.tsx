@@ -22,14 +22,37 @@ function StartedNotice({ id, reused }: { id: number; reused: boolean }) {
   const sims = useSimulations();
   const sim = sims.data?.find((s) => s.id === id);
   const status = sim?.status ?? 'queued';
-  const link = <Link className="underline" to={`/simulations/${id}`}>Simulation {id}</Link>;
+  const link = (
+    <Link className="underline" to={`/simulations/${id}`}>
+      Simulation {id}
+    </Link>
+  );
   const text =
-    status === 'succeeded' ? <>{link} {reused ? 'is an identical earlier run, reused' : 'has finished'}{sim?.summary ? <>: ρ* = {formatWithUncertainty(sim.summary.reducedDensity, sim.summary.stdErr)}</> : null}.</>
-    : status === 'running' ? <>{link} is running ({Math.round((sim?.progress ?? 0) * 100)} %).</>
-    : status === 'failed' ? <>{link} failed{sim?.error ? `: ${sim.error}` : '.'}</>
-    : status === 'cancelled' ? <>{link} was cancelled.</>
-    : <>{link} {reused ? 'is an identical run already waiting; it is reused' : 'is queued'} and waits for a free worker.</>;
-  return <p role="status" data-testid="started-simulation" className={`text-sm ${status === 'failed' ? 'text-changes' : 'text-approved'}`}>{text}</p>;
+    status === 'succeeded' ? (
+      <>
+        {link} {reused ? 'is an identical earlier run, reused' : 'has finished'}
+        {sim?.summary ? <>: ρ* = {formatWithUncertainty(sim.summary.reducedDensity, sim.summary.stdErr)}</> : null}.
+      </>
+    ) : status === 'running' ? (
+      <>
+        {link} is running ({Math.round((sim?.progress ?? 0) * 100)} %).
+      </>
+    ) : status === 'failed' ? (
+      <>
+        {link} failed{sim?.error ? `: ${sim.error}` : '.'}
+      </>
+    ) : status === 'cancelled' ? (
+      <>{link} was cancelled.</>
+    ) : (
+      <>
+        {link} {reused ? 'is an identical run already waiting; it is reused' : 'is queued'} and waits for a free worker.
+      </>
+    );
+  return (
+    <p role="status" data-testid="started-simulation" className={`text-sm ${status === 'failed' ? 'text-changes' : 'text-approved'}`}>
+      {text}
+    </p>
+  );
 }
 
 const startFormShape = z.object({
@@ -47,7 +70,14 @@ const START_FIELDS = ['reducedTemperature', 'reducedPressure', 'atoms', 'steps',
 const startFormSchema = startFormShape
   .transform((v): z.input<typeof createSimulationBody> => {
     const n = (s: string) => decimalOf(s) ?? Number.NaN;
-    return { reducedTemperature: n(v.reducedTemperature), reducedPressure: n(v.reducedPressure), atoms: n(v.atoms), steps: n(v.steps), scheme: v.scheme, cutoff: n(v.cutoff) };
+    return {
+      reducedTemperature: n(v.reducedTemperature),
+      reducedPressure: n(v.reducedPressure),
+      atoms: n(v.atoms),
+      steps: n(v.steps),
+      scheme: v.scheme,
+      cutoff: n(v.cutoff),
+    };
   })
   .pipe(createSimulationBody);
 
@@ -55,7 +85,14 @@ function StartForm() {
   const start = useStartSimulation();
   const form = useForm<StartFormValues, unknown, z.output<typeof createSimulationBody>>({
     resolver: zodResolver(startFormSchema),
-    defaultValues: { reducedTemperature: '1.2', reducedPressure: '0.5', atoms: '500', steps: '20000', scheme: 'truncated-tail', cutoff: '2.5' },
+    defaultValues: {
+      reducedTemperature: '1.2',
+      reducedPressure: '0.5',
+      atoms: '500',
+      steps: '20000',
+      scheme: 'truncated-tail',
+      cutoff: '2.5',
+    },
   });
   const errors = form.formState.errors;
   useServerFieldErrors(start.error, form.setError, sameNames(START_FIELDS));
@@ -66,14 +103,21 @@ function StartForm() {
   const stepsError = tooMuch
     ? `Atoms × steps may be at most ${SIMULATION_LIMITS.maxAtomSteps.toLocaleString('en-GB')} per run (a density fit uses 256 × 10 000).`
     : errors.steps?.message;
-  const box = (name: Exclude<(typeof START_FIELDS)[number], 'scheme'>, id: string, inputMode: 'decimal' | 'numeric', message = errors[name]?.message) => (
-    <Input id={id} inputMode={inputMode} {...invalidProps(id, message)} {...form.register(name)} />
-  );
+  const box = (
+    name: Exclude<(typeof START_FIELDS)[number], 'scheme'>,
+    id: string,
+    inputMode: 'decimal' | 'numeric',
+    message = errors[name]?.message,
+  ) => <Input id={id} inputMode={inputMode} {...invalidProps(id, message)} {...form.register(name)} />;
   return (
     <form noValidate className="grid gap-3" onSubmit={form.handleSubmit((body) => !tooMuch && start.mutate(body))}>
       <div className="grid grid-cols-2 gap-3">
-        <Field label={FIELD_LABELS.reducedTemperature} htmlFor="sim-t" error={errors.reducedTemperature?.message}>{box('reducedTemperature', 'sim-t', 'decimal')}</Field>
-        <Field label={FIELD_LABELS.reducedPressure} htmlFor="sim-p" error={errors.reducedPressure?.message}>{box('reducedPressure', 'sim-p', 'decimal')}</Field>
+        <Field label={FIELD_LABELS.reducedTemperature} htmlFor="sim-t" error={errors.reducedTemperature?.message}>
+          {box('reducedTemperature', 'sim-t', 'decimal')}
+        </Field>
+        <Field label={FIELD_LABELS.reducedPressure} htmlFor="sim-p" error={errors.reducedPressure?.message}>
+          {box('reducedPressure', 'sim-p', 'decimal')}
+        </Field>
         <Field
           label={FIELD_LABELS.atoms}
           htmlFor="sim-n"
@@ -90,7 +134,9 @@ function StartForm() {
         >
           {box('steps', 'sim-steps', 'numeric', stepsError)}
         </Field>
-        <Field label={FIELD_LABELS.cutoff} htmlFor="sim-rc" error={errors.cutoff?.message}>{box('cutoff', 'sim-rc', 'decimal')}</Field>
+        <Field label={FIELD_LABELS.cutoff} htmlFor="sim-rc" error={errors.cutoff?.message}>
+          {box('cutoff', 'sim-rc', 'decimal')}
+        </Field>
         <Field label="Scheme" htmlFor="sim-scheme" error={errors.scheme?.message}>
           <Select id="sim-scheme" {...invalidProps('sim-scheme', errors.scheme?.message)} {...form.register('scheme')}>
             <option value="truncated-tail">truncated + tail corrections</option>
@@ -98,10 +144,22 @@ function StartForm() {
           </Select>
         </Field>
       </div>
-      {start.isError && <p role="alert" className="text-sm text-changes">{start.error.message}</p>}
+      {start.isError && (
+        <p role="alert" className="text-sm text-changes">
+          {start.error.message}
+        </p>
+      )}
       {start.isSuccess && <StartedNotice id={start.data.id} reused={start.data.reused} />}
-      <p className="text-xs text-ink-faint">Limits per run: {SIMULATION_LIMITS.minAtoms}–{SIMULATION_LIMITS.maxAtoms.toLocaleString('en-GB')} atoms, {SIMULATION_LIMITS.minSteps.toLocaleString('en-GB')}–{SIMULATION_LIMITS.maxSteps.toLocaleString('en-GB')} steps, atoms × steps ≤ {SIMULATION_LIMITS.maxAtomSteps.toLocaleString('en-GB')}.</p>
-      <div><Button type="submit" variant="primary" busy={start.isPending} disabled={tooMuch}>Run NPT simulation</Button></div>
+      <p className="text-xs text-ink-faint">
+        Limits per run: {SIMULATION_LIMITS.minAtoms}–{SIMULATION_LIMITS.maxAtoms.toLocaleString('en-GB')} atoms,{' '}
+        {SIMULATION_LIMITS.minSteps.toLocaleString('en-GB')}–{SIMULATION_LIMITS.maxSteps.toLocaleString('en-GB')} steps, atoms × steps ≤{' '}
+        {SIMULATION_LIMITS.maxAtomSteps.toLocaleString('en-GB')}.
+      </p>
+      <div>
+        <Button type="submit" variant="primary" busy={start.isPending} disabled={tooMuch}>
+          Run NPT simulation
+        </Button>
+      </div>
     </form>
   );
 }
@@ -118,21 +176,32 @@ function QueuePanel() {
       ) : (
         <div className="grid gap-3 text-sm">
           <p>
-            {queue.data.driver === 'redis' ? 'Redis (BullMQ): jobs run on worker processes.' : 'Embedded: jobs run in the web process.'} {queue.data.workers} live worker process{queue.data.workers === 1 ? '' : 'es'}.
+            {queue.data.driver === 'redis' ? 'Redis (BullMQ): jobs run on worker processes.' : 'Embedded: jobs run in the web process.'}{' '}
+            {queue.data.workers} live worker process{queue.data.workers === 1 ? '' : 'es'}.
           </p>
           <table className="w-full text-left">
             <thead>
               <tr className="text-xs text-ink-faint">
-                <th scope="col" className="py-1 font-semibold">Lane</th>
-                <th scope="col" className="py-1 font-semibold">Waiting</th>
-                <th scope="col" className="py-1 font-semibold">Running</th>
-                <th scope="col" className="py-1 font-semibold">Retry pending</th>
+                <th scope="col" className="py-1 font-semibold">
+                  Lane
+                </th>
+                <th scope="col" className="py-1 font-semibold">
+                  Waiting
+                </th>
+                <th scope="col" className="py-1 font-semibold">
+                  Running
+                </th>
+                <th scope="col" className="py-1 font-semibold">
+                  Retry pending
+                </th>
               </tr>
             </thead>
             <tbody className="num">
               {(['simulation', 'fast'] as const).map((lane) => (
                 <tr key={lane}>
-                  <th scope="row" className="py-1 font-normal">{lane === 'fast' ? 'Fast fits' : 'Simulations'}</th>
+                  <th scope="row" className="py-1 font-normal">
+                    {lane === 'fast' ? 'Fast fits' : 'Simulations'}
+                  </th>
                   <td>{queue.data.lanes[lane].waiting}</td>
                   <td>{queue.data.lanes[lane].active}</td>
                   <td>{queue.data.lanes[lane].delayed}</td>
@@ -146,7 +215,8 @@ function QueuePanel() {
             <ul className="grid gap-1" aria-label="Worker processes">
               {queue.data.workerList.map((w) => (
                 <li key={w.name}>
-                  <span className="font-semibold">{w.name}</span> · {w.threads.simulation} simulation and {w.threads.fast} fast thread{w.threads.fast === 1 ? '' : 's'} · {w.active} running
+                  <span className="font-semibold">{w.name}</span> · {w.threads.simulation} simulation and {w.threads.fast} fast thread
+                  {w.threads.fast === 1 ? '' : 's'} · {w.active} running
                 </li>
               ))}
             </ul>
@@ -163,7 +233,11 @@ export function SimulationsRoute() {
   const isAdmin = useCan('people:manage');
   return (
     <>
-      <PageHeader eyebrow="Molecular dynamics" title="Simulations" subtitle="NPT runs of the LJ fluid at reduced state points. One run serves every substance whose (ε, σ) maps to its state; identical requests reuse the stored result." />
+      <PageHeader
+        eyebrow="Molecular dynamics"
+        title="Simulations"
+        subtitle="NPT runs of the LJ fluid at reduced state points. One run serves every substance whose (ε, σ) maps to its state; identical requests reuse the stored result."
+      />
       <div className={`grid gap-6 ${canRun || isAdmin ? 'lg:grid-cols-[2fr_1fr]' : ''}`}>
         <Panel title="Runs">
           {sims.isPending ? (
@@ -177,7 +251,10 @@ export function SimulationsRoute() {
               {sims.data.map((s) => (
                 <li key={s.id} className="py-3">
                   <div className="flex flex-wrap items-center justify-between gap-2">
-                    <Link to={`/simulations/${s.id}`} className="font-semibold underline decoration-rule underline-offset-4 hover:decoration-copper">
+                    <Link
+                      to={`/simulations/${s.id}`}
+                      className="font-semibold underline decoration-rule underline-offset-4 hover:decoration-copper"
+                    >
                       Simulation {s.id}: T* = {s.state.reducedTemperature.toFixed(4)}, P* = {s.state.reducedPressure.toFixed(4)}
                     </Link>
                     <span className="flex items-center gap-2">
@@ -186,12 +263,34 @@ export function SimulationsRoute() {
                     </span>
                   </div>
                   <div className="mt-1 text-xs text-ink-faint">
-                    {s.state.atoms} atoms · {s.state.steps} steps · r_c = {s.state.cutoff} σ · {CUTOFF_SCHEME_LABELS[s.state.scheme]?.toLowerCase() ?? s.state.scheme} · seed {s.state.seed}
-                    {s.origin && <> · from row {s.origin.fileRow} of set {s.origin.measurementSetId} (ε/k_B = {s.origin.epsilonK} K, σ = {s.origin.sigmaAngstrom} Å)</>}
-                    {s.ranOn && <> · {s.status === 'running' ? 'running on' : 'ran on'} {s.ranOn}{s.attempts > 1 ? ` (start ${s.attempts})` : ''}</>}
+                    {s.state.atoms} atoms · {s.state.steps} steps · r_c = {s.state.cutoff} σ ·{' '}
+                    {CUTOFF_SCHEME_LABELS[s.state.scheme]?.toLowerCase() ?? s.state.scheme} · seed {s.state.seed}
+                    {s.origin && (
+                      <>
+                        {' '}
+                        · from row {s.origin.fileRow} of set {s.origin.measurementSetId} (ε/k_B = {s.origin.epsilonK} K, σ ={' '}
+                        {s.origin.sigmaAngstrom} Å)
+                      </>
+                    )}
+                    {s.ranOn && (
+                      <>
+                        {' '}
+                        · {s.status === 'running' ? 'running on' : 'ran on'} {s.ranOn}
+                        {s.attempts > 1 ? ` (start ${s.attempts})` : ''}
+                      </>
+                    )}
                   </div>
-                  {(s.status === 'running' || s.status === 'queued') && <div className="mt-2"><ProgressBar fraction={s.progress} label={s.status === 'queued' ? 'Waiting for a free worker' : s.stage ?? 'Running'} /></div>}
-                  {s.summary && <div className="num mt-1 text-sm">ρ* = {formatWithUncertainty(s.summary.reducedDensity, s.summary.stdErr)}</div>}
+                  {(s.status === 'running' || s.status === 'queued') && (
+                    <div className="mt-2">
+                      <ProgressBar
+                        fraction={s.progress}
+                        label={s.status === 'queued' ? 'Waiting for a free worker' : (s.stage ?? 'Running')}
+                      />
+                    </div>
+                  )}
+                  {s.summary && (
+                    <div className="num mt-1 text-sm">ρ* = {formatWithUncertainty(s.summary.reducedDensity, s.summary.stdErr)}</div>
+                  )}
                   {s.status === 'failed' && <div className="mt-1 text-sm text-changes">{s.error}</div>}
                 </li>
               ))}
@@ -200,7 +299,11 @@ export function SimulationsRoute() {
         </Panel>
         {(canRun || isAdmin) && (
           <div className="grid content-start gap-6">
-            {canRun && <Panel title="New run"><StartForm /></Panel>}
+            {canRun && (
+              <Panel title="New run">
+                <StartForm />
+              </Panel>
+            )}
             {isAdmin && <QueuePanel />}
           </div>
         )}

@@ -11,7 +11,10 @@ export function TokensRoute() {
         subtitle={
           <>
             Read-only: a token reaches the catalog, exports, mixtures and the schemas, and nothing else. The API is described at{' '}
-            <a className="text-copper underline" href="/api/openapi.json">/api/openapi.json</a>.
+            <a className="text-copper underline" href="/api/openapi.json">
+              /api/openapi.json
+            </a>
+            .
           </>
         }
       />

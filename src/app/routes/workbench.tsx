@@ -19,13 +19,22 @@ function ModellerWork() {
       <ul className="divide-y divide-rule/70">
         {substances.data.slice(0, 6).map((s) => (
           <li key={s.id} className="flex items-center justify-between gap-3 py-2">
-            <Link to={`/substances/${s.id}`} className="font-semibold underline decoration-rule underline-offset-4 hover:decoration-copper">{s.name}</Link>
-            <span className="flex flex-wrap justify-end gap-1">{(s.kinds ?? []).map((k) => <KindBadge key={k} kind={k} />)}</span>
+            <Link to={`/substances/${s.id}`} className="font-semibold underline decoration-rule underline-offset-4 hover:decoration-copper">
+              {s.name}
+            </Link>
+            <span className="flex flex-wrap justify-end gap-1">
+              {(s.kinds ?? []).map((k) => (
+                <KindBadge key={k} kind={k} />
+              ))}
+            </span>
           </li>
         ))}
       </ul>
       <p className="text-sm text-ink-soft">
-        {running ? `${running} simulation(s) queued or running.` : 'No simulation is running.'} <Link to="/simulations" className="text-copper underline">Simulations</Link>
+        {running ? `${running} simulation(s) queued or running.` : 'No simulation is running.'}{' '}
+        <Link to="/simulations" className="text-copper underline">
+          Simulations
+        </Link>
       </p>
     </div>
   );
@@ -37,10 +46,24 @@ export function WorkbenchRoute() {
   const destinations = NAV_ITEMS.filter((i) => i.to !== '/' && (!i.policy || hasPolicy(me.roles, i.policy)));
   return (
     <>
-      <PageHeader eyebrow="Workbench" title={`Good to see you, ${me.name.split(' ')[0]}`} subtitle="Lennard-Jones 12-6 parameters, fitted to measurements and checked by a second person." />
+      <PageHeader
+        eyebrow="Workbench"
+        title={`Good to see you, ${me.name.split(' ')[0]}`}
+        subtitle="Lennard-Jones 12-6 parameters, fitted to measurements and checked by a second person."
+      />
       <div className="grid gap-5 md:grid-cols-2">
         {(hasPolicy(me.roles, 'parameterSet:draft') || hasPolicy(me.roles, 'parameterSet:review')) && (
-          <Panel title="Needs my action" className="md:col-span-2" actions={hasPolicy(me.roles, 'parameterSet:review') ? <Link to="/review" className="text-sm font-semibold text-copper underline underline-offset-4">Review desk</Link> : undefined}>
+          <Panel
+            title="Needs my action"
+            className="md:col-span-2"
+            actions={
+              hasPolicy(me.roles, 'parameterSet:review') ? (
+                <Link to="/review" className="text-sm font-semibold text-copper underline underline-offset-4">
+                  Review desk
+                </Link>
+              ) : undefined
+            }
+          >
             <NeedsActionList />
           </Panel>
         )}
@@ -63,7 +86,10 @@ export function WorkbenchRoute() {
           <ul className="grid gap-2 sm:grid-cols-2">
             {destinations.map((d) => (
               <li key={d.to}>
-                <Link to={d.to} className="block rounded-md border border-rule px-4 py-3 font-semibold hover:border-copper hover:text-copper">
+                <Link
+                  to={d.to}
+                  className="block rounded-md border border-rule px-4 py-3 font-semibold hover:border-copper hover:text-copper"
+                >
                   {d.label} →
                 </Link>
               </li>

@@ -71,7 +71,12 @@ const endLabelsPlugin: Plugin = {
       const label = (dataset as ChartDataset & WithEndLabel).endLabel;
       const meta = chart.getDatasetMeta(i);
       if (!label || meta.hidden) return;
-      const last = [...meta.data].reverse().find((el) => Number.isFinite(el.x) && Number.isFinite(el.y) && el.x <= chartArea.right && el.y >= chartArea.top && el.y <= chartArea.bottom);
+      const last = [...meta.data]
+        .reverse()
+        .find(
+          (el) =>
+            Number.isFinite(el.x) && Number.isFinite(el.y) && el.x <= chartArea.right && el.y >= chartArea.top && el.y <= chartArea.bottom,
+        );
       if (!last) return;
       ctx.save();
       ctx.font = '600 10px "Source Sans 3", system-ui, sans-serif';
@@ -84,7 +89,18 @@ const endLabelsPlugin: Plugin = {
   },
 };
 
-Chart.register(ScatterController, LineController, LinearScale, PointElement, LineElement, Tooltip, Legend, Filler, errorBarsPlugin, endLabelsPlugin);
+Chart.register(
+  ScatterController,
+  LineController,
+  LinearScale,
+  PointElement,
+  LineElement,
+  Tooltip,
+  Legend,
+  Filler,
+  errorBarsPlugin,
+  endLabelsPlugin,
+);
 Chart.defaults.font.family = '"Source Sans 3", system-ui, sans-serif';
 Chart.defaults.color = CHART_COLORS.ink;
 Chart.defaults.borderColor = 'rgba(219, 208, 187, 0.7)';

@@ -63,7 +63,10 @@ function toDatasets(series: ChartSeries[]) {
     const index = (counts[s.kind] = (counts[s.kind] ?? -1) + 1);
     const open = s.points.filter((p) => p.hollow);
     if (!open.length || s.kind === 'model') return [toDataset(s, index)];
-    return [toDataset({ ...s, points: s.points.filter((p) => !p.hollow) }, index), toDataset({ ...s, label: `${s.label}, left out`, points: open }, index)];
+    return [
+      toDataset({ ...s, points: s.points.filter((p) => !p.hollow) }, index),
+      toDataset({ ...s, label: `${s.label}, left out`, points: open }, index),
+    ];
   });
 }
 
@@ -120,12 +123,26 @@ export function PropertyChart({ series, xTitle, yTitle, residuals, height = 320,
     maintainAspectRatio: false,
     animation: false,
     plugins: {
-      legend: { position: 'top', align: 'end', labels: { usePointStyle: true, boxWidth: 7, boxHeight: 7, font: { size: 12 }, filter: (item, data) => (data.datasets[item.datasetIndex!] as { inLegend?: boolean }).inLegend !== false } },
+      legend: {
+        position: 'top',
+        align: 'end',
+        labels: {
+          usePointStyle: true,
+          boxWidth: 7,
+          boxHeight: 7,
+          font: { size: 12 },
+          filter: (item, data) => (data.datasets[item.datasetIndex!] as { inLegend?: boolean }).inLegend !== false,
+        },
+      },
       tooltip: { mode: 'nearest', intersect: true },
     },
     scales: {
       x: { ...xScale, title: { display: !residuals, text: xTitle, font: axisTitle } },
-      y: { title: { display: true, text: yTitle, font: axisTitle }, grid: { color: 'rgba(219,208,187,0.5)' }, afterFit: (axis) => void (axis.width = Math.max(axis.width, 64)) },
+      y: {
+        title: { display: true, text: yTitle, font: axisTitle },
+        grid: { color: 'rgba(219,208,187,0.5)' },
+        afterFit: (axis) => void (axis.width = Math.max(axis.width, 64)),
+      },
     },
   };
   const residualOptions: ChartOptions<'scatter'> = {
@@ -136,7 +153,12 @@ export function PropertyChart({ series, xTitle, yTitle, residuals, height = 320,
     scales: {
       x: { ...xScale, title: { display: true, text: xTitle, font: axisTitle } },
       // The same y-axis width as the main panel, so the two x-axes line up.
-      y: { title: { display: true, text: residuals?.title ?? '', font: residualTitle }, ticks: { maxTicksLimit: 5 }, grid: { color: (c) => (c.tick.value === 0 ? CHART_COLORS.inkFaint : 'rgba(219,208,187,0.5)') }, afterFit: (axis) => void (axis.width = Math.max(axis.width, 64)) },
+      y: {
+        title: { display: true, text: residuals?.title ?? '', font: residualTitle },
+        ticks: { maxTicksLimit: 5 },
+        grid: { color: (c) => (c.tick.value === 0 ? CHART_COLORS.inkFaint : 'rgba(219,208,187,0.5)') },
+        afterFit: (axis) => void (axis.width = Math.max(axis.width, 64)),
+      },
     },
   };
   return (
@@ -151,7 +173,9 @@ export function PropertyChart({ series, xTitle, yTitle, residuals, height = 320,
           role="img"
           aria-label={`Residuals: ${residuals.title}`}
           // Σy² of the filled (counted) residual points: lets a reader (and a test) check the panel against the χ² shown.
-          data-residual-sum-squares={residuals.series.flatMap((s) => s.points.filter((p) => !p.hollow && Number.isFinite(p.y)).map((p) => p.y * p.y)).reduce((a, b) => a + b, 0)}
+          data-residual-sum-squares={residuals.series
+            .flatMap((s) => s.points.filter((p) => !p.hollow && Number.isFinite(p.y)).map((p) => p.y * p.y))
+            .reduce((a, b) => a + b, 0)}
         >
           <Scatter data={{ datasets: toDatasets(residuals.series) }} options={residualOptions} />
         </div>

@@ -13,7 +13,17 @@ const linkClass = ({ isActive }: { isActive: boolean }) =>
  * The signed-in frame: product mark, the role's navigation, who is signed in, and the page. Below 1280 px the
  * navigation folds into a "Menu" button (Escape or a choice closes it); the header never grows wider than the screen.
  */
-export function AppShell({ me, onSignOut, signingOut, notices }: { me: Me; onSignOut: () => void; signingOut: boolean; notices?: ReactNode }) {
+export function AppShell({
+  me,
+  onSignOut,
+  signingOut,
+  notices,
+}: {
+  me: Me;
+  onSignOut: () => void;
+  signingOut: boolean;
+  notices?: ReactNode;
+}) {
   const items = NAV_ITEMS.filter((item) => !item.policy || hasPolicy(me.roles, item.policy));
   // The menu is open only on the page where it was opened, so following a link closes it without an effect.
   const [openOn, setOpenOn] = useState<string | null>(null);
@@ -46,7 +56,10 @@ export function AppShell({ me, onSignOut, signingOut, notices }: { me: Me; onSig
   );
   return (
     <div className="flex min-h-screen flex-col">
-      <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-3 focus:top-3 focus:z-50 focus:rounded focus:bg-paper-raised focus:px-3 focus:py-1">
+      <a
+        href="#main"
+        className="sr-only focus:not-sr-only focus:absolute focus:left-3 focus:top-3 focus:z-50 focus:rounded focus:bg-paper-raised focus:px-3 focus:py-1"
+      >
         Skip to content
       </a>
       <header className="border-b border-rule bg-paper-raised/80 backdrop-blur">
@@ -77,7 +90,11 @@ export function AppShell({ me, onSignOut, signingOut, notices }: { me: Me; onSig
               className="inline-flex items-center gap-2 rounded-md border border-rule bg-paper-raised px-3 py-1.5 text-sm font-semibold text-ink hover:bg-paper-deep xl:hidden"
             >
               <svg width="16" height="16" viewBox="0 0 16 16" aria-hidden="true">
-                {open ? <path d="M3 3l10 10M13 3L3 13" stroke="currentColor" strokeWidth="1.8" strokeLinecap="round" /> : <path d="M2 4h12M2 8h12M2 12h12" stroke="currentColor" strokeWidth="1.8" strokeLinecap="round" />}
+                {open ? (
+                  <path d="M3 3l10 10M13 3L3 13" stroke="currentColor" strokeWidth="1.8" strokeLinecap="round" />
+                ) : (
+                  <path d="M2 4h12M2 8h12M2 12h12" stroke="currentColor" strokeWidth="1.8" strokeLinecap="round" />
+                )}
               </svg>
               Menu
             </button>
@@ -103,7 +120,8 @@ export function AppShell({ me, onSignOut, signingOut, notices }: { me: Me; onSig
         <Outlet />
       </main>
       <footer className="border-t border-rule px-4 py-4 text-center text-xs text-ink-faint sm:px-6">
-        Epsigma fits Lennard-Jones 12-6 model parameters. Fitted model parameters are not validated property data for pressure, safety or process design; defer to local codes and licensed engineering practice.
+        Epsigma fits Lennard-Jones 12-6 model parameters. Fitted model parameters are not validated property data for pressure, safety or
+        process design; defer to local codes and licensed engineering practice.
       </footer>
     </div>
   );

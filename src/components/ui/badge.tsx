@@ -13,7 +13,11 @@ const TONES = {
 export type BadgeTone = keyof typeof TONES;
 
 export function Badge({ tone = 'neutral', children }: { tone?: BadgeTone; children: ReactNode }) {
-  return <span className={`inline-flex items-center whitespace-nowrap rounded-full px-2 py-0.5 text-xs font-semibold ${TONES[tone]}`}>{children}</span>;
+  return (
+    <span className={`inline-flex items-center whitespace-nowrap rounded-full px-2 py-0.5 text-xs font-semibold ${TONES[tone]}`}>
+      {children}
+    </span>
+  );
 }
 
 /** Property kinds get a short tag of their own. */

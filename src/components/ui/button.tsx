@@ -9,7 +9,14 @@ const VARIANTS: Record<Variant, string> = {
   danger: 'bg-paper-raised text-changes border border-changes/40 hover:bg-changes-soft',
 };
 
-export function Button({ variant = 'secondary', className = '', busy, children, disabled, ...rest }: ButtonHTMLAttributes<HTMLButtonElement> & { variant?: Variant; busy?: boolean }) {
+export function Button({
+  variant = 'secondary',
+  className = '',
+  busy,
+  children,
+  disabled,
+  ...rest
+}: ButtonHTMLAttributes<HTMLButtonElement> & { variant?: Variant; busy?: boolean }) {
   return (
     <button
       type="button"

@@ -1,12 +1,5 @@
 import { useState } from 'react';
-import {
-  flexRender,
-  getCoreRowModel,
-  getSortedRowModel,
-  useReactTable,
-  type ColumnDef,
-  type SortingState,
-} from '@tanstack/react-table';
+import { flexRender, getCoreRowModel, getSortedRowModel, useReactTable, type ColumnDef, type SortingState } from '@tanstack/react-table';
 
 export type { ColumnDef } from '@tanstack/react-table';
 
@@ -18,7 +11,21 @@ export type TableColumns<T> = ColumnDef<T, any>[];
  * A dense, calm, sortable table. Headers are buttons (keyboard sortable); columns flagged with
  * `meta: { numeric: true }` are right-aligned with tabular figures.
  */
-export function DataTable<T>({ data, columns, initialSorting = [], caption, rowKey, minWidthClass = '' }: { data: T[]; columns: TableColumns<T>; initialSorting?: SortingState; caption?: string; rowKey?: (row: T) => string | number; /** e.g. "min-w-[56rem]": on a narrow screen the table keeps readable columns and scrolls inside its card. */ minWidthClass?: string }) {
+export function DataTable<T>({
+  data,
+  columns,
+  initialSorting = [],
+  caption,
+  rowKey,
+  minWidthClass = '',
+}: {
+  data: T[];
+  columns: TableColumns<T>;
+  initialSorting?: SortingState;
+  caption?: string;
+  rowKey?: (row: T) => string | number;
+  /** e.g. "min-w-[56rem]": on a narrow screen the table keeps readable columns and scrolls inside its card. */ minWidthClass?: string;
+}) {
   const [sorting, setSorting] = useState<SortingState>(initialSorting);
   const table = useReactTable({
     data,
@@ -40,11 +47,21 @@ export function DataTable<T>({ data, columns, initialSorting = [], caption, rowK
                 const numeric = (header.column.columnDef.meta as { numeric?: boolean } | undefined)?.numeric;
                 const sorted = header.column.getIsSorted();
                 return (
-                  <th key={header.id} className={`whitespace-nowrap px-3 py-2 font-semibold ${numeric ? 'text-right' : ''}`} aria-sort={sorted ? (sorted === 'asc' ? 'ascending' : 'descending') : undefined}>
+                  <th
+                    key={header.id}
+                    className={`whitespace-nowrap px-3 py-2 font-semibold ${numeric ? 'text-right' : ''}`}
+                    aria-sort={sorted ? (sorted === 'asc' ? 'ascending' : 'descending') : undefined}
+                  >
                     {header.isPlaceholder ? null : header.column.getCanSort() ? (
-                      <button type="button" onClick={header.column.getToggleSortingHandler()} className="inline-flex items-center gap-1 tracking-wide hover:text-ink">
+                      <button
+                        type="button"
+                        onClick={header.column.getToggleSortingHandler()}
+                        className="inline-flex items-center gap-1 tracking-wide hover:text-ink"
+                      >
                         {flexRender(header.column.columnDef.header, header.getContext())}
-                        <span aria-hidden="true" className="text-[10px]">{sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : '↕'}</span>
+                        <span aria-hidden="true" className="text-[10px]">
+                          {sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : '↕'}
+                        </span>
                       </button>
                     ) : (
                       flexRender(header.column.columnDef.header, header.getContext())

@@ -1,6 +1,18 @@
 import { forwardRef, type InputHTMLAttributes, type ReactNode, type SelectHTMLAttributes, type TextareaHTMLAttributes } from 'react';
 
-export function Field({ label, htmlFor, error, hint, children }: { label: ReactNode; htmlFor: string; error?: string; hint?: ReactNode; children: ReactNode }) {
+export function Field({
+  label,
+  htmlFor,
+  error,
+  hint,
+  children,
+}: {
+  label: ReactNode;
+  htmlFor: string;
+  error?: string;
+  hint?: ReactNode;
+  children: ReactNode;
+}) {
   return (
     <div className="flex flex-col gap-1">
       <label htmlFor={htmlFor} className="text-sm font-semibold">
@@ -24,10 +36,16 @@ export const Input = forwardRef<HTMLInputElement, InputHTMLAttributes<HTMLInputE
   return <input ref={ref} {...props} className={`${control} ${className}`} />;
 });
 
-export const Select = forwardRef<HTMLSelectElement, SelectHTMLAttributes<HTMLSelectElement>>(function Select({ className = '', ...props }, ref) {
+export const Select = forwardRef<HTMLSelectElement, SelectHTMLAttributes<HTMLSelectElement>>(function Select(
+  { className = '', ...props },
+  ref,
+) {
   return <select ref={ref} {...props} className={`${control} ${className}`} />;
 });
 
-export const TextArea = forwardRef<HTMLTextAreaElement, TextareaHTMLAttributes<HTMLTextAreaElement>>(function TextArea({ className = '', ...props }, ref) {
+export const TextArea = forwardRef<HTMLTextAreaElement, TextareaHTMLAttributes<HTMLTextAreaElement>>(function TextArea(
+  { className = '', ...props },
+  ref,
+) {
   return <textarea ref={ref} {...props} className={`${control} ${className}`} />;
 });

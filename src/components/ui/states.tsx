@@ -10,7 +10,15 @@ export function LoadingState({ label = 'Loading…' }: { label?: string }) {
   );
 }
 
-export function ErrorState({ error, onRetry, title = 'This could not be loaded' }: { error: unknown; onRetry?: () => void; title?: string }) {
+export function ErrorState({
+  error,
+  onRetry,
+  title = 'This could not be loaded',
+}: {
+  error: unknown;
+  onRetry?: () => void;
+  title?: string;
+}) {
   const message = error instanceof Error ? error.message : String(error);
   const forbidden = isApiError(error, 403);
   const missing = isApiError(error, 404);
@@ -22,7 +30,9 @@ export function ErrorState({ error, onRetry, title = 'This could not be loaded' 
       <p className="mt-1 text-sm text-ink-soft">{message}</p>
       {missing && (
         <p className="mt-2 text-sm">
-          <a href="/" className="font-semibold text-copper underline underline-offset-4">Back to the workbench</a>
+          <a href="/" className="font-semibold text-copper underline underline-offset-4">
+            Back to the workbench
+          </a>
         </p>
       )}
       {onRetry && retryable && (
@@ -44,7 +54,17 @@ export function EmptyState({ title, children, action }: { title: string; childre
   );
 }
 
-export function PageHeader({ title, subtitle, action, eyebrow }: { title: string; subtitle?: ReactNode; action?: ReactNode; eyebrow?: ReactNode }) {
+export function PageHeader({
+  title,
+  subtitle,
+  action,
+  eyebrow,
+}: {
+  title: string;
+  subtitle?: ReactNode;
+  action?: ReactNode;
+  eyebrow?: ReactNode;
+}) {
   return (
     <header className="mb-6 flex flex-wrap items-end justify-between gap-4 border-b border-rule pb-4">
       <div className="min-w-0">
@@ -57,9 +77,21 @@ export function PageHeader({ title, subtitle, action, eyebrow }: { title: string
   );
 }
 
-export function Panel({ title, children, className = '', actions }: { title?: ReactNode; children: ReactNode; className?: string; actions?: ReactNode }) {
+export function Panel({
+  title,
+  children,
+  className = '',
+  actions,
+}: {
+  title?: ReactNode;
+  children: ReactNode;
+  className?: string;
+  actions?: ReactNode;
+}) {
   return (
-    <section className={`min-w-0 rounded-lg border border-rule bg-paper-raised p-4 sm:p-5 shadow-[0_1px_0_rgba(24,34,58,0.04)] ${className}`}>
+    <section
+      className={`min-w-0 rounded-lg border border-rule bg-paper-raised p-4 sm:p-5 shadow-[0_1px_0_rgba(24,34,58,0.04)] ${className}`}
+    >
       {(title || actions) && (
         <div className="mb-3 flex items-center justify-between gap-3">
           {title && <h2 className="text-lg font-semibold">{title}</h2>}

@@ -14,7 +14,14 @@ export interface AuditFilter {
   to?: string;
 }
 
-export const AUDIT_FILTER_FIELDS = ['action', 'actor', 'targetType', 'targetId', 'from', 'to'] as const satisfies readonly (keyof AuditFilter)[];
+export const AUDIT_FILTER_FIELDS = [
+  'action',
+  'actor',
+  'targetType',
+  'targetId',
+  'from',
+  'to',
+] as const satisfies readonly (keyof AuditFilter)[];
 export const AUDIT_PAGE_SIZE = 100;
 
 export const auditKeys = {

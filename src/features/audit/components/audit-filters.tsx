@@ -25,7 +25,9 @@ export function AuditFilters({ value, onApply }: { value: AuditFilter; onApply: 
         <Select id="audit-action" {...register('action')}>
           <option value="">Any action</option>
           {vocabulary.data?.actions.map((a) => (
-            <option key={a} value={a}>{a}</option>
+            <option key={a} value={a}>
+              {a}
+            </option>
           ))}
         </Select>
       </Field>
@@ -36,7 +38,9 @@ export function AuditFilters({ value, onApply }: { value: AuditFilter; onApply: 
         <Select id="audit-target-type" {...register('targetType')}>
           <option value="">Any target</option>
           {vocabulary.data?.targetTypes.map((t) => (
-            <option key={t} value={t}>{t}</option>
+            <option key={t} value={t}>
+              {t}
+            </option>
           ))}
         </Select>
       </Field>
@@ -50,8 +54,12 @@ export function AuditFilters({ value, onApply }: { value: AuditFilter; onApply: 
         <Input id="audit-to" type="date" {...register('to')} />
       </Field>
       <div className="col-span-full flex gap-2">
-        <Button type="submit" variant="primary">Apply filters</Button>
-        <Button onClick={clear} variant="quiet">Clear</Button>
+        <Button type="submit" variant="primary">
+          Apply filters
+        </Button>
+        <Button onClick={clear} variant="quiet">
+          Clear
+        </Button>
       </div>
     </form>
   );

@@ -16,13 +16,16 @@ const TARGET_PAGES: Record<string, (id: string) => string> = {
 };
 
 /** The target as people name it ("Fit #3 of norrane"), with the internal type and id only when no name was recorded. */
-const targetText = (e: AuditEvent) => (e as AuditEvent & { targetLabel?: string | null }).targetLabel ?? `${e.targetType}${e.targetId ? ` ${e.targetId}` : ''}`;
+const targetText = (e: AuditEvent) =>
+  (e as AuditEvent & { targetLabel?: string | null }).targetLabel ?? `${e.targetType}${e.targetId ? ` ${e.targetId}` : ''}`;
 
 function Target({ event }: { event: AuditEvent }) {
   const label = targetText(event);
   const page = event.targetId ? TARGET_PAGES[event.targetType]?.(event.targetId) : undefined;
   return page ? (
-    <Link to={page} className="underline decoration-rule underline-offset-4 hover:decoration-copper">{label}</Link>
+    <Link to={page} className="underline decoration-rule underline-offset-4 hover:decoration-copper">
+      {label}
+    </Link>
   ) : (
     <span>{label}</span>
   );
@@ -37,7 +40,9 @@ function Changes({ event }: { event: AuditEvent }) {
         {(['before', 'after'] as const).map((k) => (
           <div key={k}>
             <div className="text-[11px] uppercase tracking-wider text-ink-faint">{k}</div>
-            <pre className="max-h-48 overflow-auto rounded bg-paper-deep/60 p-2 text-xs">{event[k] == null ? '—' : JSON.stringify(event[k], null, 2)}</pre>
+            <pre className="max-h-48 overflow-auto rounded bg-paper-deep/60 p-2 text-xs">
+              {event[k] == null ? '—' : JSON.stringify(event[k], null, 2)}
+            </pre>
           </div>
         ))}
       </div>

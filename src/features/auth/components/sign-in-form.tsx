@@ -10,12 +10,22 @@ export function SignInForm({ onSignedIn }: { onSignedIn: () => void }) {
   const form = useForm<SignInBody>({ resolver: zodResolver(signInBody), defaultValues: { email: '', password: '' } });
   const errors = form.formState.errors;
   return (
-    <form noValidate onSubmit={form.handleSubmit((values) => signIn.mutate(values, { onSuccess: onSignedIn }))} className="flex flex-col gap-4">
+    <form
+      noValidate
+      onSubmit={form.handleSubmit((values) => signIn.mutate(values, { onSuccess: onSignedIn }))}
+      className="flex flex-col gap-4"
+    >
       <Field label="E-mail" htmlFor="email" error={errors.email?.message}>
         <Input id="email" type="email" autoComplete="username" autoFocus aria-invalid={!!errors.email} {...form.register('email')} />
       </Field>
       <Field label="Password" htmlFor="password" error={errors.password?.message}>
-        <Input id="password" type="password" autoComplete="current-password" aria-invalid={!!errors.password} {...form.register('password')} />
+        <Input
+          id="password"
+          type="password"
+          autoComplete="current-password"
+          aria-invalid={!!errors.password}
+          {...form.register('password')}
+        />
       </Field>
       {signIn.isError && (
         <p role="alert" className="rounded-md bg-changes-soft px-3 py-2 text-sm text-changes">

@@ -35,29 +35,42 @@ export const catalogKeys = {
   card: (id: number) => [...catalogKeys.all, 'card', id] as const,
   mixture: (setIds: number[], rule: CombiningRule) => [...catalogKeys.all, 'mixture', setIds.join(','), rule] as const,
   preferences: () => ['preferences'] as const,
-  predictions: (id: number, kind: string, temperaturesK: string, pressuresMPa: string) => [...catalogKeys.all, 'predictions', id, kind, temperaturesK, pressuresMPa] as const,
+  predictions: (id: number, kind: string, temperaturesK: string, pressuresMPa: string) =>
+    [...catalogKeys.all, 'predictions', id, kind, temperaturesK, pressuresMPa] as const,
 };
 
 /** GET /api/parameter-sets/:id/predictions; runs only when temperatures are given. */
 export const predictionsQueryOptions = (id: number, kind: string, temperaturesK: string, pressuresMPa: string) =>
   queryOptions({
     queryKey: catalogKeys.predictions(id, kind, temperaturesK, pressuresMPa),
-    queryFn: () => api<PredictionAnswer>(`/parameter-sets/${id}/predictions?kind=${kind}&temperaturesK=${encodeURIComponent(temperaturesK)}${kind === 'density' ? `&pressuresMPa=${encodeURIComponent(pressuresMPa)}` : ''}`),
+    queryFn: () =>
+      api<PredictionAnswer>(
+        `/parameter-sets/${id}/predictions?kind=${kind}&temperaturesK=${encodeURIComponent(temperaturesK)}${kind === 'density' ? `&pressuresMPa=${encodeURIComponent(pressuresMPa)}` : ''}`,
+      ),
     enabled: temperaturesK.trim() !== '',
     retry: false,
   });
 
 export const catalogQueryOptions = (filters: CatalogFilters) => {
   const search = catalogSearch(filters);
-  return queryOptions({ queryKey: catalogKeys.list(search), queryFn: () => api<{ sets: CatalogEntry[] }>(`/catalog${search}`).then((r) => r.sets) });
+  return queryOptions({
+    queryKey: catalogKeys.list(search),
+    queryFn: () => api<{ sets: CatalogEntry[] }>(`/catalog${search}`).then((r) => r.sets),
+  });
 };
 
-export const parameterCardQueryOptions = (id: number) => queryOptions({ queryKey: catalogKeys.card(id), queryFn: () => api<ParameterCard>(`/catalog/${id}`) });
+export const parameterCardQueryOptions = (id: number) =>
+  queryOptions({ queryKey: catalogKeys.card(id), queryFn: () => api<ParameterCard>(`/catalog/${id}`) });
 
 export const mixtureQueryOptions = (setIds: number[], rule: CombiningRule) =>
-  queryOptions({ queryKey: catalogKeys.mixture(setIds, rule), queryFn: () => api<MixtureAnswer>(`/mixtures?sets=${setIds.join(',')}&rule=${rule}`), enabled: setIds.length >= 2 });
+  queryOptions({
+    queryKey: catalogKeys.mixture(setIds, rule),
+    queryFn: () => api<MixtureAnswer>(`/mixtures?sets=${setIds.join(',')}&rule=${rule}`),
+    enabled: setIds.length >= 2,
+  });
 
-export const preferencesQueryOptions = () => queryOptions({ queryKey: catalogKeys.preferences(), queryFn: () => api<Preferences>('/me/preferences'), staleTime: 5 * 60_000 });
+export const preferencesQueryOptions = () =>
+  queryOptions({ queryKey: catalogKeys.preferences(), queryFn: () => api<Preferences>('/me/preferences'), staleTime: 5 * 60_000 });
 
 export const useCatalog = (filters: CatalogFilters) => useQuery({ ...catalogQueryOptions(filters), placeholderData: keepPreviousData });
 export const useParameterCard = (id: number) => useQuery(parameterCardQueryOptions(id));
@@ -72,7 +85,11 @@ export const useUpdatePreferences = () => {
     onMutate: (body) => {
       const before = qc.getQueryData<Preferences>(catalogKeys.preferences());
       if (before) {
-        const next: Preferences = { ...before, ...(body.energyUnit ? { energyUnit: body.energyUnit } : {}), ...(body.lengthUnit ? { lengthUnit: body.lengthUnit } : {}) };
+        const next: Preferences = {
+          ...before,
+          ...(body.energyUnit ? { energyUnit: body.energyUnit } : {}),
+          ...(body.lengthUnit ? { lengthUnit: body.lengthUnit } : {}),
+        };
         if (body.scheme === null) delete next.scheme;
         else if (body.scheme) next.scheme = body.scheme;
         qc.setQueryData(catalogKeys.preferences(), next);
@@ -87,6 +104,7 @@ export const useUpdatePreferences = () => {
 };
 
 /** Download addresses: plain links, so the browser saves the file the server names. */
-export const exportHref = (setId: number, format: string, units?: string) => `/api/parameter-sets/${setId}/export?format=${format}${units ? `&units=${encodeURIComponent(units)}` : ''}`;
+export const exportHref = (setId: number, format: string, units?: string) =>
+  `/api/parameter-sets/${setId}/export?format=${format}${units ? `&units=${encodeURIComponent(units)}` : ''}`;
 export const mixtureHref = (setIds: number[], rule: CombiningRule, format: string, units?: string) =>
   `/api/mixtures?sets=${setIds.join(',')}&rule=${rule}&format=${format}${units ? `&units=${encodeURIComponent(units)}` : ''}`;

@@ -16,20 +16,62 @@ export function CatalogTable({ sets, energy, length }: { sets: CatalogEntry[]; e
     col.accessor('substanceName', {
       header: 'Substance',
       cell: (c) => (
-        <Link className="font-semibold text-ink underline decoration-rule underline-offset-4 hover:decoration-copper" to={`/catalog/${c.row.original.id}`}>
+        <Link
+          className="font-semibold text-ink underline decoration-rule underline-offset-4 hover:decoration-copper"
+          to={`/catalog/${c.row.original.id}`}
+        >
           {c.getValue()}
         </Link>
       ),
     }),
     col.accessor('formula', { header: 'Formula', cell: (c) => c.getValue() ?? '—' }),
     col.accessor('version', { header: 'Version', meta: { numeric: true }, cell: (c) => `v${c.getValue()}` }),
-    col.accessor('schemeLabel', { header: 'Scheme', cell: (c) => `${c.getValue()}${c.row.original.cutoffSigma !== null ? `, r_c = ${c.row.original.cutoffSigma} σ` : ''}` }),
-    col.accessor((s) => convertEpsilon(s.epsilonK, energy), { id: 'epsilon', header: () => <span className="normal-case">{epsilonHeader(energy)}</span>, meta: { numeric: true }, cell: (c) => epsilonText(c.row.original.epsilonK, c.row.original.stdErr.epsilonK, energy) }),
-    col.accessor((s) => convertSigma(s.sigmaAngstrom, length), { id: 'sigma', header: () => <span className="normal-case">{sigmaHeader(length)}</span>, meta: { numeric: true }, cell: (c) => sigmaText(c.row.original.sigmaAngstrom, c.row.original.stdErr.sigmaAngstrom, length) }),
-    col.accessor((s) => s.validity.temperatureMinK, { id: 'validity', header: 'Valid for', meta: { numeric: true }, cell: (c) => temperatureRangeText(c.row.original.validity) }),
-    col.accessor('kinds', { header: 'Data', enableSorting: false, cell: (c) => <span className="flex gap-1">{c.getValue().map((k) => <KindBadge key={k} kind={k} />)}</span> }),
-    col.accessor('approvedAt', { header: 'Approved', cell: (c) => (c.getValue() ? <time dateTime={c.getValue()!}>{formatDate(c.getValue()!)}</time> : '—') }),
+    col.accessor('schemeLabel', {
+      header: 'Scheme',
+      cell: (c) => `${c.getValue()}${c.row.original.cutoffSigma !== null ? `, r_c = ${c.row.original.cutoffSigma} σ` : ''}`,
+    }),
+    col.accessor((s) => convertEpsilon(s.epsilonK, energy), {
+      id: 'epsilon',
+      header: () => <span className="normal-case">{epsilonHeader(energy)}</span>,
+      meta: { numeric: true },
+      cell: (c) => epsilonText(c.row.original.epsilonK, c.row.original.stdErr.epsilonK, energy),
+    }),
+    col.accessor((s) => convertSigma(s.sigmaAngstrom, length), {
+      id: 'sigma',
+      header: () => <span className="normal-case">{sigmaHeader(length)}</span>,
+      meta: { numeric: true },
+      cell: (c) => sigmaText(c.row.original.sigmaAngstrom, c.row.original.stdErr.sigmaAngstrom, length),
+    }),
+    col.accessor((s) => s.validity.temperatureMinK, {
+      id: 'validity',
+      header: 'Valid for',
+      meta: { numeric: true },
+      cell: (c) => temperatureRangeText(c.row.original.validity),
+    }),
+    col.accessor('kinds', {
+      header: 'Data',
+      enableSorting: false,
+      cell: (c) => (
+        <span className="flex gap-1">
+          {c.getValue().map((k) => (
+            <KindBadge key={k} kind={k} />
+          ))}
+        </span>
+      ),
+    }),
+    col.accessor('approvedAt', {
+      header: 'Approved',
+      cell: (c) => (c.getValue() ? <time dateTime={c.getValue()!}>{formatDate(c.getValue()!)}</time> : '—'),
+    }),
     col.accessor('olderVersions', { header: 'Older', meta: { numeric: true }, cell: (c) => (c.getValue() ? c.getValue() : '—') }),
   ];
-  return <DataTable data={sets} columns={columns} caption="Approved parameter sets" rowKey={(s) => s.id} initialSorting={[{ id: 'substanceName', desc: false }]} />;
+  return (
+    <DataTable
+      data={sets}
+      columns={columns}
+      caption="Approved parameter sets"
+      rowKey={(s) => s.id}
+      initialSorting={[{ id: 'substanceName', desc: false }]}
+    />
+  );
 }

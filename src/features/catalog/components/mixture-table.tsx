@@ -21,7 +21,9 @@ export function MixtureTable({ mixture, energy, length }: { mixture: MixtureAnsw
         <tbody>
           {mixture.pairs.map((p) => (
             <tr key={`${p.i}-${p.j}`} className="border-b border-rule/60">
-              <td className="num py-1.5">{p.i + 1}–{p.j + 1}</td>
+              <td className="num py-1.5">
+                {p.i + 1}–{p.j + 1}
+              </td>
               <td>{p.i === p.j ? p.substanceI : `${p.substanceI} + ${p.substanceJ}`}</td>
               <td className="num text-right">{formatSignificant(convertEpsilon(p.epsilonK, energy), 6)}</td>
               <td className="num text-right">{formatSignificant(convertSigma(p.sigmaAngstrom, length), 6)}</td>
@@ -31,7 +33,9 @@ export function MixtureTable({ mixture, energy, length }: { mixture: MixtureAnsw
                 ) : p.kind === 'fitted-pair-set' ? (
                   <span className="inline-flex flex-wrap items-baseline gap-1">
                     <Badge tone="teal">Fitted pair set #{p.pairSetId}</Badge>
-                    <span className="num text-xs text-ink-faint">k_ij = {p.kij?.toFixed(4)} ± {p.kijStdErr?.toFixed(4) ?? '?'}</span>
+                    <span className="num text-xs text-ink-faint">
+                      k_ij = {p.kij?.toFixed(4)} ± {p.kijStdErr?.toFixed(4) ?? '?'}
+                    </span>
                   </span>
                 ) : (
                   <Badge tone="review">{mixture.ruleName} estimate</Badge>

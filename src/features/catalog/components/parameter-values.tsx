@@ -11,20 +11,32 @@ export function ParameterValues({ card, energy, length }: { card: ParameterCard;
       <div className="grid gap-3 sm:grid-cols-2">
         <div className="rounded-md border border-rule bg-paper px-4 py-3">
           <div className="text-xs font-semibold tracking-wider text-ink-faint">{epsilonHeader(energy)}</div>
-          <div className="num text-2xl font-bold" data-testid="card-epsilon">{epsilonText(card.epsilonK, card.stdErr.epsilonK, energy)}</div>
+          <div className="num text-2xl font-bold" data-testid="card-epsilon">
+            {epsilonText(card.epsilonK, card.stdErr.epsilonK, energy)}
+          </div>
         </div>
         <div className="rounded-md border border-rule bg-paper px-4 py-3">
           <div className="text-xs font-semibold tracking-wider text-ink-faint">{sigmaHeader(length)}</div>
-          <div className="num text-2xl font-bold" data-testid="card-sigma">{sigmaText(card.sigmaAngstrom, card.stdErr.sigmaAngstrom, length)}</div>
+          <div className="num text-2xl font-bold" data-testid="card-sigma">
+            {sigmaText(card.sigmaAngstrom, card.stdErr.sigmaAngstrom, length)}
+          </div>
         </div>
       </div>
       <dl className="mt-4 grid grid-cols-[max-content_1fr] gap-x-4 gap-y-1 text-sm">
         <dt className="text-ink-faint">Model</dt>
-        <dd data-testid="card-model">{card.potential === 'mie' ? `${card.potentialLabel}, u(r) = Cε[(σ/r)^${card.repulsiveExponent} − (σ/r)⁶], C = ${((card.repulsiveExponent / (card.repulsiveExponent - 6)) * Math.pow(card.repulsiveExponent / 6, 6 / (card.repulsiveExponent - 6))).toFixed(4)}` : 'Lennard-Jones 12-6, u(r) = 4ε[(σ/r)¹² − (σ/r)⁶]'}</dd>
+        <dd data-testid="card-model">
+          {card.potential === 'mie'
+            ? `${card.potentialLabel}, u(r) = Cε[(σ/r)^${card.repulsiveExponent} − (σ/r)⁶], C = ${((card.repulsiveExponent / (card.repulsiveExponent - 6)) * Math.pow(card.repulsiveExponent / 6, 6 / (card.repulsiveExponent - 6))).toFixed(4)}`
+            : 'Lennard-Jones 12-6, u(r) = 4ε[(σ/r)¹² − (σ/r)⁶]'}
+        </dd>
         <dt className="text-ink-faint">Fitted for</dt>
         <dd>
           {CUTOFF_SCHEME_LABELS[card.scheme]}
-          {card.cutoffSigma !== null && <span className="num">, r_c = {card.cutoffSigma} σ = {sigmaText(card.cutoffSigma * card.sigmaAngstrom, null, length)}</span>}
+          {card.cutoffSigma !== null && (
+            <span className="num">
+              , r_c = {card.cutoffSigma} σ = {sigmaText(card.cutoffSigma * card.sigmaAngstrom, null, length)}
+            </span>
+          )}
         </dd>
         <dt className="text-ink-faint">Valid for</dt>
         <dd className="num">

@@ -20,7 +20,11 @@ type FormValues = z.input<typeof formShape>;
 
 /** The boxes as the query asks them (pressures only for densities), judged by predictionQuery (the server's schema). */
 const formSchema = formShape
-  .transform((v): z.input<typeof predictionQuery> => ({ kind: v.kind, temperaturesK: v.temperaturesK, ...(v.kind === 'density' ? { pressuresMPa: v.pressuresMPa } : {}) }))
+  .transform((v): z.input<typeof predictionQuery> => ({
+    kind: v.kind,
+    temperaturesK: v.temperaturesK,
+    ...(v.kind === 'density' ? { pressuresMPa: v.pressuresMPa } : {}),
+  }))
   .pipe(predictionQuery);
 
 /** Predictions of a set at the reader's own states, with the propagated uncertainty and a mark outside the validity range. */
@@ -40,14 +44,22 @@ export function PredictionsPanel({ setId, mie }: { setId: number; mie: boolean }
     setAsked({ kind: v.kind, temps: v.temperaturesK, pressures: v.pressuresMPa });
   });
   const problem = (id: string, message: string | undefined) =>
-    message ? <span id={`${id}-error`} className="text-xs text-changes">{message}</span> : null;
+    message ? (
+      <span id={`${id}-error`} className="text-xs text-changes">
+        {message}
+      </span>
+    ) : null;
   return (
     <div>
       <form noValidate className="flex flex-wrap items-end gap-3 text-sm" aria-label="Predict at my states" onSubmit={submit}>
         <label className="grid gap-1">
           <span className="text-xs text-ink-faint">Property</span>
           <select className="rounded border border-rule bg-paper px-2 py-1" {...form.register('kind')}>
-            {KINDS.filter((k) => !mie || k.kind !== 'density').map((k) => <option key={k.kind} value={k.kind}>{k.label}</option>)}
+            {KINDS.filter((k) => !mie || k.kind !== 'density').map((k) => (
+              <option key={k.kind} value={k.kind}>
+                {k.label}
+              </option>
+            ))}
           </select>
         </label>
         <label className="grid gap-1">
@@ -72,10 +84,14 @@ export function PredictionsPanel({ setId, mie }: { setId: number; mie: boolean }
             {problem('predict-pressures', errors.pressuresMPa?.message)}
           </label>
         )}
-        <button type="submit" className="rounded-md bg-copper px-3 py-1.5 font-semibold text-paper-raised hover:bg-copper-dark">Predict</button>
+        <button type="submit" className="rounded-md bg-copper px-3 py-1.5 font-semibold text-paper-raised hover:bg-copper-dark">
+          Predict
+        </button>
       </form>
       {asked.temps.trim() === '' ? (
-        <p className="mt-2 text-xs text-ink-faint">Give your own temperatures: the set predicts there with its uncertainty, and says where it would extrapolate.</p>
+        <p className="mt-2 text-xs text-ink-faint">
+          Give your own temperatures: the set predicts there with its uncertainty, and says where it would extrapolate.
+        </p>
       ) : q.isPending ? (
         <LoadingState />
       ) : q.isError ? (
@@ -97,9 +113,15 @@ export function PredictionsPanel({ setId, mie }: { setId: number; mie: boolean }
                 <tr key={`${p.temperatureK}-${p.pressureMPa ?? ''}`} className="border-t border-rule">
                   <td className="num py-1">{p.temperatureK}</td>
                   {q.data.kind === 'density' && <td className="num py-1">{p.pressureMPa}</td>}
-                  <td className="num py-1 text-right">{formatSignificant(p.value, 5)} ± {formatSignificant(p.standardError, 2)}</td>
-                  <td className="num py-1 text-right">{formatSignificant(p.lower95, 5)} … {formatSignificant(p.upper95, 5)}</td>
-                  <td className={`py-1 text-xs ${p.outsideValidity ? 'text-changes' : 'text-ink-faint'}`}>{p.outsideValidity ? p.note : 'within the validity range'}</td>
+                  <td className="num py-1 text-right">
+                    {formatSignificant(p.value, 5)} ± {formatSignificant(p.standardError, 2)}
+                  </td>
+                  <td className="num py-1 text-right">
+                    {formatSignificant(p.lower95, 5)} … {formatSignificant(p.upper95, 5)}
+                  </td>
+                  <td className={`py-1 text-xs ${p.outsideValidity ? 'text-changes' : 'text-ink-faint'}`}>
+                    {p.outsideValidity ? p.note : 'within the validity range'}
+                  </td>
                 </tr>
               ))}
             </tbody>

@@ -20,4 +20,5 @@ export const sigmaHeader = (unit: LengthUnit) => `σ (${unit})`;
 
 /** A bound without trailing zeros (170 K, 297.15 K). */
 export const bound = (x: number) => String(Number(x.toPrecision(6)));
-export const temperatureRangeText = (v: { temperatureMinK: number; temperatureMaxK: number }) => `${bound(v.temperatureMinK)}–${bound(v.temperatureMaxK)} K`;
+export const temperatureRangeText = (v: { temperatureMinK: number; temperatureMaxK: number }) =>
+  `${bound(v.temperatureMinK)}–${bound(v.temperatureMaxK)} K`;

@@ -25,9 +25,23 @@ export function VersionHistory({ card, energy, length }: { card: ParameterCard; 
         </thead>
         <tbody>
           {rows.map((v) => (
-            <tr key={v.id} className={`border-b border-rule/60 ${v.id === card.id ? 'bg-paper-deep/50' : ''}`} aria-current={v.id === card.id ? 'page' : undefined}>
-              <td className="py-1.5">{v.id === card.id ? <span className="font-semibold">v{v.version} (this)</span> : <Link className="underline" to={`/catalog/${v.id}`}>v{v.version}</Link>}</td>
-              <td><Badge tone={v.state === 'approved' ? 'approved' : 'slate'}>{v.stateLabel}</Badge></td>
+            <tr
+              key={v.id}
+              className={`border-b border-rule/60 ${v.id === card.id ? 'bg-paper-deep/50' : ''}`}
+              aria-current={v.id === card.id ? 'page' : undefined}
+            >
+              <td className="py-1.5">
+                {v.id === card.id ? (
+                  <span className="font-semibold">v{v.version} (this)</span>
+                ) : (
+                  <Link className="underline" to={`/catalog/${v.id}`}>
+                    v{v.version}
+                  </Link>
+                )}
+              </td>
+              <td>
+                <Badge tone={v.state === 'approved' ? 'approved' : 'slate'}>{v.stateLabel}</Badge>
+              </td>
               <td className="num text-right">{epsilonText(v.epsilonK, v.stdErr.epsilonK, energy)}</td>
               <td className="num text-right">{v.change ? signedText(convertEpsilon(v.change.epsilonK, energy), energy) : '—'}</td>
               <td className="num text-right">{sigmaText(v.sigmaAngstrom, v.stdErr.sigmaAngstrom, length)}</td>

@@ -33,9 +33,13 @@ export function FitInsights({ result }: { result: LjFitResult }) {
                 const lin = r.posterior!.linearised[p.key];
                 return (
                   <tr key={p.key} className="border-t border-rule">
-                    <td className="py-1">{p.label} ({p.unit})</td>
+                    <td className="py-1">
+                      {p.label} ({p.unit})
+                    </td>
                     <td className="num py-1 text-right">{fmt(s.median, 6)}</td>
-                    <td className="num py-1 text-right">{fmt(s.lower95)} … {fmt(s.upper95)}</td>
+                    <td className="num py-1 text-right">
+                      {fmt(s.lower95)} … {fmt(s.upper95)}
+                    </td>
                     <td className="num py-1 text-right">{lin ? `${fmt(lin.lower95)} … ${fmt(lin.upper95)}` : '—'}</td>
                   </tr>
                 );
@@ -43,12 +47,19 @@ export function FitInsights({ result }: { result: LjFitResult }) {
             </tbody>
           </table>
           <p className="mt-2 text-xs text-ink-faint">
-            {r.posterior.likelihood}; priors {r.posterior.priors}. {r.posterior.diagnostics.walkers} walkers × {r.posterior.diagnostics.steps} steps after {r.posterior.diagnostics.burnIn} burn-in, seed {r.posterior.diagnostics.seed}, acceptance {(100 * r.posterior.diagnostics.acceptanceFraction).toFixed(0)} %, R-hat{' '}
-            {Object.values(r.posterior.diagnostics.rHat).map((x) => (x as number).toFixed(3)).join(', ')}.
+            {r.posterior.likelihood}; priors {r.posterior.priors}. {r.posterior.diagnostics.walkers} walkers ×{' '}
+            {r.posterior.diagnostics.steps} steps after {r.posterior.diagnostics.burnIn} burn-in, seed {r.posterior.diagnostics.seed},
+            acceptance {(100 * r.posterior.diagnostics.acceptanceFraction).toFixed(0)} %, R-hat{' '}
+            {Object.values(r.posterior.diagnostics.rHat)
+              .map((x) => (x as number).toFixed(3))
+              .join(', ')}
+            .
           </p>
           {r.posterior.messages.length > 0 && (
             <ul className="mt-2 list-disc pl-5 text-sm" role="note">
-              {r.posterior.messages.map((m) => <li key={m}>{m}</li>)}
+              {r.posterior.messages.map((m) => (
+                <li key={m}>{m}</li>
+              ))}
             </ul>
           )}
         </Panel>
@@ -56,9 +67,14 @@ export function FitInsights({ result }: { result: LjFitResult }) {
       {r.nextMeasurements && r.nextMeasurements.length > 0 && (
         <Panel title="The next measurement to make">
           <ol className="list-decimal pl-5 text-sm" aria-label="Next measurements, best first">
-            {r.nextMeasurements.map((s) => <li key={`${s.kind}-${s.temperatureK}-${s.pressureMPa ?? ''}`}>{s.text}</li>)}
+            {r.nextMeasurements.map((s) => (
+              <li key={`${s.kind}-${s.temperatureK}-${s.pressureMPa ?? ''}`}>{s.text}</li>
+            ))}
           </ol>
-          <p className="mt-2 text-xs text-ink-faint">Ranked by how much each would shrink the joint 95 % region (D-optimal), each assumed as uncertain as the fit's own data of its kind.</p>
+          <p className="mt-2 text-xs text-ink-faint">
+            Ranked by how much each would shrink the joint 95 % region (D-optimal), each assumed as uncertain as the fit's own data of its
+            kind.
+          </p>
         </Panel>
       )}
       {r.tension && (
@@ -72,19 +88,26 @@ export function FitInsights({ result }: { result: LjFitResult }) {
           </ul>
           {r.tension.messages.length > 0 ? (
             <ul className="mt-2 list-disc pl-5 text-sm text-changes" role="alert">
-              {r.tension.messages.map((m) => <li key={m}>{m}</li>)}
+              {r.tension.messages.map((m) => (
+                <li key={m}>{m}</li>
+              ))}
             </ul>
           ) : (
-            r.tension.pairs.length > 0 && <p className="mt-2 text-sm">The 95 % regions of the kinds overlap: they agree within their uncertainties.</p>
+            r.tension.pairs.length > 0 && (
+              <p className="mt-2 text-sm">The 95 % regions of the kinds overlap: they agree within their uncertainties.</p>
+            )
           )}
         </Panel>
       )}
       {r.criterion && (
         <Panel title="Model">
           <p className="text-sm">
-            {r.criterion.label}: χ² = {fmt(r.criterion.chi2)}, {r.criterion.parameters} free parameters, {r.criterion.points} points; AIC = {fmt(r.criterion.aic)}, BIC = {fmt(r.criterion.bic)}.
+            {r.criterion.label}: χ² = {fmt(r.criterion.chi2)}, {r.criterion.parameters} free parameters, {r.criterion.points} points; AIC ={' '}
+            {fmt(r.criterion.aic)}, BIC = {fmt(r.criterion.bic)}.
           </p>
-          <p className="mt-1 text-xs text-ink-faint">Compare a 12-6 and a Mie fit of the same data by these: the lower BIC is preferred when it is lower by more than 2.</p>
+          <p className="mt-1 text-xs text-ink-faint">
+            Compare a 12-6 and a Mie fit of the same data by these: the lower BIC is preferred when it is lower by more than 2.
+          </p>
         </Panel>
       )}
     </div>

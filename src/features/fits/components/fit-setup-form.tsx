@@ -81,7 +81,9 @@ export function FitSetupForm({
   }, [error, setError]);
   // Approved sets of the potential being fitted (and of the held λr); a chosen prior that no longer fits is let go.
   const heldExponent = v.options.model === 'mie' && v.options.exponent === 'held' ? parseDecimal(v.options.repulsiveExponent) : null;
-  const priorOffered = priorSets.filter((p) => p.potential === v.options.model && (heldExponent === null || p.repulsiveExponent === heldExponent));
+  const priorOffered = priorSets.filter(
+    (p) => p.potential === v.options.model && (heldExponent === null || p.repulsiveExponent === heldExponent),
+  );
   const priorChosen = v.options.posterior.priorSetId;
   useEffect(() => {
     if (priorChosen !== '' && !priorOffered.some((p) => String(p.id) === priorChosen)) setValue('options.posterior.priorSetId', '');

@@ -9,7 +9,11 @@ export function FollowButton({ substanceId, substanceName }: { substanceId: numb
   return (
     <Button
       aria-pressed={following ?? false}
-      title={following ? `You get mail about ${substanceName ?? 'this substance'}; click to stop` : `Get mail when parameter sets of ${substanceName ?? 'this substance'} change`}
+      title={
+        following
+          ? `You get mail about ${substanceName ?? 'this substance'}; click to stop`
+          : `Get mail when parameter sets of ${substanceName ?? 'this substance'} change`
+      }
       busy={setFollowing.isPending}
       disabled={following === undefined}
       onClick={() => setFollowing.mutate(!following)}

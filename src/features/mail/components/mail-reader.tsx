@@ -3,7 +3,8 @@ import { formatDateTime } from '@shared/format/dates';
 import type { MailboxMessage } from '../api/mailbox';
 
 /** A plain frame style so the HTML part reads like the rest of the page; the message's own styles still apply after it. */
-const FRAME_HEAD = '<!doctype html><meta charset="utf-8"><style>body{font:15px/1.55 system-ui,sans-serif;color:#18223a;margin:12px}</style>';
+const FRAME_HEAD =
+  '<!doctype html><meta charset="utf-8"><style>body{font:15px/1.55 system-ui,sans-serif;color:#18223a;margin:12px}</style>';
 
 /** One message: headers, then the plain-text part or the HTML part in a sandboxed frame (no scripts, no same-origin access). */
 export function MailReader({ message }: { message: MailboxMessage }) {
@@ -38,7 +39,12 @@ export function MailReader({ message }: { message: MailboxMessage }) {
         )}
       </header>
       {showHtml ? (
-        <iframe title={`HTML part of ${message.subject}`} sandbox="" srcDoc={FRAME_HEAD + (message.html ?? '')} className="mt-3 block h-80 w-full rounded-md border border-rule bg-white" />
+        <iframe
+          title={`HTML part of ${message.subject}`}
+          sandbox=""
+          srcDoc={FRAME_HEAD + (message.html ?? '')}
+          className="mt-3 block h-80 w-full rounded-md border border-rule bg-white"
+        />
       ) : (
         <pre className="mt-3 whitespace-pre-wrap break-words font-sans text-sm leading-relaxed">{message.text || '(no text part)'}</pre>
       )}

@@ -15,7 +15,8 @@ export function MailboxView() {
   if (mailbox.isError && isApiError(mailbox.error, 409)) {
     return (
       <EmptyState title="Mail goes to an outside server">
-        This server sends mail to the SMTP server in <code>SMTP_URL</code>, so there is no local mailbox to read. Unset <code>SMTP_URL</code> to use the local mail service.
+        This server sends mail to the SMTP server in <code>SMTP_URL</code>, so there is no local mailbox to read. Unset{' '}
+        <code>SMTP_URL</code> to use the local mail service.
       </EmptyState>
     );
   }
@@ -36,7 +37,9 @@ export function MailboxView() {
         ) : mailbox.isError ? (
           <ErrorState error={mailbox.error} onRetry={() => mailbox.refetch()} />
         ) : messages.length === 0 ? (
-          <EmptyState title={to ? 'No mail to that address' : 'No mail yet'}>Mail appears here when a parameter set is submitted, reviewed or retired.</EmptyState>
+          <EmptyState title={to ? 'No mail to that address' : 'No mail yet'}>
+            Mail appears here when a parameter set is submitted, reviewed or retired.
+          </EmptyState>
         ) : (
           <ul aria-label="Messages" className="-mx-2 divide-y divide-rule/60">
             {messages.map((m) => (

@@ -11,7 +11,10 @@ const STATUS_TONE: Record<OutboxStatus, BadgeTone> = { queued: 'review', sent: '
 
 const col = createColumnHelper<OutboxMessage>();
 const columns = [
-  col.accessor('createdAt', { header: 'Queued', cell: (c) => <span className="num whitespace-nowrap">{formatDateTime(c.getValue())}</span> }),
+  col.accessor('createdAt', {
+    header: 'Queued',
+    cell: (c) => <span className="num whitespace-nowrap">{formatDateTime(c.getValue())}</span>,
+  }),
   col.accessor('subject', { header: 'Subject' }),
   col.accessor((m) => m.to.join(', '), { id: 'to', header: 'To', cell: (c) => <span className="text-ink-soft">{c.getValue()}</span> }),
   col.accessor('status', { header: 'Status', cell: (c) => <Badge tone={STATUS_TONE[c.getValue()]}>{c.getValue()}</Badge> }),
@@ -39,7 +42,13 @@ export function OutboxPanel() {
   return (
     <Panel
       title="Outbox"
-      actions={counts && <span className="num text-sm text-ink-faint">{counts.queued} queued · {counts.sent} sent · {counts.failed} failed</span>}
+      actions={
+        counts && (
+          <span className="num text-sm text-ink-faint">
+            {counts.queued} queued · {counts.sent} sent · {counts.failed} failed
+          </span>
+        )
+      }
     >
       <div className="mb-3 max-w-56">
         <Field label="Status" htmlFor="outbox-status">

@@ -1,6 +1,11 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { PropertyKind } from '@shared/measurements/property-kinds';
-import type { MeasurementSetDetail, MeasurementSetList, MeasurementSetUpload, MeasurementSetWithdrawal } from '@shared/contracts/measurement-set';
+import type {
+  MeasurementSetDetail,
+  MeasurementSetList,
+  MeasurementSetUpload,
+  MeasurementSetWithdrawal,
+} from '@shared/contracts/measurement-set';
 import { api } from '@/lib/api-client';
 import { substanceKeys } from '@/lib/query-keys';
 
@@ -16,11 +21,15 @@ export const measurementSetKeys = {
 export const measurementSetsQueryOptions = (substanceId?: number) =>
   queryOptions({
     queryKey: measurementSetKeys.list(substanceId),
-    queryFn: () => api<MeasurementSetList>(`/measurement-sets${substanceId ? `?substanceId=${substanceId}` : ''}`).then((r) => r.measurementSets),
+    queryFn: () =>
+      api<MeasurementSetList>(`/measurement-sets${substanceId ? `?substanceId=${substanceId}` : ''}`).then((r) => r.measurementSets),
   });
 
 export const measurementSetQueryOptions = (id: number, version?: number) =>
-  queryOptions({ queryKey: measurementSetKeys.detail(id, version), queryFn: () => api<MeasurementSetDetail>(`/measurement-sets/${id}${version ? `?version=${version}` : ''}`) });
+  queryOptions({
+    queryKey: measurementSetKeys.detail(id, version),
+    queryFn: () => api<MeasurementSetDetail>(`/measurement-sets/${id}${version ? `?version=${version}` : ''}`),
+  });
 
 export const useMeasurementSets = (substanceId?: number) => useQuery(measurementSetsQueryOptions(substanceId));
 export const useMeasurementSet = (id: number, version?: number) => useQuery(measurementSetQueryOptions(id, version));
@@ -55,7 +64,9 @@ export const useUploadMeasurementSet = () => {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: ({ measurementSetId, ...input }: UploadInput & { measurementSetId?: number }) =>
-      api<MeasurementSetUpload>(measurementSetId ? `/measurement-sets/${measurementSetId}/versions` : '/measurement-sets', { formData: toFormData(input) }),
+      api<MeasurementSetUpload>(measurementSetId ? `/measurement-sets/${measurementSetId}/versions` : '/measurement-sets', {
+        formData: toFormData(input),
+      }),
     onSuccess: () => {
       void qc.invalidateQueries({ queryKey: measurementSetKeys.all });
       void qc.invalidateQueries({ queryKey: substanceKeys.all });

@@ -21,9 +21,21 @@ export function MeasurementSetChart({ kind, rows, height }: { kind: PropertyKind
     series = [...byPressure.entries()]
       .sort((a, b) => a[0] - b[0])
       .slice(0, 8)
-      .map(([p, list]) => ({ label: `measured, ${p} MPa`, kind: 'measured' as const, points: list.map((r) => ({ x: r.temperatureK, y: r.value, u: r.uncertainty })) }));
+      .map(([p, list]) => ({
+        label: `measured, ${p} MPa`,
+        kind: 'measured' as const,
+        points: list.map((r) => ({ x: r.temperatureK, y: r.value, u: r.uncertainty })),
+      }));
   } else {
     series = [{ label: 'measured', kind: 'measured', points: rows.map((r) => ({ x: r.temperatureK, y: r.value, u: r.uncertainty })) }];
   }
-  return <PropertyChart series={series} xTitle="T (K)" yTitle={valueAxisTitle(kind)} height={height} ariaLabel={`${PROPERTY_KINDS[kind].label} measurements`} />;
+  return (
+    <PropertyChart
+      series={series}
+      xTitle="T (K)"
+      yTitle={valueAxisTitle(kind)}
+      height={height}
+      ariaLabel={`${PROPERTY_KINDS[kind].label} measurements`}
+    />
+  );
 }

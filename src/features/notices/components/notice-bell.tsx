@@ -46,16 +46,33 @@ export function NoticeBell() {
         className="inline-flex items-center gap-1.5 rounded-md border border-rule bg-paper-raised px-2.5 py-1.5 text-sm font-semibold text-ink hover:bg-paper-deep"
       >
         <svg width="16" height="16" viewBox="0 0 16 16" aria-hidden="true">
-          <path d="M8 1.8a4 4 0 0 0-4 4v2.6L2.6 11h10.8L12 8.4V5.8a4 4 0 0 0-4-4ZM6.3 12.6a1.8 1.8 0 0 0 3.4 0" fill="none" stroke="currentColor" strokeWidth="1.5" strokeLinejoin="round" />
+          <path
+            d="M8 1.8a4 4 0 0 0-4 4v2.6L2.6 11h10.8L12 8.4V5.8a4 4 0 0 0-4-4ZM6.3 12.6a1.8 1.8 0 0 0 3.4 0"
+            fill="none"
+            stroke="currentColor"
+            strokeWidth="1.5"
+            strokeLinejoin="round"
+          />
         </svg>
-        {unread > 0 && <span className="num rounded-full bg-copper px-1.5 text-xs text-white" data-testid="notice-count">{unread}</span>}
+        {unread > 0 && (
+          <span className="num rounded-full bg-copper px-1.5 text-xs text-white" data-testid="notice-count">
+            {unread}
+          </span>
+        )}
       </button>
       {open && (
-        <div id={listId} role="region" aria-label="Notices" className="absolute right-0 z-40 mt-2 w-[min(22rem,calc(100vw-2rem))] rounded-lg border border-rule bg-paper-raised p-2 shadow-lg">
+        <div
+          id={listId}
+          role="region"
+          aria-label="Notices"
+          className="absolute right-0 z-40 mt-2 w-[min(22rem,calc(100vw-2rem))] rounded-lg border border-rule bg-paper-raised p-2 shadow-lg"
+        >
           {notices.isPending ? (
             <p className="px-2 py-3 text-sm text-ink-soft">Loading your notices…</p>
           ) : notices.isError ? (
-            <p role="alert" className="px-2 py-3 text-sm text-changes">Your notices could not be loaded: {notices.error.message}</p>
+            <p role="alert" className="px-2 py-3 text-sm text-changes">
+              Your notices could not be loaded: {notices.error.message}
+            </p>
           ) : list.length === 0 ? (
             <p className="px-2 py-3 text-sm text-ink-soft">No notices. You hear here when a fit of yours finishes or fails.</p>
           ) : (
@@ -78,7 +95,11 @@ export function NoticeBell() {
                       <span className={n.readAt ? '' : 'font-semibold'}>{n.text}</span>
                     )}
                     {!n.readAt && (
-                      <button type="button" className="shrink-0 text-xs font-semibold text-copper hover:underline" onClick={() => markRead.mutate(n.id)}>
+                      <button
+                        type="button"
+                        className="shrink-0 text-xs font-semibold text-copper hover:underline"
+                        onClick={() => markRead.mutate(n.id)}
+                      >
                         Mark read
                       </button>
                     )}

@@ -31,15 +31,23 @@ export interface ApprovedSet {
 }
 
 export const approvedSetsQueryOptions = () =>
-  queryOptions({ queryKey: pairSetKeys.approvedSets(), queryFn: () => api<{ sets: Array<ApprovedSet & { state: string }> }>('/catalog').then((r) => r.sets.filter((x) => x.state === 'approved')) });
+  queryOptions({
+    queryKey: pairSetKeys.approvedSets(),
+    queryFn: () =>
+      api<{ sets: Array<ApprovedSet & { state: string }> }>('/catalog').then((r) => r.sets.filter((x) => x.state === 'approved')),
+  });
 export const useApprovedSets = (enabled: boolean) => useQuery({ ...approvedSetsQueryOptions(), enabled });
 
-export const pairSetsQueryOptions = () => queryOptions({ queryKey: pairSetKeys.list(), queryFn: () => api<PairSetList>('/pair-sets').then((r) => r.pairSets) });
+export const pairSetsQueryOptions = () =>
+  queryOptions({ queryKey: pairSetKeys.list(), queryFn: () => api<PairSetList>('/pair-sets').then((r) => r.pairSets) });
 
 export const b12MeasurementSetsQueryOptions = () =>
   queryOptions({
     queryKey: pairSetKeys.b12MeasurementSets(),
-    queryFn: () => api<{ measurementSets: Array<B12MeasurementSet & { kind: string }> }>('/measurement-sets').then((r) => r.measurementSets.filter((d) => d.kind === 'b12')),
+    queryFn: () =>
+      api<{ measurementSets: Array<B12MeasurementSet & { kind: string }> }>('/measurement-sets').then((r) =>
+        r.measurementSets.filter((d) => d.kind === 'b12'),
+      ),
   });
 
 export const usePairSets = () => useQuery(pairSetsQueryOptions());

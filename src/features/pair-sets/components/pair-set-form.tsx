@@ -42,17 +42,17 @@ export function PairSetForm() {
   if (measurementSets.isError) return <ErrorState error={measurementSets.error} onRetry={() => measurementSets.refetch()} />;
   const ready = a && b && a !== b && measurementSetId;
   return (
-    <form
-      noValidate
-      className="grid gap-3"
-      aria-label="Fit a pair set"
-      onSubmit={form.handleSubmit((body) => create.mutate(body))}
-    >
+    <form noValidate className="grid gap-3" aria-label="Fit a pair set" onSubmit={form.handleSubmit((body) => create.mutate(body))}>
       <div className="grid gap-3 sm:grid-cols-2">
         {[
           // A complaint about the pair as a whole goes beside the second set.
           { id: 'pair-set-a', label: 'First approved set', index: 0 as const, error: errors.parameterSetIds?.[0]?.message },
-          { id: 'pair-set-b', label: 'Second approved set', index: 1 as const, error: errors.parameterSetIds?.[1]?.message ?? errors.parameterSetIds?.message },
+          {
+            id: 'pair-set-b',
+            label: 'Second approved set',
+            index: 1 as const,
+            error: errors.parameterSetIds?.[1]?.message ?? errors.parameterSetIds?.message,
+          },
         ].map((f) => (
           <Field key={f.id} label={f.label} htmlFor={f.id} error={f.error}>
             <Select id={f.id} {...invalidProps(f.id, f.error)} {...form.register(`parameterSetIds.${f.index}`)}>
@@ -70,8 +70,13 @@ export function PairSetForm() {
         label="Cross second virial coefficients B12"
         htmlFor="pair-set-data"
         error={errors.measurementSetId?.message}
-        hint={measurementSets.data.length === 0 ? 'Upload a B12 table (T, B12, u(B12)) with one of the two substances first.' : undefined}>
-        <Select id="pair-set-data" {...invalidProps('pair-set-data', errors.measurementSetId?.message)} {...form.register('measurementSetId')}>
+        hint={measurementSets.data.length === 0 ? 'Upload a B12 table (T, B12, u(B12)) with one of the two substances first.' : undefined}
+      >
+        <Select
+          id="pair-set-data"
+          {...invalidProps('pair-set-data', errors.measurementSetId?.message)}
+          {...form.register('measurementSetId')}
+        >
           <option value="">Choose…</option>
           {measurementSets.data.map((d) => (
             <option key={d.id} value={d.id}>
@@ -95,7 +100,8 @@ export function PairSetForm() {
       )}
       {create.isSuccess && (
         <p role="status" className="text-sm text-approved">
-          Pair set #{create.data.id} fitted: k_ij = {create.data.kij.toFixed(4)} ± {create.data.kijStdErr?.toFixed(4) ?? '?'}; it waits for review.
+          Pair set #{create.data.id} fitted: k_ij = {create.data.kij.toFixed(4)} ± {create.data.kijStdErr?.toFixed(4) ?? '?'}; it waits for
+          review.
         </p>
       )}
       <div>

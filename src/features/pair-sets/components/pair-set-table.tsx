@@ -21,7 +21,8 @@ export function PairSetTable() {
   const [comment, setComment] = useState<Record<number, string>>({});
   if (list.isPending) return <LoadingState />;
   if (list.isError) return <ErrorState error={list.error} onRetry={() => list.refetch()} />;
-  if (list.data.length === 0) return <EmptyState title="No pair sets yet">A modeller fits k_ij to measured B12 of two approved sets.</EmptyState>;
+  if (list.data.length === 0)
+    return <EmptyState title="No pair sets yet">A modeller fits k_ij to measured B12 of two approved sets.</EmptyState>;
   return (
     <div className="overflow-x-auto">
       <table className="w-full text-sm" aria-label="Pair sets">
@@ -44,7 +45,9 @@ export function PairSetTable() {
               <td className="num py-1.5">{p.id}</td>
               <td>
                 {p.setA.substanceName} v{p.setA.version} + {p.setB.substanceName} v{p.setB.version}
-                <div className="text-xs text-ink-faint">{p.measurementSet.name} v{p.measurementSet.version}</div>
+                <div className="text-xs text-ink-faint">
+                  {p.measurementSet.name} v{p.measurementSet.version}
+                </div>
               </td>
               <td className="num text-right">{pm(p.kij, p.kijStdErr, 4)}</td>
               <td className="num text-right">{p.lij === null ? '—' : pm(p.lij, p.lijStdErr, 4)}</td>
@@ -59,7 +62,9 @@ export function PairSetTable() {
                 <td>
                   {p.state === 'in_review' && (
                     <div className="grid gap-1">
-                      <label className="sr-only" htmlFor={`pair-set-comment-${p.id}`}>Comment on pair set {p.id}</label>
+                      <label className="sr-only" htmlFor={`pair-set-comment-${p.id}`}>
+                        Comment on pair set {p.id}
+                      </label>
                       <input
                         id={`pair-set-comment-${p.id}`}
                         className="rounded border border-rule bg-paper-raised px-2 py-1 text-sm"
@@ -68,10 +73,18 @@ export function PairSetTable() {
                         onChange={(e) => setComment({ ...comment, [p.id]: e.target.value })}
                       />
                       <div className="flex gap-1">
-                        <Button variant="primary" busy={review.isPending} onClick={() => review.mutate({ id: p.id, decision: 'approve', comment: comment[p.id] })}>
+                        <Button
+                          variant="primary"
+                          busy={review.isPending}
+                          onClick={() => review.mutate({ id: p.id, decision: 'approve', comment: comment[p.id] })}
+                        >
                           Approve pair set {p.id}
                         </Button>
-                        <Button variant="danger" disabled={!comment[p.id]} onClick={() => review.mutate({ id: p.id, decision: 'request-changes', comment: comment[p.id] })}>
+                        <Button
+                          variant="danger"
+                          disabled={!comment[p.id]}
+                          onClick={() => review.mutate({ id: p.id, decision: 'request-changes', comment: comment[p.id] })}
+                        >
                           Request changes
                         </Button>
                       </div>
@@ -83,7 +96,11 @@ export function PairSetTable() {
           ))}
         </tbody>
       </table>
-      {review.isError && <p role="alert" className="mt-2 rounded-md bg-changes-soft px-4 py-2 text-sm text-changes">{review.error.message}</p>}
+      {review.isError && (
+        <p role="alert" className="mt-2 rounded-md bg-changes-soft px-4 py-2 text-sm text-changes">
+          {review.error.message}
+        </p>
+      )}
     </div>
   );
 }

@@ -1,5 +1,11 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { ParameterSetComment, ParameterSetDetail, ParameterSetDiff, ParameterSetSummary, ReviewQueueItem } from '@shared/contracts/parameter-set';
+import type {
+  ParameterSetComment,
+  ParameterSetDetail,
+  ParameterSetDiff,
+  ParameterSetSummary,
+  ReviewQueueItem,
+} from '@shared/contracts/parameter-set';
 import type { ParameterSetState } from '@shared/parameter-sets/transitions';
 import type { CreateParameterSetBody, ReviseParameterSetBody, UpdateParameterSetBody } from '@shared/schemas/parameter-sets';
 import { api } from '@/lib/api-client';
@@ -37,11 +43,17 @@ export const substanceParameterSetsQueryOptions = (substanceId: number) =>
   });
 
 export const reviewQueueQueryOptions = () =>
-  queryOptions({ queryKey: parameterSetKeys.queue(), queryFn: () => api<{ parameterSets: QueueItem[] }>('/review-queue').then((r) => r.parameterSets) });
+  queryOptions({
+    queryKey: parameterSetKeys.queue(),
+    queryFn: () => api<{ parameterSets: QueueItem[] }>('/review-queue').then((r) => r.parameterSets),
+  });
 
 /** What waits for the signed-in person: sets sent back to them, their drafts, sets awaiting their review. */
 export const needsActionQueryOptions = () =>
-  queryOptions({ queryKey: parameterSetKeys.needsAction(), queryFn: () => api<{ items: NeedsActionItem[] }>('/workbench/needs-action').then((r) => r.items) });
+  queryOptions({
+    queryKey: parameterSetKeys.needsAction(),
+    queryFn: () => api<{ items: NeedsActionItem[] }>('/workbench/needs-action').then((r) => r.items),
+  });
 
 /** The changes of a revision against the version it revises (values, scheme, validity, data). */
 export const parameterSetDiffQueryOptions = (id: number) =>
@@ -59,11 +71,19 @@ function useParameterSetMutation<TBody, TResult>(fn: (body: TBody) => Promise<TR
   return useMutation({ mutationFn: fn, onSuccess: () => qc.invalidateQueries({ queryKey: parameterSetKeys.all }) });
 }
 
-export const useDraftParameterSet = () => useParameterSetMutation((body: CreateParameterSetBody) => api<ParameterSetSummary>('/parameter-sets', { body }));
-export const useSubmitParameterSet = (id: number) => useParameterSetMutation(() => api<ParameterSetDetail>(`/parameter-sets/${id}/submit`, { method: 'POST' }));
+export const useDraftParameterSet = () =>
+  useParameterSetMutation((body: CreateParameterSetBody) => api<ParameterSetSummary>('/parameter-sets', { body }));
+export const useSubmitParameterSet = (id: number) =>
+  useParameterSetMutation(() => api<ParameterSetDetail>(`/parameter-sets/${id}/submit`, { method: 'POST' }));
 export const useReviewParameterSet = (id: number) =>
-  useParameterSetMutation((body: { decision: 'approve' | 'request_changes'; comment: string }) => api<ParameterSetDetail>(`/parameter-sets/${id}/review`, { body }));
-export const useRetireParameterSet = (id: number) => useParameterSetMutation((body: { reason: string }) => api<ParameterSetDetail>(`/parameter-sets/${id}/retire`, { body }));
-export const useReviseParameterSet = (id: number) => useParameterSetMutation((body: ReviseParameterSetBody) => api<ParameterSetSummary>(`/parameter-sets/${id}/revise`, { body }));
-export const useEditParameterSet = (id: number) => useParameterSetMutation((body: UpdateParameterSetBody) => api<ParameterSetDetail>(`/parameter-sets/${id}`, { method: 'PATCH', body }));
-export const useCommentOnParameterSet = (id: number) => useParameterSetMutation((body: { body: string }) => api<ParameterSetComment>(`/parameter-sets/${id}/comments`, { body }));
+  useParameterSetMutation((body: { decision: 'approve' | 'request_changes'; comment: string }) =>
+    api<ParameterSetDetail>(`/parameter-sets/${id}/review`, { body }),
+  );
+export const useRetireParameterSet = (id: number) =>
+  useParameterSetMutation((body: { reason: string }) => api<ParameterSetDetail>(`/parameter-sets/${id}/retire`, { body }));
+export const useReviseParameterSet = (id: number) =>
+  useParameterSetMutation((body: ReviseParameterSetBody) => api<ParameterSetSummary>(`/parameter-sets/${id}/revise`, { body }));
+export const useEditParameterSet = (id: number) =>
+  useParameterSetMutation((body: UpdateParameterSetBody) => api<ParameterSetDetail>(`/parameter-sets/${id}`, { method: 'PATCH', body }));
+export const useCommentOnParameterSet = (id: number) =>
+  useParameterSetMutation((body: { body: string }) => api<ParameterSetComment>(`/parameter-sets/${id}/comments`, { body }));

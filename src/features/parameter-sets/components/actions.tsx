@@ -35,7 +35,15 @@ export interface FitChoice {
 }
 
 /** The moves the server allows this viewer now (from the shared state machine); nothing else is offered. */
-export function ParameterSetActions({ set, onRevised, fitChoices }: { set: ParameterSetDetail; onRevised: (s: ParameterSetSummary) => void; fitChoices?: FitChoice[] }) {
+export function ParameterSetActions({
+  set,
+  onRevised,
+  fitChoices,
+}: {
+  set: ParameterSetDetail;
+  onRevised: (s: ParameterSetSummary) => void;
+  fitChoices?: FitChoice[];
+}) {
   const moves = new Set(set.allowedMoves);
   if (moves.size === 0) {
     return <p className="text-sm text-ink-soft">Nothing for you to do on this set now ({STATE_LABELS[set.state]}).</p>;
@@ -57,7 +65,11 @@ function SubmitAction({ set }: { set: ParameterSetDetail }) {
     <div className="grid gap-2">
       <p className="text-sm text-ink-soft">Submitting hands the set to the reviewers; its rationale and validity are then fixed.</p>
       <FormError error={submit.error} />
-      <div><Button variant="primary" busy={submit.isPending} onClick={() => submit.mutate(undefined)}>Submit for review</Button></div>
+      <div>
+        <Button variant="primary" busy={submit.isPending} onClick={() => submit.mutate(undefined)}>
+          Submit for review
+        </Button>
+      </div>
     </div>
   );
 }
@@ -76,7 +88,12 @@ function ReviewDecision({ set }: { set: ParameterSetDetail }) {
   const decide = (decision: 'approve' | 'request_changes') => form.handleSubmit(({ comment }) => review.mutate({ decision, comment }));
   return (
     <form noValidate className="grid gap-3" aria-label="Review decision" onSubmit={decide('approve')}>
-      <Field label={FIELD_LABELS.comment} htmlFor="review-comment" error={asSentence(message)} hint="Required for either decision; the author receives it.">
+      <Field
+        label={FIELD_LABELS.comment}
+        htmlFor="review-comment"
+        error={asSentence(message)}
+        hint="Required for either decision; the author receives it."
+      >
         <TextArea id="review-comment" rows={4} {...invalidProps('review-comment', message)} {...form.register('comment')} />
       </Field>
       <FormError error={review.error} unplaced={unplaced} />
@@ -116,7 +133,12 @@ function EditDraft({ set }: { set: ParameterSetDetail }) {
   });
   const errors = form.formState.errors;
   const unplaced = useServerFieldErrors(edit.error, form.setError, sameNames(['rationale', ...VALIDITY_PATHS]));
-  if (!open) return <div><Button onClick={() => setOpen(true)}>Edit rationale and validity</Button></div>;
+  if (!open)
+    return (
+      <div>
+        <Button onClick={() => setOpen(true)}>Edit rationale and validity</Button>
+      </div>
+    );
   return (
     <form
       noValidate
@@ -126,13 +148,22 @@ function EditDraft({ set }: { set: ParameterSetDetail }) {
     >
       <ValidityFields idPrefix="edit" register={(k) => form.register(`validity.${k}`)} errors={errors.validity} />
       <Field label={FIELD_LABELS.rationale} htmlFor="edit-rationale" error={errors.rationale?.message}>
-        <TextArea id="edit-rationale" rows={3} {...invalidProps('edit-rationale', errors.rationale?.message)} {...form.register('rationale')} />
+        <TextArea
+          id="edit-rationale"
+          rows={3}
+          {...invalidProps('edit-rationale', errors.rationale?.message)}
+          {...form.register('rationale')}
+        />
       </Field>
       <p className="text-xs text-ink-faint">ε, σ and their uncertainties are frozen; for other values draft a new set from another fit.</p>
       <FormError error={edit.error} unplaced={unplaced} />
       <div className="flex gap-3">
-        <Button type="submit" variant="primary" busy={edit.isPending}>Save draft</Button>
-        <Button variant="quiet" onClick={() => setOpen(false)}>Cancel</Button>
+        <Button type="submit" variant="primary" busy={edit.isPending}>
+          Save draft
+        </Button>
+        <Button variant="quiet" onClick={() => setOpen(false)}>
+          Cancel
+        </Button>
       </div>
     </form>
   );
@@ -161,9 +192,20 @@ const reviseFormSchema = (ownFitId: number) =>
     })
     .pipe(reviseParameterSetBody);
 
-function ReviseForm({ set, onRevised, fitChoices }: { set: ParameterSetDetail; onRevised: (s: ParameterSetSummary) => void; fitChoices?: FitChoice[] }) {
+function ReviseForm({
+  set,
+  onRevised,
+  fitChoices,
+}: {
+  set: ParameterSetDetail;
+  onRevised: (s: ParameterSetSummary) => void;
+  fitChoices?: FitChoice[];
+}) {
   // The set's own fit first, then the newer succeeded fits of the substance (the server refuses older ones).
-  const choices = [{ id: set.fitId, number: set.fitNumber, label: `Fit #${set.fitNumber} — this set's fit` }, ...(fitChoices ?? []).filter((f) => f.id !== set.fitId && f.number > set.fitNumber)];
+  const choices = [
+    { id: set.fitId, number: set.fitNumber, label: `Fit #${set.fitNumber} — this set's fit` },
+    ...(fitChoices ?? []).filter((f) => f.id !== set.fitId && f.number > set.fitNumber),
+  ];
   const revise = useReviseParameterSet(set.id);
   // The scheme the form shows is the scheme it sends: this set's own for the same fit; for another fit, that
   // fit's own scheme unless the author picks one (the server applies the same rules as to a first draft).
@@ -180,7 +222,11 @@ function ReviseForm({ set, onRevised, fitChoices }: { set: ParameterSetDetail; o
   const errors = form.formState.errors;
   const [fitId, scheme] = useWatch({ control: form.control, name: ['fitId', 'scheme'] });
   const sameFit = Number(fitId) === set.fitId;
-  const unplaced = useServerFieldErrors(revise.error, form.setError, sameNames(['fitId', 'scheme', 'cutoffSigma', 'rationale', ...VALIDITY_PATHS]));
+  const unplaced = useServerFieldErrors(
+    revise.error,
+    form.setError,
+    sameNames(['fitId', 'scheme', 'cutoffSigma', 'rationale', ...VALIDITY_PATHS]),
+  );
   return (
     <form
       noValidate
@@ -192,7 +238,9 @@ function ReviseForm({ set, onRevised, fitChoices }: { set: ParameterSetDetail; o
         revise.mutateAsync(body).then(onRevised, () => undefined);
       })}
     >
-      <p className="text-sm text-ink-soft">A revision is a new draft (the next version) linked to this one; this set stays as the record of its review.</p>
+      <p className="text-sm text-ink-soft">
+        A revision is a new draft (the next version) linked to this one; this set stays as the record of its review.
+      </p>
       <div className="grid gap-3 sm:grid-cols-2">
         <Field
           label={FIELD_LABELS.fitId}
@@ -204,10 +252,15 @@ function ReviseForm({ set, onRevised, fitChoices }: { set: ParameterSetDetail; o
             id="revise-fit"
             {...invalidProps('revise-fit', errors.fitId?.message)}
             {...form.register('fitId', {
-              onChange: (e: React.ChangeEvent<HTMLSelectElement>) => form.setValue('scheme', Number(e.target.value) === set.fitId ? set.scheme : ''),
+              onChange: (e: React.ChangeEvent<HTMLSelectElement>) =>
+                form.setValue('scheme', Number(e.target.value) === set.fitId ? set.scheme : ''),
             })}
           >
-            {choices.map((f) => <option key={f.id} value={String(f.id)}>{f.label}</option>)}
+            {choices.map((f) => (
+              <option key={f.id} value={String(f.id)}>
+                {f.label}
+              </option>
+            ))}
           </Select>
         </Field>
         <Field
@@ -218,7 +271,11 @@ function ReviseForm({ set, onRevised, fitChoices }: { set: ParameterSetDetail; o
         >
           <Select id="revise-scheme" {...invalidProps('revise-scheme', errors.scheme?.message)} {...form.register('scheme')}>
             {!sameFit && <option value="">As the chosen fit was computed</option>}
-            {CUTOFF_SCHEMES.map((k) => <option key={k} value={k}>{CUTOFF_SCHEME_LABELS[k]}</option>)}
+            {CUTOFF_SCHEMES.map((k) => (
+              <option key={k} value={k}>
+                {CUTOFF_SCHEME_LABELS[k]}
+              </option>
+            ))}
           </Select>
         </Field>
         {scheme !== '' && scheme !== 'full-potential' && (
@@ -228,16 +285,30 @@ function ReviseForm({ set, onRevised, fitChoices }: { set: ParameterSetDetail; o
             hint={`${CUTOFF_SIGMA_RANGE.min} to ${CUTOFF_SIGMA_RANGE.max} σ`}
             error={errors.cutoffSigma?.message}
           >
-            <Input id="revise-cutoff" inputMode="decimal" {...invalidProps('revise-cutoff', errors.cutoffSigma?.message)} {...form.register('cutoffSigma')} />
+            <Input
+              id="revise-cutoff"
+              inputMode="decimal"
+              {...invalidProps('revise-cutoff', errors.cutoffSigma?.message)}
+              {...form.register('cutoffSigma')}
+            />
           </Field>
         )}
       </div>
       {sameFit && <ValidityFields idPrefix="revise" register={(k) => form.register(`validity.${k}`)} errors={errors.validity} />}
       <Field label="Rationale of the revision" htmlFor="revise-rationale" error={errors.rationale?.message}>
-        <TextArea id="revise-rationale" rows={3} {...invalidProps('revise-rationale', errors.rationale?.message)} {...form.register('rationale')} />
+        <TextArea
+          id="revise-rationale"
+          rows={3}
+          {...invalidProps('revise-rationale', errors.rationale?.message)}
+          {...form.register('rationale')}
+        />
       </Field>
       <FormError error={revise.error} unplaced={unplaced} />
-      <div><Button type="submit" variant="primary" busy={revise.isPending}>Draft revision</Button></div>
+      <div>
+        <Button type="submit" variant="primary" busy={revise.isPending}>
+          Draft revision
+        </Button>
+      </div>
     </form>
   );
 }
@@ -262,7 +333,11 @@ function RetireForm({ set }: { set: ParameterSetDetail }) {
         <TextArea id="retire-reason" rows={2} {...invalidProps('retire-reason', message)} {...form.register('reason')} />
       </Field>
       <FormError error={retire.error} unplaced={unplaced} />
-      <div><Button type="submit" variant="danger" busy={retire.isPending} disabled={reason.trim().length < 3}>Retire</Button></div>
+      <div>
+        <Button type="submit" variant="danger" busy={retire.isPending} disabled={reason.trim().length < 3}>
+          Retire
+        </Button>
+      </div>
     </form>
   );
 }

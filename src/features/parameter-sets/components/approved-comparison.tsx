@@ -19,10 +19,29 @@ const signed = (x: number, digits: number) => `${x >= 0 ? '+' : '−'}${formatSi
  * This set against the approved version of the same substance and scheme: parameters side by side with
  * the change, and both parameter pairs measured against this set's fitted data, per measurement set.
  */
-export function ApprovedComparison({ set, approved, points, context, measurementSetNames }: { set: ParameterSetSummary; approved: ParameterSetSummary; points: LjResidual[]; context: PropertyContext; measurementSetNames: Record<string, string> }) {
+export function ApprovedComparison({
+  set,
+  approved,
+  points,
+  context,
+  measurementSetNames,
+}: {
+  set: ParameterSetSummary;
+  approved: ParameterSetSummary;
+  points: LjResidual[];
+  context: PropertyContext;
+  measurementSetNames: Record<string, string>;
+}) {
   const rows = [
     { label: 'ε/k_B', unit: 'K', a: approved.epsilonK, ua: approved.stdErr.epsilonK, b: set.epsilonK, ub: set.stdErr.epsilonK },
-    { label: 'σ', unit: 'Å', a: approved.sigmaAngstrom, ua: approved.stdErr.sigmaAngstrom, b: set.sigmaAngstrom, ub: set.stdErr.sigmaAngstrom },
+    {
+      label: 'σ',
+      unit: 'Å',
+      a: approved.sigmaAngstrom,
+      ua: approved.stdErr.sigmaAngstrom,
+      b: set.sigmaAngstrom,
+      ub: set.stdErr.sigmaAngstrom,
+    },
   ];
   const mine = measurementSetDeviations(points, set.epsilonK, set.sigmaAngstrom, context);
   const theirs = measurementSetDeviations(points, approved.epsilonK, approved.sigmaAngstrom, context);
@@ -83,7 +102,10 @@ export function ApprovedComparison({ set, approved, points, context, measurement
             })}
           </tbody>
         </table>
-        <p className="mt-1 text-xs text-ink-faint">Both parameter pairs evaluated with the same model and settings on the points this set was fitted to. The change in u is the difference over the combined standard error √(u₁² + u₂²).</p>
+        <p className="mt-1 text-xs text-ink-faint">
+          Both parameter pairs evaluated with the same model and settings on the points this set was fitted to. The change in u is the
+          difference over the combined standard error √(u₁² + u₂²).
+        </p>
       </div>
     </div>
   );

@@ -1,5 +1,6 @@
 /** Shown wherever frozen parameters are offered for use. */
-export const PARAMETER_CAUTION = 'Fitted model parameters are not validated property data for pressure, safety or process design; defer to local codes and licensed engineering practice.';
+export const PARAMETER_CAUTION =
+  'Fitted model parameters are not validated property data for pressure, safety or process design; defer to local codes and licensed engineering practice.';
 
 export function ParameterSetCaution() {
   return (

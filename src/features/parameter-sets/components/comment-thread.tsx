@@ -26,7 +26,9 @@ export function CommentThread({ set }: { set: ParameterSetDetail }) {
         <ul className="grid gap-3" aria-label="Comments">
           {set.comments.map((c) => (
             <li key={c.id} className="rounded-md border border-rule bg-paper px-4 py-2">
-              <div className="text-xs text-ink-faint"><span className="font-semibold text-ink">{c.authorName}</span> · {formatDateTime(c.createdAt)}</div>
+              <div className="text-xs text-ink-faint">
+                <span className="font-semibold text-ink">{c.authorName}</span> · {formatDateTime(c.createdAt)}
+              </div>
               <p className="mt-1 whitespace-pre-line text-sm">{c.body}</p>
             </li>
           ))}
@@ -42,7 +44,9 @@ export function CommentThread({ set }: { set: ParameterSetDetail }) {
             <TextArea id="comment-body" rows={3} {...invalidProps('comment-body', message)} {...form.register('body')} />
           </Field>
           <div>
-            <Button type="submit" busy={comment.isPending} disabled={!body.trim()}>Post comment</Button>
+            <Button type="submit" busy={comment.isPending} disabled={!body.trim()}>
+              Post comment
+            </Button>
           </div>
         </form>
       )}

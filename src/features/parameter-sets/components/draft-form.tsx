@@ -11,7 +11,12 @@ import { useDraftParameterSet, type ParameterSetSummary } from '../api/parameter
 import { FormError } from './form-error';
 import { toValidity, VALIDITY_PATHS, validityInputOf, ValidityFields, validityInputShape } from './validity-fields';
 
-const draftFormShape = z.object({ scheme: z.enum(CUTOFF_SCHEMES), cutoffSigma: z.string(), validity: validityInputShape, rationale: z.string() });
+const draftFormShape = z.object({
+  scheme: z.enum(CUTOFF_SCHEMES),
+  cutoffSigma: z.string(),
+  validity: validityInputShape,
+  rationale: z.string(),
+});
 type DraftFormValues = z.input<typeof draftFormShape>;
 
 /** The boxes as typed become the request, which createParameterSetBody (the server's schema) then judges. */
@@ -19,7 +24,13 @@ const draftFormSchema = (fitId: number) =>
   draftFormShape
     .transform((v): z.input<typeof createParameterSetBody> => {
       const cutoffSigma = v.scheme !== 'full-potential' ? decimalOf(v.cutoffSigma) : undefined;
-      return { fitId, scheme: v.scheme, ...(cutoffSigma !== undefined ? { cutoffSigma } : {}), validity: toValidity(v.validity), rationale: v.rationale };
+      return {
+        fitId,
+        scheme: v.scheme,
+        ...(cutoffSigma !== undefined ? { cutoffSigma } : {}),
+        validity: toValidity(v.validity),
+        rationale: v.rationale,
+      };
     })
     .pipe(createParameterSetBody);
 
@@ -27,7 +38,15 @@ const draftFormSchema = (fitId: number) =>
  * Drafts a parameter set from a succeeded fit. The validity range starts at the span of the fitted data;
  * the scheme at the fit's (full potential for B2 and viscosity, the simulations' cutoff for densities).
  */
-export function DraftParameterSetForm({ fitId, defaults, onDrafted }: { fitId: number; defaults: { scheme: CutoffScheme; cutoffSigma: number | null; validity: Validity }; onDrafted: (set: ParameterSetSummary) => void }) {
+export function DraftParameterSetForm({
+  fitId,
+  defaults,
+  onDrafted,
+}: {
+  fitId: number;
+  defaults: { scheme: CutoffScheme; cutoffSigma: number | null; validity: Validity };
+  onDrafted: (set: ParameterSetSummary) => void;
+}) {
   const draft = useDraftParameterSet();
   const form = useForm<DraftFormValues, unknown, z.output<typeof createParameterSetBody>>({
     resolver: zodResolver(draftFormSchema(fitId)),
@@ -42,7 +61,12 @@ export function DraftParameterSetForm({ fitId, defaults, onDrafted }: { fitId: n
   const scheme = useWatch({ control: form.control, name: 'scheme' });
   const unplaced = useServerFieldErrors(draft.error, form.setError, sameNames(['scheme', 'cutoffSigma', 'rationale', ...VALIDITY_PATHS]));
   return (
-    <form noValidate className="grid gap-4" aria-label="Draft a parameter set" onSubmit={form.handleSubmit((body) => draft.mutate(body, { onSuccess: onDrafted }))}>
+    <form
+      noValidate
+      className="grid gap-4"
+      aria-label="Draft a parameter set"
+      onSubmit={form.handleSubmit((body) => draft.mutate(body, { onSuccess: onDrafted }))}
+    >
       <div className="grid gap-3 sm:grid-cols-2">
         <Field
           label={FIELD_LABELS.scheme}
@@ -51,7 +75,11 @@ export function DraftParameterSetForm({ fitId, defaults, onDrafted }: { fitId: n
           error={errors.scheme?.message}
         >
           <Select id="draft-scheme" {...invalidProps('draft-scheme', errors.scheme?.message)} {...form.register('scheme')}>
-            {CUTOFF_SCHEMES.map((s) => <option key={s} value={s}>{CUTOFF_SCHEME_LABELS[s]}</option>)}
+            {CUTOFF_SCHEMES.map((s) => (
+              <option key={s} value={s}>
+                {CUTOFF_SCHEME_LABELS[s]}
+              </option>
+            ))}
           </Select>
         </Field>
         {scheme !== 'full-potential' && (
@@ -61,7 +89,12 @@ export function DraftParameterSetForm({ fitId, defaults, onDrafted }: { fitId: n
             hint={`${CUTOFF_SIGMA_RANGE.min} to ${CUTOFF_SIGMA_RANGE.max} σ`}
             error={errors.cutoffSigma?.message}
           >
-            <Input id="draft-cutoff" inputMode="decimal" {...invalidProps('draft-cutoff', errors.cutoffSigma?.message)} {...form.register('cutoffSigma')} />
+            <Input
+              id="draft-cutoff"
+              inputMode="decimal"
+              {...invalidProps('draft-cutoff', errors.cutoffSigma?.message)}
+              {...form.register('cutoffSigma')}
+            />
           </Field>
         )}
       </div>
@@ -77,11 +110,18 @@ export function DraftParameterSetForm({ fitId, defaults, onDrafted }: { fitId: n
         hint="Why these values, for what use; the reviewer reads this first."
         error={errors.rationale?.message}
       >
-        <TextArea id="draft-rationale" rows={3} {...invalidProps('draft-rationale', errors.rationale?.message)} {...form.register('rationale')} />
+        <TextArea
+          id="draft-rationale"
+          rows={3}
+          {...invalidProps('draft-rationale', errors.rationale?.message)}
+          {...form.register('rationale')}
+        />
       </Field>
       <FormError error={draft.error} unplaced={unplaced} />
       <div>
-        <Button type="submit" variant="primary" busy={draft.isPending}>Draft parameter set</Button>
+        <Button type="submit" variant="primary" busy={draft.isPending}>
+          Draft parameter set
+        </Button>
       </div>
     </form>
   );

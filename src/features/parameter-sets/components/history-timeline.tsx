@@ -24,7 +24,9 @@ export function HistoryTimeline({ history }: { history: ParameterSetDetail['hist
             <span className="font-semibold">{h.actorName ?? 'Someone'}</span>
             <span>{MOVE_TEXT[h.move]}</span>
             <ParameterSetStateBadge state={h.toState} />
-            <time className="text-xs text-ink-faint" dateTime={h.at}>{formatDateTime(h.at)}</time>
+            <time className="text-xs text-ink-faint" dateTime={h.at}>
+              {formatDateTime(h.at)}
+            </time>
           </div>
           {h.comment && <p className="mt-1 whitespace-pre-line text-sm text-ink-soft">{h.comment}</p>}
         </li>

@@ -15,7 +15,8 @@ export function NeedsActionList() {
   const items = useNeedsAction();
   if (items.isPending) return <LoadingState label="Looking for work waiting on you…" />;
   if (items.isError) return <ErrorState error={items.error} onRetry={() => items.refetch()} />;
-  if (!items.data.length) return <p className="text-ink-soft">Nothing waits on you: no set sent back, no draft of yours, nothing to review.</p>;
+  if (!items.data.length)
+    return <p className="text-ink-soft">Nothing waits on you: no set sent back, no draft of yours, nothing to review.</p>;
   return (
     <ul className="divide-y divide-rule/70" aria-label="Needs my action">
       {items.data.map((i) => {
@@ -23,7 +24,10 @@ export function NeedsActionList() {
         return (
           <li key={`${i.kind}-${i.parameterSetId}`} className="flex flex-wrap items-center justify-between gap-x-3 gap-y-1 py-2">
             <span className="min-w-0">
-              <Link to={`/parameter-sets/${i.parameterSetId}`} className="font-semibold underline decoration-rule underline-offset-4 hover:decoration-copper">
+              <Link
+                to={`/parameter-sets/${i.parameterSetId}`}
+                className="font-semibold underline decoration-rule underline-offset-4 hover:decoration-copper"
+              >
                 {i.substanceName} v{i.version}
               </Link>
               <span className="text-sm text-ink-soft"> — {k.what}</span>

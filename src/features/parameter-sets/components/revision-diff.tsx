@@ -15,7 +15,10 @@ export function RevisionDiff({ parameterSetId }: { parameterSetId: number }) {
   return (
     <div className="grid gap-3">
       <p className="text-sm text-ink-soft">
-        Against <Link className="text-copper underline" to={`/parameter-sets/${previous.id}`}>v{previous.version}</Link>
+        Against{' '}
+        <Link className="text-copper underline" to={`/parameter-sets/${previous.id}`}>
+          v{previous.version}
+        </Link>
         {changes.length === 0 ? ': nothing changed.' : `: ${changes.length} change${changes.length > 1 ? 's' : ''}.`}
       </p>
       {changes.length > 0 && (
@@ -32,7 +35,9 @@ export function RevisionDiff({ parameterSetId }: { parameterSetId: number }) {
               {changes.map((c) => (
                 <tr key={c.field} className="border-b border-rule/60 align-top">
                   <td className="py-1.5 font-semibold">{c.label}</td>
-                  <td className={`text-ink-soft line-through decoration-ink-faint/50 ${typeof c.before === 'number' ? 'num' : ''}`}>{text(c.before)}</td>
+                  <td className={`text-ink-soft line-through decoration-ink-faint/50 ${typeof c.before === 'number' ? 'num' : ''}`}>
+                    {text(c.before)}
+                  </td>
                   <td className={typeof c.after === 'number' ? 'num' : ''}>{text(c.after)}</td>
                 </tr>
               ))}

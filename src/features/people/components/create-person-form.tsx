@@ -8,7 +8,10 @@ import { useCreatePerson } from '../api/people';
 
 export function CreatePersonForm() {
   const create = useCreatePerson();
-  const form = useForm<CreatePersonBody>({ resolver: zodResolver(createPersonBody), defaultValues: { email: '', name: '', roles: ['consumer'], password: '' } });
+  const form = useForm<CreatePersonBody>({
+    resolver: zodResolver(createPersonBody),
+    defaultValues: { email: '', name: '', roles: ['consumer'], password: '' },
+  });
   const errors = form.formState.errors;
   return (
     <form
@@ -22,8 +25,19 @@ export function CreatePersonForm() {
       <Field label="E-mail" htmlFor="person-email" error={errors.email?.message}>
         <Input id="person-email" type="email" aria-invalid={!!errors.email} {...form.register('email')} />
       </Field>
-      <Field label="Initial password" htmlFor="person-password" error={errors.password?.message} hint="At least 12 characters; tell it to the person yourself. It is stored only as a hash.">
-        <Input id="person-password" type="password" autoComplete="new-password" aria-invalid={!!errors.password} {...form.register('password')} />
+      <Field
+        label="Initial password"
+        htmlFor="person-password"
+        error={errors.password?.message}
+        hint="At least 12 characters; tell it to the person yourself. It is stored only as a hash."
+      >
+        <Input
+          id="person-password"
+          type="password"
+          autoComplete="new-password"
+          aria-invalid={!!errors.password}
+          {...form.register('password')}
+        />
       </Field>
       <fieldset>
         <legend className="text-sm font-semibold">Roles</legend>
@@ -37,8 +51,16 @@ export function CreatePersonForm() {
         </div>
         {errors.roles && <p className="text-sm text-changes">{errors.roles.message}</p>}
       </fieldset>
-      {create.isError && <p role="alert" className="text-sm text-changes">{create.error.message}</p>}
-      {create.isSuccess && <p role="status" className="text-sm text-approved">Added {create.data.email}.</p>}
+      {create.isError && (
+        <p role="alert" className="text-sm text-changes">
+          {create.error.message}
+        </p>
+      )}
+      {create.isSuccess && (
+        <p role="status" className="text-sm text-approved">
+          Added {create.data.email}.
+        </p>
+      )}
       <div>
         <Button type="submit" variant="primary" busy={create.isPending}>
           Add person

@@ -12,13 +12,19 @@ export function PeopleTable({ people }: { people: Person[] }) {
   };
   return (
     <div className="overflow-x-auto">
-      {update.isError && <p role="alert" className="mb-3 rounded-md bg-changes-soft px-3 py-2 text-sm text-changes">{update.error.message}</p>}
+      {update.isError && (
+        <p role="alert" className="mb-3 rounded-md bg-changes-soft px-3 py-2 text-sm text-changes">
+          {update.error.message}
+        </p>
+      )}
       <table className="w-full text-left text-sm">
         <thead className="border-b border-rule text-xs tracking-wide text-ink-faint">
           <tr>
             <th className="py-2 pr-4">Person</th>
             {ROLES.map((r) => (
-              <th key={r} className="px-2 py-2 text-center">{ROLE_LABELS[r]}</th>
+              <th key={r} className="px-2 py-2 text-center">
+                {ROLE_LABELS[r]}
+              </th>
             ))}
             <th className="px-2 py-2">Status</th>
             <th className="py-2" />
@@ -46,7 +52,11 @@ export function PeopleTable({ people }: { people: Person[] }) {
               <td className="px-2">{p.active ? 'Active' : 'Deactivated'}</td>
               <td className="py-2 text-right">
                 {p.id !== me?.id && (
-                  <Button variant={p.active ? 'danger' : 'secondary'} onClick={() => update.mutate({ id: p.id, active: !p.active })} disabled={update.isPending}>
+                  <Button
+                    variant={p.active ? 'danger' : 'secondary'}
+                    onClick={() => update.mutate({ id: p.id, active: !p.active })}
+                    disabled={update.isPending}
+                  >
                     {p.active ? 'Deactivate' : 'Reactivate'}
                   </Button>
                 )}

@@ -53,7 +53,8 @@ export const useStartSimulation = () => {
 export const useStartSimulationsFromMeasurementSet = () => {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: SimulationsFromMeasurementSetBody) => api<{ runs: SimulationStart[] }>('/simulations/from-measurement-set', { body }),
+    mutationFn: (body: SimulationsFromMeasurementSetBody) =>
+      api<{ runs: SimulationStart[] }>('/simulations/from-measurement-set', { body }),
     onSuccess: () => qc.invalidateQueries({ queryKey: simulationKeys.all }),
   });
 };

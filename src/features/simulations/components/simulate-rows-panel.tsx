@@ -20,7 +20,14 @@ const formSchema = (measurementSetId: number, version: number) =>
       version,
       epsilonK: decimalOf(v.epsilonK) ?? Number.NaN,
       sigmaAngstrom: decimalOf(v.sigmaAngstrom) ?? Number.NaN,
-      ...(v.rows.trim() ? { rows: v.rows.split(/[\s,;]+/).filter(Boolean).map(Number) } : {}),
+      ...(v.rows.trim()
+        ? {
+            rows: v.rows
+              .split(/[\s,;]+/)
+              .filter(Boolean)
+              .map(Number),
+          }
+        : {}),
     }))
     .pipe(simulationsFromMeasurementSetBody);
 
@@ -41,25 +48,44 @@ export function SimulateRowsPanel({ measurementSetId, version }: { measurementSe
   const rowsError = firstMessage(errors.rows);
   return (
     <form noValidate className="grid gap-3" onSubmit={form.handleSubmit((body) => start.mutate(body))}>
-      <p className="text-sm text-ink-soft">Each measured (T, P) maps to T* = T/(ε/k_B), P* = Pσ³/ε; one NPT run per row. Runs at a reduced state already simulated are reused.</p>
+      <p className="text-sm text-ink-soft">
+        Each measured (T, P) maps to T* = T/(ε/k_B), P* = Pσ³/ε; one NPT run per row. Runs at a reduced state already simulated are reused.
+      </p>
       <div className="grid grid-cols-2 gap-3">
         <Field label={FIELD_LABELS.epsilonK} htmlFor="sim-eps" error={errors.epsilonK?.message}>
           <Input id="sim-eps" inputMode="decimal" {...invalidProps('sim-eps', errors.epsilonK?.message)} {...form.register('epsilonK')} />
         </Field>
         <Field label={FIELD_LABELS.sigmaAngstrom} htmlFor="sim-sigma" error={errors.sigmaAngstrom?.message}>
-          <Input id="sim-sigma" inputMode="decimal" {...invalidProps('sim-sigma', errors.sigmaAngstrom?.message)} {...form.register('sigmaAngstrom')} />
+          <Input
+            id="sim-sigma"
+            inputMode="decimal"
+            {...invalidProps('sim-sigma', errors.sigmaAngstrom?.message)}
+            {...form.register('sigmaAngstrom')}
+          />
         </Field>
       </div>
       <Field label="File rows (optional)" htmlFor="sim-rows" hint="e.g. 3, 4, 7 — all rows when empty" error={rowsError}>
         <Input id="sim-rows" {...invalidProps('sim-rows', rowsError)} {...form.register('rows')} />
       </Field>
-      {start.isError && <p role="alert" className="text-sm text-changes">{start.error.message}</p>}
-      {start.isSuccess && (
-        <p role="status" className="text-sm text-approved">
-          {start.data.runs.length} run(s): {start.data.runs.filter((r) => r.reused).length} reused. <Link className="underline" to="/simulations">Follow them on the Simulations page</Link>.
+      {start.isError && (
+        <p role="alert" className="text-sm text-changes">
+          {start.error.message}
         </p>
       )}
-      <div><Button type="submit" busy={start.isPending} disabled={!(Number(eps) > 0 && Number(sigma) > 0)}>Simulate state points</Button></div>
+      {start.isSuccess && (
+        <p role="status" className="text-sm text-approved">
+          {start.data.runs.length} run(s): {start.data.runs.filter((r) => r.reused).length} reused.{' '}
+          <Link className="underline" to="/simulations">
+            Follow them on the Simulations page
+          </Link>
+          .
+        </p>
+      )}
+      <div>
+        <Button type="submit" busy={start.isPending} disabled={!(Number(eps) > 0 && Number(sigma) > 0)}>
+          Simulate state points
+        </Button>
+      </div>
     </form>
   );
 }

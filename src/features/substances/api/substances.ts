@@ -8,7 +8,10 @@ import { substanceKeys } from '@/lib/query-keys';
 export type { Substance, SubstanceDetail, SubstanceListItem } from '@shared/contracts/substance';
 
 export const substancesQueryOptions = () =>
-  queryOptions({ queryKey: substanceKeys.list(), queryFn: () => api<{ substances: SubstanceListItem[] }>('/substances').then((r) => r.substances) });
+  queryOptions({
+    queryKey: substanceKeys.list(),
+    queryFn: () => api<{ substances: SubstanceListItem[] }>('/substances').then((r) => r.substances),
+  });
 
 export const substanceQueryOptions = (id: number) =>
   queryOptions({ queryKey: substanceKeys.detail(id), queryFn: () => api<SubstanceDetail>(`/substances/${id}`) });

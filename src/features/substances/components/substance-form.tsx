@@ -23,10 +23,29 @@ const formSchema = formShape
 const FIELDS = ['name', 'formula', 'description', 'molarMassGPerMol'] as const;
 
 /** Create or edit a substance. The server validates again with the shared zod schema. */
-export function SubstanceForm({ initial, submitLabel, busy, error, onSubmit, molarMassLocked }: { initial?: Partial<SubstanceInput>; submitLabel: string; busy: boolean; error: Error | null; onSubmit: (v: SubstanceInput) => void; molarMassLocked?: boolean }) {
+export function SubstanceForm({
+  initial,
+  submitLabel,
+  busy,
+  error,
+  onSubmit,
+  molarMassLocked,
+}: {
+  initial?: Partial<SubstanceInput>;
+  submitLabel: string;
+  busy: boolean;
+  error: Error | null;
+  onSubmit: (v: SubstanceInput) => void;
+  molarMassLocked?: boolean;
+}) {
   const form = useForm<FormValues, unknown, SubstanceInput>({
     resolver: zodResolver(formSchema),
-    defaultValues: { name: initial?.name ?? '', formula: initial?.formula ?? '', description: initial?.description ?? '', molarMassGPerMol: initial?.molarMassGPerMol ? String(initial.molarMassGPerMol) : '' },
+    defaultValues: {
+      name: initial?.name ?? '',
+      formula: initial?.formula ?? '',
+      description: initial?.description ?? '',
+      molarMassGPerMol: initial?.molarMassGPerMol ? String(initial.molarMassGPerMol) : '',
+    },
   });
   const errors = form.formState.errors;
   const unplaced = useServerFieldErrors(error, form.setError, sameNames(FIELDS));
@@ -35,14 +54,30 @@ export function SubstanceForm({ initial, submitLabel, busy, error, onSubmit, mol
       <Field label="Name" htmlFor="substance-name" error={errors.name?.message}>
         <Input id="substance-name" {...invalidProps('substance-name', errors.name?.message)} {...form.register('name')} />
       </Field>
-      <Field label="Molar mass (g/mol)" htmlFor="substance-molar-mass" hint={molarMassLocked ? 'Fixed: stored densities depend on it.' : 'Needed to convert molar densities and for viscosities.'} error={errors.molarMassGPerMol?.message}>
-        <Input id="substance-molar-mass" inputMode="decimal" readOnly={molarMassLocked} {...invalidProps('substance-molar-mass', errors.molarMassGPerMol?.message)} {...form.register('molarMassGPerMol')} />
+      <Field
+        label="Molar mass (g/mol)"
+        htmlFor="substance-molar-mass"
+        hint={molarMassLocked ? 'Fixed: stored densities depend on it.' : 'Needed to convert molar densities and for viscosities.'}
+        error={errors.molarMassGPerMol?.message}
+      >
+        <Input
+          id="substance-molar-mass"
+          inputMode="decimal"
+          readOnly={molarMassLocked}
+          {...invalidProps('substance-molar-mass', errors.molarMassGPerMol?.message)}
+          {...form.register('molarMassGPerMol')}
+        />
       </Field>
       <Field label="Formula (optional)" htmlFor="substance-formula" error={errors.formula?.message}>
         <Input id="substance-formula" {...invalidProps('substance-formula', errors.formula?.message)} {...form.register('formula')} />
       </Field>
       <Field label="Description (optional)" htmlFor="substance-description" error={errors.description?.message}>
-        <TextArea id="substance-description" rows={3} {...invalidProps('substance-description', errors.description?.message)} {...form.register('description')} />
+        <TextArea
+          id="substance-description"
+          rows={3}
+          {...invalidProps('substance-description', errors.description?.message)}
+          {...form.register('description')}
+        />
       </Field>
       {error && (
         <p role="alert" className="text-sm text-changes">
@@ -51,7 +86,9 @@ export function SubstanceForm({ initial, submitLabel, busy, error, onSubmit, mol
         </p>
       )}
       <div>
-        <Button type="submit" variant="primary" busy={busy}>{submitLabel}</Button>
+        <Button type="submit" variant="primary" busy={busy}>
+          {submitLabel}
+        </Button>
       </div>
     </form>
   );

@@ -9,7 +9,8 @@ export const tokenKeys = {
   mine: () => [...tokenKeys.all, 'mine'] as const,
 };
 
-export const myTokensQueryOptions = () => queryOptions({ queryKey: tokenKeys.mine(), queryFn: () => api<TokenList>('/tokens').then((r) => r.tokens) });
+export const myTokensQueryOptions = () =>
+  queryOptions({ queryKey: tokenKeys.mine(), queryFn: () => api<TokenList>('/tokens').then((r) => r.tokens) });
 
 export const useMyTokens = () => useQuery(myTokensQueryOptions());
 

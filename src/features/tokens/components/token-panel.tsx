@@ -20,15 +20,22 @@ function NewSecret({ name, secret, onDone }: { name: string; secret: string; onD
       <p className="font-semibold text-approved">Token “{name}” created</p>
       <p className="mt-1 text-sm">Copy it now: it is shown only this once. Epsigma keeps only a hash and cannot show it again.</p>
       <div className="mt-2 flex flex-wrap items-center gap-2">
-        <code className="select-all break-all rounded bg-paper px-2 py-1 font-mono text-sm" data-testid="new-token">{secret}</code>
+        <code className="select-all break-all rounded bg-paper px-2 py-1 font-mono text-sm" data-testid="new-token">
+          {secret}
+        </code>
         <Button
           onClick={() => {
-            void navigator.clipboard?.writeText(secret).then(() => setCopied(true), () => setCopied(false));
+            void navigator.clipboard?.writeText(secret).then(
+              () => setCopied(true),
+              () => setCopied(false),
+            );
           }}
         >
           {copied ? 'Copied' : 'Copy'}
         </Button>
-        <Button variant="quiet" onClick={onDone}>Done</Button>
+        <Button variant="quiet" onClick={onDone}>
+          Done
+        </Button>
       </div>
       <pre className="mt-3 overflow-x-auto rounded bg-paper px-3 py-2 text-xs">{`export EPSIGMA_TOKEN=…   # the token above\ncurl -H "Authorization: Bearer $EPSIGMA_TOKEN" ${window.location.origin}/api/catalog`}</pre>
     </div>
@@ -43,7 +50,13 @@ function TokenRow({ token }: { token: ApiToken }) {
       <td className="font-mono text-xs">{token.prefix}…</td>
       <td>{when(token.createdAt)}</td>
       <td>{when(token.lastUsedAt)}</td>
-      <td>{token.active ? <span className="text-approved">Active</span> : <span className="text-ink-faint">Revoked {when(token.revokedAt)}</span>}</td>
+      <td>
+        {token.active ? (
+          <span className="text-approved">Active</span>
+        ) : (
+          <span className="text-ink-faint">Revoked {when(token.revokedAt)}</span>
+        )}
+      </td>
       <td className="text-right">
         {token.active && (
           <Button variant="danger" busy={revoke.isPending} onClick={() => revoke.mutate(token.id)} aria-label={`Revoke ${token.name}`}>
@@ -86,9 +99,15 @@ export function TokenPanel() {
             <Input id="token-name" maxLength={80} {...invalidProps('token-name', nameError)} {...form.register('name')} />
           </Field>
         </div>
-        <Button type="submit" variant="primary" busy={create.isPending}>Create token</Button>
+        <Button type="submit" variant="primary" busy={create.isPending}>
+          Create token
+        </Button>
       </form>
-      {create.isError && !nameError && <p role="alert" className="text-sm text-changes">{create.error.message}</p>}
+      {create.isError && !nameError && (
+        <p role="alert" className="text-sm text-changes">
+          {create.error.message}
+        </p>
+      )}
       {shown && <NewSecret name={shown.name} secret={shown.secret} onDone={() => setShown(null)} />}
       {tokens.isPending ? (
         <LoadingState />
@@ -108,7 +127,11 @@ export function TokenPanel() {
               <th />
             </tr>
           </thead>
-          <tbody>{tokens.data.map((t) => <TokenRow key={t.id} token={t} />)}</tbody>
+          <tbody>
+            {tokens.data.map((t) => (
+              <TokenRow key={t.id} token={t} />
+            ))}
+          </tbody>
         </table>
       )}
     </div>

@@ -29,9 +29,9 @@ export function ValidationSummary({ run }: { run: ValidationSuiteRun }) {
         </p>
       </div>
       <p className="mt-2 text-sm text-ink-soft">
-        Each check compares a number computed by this server's code with a published or independent value, within the tolerance the unit tests use
-        (the tests read the same entries from <code>shared/validation</code>). {run.summary.testSuiteOnly} simulation checks take minutes and run in the
-        test suite only; they are listed at the end.
+        Each check compares a number computed by this server's code with a published or independent value, within the tolerance the unit
+        tests use (the tests read the same entries from <code>shared/validation</code>). {run.summary.testSuiteOnly} simulation checks take
+        minutes and run in the test suite only; they are listed at the end.
       </p>
     </Panel>
   );
@@ -45,7 +45,9 @@ export function ValidationArea({ area, checks }: { area: string; checks: Validat
     <details open={!allPassed} className="group rounded-lg border border-rule bg-paper-raised" data-area={area}>
       <summary className="flex cursor-pointer items-center justify-between gap-3 rounded-lg px-4 py-3 hover:bg-paper-deep/40 focus-visible:outline-2 focus-visible:outline-copper">
         <span className="font-semibold">
-          <span aria-hidden="true" className="mr-2 inline-block text-ink-faint transition-transform group-open:rotate-90">▸</span>
+          <span aria-hidden="true" className="mr-2 inline-block text-ink-faint transition-transform group-open:rotate-90">
+            ▸
+          </span>
           {area}
         </span>
         <Badge tone={allPassed ? 'approved' : 'changes'}>
@@ -57,13 +59,27 @@ export function ValidationArea({ area, checks }: { area: string; checks: Validat
           <caption className="sr-only">Reference checks of {area}</caption>
           <thead className="border-b border-rule text-xs tracking-wide text-ink-faint">
             <tr>
-              <th scope="col" className="py-1.5 text-left">Check</th>
-              <th scope="col" className="text-left">Source</th>
-              <th scope="col" className="text-right">Reference</th>
-              <th scope="col" className="text-right">Ours</th>
-              <th scope="col" className="text-right">Difference</th>
-              <th scope="col" className="pl-3 text-left">Tolerance</th>
-              <th scope="col" className="text-left">Verdict</th>
+              <th scope="col" className="py-1.5 text-left">
+                Check
+              </th>
+              <th scope="col" className="text-left">
+                Source
+              </th>
+              <th scope="col" className="text-right">
+                Reference
+              </th>
+              <th scope="col" className="text-right">
+                Ours
+              </th>
+              <th scope="col" className="text-right">
+                Difference
+              </th>
+              <th scope="col" className="pl-3 text-left">
+                Tolerance
+              </th>
+              <th scope="col" className="text-left">
+                Verdict
+              </th>
             </tr>
           </thead>
           <tbody>
@@ -108,11 +124,21 @@ export function TestSuiteOnlyChecks({ checks }: { checks: ValidationTestSuiteOnl
           <caption className="sr-only">Simulation checks that only the test suite runs</caption>
           <thead className="border-b border-rule text-xs tracking-wide text-ink-faint">
             <tr>
-              <th scope="col" className="py-1.5 text-left">Check</th>
-              <th scope="col" className="text-left">Source</th>
-              <th scope="col" className="text-right">Reference</th>
-              <th scope="col" className="pl-3 text-left">Tolerance</th>
-              <th scope="col" className="text-left">Test</th>
+              <th scope="col" className="py-1.5 text-left">
+                Check
+              </th>
+              <th scope="col" className="text-left">
+                Source
+              </th>
+              <th scope="col" className="text-right">
+                Reference
+              </th>
+              <th scope="col" className="pl-3 text-left">
+                Tolerance
+              </th>
+              <th scope="col" className="text-left">
+                Test
+              </th>
             </tr>
           </thead>
           <tbody>
