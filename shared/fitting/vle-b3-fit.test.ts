@@ -76,7 +76,7 @@ describe('fits with saturation properties and B3', () => {
     } as Parameters<typeof fitLennardJones>[1]);
     expect(r.status).toBe('failed');
     expect(r.failureReason).toMatch(
-      /measurement-set liq, row 5: T = 240 K is at or above the critical temperature of the Thol et al\. \(2016\) equation/,
+      /measurement set liq, row 5: T = 240 K is at or above the critical temperature of the Thol et al\. \(2016\) equation/,
     );
   });
 });
