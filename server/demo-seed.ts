@@ -127,7 +127,7 @@ async function demoPerson(db: Db | Tx, role: 'modeller' | 'reviewer'): Promise<C
  * submits it, and the demo reviewer approves it, so the history, audit trail and mail are those of a real review.
  * Density tables need simulations and are left for the modeller to fit in the demo.
  */
-async function seedApprovedSets(ctx: AppContext): Promise<number> {
+export async function seedApprovedSets(ctx: AppContext): Promise<number> {
   const modeller = await demoPerson(ctx.db, 'modeller');
   const reviewer = await demoPerson(ctx.db, 'reviewer');
   if (!modeller || !reviewer) return 0;

@@ -3,7 +3,7 @@ import { fileURLToPath } from 'node:url';
 import { createApp } from './app';
 import { createContext } from './bootstrap';
 import { loadEnv } from './config/env';
-import { seedDemo } from './demo-seed';
+import { seedApprovedSets, seedDemo } from './demo-seed';
 import { DEMO_PEOPLE } from '../fixtures/demo/scenario';
 
 const CLIENT_DIR = fileURLToPath(new URL('../dist/client/', import.meta.url));
@@ -12,8 +12,10 @@ const CLIENT_DIR = fileURLToPath(new URL('../dist/client/', import.meta.url));
 export async function startServer() {
   const env = loadEnv();
   const ctx = await createContext(env);
-  // The demo catalog: real fits of the gas-phase tables, approved through the review services.
-  const { seeded } = await seedDemo(ctx, { demoPassword: env.DEMO_PASSWORD, withApprovedSets: true });
+  // The demo catalog: real fits of the gas-phase tables, approved through the review services. With WORKERS=0 those
+  // fits run on worker processes that may start after this one, so they are approved in the background once served.
+  const workersHere = env.WORKERS > 0;
+  const { seeded } = await seedDemo(ctx, { demoPassword: env.DEMO_PASSWORD, withApprovedSets: workersHere });
   const app = createApp(ctx, { clientDir: CLIENT_DIR });
   const server = app.listen(env.PORT, env.HOST, () => {
     const address = server.address();
@@ -26,6 +28,11 @@ export async function startServer() {
     console.log(`Demo sign-ins (password from DEMO_PASSWORD${process.env.DEMO_PASSWORD ? '' : ', default "epsigma-demo-2026"'}):`);
     for (const p of DEMO_PEOPLE) console.log(`  ${p.roles.join(', ').padEnd(9)} ${p.email}`);
     console.log(`LISTENING ${url}`);
+    if (seeded && !workersHere)
+      seedApprovedSets(ctx).then(
+        (n) => console.log(`Approved ${n} demo parameter sets (their fits ran on the worker processes).`),
+        (err: unknown) => console.error(`Demo parameter sets not approved: ${err instanceof Error ? err.message : String(err)}`),
+      );
   });
   const shutdown = () => {
     server.close();
