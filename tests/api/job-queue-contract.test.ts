@@ -140,8 +140,9 @@ describe.each(['sqlite', 'redis'] as const)('job queue contract, %s driver', (dr
   });
 
   it('runs a job: progress while it runs, then the result exactly as the engine computes it, and where it ran', async () => {
+    // Long enough (a few seconds) that a status poll sees it running even on a loaded machine.
     expect(ctx.jobs.driver).toBe(driver);
-    const req = simulation({ ...SHORT, steps: 4000, seed: 11 });
+    const req = simulation({ ...SHORT, steps: 16_000, seed: 11 });
     const { id, reused } = await ctx.jobs.enqueue(req);
     expect(reused).toBe(false);
     const seen = await until(
